@@ -1,0 +1,18 @@
+import { bigserial, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+
+/** Append-only record of who did what to which object (a trigger refuses UPDATE and DELETE). */
+export const auditEvents = pgTable(
+  'audit_events',
+  {
+    id: bigserial('id', { mode: 'number' }).primaryKey(),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+    actorId: uuid('actor_id'),
+    action: text('action').notNull(),
+    objectType: text('object_type').notNull(),
+    objectId: text('object_id'),
+    detail: jsonb('detail').notNull().default({}),
+  },
+  (t) => [index('audit_events_at_idx').on(t.at), index('audit_events_object_idx').on(t.objectType, t.objectId)],
+);
+
+export type AuditEventRow = typeof auditEvents.$inferSelect;

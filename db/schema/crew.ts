@@ -1,0 +1,54 @@
+import { boolean, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+
+import { users } from './users.ts';
+
+/** A person an inertia profile describes. `currentVersion` names the current profile version. */
+export const crewMembers = pgTable('crew_members', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  name: text('name').notNull(),
+  // Short call name shown in lists, e.g. a station call sign.
+  callSign: text('call_sign'),
+  notes: text('notes').notNull().default(''),
+  currentVersion: integer('current_version'),
+  createdBy: uuid('created_by').references(() => users.id),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Suit configurations: added mass/inertia per segment, suited ranges, locked joints (JSON per shared/contracts/suit.ts). */
+export const suitConfigs = pgTable('suit_configs', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  name: text('name').notNull().unique(),
+  config: jsonb('config').notNull(),
+  illustrative: boolean('illustrative').notNull().default(true),
+  updatedBy: uuid('updated_by').references(() => users.id),
+  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/**
+ * Immutable inertia profile versions (a trigger refuses UPDATE and DELETE).
+ * `inputs`: measurements, suit snapshot and gear; `body`: the derived body contract;
+ * `summary`: whole-body mass, CoM and principal moments in the reference posture.
+ */
+export const profileVersions = pgTable(
+  'profile_versions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    crewMemberId: uuid('crew_member_id')
+      .notNull()
+      .references(() => crewMembers.id),
+    version: integer('version').notNull(),
+    source: text('source').notNull().default('regression'),
+    inputs: jsonb('inputs').notNull(),
+    body: jsonb('body').notNull(),
+    summary: jsonb('summary').notNull(),
+    engineVersion: text('engine_version').notNull(),
+    authorId: uuid('author_id').references(() => users.id),
+    note: text('note').notNull().default(''),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique('profile_versions_member_version').on(t.crewMemberId, t.version)],
+);
+
+export type CrewMemberRow = typeof crewMembers.$inferSelect;
+export type SuitConfigRow = typeof suitConfigs.$inferSelect;
+export type ProfileVersionRow = typeof profileVersions.$inferSelect;

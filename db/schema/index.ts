@@ -1,0 +1,5 @@
+export * from './audit.ts';
+export * from './crew.ts';
+export * from './sequences.ts';
+export * from './uploads.ts';
+export * from './users.ts';

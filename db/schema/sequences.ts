@@ -1,0 +1,115 @@
+import { doublePrecision, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+
+import { VERSION_STATUSES } from '../../shared/contracts/version-status.ts';
+import { crewMembers, profileVersions } from './crew.ts';
+import { users } from './users.ts';
+
+export const versionStatusEnum = pgEnum('version_status', VERSION_STATUSES);
+
+/** A named maneuver for one crew member with its target reorientation (JSON per shared contracts). */
+export const sequences = pgTable('sequences', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  crewMemberId: uuid('crew_member_id')
+    .notNull()
+    .references(() => crewMembers.id),
+  name: text('name').notNull(),
+  target: jsonb('target').notNull(),
+  createdBy: uuid('created_by').references(() => users.id),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/**
+ * One version of a sequence: composer primitives, the compiled engine steps, the profile version it
+ * was computed for, and its verification report. Once cleared (approved) the content is frozen by a
+ * trigger; only the status may move on (to replaced or recheck).
+ */
+export const sequenceVersions = pgTable(
+  'sequence_versions',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    sequenceId: uuid('sequence_id')
+      .notNull()
+      .references(() => sequences.id),
+    version: integer('version').notNull(),
+    primitives: jsonb('primitives').notNull(),
+    compiled: jsonb('compiled').notNull(),
+    profileVersionId: uuid('profile_version_id')
+      .notNull()
+      .references(() => profileVersions.id),
+    status: versionStatusEnum('status').notNull().default('drafting'),
+    report: jsonb('report'),
+    engineVersion: text('engine_version'),
+    inputsHash: text('inputs_hash'),
+    authorId: uuid('author_id').references(() => users.id),
+    note: text('note').notNull().default(''),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    submittedAt: timestamp('submitted_at', { withTimezone: true }),
+    clearedBy: uuid('cleared_by').references(() => users.id),
+    clearedAt: timestamp('cleared_at', { withTimezone: true }),
+    staleSince: timestamp('stale_since', { withTimezone: true }),
+  },
+  (t) => [unique('sequence_versions_seq_version').on(t.sequenceId, t.version)],
+);
+
+/** A reviewer's decision or comment on a version, with the exact bindings it was made against. */
+export const reviews = pgTable('reviews', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  sequenceVersionId: uuid('sequence_version_id')
+    .notNull()
+    .references(() => sequenceVersions.id),
+  reviewerId: uuid('reviewer_id')
+    .notNull()
+    .references(() => users.id),
+  // clear | send_back | comment
+  decision: text('decision').notNull(),
+  comment: text('comment').notNull().default(''),
+  profileVersionId: uuid('profile_version_id').references(() => profileVersions.id),
+  engineVersion: text('engine_version'),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Background recomputation of a version against a newer profile version (pg-boss job outcome). */
+export const reverifications = pgTable('reverifications', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  sequenceVersionId: uuid('sequence_version_id')
+    .notNull()
+    .references(() => sequenceVersions.id),
+  fromProfileVersionId: uuid('from_profile_version_id')
+    .notNull()
+    .references(() => profileVersions.id),
+  toProfileVersionId: uuid('to_profile_version_id')
+    .notNull()
+    .references(() => profileVersions.id),
+  // queued | running | done | failed
+  state: text('state').notNull().default('queued'),
+  // Angle between the old and the recomputed final attitude, degrees.
+  attitudeShiftDeg: doublePrecision('attitude_shift_deg'),
+  report: jsonb('report'),
+  error: text('error'),
+  attempts: integer('attempts').notNull().default(0),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  finishedAt: timestamp('finished_at', { withTimezone: true }),
+});
+
+/** A trainee's logged run of a cleared version. */
+export const rehearsals = pgTable('rehearsals', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  sequenceVersionId: uuid('sequence_version_id')
+    .notNull()
+    .references(() => sequenceVersions.id),
+  traineeId: uuid('trainee_id')
+    .notNull()
+    .references(() => users.id),
+  performedAt: timestamp('performed_at', { withTimezone: true }).notNull().defaultNow(),
+  playbackSpeed: doublePrecision('playback_speed').notNull(),
+  completedSteps: integer('completed_steps').notNull(),
+  totalSteps: integer('total_steps').notNull(),
+  selfRating: integer('self_rating').notNull(),
+  notes: text('notes').notNull().default(''),
+});
+
+export type SequenceRow = typeof sequences.$inferSelect;
+export type SequenceVersionRow = typeof sequenceVersions.$inferSelect;
+export type ReviewRow = typeof reviews.$inferSelect;
+export type ReverificationRow = typeof reverifications.$inferSelect;
+export type RehearsalRow = typeof rehearsals.$inferSelect;

@@ -1,0 +1,33 @@
+import { integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+
+import { users } from './users.ts';
+
+/** A stored file: the raw bytes live in object storage under `objectKey`; parsed rows below. */
+export const uploads = pgTable('uploads', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  // measurements_csv | segment_table_csv | segment_table_json | joint_angles_csv
+  kind: text('kind').notNull(),
+  objectKey: text('object_key').notNull().unique(),
+  fileName: text('file_name').notNull(),
+  contentType: text('content_type').notNull(),
+  sizeBytes: integer('size_bytes').notNull(),
+  sha256: text('sha256').notNull(),
+  // imported | rejected
+  status: text('status').notNull(),
+  rowCount: integer('row_count').notNull().default(0),
+  errors: jsonb('errors').notNull().default([]),
+  uploadedBy: uuid('uploaded_by').references(() => users.id),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Parsed rows of an imported upload, one JSON object per data row (1-based row numbers as in the file). */
+export const uploadRows = pgTable('upload_rows', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  uploadId: uuid('upload_id')
+    .notNull()
+    .references(() => uploads.id),
+  rowNumber: integer('row_number').notNull(),
+  data: jsonb('data').notNull(),
+});
+
+export type UploadRow = typeof uploads.$inferSelect;

@@ -1,0 +1,25 @@
+import { sql } from 'drizzle-orm';
+
+import type { Database } from '../client.ts';
+import { seedTeam } from './seed-team.ts';
+
+/** Context handed to each later seed stage (crew profiles, sequences…). */
+export interface SeedState {
+  db: Database;
+  bcryptCost: number;
+  crewIds: Record<string, string>;
+  userIds: Record<string, string>;
+}
+
+/** Seed stages after the team, in order; each adds one part of the demo scenario. */
+export const SEED_STAGES: Array<(s: SeedState) => Promise<void>> = [];
+
+/** Seeds the demo scenario into an empty database; does nothing when users exist. Returns whether it seeded. */
+export async function seedDemo(db: Database, bcryptCost: number): Promise<boolean> {
+  const { rows } = await db.execute<{ n: number }>(sql`SELECT count(*)::int AS n FROM users`);
+  if (rows[0].n > 0) return false;
+  const ids = await seedTeam(db, bcryptCost);
+  const state: SeedState = { db, bcryptCost, ...ids };
+  for (const stage of SEED_STAGES) await stage(state);
+  return true;
+}

@@ -1,0 +1,27 @@
+import type { Logger } from 'pino';
+
+import type { Database } from '../db/client.ts';
+import type { TokenService } from './auth/tokens.ts';
+import type { Config } from './config.ts';
+import type { Mailer } from './mail/mailer.ts';
+import type { ReceivedMail } from './mail/smtp-fake.ts';
+import type { ObjectStore } from './storage/object-store.ts';
+
+/** Everything a route needs, built once at start and passed down (no module-level singletons). */
+export interface AppContext {
+  config: Config;
+  db: Database;
+  tokens: TokenService;
+  mailer: Mailer;
+  storage: ObjectStore;
+  logger: Logger;
+  /** Messages of the local SMTP fake, when one runs in this process (development and tests). */
+  devMailbox?: readonly ReceivedMail[];
+  /** Hands background work (re-verification) to the job queue; set when a queue is running. */
+  jobs?: JobQueue;
+}
+
+/** The part of the job queue the routes use. */
+export interface JobQueue {
+  enqueueReverification(sequenceVersionIds: string[], toProfileVersionId: string): Promise<void>;
+}

@@ -1,0 +1,17 @@
+import type { SessionUser } from '../../shared/contracts/auth.ts';
+import type { UserRow } from '../../db/schema/index.ts';
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    interface Request {
+      /** Set by `authenticate` for every signed-in request. */
+      user?: SessionUser;
+    }
+  }
+}
+
+/** The public view of a user row. */
+export function toSessionUser(row: UserRow): SessionUser {
+  return { id: row.id, email: row.email, name: row.name, role: row.role, crewMemberId: row.crewMemberId };
+}

@@ -1,0 +1,62 @@
+import { z } from 'zod';
+
+const bool = z
+  .enum(['true', 'false', '1', '0', ''])
+  .transform((v) => v === 'true' || v === '1');
+
+/** Every setting the server reads, from the environment, validated once at start. */
+export const configSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(8080),
+  /** Public base URL used in e-mailed links. Defaults to http://HOST:PORT. */
+  PUBLIC_URL: z.string().url().optional(),
+  DATABASE_URL: z.string().min(1, 'DATABASE_URL is required'),
+  /** HS256 key for session tokens; at least 32 characters. */
+  JWT_SECRET: z.string().min(32, 'JWT_SECRET must be at least 32 characters'),
+  /** Session token lifetime, jose time span ("2h", "30m"). */
+  TOKEN_TTL: z.string().default('8h'),
+  /** bcrypt cost. 12 or more in production; tests lower it through this setting only. */
+  BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
+  /** Sign-in attempts allowed per e-mail and address per window. */
+  SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  SIGNIN_RATE_WINDOW_MS: z.coerce.number().int().min(1000).default(15 * 60 * 1000),
+  SMTP_HOST: z.string().default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
+  SMTP_SECURE: bool.default(false),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  /** Set for the local SMTP fake, whose certificate has expired. */
+  SMTP_IGNORE_TLS: bool.default(false),
+  MAIL_FROM: z.string().default('Holonaut <no-reply@holonaut.invalid>'),
+  S3_ENDPOINT: z.string().url().optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_BUCKET: z.string().default('holonaut-uploads'),
+  S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
+  S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  /** Folder of the exported web app; served when it exists. */
+  WEB_DIST: z.string().optional(),
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /** Simulation time budget per request, ms. */
+  SIMULATION_TIMEOUT_MS: z.coerce.number().int().min(100).default(20_000),
+});
+
+export type Config = z.infer<typeof configSchema>;
+
+/** Parses the environment; throws one message listing every bad setting. */
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const parsed = configSchema.safeParse(env);
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`);
+    throw new Error(`Invalid configuration:\n${lines.join('\n')}`);
+  }
+  if (parsed.data.NODE_ENV === 'production' && parsed.data.BCRYPT_COST < 12) {
+    throw new Error('Invalid configuration:\n  BCRYPT_COST: must be at least 12 in production');
+  }
+  return parsed.data;
+}
+
+/** Base URL for links in e-mails. */
+export function publicUrl(config: Config): string {
+  return (config.PUBLIC_URL ?? `http://${config.HOST}:${config.PORT}`).replace(/\/$/, '');
+}

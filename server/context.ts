@@ -1,0 +1,29 @@
+import { pino } from 'pino';
+
+import { createDatabase } from '../db/client.ts';
+import type { AppContext } from './app-context.ts';
+import { TokenService } from './auth/tokens.ts';
+import type { Config } from './config.ts';
+import { createMailer } from './mail/mailer.ts';
+import type { ReceivedMail } from './mail/smtp-fake.ts';
+import { createObjectStore } from './storage/object-store.ts';
+
+/** Builds the app context from configuration; `close()` releases the pool and the mail transport. */
+export function createContext(config: Config, devMailbox?: readonly ReceivedMail[]): AppContext & { close: () => Promise<void> } {
+  const { db, pool } = createDatabase(config.DATABASE_URL);
+  const mailer = createMailer(config);
+  const logger = pino({ level: config.LOG_LEVEL });
+  return {
+    config,
+    db,
+    tokens: new TokenService(config.JWT_SECRET, config.TOKEN_TTL),
+    mailer,
+    storage: createObjectStore(config),
+    logger,
+    devMailbox,
+    close: async () => {
+      mailer.close();
+      await pool.end();
+    },
+  };
+}

@@ -1,0 +1,21 @@
+import type { Router } from 'express';
+
+import type { AppContext } from '../app-context.ts';
+import type { AccessArea } from '../auth/access-policy.ts';
+import { auditRouter } from './audit.ts';
+import { meRouter } from './auth.ts';
+import { teamRouter } from './team.ts';
+
+/** One guarded API area: mounted at /api/<path>, open only to the roles ACCESS_POLICY[area] lists. */
+export interface ApiArea {
+  area: AccessArea;
+  path: string;
+  router: (ctx: AppContext) => Router;
+}
+
+/** Every signed-in API area. Add a line here when adding an area; roles live in access-policy.ts. */
+export const API_AREAS: ApiArea[] = [
+  { area: 'me', path: '/me', router: meRouter },
+  { area: 'team', path: '/team', router: teamRouter },
+  { area: 'audit', path: '/audit', router: auditRouter },
+];

@@ -1,0 +1,43 @@
+import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
+
+import type { Config } from '../config.ts';
+
+/** Raw files (uploads) kept in S3-compatible object storage. */
+export interface ObjectStore {
+  put(key: string, body: Buffer, contentType: string): Promise<void>;
+  get(key: string): Promise<Buffer>;
+}
+
+/** An S3 client from configuration; path-style addressing so the local fake works on loopback. */
+export function createObjectStore(config: Config): ObjectStore {
+  const client = new S3Client({
+    endpoint: config.S3_ENDPOINT,
+    region: config.S3_REGION,
+    forcePathStyle: true,
+    credentials: { accessKeyId: config.S3_ACCESS_KEY_ID, secretAccessKey: config.S3_SECRET_ACCESS_KEY },
+  });
+  const Bucket = config.S3_BUCKET;
+  let bucketReady: Promise<void> | null = null;
+  const ensureBucket = () =>
+    (bucketReady ??= client
+      .send(new HeadBucketCommand({ Bucket }))
+      .then(() => undefined)
+      .catch(async () => {
+        await client.send(new CreateBucketCommand({ Bucket }));
+      })
+      .catch((err) => {
+        bucketReady = null;
+        throw err;
+      }));
+  return {
+    async put(key, body, contentType) {
+      await ensureBucket();
+      await client.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: contentType }));
+    },
+    async get(key) {
+      await ensureBucket();
+      const out = await client.send(new GetObjectCommand({ Bucket, Key: key }));
+      return Buffer.from(await out.Body!.transformToByteArray());
+    },
+  };
+}

@@ -1,0 +1,80 @@
+import { z } from 'zod';
+
+import { emailSchema, passwordSchema } from './auth.ts';
+import { roleSchema } from './roles.ts';
+
+/** A user row as the Team screen shows it. */
+export const teamMemberSchema = z.object({
+  id: z.string().uuid(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  disabled: z.boolean(),
+  crewMemberId: z.string().uuid().nullable(),
+  createdAt: z.string(),
+});
+export type TeamMember = z.infer<typeof teamMemberSchema>;
+
+/** POST /api/team/invitations (admin). */
+export const inviteRequestSchema = z.object({
+  email: emailSchema,
+  name: z.string().trim().min(1, 'Enter the person\'s name.').max(120),
+  role: roleSchema,
+  crewMemberId: z.string().uuid().nullable().optional(),
+});
+export type InviteRequest = z.infer<typeof inviteRequestSchema>;
+
+/** An open or used invitation as listed to admins. */
+export const invitationSchema = z.object({
+  id: z.string().uuid(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  invitedBy: z.string(),
+  createdAt: z.string(),
+  expiresAt: z.string(),
+  acceptedAt: z.string().nullable(),
+});
+export type Invitation = z.infer<typeof invitationSchema>;
+
+/** GET /api/invitations/:token — what the invitee sees before choosing a password. */
+export const invitationPreviewSchema = z.object({
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+});
+export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
+
+/** POST /api/invitations/:token/accept */
+export const acceptInvitationRequestSchema = z.object({ password: passwordSchema });
+export type AcceptInvitationRequest = z.infer<typeof acceptInvitationRequestSchema>;
+
+/** PATCH /api/team/users/:id (admin). */
+export const updateUserRequestSchema = z
+  .object({ role: roleSchema.optional(), disabled: z.boolean().optional() })
+  .refine((v) => v.role !== undefined || v.disabled !== undefined, { message: 'Give a role or a disabled flag.' });
+export type UpdateUserRequest = z.infer<typeof updateUserRequestSchema>;
+
+/** GET /api/audit query (admin). */
+export const auditQuerySchema = z.object({
+  actorId: z.string().uuid().optional(),
+  action: z.string().max(80).optional(),
+  objectType: z.string().max(40).optional(),
+  objectId: z.string().max(80).optional(),
+  since: z.iso.datetime().optional(),
+  until: z.iso.datetime().optional(),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+});
+export type AuditQuery = z.infer<typeof auditQuerySchema>;
+
+export const auditEventSchema = z.object({
+  id: z.number(),
+  at: z.string(),
+  actorId: z.string().nullable(),
+  actorEmail: z.string().nullable(),
+  action: z.string(),
+  objectType: z.string(),
+  objectId: z.string().nullable(),
+  detail: z.unknown(),
+});
+export type AuditEvent = z.infer<typeof auditEventSchema>;

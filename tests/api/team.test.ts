@@ -1,0 +1,88 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+let t: TestApp;
+let admin: string;
+beforeAll(async () => {
+  t = await startTestApp();
+  admin = `Bearer ${await t.tokenFor('admin')}`;
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+const linkIn = (text: string) => /\/invite\/([A-Za-z0-9_-]+)/.exec(text)?.[1];
+
+describe('invitations', () => {
+  it('invites by e-mail; the invitee previews, sets a password and is signed in', async () => {
+    const email = 'nova.tern@lumen.example.test';
+    const waiting = t.mail.waitFor(email);
+    const inv = await request(t.app).post('/api/team/invitations').set('Authorization', admin).send({ email, name: 'Nova Tern', role: 'planner' });
+    expect(inv.status).toBe(201);
+    const mail = await waiting;
+    expect(mail.subject).toBe('Your Holonaut invitation');
+    const token = linkIn(mail.text);
+    expect(token).toBeTruthy();
+
+    const preview = await request(t.app).get(`/api/invitations/${token}`);
+    expect(preview.body).toEqual({ email, name: 'Nova Tern', role: 'planner' });
+
+    const short = await request(t.app).post(`/api/invitations/${token}/accept`).send({ password: 'short' });
+    expect(short.status).toBe(400);
+    expect(short.body.error.field).toBe('password');
+
+    const accepted = await request(t.app).post(`/api/invitations/${token}/accept`).send({ password: 'correct-horse-battery' });
+    expect(accepted.status).toBe(201);
+    expect(accepted.body.user).toMatchObject({ email, role: 'planner' });
+    const me = await request(t.app).get('/api/me').set('Authorization', `Bearer ${accepted.body.token}`);
+    expect(me.body.user.email).toBe(email);
+
+    const reused = await request(t.app).post(`/api/invitations/${token}/accept`).send({ password: 'correct-horse-battery' });
+    expect(reused.status).toBe(404);
+    expect(reused.body.error.code).toBe('invitation_invalid');
+  });
+
+  it('refuses to invite an e-mail that already has an account (409)', async () => {
+    const res = await request(t.app).post('/api/team/invitations').set('Authorization', admin).send({ email: DEMO_PEOPLE[1].email, name: 'X', role: 'planner' });
+    expect(res.status).toBe(409);
+  });
+
+  it('names the bad field of an invitation (400)', async () => {
+    const res = await request(t.app).post('/api/team/invitations').set('Authorization', admin).send({ email: 'a@b.test', name: 'X', role: 'captain' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('role');
+  });
+});
+
+describe('user administration', () => {
+  it('changes a role and disables a user; the disabled user\'s token stops working', async () => {
+    const users = (await request(t.app).get('/api/team/users').set('Authorization', admin)).body.users as Array<{ id: string; email: string }>;
+    const trainee = DEMO_PEOPLE.filter((p) => p.role === 'trainee')[2];
+    const target = users.find((u) => u.email === trainee.email)!;
+    const token = await t.tokenForEmail(trainee.email);
+
+    const role = await request(t.app).patch(`/api/team/users/${target.id}`).set('Authorization', admin).send({ role: 'reviewer' });
+    expect(role.body.user.role).toBe('reviewer');
+    const off = await request(t.app).patch(`/api/team/users/${target.id}`).set('Authorization', admin).send({ disabled: true });
+    expect(off.body.user.disabled).toBe(true);
+    expect((await request(t.app).get('/api/me').set('Authorization', `Bearer ${token}`)).status).toBe(401);
+    const signIn = await request(t.app).post('/api/auth/sign-in').send({ email: trainee.email, password: 'lumen-ring-demo' });
+    expect(signIn.status).toBe(401);
+    expect(signIn.body.error.message).toMatch(/disabled/);
+  });
+
+  it('every action is in the audit log, filterable by action', async () => {
+    const res = await request(t.app).get('/api/audit?action=team.update_user').set('Authorization', admin);
+    expect(res.status).toBe(200);
+    expect(res.body.events.length).toBe(2);
+    expect(res.body.events.every((e: { action: string }) => e.action === 'team.update_user')).toBe(true);
+  });
+
+  it('the audit log refuses UPDATE and DELETE at the database', async () => {
+    await expect(t.ctx.db.$client.query("UPDATE audit_events SET action = 'x'")).rejects.toThrow(/append-only: UPDATE refused/);
+    await expect(t.ctx.db.$client.query('DELETE FROM audit_events')).rejects.toThrow(/append-only: DELETE refused/);
+  });
+});

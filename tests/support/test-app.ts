@@ -1,0 +1,80 @@
+import { mkdtempSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+
+import type { Express } from 'express';
+import request from 'supertest';
+
+import { seedDemo } from '../../db/seed/run-seed.ts';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
+import type { AppContext } from '../../server/app-context.ts';
+import { createApp } from '../../server/app.ts';
+import { loadConfig } from '../../server/config.ts';
+import { createContext } from '../../server/context.ts';
+import { startSmtpFake, type SmtpFake } from '../../server/mail/smtp-fake.ts';
+import { startS3Fake, type S3Fake } from '../../server/storage/s3-fake.ts';
+import type { Role } from '../../shared/contracts/roles.ts';
+import { createTestDatabase } from './test-database.ts';
+
+/** A running app over its own fresh, migrated database with the mail and S3 fakes. */
+export interface TestApp {
+  app: Express;
+  ctx: AppContext;
+  mail: SmtpFake;
+  s3: S3Fake;
+  /** Bearer token of the first demo user with that role (the demo scenario is seeded). */
+  tokenFor(role: Role): Promise<string>;
+  /** Bearer token for a demo user by e-mail. */
+  tokenForEmail(email: string): Promise<string>;
+  close(): Promise<void>;
+}
+
+/** Low bcrypt cost for speed: tests only; production refuses < 12 (server/config.ts). */
+export const TEST_BCRYPT_COST = 4;
+
+export async function startTestApp(opts: { seed?: boolean; env?: Record<string, string> } = {}): Promise<TestApp> {
+  const database = await createTestDatabase();
+  const mail = await startSmtpFake();
+  const s3Dir = mkdtempSync(path.join(os.tmpdir(), 'hn-s3-'));
+  const s3 = await startS3Fake(s3Dir);
+  const config = loadConfig({
+    NODE_ENV: 'test',
+    DATABASE_URL: database.url,
+    JWT_SECRET: 'test-secret-that-is-long-enough-0123456789',
+    BCRYPT_COST: String(TEST_BCRYPT_COST),
+    SMTP_PORT: String(mail.port),
+    SMTP_IGNORE_TLS: 'true',
+    S3_ENDPOINT: s3.endpoint,
+    PUBLIC_URL: 'http://127.0.0.1:9',
+    LOG_LEVEL: 'silent',
+    SIGNIN_RATE_LIMIT: '1000',
+    ...opts.env,
+  });
+  const ctx = createContext(config, mail.messages);
+  if (opts.seed !== false) await seedDemo(ctx.db, TEST_BCRYPT_COST);
+  const app = createApp(ctx);
+  const tokens = new Map<string, string>();
+  const tokenForEmail = async (email: string) => {
+    const cached = tokens.get(email);
+    if (cached) return cached;
+    const res = await request(app).post('/api/auth/sign-in').send({ email, password: DEMO_PASSWORD });
+    if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+    tokens.set(email, res.body.token);
+    return res.body.token as string;
+  };
+  return {
+    app,
+    ctx,
+    mail,
+    s3,
+    tokenForEmail,
+    tokenFor: (role) => tokenForEmail(DEMO_PEOPLE.find((p) => p.role === role)!.email),
+    close: async () => {
+      await ctx.close();
+      await mail.stop();
+      await s3.stop();
+      rmSync(s3Dir, { recursive: true, force: true });
+      await database.drop();
+    },
+  };
+}
