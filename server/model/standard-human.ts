@@ -1,0 +1,125 @@
+import type { Vec3 } from '../../shared/model/body-shape.ts';
+import type { DofName } from '../../shared/model/dof-names.ts';
+import type { SegmentName } from '../../shared/model/segment-names.ts';
+import type { ProfileInputs } from '../../shared/contracts/profile-inputs.ts';
+import { DE_LEVA_TABLE_4, type DeLevaSegment } from './data/de-leva-1996-table4.ts';
+import { unsuitedDofs, type ModelDof } from './joints.ts';
+import { combineMassProperties, type MassProperties } from './mass-properties.ts';
+import { HEEL_BEHIND_ANKLE_PER_FOOT_LENGTH } from './proportions.ts';
+import type { SegmentGeometry } from './segment-geometry.ts';
+import { deLevaPrincipalInertia, type LongAxis } from './segment-inertia.ts';
+
+/** A segment of the model before it is written out as contract JSON. */
+export interface ModelSegment {
+  name: SegmentName;
+  /** Parent segment; undefined for the root. */
+  parent?: SegmentName;
+  /** Mass, CoM (segment frame, m) and inertia about the CoM (segment frame, kg·m²). */
+  props: MassProperties;
+  /** Joint to the parent: origin in the parent frame (m) and dofs; undefined for the root. */
+  joint?: { origin: Vec3; dofs: ModelDof[] };
+}
+
+/**
+ * The unsuited standard human model for one person: 15 segments from de Leva (1996) Table 4.
+ * Frames (all parallel to the body frame in the reference posture: x anterior, y left, z head;
+ * standing, arms at the sides, palms forward):
+ * - upper_trunk (root): origin at the waist joint — omphalion (navel) level on the midline. It holds
+ *   de Leva's upper trunk (SUPR–XYPH) and the whole middle trunk (XYPH–OMPH), combined by the
+ *   parallel-axis theorem: the thorax and the abdomen above the navel turn with the chest, so the
+ *   waist joint sits at the omphalion, de Leva's boundary between middle and lower trunk.
+ * - lower_trunk: de Leva's lower trunk (OMPH–MIDH, the pelvis), origin at the waist joint.
+ * - head_neck: origin at suprasternale (rigid neck); CoM on the midline at de Leva's fraction of
+ *   VERT–MIDG below the vertex, the vertex at stature height.
+ * - limbs: origin at the proximal joint centre, the long axis along −z, CoM on it at de Leva's
+ *   fraction from the proximal joint. Shoulder joint centres at ± half the biacromial breadth, hip
+ *   joint centres at ± half the hip breadth. Feet lie along +x below the ankle.
+ * All segment CoMs lie in the sagittal plane of their segment (x = 0) except the foot's.
+ */
+export function standardHumanSegments(inputs: ProfileInputs, g: SegmentGeometry): ModelSegment[] {
+  const t = DE_LEVA_TABLE_4[inputs.sex];
+  const L = g.lengths;
+  const part = (seg: DeLevaSegment, length: number, com: Vec3, longAxis: LongAxis = 'z'): MassProperties => {
+    const mass = t[seg].mass * inputs.mass;
+    return { mass, com, inertia: deLevaPrincipalInertia(t[seg], mass, length, longAxis) };
+  };
+  const zXyph = L.middleTrunk;
+  const zSupr = L.middleTrunk + L.upperTrunk;
+
+  // trunk above the waist: upper trunk + middle trunk
+  const upperTrunk = combineMassProperties(
+    part('upper_trunk', L.upperTrunk, [0, 0, zSupr - t.upper_trunk.com * L.upperTrunk]),
+    part('middle_trunk', L.middleTrunk, [0, 0, zXyph - t.middle_trunk.com * L.middleTrunk]),
+  );
+  const segments: ModelSegment[] = [
+    { name: 'upper_trunk', props: upperTrunk },
+    {
+      name: 'head_neck',
+      parent: 'upper_trunk',
+      props: part('head', L.head, [0, 0, g.supraToVertex - t.head.com * L.head]),
+      joint: { origin: [0, 0, zSupr], dofs: [] },
+    },
+  ];
+
+  // arms: shoulder (flexion, abduction, medial rotation), elbow flexion, rigid wrist
+  for (const side of ['l', 'r'] as const) {
+    const y = ((side === 'l' ? 1 : -1) * g.biacromialBreadth) / 2;
+    const dof = (n: string) => `${side}_${n}` as DofName;
+    segments.push(
+      {
+        name: `${side}_upper_arm`,
+        parent: 'upper_trunk',
+        props: part('upper_arm', L.upperArm, [0, 0, -t.upper_arm.com * L.upperArm]),
+        joint: { origin: [0, y, zSupr - g.shoulderDrop], dofs: unsuitedDofs([dof('sh_flex'), dof('sh_abd'), dof('sh_rot')]) },
+      },
+      {
+        name: `${side}_forearm`,
+        parent: `${side}_upper_arm`,
+        props: part('forearm', L.forearm, [0, 0, -t.forearm.com * L.forearm]),
+        joint: { origin: [0, 0, -L.upperArm], dofs: unsuitedDofs([dof('elbow_flex')]) },
+      },
+      {
+        name: `${side}_hand`,
+        parent: `${side}_forearm`,
+        props: part('hand', L.hand, [0, 0, -t.hand.com * L.hand]),
+        joint: { origin: [0, 0, -L.forearm], dofs: [] },
+      },
+    );
+  }
+
+  // pelvis below the waist: waist rotation and flexion
+  segments.push({
+    name: 'lower_trunk',
+    parent: 'upper_trunk',
+    props: part('lower_trunk', L.lowerTrunk, [0, 0, -t.lower_trunk.com * L.lowerTrunk]),
+    joint: { origin: [0, 0, 0], dofs: unsuitedDofs(['waist_rot', 'waist_flex']) },
+  });
+
+  // legs: hip (flexion, abduction, medial rotation), knee flexion, rigid ankle
+  const heelX = -HEEL_BEHIND_ANKLE_PER_FOOT_LENGTH * L.foot;
+  for (const side of ['l', 'r'] as const) {
+    const y = ((side === 'l' ? 1 : -1) * g.hipBreadth) / 2;
+    const dof = (n: string) => `${side}_${n}` as DofName;
+    segments.push(
+      {
+        name: `${side}_thigh`,
+        parent: 'lower_trunk',
+        props: part('thigh', L.thigh, [0, 0, -t.thigh.com * L.thigh]),
+        joint: { origin: [0, y, -L.lowerTrunk], dofs: unsuitedDofs([dof('hip_flex'), dof('hip_abd'), dof('hip_rot')]) },
+      },
+      {
+        name: `${side}_shank`,
+        parent: `${side}_thigh`,
+        props: part('shank', L.shank, [0, 0, -t.shank.com * L.shank]),
+        joint: { origin: [0, 0, -L.thigh], dofs: unsuitedDofs([dof('knee_flex')]) },
+      },
+      {
+        name: `${side}_foot`,
+        parent: `${side}_shank`,
+        props: part('foot', L.foot, [heelX + t.foot.com * L.foot, 0, -g.ankleHeight / 2], 'x'),
+        joint: { origin: [0, 0, -L.shank], dofs: [] },
+      },
+    );
+  }
+  return segments;
+}

@@ -1,0 +1,63 @@
+import type { Vec3 } from './body-shape.ts';
+import type { Mat3 } from './mat3.ts';
+
+/** Eigen-decomposition of a symmetric 3×3 matrix. */
+export interface SymmetricEigen {
+  /** Eigenvalues, ascending. */
+  values: Vec3;
+  /** Unit eigenvectors; vectors[k] belongs to values[k]. */
+  vectors: [Vec3, Vec3, Vec3];
+}
+
+/**
+ * Eigenvalues and eigenvectors of a symmetric 3×3 matrix by cyclic Jacobi rotations (Golub & Van
+ * Loan, Matrix Computations, §8.5). Hand-written: none of the project's packages offers it.
+ */
+export function symmetricEigen3(m: Mat3): SymmetricEigen {
+  const a = m.map((row) => [...row]) as number[][];
+  const v = [
+    [1, 0, 0],
+    [0, 1, 0],
+    [0, 0, 1],
+  ];
+  for (let sweep = 0; sweep < 50; sweep++) {
+    const off = a[0][1] ** 2 + a[0][2] ** 2 + a[1][2] ** 2;
+    const scale = a[0][0] ** 2 + a[1][1] ** 2 + a[2][2] ** 2;
+    if (off <= 1e-30 * scale || off === 0) break;
+    for (const [p, q] of [
+      [0, 1],
+      [0, 2],
+      [1, 2],
+    ]) {
+      if (a[p][q] === 0) continue;
+      // rotation angle that zeroes a[p][q]
+      const theta = (a[q][q] - a[p][p]) / (2 * a[p][q]);
+      const t = Math.sign(theta || 1) / (Math.abs(theta) + Math.sqrt(theta * theta + 1));
+      const c = 1 / Math.sqrt(t * t + 1);
+      const s = t * c;
+      for (let k = 0; k < 3; k++) {
+        const akp = a[k][p];
+        const akq = a[k][q];
+        a[k][p] = c * akp - s * akq;
+        a[k][q] = s * akp + c * akq;
+      }
+      for (let k = 0; k < 3; k++) {
+        const apk = a[p][k];
+        const aqk = a[q][k];
+        a[p][k] = c * apk - s * aqk;
+        a[q][k] = s * apk + c * aqk;
+      }
+      for (let k = 0; k < 3; k++) {
+        const vkp = v[k][p];
+        const vkq = v[k][q];
+        v[k][p] = c * vkp - s * vkq;
+        v[k][q] = s * vkp + c * vkq;
+      }
+    }
+  }
+  const order = [0, 1, 2].sort((i, j) => a[i][i] - a[j][j]);
+  return {
+    values: order.map((i) => a[i][i]) as Vec3,
+    vectors: order.map((i) => [v[0][i], v[1][i], v[2][i]]) as [Vec3, Vec3, Vec3],
+  };
+}
