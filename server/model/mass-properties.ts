@@ -1,4 +1,4 @@
-import type { Vec3 } from '../../shared/model/body-shape.ts';
+import type { Vec3 } from '../../shared/model/vec3.ts';
 import { add3, inertiaTensor, pointMassTensor, type Mat3 } from '../../shared/model/mat3.ts';
 
 /** A rigid body's mass properties in some frame: mass kg, CoM m, inertia about the CoM kg·m². */
@@ -28,12 +28,17 @@ export function combineMassProperties(a: MassProperties, b: MassProperties): Mas
   return { mass, com, inertia };
 }
 
+/** The contract's inertia list: [Ixx, Iyy, Izz] or [Ixx, Iyy, Izz, Ixy, Ixz, Iyz], kg·m². */
+export type ContractInertia = [number, number, number] | [number, number, number, number, number, number];
+
 /**
  * The contract's inertia list for a tensor: [Ixx, Iyy, Izz] when the off-diagonal entries vanish
  * (below 1e-12 of the trace), else [Ixx, Iyy, Izz, Ixy, Ixz, Iyz].
  */
-export function contractInertia(i: Mat3): number[] {
+export function contractInertia(i: Mat3): ContractInertia {
   const tiny = 1e-12 * (i[0][0] + i[1][1] + i[2][2]);
   const off = [i[0][1], i[0][2], i[1][2]];
-  return off.every((v) => Math.abs(v) <= tiny) ? [i[0][0], i[1][1], i[2][2]] : [i[0][0], i[1][1], i[2][2], ...off];
+  return off.every((v) => Math.abs(v) <= tiny)
+    ? [i[0][0], i[1][1], i[2][2]]
+    : [i[0][0], i[1][1], i[2][2], i[0][1], i[0][2], i[1][2]];
 }

@@ -1,4 +1,4 @@
-import type { Vec3 } from './body-shape.ts';
+import type { Vec3 } from './vec3.ts';
 
 /** A 3×3 matrix as rows: m[i][j] is row i, column j. */
 export type Mat3 = [Vec3, Vec3, Vec3];

@@ -1,4 +1,4 @@
-import type { Vec3 } from './body-shape.ts';
+import type { Vec3 } from './vec3.ts';
 import type { Mat3 } from './mat3.ts';
 
 /** Eigen-decomposition of a symmetric 3×3 matrix. */

@@ -1,7 +1,9 @@
-import type { BodyShape, Vec3 } from './body-shape.ts';
-import { add3, inertiaTensor, mulVec3, pointMassTensor, rotateTensor, type Mat3 } from './mat3.ts';
+import type { Body } from '../contracts/body.ts';
+import { compileBody } from '../kinematics/body-model.ts';
+import { createBodyPose, forwardKinematics } from '../kinematics/forward-kinematics.ts';
+import type { Vec3 } from './vec3.ts';
+import { add3, pointMassTensor, rotateTensor, type Mat3 } from './mat3.ts';
 import type { Posture } from './reference-posture.ts';
-import { segmentPoses } from './segment-poses.ts';
 import { symmetricEigen3 } from './symmetric-eigen.ts';
 
 /** Whole-body mass properties in one posture, expressed in the root segment's frame. */
@@ -19,33 +21,45 @@ export interface WholeBodyInertia {
 }
 
 /**
- * Whole-body mass, CoM and inertia of a contract body in a posture (degrees by dof name; omitted
- * dofs at 0, the reference posture): I = Σ R_i J_i R_iᵀ + m_i(|d_i|²E − d_i d_iᵀ), d_i = segment
- * CoM − system CoM (the locked inertia of DESIGN.md, "The computation").
+ * Whole-body mass, CoM and inertia of a validated contract body in a posture (degrees by dof name;
+ * omitted dofs at 0, the reference posture): I = Σ R_i J_i R_iᵀ + m_i(|d_i|²E − d_i d_iᵀ),
+ * d_i = segment CoM − system CoM (the locked inertia of DESIGN.md, "The computation"). Segment poses
+ * come from the shared forward kinematics. A non-zero angle for a dof the body lacks throws.
  */
-export function wholeBodyInertia(body: BodyShape, posture: Posture = {}): WholeBodyInertia {
-  const poses = segmentPoses(body, posture);
-  let mass = 0;
-  const weighted: Vec3 = [0, 0, 0];
-  const coms: Vec3[] = [];
-  body.segments.forEach((seg, i) => {
-    const local = mulVec3(poses[i].rotation, seg.com);
-    const c: Vec3 = [poses[i].origin[0] + local[0], poses[i].origin[1] + local[1], poses[i].origin[2] + local[2]];
-    coms.push(c);
-    mass += seg.mass;
-    for (let k = 0; k < 3; k++) weighted[k] += seg.mass * c[k];
-  });
-  const com: Vec3 = [weighted[0] / mass, weighted[1] / mass, weighted[2] / mass];
+export function wholeBodyInertia(body: Body, posture: Posture = {}): WholeBodyInertia {
+  const model = compileBody(body);
+  const q = new Float64Array(model.dofCount);
+  for (const [name, deg] of Object.entries(posture)) {
+    if (deg === undefined || deg === 0) continue;
+    const k = model.dofIndex.get(name);
+    if (k === undefined) throw new Error(`posture: dof "${name}" is not in body "${body.name}"`);
+    if (!Number.isFinite(deg)) throw new Error(`posture: dof "${name}" is not a finite number`);
+    q[k] = (deg * Math.PI) / 180;
+  }
+  const pose = createBodyPose(model);
+  forwardKinematics(model, q, pose);
+
+  // system CoM
+  const com: Vec3 = [0, 0, 0];
+  for (let i = 0; i < model.segmentCount; i++)
+    for (let k = 0; k < 3; k++) com[k] += (model.mass[i] * pose.comPos[3 * i + k]) / model.totalMass;
+
+  // each segment's own inertia turned into the root frame, plus its parallel-axis term
   let inertia: Mat3 = [
     [0, 0, 0],
     [0, 0, 0],
     [0, 0, 0],
   ];
-  body.segments.forEach((seg, i) => {
-    const d: Vec3 = [coms[i][0] - com[0], coms[i][1] - com[1], coms[i][2] - com[2]];
-    inertia = add3(inertia, rotateTensor(poses[i].rotation, inertiaTensor(seg.inertia)));
-    inertia = add3(inertia, pointMassTensor(seg.mass, d));
-  });
+  for (let i = 0; i < model.segmentCount; i++) {
+    const rows = (a: ArrayLike<number>, o: number): Mat3 => [
+      [a[o], a[o + 1], a[o + 2]],
+      [a[o + 3], a[o + 4], a[o + 5]],
+      [a[o + 6], a[o + 7], a[o + 8]],
+    ];
+    const d: Vec3 = [0, 1, 2].map((k) => pose.comPos[3 * i + k] - com[k]) as Vec3;
+    inertia = add3(inertia, rotateTensor(rows(pose.rot, 9 * i), rows(model.inertia, 9 * i)));
+    inertia = add3(inertia, pointMassTensor(model.mass[i], d));
+  }
   const eig = symmetricEigen3(inertia);
-  return { mass, com, inertia, principalMoments: eig.values, principalAxes: eig.vectors };
+  return { mass: model.totalMass, com, inertia, principalMoments: eig.values, principalAxes: eig.vectors };
 }
