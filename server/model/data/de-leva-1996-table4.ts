@@ -1,13 +1,14 @@
 /**
  * de Leva P. (1996) Adjustments to Zatsiorsky-Seluyanov's segment inertia parameters.
- * J. Biomech. 29(9):1223-1230, Table 4 — copied from the project's shared transcription
+ * J. Biomech. 29(9):1223-1230, Table 4 — from the project's shared transcription
  * (../shared/data/de-leva-1996-table4.csv, itself transcribed from two stored reproductions of the
- * table that agree on every value compared). The tests compare this copy with that file.
+ * table that agree on every value compared), copied verbatim beside this file as
+ * de-leva-1996-table4.csv. The tests compare this constant with that copy.
  *
  * mass: fraction of body mass; com: CoM position from the first-named landmark (`from`) as a
  * fraction of segment length; rgSag / rgTrans / rgLong: radii of gyration about the segment CoM as
  * fractions of segment length; lengthM: mean segment length of the reference subjects (m).
- * Axis mapping used by the model (pinned by tests/model/segment-inertia.test.ts): `rgSag` is about
+ * Axis mapping used by the model (pinned by tests/model/standard-human.test.ts): `rgSag` is about
  * the sagittal (anteroposterior, body x) axis, `rgTrans` about the transverse (mediolateral, body y)
  * axis, `rgLong` about the segment's long axis — in the anatomical position (palms forward); for the
  * foot, whose long axis is body x, `rgSag` is about body z.

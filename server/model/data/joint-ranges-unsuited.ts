@@ -2,11 +2,11 @@ import type { DofName } from '../../../shared/model/dof-names.ts';
 
 /**
  * Typical active ranges of motion of healthy adults (degrees from neutral), copied from the
- * project's shared table ../shared/data/joint-ranges-unsuited.csv:
+ * project's shared table ../shared/data/joint-ranges-unsuited.csv (copied verbatim beside this file):
  * - upper limb: AAOS values as tabulated in Norkin C.C. & White D.J., Measurement of Joint Motion:
  *   A Guide to Goniometry (F.A. Davis), Table A.1;
  * - lower limb: the range-of-motion table of the Merck Manual (professional edition).
- * The tests compare these with that file.
+ * The tests compare these with that copy.
  */
 export const UNSUITED_ROM_DEG = {
   shoulder: { flexion: 180, extension: 60, abduction: 180, medial_rotation: 70, lateral_rotation: 90 },
