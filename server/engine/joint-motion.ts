@@ -1,0 +1,121 @@
+/**
+ * Joint motion prescribed by a sequence: one piece per step, each evaluating every dof's angle
+ * (rad) and analytic rate (rad/s) at a time. Pieces are the integrator's boundaries, since joint
+ * rates may jump between steps.
+ */
+import type { Sequence } from '../../shared/contracts/sequence.ts';
+import { stepDuration } from '../../shared/contracts/sequence.ts';
+import type { BodyModel } from '../../shared/kinematics/body-model.ts';
+
+const DEG = Math.PI / 180;
+
+/** One step compiled: [t0, t1] in seconds from the sequence start; angles in rad. */
+export interface MotionPiece {
+  /** Step kind. */
+  readonly kind: 'move' | 'harmonic' | 'hold';
+  /** Index of the step in the sequence. */
+  readonly step: number;
+  /** Start and end time, s. */
+  readonly t0: number;
+  readonly t1: number;
+  /** All dofs' angles at t0, rad. */
+  readonly from: Float64Array;
+  /** move: all dofs' angles at t1, rad. */
+  readonly to: Float64Array;
+  /** harmonic: indices of the moving dofs and their offset (rad), amplitude (rad), phase (rad); angular frequency (rad/s). */
+  readonly hDofs: Int32Array;
+  readonly hOffset: Float64Array;
+  readonly hAmplitude: Float64Array;
+  readonly hPhase: Float64Array;
+  readonly omega: number;
+}
+
+/** The whole prescribed motion. */
+export interface MotionPlan {
+  readonly pieces: readonly MotionPiece[];
+  /** Total duration, s. */
+  readonly duration: number;
+  /** Angles at t = 0, rad. */
+  readonly start: Float64Array;
+}
+
+/** Compiles a validated sequence for a model. */
+export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
+  const nd = model.dofCount;
+  const cur = new Float64Array(nd);
+  for (const [name, v] of Object.entries(seq.start)) cur[model.dofIndex.get(name)!] = v * DEG;
+  const start = cur.slice();
+  const pieces: MotionPiece[] = [];
+  let t = 0;
+  const empty = new Float64Array(0);
+  seq.steps.forEach((step, index) => {
+    const d = stepDuration(step);
+    const from = cur.slice();
+    let to = from;
+    let hDofs = new Int32Array(0), hOffset = empty, hAmplitude = empty, hPhase = empty, omega = 0;
+    if (step.kind === 'move') {
+      to = from.slice();
+      for (const [name, v] of Object.entries(step.to)) to[model.dofIndex.get(name)!] = v * DEG;
+    } else if (step.kind === 'harmonic') {
+      const entries = Object.entries(step.joints);
+      hDofs = Int32Array.from(entries.map(([name]) => model.dofIndex.get(name)!));
+      hOffset = Float64Array.from(entries.map(([, j]) => j.offset * DEG));
+      hAmplitude = Float64Array.from(entries.map(([, j]) => j.amplitude * DEG));
+      hPhase = Float64Array.from(entries.map(([, j]) => j.phase * DEG));
+      omega = (2 * Math.PI) / step.period;
+    }
+    const piece: MotionPiece = { kind: step.kind, step: index, t0: t, t1: t + d, from, to, hDofs, hOffset, hAmplitude, hPhase, omega };
+    pieces.push(piece);
+    // The next step starts where this one ends.
+    evalPiece(piece, piece.t1, cur, null);
+    t += d;
+  });
+  return { pieces, duration: t, start };
+}
+
+/**
+ * Angles q (rad) and, if qd is given, rates (rad/s) of every dof at time t (s) within the piece.
+ * Minimum-jerk: θ = θ₀ + Δθ(10τ³ − 15τ⁴ + 6τ⁵) (Flash & Hogan 1985); harmonic: offset + A·sin(ωt + φ).
+ */
+export function evalPiece(piece: MotionPiece, t: number, q: Float64Array, qd: Float64Array | null): void {
+  const { from } = piece;
+  const nd = from.length;
+  if (piece.kind === 'move') {
+    const T = piece.t1 - piece.t0;
+    const tau = Math.min(1, Math.max(0, (t - piece.t0) / T));
+    const t2 = tau * tau, t3 = t2 * tau;
+    const s = t3 * (10 - 15 * tau + 6 * t2);
+    const sd = (30 * t2 * (1 - 2 * tau + t2)) / T;
+    const to = piece.to;
+    for (let k = 0; k < nd; k++) {
+      const delta = to[k] - from[k];
+      q[k] = from[k] + delta * s;
+      if (qd) qd[k] = delta * sd;
+    }
+    return;
+  }
+  for (let k = 0; k < nd; k++) q[k] = from[k];
+  if (qd) qd.fill(0);
+  if (piece.kind === 'harmonic') {
+    const { hDofs, hOffset, hAmplitude, hPhase, omega } = piece;
+    const tt = t - piece.t0;
+    for (let j = 0; j < hDofs.length; j++) {
+      const arg = omega * tt + hPhase[j];
+      q[hDofs[j]] = hOffset[j] + hAmplitude[j] * Math.sin(arg);
+      if (qd) qd[hDofs[j]] = hAmplitude[j] * omega * Math.cos(arg);
+    }
+  }
+}
+
+/** The piece containing t (the first whose end is ≥ t); the last piece beyond the end. */
+export function pieceAt(plan: MotionPlan, t: number): MotionPiece | undefined {
+  for (const p of plan.pieces) if (t <= p.t1) return p;
+  return plan.pieces[plan.pieces.length - 1];
+}
+
+/** Joint angles (rad) of the whole plan at time t; the start angles when there are no steps. */
+export function anglesAt(plan: MotionPlan, t: number, q: Float64Array): void {
+  const p = pieceAt(plan, t);
+  if (p) evalPiece(p, t, q, null);
+  else q.set(plan.start);
+}

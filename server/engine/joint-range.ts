@@ -1,0 +1,108 @@
+/**
+ * Range violations (angles beyond a dof's [min, max], with time and margin) and peak joint rates,
+ * from the analytic joint motion: scan points plus the analytic extrema, crossings refined by bisection.
+ */
+import type { RangeViolation } from '../../shared/contracts/result.ts';
+import type { BodyModel } from '../../shared/kinematics/body-model.ts';
+import { evalPiece, type MotionPiece, type MotionPlan } from './joint-motion.ts';
+
+const DEG = 180 / Math.PI;
+/** Scan points per piece (moves, holds) or per harmonic cycle. */
+const SCAN_POINTS = 128;
+
+/** Times inside [t0, t1] where a harmonic dof reaches sin(arg) = ±1 (angle extrema) or cos(arg) = ±1 (rate extrema). */
+function harmonicCriticalTimes(piece: MotionPiece, j: number, base: number): number[] {
+  const out: number[] = [];
+  const { omega, hPhase, t0, t1 } = piece;
+  // arg = ω(t − t0) + φ = base + kπ.
+  const kStart = Math.ceil((hPhase[j] - base) / Math.PI - 1e-12);
+  for (let k = kStart; ; k++) {
+    const t = t0 + (base + k * Math.PI - hPhase[j]) / omega;
+    if (t > t1) break;
+    if (t >= t0) out.push(t);
+    if (out.length > 1e6) break;
+  }
+  return out;
+}
+
+/** Range violations of every dof over the plan. */
+export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeViolation[] {
+  const out: RangeViolation[] = [];
+  const q = new Float64Array(model.dofCount);
+  for (const piece of plan.pieces) {
+    const angle = (k: number, t: number) => { evalPiece(piece, t, q, null); return q[k]; };
+    const span = piece.t1 - piece.t0;
+    const cycles = piece.kind === 'harmonic' ? Math.ceil((span * piece.omega) / (2 * Math.PI)) : 1;
+    const n = Math.min(20_000, SCAN_POINTS * Math.max(1, cycles));
+    for (let k = 0; k < model.dofCount; k++) {
+      // Scan grid plus analytic extrema of this dof.
+      const times: number[] = [];
+      for (let s = 0; s <= n; s++) times.push(piece.t0 + (span * s) / n);
+      const hj = piece.kind === 'harmonic' ? Array.from(piece.hDofs).indexOf(k) : -1;
+      if (hj >= 0) times.push(...harmonicCriticalTimes(piece, hj, Math.PI / 2));
+      times.sort((a, b) => a - b);
+      for (const bound of ['max', 'min'] as const) {
+        const limit = bound === 'max' ? model.dofMax[k] : model.dofMin[k];
+        // g > 0 means beyond the limit.
+        const g = (t: number) => (bound === 'max' ? angle(k, t) - limit : limit - angle(k, t));
+        let inside = false, from = 0, worstT = 0, worstG = 0;
+        const crossing = (a: number, b: number) => {
+          // Bisection for the sign change of g between a and b.
+          let ga = g(a);
+          for (let it = 0; it < 60 && b - a > 1e-9; it++) {
+            const m = (a + b) / 2, gm = g(m);
+            if ((gm > 0) === (ga > 0)) { a = m; ga = gm; } else b = m;
+          }
+          return (a + b) / 2;
+        };
+        let prevT = times[0];
+        for (const t of times) {
+          const gt = g(t);
+          if (gt > 0 && !inside) { inside = true; from = t === times[0] ? t : crossing(prevT, t); worstT = t; worstG = gt; }
+          else if (gt > 0 && gt > worstG) { worstT = t; worstG = gt; }
+          else if (gt <= 0 && inside) {
+            inside = false;
+            out.push(violation(model, piece, k, bound, limit, from, crossing(prevT, t), worstT, worstG));
+          }
+          prevT = t;
+        }
+        if (inside) out.push(violation(model, piece, k, bound, limit, from, piece.t1, worstT, worstG));
+      }
+    }
+  }
+  return out;
+}
+
+function violation(model: BodyModel, piece: MotionPiece, k: number, bound: 'min' | 'max', limit: number, from: number, to: number, worstT: number, worstG: number): RangeViolation {
+  return {
+    dof: model.dofNames[k], step: piece.step, bound, limitDeg: limit * DEG, from, to, worstTime: worstT,
+    worstAngleDeg: (bound === 'max' ? limit + worstG : limit - worstG) * DEG, marginDeg: worstG * DEG,
+  };
+}
+
+/** Peak |joint rate| per dof and overall (deg/s), analytic: minimum-jerk peak 1.875·|Δθ|/T at mid-move; harmonic |A|ω at cos = ±1. */
+export function peakJointRates(model: BodyModel, plan: MotionPlan): { max: number; dof: string | null; time: number; byDof: Record<string, number> } {
+  const byDof: Record<string, number> = Object.fromEntries(model.dofNames.map((d) => [d, 0]));
+  let max = 0, dof: string | null = null, time = 0;
+  const consider = (k: number, rate: number, t: number) => {
+    const name = model.dofNames[k];
+    if (rate > byDof[name]) byDof[name] = rate;
+    if (rate > max) { max = rate; dof = name; time = t; }
+  };
+  const q = new Float64Array(model.dofCount), qd = new Float64Array(model.dofCount);
+  for (const piece of plan.pieces) {
+    if (piece.kind === 'move') {
+      const T = piece.t1 - piece.t0;
+      for (let k = 0; k < model.dofCount; k++) consider(k, (1.875 * Math.abs(piece.to[k] - piece.from[k]) * DEG) / T, piece.t0 + T / 2);
+    } else if (piece.kind === 'harmonic') {
+      piece.hDofs.forEach((k, j) => {
+        // Candidates: the ends and every cos(arg) = ±1 inside.
+        for (const t of [piece.t0, piece.t1, ...harmonicCriticalTimes(piece, j, 0)]) {
+          evalPiece(piece, t, q, qd);
+          consider(k, Math.abs(qd[k]) * DEG, t);
+        }
+      });
+    }
+  }
+  return { max, dof, time, byDof };
+}

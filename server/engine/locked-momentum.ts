@@ -1,0 +1,81 @@
+/**
+ * Locked inertia and shape momentum about the system CoM, in the root frame (DESIGN.md):
+ * I_lock = Σ R_i J_i R_iᵀ + m_i(|d_i|²E − d_i d_iᵀ), h = Σ R_i J_i R_iᵀ w_i + m_i d_i × (v_i − ċ),
+ * and the body rate ω = −I_lock⁻¹ h that keeps the total angular momentum zero.
+ */
+import type { BodyModel } from '../../shared/kinematics/body-model.ts';
+import { type BodyPose, createBodyPose, forwardKinematics, segmentVelocities } from '../../shared/kinematics/forward-kinematics.ts';
+import { solveSpd3 } from '../../shared/math/mat3.ts';
+
+/** Preallocated work buffers for one model (the mutable side of the (model, state) split). */
+export interface MomentumWork {
+  pose: BodyPose;
+  /** Joint-centre velocities, 3 per segment (scratch). */
+  originVel: Float64Array;
+  /** Locked inertia about the system CoM, root frame, kg·m², row-major. */
+  lock: Float64Array;
+  /** Shape momentum, root frame, kg·m²/s. */
+  h: Float64Array;
+  /** ω, root frame, rad/s. */
+  omega: Float64Array;
+  /** System CoM in the root frame, m. */
+  c: Float64Array;
+}
+
+/** Allocates work buffers for a model. */
+export function createMomentumWork(model: BodyModel): MomentumWork {
+  return {
+    pose: createBodyPose(model), originVel: new Float64Array(3 * model.segmentCount),
+    lock: new Float64Array(9), h: new Float64Array(3), omega: new Float64Array(3), c: new Float64Array(3),
+  };
+}
+
+/**
+ * From angles q (rad) and rates qd (rad/s): pose, velocities, work.lock, work.h and work.omega = −I_lock⁻¹h.
+ * Throws if I_lock is not positive definite (cannot happen for a valid body).
+ */
+export function bodyRate(model: BodyModel, q: ArrayLike<number>, qd: ArrayLike<number>, work: MomentumWork): Float64Array {
+  const { pose, lock, h, c } = work;
+  forwardKinematics(model, q, pose);
+  segmentVelocities(model, qd, pose, work.originVel);
+  const { rot, comPos, angVel, comVel } = pose;
+  const { mass, inertia, totalMass } = model;
+  const n = model.segmentCount;
+  // System CoM and its velocity in the root frame.
+  let cx = 0, cy = 0, cz = 0, vcx = 0, vcy = 0, vcz = 0;
+  for (let i = 0; i < n; i++) {
+    const m = mass[i];
+    cx += m * comPos[3 * i]; cy += m * comPos[3 * i + 1]; cz += m * comPos[3 * i + 2];
+    vcx += m * comVel[3 * i]; vcy += m * comVel[3 * i + 1]; vcz += m * comVel[3 * i + 2];
+  }
+  cx /= totalMass; cy /= totalMass; cz /= totalMass; vcx /= totalMass; vcy /= totalMass; vcz /= totalMass;
+  c[0] = cx; c[1] = cy; c[2] = cz;
+  let l00 = 0, l01 = 0, l02 = 0, l11 = 0, l12 = 0, l22 = 0, hx = 0, hy = 0, hz = 0;
+  for (let i = 0; i < n; i++) {
+    const r = 9 * i;
+    // K = R J (3×3), then S = K Rᵀ (symmetric: only the upper triangle).
+    const r0 = rot[r], r1 = rot[r + 1], r2 = rot[r + 2], r3 = rot[r + 3], r4 = rot[r + 4], r5 = rot[r + 5], r6 = rot[r + 6], r7 = rot[r + 7], r8 = rot[r + 8];
+    const j0 = inertia[r], j1 = inertia[r + 1], j2 = inertia[r + 2], j4 = inertia[r + 4], j5 = inertia[r + 5], j8 = inertia[r + 8];
+    const k0 = r0 * j0 + r1 * j1 + r2 * j2, k1 = r0 * j1 + r1 * j4 + r2 * j5, k2 = r0 * j2 + r1 * j5 + r2 * j8;
+    const k3 = r3 * j0 + r4 * j1 + r5 * j2, k4 = r3 * j1 + r4 * j4 + r5 * j5, k5 = r3 * j2 + r4 * j5 + r5 * j8;
+    const k6 = r6 * j0 + r7 * j1 + r8 * j2, k7 = r6 * j1 + r7 * j4 + r8 * j5, k8 = r6 * j2 + r7 * j5 + r8 * j8;
+    const s00 = k0 * r0 + k1 * r1 + k2 * r2, s01 = k0 * r3 + k1 * r4 + k2 * r5, s02 = k0 * r6 + k1 * r7 + k2 * r8;
+    const s11 = k3 * r3 + k4 * r4 + k5 * r5, s12 = k3 * r6 + k4 * r7 + k5 * r8, s22 = k6 * r6 + k7 * r7 + k8 * r8;
+    const m = mass[i];
+    const dx = comPos[3 * i] - cx, dy = comPos[3 * i + 1] - cy, dz = comPos[3 * i + 2] - cz;
+    const d2 = dx * dx + dy * dy + dz * dz;
+    l00 += s00 + m * (d2 - dx * dx); l11 += s11 + m * (d2 - dy * dy); l22 += s22 + m * (d2 - dz * dz);
+    l01 += s01 - m * dx * dy; l02 += s02 - m * dx * dz; l12 += s12 - m * dy * dz;
+    // h: spin part S·w plus orbital part m d × (v − ċ).
+    const wx = angVel[3 * i], wy = angVel[3 * i + 1], wz = angVel[3 * i + 2];
+    const ux = comVel[3 * i] - vcx, uy = comVel[3 * i + 1] - vcy, uz = comVel[3 * i + 2] - vcz;
+    hx += s00 * wx + s01 * wy + s02 * wz + m * (dy * uz - dz * uy);
+    hy += s01 * wx + s11 * wy + s12 * wz + m * (dz * ux - dx * uz);
+    hz += s02 * wx + s12 * wy + s22 * wz + m * (dx * uy - dy * ux);
+  }
+  lock[0] = l00; lock[1] = l01; lock[2] = l02; lock[3] = l01; lock[4] = l11; lock[5] = l12; lock[6] = l02; lock[7] = l12; lock[8] = l22;
+  h[0] = hx; h[1] = hy; h[2] = hz;
+  if (!solveSpd3(lock, h, work.omega)) throw new Error('locked inertia is not positive definite');
+  work.omega[0] = -work.omega[0]; work.omega[1] = -work.omega[1]; work.omega[2] = -work.omega[2];
+  return work.omega;
+}

@@ -1,0 +1,138 @@
+/**
+ * One simulation: compile the body and the sequence, integrate the attitude piece by piece,
+ * audit the momentum, check joint ranges and rates, and assemble the result contract.
+ */
+import { type Body, validateBody } from '../../shared/contracts/body.ts';
+import type { ContractIssue } from '../../shared/contracts/contract-issue.ts';
+import type { SimulationResult } from '../../shared/contracts/result.ts';
+import { type Sequence, validateSequence } from '../../shared/contracts/sequence.ts';
+import { DEFAULT_RATE_HZ, DEFAULT_RTOL } from '../../shared/contracts/simulate-request.ts';
+import { type BodyModel, compileBody } from '../../shared/kinematics/body-model.ts';
+import { quatToYpr } from '../../shared/math/euler-zyx.ts';
+import { quatCanonical, quatToAxisAngle } from '../../shared/math/quaternion.ts';
+import { attitudeRhs, integrateAttitude } from './integrate-attitude.ts';
+import { compileMotion, evalPiece, type MotionPlan } from './joint-motion.ts';
+import { findRangeViolations, peakJointRates } from './joint-range.ts';
+import { bodyRate, createMomentumWork } from './locked-momentum.ts';
+import { auditAt } from './momentum-audit.ts';
+import { ENGINE_VERSION } from './version.ts';
+
+const DEG = 180 / Math.PI;
+
+/** Engine options (all optional). */
+export interface EngineOptions {
+  /** Sample rate for `samples`, Hz (default 60). */
+  rateHz?: number;
+  /** Relative tolerance (default 1e-10). */
+  rtol?: number;
+  /** Absolute tolerance on quaternion components (default = rtol). */
+  atol?: number;
+  /** Skip the momentum audit (reported as NaN); only for benchmarks isolating the integrator. */
+  skipAudit?: boolean;
+}
+
+/** Sample times 0, 1/rate, 2/rate, … and the end (s). */
+export function sampleTimes(duration: number, rateHz: number): number[] {
+  const out: number[] = [];
+  const n = Math.floor(duration * rateHz + 1e-9);
+  for (let k = 0; k <= n; k++) out.push(Math.min(duration, k / rateHz));
+  if (duration - out[out.length - 1] > 1e-12) out.push(duration);
+  return out;
+}
+
+/** Index of the piece that owns time t (the first whose end is ≥ t). */
+function pieceIndexAt(plan: MotionPlan, t: number): number {
+  for (let p = 0; p < plan.pieces.length; p++) if (t <= plan.pieces[p].t1) return p;
+  return plan.pieces.length - 1;
+}
+
+/** Simulates a validated body and sequence. Throws only on internal failure (e.g. integrator divergence). */
+export function simulate(body: Body, sequence: Sequence, options: EngineOptions = {}): SimulationResult {
+  const model = compileBody(body);
+  const plan = compileMotion(model, sequence);
+  return simulateModel(model, plan, options);
+}
+
+/** Simulates a compiled model and plan (the benchmark's entry: no re-compilation). */
+export function simulateModel(model: BodyModel, plan: MotionPlan, options: EngineOptions = {}): SimulationResult {
+  const rateHz = options.rateHz ?? DEFAULT_RATE_HZ;
+  const rtol = options.rtol ?? DEFAULT_RTOL;
+  const atol = options.atol ?? rtol;
+  const times = sampleTimes(plan.duration, rateHz);
+  const nd = model.dofCount;
+
+  // Samples by owning piece (the integrator fills them in order, each with its audit stencil).
+  const owner = times.map((t) => pieceIndexAt(plan, t));
+  const perPiece: number[][] = plan.pieces.map(() => []);
+  times.forEach((t, s) => { if (owner[s] >= 0) perPiece[owner[s]].push(t); });
+  const track = integrateAttitude(model, plan, { rtol, atol }, perPiece);
+
+  // Samples, momentum audit, peak shape momentum.
+  const work = createMomentumWork(model);
+  const auditCounter = { n: 0 };
+  const auditRhs = plan.pieces.map((piece) => attitudeRhs(model, createMomentumWork(model), piece, auditCounter));
+  const q = new Float64Array(nd), qd = new Float64Array(nd);
+  const frames: SimulationResult['samples']['frames'] = [];
+  let maxH = 0, atTime = 0, peakH = 0;
+  let o = 0;
+  times.forEach((t, s) => {
+    const p = owner[s];
+    if (p < 0) {
+      frames.push({ t, attitude: { w: 1, x: 0, y: 0, z: 0 }, jointsDeg: Array.from(plan.start, (v) => v * DEG) });
+      return;
+    }
+    // Samples were integrated in time order.
+    const a = track.outputs.subarray(4 * o, 4 * o + 4);
+    o++;
+    const piece = plan.pieces[p];
+    evalPiece(piece, t, q, qd);
+    frames.push({ t, attitude: { w: a[0], x: a[1], y: a[2], z: a[3] }, jointsDeg: Array.from(q, (v) => v * DEG) });
+    bodyRate(model, q, qd, work);
+    peakH = Math.max(peakH, Math.hypot(work.h[0], work.h[1], work.h[2]));
+    if (options.skipAudit) return;
+    const H = auditAt(model, piece, auditRhs[p], t, a);
+    if (H > maxH) { maxH = H; atTime = t; }
+  });
+
+  // Final state.
+  const fq = quatCanonical(Float64Array.from(track.final));
+  const aa = quatToAxisAngle(fq);
+  const ypr = quatToYpr(fq);
+  const finalQ = new Float64Array(nd);
+  if (plan.pieces.length) evalPiece(plan.pieces[plan.pieces.length - 1], plan.duration, finalQ, null); else finalQ.set(plan.start);
+
+  return {
+    engineVersion: ENGINE_VERSION,
+    duration: plan.duration,
+    final: {
+      attitude: { w: fq[0], x: fq[1], y: fq[2], z: fq[3] },
+      rotation: { angleDeg: aa.angle * DEG, axis: aa.axis },
+      yprDeg: { yaw: ypr.yaw * DEG, pitch: ypr.pitch * DEG, roll: ypr.roll * DEG },
+      jointsDeg: Object.fromEntries(model.dofNames.map((name, k) => [name, finalQ[k] * DEG])),
+    },
+    momentumResidual: {
+      maxAbs: options.skipAudit ? NaN : maxH,
+      relative: options.skipAudit ? NaN : peakH > 0 ? maxH / peakH : 0,
+      peakShapeMomentum: peakH, atTime, points: times.length,
+    },
+    rangeViolations: findRangeViolations(model, plan),
+    peakJointRateDegS: peakJointRates(model, plan),
+    samples: { rateHz, dofs: [...model.dofNames], frames },
+    solver: {
+      method: 'odex (Gragg–Bulirsch–Stoer extrapolation, adaptive)',
+      rhsEvaluations: track.stats.rhsEvaluations, steps: track.stats.steps, rejectedSteps: track.stats.rejectedSteps,
+      pieces: track.stats.pieces, tolerances: { relative: rtol, absolute: atol },
+    },
+  };
+}
+
+/** Validates untrusted JSON (body, then sequence against it) and simulates; issues name the field at fault. */
+export function simulateJson(
+  bodyJson: unknown, sequenceJson: unknown, options: EngineOptions = {},
+): { ok: true; result: SimulationResult } | { ok: false; issues: ContractIssue[]; which: 'body' | 'sequence' } {
+  const b = validateBody(bodyJson);
+  if (!b.ok) return { ok: false, issues: b.issues, which: 'body' };
+  const s = validateSequence(sequenceJson, b.value);
+  if (!s.ok) return { ok: false, issues: s.issues, which: 'sequence' };
+  return { ok: true, result: simulate(b.value, s.value, options) };
+}

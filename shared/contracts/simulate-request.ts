@@ -1,0 +1,49 @@
+/**
+ * Request body of POST /api/simulate: `{ body, sequence, options? }`, with the size limits the API
+ * enforces before any simulation runs.
+ */
+import { z } from 'zod';
+
+/** Limits on what one simulation request may ask for. */
+export const SIMULATE_LIMITS = {
+  /** Max segments in a body. */
+  maxSegments: 64,
+  /** Max dofs in a body. */
+  maxDofs: 200,
+  /** Max steps in a sequence. */
+  maxSteps: 500,
+  /** Max total sequence duration, seconds. */
+  maxDurationS: 600,
+  /** Sample rate bounds, Hz. */
+  minRateHz: 1,
+  maxRateHz: 240,
+  /** Relative tolerance bounds of the integrator. */
+  minRtol: 1e-13,
+  maxRtol: 1e-3,
+} as const;
+
+/** Default sample rate, Hz. */
+export const DEFAULT_RATE_HZ = 60;
+/** Default relative (and absolute) integrator tolerance. */
+export const DEFAULT_RTOL = 1e-10;
+
+/** Simulation options. */
+export const simulateOptionsSchema = z.object({
+  /** Sample rate for the 3D view, Hz. */
+  rateHz: z.number().min(SIMULATE_LIMITS.minRateHz, `rateHz must be at least ${SIMULATE_LIMITS.minRateHz} Hz`)
+    .max(SIMULATE_LIMITS.maxRateHz, `rateHz must be at most ${SIMULATE_LIMITS.maxRateHz} Hz`).optional(),
+  /** Relative tolerance of the adaptive integrator. */
+  rtol: z.number().min(SIMULATE_LIMITS.minRtol, `rtol must be at least ${SIMULATE_LIMITS.minRtol}`)
+    .max(SIMULATE_LIMITS.maxRtol, `rtol must be at most ${SIMULATE_LIMITS.maxRtol}`).optional(),
+}).strict();
+/** Simulation options. */
+export type SimulateOptions = z.infer<typeof simulateOptionsSchema>;
+
+/** Envelope of the request; `body` and `sequence` are checked by validateBody / validateSequence. */
+export const simulateRequestSchema = z.object({
+  body: z.unknown().refine((v) => typeof v === 'object' && v !== null, 'body is required (an object)'),
+  sequence: z.unknown().refine((v) => typeof v === 'object' && v !== null, 'sequence is required (an object)'),
+  options: simulateOptionsSchema.optional(),
+});
+/** The request body. */
+export type SimulateRequest = z.infer<typeof simulateRequestSchema>;
