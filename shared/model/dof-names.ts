@@ -7,8 +7,6 @@ import type { SegmentName } from './segment-names.ts';
  * `waist_rot` positive turns the chest to the person's left relative to the pelvis.
  */
 export const DOF_NAMES = [
-  'waist_rot',
-  'waist_flex',
   'l_sh_flex',
   'l_sh_abd',
   'l_sh_rot',
@@ -17,6 +15,8 @@ export const DOF_NAMES = [
   'r_sh_abd',
   'r_sh_rot',
   'r_elbow_flex',
+  'waist_rot',
+  'waist_flex',
   'l_hip_flex',
   'l_hip_abd',
   'l_hip_rot',
