@@ -68,7 +68,7 @@ export function createApp(ctx: AppContext): Express {
   if (web && existsSync(path.join(web, 'index.html'))) {
     app.use(express.static(web, { index: false, maxAge: '1h' }));
     // Client-side routes: every other GET gets the single-page app.
-    app.get('/*splat', (_req, res) => {
+    app.get('/{*splat}', (_req, res) => {
       res.sendFile(path.join(web, 'index.html'));
     });
   }

@@ -1,0 +1,86 @@
+/**
+ * `npm test`: every check the project has, in one run, ending with the plain line
+ * `N passed, N failed` that sums them. Exits non-zero on any failure.
+ *   1. typecheck (tsc --noEmit) and lint (eslint), one check each;
+ *   2. unit and integration tests (vitest, real PostgreSQL in a throwaway cluster);
+ *   3. web build (expo export), then browser e2e (Playwright in Debian's Chromium).
+ * Installs Debian's chromium with apt-get when it is missing (never a downloaded browser).
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+import { ensurePostgresBinaries } from './postgres-cluster.ts';
+import { ensureWebBuild } from './web-build.ts';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
+const reports = path.join(root, 'test-results');
+mkdirSync(reports, { recursive: true });
+
+let passed = 0;
+let failed = 0;
+const lines: string[] = [];
+const record = (name: string, p: number, f: number) => {
+  passed += p;
+  failed += f;
+  lines.push(`${name.padEnd(12)} ${p} passed, ${f} failed`);
+};
+
+function run(cmd: string, args: string[], env: Record<string, string> = {}): number {
+  console.log(`\n$ ${cmd} ${args.join(' ')}`);
+  const res = spawnSync(cmd, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
+  return res.status ?? 1;
+}
+
+function ensureChromium() {
+  if (existsSync('/usr/bin/chromium')) return;
+  if (process.getuid?.() !== 0) throw new Error('Debian chromium is missing: sudo apt-get install -y chromium');
+  console.log('Installing Debian chromium (apt-get)…');
+  const env = { DEBIAN_FRONTEND: 'noninteractive' };
+  if (run('apt-get', ['update', '-qq'], env) !== 0 || run('apt-get', ['install', '-y', '-qq', 'chromium'], env) !== 0) {
+    throw new Error('apt-get install chromium failed');
+  }
+}
+
+interface VitestJson { numPassedTests: number; numFailedTests: number; numTotalTests: number }
+interface PlaywrightJson { stats: { expected: number; unexpected: number; flaky: number; skipped: number } }
+
+ensurePostgresBinaries((s) => console.log(s));
+ensureChromium();
+
+record('typecheck', ...(run('npx', ['tsc', '--noEmit', '-p', '.']) === 0 ? ([1, 0] as const) : ([0, 1] as const)));
+record('lint', ...(run('npx', ['eslint', '.']) === 0 ? ([1, 0] as const) : ([0, 1] as const)));
+
+const vitestOut = path.join(reports, 'vitest.json');
+rmSync(vitestOut, { force: true });
+const vitestCode = run('npx', ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${vitestOut}`]);
+if (existsSync(vitestOut)) {
+  const v = JSON.parse(readFileSync(vitestOut, 'utf8')) as VitestJson;
+  // A suite that failed to load counts as a failure even when no test in it ran.
+  record('vitest', v.numPassedTests, v.numFailedTests + (vitestCode !== 0 && v.numFailedTests === 0 ? 1 : 0));
+} else record('vitest', 0, 1);
+
+let built = true;
+try {
+  ensureWebBuild(root, path.join(root, 'dist', 'web'), (s) => console.log(s));
+} catch (err) {
+  console.error((err as Error).message);
+  built = false;
+}
+record('web build', built ? 1 : 0, built ? 0 : 1);
+
+const e2eOut = path.join(reports, 'e2e-report.json');
+rmSync(e2eOut, { force: true });
+if (built) {
+  const e2eCode = run('npx', ['playwright', 'test'], { PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1' });
+  if (existsSync(e2eOut)) {
+    const s = (JSON.parse(readFileSync(e2eOut, 'utf8')) as PlaywrightJson).stats;
+    record('e2e', s.expected + s.flaky, s.unexpected + (e2eCode !== 0 && s.unexpected === 0 ? 1 : 0));
+  } else record('e2e', 0, 1);
+}
+
+console.log('\nSummary');
+for (const l of lines) console.log(`  ${l}`);
+console.log(`${passed} passed, ${failed} failed`);
+process.exit(failed === 0 ? 0 : 1);
