@@ -19,6 +19,7 @@ export const ACCESS_POLICY = {
   sequences: ALL,
   reviews: ['admin', 'reviewer'],
   rehearsals: ALL,
+  motion: ALL,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type AccessArea = keyof typeof ACCESS_POLICY;
