@@ -10,6 +10,8 @@ export interface ObjectStore {
 
 /** An S3 client from configuration; path-style addressing so the local fake works on loopback. */
 export function createObjectStore(config: Config): ObjectStore {
+  // The pinned SDK supports this machine's Node 20; its notice about future releases is noise in logs.
+  process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true';
   const client = new S3Client({
     endpoint: config.S3_ENDPOINT,
     region: config.S3_REGION,
