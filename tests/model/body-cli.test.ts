@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { deLevaRow } from './reference-tables.ts';
 
-const ROOT = fileURLToPath(new URL('../..', import.meta.url));
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
 /** Runs `npx tsx server/cli/body.ts ARGS` from the project root. */
 function body(...args: string[]) {

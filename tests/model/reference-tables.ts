@@ -1,13 +1,15 @@
 import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 
 import Papa from 'papaparse';
 
 /** The project's verbatim copies of the shared reference tables (../shared/data/). */
-const DATA = new URL('../../server/model/data/', import.meta.url);
+const DATA = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../server/model/data');
 
 function readCsv(file: string): Record<string, string>[] {
   // the files start with '#' source lines, then a header row
-  const text = readFileSync(new URL(file, DATA), 'utf8')
+  const text = readFileSync(path.join(DATA, file), 'utf8')
     .split('\n')
     .filter((line) => !line.startsWith('#') && line.trim() !== '')
     .join('\n');

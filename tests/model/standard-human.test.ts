@@ -10,9 +10,6 @@ import { deLevaRow } from './reference-tables.ts';
 // Outside reference: de Leva P. (1996) Adjustments to Zatsiorsky-Seluyanov's segment inertia
 // parameters, J. Biomech. 29(9):1223-1230, Table 4 (shared transcription, read from CSV here).
 
-/** Floating-point agreement for quantities computed from the same table values. */
-const EXACT = 1e-12;
-
 /** Mean statures of de Leva's reference samples (the transcription's header): lengths scale from them. */
 const REF_STATURE = { male: 1.741, female: 1.735 } as const;
 

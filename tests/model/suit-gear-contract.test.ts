@@ -100,7 +100,7 @@ describe('gear', () => {
   it('a point mass on the hand raises whole-body mass by its mass and moves the system CoM by m·p/M_total', () => {
     const person = { sex: 'male', stature: 1.75, mass: 75 } as const;
     const bare = wholeBodyInertia(deriveBody(person).body);
-    const item = { name: 'sample bag', segment: 'r_hand', mass: 1.5, position: [0, 0, -0.1] } as const;
+    const item = { name: 'sample bag', segment: 'r_hand' as const, mass: 1.5, position: [0, 0, -0.1] as [number, number, number] };
     const { body } = deriveBody({ ...person, gear: [item] });
     const carried = wholeBodyInertia(body);
     expect(carried.mass - bare.mass).toBeCloseTo(1.5, 12);
