@@ -1,0 +1,89 @@
+import { useMemo } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { useIsWide } from '@/components/layout/use-is-wide';
+import { spacing } from '@/components/theme';
+import { Text } from '@/components/ui/Text';
+import type { SimulationResult } from '@/shared/contracts/result';
+import { DOF_LABELS, isDofName } from '@/shared/model/dof-names';
+import { LinePlot } from './LinePlot';
+import { plotColors } from './plot-colors';
+
+/** A dof's allowed range, degrees. */
+export interface DofLimits {
+  min: number;
+  max: number;
+}
+
+/** Props of {@link JointAnglePlots}. */
+export interface JointAnglePlotsProps {
+  /** The verification result's samples (joint angles in degrees, in `samples.dofs` order). */
+  samples: SimulationResult['samples'];
+  /** Allowed range per dof name, degrees (the profile's suited ranges); a band is drawn where known. */
+  limits?: Record<string, DofLimits>;
+  /** Range violations, drawn as red bars under the line of their dof. */
+  violations?: SimulationResult['rangeViolations'];
+}
+
+/** Dofs whose angle changes by less than this (degrees) are left out: a flat line says nothing. */
+const MOVING_THRESHOLD_DEG = 0.5;
+
+/** Human label of a dof (standard model names get their anatomical label). */
+export function dofLabel(dof: string): string {
+  return isDofName(dof) ? DOF_LABELS[dof] : dof;
+}
+
+/**
+ * Small multiples: one plot per moving joint, its angle against time over its allowed range band,
+ * with out-of-range stretches marked. One plot per dof keeps each band readable.
+ */
+export function JointAnglePlots({ samples, limits, violations }: JointAnglePlotsProps) {
+  const wide = useIsWide();
+  const t = useMemo(() => samples.frames.map((f) => f.t), [samples]);
+  const moving = useMemo(
+    () =>
+      samples.dofs
+        .map((dof, i) => ({ dof, values: samples.frames.map((f) => f.jointsDeg[i]) }))
+        .filter(({ values }) => Math.max(...values) - Math.min(...values) >= MOVING_THRESHOLD_DEG),
+    [samples],
+  );
+  if (moving.length === 0) {
+    return <Text tone="muted">No joint moves in this sequence.</Text>;
+  }
+  return (
+    <View style={[styles.grid, wide && styles.gridWide]} testID="joint-plots">
+      {moving.map(({ dof, values }) => {
+        const lim = limits?.[dof];
+        const spans = (violations ?? []).filter((v) => v.dof === dof).map((v) => ({ from: v.from, to: v.to }));
+        const lo = Math.min(...values);
+        const hi = Math.max(...values);
+        const summary =
+          `Moves between ${lo.toFixed(0)}° and ${hi.toFixed(0)}°` +
+          (lim ? `; allowed ${lim.min}° to ${lim.max}°` : '') +
+          (spans.length ? `; out of range ${spans.length} time${spans.length > 1 ? 's' : ''}.` : '.');
+        return (
+          <View key={dof} style={[styles.cell, wide && styles.cellWide]}>
+            <LinePlot
+              title={dofLabel(dof)}
+              summary={summary}
+              x={t}
+              series={[{ name: dofLabel(dof), color: spans.length ? plotColors.violation : plotColors.joint, values }]}
+              band={lim ? { lo: lim.min, hi: lim.max } : undefined}
+              spans={spans}
+              yUnit="°"
+              height={130}
+              hideLegend
+            />
+          </View>
+        );
+      })}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  grid: { gap: spacing.lg },
+  gridWide: { flexDirection: 'row', flexWrap: 'wrap' },
+  cell: { alignSelf: 'stretch' },
+  cellWide: { flexBasis: '47%', flexGrow: 1, minWidth: 260 },
+});
