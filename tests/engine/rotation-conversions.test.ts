@@ -26,7 +26,7 @@ function testQuaternions(): number[][] {
   return out;
 }
 
-beforeAll(() => { glMatrix.setMatrixArrayType(Float64Array); });
+beforeAll(() => { glMatrix.setMatrixArrayType(Float64Array as unknown as Float32ArrayConstructor); });
 
 describe('quaternion → matrix', () => {
   it('agrees with three.js Matrix4.makeRotationFromQuaternion', () => {

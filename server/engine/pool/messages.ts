@@ -1,0 +1,17 @@
+/** Messages between the simulation pool and its worker threads. */
+import type { ContractIssue } from '../../../shared/contracts/contract-issue.ts';
+import type { SimulationResult } from '../../../shared/contracts/result.ts';
+
+/** One simulation job: untrusted body and sequence JSON, validated in the worker. */
+export interface PoolRequest {
+  id: number;
+  body: unknown;
+  sequence: unknown;
+  options: { rateHz?: number; rtol?: number };
+}
+
+/** The worker's answer. */
+export type PoolReply =
+  | { id: number; kind: 'result'; result: SimulationResult }
+  | { id: number; kind: 'invalid'; which: 'body' | 'sequence'; issues: ContractIssue[] }
+  | { id: number; kind: 'failed'; message: string };
