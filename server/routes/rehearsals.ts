@@ -1,0 +1,121 @@
+import { and, desc, eq, inArray, type SQL } from 'drizzle-orm';
+import { Router } from 'express';
+
+import { crewMembers, rehearsals, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
+import {
+  logRehearsalSchema, rehearsalListQuerySchema, type RehearsableVersion, type Rehearsal,
+} from '../../shared/contracts/rehearsal.ts';
+import type { z } from 'zod';
+import type { AppContext } from '../app-context.ts';
+import { recordAudit } from '../audit/record-audit.ts';
+import { badRequest, forbidden } from '../http/http-error.ts';
+import { validate } from '../http/validate.ts';
+import { compiledDuration, compiledStepCount } from '../motion/compiled-sequence.ts';
+import { targetLabel } from '../motion/target-attitude.ts';
+import { loadVersionFor } from '../motion/version-access.ts';
+
+type RehearsalJoin = { r: typeof rehearsals.$inferSelect; seqName: string; version: number; traineeName: string };
+
+function toRehearsal({ r, seqName, version, traineeName }: RehearsalJoin): Rehearsal {
+  return {
+    id: r.id, sequenceVersionId: r.sequenceVersionId, sequenceName: seqName, version, traineeId: r.traineeId, traineeName,
+    performedAt: r.performedAt.toISOString(), playbackSpeed: r.playbackSpeed, completedSteps: r.completedSteps,
+    totalSteps: r.totalSteps, selfRating: r.selfRating, notes: r.notes,
+  };
+}
+
+/**
+ * Rehearsals: trainees list what they may rehearse and log runs of cleared versions of their own
+ * crew member; everyone signed in reads the history (trainees only their own).
+ */
+export function rehearsalsRouter(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  const selectRehearsals = (where: SQL | undefined) =>
+    db
+      .select({ r: rehearsals, seqName: sequences.name, version: sequenceVersions.version, traineeName: users.name })
+      .from(rehearsals)
+      .innerJoin(sequenceVersions, eq(sequenceVersions.id, rehearsals.sequenceVersionId))
+      .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
+      .innerJoin(users, eq(users.id, rehearsals.traineeId))
+      .where(where)
+      .orderBy(desc(rehearsals.performedAt));
+
+  // What the caller may rehearse: cleared versions (a trainee: of their own crew member), plus the
+  // versions they rehearsed that now need a re-check, so the list can say why one went away.
+  router.get('/available', async (req, res) => {
+    const me = req.user!;
+    if (me.role === 'trainee' && !me.crewMemberId) {
+      res.json({ versions: [] });
+      return;
+    }
+    const own = me.role === 'trainee' ? eq(sequences.crewMemberId, me.crewMemberId!) : undefined;
+    const rows = await db
+      .select({ v: sequenceVersions, s: sequences, crewName: crewMembers.name })
+      .from(sequenceVersions)
+      .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
+      .innerJoin(crewMembers, eq(crewMembers.id, sequences.crewMemberId))
+      .where(and(inArray(sequenceVersions.status, ['cleared', 'recheck']), own))
+      .orderBy(sequences.name, desc(sequenceVersions.version));
+    const mine = rows.length
+      ? await selectRehearsals(and(
+          inArray(rehearsals.sequenceVersionId, rows.map((r) => r.v.id)),
+          me.role === 'trainee' ? eq(rehearsals.traineeId, me.id) : undefined,
+        ))
+      : [];
+    const versions: RehearsableVersion[] = rows
+      .filter(({ v }) => v.status === 'cleared' || mine.some((m) => m.r.sequenceVersionId === v.id))
+      .map(({ v, s, crewName }) => {
+        const runs = mine.filter((m) => m.r.sequenceVersionId === v.id);
+        const last = runs[0]?.r;
+        return {
+          versionId: v.id, sequenceId: s.id, sequenceName: s.name, version: v.version, status: v.status,
+          crewMemberName: crewName, target: s.target, targetLabel: targetLabel(s.target),
+          duration: compiledDuration(v.compiled), stepCount: compiledStepCount(v.compiled),
+          clearedAt: v.clearedAt?.toISOString() ?? null,
+          lastRehearsal: last ? { performedAt: last.performedAt.toISOString(), selfRating: last.selfRating, completedSteps: last.completedSteps, totalSteps: last.totalSteps } : null,
+          rehearsalCount: runs.length,
+        };
+      });
+    res.json({ versions });
+  });
+
+  router.get('/', validate({ query: rehearsalListQuerySchema }), async (req, res) => {
+    const me = req.user!;
+    const { versionId } = res.locals.query as z.infer<typeof rehearsalListQuerySchema>;
+    const rows = await selectRehearsals(and(
+      me.role === 'trainee' ? eq(rehearsals.traineeId, me.id) : undefined,
+      versionId ? eq(rehearsals.sequenceVersionId, versionId) : undefined,
+    ));
+    res.json({ rehearsals: rows.map(toRehearsal) });
+  });
+
+  router.post('/', validate({ body: logRehearsalSchema }), async (req, res) => {
+    const me = req.user!;
+    if (me.role !== 'trainee') throw forbidden('Only crew trainees log rehearsals.');
+    const input = req.body as z.infer<typeof logRehearsalSchema>;
+    const v = await loadVersionFor(db, me, input.sequenceVersionId);
+    const totalSteps = compiledStepCount(v.compiled);
+    if (input.completedSteps > totalSteps) {
+      throw badRequest(`completedSteps: this version has ${totalSteps} steps; ${input.completedSteps} cannot be completed.`, 'completedSteps');
+    }
+    const row = await db.transaction(async (tx) => {
+      const [r] = await tx
+        .insert(rehearsals)
+        .values({
+          sequenceVersionId: v.id, traineeId: me.id, playbackSpeed: input.playbackSpeed,
+          completedSteps: input.completedSteps, totalSteps, selfRating: input.selfRating, notes: input.notes,
+        })
+        .returning();
+      await recordAudit(tx, {
+        actorId: me.id, action: 'rehearsal.log', objectType: 'rehearsal', objectId: r.id,
+        detail: { sequenceVersionId: v.id, completedSteps: input.completedSteps, totalSteps, playbackSpeed: input.playbackSpeed },
+      });
+      return r;
+    });
+    res.status(201).json({ rehearsal: toRehearsal({ r: row, seqName: v.sequenceName, version: v.version, traineeName: me.name }) });
+  });
+
+  return router;
+}

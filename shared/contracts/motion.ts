@@ -1,0 +1,69 @@
+/**
+ * GET /api/motion/:versionId — everything the 3D rehearsal view needs for one sequence version:
+ * the body (segment table), the engine's samples, step boundaries with cues, and the target attitude.
+ * Angles in degrees, times in seconds, attitudes {w,x,y,z} rotate body (root-segment) vectors into
+ * the inertial frame (which coincides with the root frame at t = 0).
+ */
+import { z } from 'zod';
+
+import type { Body } from './body.ts';
+import type { Attitude, SimulationResult } from './result.ts';
+import type { VersionStatus } from './version-status.ts';
+
+/** Sample-rate bounds of the motion endpoint, Hz (the view interpolates between samples). */
+export const MOTION_RATE = { min: 5, max: 120, default: 30 } as const;
+
+/** Query of GET /api/motion/:versionId. */
+export const motionQuerySchema = z.object({
+  /** Samples per second, Hz (5–120, default 30). */
+  rate: z.coerce.number().int('rate must be a whole number of samples per second')
+    .min(MOTION_RATE.min, `rate must be at least ${MOTION_RATE.min} Hz`)
+    .max(MOTION_RATE.max, `rate must be at most ${MOTION_RATE.max} Hz`)
+    .default(MOTION_RATE.default),
+});
+
+/** One step of the sequence on the timeline. */
+export interface MotionStep {
+  /** Index in the compiled sequence's steps. */
+  index: number;
+  /** Engine step kind. */
+  kind: 'move' | 'harmonic' | 'hold';
+  /** Start and end, seconds from the sequence start. */
+  start: number;
+  end: number;
+  /** Harmonic steps: number of cycles (may be fractional) and seconds per cycle; null otherwise. */
+  cycles: number | null;
+  period: number | null;
+  /** What to do, in words for the trainee. */
+  cue: string;
+}
+
+/** Response of GET /api/motion/:versionId. */
+export interface MotionResponse {
+  versionId: string;
+  sequenceId: string;
+  /** Sequence name and version number, e.g. "Quarter turn left", 3. */
+  sequenceName: string;
+  version: number;
+  status: VersionStatus;
+  /** The crew member whose body this is. */
+  crewMemberName: string;
+  /** The body contract of the version's profile version (segment table the view draws). */
+  body: Body;
+  /** Engine version that produced the samples. */
+  engineVersion: string;
+  /** Total duration, seconds. */
+  duration: number;
+  /** Engine samples (first at t = 0, last at `duration`); joint angles in the order of `dofs`. */
+  samples: SimulationResult['samples'];
+  /** Steps in order, covering [0, duration]. */
+  steps: MotionStep[];
+  /** The sequence's target as stored (shape set by the maneuvers API). */
+  target: unknown;
+  /** The target as an attitude, when it can be read from `target`; otherwise the simulated final attitude. */
+  targetAttitude: Attitude;
+  /** Where targetAttitude came from. */
+  targetSource: 'target' | 'final';
+  /** The simulated end state. */
+  final: SimulationResult['final'];
+}

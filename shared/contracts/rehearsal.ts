@@ -1,0 +1,81 @@
+/**
+ * Rehearsals: a trainee's logged run of a cleared sequence version (POST/GET /api/rehearsals),
+ * and the list of versions a trainee can rehearse (GET /api/rehearsals/available).
+ */
+import { z } from 'zod';
+
+import type { VersionStatus } from './version-status.ts';
+
+/** Playback speeds the player offers (multiples of real time). */
+export const PLAYBACK_SPEEDS = [0.25, 0.5, 1, 1.5, 2] as const;
+/** Slowest and fastest playback, × real time. */
+export const PLAYBACK_SPEED_RANGE = { min: 0.25, max: 2 } as const;
+
+/** POST /api/rehearsals body. */
+export const logRehearsalSchema = z.object({
+  /** The cleared sequence version rehearsed. */
+  sequenceVersionId: z.string().uuid('sequenceVersionId must be a version id'),
+  /** Playback speed used, × real time (0.25–2). */
+  playbackSpeed: z.number().finite()
+    .min(PLAYBACK_SPEED_RANGE.min, `playbackSpeed must be at least ${PLAYBACK_SPEED_RANGE.min}×`)
+    .max(PLAYBACK_SPEED_RANGE.max, `playbackSpeed must be at most ${PLAYBACK_SPEED_RANGE.max}×`),
+  /** Steps completed (0 … the version's step count; the server checks the upper bound). */
+  completedSteps: z.number().int('completedSteps must be a whole number').min(0, 'completedSteps must be at least 0'),
+  /** How it went, 1 (struggled) … 5 (confident). */
+  selfRating: z.number().int('selfRating must be a whole number').min(1, 'selfRating must be 1–5').max(5, 'selfRating must be 1–5'),
+  /** Free text, at most 2000 characters. */
+  notes: z.string().max(2000, 'notes must be at most 2000 characters').default(''),
+});
+/** POST /api/rehearsals body. */
+export type LogRehearsalRequest = z.input<typeof logRehearsalSchema>;
+
+/** Query of GET /api/rehearsals. */
+export const rehearsalListQuerySchema = z.object({
+  /** Only rehearsals of this version. */
+  versionId: z.string().uuid('versionId must be a version id').optional(),
+});
+
+/** One logged rehearsal as the API returns it. */
+export interface Rehearsal {
+  id: string;
+  sequenceVersionId: string;
+  /** Sequence name and version number of the rehearsed version. */
+  sequenceName: string;
+  version: number;
+  traineeId: string;
+  traineeName: string;
+  /** ISO 8601 time of the log. */
+  performedAt: string;
+  /** × real time. */
+  playbackSpeed: number;
+  completedSteps: number;
+  totalSteps: number;
+  /** 1–5. */
+  selfRating: number;
+  notes: string;
+}
+
+/** A version the trainee may rehearse (cleared), or one they rehearsed that now needs a re-check. */
+export interface RehearsableVersion {
+  versionId: string;
+  sequenceId: string;
+  sequenceName: string;
+  version: number;
+  /** `cleared`: playable; `recheck`: its profile changed, shown with a notice until re-cleared. */
+  status: VersionStatus;
+  crewMemberName: string;
+  /** The sequence's target as stored. */
+  target: unknown;
+  /** Target in words, e.g. "yaw 90°, pitch 0°, roll 0°". */
+  targetLabel: string;
+  /** Total duration, seconds. */
+  duration: number;
+  /** Number of compiled steps. */
+  stepCount: number;
+  /** ISO 8601 time of clearance. */
+  clearedAt: string | null;
+  /** The trainee's latest rehearsal of this version, if any. */
+  lastRehearsal: { performedAt: string; selfRating: number; completedSteps: number; totalSteps: number } | null;
+  /** Number of logged rehearsals of this version by this trainee. */
+  rehearsalCount: number;
+}

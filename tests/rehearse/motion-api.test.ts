@@ -1,0 +1,164 @@
+import { eq } from 'drizzle-orm';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { sequenceVersions } from '../../db/schema/index.ts';
+import type { MotionResponse } from '../../shared/contracts/motion.ts';
+import { validateBody } from '../../shared/contracts/body.ts';
+import { validateSequence } from '../../shared/contracts/sequence.ts';
+import { simulate } from '../../server/engine/simulate.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from './rehearsal-fixture.ts';
+
+const TAMSIN = 'tamsin.reed@lumen.example.test';
+const BRAM = 'bram.kettle@lumen.example.test';
+
+let t: TestApp;
+let cleared: string, drafting: string, others: string, recheck: string;
+beforeAll(async () => {
+  t = await startTestApp();
+  const reed = await crewMemberOf(t.ctx.db, TAMSIN);
+  const kettle = await crewMemberOf(t.ctx.db, BRAM);
+  const pv = await insertProfileVersion(t.ctx.db, reed);
+  const pvK = await insertProfileVersion(t.ctx.db, kettle);
+  cleared = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv, status: 'cleared', target: { yaw: 0, pitch: -20, roll: 0 } });
+  drafting = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv, status: 'drafting', name: 'Draft sweep' });
+  recheck = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv, status: 'cleared', name: 'Old sweep' });
+  await t.ctx.db.update(sequenceVersions).set({ status: 'recheck' }).where(eq(sequenceVersions.id, recheck));
+  others = await insertVersion(t.ctx.db, { crewMemberId: kettle, profileVersionId: pvK, status: 'cleared', name: 'Kettle sweep' });
+}, 60_000);
+afterAll(async () => {
+  await t?.close();
+});
+
+const get = async (email: string, path: string) => request(t.app).get(path).set('Authorization', `Bearer ${await t.tokenForEmail(email)}`);
+
+describe('GET /api/motion/:versionId', () => {
+  it('returns the engine samples at the requested rate, the body and step boundaries summing to the duration', async () => {
+    const res = await get(TAMSIN, `/api/motion/${cleared}?rate=20`);
+    expect(res.status).toBe(200);
+    const m = res.body as MotionResponse;
+    // Same engine, same inputs: the samples equal a direct simulation (the route adds nothing to them).
+    const body = validateBody(m.body);
+    if (!body.ok) throw new Error('body');
+    const seq = validateSequence(ARM_SWEEP, body.value);
+    if (!seq.ok) throw new Error('sequence');
+    const direct = simulate(body.value, seq.value, { rateHz: 20 });
+    expect(m.samples).toEqual(direct.samples);
+    expect(m.samples.rateHz).toBe(20);
+    // 1 + 3·1.5 + 0.5 + 1 = 7 s (sum of the step durations in ARM_SWEEP).
+    expect(m.duration).toBeCloseTo(7, 12);
+    expect(m.steps.map((s) => [s.kind, s.start, s.end])).toEqual([
+      ['move', 0, 1], ['harmonic', 1, 5.5], ['hold', 5.5, 6], ['move', 6, 7],
+    ]);
+    expect(m.steps[1]).toMatchObject({ cycles: 3, period: 1.5 });
+    expect(m.steps[1].cue).toMatch(/3 cycles of 1\.5 s/);
+    expect(m.samples.frames.at(-1)!.t).toBeCloseTo(7, 12);
+  });
+
+  it('reads a yaw/pitch/roll target as the ghost attitude: pitch −20° is a rotation of 20° about −y', async () => {
+    const m = (await get(TAMSIN, `/api/motion/${cleared}`)).body as MotionResponse;
+    expect(m.targetSource).toBe('target');
+    // q = (cos 10°, 0, −sin 10°, 0) for a right-handed rotation of −20° about y (closed form).
+    expect(m.targetAttitude.w).toBeCloseTo(Math.cos((10 * Math.PI) / 180), 12);
+    expect(m.targetAttitude.y).toBeCloseTo(-Math.sin((10 * Math.PI) / 180), 12);
+    expect(m.samples.rateHz).toBe(30);
+  });
+
+  it('serves a second request from the cache with identical samples', async () => {
+    const a = (await get(TAMSIN, `/api/motion/${cleared}?rate=25`)).body as MotionResponse;
+    const b = (await get(TAMSIN, `/api/motion/${cleared}?rate=25`)).body as MotionResponse;
+    expect(b.samples).toEqual(a.samples);
+  });
+
+  it('hides another crew member’s version from a trainee (404)', async () => {
+    expect((await get(TAMSIN, `/api/motion/${others}`)).status).toBe(404);
+  });
+
+  it('refuses a trainee their own version that is not cleared (403), and one that needs a re-check (403)', async () => {
+    expect((await get(TAMSIN, `/api/motion/${drafting}`)).status).toBe(403);
+    const res = await get(TAMSIN, `/api/motion/${recheck}`);
+    expect(res.status).toBe(403);
+    expect(res.body.error.message).toMatch(/re-check/);
+  });
+
+  it('lets a reviewer preview any version', async () => {
+    const res = await get('juno.brack@lumen.example.test', `/api/motion/${drafting}`);
+    expect(res.status).toBe(200);
+  });
+
+  it('names the bad query field: rate above 120 Hz (400)', async () => {
+    const res = await get(TAMSIN, `/api/motion/${cleared}?rate=500`);
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('rate');
+  });
+
+  it('answers 401 without a session', async () => {
+    expect((await request(t.app).get(`/api/motion/${cleared}`)).status).toBe(401);
+  });
+});
+
+describe('rehearsals', () => {
+  it('lists the trainee’s cleared versions only, with duration and step count', async () => {
+    const res = await get(TAMSIN, '/api/rehearsals/available');
+    expect(res.status).toBe(200);
+    const names = res.body.versions.map((v: { sequenceName: string }) => v.sequenceName);
+    expect(names).toEqual(['Arm cone, both sides']);
+    expect(res.body.versions[0]).toMatchObject({ duration: 7, stepCount: 4, lastRehearsal: null, rehearsalCount: 0, targetLabel: 'yaw 0°, pitch -20°, roll 0°' });
+  });
+
+  it('logs a rehearsal, shows it in the history and as the last rehearsal, and audits it', async () => {
+    const token = await t.tokenForEmail(TAMSIN);
+    const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${token}`)
+      .send({ sequenceVersionId: cleared, playbackSpeed: 0.5, completedSteps: 4, selfRating: 4, notes: 'Smooth cones' });
+    expect(res.status).toBe(201);
+    expect(res.body.rehearsal).toMatchObject({ completedSteps: 4, totalSteps: 4, playbackSpeed: 0.5, selfRating: 4, notes: 'Smooth cones', traineeName: 'Tamsin Reed' });
+    const list = await get(TAMSIN, '/api/rehearsals');
+    expect(list.body.rehearsals).toHaveLength(1);
+    const avail = await get(TAMSIN, '/api/rehearsals/available');
+    expect(avail.body.versions[0].lastRehearsal).toMatchObject({ selfRating: 4, completedSteps: 4 });
+    const audit = await get('ada.quill@lumen.example.test', '/api/audit');
+    expect(JSON.stringify(audit.body)).toContain('rehearsal.log');
+  });
+
+  it('shows a rehearsed version that later needs a re-check with status recheck', async () => {
+    const token = await t.tokenForEmail(TAMSIN);
+    const extra = await insertVersion(t.ctx.db, { crewMemberId: await crewMemberOf(t.ctx.db, TAMSIN), profileVersionId: (await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.id, cleared)))[0].profileVersionId, status: 'cleared', name: 'Leg sweep' });
+    await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${token}`)
+      .send({ sequenceVersionId: extra, playbackSpeed: 1, completedSteps: 2, selfRating: 3 });
+    await t.ctx.db.update(sequenceVersions).set({ status: 'recheck' }).where(eq(sequenceVersions.id, extra));
+    const avail = await get(TAMSIN, '/api/rehearsals/available');
+    const leg = avail.body.versions.find((v: { versionId: string }) => v.versionId === extra);
+    expect(leg).toMatchObject({ status: 'recheck', rehearsalCount: 1 });
+  });
+
+  it('names the field: completedSteps beyond the version’s 4 steps (400)', async () => {
+    const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${await t.tokenForEmail(TAMSIN)}`)
+      .send({ sequenceVersionId: cleared, playbackSpeed: 1, completedSteps: 5, selfRating: 3 });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('completedSteps');
+  });
+
+  it('names the field: playbackSpeed 3× is above the 2× limit (400)', async () => {
+    const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${await t.tokenForEmail(TAMSIN)}`)
+      .send({ sequenceVersionId: cleared, playbackSpeed: 3, completedSteps: 1, selfRating: 3 });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('playbackSpeed');
+  });
+
+  it('refuses a log for another crew member’s version (404) and from a planner (403)', async () => {
+    const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${await t.tokenForEmail(TAMSIN)}`)
+      .send({ sequenceVersionId: others, playbackSpeed: 1, completedSteps: 1, selfRating: 3 });
+    expect(res.status).toBe(404);
+    const planner = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${await t.tokenFor('planner')}`)
+      .send({ sequenceVersionId: cleared, playbackSpeed: 1, completedSteps: 1, selfRating: 3 });
+    expect(planner.status).toBe(403);
+  });
+
+  it('lets a reviewer read every trainee’s history, and another trainee none of Tamsin’s', async () => {
+    const staff = await get('juno.brack@lumen.example.test', `/api/rehearsals?versionId=${cleared}`);
+    expect(staff.body.rehearsals.length).toBeGreaterThanOrEqual(1);
+    const bram = await get(BRAM, '/api/rehearsals');
+    expect(bram.body.rehearsals).toEqual([]);
+  });
+});

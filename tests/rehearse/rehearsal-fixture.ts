@@ -1,0 +1,68 @@
+/**
+ * Invented demo data for the rehearsal tests: a standard-human profile version for a crew member and
+ * a sequence version in a chosen status, inserted straight into the tables (the maneuvers API that
+ * normally creates them is tested on its own).
+ */
+import { eq } from 'drizzle-orm';
+
+import type { Database } from '../../db/client.ts';
+import { crewMembers, profileVersions, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
+import type { VersionStatus } from '../../shared/contracts/version-status.ts';
+import { deriveBody } from '../../server/model/derive-body.ts';
+
+/** An arm-sweep maneuver on the standard human model: position, 3 cone cycles, hold, return (invented). */
+export const ARM_SWEEP = {
+  start: {},
+  steps: [
+    { kind: 'move', duration: 1, to: { r_sh_flex: 90, l_sh_flex: 90 } },
+    {
+      kind: 'harmonic', period: 1.5, cycles: 3,
+      joints: {
+        r_sh_flex: { offset: 60, amplitude: 30, phase: 90 },
+        r_sh_abd: { offset: 0, amplitude: 30, phase: 0 },
+        l_sh_flex: { offset: 60, amplitude: 30, phase: 90 },
+        l_sh_abd: { offset: 0, amplitude: 30, phase: 180 },
+      },
+    },
+    { kind: 'hold', duration: 0.5 },
+    { kind: 'move', duration: 1, to: { r_sh_flex: 0, l_sh_flex: 0 } },
+  ],
+} as const;
+
+/** Crew member id of a demo user (by e-mail). */
+export async function crewMemberOf(db: Database, email: string): Promise<string> {
+  const [u] = await db.select({ c: users.crewMemberId }).from(users).where(eq(users.email, email));
+  if (!u?.c) throw new Error(`${email} has no crew member`);
+  return u.c;
+}
+
+/** Inserts a profile version (standard human, 1.68 m, 61 kg) for a crew member; returns its id. */
+export async function insertProfileVersion(db: Database, crewMemberId: string, version = 1): Promise<string> {
+  const d = deriveBody({ sex: 'female', stature: 1.68, mass: 61 });
+  const [row] = await db
+    .insert(profileVersions)
+    .values({ crewMemberId, version, inputs: d.inputs, body: d.body, summary: {}, engineVersion: 'test' })
+    .returning({ id: profileVersions.id });
+  await db.update(crewMembers).set({ currentVersion: version }).where(eq(crewMembers.id, crewMemberId));
+  return row.id;
+}
+
+/** Inserts a sequence with one version in `status`; returns the version id. */
+export async function insertVersion(
+  db: Database,
+  opts: { crewMemberId: string; profileVersionId: string; status: VersionStatus; name?: string; compiled?: unknown; target?: unknown },
+): Promise<string> {
+  const [seq] = await db
+    .insert(sequences)
+    .values({ crewMemberId: opts.crewMemberId, name: opts.name ?? 'Arm cone, both sides', target: opts.target ?? { yaw: 0, pitch: -20, roll: 0 } })
+    .returning({ id: sequences.id });
+  const [v] = await db
+    .insert(sequenceVersions)
+    .values({
+      sequenceId: seq.id, version: 1, primitives: [], compiled: opts.compiled ?? ARM_SWEEP,
+      profileVersionId: opts.profileVersionId, status: opts.status,
+      clearedAt: opts.status === 'cleared' ? new Date() : null,
+    })
+    .returning({ id: sequenceVersions.id });
+  return v.id;
+}
