@@ -1,0 +1,375 @@
+/**
+ * The maneuvers API contract: sequences, their versions, verification reports, reviews and
+ * comparisons. Angles in degrees, times in seconds, timestamps ISO-8601 strings, ids UUIDs.
+ *
+ * Endpoints (all under /api, bearer token):
+ * - GET    /sequences?crewMemberId=          → { sequences: SequenceSummary[] }
+ * - POST   /sequences                        CreateSequenceRequest → 201 SequenceSummary   (planner, admin)
+ * - GET    /sequences/:sequenceId            → SequenceDetail
+ * - PATCH  /sequences/:sequenceId            UpdateSequenceRequest → SequenceSummary       (planner, admin)
+ * - POST   /sequences/compile                CompileRequest → CompileResponse (no save, no simulation)
+ * - POST   /sequences/:sequenceId/versions   SaveVersionRequest → 201 VersionDetail; 409 `stale_version`
+ *          when `baseVersion` is not the latest version number; 400 naming `primitives[i]…` on bad steps.
+ *          Compiles, binds the crew member's current profile version and verifies on the engine.
+ * - GET    /sequences/versions/:versionId    → VersionDetail
+ * - POST   /sequences/versions/:versionId/submit   SubmitRequest → VersionDetail             (author: planner, admin)
+ * - GET    /sequences/versions/:versionId/compare/:otherVersionId → CompareResponse
+ * - GET    /reviews/queue                    → { items: ReviewQueueItem[] }                   (reviewer, admin)
+ * - POST   /reviews/:versionId/decision      ReviewDecisionRequest → VersionDetail             (reviewer, admin; never the author)
+ * - POST   /reviews/:versionId/comments      ReviewCommentRequest → VersionDetail              (reviewer, admin)
+ * Errors: `{ error: { code, message, field } }`; 409 codes: `stale_version`, `invalid_transition`.
+ *
+ * Statuses (shared/contracts/version-status.ts): drafting → under_review (submit) → cleared
+ * (a reviewer who is not the author) or sent_back (with a comment). Saving a new version makes
+ * older drafting / under_review / sent_back versions (and never-cleared recheck ones) `replaced`;
+ * a cleared version stays cleared until a newer version of the same sequence is cleared, then it is
+ * `replaced`. When the crew member's current profile version changes, cleared and under-review
+ * versions bound to an older profile become `recheck` and are recomputed in the background
+ * (`reverification`); a recheck version cannot be submitted: save a new version (same primitives)
+ * which binds the new profile. Trainees see only cleared and recheck (once cleared) versions of
+ * their own crew member.
+ */
+import { z } from 'zod';
+
+import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
+import { attitudeSchema, rangeViolationSchema } from './result.ts';
+import { versionStatusSchema } from './version-status.ts';
+
+/**
+ * Client routes the server links to in e-mails (the app must serve them):
+ * - a reviewer's link to a submitted version: `<PUBLIC_URL>/reviews/<versionId>`;
+ * - the author's link to a decided version: `<PUBLIC_URL>/maneuvers/<sequenceId>?version=<versionId>`.
+ */
+export const CLIENT_ROUTES = {
+  review: (versionId: string) => `/reviews/${versionId}`,
+  version: (sequenceId: string, versionId: string) => `/maneuvers/${sequenceId}?version=${versionId}`,
+} as const;
+
+const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
+const isoTime = z.string();
+
+/** Target reorientation: intrinsic z-y′-x″ yaw/pitch/roll, or a rotation angle about an axis (body frame at t = 0). */
+export const reorientationSchema = z.discriminatedUnion('kind', [
+  z.object({
+    kind: z.literal('ypr'),
+    /** Yaw about z (toward the head), degrees, −180…180. */
+    yawDeg: finite('yawDeg').min(-180).max(180),
+    /** Pitch about y (to the left), degrees, −90…90. */
+    pitchDeg: finite('pitchDeg').min(-90).max(90),
+    /** Roll about x (out of the chest), degrees, −180…180. */
+    rollDeg: finite('rollDeg').min(-180).max(180),
+  }),
+  z.object({
+    kind: z.literal('axis_angle'),
+    /** Rotation axis in the initial body frame (x anterior, y left, z head), any non-zero vector. */
+    axis: z.tuple([finite('axis'), finite('axis'), finite('axis')]).refine((a) => Math.hypot(...a) > 1e-9, 'axis must not be zero'),
+    /** Right-handed rotation angle, degrees, 0…180. */
+    angleDeg: finite('angleDeg').min(0).max(180),
+  }),
+]);
+/** A target reorientation. */
+export type Reorientation = z.infer<typeof reorientationSchema>;
+
+/** What a sequence must achieve and within which limits (stored as the sequence's `target`). */
+export const sequenceTargetSchema = z.object({
+  reorientation: reorientationSchema,
+  /** Largest acceptable final attitude error, degrees (default 2). */
+  toleranceDeg: finite('toleranceDeg').positive().max(90).default(2),
+  /** Joint rate limit the report checks the peak joint rate against, deg/s (default 180). */
+  rateLimitDegS: finite('rateLimitDegS').positive().max(2000).default(180),
+  /** Time budget, seconds; null: none. */
+  timeBudgetS: finite('timeBudgetS').positive().max(3600).nullable().default(null),
+});
+/** A sequence target (output shape, defaults filled). */
+export type SequenceTarget = z.infer<typeof sequenceTargetSchema>;
+
+/** POST /sequences */
+export const createSequenceRequestSchema = z.object({
+  crewMemberId: z.uuid(),
+  name: z.string().trim().min(1, 'name is required').max(120),
+  target: sequenceTargetSchema,
+});
+export type CreateSequenceRequest = z.input<typeof createSequenceRequestSchema>;
+
+/** PATCH /sequences/:sequenceId (the target is not part of a version's approval; changing it is audited). */
+export const updateSequenceRequestSchema = z.object({
+  name: z.string().trim().min(1).max(120).optional(),
+  target: sequenceTargetSchema.optional(),
+});
+export type UpdateSequenceRequest = z.input<typeof updateSequenceRequestSchema>;
+
+/** POST /sequences/:sequenceId/versions */
+export const saveVersionRequestSchema = z.object({
+  /** The composed primitives, in order. */
+  primitives: primitiveListSchema,
+  /** The latest version number the editor started from (0 when the sequence has none); else 409. */
+  baseVersion: z.number().int().min(0),
+  /** Free-text note on what changed. */
+  note: z.string().max(2000).default(''),
+});
+export type SaveVersionRequest = z.input<typeof saveVersionRequestSchema>;
+
+/** POST /sequences/compile: compile only, for the composer's "show joint steps". */
+export const compileRequestSchema = z.object({
+  primitives: primitiveListSchema,
+  /** Crew member whose current profile gives the dof ranges (optional: standard ranges otherwise). */
+  crewMemberId: z.uuid().optional(),
+});
+export type CompileRequest = z.input<typeof compileRequestSchema>;
+
+/** Which compiled steps came from which primitive (see shared/primitives/compile-primitives.ts). */
+export const stepOriginSchema = z.object({
+  primitive: z.number().int(),
+  role: z.enum(['blend', 'sweep', 'shift', 'pause']),
+  startS: z.number(),
+  endS: z.number(),
+});
+
+/** A problem tied to one primitive. */
+export const primitiveIssueSchema = z.object({ primitive: z.number().int(), field: z.string(), message: z.string() });
+
+/** Response of POST /sequences/compile. */
+export const compileResponseSchema = z.object({
+  /** Engine sequence contract: { start, steps }. */
+  compiled: z.object({ start: z.record(z.string(), z.number()), steps: z.array(z.unknown()) }),
+  stepMap: z.array(stepOriginSchema),
+  /** One cue per primitive. */
+  cues: z.array(z.string()),
+  durationS: z.number(),
+  errors: z.array(primitiveIssueSchema),
+  warnings: z.array(primitiveIssueSchema),
+});
+export type CompileResponse = z.infer<typeof compileResponseSchema>;
+
+/** Time series for the report's plots, sampled at `rateHz` (20 Hz). Arrays share `t`'s length. */
+export const reportSeriesSchema = z.object({
+  rateHz: z.number(),
+  /** Seconds. */
+  t: z.array(z.number()),
+  /** Attitude as yaw/pitch/roll vs t, degrees (unwrapped: may leave ±180°). */
+  yawDeg: z.array(z.number()),
+  pitchDeg: z.array(z.number()),
+  rollDeg: z.array(z.number()),
+  /** Joint angles vs t, degrees, for the dofs that move; `jointsDeg[dof][k]` at `t[k]`. */
+  jointsDeg: z.record(z.string(), z.array(z.number())),
+  /** Range of each plotted dof, degrees (for range bands). */
+  ranges: z.record(z.string(), z.object({ min: z.number(), max: z.number() })),
+});
+
+/** The stored verification report of a version. */
+export const verificationReportSchema = z.object({
+  /** Engine version (semver+source hash) that computed the report. */
+  engineVersion: z.string(),
+  /** sha256 (hex) of the canonical JSON of { body, sequence }: reproduces the computation. */
+  inputsHash: z.string(),
+  /** The profile version the body came from. */
+  profileVersionId: z.uuid(),
+  durationS: z.number(),
+  final: z.object({
+    /** {w,x,y,z}, body → inertial, w ≥ 0. */
+    attitude: attitudeSchema,
+    rotation: z.object({ angleDeg: z.number(), axis: z.tuple([z.number(), z.number(), z.number()]) }),
+    /** Yaw/pitch/roll reached, degrees. */
+    yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+    /** Final joint angles, degrees. */
+    jointsDeg: z.record(z.string(), z.number()),
+  }),
+  target: z.object({
+    /** The target as a quaternion {w,x,y,z}. */
+    attitude: attitudeSchema,
+    /** Rotation angle between the final and the target attitude, degrees. */
+    errorDeg: z.number(),
+    toleranceDeg: z.number(),
+    withinTolerance: z.boolean(),
+  }),
+  /** The engine's momentum audit (kg·m²/s). */
+  momentum: z.object({ maxAbs: z.number(), relative: z.number(), peakShapeMomentum: z.number(), atTime: z.number() }),
+  rangeViolations: z.array(rangeViolationSchema),
+  peakJointRate: z.object({
+    maxDegS: z.number(),
+    dof: z.string().nullable(),
+    time: z.number(),
+    limitDegS: z.number(),
+    withinLimit: z.boolean(),
+    byDof: z.record(z.string(), z.number()),
+  }),
+  timeBudget: z.object({ limitS: z.number().nullable(), within: z.boolean() }),
+  solver: z.object({ rhsEvaluations: z.number(), steps: z.number(), relativeTolerance: z.number() }),
+  series: reportSeriesSchema,
+  /** When the report was computed. */
+  computedAt: isoTime,
+});
+export type VerificationReport = z.infer<typeof verificationReportSchema>;
+
+/** The headline figures of a report, for lists. */
+export const reportSummarySchema = z.object({
+  durationS: z.number(),
+  targetErrorDeg: z.number(),
+  withinTolerance: z.boolean(),
+  yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+  rangeViolationCount: z.number().int(),
+  peakJointRateDegS: z.number(),
+  withinRateLimit: z.boolean(),
+  withinTimeBudget: z.boolean(),
+});
+export type ReportSummary = z.infer<typeof reportSummarySchema>;
+
+/** A background recomputation against a newer profile version. */
+export const reverificationSchema = z.object({
+  id: z.uuid(),
+  fromProfileVersionId: z.uuid(),
+  toProfileVersionId: z.uuid(),
+  /** queued | running | done | failed */
+  state: z.enum(['queued', 'running', 'done', 'failed']),
+  /** Angle between the stored and the recomputed final attitude, degrees (null until done). */
+  attitudeShiftDeg: z.number().nullable(),
+  /** Target error on the new profile, degrees (null until done). */
+  targetErrorDeg: z.number().nullable(),
+  error: z.string().nullable(),
+  attempts: z.number().int(),
+  createdAt: isoTime,
+  finishedAt: isoTime.nullable(),
+});
+export type Reverification = z.infer<typeof reverificationSchema>;
+
+/** One version in lists. */
+export const versionSummarySchema = z.object({
+  id: z.uuid(),
+  sequenceId: z.uuid(),
+  version: z.number().int(),
+  status: versionStatusSchema,
+  profileVersionId: z.uuid(),
+  /** The bound profile version's number. */
+  profileVersion: z.number().int(),
+  /** Whether the bound profile version is the crew member's current one. */
+  profileIsCurrent: z.boolean(),
+  authorId: z.uuid().nullable(),
+  authorName: z.string().nullable(),
+  note: z.string(),
+  createdAt: isoTime,
+  submittedAt: isoTime.nullable(),
+  clearedBy: z.uuid().nullable(),
+  clearedByName: z.string().nullable(),
+  clearedAt: isoTime.nullable(),
+  staleSince: isoTime.nullable(),
+  engineVersion: z.string().nullable(),
+  inputsHash: z.string().nullable(),
+  summary: reportSummarySchema.nullable(),
+  /** The latest background recomputation, if any (shows how far a recheck version moved). */
+  reverification: reverificationSchema.nullable(),
+});
+export type VersionSummary = z.infer<typeof versionSummarySchema>;
+
+/** A review entry. */
+export const reviewEntrySchema = z.object({
+  id: z.uuid(),
+  reviewerId: z.uuid(),
+  reviewerName: z.string(),
+  /** clear | send_back | comment */
+  decision: z.enum(['clear', 'send_back', 'comment']),
+  comment: z.string(),
+  profileVersionId: z.uuid().nullable(),
+  engineVersion: z.string().nullable(),
+  createdAt: isoTime,
+});
+export type ReviewEntry = z.infer<typeof reviewEntrySchema>;
+
+/** The sequence a version belongs to. */
+export const sequenceHeadSchema = z.object({
+  id: z.uuid(),
+  crewMemberId: z.uuid(),
+  crewMemberName: z.string(),
+  name: z.string(),
+  target: sequenceTargetSchema,
+  createdAt: isoTime,
+});
+export type SequenceHead = z.infer<typeof sequenceHeadSchema>;
+
+/** GET /sequences/versions/:versionId */
+export const versionDetailSchema = versionSummarySchema.extend({
+  sequence: sequenceHeadSchema,
+  primitives: primitiveListSchema,
+  /** Cue per primitive. */
+  cues: z.array(z.string()),
+  /** Engine sequence contract { start, steps }. */
+  compiled: z.object({ start: z.record(z.string(), z.number()), steps: z.array(z.unknown()) }),
+  stepMap: z.array(stepOriginSchema),
+  report: verificationReportSchema.nullable(),
+  reviews: z.array(reviewEntrySchema),
+  reverifications: z.array(reverificationSchema),
+  /** Actions the caller may take now. */
+  allowed: z.object({ submit: z.boolean(), decide: z.boolean(), comment: z.boolean() }),
+});
+export type VersionDetail = z.infer<typeof versionDetailSchema>;
+
+/** A sequence in lists. */
+export const sequenceSummarySchema = sequenceHeadSchema.extend({
+  versionCount: z.number().int(),
+  /** The newest version the caller may see. */
+  latest: versionSummarySchema.nullable(),
+  /** The cleared (or recheck, once cleared) version trainees rehearse, if any. */
+  cleared: versionSummarySchema.nullable(),
+});
+export type SequenceSummary = z.infer<typeof sequenceSummarySchema>;
+
+/** GET /sequences/:sequenceId */
+export const sequenceDetailSchema = sequenceSummarySchema.extend({
+  /** Versions the caller may see, newest first. */
+  versions: z.array(versionSummarySchema),
+});
+export type SequenceDetail = z.infer<typeof sequenceDetailSchema>;
+
+/** POST /sequences/versions/:versionId/submit */
+export const submitRequestSchema = z.object({ note: z.string().max(2000).optional() });
+export type SubmitRequest = z.input<typeof submitRequestSchema>;
+
+/** POST /reviews/:versionId/decision; `send_back` needs a comment. */
+export const reviewDecisionRequestSchema = z
+  .object({
+    decision: z.enum(['clear', 'send_back']),
+    comment: z.string().trim().max(4000).default(''),
+  })
+  .refine((r) => r.decision !== 'send_back' || r.comment.length > 0, { path: ['comment'], message: 'say why the version is sent back' });
+export type ReviewDecisionRequest = z.input<typeof reviewDecisionRequestSchema>;
+
+/** POST /reviews/:versionId/comments */
+export const reviewCommentRequestSchema = z.object({ comment: z.string().trim().min(1, 'comment is required').max(4000) });
+export type ReviewCommentRequest = z.input<typeof reviewCommentRequestSchema>;
+
+/** GET /reviews/queue item: a version under review with its sequence. */
+export const reviewQueueItemSchema = z.object({ version: versionSummarySchema, sequence: sequenceHeadSchema });
+export type ReviewQueueItem = z.infer<typeof reviewQueueItemSchema>;
+
+/** One primitive position in a comparison. */
+export const primitiveChangeSchema = z.object({
+  index: z.number().int(),
+  change: z.enum(['same', 'changed', 'added', 'removed']),
+  /** Cue in version a / b (null where absent). */
+  a: z.string().nullable(),
+  b: z.string().nullable(),
+});
+
+/** a, b and b − a of one figure. */
+const figureDelta = z.object({ a: z.number().nullable(), b: z.number().nullable(), delta: z.number().nullable() });
+
+/** GET /sequences/versions/:a/compare/:b */
+export const compareResponseSchema = z.object({
+  a: versionSummarySchema,
+  b: versionSummarySchema,
+  sameProfile: z.boolean(),
+  sameEngine: z.boolean(),
+  /** Primitives compared position by position. */
+  primitives: z.array(primitiveChangeSchema),
+  result: z.object({
+    durationS: figureDelta,
+    targetErrorDeg: figureDelta,
+    yawDeg: figureDelta,
+    pitchDeg: figureDelta,
+    rollDeg: figureDelta,
+    peakJointRateDegS: figureDelta,
+    rangeViolationCount: figureDelta,
+    /** Angle between the two final attitudes, degrees (null if either has no report). */
+    finalAttitudeShiftDeg: z.number().nullable(),
+  }),
+});
+export type CompareResponse = z.infer<typeof compareResponseSchema>;

@@ -1,0 +1,62 @@
+/**
+ * Plain-language cues a trainee reads while rehearsing, generated from a primitive's parameters,
+ * e.g. "both arms forward, small circles outward, 4 times, 1.5 s each".
+ */
+import type { Primitive } from './primitive-schemas.ts';
+import { POSTURE_LABELS } from './named-postures.ts';
+
+/** Seconds as short text: 1.5 → "1.5 s", 2 → "2 s". */
+export function secondsText(s: number): string {
+  return `${Number(s.toFixed(2))} s`;
+}
+
+/** Repetitions as text: "once", "twice", "4 times". */
+export function timesText(n: number): string {
+  return n === 1 ? 'once' : n === 2 ? 'twice' : `${n} times`;
+}
+
+/** Size word for a sweep amplitude, degrees: small ≤ 15°, medium ≤ 30°, large above. */
+export function sizeWord(deg: number): 'small' | 'medium' | 'large' {
+  return deg <= 15 ? 'small' : deg <= 30 ? 'medium' : 'large';
+}
+
+const limbs = (which: 'left' | 'right' | 'both', limb: 'arm' | 'leg') => (which === 'both' ? `both ${limb}s` : `${which} ${limb}`);
+
+const ORBIT_CENTRE_WORDS = {
+  low_forward: 'low and forward',
+  forward: 'forward',
+  high_forward: 'high and forward',
+  forward_out: 'forward and out',
+} as const;
+
+const PLANE_WORDS = { sagittal: 'front-to-back', frontal: 'out to the side', horizontal: 'level, sweeping sideways' } as const;
+
+/** The cue for one primitive. */
+export function cueFor(p: Primitive): string {
+  const rep = 'cycles' in p ? `, ${timesText(p.cycles)}, ${secondsText(p.periodS)} each` : '';
+  switch (p.kind) {
+    case 'arm_orbit': {
+      const where = p.centre === 'custom' ? `raised ${p.centreFlexDeg ?? 0}° and out ${p.centreAbdDeg ?? 0}°` : ORBIT_CENTRE_WORDS[p.centre];
+      return `${limbs(p.arms, 'arm')} ${where}, ${sizeWord(p.halfAngleDeg)} circles ${p.travel}${rep}`;
+    }
+    case 'arm_loop': {
+      const elbows = p.arms === 'both' ? 'elbows bend' : 'elbow bends';
+      const when = p.bendOn === 'forward_swing' ? 'on the forward swing' : 'on the return swing';
+      return `${limbs(p.arms, 'arm')} loop ${PLANE_WORDS[p.plane]}, ${sizeWord(p.swingDeg)} swings, ${elbows} ${when}${rep}`;
+    }
+    case 'leg_pedal': {
+      const how = p.legs === 'both' ? (p.pattern === 'alternating' ? ', alternating' : ', together') : '';
+      return `${limbs(p.legs, 'leg')} pedal ${p.direction}${how}, ${sizeWord(p.hipSwingDeg)} strokes${rep}`;
+    }
+    case 'hip_swirl':
+      return `legs together and straight, ${sizeWord(p.halfAngleDeg)} hip circles, feet to the ${p.turn === 'to_left' ? 'left' : 'right'} at the front${rep}`;
+    case 'pose_shift': {
+      const target = p.posture === 'custom'
+        ? `custom posture (${Object.entries(p.custom ?? {}).map(([d, v]) => `${d} ${v}°`).join(', ')})`
+        : POSTURE_LABELS[p.posture];
+      return `move smoothly to ${target} over ${secondsText(p.durationS)}`;
+    }
+    case 'pause':
+      return `hold still for ${secondsText(p.durationS)}`;
+  }
+}
