@@ -1,0 +1,69 @@
+import { Redirect, useRouter, useSegments } from 'expo-router';
+import { Tabs } from 'expo-router/js-tabs';
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { useSessionQuery, useSignOutMutation } from '@/components/api/use-session';
+import { ChangePasswordSheet } from '@/components/auth/ChangePasswordSheet';
+import { useIsWide } from '@/components/layout/use-is-wide';
+import { AppHeader } from '@/components/shell/AppHeader';
+import { tabScreenOptions, tabNavigatorOptions } from '@/components/shell/tab-bar-options';
+import { canSeeTab, homeTab, TAB_NAMES, TABS, type TabName } from '@/components/shell/tab-access';
+import { colors } from '@/components/theme';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { LoadingState } from '@/components/ui/LoadingState';
+
+/** The signed-in shell: header with the user menu and caution, and the role's tabs. */
+export default function AppLayout() {
+  const router = useRouter();
+  const segments = useSegments();
+  const wide = useIsWide();
+  const session = useSessionQuery();
+  const signOut = useSignOutMutation();
+  const [changingPassword, setChangingPassword] = useState(false);
+
+  if (session.isPending) return <LoadingState fill label="Checking your session…" />;
+  if (session.isError) {
+    return (
+      <View style={styles.center}>
+        <ErrorBanner title="Could not check your session" error={session.error} onRetry={() => void session.refetch()} />
+      </View>
+    );
+  }
+  const user = session.data;
+  if (!user) return <Redirect href="/sign-in?notice=session-ended" />;
+
+  // A tab the role does not have (typed into the address bar): go to the role's first tab.
+  const current = (segments as string[])[1];
+  if (current && (TAB_NAMES as readonly string[]).includes(current) && !canSeeTab(user.role, current as TabName)) {
+    return <Redirect href={`/${homeTab(user.role)}`} />;
+  }
+
+  return (
+    <View style={styles.root}>
+      <AppHeader
+        user={user}
+        onChangePassword={() => setChangingPassword(true)}
+        onSignOut={() => signOut.mutate(undefined, { onSettled: () => router.replace('/sign-in?notice=signed-out') })}
+      />
+      <Tabs screenOptions={tabNavigatorOptions(wide)}>
+        {TAB_NAMES.map((name) => (
+          <Tabs.Screen key={name} name={name} options={tabScreenOptions(TABS[name], canSeeTab(user.role, name))} />
+        ))}
+      </Tabs>
+      <ChangePasswordSheet
+        visible={changingPassword}
+        onClose={() => setChangingPassword(false)}
+        onChanged={() => {
+          setChangingPassword(false);
+          router.replace('/sign-in?notice=password-changed');
+        }}
+      />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { flex: 1, backgroundColor: colors.background },
+  center: { flex: 1, justifyContent: 'center', padding: 24, backgroundColor: colors.background },
+});

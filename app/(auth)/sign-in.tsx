@@ -1,0 +1,20 @@
+import { Redirect, useLocalSearchParams, useRouter } from 'expo-router';
+
+import { useSessionQuery } from '@/components/api/use-session';
+import { AuthCard } from '@/components/auth/AuthCard';
+import { SignInForm } from '@/components/auth/SignInForm';
+import { SignInNotice } from '@/components/auth/SignInNotice';
+import { homeTab } from '@/components/shell/tab-access';
+
+export default function SignInScreen() {
+  const router = useRouter();
+  const { notice } = useLocalSearchParams<{ notice?: string }>();
+  const session = useSessionQuery();
+  if (session.data) return <Redirect href={`/${homeTab(session.data.role)}`} />;
+  return (
+    <AuthCard title="Sign in" subtitle="Use the e-mail address your administrator invited.">
+      <SignInNotice notice={notice} />
+      <SignInForm onSignedIn={(user) => router.replace(`/${homeTab(user.role)}`)} />
+    </AuthCard>
+  );
+}

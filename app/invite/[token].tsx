@@ -1,0 +1,38 @@
+import { useLocalSearchParams, useRouter } from 'expo-router';
+
+import { useInvitationPreviewQuery } from '@/components/api/use-invitation';
+import { AcceptInvitationForm } from '@/components/auth/AcceptInvitationForm';
+import { AuthCard } from '@/components/auth/AuthCard';
+import { InvitationSummary } from '@/components/auth/InvitationSummary';
+import { homeTab } from '@/components/shell/tab-access';
+import { Button } from '@/components/ui/Button';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { LoadingState } from '@/components/ui/LoadingState';
+
+/** `/invite/<token>`: the link from the invitation e-mail. Shows who it is for, then sets a password. */
+export default function InviteScreen() {
+  const router = useRouter();
+  const { token = '' } = useLocalSearchParams<{ token: string }>();
+  const preview = useInvitationPreviewQuery(token);
+  if (preview.isPending) {
+    return (
+      <AuthCard title="Your invitation">
+        <LoadingState label="Opening your invitation…" />
+      </AuthCard>
+    );
+  }
+  if (preview.isError) {
+    return (
+      <AuthCard title="Invitation not usable">
+        <ErrorBanner error={preview.error} />
+        <Button label="Go to sign-in" variant="secondary" onPress={() => router.replace('/sign-in')} />
+      </AuthCard>
+    );
+  }
+  return (
+    <AuthCard title={`Welcome, ${preview.data.name}`} subtitle="Choose a password to finish setting up your account.">
+      <InvitationSummary invitation={preview.data} />
+      <AcceptInvitationForm token={token} onAccepted={(user) => router.replace(`/${homeTab(user.role)}`)} />
+    </AuthCard>
+  );
+}

@@ -1,0 +1,53 @@
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+
+import type { Invitation, InviteRequest, TeamMember, UpdateUserRequest } from '@/shared/contracts/team';
+import { apiFetch } from './client';
+
+/** Query keys of the Team area (admin). */
+export const teamKeys = {
+  all: ['team'] as const,
+  users: () => [...teamKeys.all, 'users'] as const,
+  invitations: () => [...teamKeys.all, 'invitations'] as const,
+};
+
+/** GET /api/team/users — every user, by name. */
+export function useTeamUsersQuery() {
+  return useQuery({
+    queryKey: teamKeys.users(),
+    queryFn: async ({ signal }) => (await apiFetch<{ users: TeamMember[] }>('/team/users', { signal })).users,
+  });
+}
+
+/** GET /api/team/invitations — open, used and expired invitations, newest first. */
+export function useTeamInvitationsQuery() {
+  return useQuery({
+    queryKey: teamKeys.invitations(),
+    queryFn: async ({ signal }) => (await apiFetch<{ invitations: Invitation[] }>('/team/invitations', { signal })).invitations,
+  });
+}
+
+/** POST /api/team/invitations — e-mails an invitation; refreshes the Team lists and the audit log. */
+export function useInviteMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: InviteRequest) => apiFetch<{ invitation: Pick<Invitation, 'id' | 'email' | 'name' | 'role' | 'expiresAt'> }>('/team/invitations', { method: 'POST', body: input }),
+    onSuccess: () => {
+      void qc.invalidateQueries({ queryKey: teamKeys.all });
+      void qc.invalidateQueries({ queryKey: ['audit'] });
+    },
+  });
+}
+
+/** PATCH /api/team/users/:id — change a role or disable/enable; refreshes the Team lists and the audit log. */
+export function useUpdateUserMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, change }: { id: string; change: UpdateUserRequest }) =>
+      apiFetch<{ user: TeamMember }>(`/team/users/${encodeURIComponent(id)}`, { method: 'PATCH', body: change }),
+    onSuccess: ({ user }) => {
+      qc.setQueryData<TeamMember[]>(teamKeys.users(), (old) => old?.map((u) => (u.id === user.id ? user : u)));
+      void qc.invalidateQueries({ queryKey: teamKeys.all });
+      void qc.invalidateQueries({ queryKey: ['audit'] });
+    },
+  });
+}

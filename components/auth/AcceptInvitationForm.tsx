@@ -1,0 +1,64 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { View } from 'react-native';
+
+import { applyServerError } from '@/components/api/form-errors';
+import { useAcceptInvitationMutation } from '@/components/api/use-invitation';
+import { spacing } from '@/components/theme';
+import { Button } from '@/components/ui/Button';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { FormTextField } from '@/components/ui/FormTextField';
+import type { SessionUser } from '@/shared/contracts/auth';
+import { PASSWORD_MIN_LENGTH } from '@/shared/contracts/auth';
+import { acceptInvitationFormSchema } from './password-confirmation';
+
+/** Props of {@link AcceptInvitationForm}. */
+export interface AcceptInvitationFormProps {
+  /** The token from the e-mailed link. */
+  token: string;
+  /** Called once the account exists and the invitee is signed in. */
+  onAccepted: (user: SessionUser) => void;
+}
+
+/** Choose a password (twice) to accept an invitation; the server signs the invitee in. */
+export function AcceptInvitationForm({ token, onAccepted }: AcceptInvitationFormProps) {
+  const accept = useAcceptInvitationMutation(token);
+  const [formError, setFormError] = useState<string | null>(null);
+  const { control, handleSubmit, setError } = useForm({
+    resolver: zodResolver(acceptInvitationFormSchema),
+    defaultValues: { password: '', confirm: '' },
+  });
+  const submit = handleSubmit(({ password }) => {
+    setFormError(null);
+    accept.mutate(
+      { password },
+      {
+        onSuccess: ({ user }) => onAccepted(user),
+        onError: (err) => setFormError(applyServerError(err, ['password'], setError)),
+      },
+    );
+  });
+  return (
+    <View style={{ gap: spacing.lg }}>
+      <ErrorBanner error={formError} />
+      <FormTextField
+        control={control}
+        name="password"
+        label="Choose a password"
+        secureTextEntry
+        autoComplete="new-password"
+        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
+      />
+      <FormTextField
+        control={control}
+        name="confirm"
+        label="Repeat the password"
+        secureTextEntry
+        autoComplete="new-password"
+        onSubmitEditing={() => void submit()}
+      />
+      <Button label="Set password and sign in" icon="check" block loading={accept.isPending} onPress={() => void submit()} />
+    </View>
+  );
+}

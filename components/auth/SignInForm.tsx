@@ -1,0 +1,61 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { View } from 'react-native';
+
+import { applyServerError } from '@/components/api/form-errors';
+import { useSignInMutation } from '@/components/api/use-session';
+import { spacing } from '@/components/theme';
+import { Button } from '@/components/ui/Button';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { FormTextField } from '@/components/ui/FormTextField';
+import type { SessionUser } from '@/shared/contracts/auth';
+import { signInRequestSchema } from '@/shared/contracts/auth';
+
+/** Props of {@link SignInForm}. */
+export interface SignInFormProps {
+  /** Called with the signed-in user once the server accepted the password. */
+  onSignedIn: (user: SessionUser) => void;
+}
+
+/** E-mail and password form; wrong credentials and rate limits show the server's sentence above the form. */
+export function SignInForm({ onSignedIn }: SignInFormProps) {
+  const signIn = useSignInMutation();
+  const [formError, setFormError] = useState<string | null>(null);
+  const { control, handleSubmit, setError } = useForm({
+    resolver: zodResolver(signInRequestSchema),
+    defaultValues: { email: '', password: '' },
+  });
+  const submit = handleSubmit((values) => {
+    setFormError(null);
+    signIn.mutate(values, {
+      onSuccess: ({ user }) => onSignedIn(user),
+      onError: (err) => setFormError(applyServerError(err, ['email', 'password'], setError)),
+    });
+  });
+  return (
+    <View style={{ gap: spacing.lg }}>
+      <ErrorBanner error={formError} />
+      <FormTextField
+        control={control}
+        name="email"
+        label="E-mail"
+        autoComplete="email"
+        inputMode="email"
+        autoCapitalize="none"
+        placeholder="name@example.org"
+        returnKeyType="next"
+      />
+      <FormTextField
+        control={control}
+        name="password"
+        label="Password"
+        autoComplete="current-password"
+        secureTextEntry
+        returnKeyType="go"
+        onSubmitEditing={() => void submit()}
+      />
+      <Button label="Sign in" icon="log-in" block loading={signIn.isPending} onPress={() => void submit()} />
+    </View>
+  );
+}

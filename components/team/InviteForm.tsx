@@ -1,0 +1,92 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
+import { Controller, useForm, useWatch } from 'react-hook-form';
+import { View } from 'react-native';
+
+import { applyServerError } from '@/components/api/form-errors';
+import { useInviteMutation } from '@/components/api/use-team';
+import { spacing } from '@/components/theme';
+import { Button } from '@/components/ui/Button';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { FormTextField } from '@/components/ui/FormTextField';
+import { SegmentedControl } from '@/components/ui/SegmentedControl';
+import { Text } from '@/components/ui/Text';
+import { ROLE_LABELS, type Role } from '@/shared/contracts/roles';
+import { inviteRequestSchema } from '@/shared/contracts/team';
+import { ROLE_OPTIONS } from './role-options';
+
+
+/** Props of {@link InviteForm}. */
+export interface InviteFormProps {
+  /** Called after the server accepted the invitation and sent the e-mail. */
+  onInvited?: (email: string) => void;
+}
+
+/**
+ * Invite a person by e-mail with a role (react-hook-form + the API's own zod schema). Server
+ * conflicts (already a user, already invited) show beside the e-mail field; input is kept on error.
+ */
+export function InviteForm({ onInvited }: InviteFormProps) {
+  const invite = useInviteMutation();
+  const [formError, setFormError] = useState<string | null>(null);
+  const [sentTo, setSentTo] = useState<string | null>(null);
+  const { control, handleSubmit, setError, reset } = useForm({
+    resolver: zodResolver(inviteRequestSchema),
+    defaultValues: { email: '', name: '', role: 'planner' as Role },
+  });
+  const role = useWatch({ control, name: 'role' });
+  const submit = handleSubmit((values) => {
+    setFormError(null);
+    setSentTo(null);
+    invite.mutate(values, {
+      onSuccess: ({ invitation }) => {
+        setSentTo(invitation.email);
+        reset({ email: '', name: '', role: values.role });
+        onInvited?.(invitation.email);
+      },
+      onError: (err) => {
+        // 409s (email_taken, already_invited) are about the e-mail even when the server names no field.
+        const msg = applyServerError(err, ['email', 'name', 'role'], setError);
+        if (msg && (err as { status?: number }).status === 409) setError('email', { type: 'server', message: msg }, { shouldFocus: true });
+        else setFormError(msg);
+      },
+    });
+  });
+  return (
+    <View style={{ gap: spacing.lg }} role="form" aria-label="Invite someone">
+      <View style={{ gap: spacing.xs }}>
+        <Text variant="heading" role="heading" aria-level={2}>
+          Invite someone
+        </Text>
+        <Text tone="muted">They get an e-mail with a link to choose a password. The link works once, for 7 days.</Text>
+      </View>
+      {sentTo ? (
+        <View role="status">
+          <Text tone="success">Invitation sent to {sentTo}.</Text>
+        </View>
+      ) : null}
+      <ErrorBanner error={formError} />
+      <FormTextField control={control} name="name" label="Name" placeholder="First and last name" autoComplete="off" />
+      <FormTextField control={control} name="email" label="E-mail" placeholder="name@example.org" inputMode="email" autoCapitalize="none" autoComplete="off" />
+      <Controller
+        control={control}
+        name="role"
+        render={({ field, fieldState }) => (
+          <SegmentedControl label="Role" options={ROLE_OPTIONS} value={field.value} onChange={field.onChange} error={fieldState.error?.message} />
+        )}
+      />
+      <Text variant="caption" tone="muted">
+        {ROLE_HELP[role]}
+      </Text>
+      <Button label="Send invitation" icon="send" loading={invite.isPending} onPress={() => void submit()} />
+    </View>
+  );
+}
+
+/** One line per role: what the invitee will be able to do. */
+const ROLE_HELP: Record<Role, string> = {
+  admin: `${ROLE_LABELS.admin}: invites people, changes roles, reads the audit log, and sees every area.`,
+  planner: `${ROLE_LABELS.planner}: builds inertia profiles and composes maneuvers.`,
+  reviewer: `${ROLE_LABELS.reviewer}: checks verification reports and clears or sends back versions.`,
+  trainee: `${ROLE_LABELS.trainee}: rehearses cleared maneuvers and sees their own profile.`,
+};

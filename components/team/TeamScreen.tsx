@@ -1,0 +1,108 @@
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { useTeamUsersQuery } from '@/components/api/use-team';
+import { SplitView } from '@/components/layout/SplitView';
+import { useIsWide } from '@/components/layout/use-is-wide';
+import { spacing } from '@/components/theme';
+import { Button } from '@/components/ui/Button';
+import { EmptyState } from '@/components/ui/EmptyState';
+import { Screen } from '@/components/ui/Screen';
+import { SegmentedControl } from '@/components/ui/SegmentedControl';
+import type { AuditEvent } from '@/shared/contracts/team';
+import { AuditEventDetail } from './AuditEventDetail';
+import { AuditEventList } from './AuditEventList';
+import { AuditFiltersPanel } from './AuditFiltersPanel';
+import { EMPTY_AUDIT_FILTER_FORM, toAuditFilters, type AuditFilterForm } from './audit-filter-form';
+import { InvitationList } from './InvitationList';
+import { InviteForm } from './InviteForm';
+import { PeopleList } from './PeopleList';
+import { TeamMemberDetail } from './TeamMemberDetail';
+
+type Section = 'people' | 'invitations' | 'audit';
+const SECTIONS = [
+  { value: 'people', label: 'People' },
+  { value: 'invitations', label: 'Invitations' },
+  { value: 'audit', label: 'Audit log' },
+] as const;
+
+/** Admin's Team tab: people (roles, access), invitations (and the invite form), and the audit log. */
+export function TeamScreen() {
+  const wide = useIsWide();
+  const [section, setSection] = useState<Section>('people');
+  const [selectedUserId, setSelectedUserId] = useState<string | null>(null);
+  const [inviting, setInviting] = useState(false);
+  const [event, setEvent] = useState<AuditEvent | null>(null);
+  const [auditForm, setAuditForm] = useState<AuditFilterForm>(EMPTY_AUDIT_FILTER_FORM);
+  const users = useTeamUsersQuery();
+  const selectedUser = users.data?.find((u) => u.id === selectedUserId);
+
+  const openInvite = () => {
+    setSection('invitations');
+    setInviting(true);
+  };
+
+  return (
+    <Screen
+      title="Team"
+      subtitle="People, roles and the record of who did what"
+      scroll={false}
+      actions={section !== 'invitations' || !wide ? <Button label="Invite" icon="user-plus" size="sm" onPress={openInvite} /> : null}
+    >
+      <View style={styles.switcher}>
+        <SegmentedControl label="Team section" hideLabel options={SECTIONS} value={section} onChange={setSection} />
+      </View>
+
+      {section === 'people' ? (
+        <SplitView
+          listLabel="People"
+          detailLabel="Person"
+          list={<PeopleList selectedId={selectedUserId} onSelect={setSelectedUserId} />}
+          detail={selectedUserId ? <TeamMemberDetail key={selectedUserId} userId={selectedUserId} /> : null}
+          detailTitle={selectedUser?.name ?? 'People'}
+          onCloseDetail={() => setSelectedUserId(null)}
+          placeholder={<EmptyState icon="user" title="Select a person" body="Pick someone on the left to change their role or their access." />}
+        />
+      ) : null}
+
+      {section === 'invitations' ? (
+        <SplitView
+          listLabel="Invitations"
+          detailLabel="Invite someone"
+          list={
+            <View style={styles.listStack}>
+              {!wide ? <Button label="Invite someone" icon="user-plus" onPress={() => setInviting(true)} /> : null}
+              <InvitationList />
+            </View>
+          }
+          detail={inviting && !wide ? <View style={styles.formPad}><InviteForm /></View> : null}
+          detailTitle="Invitations"
+          onCloseDetail={() => setInviting(false)}
+          placeholder={<View style={styles.formPad}><InviteForm /></View>}
+        />
+      ) : null}
+
+      {section === 'audit' ? (
+        <View style={styles.auditStack}>
+          {!event || wide ? <AuditFiltersPanel value={auditForm} onApply={setAuditForm} /> : null}
+          <SplitView
+            listLabel="Audit events"
+            detailLabel="Event"
+            list={<AuditEventList filters={toAuditFilters(auditForm)} selectedId={event?.id ?? null} onSelect={setEvent} />}
+            detail={event ? <AuditEventDetail event={event} /> : null}
+            detailTitle="Audit log"
+            onCloseDetail={() => setEvent(null)}
+            placeholder={<EmptyState icon="list" title="Select an event" body="Pick an event on the left to see who did it, to what, when, and the recorded detail." />}
+          />
+        </View>
+      ) : null}
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  switcher: { maxWidth: 460 },
+  listStack: { gap: spacing.md },
+  formPad: { padding: spacing.lg },
+  auditStack: { flex: 1, minHeight: 0, gap: spacing.md },
+});

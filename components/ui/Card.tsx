@@ -1,0 +1,58 @@
+import type { ReactNode } from 'react';
+import { StyleSheet, View, type StyleProp, type ViewStyle } from 'react-native';
+
+import { colors, radii, spacing } from '@/components/theme';
+import { Text } from './Text';
+
+/** Props of {@link Card}. */
+export interface CardProps {
+  /** Optional heading at the top of the card. */
+  title?: string;
+  /** Optional line under the title. */
+  subtitle?: string;
+  /** Element on the right of the title row (a Badge or a small Button). */
+  trailing?: ReactNode;
+  children?: ReactNode;
+  /** default `md` (16 px); `none` for edge-to-edge lists inside. */
+  padding?: 'none' | 'md' | 'lg';
+  style?: StyleProp<ViewStyle>;
+}
+
+/** A surface panel that groups related content, with an optional heading row. */
+export function Card({ title, subtitle, trailing, children, padding = 'md', style }: CardProps) {
+  const pad = padding === 'none' ? 0 : padding === 'lg' ? spacing.xl : spacing.lg;
+  return (
+    <View style={[styles.card, { padding: pad }, style]}>
+      {title || trailing ? (
+        <View style={[styles.head, padding === 'none' && { padding: spacing.lg, paddingBottom: spacing.sm }]}>
+          <View style={styles.titles}>
+            {title ? (
+              <Text variant="heading" role="heading" aria-level={2}>
+                {title}
+              </Text>
+            ) : null}
+            {subtitle ? (
+              <Text variant="caption" tone="muted">
+                {subtitle}
+              </Text>
+            ) : null}
+          </View>
+          {trailing}
+        </View>
+      ) : null}
+      {children}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  card: {
+    backgroundColor: colors.surface,
+    borderRadius: radii.lg,
+    borderWidth: 1,
+    borderColor: colors.border,
+    gap: spacing.md,
+  },
+  head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.md },
+  titles: { flex: 1, gap: 2 },
+});

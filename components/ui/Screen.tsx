@@ -1,0 +1,70 @@
+import type { ReactNode } from 'react';
+import { ScrollView, StyleSheet, View } from 'react-native';
+
+import { colors, layout, spacing } from '@/components/theme';
+import { Text } from './Text';
+
+/** Props of {@link Screen}. */
+export interface ScreenProps {
+  /** Screen title (a level-1 heading). */
+  title?: string;
+  /** One line under the title. */
+  subtitle?: string;
+  /** Elements at the right of the title row (e.g. a primary Button). */
+  actions?: ReactNode;
+  children: ReactNode;
+  /** Wrap the content in a ScrollView; default true. Turn off for screens that manage their own scrolling (SplitView). */
+  scroll?: boolean;
+}
+
+/** The body of a tab screen: title row, consistent padding, max width, optional scrolling. */
+export function Screen({ title, subtitle, actions, children, scroll = true }: ScreenProps) {
+  const head =
+    title || actions ? (
+      <View style={styles.head}>
+        <View style={styles.titles}>
+          {title ? (
+            <Text variant="title" role="heading" aria-level={1}>
+              {title}
+            </Text>
+          ) : null}
+          {subtitle ? <Text tone="muted">{subtitle}</Text> : null}
+        </View>
+        {actions ? <View style={styles.actions}>{actions}</View> : null}
+      </View>
+    ) : null;
+  if (!scroll) {
+    return (
+      <View style={styles.root}>
+        <View style={[styles.inner, styles.fill]}>
+          {head}
+          {children}
+        </View>
+      </View>
+    );
+  }
+  return (
+    <ScrollView style={styles.root} contentContainerStyle={styles.scrollContent}>
+      <View style={styles.inner}>
+        {head}
+        {children}
+      </View>
+    </ScrollView>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { flex: 1, backgroundColor: colors.background },
+  scrollContent: { flexGrow: 1 },
+  inner: {
+    width: '100%',
+    maxWidth: layout.maxContentWidth,
+    alignSelf: 'center',
+    padding: spacing.lg,
+    gap: spacing.lg,
+  },
+  fill: { flex: 1, minHeight: 0 },
+  head: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, flexWrap: 'wrap' },
+  titles: { flex: 1, minWidth: 200, gap: 2 },
+  actions: { flexDirection: 'row', gap: spacing.sm },
+});

@@ -1,0 +1,95 @@
+import { useState } from 'react';
+import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
+
+import { colors, fonts, layout, radii, spacing } from '@/components/theme';
+import { Text } from './Text';
+
+/** Props of {@link TextField}: React Native TextInput props plus a label, an optional unit, hint and error. */
+export interface TextFieldProps extends Omit<TextInputProps, 'style'> {
+  /** Visible label; also the input's accessible name (so `getByLabel(label)` finds it). */
+  label: string;
+  /** Unit shown inside the field on the right, e.g. "kg", "m", "°". */
+  unit?: string;
+  /** Help text under the field (hidden while an error shows). */
+  hint?: string;
+  /** Error message under the field, in red; marks the input invalid. */
+  error?: string;
+}
+
+/** A labelled text input with unit, hint and error beside the field. */
+export function TextField({ label, unit, hint, error, editable = true, onFocus, onBlur, ...input }: TextFieldProps) {
+  const [focused, setFocused] = useState(false);
+  return (
+    <View style={styles.wrap}>
+      <Text variant="label" tone="muted">
+        {label}
+      </Text>
+      <View
+        style={[
+          styles.box,
+          focused && styles.boxFocused,
+          !!error && styles.boxError,
+          !editable && styles.boxDisabled,
+        ]}
+      >
+        <TextInput
+          {...input}
+          editable={editable}
+          aria-label={label}
+          aria-invalid={!!error}
+          placeholderTextColor="#5F7487"
+          onFocus={(e) => {
+            setFocused(true);
+            onFocus?.(e);
+          }}
+          onBlur={(e) => {
+            setFocused(false);
+            onBlur?.(e);
+          }}
+          style={styles.input}
+        />
+        {unit ? (
+          <Text variant="numeric" tone="muted" style={styles.unit}>
+            {unit}
+          </Text>
+        ) : null}
+      </View>
+      {error ? (
+        <Text variant="caption" tone="danger" role="alert">
+          {error}
+        </Text>
+      ) : hint ? (
+        <Text variant="caption" tone="muted">
+          {hint}
+        </Text>
+      ) : null}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: spacing.xs + 2, alignSelf: 'stretch' },
+  box: {
+    flexDirection: 'row',
+    alignItems: 'center',
+    minHeight: layout.touchTarget,
+    borderWidth: 1,
+    borderColor: colors.border,
+    borderRadius: radii.md,
+    backgroundColor: colors.raised,
+    paddingHorizontal: spacing.md,
+  },
+  boxFocused: { borderColor: colors.accent },
+  boxError: { borderColor: colors.danger },
+  boxDisabled: { opacity: 0.6 },
+  input: {
+    flex: 1,
+    minWidth: 0,
+    color: colors.text,
+    fontFamily: fonts.regular,
+    fontSize: 15,
+    paddingVertical: spacing.sm + 2,
+    outlineStyle: 'none',
+  } as object,
+  unit: { marginLeft: spacing.sm },
+});
