@@ -48,38 +48,42 @@ export const CLIENT_ROUTES = {
 const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
 const isoTime = z.string();
 
-/** Target reorientation: intrinsic z-y′-x″ yaw/pitch/roll, or a rotation angle about an axis (body frame at t = 0). */
-export const reorientationSchema = z.discriminatedUnion('kind', [
-  z.object({
-    kind: z.literal('ypr'),
-    /** Yaw about z (toward the head), degrees, −180…180. */
-    yawDeg: finite('yawDeg').min(-180).max(180),
-    /** Pitch about y (to the left), degrees, −90…90. */
-    pitchDeg: finite('pitchDeg').min(-90).max(90),
-    /** Roll about x (out of the chest), degrees, −180…180. */
-    rollDeg: finite('rollDeg').min(-180).max(180),
-  }),
-  z.object({
-    kind: z.literal('axis_angle'),
-    /** Rotation axis in the initial body frame (x anterior, y left, z head), any non-zero vector. */
-    axis: z.tuple([finite('axis'), finite('axis'), finite('axis')]).refine((a) => Math.hypot(...a) > 1e-9, 'axis must not be zero'),
-    /** Right-handed rotation angle, degrees, 0…180. */
-    angleDeg: finite('angleDeg').min(0).max(180),
-  }),
-]);
-/** A target reorientation. */
-export type Reorientation = z.infer<typeof reorientationSchema>;
+/** Yaw/pitch/roll, intrinsic z-y′-x″, degrees (body frame at t = 0: x anterior, y left, z head). */
+export const yprDegSchema = z.object({
+  /** Yaw about z, degrees, −180…180. */
+  yaw: finite('yaw').min(-180).max(180),
+  /** Pitch about y, degrees, −90…90. */
+  pitch: finite('pitch').min(-90).max(90),
+  /** Roll about x, degrees, −180…180. */
+  roll: finite('roll').min(-180).max(180),
+});
 
-/** What a sequence must achieve and within which limits (stored as the sequence's `target`). */
-export const sequenceTargetSchema = z.object({
-  reorientation: reorientationSchema,
+/** A rotation angle about an axis of the initial body frame. */
+export const axisAngleSchema = z.object({
+  /** Any non-zero vector (normalised when used). */
+  axis: z.tuple([finite('axis'), finite('axis'), finite('axis')]).refine((a) => Math.hypot(...a) > 1e-9, 'axis must not be zero'),
+  /** Right-handed angle, degrees, 0…180. */
+  angleDeg: finite('angleDeg').min(0).max(180),
+});
+
+const targetLimits = {
   /** Largest acceptable final attitude error, degrees (default 2). */
   toleranceDeg: finite('toleranceDeg').positive().max(90).default(2),
   /** Joint rate limit the report checks the peak joint rate against, deg/s (default 180). */
   rateLimitDegS: finite('rateLimitDegS').positive().max(2000).default(180),
   /** Time budget, seconds; null: none. */
   timeBudgetS: finite('timeBudgetS').positive().max(3600).nullable().default(null),
-});
+};
+
+/**
+ * What a sequence must achieve and within which limits (stored as the sequence's `target` jsonb):
+ * `{ mode: 'ypr', yprDeg: { yaw, pitch, roll } }` or `{ mode: 'axis_angle', axisAngle: { axis, angleDeg } }`,
+ * plus tolerance, rate limit and time budget.
+ */
+export const sequenceTargetSchema = z.discriminatedUnion('mode', [
+  z.object({ mode: z.literal('ypr'), yprDeg: yprDegSchema, ...targetLimits }),
+  z.object({ mode: z.literal('axis_angle'), axisAngle: axisAngleSchema, ...targetLimits }),
+]);
 /** A sequence target (output shape, defaults filled). */
 export type SequenceTarget = z.infer<typeof sequenceTargetSchema>;
 
