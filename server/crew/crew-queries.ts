@@ -1,0 +1,53 @@
+import { and, asc, eq, ilike, or, type SQL } from 'drizzle-orm';
+
+import type { Database } from '../../db/client.ts';
+import { crewMembers, profileVersions, users, type CrewMemberRow, type ProfileVersionRow } from '../../db/schema/index.ts';
+import type { SessionUser } from '../../shared/contracts/auth.ts';
+import { notFound } from '../http/http-error.ts';
+
+/** Escapes LIKE wildcards so a search for "50%" finds that text literally. */
+function likePattern(text: string): string {
+  return `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}
+
+/**
+ * Crew members the user may see, by name, each with its current version row (if any). A trainee
+ * gets only their own member; `q` searches name and call sign, case-insensitively.
+ */
+export async function listCrewMembers(db: Database, user: SessionUser, q?: string): Promise<Array<{ member: CrewMemberRow; current: ProfileVersionRow | null }>> {
+  const filters: SQL[] = [];
+  if (user.role === 'trainee') {
+    if (!user.crewMemberId) return [];
+    filters.push(eq(crewMembers.id, user.crewMemberId));
+  }
+  if (q) filters.push(or(ilike(crewMembers.name, likePattern(q)), ilike(crewMembers.callSign, likePattern(q)))!);
+  const rows = await db
+    .select({ member: crewMembers, current: profileVersions })
+    .from(crewMembers)
+    .leftJoin(profileVersions, and(eq(profileVersions.crewMemberId, crewMembers.id), eq(profileVersions.version, crewMembers.currentVersion)))
+    .where(filters.length ? and(...filters) : undefined)
+    .orderBy(asc(crewMembers.name));
+  return rows;
+}
+
+/** Every version of a member, newest first, with the author's name. */
+export async function listVersions(db: Database, crewMemberId: string) {
+  return db
+    .select({ version: profileVersions, authorName: users.name })
+    .from(profileVersions)
+    .leftJoin(users, eq(users.id, profileVersions.authorId))
+    .where(eq(profileVersions.crewMemberId, crewMemberId))
+    .orderBy(profileVersions.version)
+    .then((rows) => rows.reverse());
+}
+
+/** One version of a member by number, with the author's name; 404 when absent. */
+export async function getVersion(db: Database, crewMemberId: string, version: number): Promise<{ version: ProfileVersionRow; authorName: string | null }> {
+  const [row] = await db
+    .select({ version: profileVersions, authorName: users.name })
+    .from(profileVersions)
+    .leftJoin(users, eq(users.id, profileVersions.authorId))
+    .where(and(eq(profileVersions.crewMemberId, crewMemberId), eq(profileVersions.version, version)));
+  if (!row) throw notFound(`Profile version ${version}`);
+  return row;
+}

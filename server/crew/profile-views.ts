@@ -1,0 +1,51 @@
+import type { CrewMemberRow, ProfileVersionRow } from '../../db/schema/index.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import type { CrewMemberView } from '../../shared/contracts/crew.ts';
+import type {
+  ProfileSource,
+  ProfileSummary,
+  ProfileVersionHeader,
+  ProfileVersionView,
+  StoredProfileInputs,
+} from '../../shared/contracts/profile-version.ts';
+
+/** A crew member for the API, with a glimpse of the current version (null before the first save). */
+export function crewMemberView(row: CrewMemberRow, current: ProfileVersionRow | null): CrewMemberView {
+  const inputs = current?.inputs as StoredProfileInputs | undefined;
+  return {
+    id: row.id,
+    name: row.name,
+    callSign: row.callSign,
+    notes: row.notes,
+    currentVersion: row.currentVersion,
+    currentMass: current ? (current.summary as ProfileSummary).mass : null,
+    currentSuit: inputs?.suit?.name ?? null,
+    createdAt: row.createdAt.toISOString(),
+  };
+}
+
+/** A version without its body, for history lists. */
+export function profileVersionHeader(row: ProfileVersionRow, authorName: string | null, currentVersion: number | null): ProfileVersionHeader {
+  return {
+    id: row.id,
+    crewMemberId: row.crewMemberId,
+    version: row.version,
+    source: row.source as ProfileSource,
+    note: row.note,
+    engineVersion: row.engineVersion,
+    authorName,
+    createdAt: row.createdAt.toISOString(),
+    mass: (row.summary as ProfileSummary).mass,
+    current: row.version === currentVersion,
+  };
+}
+
+/** A full version: inputs, derived body and summary. */
+export function profileVersionView(row: ProfileVersionRow, authorName: string | null, currentVersion: number | null): ProfileVersionView {
+  return {
+    ...profileVersionHeader(row, authorName, currentVersion),
+    inputs: row.inputs as StoredProfileInputs,
+    body: row.body as Body,
+    summary: row.summary as ProfileSummary,
+  };
+}

@@ -1,0 +1,65 @@
+import { asc, eq } from 'drizzle-orm';
+import { Router } from 'express';
+import { z } from 'zod';
+
+import { suitConfigs, users, type SuitConfigRow } from '../../db/schema/index.ts';
+import type { SuitView } from '../../shared/contracts/crew.ts';
+import { suitConfigSchema, type SuitConfig } from '../../shared/contracts/suit.ts';
+import type { AppContext } from '../app-context.ts';
+import { recordAudit } from '../audit/record-audit.ts';
+import { requireCrewEditor } from '../crew/crew-access.ts';
+import { badRequest, notFound } from '../http/http-error.ts';
+import { validate } from '../http/validate.ts';
+
+const idParams = z.object({ id: z.string().uuid('Not a valid suit id.') });
+
+function suitView(row: SuitConfigRow, updatedByName: string | null): SuitView {
+  return { id: row.id, config: suitConfigSchema.parse(row.config), updatedAt: row.updatedAt.toISOString(), updatedByName };
+}
+
+/**
+ * Suit configurations: everyone signed in reads them; planners and admins edit them. Saved
+ * profile versions keep their own snapshot, so an edit here affects only versions saved later.
+ */
+export function suitsRouter(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  router.get('/', async (_req, res) => {
+    const rows = await db
+      .select({ suit: suitConfigs, by: users.name })
+      .from(suitConfigs)
+      .leftJoin(users, eq(users.id, suitConfigs.updatedBy))
+      .orderBy(asc(suitConfigs.name));
+    res.json({ suits: rows.map((r) => suitView(r.suit, r.by)) });
+  });
+
+  router.get('/:id', validate({ params: idParams }), async (_req, res) => {
+    const { id } = res.locals.params as { id: string };
+    const [row] = await db.select({ suit: suitConfigs, by: users.name }).from(suitConfigs).leftJoin(users, eq(users.id, suitConfigs.updatedBy)).where(eq(suitConfigs.id, id));
+    if (!row) throw notFound('Suit configuration');
+    res.json({ suit: suitView(row.suit, row.by) });
+  });
+
+  router.put('/:id', requireCrewEditor, validate({ params: idParams, body: suitConfigSchema }), async (req, res) => {
+    const me = req.user!;
+    const { id } = res.locals.params as { id: string };
+    const config = req.body as SuitConfig;
+    const [existing] = await db.select().from(suitConfigs).where(eq(suitConfigs.id, id));
+    if (!existing) throw notFound('Suit configuration');
+    const before = suitConfigSchema.parse(existing.config);
+    if (config.id !== before.id) throw badRequest(`id: a suit's id stays "${before.id}" (profiles and CSV files refer to it).`, 'id');
+    const row = await db.transaction(async (tx) => {
+      const [updated] = await tx
+        .update(suitConfigs)
+        .set({ name: config.name, config, illustrative: config.illustrative, updatedBy: me.id, updatedAt: new Date() })
+        .where(eq(suitConfigs.id, id))
+        .returning();
+      await recordAudit(tx, { actorId: me.id, action: 'suit.update', objectType: 'suit_config', objectId: id, detail: { name: config.name } });
+      return updated;
+    });
+    res.json({ suit: suitView(row, me.name) });
+  });
+
+  return router;
+}

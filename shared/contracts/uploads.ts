@@ -1,0 +1,115 @@
+import type { SegmentLengthKey } from './profile-inputs.ts';
+
+/** Largest accepted upload, bytes (1 MiB): a measurement table for a whole crew is a few KB. */
+export const UPLOAD_MAX_BYTES = 1024 * 1024;
+
+/** What an upload holds. */
+export type UploadKind = 'measurements_csv' | 'segment_table_csv' | 'segment_table_json';
+
+/** One problem in an uploaded file: the row (as numbered in the file, header = row 1), the column and why. */
+export interface UploadRowError {
+  /** Line in the file, 1 = header; 0 when the problem is the file as a whole. */
+  row: number;
+  /** Column name as in the documented header ('' when the whole row or file is at fault). */
+  column: string;
+  /** Sentence for people. */
+  reason: string;
+}
+
+/** An upload as the API returns it. */
+export interface UploadView {
+  id: string;
+  kind: UploadKind;
+  fileName: string;
+  contentType: string;
+  sizeBytes: number;
+  sha256: string;
+  /** Object-storage key of the raw file: uploads/<id>/<file name>. */
+  objectKey: string;
+  status: 'imported' | 'rejected';
+  rowCount: number;
+  errors: UploadRowError[];
+  uploadedBy: string | null;
+  createdAt: string;
+}
+
+/** What an import did per row. */
+export interface ImportedRowResult {
+  row: number;
+  crewMemberId: string;
+  name: string;
+  /** `created`: a new crew member; `updated`: a new version of an existing member with that name. */
+  action: 'created' | 'updated';
+  version: number;
+}
+
+/** Response of an upload: the stored file's metadata and, when imported, what it created. */
+export interface UploadResult {
+  upload: UploadView;
+  imported: ImportedRowResult[];
+}
+
+/**
+ * Columns of the measurements CSV, one row per crew member, in documented order. Required:
+ * name, sex, stature_m, mass_kg. Lengths in metres, mass in kg. `suit`: the id or name of a stored
+ * suit configuration, empty for none.
+ */
+export const MEASUREMENT_COLUMNS = [
+  'name',
+  'call_sign',
+  'sex',
+  'stature_m',
+  'mass_kg',
+  'suit',
+  'biacromial_m',
+  'hip_breadth_m',
+  'head_m',
+  'upper_trunk_m',
+  'middle_trunk_m',
+  'lower_trunk_m',
+  'upper_arm_m',
+  'forearm_m',
+  'hand_m',
+  'thigh_m',
+  'shank_m',
+  'foot_m',
+  'ankle_height_m',
+  'note',
+] as const;
+
+/** The measurements CSV columns that must be present (and non-empty in each row). */
+export const MEASUREMENT_REQUIRED = ['name', 'sex', 'stature_m', 'mass_kg'] as const;
+
+/** Which measured segment length each length column fills. */
+export const MEASUREMENT_LENGTH_COLUMNS: Record<string, SegmentLengthKey> = {
+  head_m: 'head',
+  upper_trunk_m: 'upperTrunk',
+  middle_trunk_m: 'middleTrunk',
+  lower_trunk_m: 'lowerTrunk',
+  upper_arm_m: 'upperArm',
+  forearm_m: 'forearm',
+  hand_m: 'hand',
+  thigh_m: 'thigh',
+  shank_m: 'shank',
+  foot_m: 'foot',
+  ankle_height_m: 'ankleHeight',
+};
+
+/**
+ * Columns of the measured segment table CSV, one row per segment of the standard human model.
+ * CoM in the segment frame (m); inertia about the segment CoM in the segment frame (kg·m²); the
+ * three products of inertia are optional (0 when empty).
+ */
+export const SEGMENT_TABLE_COLUMNS = [
+  'segment',
+  'mass_kg',
+  'com_x_m',
+  'com_y_m',
+  'com_z_m',
+  'ixx_kgm2',
+  'iyy_kgm2',
+  'izz_kgm2',
+  'ixy_kgm2',
+  'ixz_kgm2',
+  'iyz_kgm2',
+] as const;

@@ -1,0 +1,190 @@
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
+import { onProfileVersionChanged, type ProfileVersionChanged } from '../../server/crew/profile-events.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+let t: TestApp;
+let planner: string;
+let planner2: string;
+let reviewer: string;
+let reed: string; // trainee Tamsin Reed
+beforeAll(async () => {
+  t = await startTestApp();
+  planner = `Bearer ${await t.tokenFor('planner')}`;
+  planner2 = `Bearer ${await t.tokenForEmail('pim.sorrel@lumen.example.test')}`;
+  reviewer = `Bearer ${await t.tokenFor('reviewer')}`;
+  reed = `Bearer ${await t.tokenForEmail(DEMO_PEOPLE.find((p) => p.crewKey === 'reed')!.email)}`;
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+const api = () => request(t.app);
+const baseInputs = { sex: 'female', stature: 1.7, mass: 62, suitId: null };
+
+async function createMember(name: string) {
+  const res = await api().post('/api/crew').set('Authorization', planner).send({ name, callSign: 'TEST' });
+  expect(res.status).toBe(201);
+  return res.body.member.id as string;
+}
+
+describe('crew members and profile versions', () => {
+  it('lists the seeded demo crew with their current versions, and searches by name or call sign', async () => {
+    const all = await api().get('/api/crew').set('Authorization', reviewer);
+    expect(all.status).toBe(200);
+    const byName = Object.fromEntries(all.body.members.map((m: { name: string; currentVersion: number }) => [m.name, m.currentVersion]));
+    expect(byName).toMatchObject({ 'Tamsin Reed': 2, 'Bram Kettle': 1, 'Ilse Moss': 1 });
+    const found = await api().get('/api/crew?q=badg').set('Authorization', reviewer);
+    expect(found.body.members.map((m: { name: string }) => m.name)).toEqual(['Bram Kettle']);
+  });
+
+  it('saves version 1 from inputs: derived body, summary, engine version, author, note; without a suit the mass is the input mass within the table rounding', async () => {
+    const id = await createMember('Vera Lindqvist-Test');
+    const saved = await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 0, note: 'first', inputs: baseInputs });
+    expect(saved.status).toBe(201);
+    const v = saved.body.version;
+    expect(v).toMatchObject({ version: 1, current: true, note: 'first', source: 'regression', authorName: 'Orrin Vale' });
+    expect(v.engineVersion).toMatch(/^\d+\.\d+\.\d+\+[0-9a-f]{12}$/);
+    expect(v.body.segments).toHaveLength(15);
+    // Segment masses are de Leva's (1996, Table 4) fractions of body mass; the published fractions
+    // sum to 1 only within their rounding (0.01 % per entry, a few entries), so allow 0.05 %.
+    expect(Math.abs(v.summary.mass - 62)).toBeLessThan(62 * 5e-4);
+    expect(v.summary.segments.reduce((s: number, x: { mass: number }) => s + x.mass, 0)).toBeCloseTo(v.summary.mass, 9);
+    // Standing, the long-axis moment is the smallest (Santschi, DuBois & Omoto 1963, AMRL-TDR-63-36).
+    const [i1, i2, i3] = v.summary.principalMoments;
+    expect(i1).toBeLessThan(i2);
+    expect(i2).toBeLessThanOrEqual(i3);
+  });
+
+  it('a suit snapshot adds exactly the suit\'s mass and stays with the version', async () => {
+    const suits = (await api().get('/api/suits').set('Authorization', planner)).body.suits as Array<{ id: string; config: { id: string; segments: Record<string, { mass: number }> } }>;
+    expect(suits.map((s) => s.config.id).sort()).toEqual(['cabin-clothing', 'pressurised-suit']);
+    const suit = suits.find((s) => s.config.id === 'pressurised-suit')!;
+    const added = Object.values(suit.config.segments).reduce((s, x) => s + x.mass, 0);
+    const id = await createMember('Suited Test Person');
+    const bare = (await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 0, inputs: baseInputs })).body.version;
+    const v = (await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 1, inputs: { ...baseInputs, suitId: suit.id } })).body.version;
+    expect(added).toBeGreaterThan(0);
+    expect(v.summary.mass - bare.summary.mass).toBeCloseTo(added, 9);
+    expect(v.inputs.suit.id).toBe('pressurised-suit');
+  });
+
+  it('names the bad field of the inputs (400)', async () => {
+    const id = await createMember('Bad Input Person');
+    const res = await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 0, inputs: { ...baseInputs, stature: 3.1 } });
+    expect(res.status).toBe(400);
+    expect(res.body.error.field).toBe('inputs.stature');
+    expect(res.body.error.message).toMatch(/at most 2.3 m/);
+  });
+
+  it('editing makes version N+1; old versions stay as they were and the database refuses to change them', async () => {
+    const id = await createMember('Immutable Test');
+    const v1 = (await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 0, inputs: baseInputs })).body.version;
+    const v2 = (await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 1, note: 'mass drift', inputs: { ...baseInputs, mass: 60 } })).body.version;
+    expect(v2.version).toBe(2);
+    const again = (await api().get(`/api/crew/${id}/versions/1`).set('Authorization', planner)).body.version;
+    expect(again.summary).toEqual(v1.summary);
+    expect(again.current).toBe(false);
+    const list = (await api().get(`/api/crew/${id}/versions`).set('Authorization', planner)).body.versions;
+    expect(list.map((x: { version: number; current: boolean }) => [x.version, x.current])).toEqual([[2, true], [1, false]]);
+    await expect(t.ctx.db.$client.query('UPDATE profile_versions SET note = $1 WHERE id = $2', ['x', v1.id])).rejects.toThrow(/append-only: UPDATE refused/);
+    await expect(t.ctx.db.$client.query('DELETE FROM profile_versions WHERE id = $1', [v1.id])).rejects.toThrow(/append-only: DELETE refused/);
+  });
+
+  it('a save on top of a version that is no longer the latest gets 409 and saves nothing', async () => {
+    const id = await createMember('Concurrent Test');
+    await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 0, inputs: baseInputs });
+    // Two planners open version 1; the first saves, the second's save is stale.
+    const first = await api().post(`/api/crew/${id}/versions`).set('Authorization', planner2).send({ baseVersion: 1, inputs: { ...baseInputs, mass: 63 } });
+    expect(first.status).toBe(201);
+    const stale = await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 1, inputs: { ...baseInputs, mass: 64 } });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('stale_version');
+    expect(stale.body.error.message).toMatch(/started from version 1, but version 2 was saved by Pim Sorrel/);
+    const list = (await api().get(`/api/crew/${id}/versions`).set('Authorization', planner)).body.versions;
+    expect(list).toHaveLength(2);
+    expect(list[0].mass).toBeCloseTo(63, 1);
+  });
+
+  it('concurrent saves on the same base: exactly one wins, the other gets 409 (row lock, no lost update)', async () => {
+    const id = await createMember('Race Test');
+    await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 0, inputs: baseInputs });
+    const results = await Promise.all(
+      [61, 62.5, 64, 65].map((mass) => api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 1, inputs: { ...baseInputs, mass } })),
+    );
+    expect(results.map((r) => r.status).sort()).toEqual([201, 409, 409, 409]);
+    const list = (await api().get(`/api/crew/${id}/versions`).set('Authorization', planner)).body.versions;
+    expect(list.map((x: { version: number }) => x.version)).toEqual([2, 1]);
+  });
+
+  it('compares two versions side by side, flagging the changed input and derived values', async () => {
+    const members = (await api().get('/api/crew?q=Tamsin').set('Authorization', planner)).body.members;
+    const res = await api().get(`/api/crew/${members[0].id}/compare?a=1&b=2`).set('Authorization', planner);
+    expect(res.status).toBe(200);
+    const c = res.body.comparison;
+    const changed = (rows: Array<{ key: string; changed: boolean }>) => rows.filter((r) => r.changed).map((r) => r.key);
+    expect(changed(c.inputs)).toEqual(['inputs.mass']);
+    expect(c.inputs.find((r: { key: string }) => r.key === 'inputs.mass')).toMatchObject({ a: 60.5, b: 59.1, unit: 'kg' });
+    expect(changed(c.wholeBody)).toContain('whole.mass');
+    expect(c.inputs.find((r: { key: string }) => r.key === 'inputs.stature').changed).toBe(false);
+  });
+
+  it('exports the derived body as contract JSON, as a download', async () => {
+    const members = (await api().get('/api/crew?q=Moss').set('Authorization', reviewer)).body.members;
+    const res = await api().get(`/api/crew/${members[0].id}/versions/1/body.json`).set('Authorization', reviewer);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-disposition']).toMatch(/^attachment; filename="?ilse-moss-profile-v1-body\.json"?$/);
+    const body = JSON.parse(res.text);
+    expect(body.segments[0]).toMatchObject({ name: 'upper_trunk' });
+    expect(body.segments.find((s: { name: string }) => s.name === 'r_upper_arm').joint.dofs.map((d: { name: string }) => d.name)).toEqual(['r_sh_flex', 'r_sh_abd', 'r_sh_rot']);
+  });
+
+  it('tells subscribers after a new current version is saved', async () => {
+    const seen: ProfileVersionChanged[] = [];
+    const off = onProfileVersionChanged((_ctx, e) => {
+      seen.push(e);
+    });
+    const id = await createMember('Event Test');
+    const v1 = (await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 0, inputs: baseInputs })).body.version;
+    const v2 = (await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 1, inputs: { ...baseInputs, mass: 61 } })).body.version;
+    off();
+    expect(seen.map((e) => [e.version, e.profileVersionId, e.previousVersionId])).toEqual([[1, v1.id, null], [2, v2.id, v1.id]]);
+  });
+});
+
+describe('who may do what', () => {
+  it('reviewers read but do not edit (403)', async () => {
+    expect((await api().post('/api/crew').set('Authorization', reviewer).send({ name: 'X' })).status).toBe(403);
+    const members = (await api().get('/api/crew').set('Authorization', reviewer)).body.members;
+    const res = await api().post(`/api/crew/${members[0].id}/versions`).set('Authorization', reviewer).send({ baseVersion: 1, inputs: baseInputs });
+    expect(res.status).toBe(403);
+  });
+
+  it('a trainee lists and reads only their own crew member; another member is 404, editing is 403', async () => {
+    const mine = (await api().get('/api/crew').set('Authorization', reed)).body.members;
+    expect(mine.map((m: { name: string }) => m.name)).toEqual(['Tamsin Reed']);
+    expect((await api().get(`/api/crew/${mine[0].id}`).set('Authorization', reed)).body.current.version).toBe(2);
+    const others = (await api().get('/api/crew').set('Authorization', planner)).body.members.filter((m: { name: string }) => m.name !== 'Tamsin Reed');
+    for (const path of ['', '/versions', '/versions/1', '/versions/1/body.json', '/compare?a=1&b=1']) {
+      const res = await api().get(`/api/crew/${others[0].id}${path}`).set('Authorization', reed);
+      expect([path, res.status]).toEqual([path, 404]);
+    }
+    expect((await api().post(`/api/crew/${mine[0].id}/versions`).set('Authorization', reed).send({ baseVersion: 2, inputs: baseInputs })).status).toBe(403);
+    expect((await api().post('/api/uploads/measurements').set('Authorization', reed).attach('file', Buffer.from('name\n'), 'a.csv')).status).toBe(403);
+  });
+
+  it('planners edit a suit configuration; its id stays fixed; reviewers may not edit', async () => {
+    const suits = (await api().get('/api/suits').set('Authorization', planner)).body.suits;
+    const cabin = suits.find((s: { config: { id: string } }) => s.config.id === 'cabin-clothing');
+    const edited = { ...cabin.config, note: 'Edited in a test.' };
+    expect((await api().put(`/api/suits/${cabin.id}`).set('Authorization', reviewer).send(edited)).status).toBe(403);
+    const ok = await api().put(`/api/suits/${cabin.id}`).set('Authorization', planner).send(edited);
+    expect(ok.status).toBe(200);
+    expect(ok.body.suit.config.note).toBe('Edited in a test.');
+    const renamed = await api().put(`/api/suits/${cabin.id}`).set('Authorization', planner).send({ ...edited, id: 'other-id' });
+    expect(renamed.status).toBe(400);
+    expect(renamed.body.error.field).toBe('id');
+  });
+});
