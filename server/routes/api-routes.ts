@@ -6,12 +6,9 @@ import { auditRouter } from './audit.ts';
 import { meRouter } from './auth.ts';
 import { crewRouter } from './crew.ts';
 import { suitsRouter } from './suits.ts';
-import { crewRouter } from './crew.ts';
-import { suitsRouter } from './suits.ts';
 import { motionRouter } from './motion.ts';
 import { rehearsalsRouter } from './rehearsals.ts';
 import { teamRouter } from './team.ts';
-import { uploadsRouter } from './uploads.ts';
 import { uploadsRouter } from './uploads.ts';
 
 /** One guarded API area: mounted at /api/<path>, open only to the roles ACCESS_POLICY[area] lists. */
@@ -26,9 +23,6 @@ export const API_AREAS: ApiArea[] = [
   { area: 'me', path: '/me', router: meRouter },
   { area: 'team', path: '/team', router: teamRouter },
   { area: 'audit', path: '/audit', router: auditRouter },
-  { area: 'crew', path: '/crew', router: crewRouter },
-  { area: 'suits', path: '/suits', router: suitsRouter },
-  { area: 'uploads', path: '/uploads', router: uploadsRouter },
   { area: 'crew', path: '/crew', router: crewRouter },
   { area: 'suits', path: '/suits', router: suitsRouter },
   { area: 'uploads', path: '/uploads', router: uploadsRouter },
