@@ -5,9 +5,11 @@
 import type { MotionResponse } from '../../shared/contracts/motion.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
-import { simulate } from '../engine/simulate.ts';
+import { SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
+import { defaultSimulationPool } from '../routes/simulate.ts';
 import { HttpError } from '../http/http-error.ts';
 import { compiledParts } from './compiled-sequence.ts';
+import { primitiveCues } from './primitive-cues.ts';
 import { stepTimeline } from './step-timeline.ts';
 import { targetAttitude } from './target-attitude.ts';
 import type { LoadedVersion } from './version-access.ts';
@@ -17,19 +19,30 @@ function unprocessable(what: string, message: string): HttpError {
   return new HttpError(422, 'motion_invalid', `This version's ${what} cannot be simulated: ${message}`);
 }
 
-/** The motion of one version at `rateHz` samples per second. Throws HttpError 422 on invalid stored data. */
-export function buildMotion(v: LoadedVersion, rateHz: number): MotionResponse {
+/**
+ * The motion of one version at `rateHz` samples per second, simulated in the engine's worker pool.
+ * Throws HttpError 422 on invalid stored data, 503 when the simulation exceeds its time budget.
+ */
+export async function buildMotion(v: LoadedVersion, rateHz: number): Promise<MotionResponse> {
   const body = validateBody(v.body);
   if (!body.ok) throw unprocessable('profile body', body.issues[0].message);
   const parts = compiledParts(v.compiled);
   const sequence = validateSequence(parts.sequence, body.value);
   if (!sequence.ok) throw unprocessable('compiled sequence', sequence.issues[0].message);
-  const result = simulate(body.value, sequence.value, { rateHz });
+  let reply;
+  try {
+    reply = await defaultSimulationPool().run(body.value, sequence.value, { rateHz });
+  } catch (err) {
+    if (err instanceof SimulationTimeoutError) throw new HttpError(503, 'simulation_timeout', err.message);
+    throw err;
+  }
+  if (reply.kind === 'invalid') throw unprocessable(reply.which === 'body' ? 'profile body' : 'compiled sequence', reply.issues[0].message);
+  const result = reply.result;
   const target = targetAttitude(v.target);
   return {
     versionId: v.id, sequenceId: v.sequenceId, sequenceName: v.sequenceName, version: v.version, status: v.status,
     crewMemberName: v.crewMemberName, body: body.value, engineVersion: result.engineVersion, duration: result.duration,
-    samples: result.samples, steps: stepTimeline(sequence.value, parts.cues),
+    samples: result.samples, steps: stepTimeline(sequence.value, parts.cues.length ? parts.cues : primitiveCues(v.primitives, body.value, sequence.value)),
     target: v.target, targetAttitude: target ?? result.final.attitude, targetSource: target ? 'target' : 'final',
     final: result.final,
   };

@@ -7,6 +7,10 @@ import type { MotionResponse } from '../../shared/contracts/motion.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import { simulate } from '../../server/engine/simulate.ts';
+import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import { defaultPrimitive } from '../../shared/primitives/primitive-schemas.ts';
+import { profileVersions } from '../../db/schema/index.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from './rehearsal-fixture.ts';
 
@@ -82,6 +86,20 @@ describe('GET /api/motion/:versionId', () => {
     expect(res.body.error.message).toMatch(/re-check/);
   });
 
+  it('words each step with its primitive’s cue when the version was composed from primitives', async () => {
+    const reed = await crewMemberOf(t.ctx.db, TAMSIN);
+    const [pv] = await t.ctx.db.select().from(profileVersions).where(eq(profileVersions.crewMemberId, reed));
+    const body = validateBody(pv.body);
+    if (!body.ok) throw new Error('body');
+    const primitives = [defaultPrimitive('arm_orbit'), defaultPrimitive('pause')];
+    const compiled = compilePrimitives(primitives, dofInfoFromBody(body.value));
+    const id = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv.id, status: 'cleared', name: 'Composed', compiled: compiled.sequence, primitives });
+    const m = (await get('juno.brack@lumen.example.test', `/api/motion/${id}`)).body as MotionResponse;
+    expect(m.steps).toHaveLength(compiled.steps.length);
+    const sweep = compiled.stepMap.findIndex((o) => o.role === 'sweep');
+    expect(m.steps[sweep].cue.toLowerCase()).toBe(cueFor(primitives[0]).toLowerCase());
+  });
+
   it('lets a reviewer preview any version', async () => {
     const res = await get('juno.brack@lumen.example.test', `/api/motion/${drafting}`);
     expect(res.status).toBe(200);
@@ -103,7 +121,8 @@ describe('rehearsals', () => {
     const res = await get(TAMSIN, '/api/rehearsals/available');
     expect(res.status).toBe(200);
     const names = res.body.versions.map((v: { sequenceName: string }) => v.sequenceName);
-    expect(names).toEqual(['Arm cone, both sides']);
+    // Cleared versions of her own crew member only: no draft, no re-check she never rehearsed, nothing of Bram's.
+    expect(names).toEqual(['Arm cone, both sides', 'Composed']);
     expect(res.body.versions[0]).toMatchObject({ duration: 7, stepCount: 4, lastRehearsal: null, rehearsalCount: 0, targetLabel: 'yaw 0°, pitch -20°, roll 0°' });
   });
 

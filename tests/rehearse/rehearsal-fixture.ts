@@ -3,7 +3,7 @@
  * a sequence version in a chosen status, inserted straight into the tables (the maneuvers API that
  * normally creates them is tested on its own).
  */
-import { eq } from 'drizzle-orm';
+import { eq, max } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
@@ -36,8 +36,10 @@ export async function crewMemberOf(db: Database, email: string): Promise<string>
   return u.c;
 }
 
-/** Inserts a profile version (standard human, 1.68 m, 61 kg) for a crew member; returns its id. */
-export async function insertProfileVersion(db: Database, crewMemberId: string, version = 1): Promise<string> {
+/** Inserts the next profile version (standard human, 1.68 m, 61 kg) for a crew member; returns its id. */
+export async function insertProfileVersion(db: Database, crewMemberId: string): Promise<string> {
+  const [{ last }] = await db.select({ last: max(profileVersions.version) }).from(profileVersions).where(eq(profileVersions.crewMemberId, crewMemberId));
+  const version = (last ?? 0) + 1;
   const d = deriveBody({ sex: 'female', stature: 1.68, mass: 61 });
   const [row] = await db
     .insert(profileVersions)
@@ -50,7 +52,7 @@ export async function insertProfileVersion(db: Database, crewMemberId: string, v
 /** Inserts a sequence with one version in `status`; returns the version id. */
 export async function insertVersion(
   db: Database,
-  opts: { crewMemberId: string; profileVersionId: string; status: VersionStatus; name?: string; compiled?: unknown; target?: unknown },
+  opts: { crewMemberId: string; profileVersionId: string; status: VersionStatus; name?: string; compiled?: unknown; primitives?: unknown; target?: unknown },
 ): Promise<string> {
   const [seq] = await db
     .insert(sequences)
@@ -59,7 +61,7 @@ export async function insertVersion(
   const [v] = await db
     .insert(sequenceVersions)
     .values({
-      sequenceId: seq.id, version: 1, primitives: [], compiled: opts.compiled ?? ARM_SWEEP,
+      sequenceId: seq.id, version: 1, primitives: opts.primitives ?? [], compiled: opts.compiled ?? ARM_SWEEP,
       profileVersionId: opts.profileVersionId, status: opts.status,
       clearedAt: opts.status === 'cleared' ? new Date() : null,
     })
