@@ -1,10 +1,9 @@
-import { useMemo } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
-import type { SimulationResult } from '@/shared/contracts/result';
+import type { RangeViolation } from '@/shared/contracts/result';
 import { DOF_LABELS, isDofName } from '@/shared/model/dof-names';
 import { LinePlot } from './LinePlot';
 import { plotColors } from './plot-colors';
@@ -17,12 +16,14 @@ export interface DofLimits {
 
 /** Props of {@link JointAnglePlots}. */
 export interface JointAnglePlotsProps {
-  /** The verification result's samples (joint angles in degrees, in `samples.dofs` order). */
-  samples: SimulationResult['samples'];
+  /** Sample times, seconds. */
+  t: readonly number[];
+  /** Angle series per dof name, degrees, one value per entry of `t`. */
+  jointsDeg: Record<string, readonly number[]>;
   /** Allowed range per dof name, degrees (the profile's suited ranges); a band is drawn where known. */
-  limits?: Record<string, DofLimits>;
+  ranges?: Record<string, DofLimits>;
   /** Range violations, drawn as red bars under the line of their dof. */
-  violations?: SimulationResult['rangeViolations'];
+  violations?: readonly RangeViolation[];
 }
 
 /** Dofs whose angle changes by less than this (degrees) are left out: a flat line says nothing. */
@@ -37,23 +38,16 @@ export function dofLabel(dof: string): string {
  * Small multiples: one plot per moving joint, its angle against time over its allowed range band,
  * with out-of-range stretches marked. One plot per dof keeps each band readable.
  */
-export function JointAnglePlots({ samples, limits, violations }: JointAnglePlotsProps) {
+export function JointAnglePlots({ t, jointsDeg, ranges, violations }: JointAnglePlotsProps) {
   const wide = useIsWide();
-  const t = useMemo(() => samples.frames.map((f) => f.t), [samples]);
-  const moving = useMemo(
-    () =>
-      samples.dofs
-        .map((dof, i) => ({ dof, values: samples.frames.map((f) => f.jointsDeg[i]) }))
-        .filter(({ values }) => Math.max(...values) - Math.min(...values) >= MOVING_THRESHOLD_DEG),
-    [samples],
-  );
+  const moving = Object.entries(jointsDeg).filter(([, v]) => v.length > 0 && Math.max(...v) - Math.min(...v) >= MOVING_THRESHOLD_DEG);
   if (moving.length === 0) {
     return <Text tone="muted">No joint moves in this sequence.</Text>;
   }
   return (
     <View style={[styles.grid, wide && styles.gridWide]} testID="joint-plots">
-      {moving.map(({ dof, values }) => {
-        const lim = limits?.[dof];
+      {moving.map(([dof, values]) => {
+        const lim = ranges?.[dof];
         const spans = (violations ?? []).filter((v) => v.dof === dof).map((v) => ({ from: v.from, to: v.to }));
         const lo = Math.min(...values);
         const hi = Math.max(...values);

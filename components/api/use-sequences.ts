@@ -1,0 +1,134 @@
+import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+
+import type { CrewMemberView } from '@/shared/contracts/crew';
+import type {
+  CompareResponse,
+  CompileRequest,
+  CompileResponse,
+  CreateSequenceRequest,
+  SaveVersionRequest,
+  SequenceDetail,
+  SequenceSummary,
+  SubmitRequest,
+  UpdateSequenceRequest,
+  VersionDetail,
+} from '@/shared/contracts/maneuver';
+import { apiFetch } from './client';
+
+/** Query keys of the Maneuvers area (sequences, their versions, comparisons). */
+export const sequenceKeys = {
+  all: ['sequences'] as const,
+  lists: () => [...sequenceKeys.all, 'list'] as const,
+  list: (crewMemberId: string | undefined) => [...sequenceKeys.lists(), crewMemberId ?? 'all'] as const,
+  detail: (sequenceId: string) => [...sequenceKeys.all, 'detail', sequenceId] as const,
+  version: (versionId: string) => [...sequenceKeys.all, 'version', versionId] as const,
+  compare: (a: string, b: string) => [...sequenceKeys.all, 'compare', a, b] as const,
+  compile: (request: CompileRequest) => [...sequenceKeys.all, 'compile', request] as const,
+  crewOptions: () => [...sequenceKeys.all, 'crew-options'] as const,
+};
+
+/** GET /api/sequences — every sequence the caller may see, optionally for one crew member. */
+export function useSequencesQuery(crewMemberId?: string) {
+  return useQuery({
+    queryKey: sequenceKeys.list(crewMemberId),
+    queryFn: async ({ signal }) =>
+      (await apiFetch<{ sequences: SequenceSummary[] }>('/sequences', { query: { crewMemberId }, signal })).sequences,
+  });
+}
+
+/** GET /api/sequences/:id — the sequence with its versions, newest first. */
+export function useSequenceQuery(sequenceId: string | undefined) {
+  return useQuery({
+    queryKey: sequenceKeys.detail(sequenceId ?? ''),
+    queryFn: ({ signal }) => apiFetch<SequenceDetail>(`/sequences/${encodeURIComponent(sequenceId!)}`, { signal }),
+    enabled: !!sequenceId,
+  });
+}
+
+/** GET /api/sequences/versions/:id — a version with its primitives, compiled steps, report and reviews. */
+export function useVersionQuery(versionId: string | undefined) {
+  return useQuery({
+    queryKey: sequenceKeys.version(versionId ?? ''),
+    queryFn: ({ signal }) => apiFetch<VersionDetail>(`/sequences/versions/${encodeURIComponent(versionId!)}`, { signal }),
+    enabled: !!versionId,
+  });
+}
+
+/** GET /api/sequences/versions/:a/compare/:b — steps and results side by side. */
+export function useCompareQuery(a: string | undefined, b: string | undefined) {
+  return useQuery({
+    queryKey: sequenceKeys.compare(a ?? '', b ?? ''),
+    queryFn: ({ signal }) =>
+      apiFetch<CompareResponse>(`/sequences/versions/${encodeURIComponent(a!)}/compare/${encodeURIComponent(b!)}`, { signal }),
+    enabled: !!a && !!b && a !== b,
+  });
+}
+
+/** POST /api/sequences/compile — the joint-space steps of unsaved primitives (no save, no simulation). */
+export function useCompileQuery(request: CompileRequest | null) {
+  return useQuery({
+    queryKey: sequenceKeys.compile(request ?? { primitives: [] }),
+    queryFn: ({ signal }) => apiFetch<CompileResponse>('/sequences/compile', { method: 'POST', body: request, signal }),
+    enabled: !!request && request.primitives.length > 0,
+    placeholderData: keepPreviousData,
+  });
+}
+
+/** GET /api/crew — crew members to pick from when creating a sequence. */
+export function useCrewOptionsQuery() {
+  return useQuery({
+    queryKey: sequenceKeys.crewOptions(),
+    queryFn: async ({ signal }) => (await apiFetch<{ members: CrewMemberView[] }>('/crew', { signal })).members,
+    staleTime: 60_000,
+  });
+}
+
+/** POST /api/sequences — a new sequence (no versions yet); refreshes the lists. */
+export function useCreateSequenceMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: CreateSequenceRequest) => apiFetch<SequenceSummary>('/sequences', { method: 'POST', body: input }),
+    onSuccess: () => void qc.invalidateQueries({ queryKey: sequenceKeys.lists() }),
+  });
+}
+
+/** PATCH /api/sequences/:id — rename or change the target. */
+export function useUpdateSequenceMutation(sequenceId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (change: UpdateSequenceRequest) =>
+      apiFetch<SequenceSummary>(`/sequences/${encodeURIComponent(sequenceId)}`, { method: 'PATCH', body: change }),
+    onSuccess: () => void qc.invalidateQueries({ queryKey: sequenceKeys.all }),
+  });
+}
+
+/**
+ * POST /api/sequences/:id/versions — saves the composed primitives as a new version, which the
+ * server compiles and verifies. A 409 `stale_version` means someone saved in between.
+ */
+export function useSaveVersionMutation(sequenceId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: SaveVersionRequest) =>
+      apiFetch<VersionDetail>(`/sequences/${encodeURIComponent(sequenceId)}/versions`, { method: 'POST', body: input }),
+    onSuccess: (version) => {
+      qc.setQueryData(sequenceKeys.version(version.id), version);
+      void qc.invalidateQueries({ queryKey: sequenceKeys.detail(sequenceId) });
+      void qc.invalidateQueries({ queryKey: sequenceKeys.lists() });
+    },
+  });
+}
+
+/** POST /api/sequences/versions/:id/submit — sends a version to the reviewers. */
+export function useSubmitVersionMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ versionId, request }: { versionId: string; request?: SubmitRequest }) =>
+      apiFetch<VersionDetail>(`/sequences/versions/${encodeURIComponent(versionId)}/submit`, { method: 'POST', body: request ?? {} }),
+    onSuccess: (version) => {
+      qc.setQueryData(sequenceKeys.version(version.id), version);
+      void qc.invalidateQueries({ queryKey: sequenceKeys.all });
+      void qc.invalidateQueries({ queryKey: ['reviews'] });
+    },
+  });
+}
