@@ -28,19 +28,19 @@ function harmonicCriticalTimes(piece: MotionPiece, j: number, base: number): num
 /** Range violations of every dof over the plan. */
 export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeViolation[] {
   const out: RangeViolation[] = [];
-  const q = new Float64Array(model.dofCount);
   for (const piece of plan.pieces) {
-    const angle = (k: number, t: number) => { evalPiece(piece, t, q, null); return q[k]; };
     const span = piece.t1 - piece.t0;
     const cycles = piece.kind === 'harmonic' ? Math.ceil((span * piece.omega) / (2 * Math.PI)) : 1;
-    const n = Math.min(20_000, SCAN_POINTS * Math.max(1, cycles));
     for (let k = 0; k < model.dofCount; k++) {
-      // Scan grid plus analytic extrema of this dof.
+      const hj = piece.kind === 'harmonic' ? Array.from(piece.hDofs).indexOf(k) : -1;
+      const moving = hj >= 0 || (piece.kind === 'move' && piece.to[k] !== piece.from[k]);
+      const angle = (_k: number, t: number) => dofAngle(piece, k, hj, t);
+      // Scan grid (a still dof: its two ends; a move is monotone: a coarse grid finds every crossing)
+      // plus the analytic extrema of a harmonic dof.
+      const n = !moving ? 1 : hj < 0 ? 16 : Math.min(20_000, SCAN_POINTS * Math.max(1, cycles));
       const times: number[] = [];
       for (let s = 0; s <= n; s++) times.push(piece.t0 + (span * s) / n);
-      const hj = piece.kind === 'harmonic' ? Array.from(piece.hDofs).indexOf(k) : -1;
-      if (hj >= 0) times.push(...harmonicCriticalTimes(piece, hj, Math.PI / 2));
-      times.sort((a, b) => a - b);
+      if (hj >= 0) { times.push(...harmonicCriticalTimes(piece, hj, Math.PI / 2)); times.sort((a, b) => a - b); }
       for (const bound of ['max', 'min'] as const) {
         const limit = bound === 'max' ? model.dofMax[k] : model.dofMin[k];
         // g > 0 means beyond the limit.
@@ -71,6 +71,14 @@ export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeVi
     }
   }
   return out;
+}
+
+/** Angle (rad) of dof k at time t in a piece; hj is its index among the harmonic dofs or −1. */
+function dofAngle(piece: MotionPiece, k: number, hj: number, t: number): number {
+  if (hj >= 0) return piece.hOffset[hj] + piece.hAmplitude[hj] * Math.sin(piece.omega * (t - piece.t0) + piece.hPhase[hj]);
+  if (piece.kind !== 'move') return piece.from[k];
+  const tau = Math.min(1, Math.max(0, (t - piece.t0) / (piece.t1 - piece.t0)));
+  return piece.from[k] + (piece.to[k] - piece.from[k]) * tau * tau * tau * (10 - 15 * tau + 6 * tau * tau);
 }
 
 function violation(model: BodyModel, piece: MotionPiece, k: number, bound: 'min' | 'max', limit: number, from: number, to: number, worstT: number, worstG: number): RangeViolation {

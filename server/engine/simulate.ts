@@ -10,11 +10,11 @@ import { DEFAULT_RATE_HZ, DEFAULT_RTOL } from '../../shared/contracts/simulate-r
 import { type BodyModel, compileBody } from '../../shared/kinematics/body-model.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import { quatCanonical, quatToAxisAngle } from '../../shared/math/quaternion.ts';
-import { attitudeRhs, integrateAttitude } from './integrate-attitude.ts';
+import { integrateAttitude } from './integrate-attitude.ts';
 import { compileMotion, evalPiece, type MotionPlan } from './joint-motion.ts';
 import { findRangeViolations, peakJointRates } from './joint-range.ts';
 import { bodyRate, createMomentumWork } from './locked-momentum.ts';
-import { auditAt } from './momentum-audit.ts';
+import { auditAt, createAuditWork } from './momentum-audit.ts';
 import { ENGINE_VERSION } from './version.ts';
 
 const DEG = 180 / Math.PI;
@@ -69,8 +69,7 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
 
   // Samples, momentum audit, peak shape momentum.
   const work = createMomentumWork(model);
-  const auditCounter = { n: 0 };
-  const auditRhs = plan.pieces.map((piece) => attitudeRhs(model, createMomentumWork(model), piece, auditCounter));
+  const audit = createAuditWork(model);
   const q = new Float64Array(nd), qd = new Float64Array(nd);
   const frames: SimulationResult['samples']['frames'] = [];
   let maxH = 0, atTime = 0, peakH = 0;
@@ -87,10 +86,11 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
     const piece = plan.pieces[p];
     evalPiece(piece, t, q, qd);
     frames.push({ t, attitude: { w: a[0], x: a[1], y: a[2], z: a[3] }, jointsDeg: Array.from(q, (v) => v * DEG) });
-    bodyRate(model, q, qd, work);
+    // The rate the integrator follows here (for the audit's root motion) and the shape momentum.
+    const omega = bodyRate(model, q, qd, work);
     peakH = Math.max(peakH, Math.hypot(work.h[0], work.h[1], work.h[2]));
     if (options.skipAudit) return;
-    const H = auditAt(model, piece, auditRhs[p], t, a);
+    const H = auditAt(model, piece, t, a, omega, audit);
     if (H > maxH) { maxH = H; atTime = t; }
   });
 

@@ -3,7 +3,6 @@
  * and CoM for given joint angles, and (optionally) their velocities for given joint rates.
  * Allocation-free: results go into a preallocated BodyPose.
  */
-import { mat3FromAxisAngle, mat3Multiply, mat3MulVec } from '../math/mat3.ts';
 import type { BodyModel } from './body-model.ts';
 
 /** Mutable pose buffers for one body, all in the root segment's frame. */
@@ -43,30 +42,48 @@ export function createBodyPose(model: BodyModel): BodyPose {
  */
 export function forwardKinematics(model: BodyModel, q: ArrayLike<number>, pose: BodyPose): void {
   const { parent, origin, com, dofStart, dofAxis } = model;
-  const { rot, pos, comPos, dofAxisRoot, tmpRot, tmpRot2, tmpVec } = pose;
-  for (let i = 0; i < model.segmentCount; i++) {
+  const { rot, pos, comPos, dofAxisRoot } = pose;
+  const n = model.segmentCount;
+  // Hot path: everything inline on locals (no helper calls, no temporaries).
+  for (let i = 0; i < n; i++) {
     const p = parent[i];
+    const o = 9 * i, i3 = 3 * i;
+    let r0 = 1, r1 = 0, r2 = 0, r3 = 0, r4 = 1, r5 = 0, r6 = 0, r7 = 0, r8 = 1;
     if (p < 0) {
       // Root: identity rotation at the origin.
-      rot.fill(0, 9 * i, 9 * i + 9); rot[9 * i] = 1; rot[9 * i + 4] = 1; rot[9 * i + 8] = 1;
-      pos[3 * i] = 0; pos[3 * i + 1] = 0; pos[3 * i + 2] = 0;
+      pos[i3] = 0; pos[i3 + 1] = 0; pos[i3 + 2] = 0;
     } else {
+      const po = 9 * p, p3 = 3 * p;
+      r0 = rot[po]; r1 = rot[po + 1]; r2 = rot[po + 2]; r3 = rot[po + 3]; r4 = rot[po + 4]; r5 = rot[po + 5]; r6 = rot[po + 6]; r7 = rot[po + 7]; r8 = rot[po + 8];
       // Origin: parent position + parent rotation · joint origin.
-      mat3MulVec(rot, origin, tmpVec, 9 * p, 3 * i, 0);
-      pos[3 * i] = pos[3 * p] + tmpVec[0]; pos[3 * i + 1] = pos[3 * p + 1] + tmpVec[1]; pos[3 * i + 2] = pos[3 * p + 2] + tmpVec[2];
-      // Rotation: start from the parent's, then apply each dof in order.
-      for (let r = 0; r < 9; r++) rot[9 * i + r] = rot[9 * p + r];
+      const ox = origin[i3], oy = origin[i3 + 1], oz = origin[i3 + 2];
+      pos[i3] = pos[p3] + r0 * ox + r1 * oy + r2 * oz;
+      pos[i3 + 1] = pos[p3 + 1] + r3 * ox + r4 * oy + r5 * oz;
+      pos[i3 + 2] = pos[p3 + 2] + r6 * ox + r7 * oy + r8 * oz;
+      // Apply each dof in order: R ← R · Rot(axis, θ) (Rodrigues).
       for (let k = dofStart[i]; k < dofStart[i + 1]; k++) {
+        const k3 = 3 * k;
+        const x = dofAxis[k3], y = dofAxis[k3 + 1], z = dofAxis[k3 + 2];
         // The dof axis in the root frame uses the rotation left by the previous dofs.
-        mat3MulVec(rot, dofAxis, dofAxisRoot, 9 * i, 3 * k, 3 * k);
-        mat3FromAxisAngle(dofAxis, q[k], tmpRot, 3 * k, 0);
-        mat3Multiply(rot, tmpRot, tmpRot2, 9 * i, 0, 0);
-        for (let r = 0; r < 9; r++) rot[9 * i + r] = tmpRot2[r];
+        dofAxisRoot[k3] = r0 * x + r1 * y + r2 * z;
+        dofAxisRoot[k3 + 1] = r3 * x + r4 * y + r5 * z;
+        dofAxisRoot[k3 + 2] = r6 * x + r7 * y + r8 * z;
+        const c = Math.cos(q[k]), s = Math.sin(q[k]), t = 1 - c;
+        const a0 = t * x * x + c, a1 = t * x * y - s * z, a2 = t * x * z + s * y;
+        const a3 = t * x * y + s * z, a4 = t * y * y + c, a5 = t * y * z - s * x;
+        const a6 = t * x * z - s * y, a7 = t * y * z + s * x, a8 = t * z * z + c;
+        const n0 = r0 * a0 + r1 * a3 + r2 * a6, n1 = r0 * a1 + r1 * a4 + r2 * a7, n2 = r0 * a2 + r1 * a5 + r2 * a8;
+        const n3 = r3 * a0 + r4 * a3 + r5 * a6, n4 = r3 * a1 + r4 * a4 + r5 * a7, n5 = r3 * a2 + r4 * a5 + r5 * a8;
+        const n6 = r6 * a0 + r7 * a3 + r8 * a6, n7 = r6 * a1 + r7 * a4 + r8 * a7, n8 = r6 * a2 + r7 * a5 + r8 * a8;
+        r0 = n0; r1 = n1; r2 = n2; r3 = n3; r4 = n4; r5 = n5; r6 = n6; r7 = n7; r8 = n8;
       }
     }
+    rot[o] = r0; rot[o + 1] = r1; rot[o + 2] = r2; rot[o + 3] = r3; rot[o + 4] = r4; rot[o + 5] = r5; rot[o + 6] = r6; rot[o + 7] = r7; rot[o + 8] = r8;
     // CoM: origin + rotation · com.
-    mat3MulVec(rot, com, tmpVec, 9 * i, 3 * i, 0);
-    comPos[3 * i] = pos[3 * i] + tmpVec[0]; comPos[3 * i + 1] = pos[3 * i + 1] + tmpVec[1]; comPos[3 * i + 2] = pos[3 * i + 2] + tmpVec[2];
+    const cx = com[i3], cy = com[i3 + 1], cz = com[i3 + 2];
+    comPos[i3] = pos[i3] + r0 * cx + r1 * cy + r2 * cz;
+    comPos[i3 + 1] = pos[i3 + 1] + r3 * cx + r4 * cy + r5 * cz;
+    comPos[i3 + 2] = pos[i3 + 2] + r6 * cx + r7 * cy + r8 * cz;
   }
 }
 

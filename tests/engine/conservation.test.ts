@@ -123,3 +123,28 @@ describe('momentum audit and tolerance convergence on every test body', () => {
     });
   }
 });
+
+describe('the momentum audit detects a wrong body rate', () => {
+  // A check that cannot fail proves nothing: feed the audit a rate 1 % off and it must see it.
+  it('flags a 1 % error in ω at about 1e-2 of the shape momentum', async () => {
+    const { compileBody } = await import('../../shared/kinematics/body-model.ts');
+    const { compileMotion, evalPiece } = await import('../../server/engine/joint-motion.ts');
+    const { bodyRate, createMomentumWork } = await import('../../server/engine/locked-momentum.ts');
+    const { auditAt, createAuditWork } = await import('../../server/engine/momentum-audit.ts');
+    const body = loadBody('nested-chain');
+    const model = compileBody(body);
+    const plan = compileMotion(model, loadSequence('nested-chain-maneuver', body));
+    const piece = plan.pieces[1];
+    const t = piece.t0 + 0.7;
+    const q = new Float64Array(model.dofCount), qd = new Float64Array(model.dofCount);
+    evalPiece(piece, t, q, qd);
+    const work = createMomentumWork(model);
+    const omega = Array.from(bodyRate(model, q, qd, work));
+    const h = Math.hypot(...work.h);
+    const att = [0.9, 0.1, -0.3, 0.2].map((v) => v / Math.hypot(0.9, 0.1, 0.3, 0.2));
+    const audit = createAuditWork(model);
+    expect(auditAt(model, piece, t, att, omega, audit) / h).toBeLessThan(1e-9);
+    const wrong = auditAt(model, piece, t, att, omega.map((w) => 1.01 * w), audit) / h;
+    expect(wrong).toBeGreaterThan(1e-3);
+  });
+});
