@@ -1,0 +1,24 @@
+/** Where a time falls on the step timeline: which step, and which cycle of a cyclic step. */
+
+/** A step span on the timeline (s); cycles/period for cyclic (harmonic) steps, else null. */
+export interface StepSpan {
+  start: number;
+  end: number;
+  cycles: number | null;
+  period: number | null;
+}
+
+/** Index of the step holding t: the last step whose start ≤ t (0 before the first; the last at the end). */
+export function stepIndexAt(steps: readonly StepSpan[], t: number): number {
+  let idx = 0;
+  for (let i = 0; i < steps.length; i++) if (steps[i].start <= t + 1e-9) idx = i;
+  return idx;
+}
+
+/** The 1-based cycle in progress at t within a cyclic step and how many there are; null for other steps. */
+export function cycleAt(step: StepSpan, t: number): { cycle: number; of: number } | null {
+  if (step.cycles === null || step.period === null || step.period <= 0) return null;
+  const of = Math.ceil(step.cycles - 1e-9);
+  const cycle = Math.min(of, Math.max(1, Math.floor((t - step.start) / step.period + 1e-9) + 1));
+  return { cycle, of };
+}
