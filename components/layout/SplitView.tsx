@@ -1,11 +1,10 @@
 import type { ReactNode } from 'react';
-import { Pressable, ScrollView, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 
 import { colors, layout, radii, spacing } from '@/components/theme';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import { useIsWide } from './use-is-wide';
-import { webPressState } from '@/components/ui/press-state';
 
 /** Props of {@link SplitView}. */
 export interface SplitViewProps {
@@ -13,7 +12,7 @@ export interface SplitViewProps {
   list: ReactNode;
   /** The detail of the selected item, or null when nothing is selected. Scrolls on its own. */
   detail: ReactNode | null;
-  /** Title of the phone back bar above the detail (e.g. the person's name). */
+  /** Label of the phone back bar above the detail: the list's name (e.g. "People"). */
   detailTitle?: string;
   /** Called by the phone back bar: clear the selection. */
   onCloseDetail: () => void;
@@ -27,6 +26,7 @@ export interface SplitViewProps {
 /**
  * List and detail: side by side at ≥ 1024 px (list column 380 px, detail fills the rest); on phones
  * the list shows until something is selected, then the detail replaces it with a back bar.
+ * The wide detail pane pads its content; detail components add no outer padding of their own.
  * Selection state stays with the caller, so a screen can keep it in its own state or the URL.
  */
 export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholder, listLabel = 'List', detailLabel = 'Details' }: SplitViewProps) {
@@ -37,7 +37,7 @@ export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholde
         <ScrollView style={styles.listPane} contentContainerStyle={styles.paneContent} aria-label={listLabel} role="region">
           {list}
         </ScrollView>
-        <ScrollView style={styles.detailPane} contentContainerStyle={styles.paneContent} aria-label={detailLabel} role="region">
+        <ScrollView style={styles.detailPane} contentContainerStyle={styles.detailContent} aria-label={detailLabel} role="region">
           {detail ?? placeholder ?? null}
         </ScrollView>
       </View>
@@ -50,10 +50,7 @@ export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholde
           role="button"
           aria-label="Back to the list"
           onPress={onCloseDetail}
-          style={(state) => {
-        const { focused } = webPressState(state);
-        return [styles.back, focused && styles.focused];
-      }}
+          style={styles.back}
         >
           <Icon name="chevron-left" size={20} color={colors.accent} />
           <Text variant="label" tone="accent" numberOfLines={1} style={styles.backText}>
@@ -89,8 +86,8 @@ const styles = StyleSheet.create({
     borderColor: colors.border,
   },
   paneContent: { padding: spacing.xs, gap: spacing.md, flexGrow: 1 },
+  detailContent: { padding: spacing.xl, gap: spacing.lg, flexGrow: 1 },
   phoneContent: { gap: spacing.md, paddingBottom: spacing.xl },
   back: { flexDirection: 'row', alignItems: 'center', gap: spacing.xs, minHeight: 40, alignSelf: 'flex-start', paddingRight: spacing.md, marginBottom: spacing.sm },
   backText: { fontFamily: 'Inter_600SemiBold' },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
 });

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Modal, Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Modal, Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 import { Avatar } from '@/components/ui/Avatar';
@@ -34,8 +34,8 @@ export function UserMenu({ user, compact = false, onChangePassword, onSignOut }:
         aria-expanded={open}
         onPress={() => setOpen(true)}
         style={(state) => {
-        const { hovered, focused } = webPressState(state);
-        return [styles.chip, hovered && styles.chipHover, focused && styles.focused];
+        const { hovered } = webPressState(state);
+        return [styles.chip, hovered && styles.chipHover];
       }}
       >
         <Avatar name={user.name} size={30} />
@@ -101,7 +101,6 @@ const styles = StyleSheet.create({
     maxWidth: 240,
   },
   chipHover: { backgroundColor: colors.raised },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
   who: { flexShrink: 1, minWidth: 0 },
   whoCompact: { maxWidth: 130 },
   roleCompact: { fontSize: 11, lineHeight: 14 },

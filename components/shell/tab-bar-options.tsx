@@ -14,7 +14,7 @@ export function tabNavigatorOptions(wide: boolean): BottomTabNavigationOptions {
     tabBarActiveBackgroundColor: wide ? colors.accentTint : 'transparent',
     tabBarLabelStyle: { fontFamily: fonts.medium, fontSize: wide ? 14 : 11 },
     tabBarStyle: wide
-      ? { backgroundColor: colors.background, borderRightColor: colors.border, width: 220, paddingTop: spacing.md }
+      ? { backgroundColor: colors.background, borderRightColor: colors.border, width: 220, minWidth: 220, paddingTop: spacing.md }
       : { backgroundColor: colors.surface, borderTopColor: colors.border, height: 62, paddingTop: spacing.xs, paddingBottom: spacing.sm },
     tabBarItemStyle: wide
       ? { borderRadius: 10, marginHorizontal: spacing.sm, marginVertical: 2, justifyContent: 'flex-start', paddingHorizontal: spacing.md, maxHeight: 44 }

@@ -4,6 +4,7 @@ import { formatDateTime } from '@/components/format/date-time';
 import { colors, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { AuditEvent } from '@/shared/contracts/team';
+import { auditActionLabel } from './audit-action-labels';
 
 /** Props of {@link AuditEventDetail}. */
 export interface AuditEventDetailProps {
@@ -22,7 +23,7 @@ export function AuditEventDetail({ event }: AuditEventDetailProps) {
   return (
     <View style={styles.wrap}>
       <Text variant="title" role="heading" aria-level={2}>
-        {event.action}
+        {auditActionLabel(event.action)}
       </Text>
       <View style={styles.table}>
         {rows.map(([k, v]) => (
@@ -49,7 +50,7 @@ export function AuditEventDetail({ event }: AuditEventDetailProps) {
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.lg, padding: spacing.lg },
+  wrap: { gap: spacing.lg },
   table: { gap: spacing.sm },
   row: { flexDirection: 'row', gap: spacing.md },
   key: { width: 110 },

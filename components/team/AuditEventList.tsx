@@ -11,6 +11,7 @@ import { ListRow } from '@/components/ui/ListRow';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
 import type { AuditEvent } from '@/shared/contracts/team';
+import { auditActionLabel } from './audit-action-labels';
 
 /** Props of {@link AuditEventList}. */
 export interface AuditEventListProps {
@@ -35,9 +36,9 @@ export function AuditEventList({ filters, selectedId, onSelect }: AuditEventList
       {events.data.map((e) => (
         <ListRow
           key={e.id}
-          title={e.action}
+          title={auditActionLabel(e.action)}
           subtitle={`${formatDateTime(e.at)} · ${e.actorEmail ?? 'system'}`}
-          trailing={<Badge label={e.objectType} />}
+          trailing={<Badge label={e.action} />}
           selected={e.id === selectedId}
           onPress={() => onSelect(e)}
           accessibilityLabel={`${e.action} by ${e.actorEmail ?? 'system'} at ${formatDateTime(e.at)}`}

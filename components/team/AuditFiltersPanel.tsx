@@ -94,7 +94,7 @@ export function AuditFiltersPanel({ value, onApply }: AuditFiltersPanelProps) {
 
 const styles = StyleSheet.create({
   grid: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.md },
-  cell: { flexGrow: 1, flexBasis: 180, minWidth: 150 },
-  narrow: { flexBasis: 120 },
+  cell: { flexGrow: 1, flexBasis: 120, minWidth: 120 },
+  narrow: { flexBasis: 110 },
   actions: { flexDirection: 'row', gap: spacing.sm, flexWrap: 'wrap' },
 });

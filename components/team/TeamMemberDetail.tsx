@@ -133,7 +133,7 @@ export function TeamMemberDetail({ userId }: TeamMemberDetailProps) {
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.lg, padding: spacing.lg },
+  wrap: { gap: spacing.lg },
   head: { flexDirection: 'row', gap: spacing.lg, alignItems: 'flex-start', paddingBottom: spacing.sm, borderBottomWidth: 1, borderBottomColor: colors.border },
   titles: { flex: 1, gap: spacing.xs },
   badges: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xs, marginTop: spacing.xs },

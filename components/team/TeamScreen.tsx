@@ -1,7 +1,6 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { useTeamUsersQuery } from '@/components/api/use-team';
 import { SplitView } from '@/components/layout/SplitView';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { spacing } from '@/components/theme';
@@ -34,8 +33,6 @@ export function TeamScreen() {
   const [inviting, setInviting] = useState(false);
   const [event, setEvent] = useState<AuditEvent | null>(null);
   const [auditForm, setAuditForm] = useState<AuditFilterForm>(EMPTY_AUDIT_FILTER_FORM);
-  const users = useTeamUsersQuery();
-  const selectedUser = users.data?.find((u) => u.id === selectedUserId);
 
   const openInvite = () => {
     setSection('invitations');
@@ -59,7 +56,7 @@ export function TeamScreen() {
           detailLabel="Person"
           list={<PeopleList selectedId={selectedUserId} onSelect={setSelectedUserId} />}
           detail={selectedUserId ? <TeamMemberDetail key={selectedUserId} userId={selectedUserId} /> : null}
-          detailTitle={selectedUser?.name ?? 'People'}
+          detailTitle="People"
           onCloseDetail={() => setSelectedUserId(null)}
           placeholder={<EmptyState icon="user" title="Select a person" body="Pick someone on the left to change their role or their access." />}
         />
@@ -75,10 +72,10 @@ export function TeamScreen() {
               <InvitationList />
             </View>
           }
-          detail={inviting && !wide ? <View style={styles.formPad}><InviteForm /></View> : null}
+          detail={inviting && !wide ? <InviteForm /> : null}
           detailTitle="Invitations"
           onCloseDetail={() => setInviting(false)}
-          placeholder={<View style={styles.formPad}><InviteForm /></View>}
+          placeholder={<InviteForm />}
         />
       ) : null}
 
@@ -103,6 +100,5 @@ export function TeamScreen() {
 const styles = StyleSheet.create({
   switcher: { maxWidth: 460 },
   listStack: { gap: spacing.md },
-  formPad: { padding: spacing.lg },
   auditStack: { flex: 1, minHeight: 0, gap: spacing.md },
 });

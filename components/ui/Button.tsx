@@ -44,6 +44,7 @@ export function Button({
 }: ButtonProps) {
   const p = palette[variant];
   const inactive = disabled || loading;
+  const fg = inactive && variant === 'primary' && !loading ? colors.muted : p.fg;
   return (
     <Pressable
       role="button"
@@ -54,13 +55,12 @@ export function Button({
       onPress={onPress}
       testID={testID}
       style={(state) => {
-        const { pressed, hovered, focused } = webPressState(state);
+        const { pressed, hovered } = webPressState(state);
         return [
         styles.base,
         size === 'sm' ? styles.sm : styles.md,
         { backgroundColor: pressed || hovered ? p.pressed : p.bg, borderColor: p.border },
-        focused && styles.focused,
-        inactive && styles.inactive,
+        inactive && (variant === 'primary' && !loading ? styles.inactivePrimary : styles.inactive),
         block && styles.block,
         style,
       ];
@@ -68,11 +68,11 @@ export function Button({
     >
       <View style={styles.row}>
         {loading ? (
-          <ActivityIndicator size="small" color={p.fg} />
+          <ActivityIndicator size="small" color={fg} />
         ) : icon ? (
-          <Icon name={icon} size={size === 'sm' ? 15 : 17} color={p.fg} />
+          <Icon name={icon} size={size === 'sm' ? 15 : 17} color={fg} />
         ) : null}
-        <Text variant="label" style={{ color: p.fg, fontFamily: 'Inter_600SemiBold' }} numberOfLines={1}>
+        <Text variant="label" style={{ color: fg, fontFamily: 'Inter_600SemiBold' }} numberOfLines={1}>
           {label}
         </Text>
       </View>
@@ -85,7 +85,8 @@ const styles = StyleSheet.create({
   md: { minHeight: layout.touchTarget, paddingHorizontal: spacing.lg },
   sm: { minHeight: 34, paddingHorizontal: spacing.md },
   row: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid', outlineOffset: 2 } as ViewStyle,
   inactive: { opacity: 0.5 },
+  // A disabled amber button reads as muddy brown: show it as a quiet outline instead.
+  inactivePrimary: { backgroundColor: colors.raised, borderColor: colors.border, opacity: 0.8 },
   block: { alignSelf: 'stretch' },
 });

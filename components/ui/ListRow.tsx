@@ -1,5 +1,5 @@
 import type { ReactNode } from 'react';
-import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 import { Icon } from './Icon';
@@ -59,12 +59,11 @@ export function ListRow({ title, subtitle, leading, trailing, selected = false, 
       onPress={onPress}
       testID={testID}
       style={(state) => {
-        const { hovered, focused } = webPressState(state);
+        const { hovered } = webPressState(state);
         return [
         styles.row,
         hovered && styles.hovered,
         selected && styles.selected,
-        focused && styles.focused,
       ];
       }}
     >
@@ -87,7 +86,6 @@ const styles = StyleSheet.create({
   },
   hovered: { backgroundColor: colors.surface },
   selected: { backgroundColor: colors.raised, borderColor: colors.borderStrong },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
   text: { flex: 1, minWidth: 0, gap: 1 },
   trailing: { flexDirection: 'row', gap: spacing.xs, alignItems: 'center' },
 });

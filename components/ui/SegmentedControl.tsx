@@ -1,4 +1,4 @@
-import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 import { Text } from './Text';
@@ -50,11 +50,10 @@ export function SegmentedControl<V extends string>({
               disabled={disabled}
               onPress={() => onChange(o.value)}
               style={(state) => {
-        const { hovered, focused } = webPressState(state);
+        const { hovered } = webPressState(state);
         return [
                 styles.segment,
                 selected ? styles.selected : hovered ? styles.hovered : null,
-                focused && styles.focused,
               ];
       }}
             >
@@ -91,10 +90,9 @@ const styles = StyleSheet.create({
     alignItems: 'center',
     justifyContent: 'center',
     borderRadius: radii.sm + 1,
-    paddingHorizontal: spacing.sm,
+    paddingHorizontal: spacing.xs,
   },
   selected: { backgroundColor: colors.raised, borderWidth: 1, borderColor: colors.borderStrong },
   selectedText: { color: colors.accent, fontFamily: 'Inter_600SemiBold' },
   hovered: { backgroundColor: colors.surface },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
 });

@@ -1,0 +1,5 @@
+import { UploadScreen } from '@/components/crew/UploadScreen';
+
+export default function CrewUploadRoute() {
+  return <UploadScreen />;
+}

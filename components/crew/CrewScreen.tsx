@@ -1,0 +1,68 @@
+import { useLocalSearchParams, useRouter } from 'expo-router';
+import { useState } from 'react';
+
+import { useCrewMemberQuery } from '@/components/api/use-crew';
+import { useSessionQuery } from '@/components/api/use-session';
+import { SplitView } from '@/components/layout/SplitView';
+import { Button } from '@/components/ui/Button';
+import { EmptyState } from '@/components/ui/EmptyState';
+import { Screen } from '@/components/ui/Screen';
+import { Sheet } from '@/components/ui/Sheet';
+import { CrewList } from './CrewList';
+import { MemberDetail, type MemberView } from './MemberDetail';
+import { NewMemberForm } from './NewMemberForm';
+
+const VIEWS: readonly MemberView[] = ['profile', 'history', 'edit'];
+
+/**
+ * The Crew tab: crew list with search beside the selected member's profile (wide screens), or the
+ * list then the member (phones). The selection and section live in the URL (?member=…&view=…), so
+ * reloads and links keep them. A trainee sees only their own member, opened directly.
+ */
+export function CrewScreen() {
+  const router = useRouter();
+  const params = useLocalSearchParams<{ member?: string; view?: string }>();
+  const session = useSessionQuery();
+  const user = session.data;
+  const canEdit = user?.role === 'planner' || user?.role === 'admin';
+  const [adding, setAdding] = useState(false);
+  const selected = params.member ?? (user?.role === 'trainee' ? (user.crewMemberId ?? null) : null);
+  const view: MemberView = VIEWS.includes(params.view as MemberView) ? (params.view as MemberView) : 'profile';
+  const member = useCrewMemberQuery(selected);
+
+  const select = (id: string | null, next: MemberView = 'profile') => router.setParams({ member: id ?? undefined, view: id ? next : undefined });
+
+  return (
+    <Screen
+      title="Crew"
+      subtitle="Crew members and their inertia profiles"
+      scroll={false}
+      actions={
+        canEdit ? (
+          <>
+            <Button label="Upload" icon="upload" size="sm" variant="secondary" onPress={() => router.push('/crew/upload')} />
+            <Button label="New crew member" icon="user-plus" size="sm" onPress={() => setAdding(true)} />
+          </>
+        ) : null
+      }
+    >
+      <SplitView
+        listLabel="Crew members"
+        detailLabel="Crew member"
+        list={<CrewList selectedId={selected} onSelect={(id) => select(id)} />}
+        detail={selected ? <MemberDetail key={selected} crewMemberId={selected} view={view} onView={(v) => select(selected, v)} canEdit={canEdit} /> : null}
+        detailTitle={member.data?.member.name ?? 'Crew'}
+        onCloseDetail={() => select(null)}
+        placeholder={<EmptyState icon="user" title="Select a crew member" body="Pick someone on the left to see their inertia profile, its history and the derived segment table." />}
+      />
+      <Sheet visible={adding} onClose={() => setAdding(false)} title="New crew member">
+        <NewMemberForm
+          onCreated={(id) => {
+            setAdding(false);
+            select(id, 'edit');
+          }}
+        />
+      </Sheet>
+    </Screen>
+  );
+}

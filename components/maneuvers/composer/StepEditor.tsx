@@ -1,0 +1,76 @@
+import { useForm } from 'react-hook-form';
+import { StyleSheet, View } from 'react-native';
+
+import { colors, radii, spacing } from '@/components/theme';
+import { Button } from '@/components/ui/Button';
+import { Select } from '@/components/ui/Select';
+import { Text } from '@/components/ui/Text';
+import { cueFor } from '@/shared/primitives/primitive-cues';
+import { PRIMITIVE_LABELS, defaultPrimitive, type Primitive, type PrimitiveKind } from '@/shared/primitives/primitive-schemas';
+import { primitiveToForm, type StepFormValues } from './primitive-fields';
+import { StepForm } from './StepForm';
+import { stepFormResolver, tryParseStep } from './step-form-resolver';
+
+const KIND_CHOICES = (Object.keys(PRIMITIVE_LABELS) as PrimitiveKind[]).map((k) => ({ value: k, label: PRIMITIVE_LABELS[k] }));
+
+/** Props of {@link StepEditor}. */
+export interface StepEditorProps {
+  /** The step being edited (a new step starts from the kind's defaults). */
+  initial: Primitive;
+  /** 1-based position, for the heading. */
+  position: number;
+  /** Called with the validated step. */
+  onApply: (step: Primitive) => void;
+  onCancel: () => void;
+  /** Whether the buttons sit inside the editor (inline, wide screens) — the sheet has its own footer. */
+  inlineButtons?: boolean;
+  /** Register the form's submit so a sheet footer can call it. */
+  submitRef?: { current: (() => void) | null };
+}
+
+/**
+ * Edits one step: its kind and the kind's fields (react-hook-form, validated by the shared primitive
+ * schema), with a live preview of the trainee's cue.
+ */
+export function StepEditor({ initial, position, onApply, onCancel, inlineButtons = false, submitRef }: StepEditorProps) {
+  const { control, handleSubmit, watch, reset, formState } = useForm<StepFormValues, unknown, Primitive>({
+    resolver: stepFormResolver,
+    defaultValues: primitiveToForm(initial),
+    mode: 'onTouched',
+  });
+  const values = watch();
+  const preview = tryParseStep(values);
+  const apply = handleSubmit((step) => onApply(step));
+  if (submitRef) submitRef.current = () => void apply();
+  return (
+    <View style={styles.wrap} testID="step-editor">
+      <Select<PrimitiveKind>
+        label={`Step ${position} kind`}
+        options={KIND_CHOICES}
+        value={values.kind}
+        onChange={(k) => k && reset(primitiveToForm(defaultPrimitive(k)))}
+      />
+      <StepForm control={control} values={values} errors={formState.errors} />
+      <View style={styles.cue} role="status" aria-live="polite" aria-label="Cue preview">
+        <Text variant="overline" tone="muted">
+          Cue the trainee reads
+        </Text>
+        <Text testID="cue-preview" tone={preview ? 'default' : 'muted'}>
+          {preview ? cueFor(preview) : 'Fix the fields above to see the cue.'}
+        </Text>
+      </View>
+      {inlineButtons ? (
+        <View style={styles.buttons}>
+          <Button label="Cancel" variant="secondary" onPress={onCancel} />
+          <Button label="Apply step" icon="check" onPress={() => void apply()} />
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: spacing.lg },
+  cue: { padding: spacing.md, borderRadius: radii.md, backgroundColor: colors.raised, gap: spacing.xs },
+  buttons: { flexDirection: 'row', justifyContent: 'flex-end', gap: spacing.sm },
+});
