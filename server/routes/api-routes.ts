@@ -8,6 +8,8 @@ import { crewRouter } from './crew.ts';
 import { suitsRouter } from './suits.ts';
 import { motionRouter } from './motion.ts';
 import { rehearsalsRouter } from './rehearsals.ts';
+import { reviewsRouter } from './reviews.ts';
+import { sequencesRouter } from './sequences.ts';
 import { teamRouter } from './team.ts';
 import { uploadsRouter } from './uploads.ts';
 
@@ -28,4 +30,6 @@ export const API_AREAS: ApiArea[] = [
   { area: 'uploads', path: '/uploads', router: uploadsRouter },
   { area: 'motion', path: '/motion', router: motionRouter },
   { area: 'rehearsals', path: '/rehearsals', router: rehearsalsRouter },
+  { area: 'sequences', path: '/sequences', router: sequencesRouter },
+  { area: 'reviews', path: '/reviews', router: reviewsRouter },
 ];

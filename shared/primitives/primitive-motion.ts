@@ -22,7 +22,7 @@ export type PrimitiveMotion =
   /** Nothing moves. */
   | { type: 'pause'; duration: number };
 
-const sidesOf = (which: 'left' | 'right' | 'both'): Array<'l' | 'r'> => (which === 'both' ? ['l', 'r'] : [which === 'left' ? 'l' : 'r']);
+const sidesOf = (which: 'left' | 'right' | 'both'): ('l' | 'r')[] => (which === 'both' ? ['l', 'r'] : [which === 'left' ? 'l' : 'r']);
 
 /** Shoulder angles (flexion, abduction) at an arm orbit's cone centre, degrees. */
 export function armOrbitCentre(p: ArmOrbit): { flex: number; abd: number } {

@@ -1,0 +1,57 @@
+/**
+ * The PostgreSQL-backed job queue (pg-boss 12, in the app's own database): re-verification of
+ * sequence versions after a profile change. `startJobQueue` creates the queue and, unless told not
+ * to, starts a worker in this process; more worker processes on more machines can call it too.
+ */
+import { PgBoss } from 'pg-boss';
+
+import type { AppContext, JobQueue } from '../app-context.ts';
+import { reverifyVersion, type ReverifyJob } from './reverify-version.ts';
+
+/** Queue name of re-verification jobs. */
+export const REVERIFY_QUEUE = 'sequence-reverification';
+/** Retries after a failed attempt (so up to 1 + this many attempts), with exponential backoff from 2 s. */
+export const REVERIFY_RETRY_LIMIT = 3;
+
+/** A running queue: the JobQueue the routes use, plus shutdown. */
+export interface RunningJobQueue extends JobQueue {
+  boss: PgBoss;
+  stop(): Promise<void>;
+}
+
+/** Options for startJobQueue. */
+export interface JobQueueOptions {
+  /** Start a worker in this process (default true). */
+  worker?: boolean;
+  /** Retry delay base, seconds (default 2; tests use 1). */
+  retryDelayS?: number;
+}
+
+/** Starts pg-boss on the app database, creates the queue, optionally works it, and returns the handle. */
+export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {}): Promise<RunningJobQueue> {
+  const boss = new PgBoss({ connectionString: ctx.config.DATABASE_URL, useListenNotify: true });
+  boss.on('error', (err) => ctx.logger.error({ err }, 'job queue error'));
+  await boss.start();
+  await boss.createQueue(REVERIFY_QUEUE, {
+    retryLimit: REVERIFY_RETRY_LIMIT,
+    retryDelay: opts.retryDelayS ?? 2,
+    retryBackoff: true,
+    notify: true,
+  });
+  if (opts.worker !== false) {
+    await boss.work<ReverifyJob>(REVERIFY_QUEUE, { batchSize: 1, pollingIntervalSeconds: 2 }, async (jobs) => {
+      for (const job of jobs) await reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT });
+    });
+  }
+  return {
+    boss,
+    async enqueueReverification(sequenceVersionIds, toProfileVersionId) {
+      for (const sequenceVersionId of sequenceVersionIds) {
+        await boss.send(REVERIFY_QUEUE, { sequenceVersionId, toProfileVersionId } satisfies ReverifyJob);
+      }
+    },
+    async stop() {
+      await boss.stop({ graceful: true, timeout: 10_000 });
+    },
+  };
+}

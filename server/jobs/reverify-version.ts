@@ -1,0 +1,81 @@
+/**
+ * The re-verification job: recomputes one sequence version's compiled steps on a newer profile
+ * version's body and records how far the final attitude moved (`attitudeShiftDeg`) in
+ * `reverifications`. The version itself is frozen (it may be cleared); only the record changes.
+ * Throws on failure so the queue retries; the last attempt marks the record `failed`.
+ */
+import { and, desc, eq, ne } from 'drizzle-orm';
+
+import { profileVersions, reverifications, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import { sequenceTargetSchema, type VerificationReport } from '../../shared/contracts/maneuver.ts';
+import { sequenceSchema } from '../../shared/contracts/sequence.ts';
+import { quatAngleBetween } from '../../shared/math/quaternion.ts';
+import type { AppContext } from '../app-context.ts';
+import { recordAudit } from '../audit/record-audit.ts';
+import { storedCompiled } from '../maneuvers/stored-compiled.ts';
+import { verifySequence } from '../maneuvers/verify-sequence.ts';
+
+/** Job payload. */
+export interface ReverifyJob {
+  sequenceVersionId: string;
+  toProfileVersionId: string;
+}
+
+const DEG = 180 / Math.PI;
+
+/** Runs one re-verification; `attempt` counts retries already made (0 on the first run). */
+export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: { attempt: number; retryLimit: number }): Promise<void> {
+  const { db } = ctx;
+  const [v] = await db
+    .select({ v: sequenceVersions, target: sequences.target })
+    .from(sequenceVersions)
+    .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
+    .where(eq(sequenceVersions.id, job.sequenceVersionId));
+  if (!v) throw new Error(`sequence version ${job.sequenceVersionId} not found`);
+  const [profile] = await db.select().from(profileVersions).where(eq(profileVersions.id, job.toProfileVersionId));
+  if (!profile) throw new Error(`profile version ${job.toProfileVersionId} not found`);
+
+  // The record this job fills (created when the version was flagged; made here if missing).
+  let [record] = await db
+    .select()
+    .from(reverifications)
+    .where(and(eq(reverifications.sequenceVersionId, v.v.id), eq(reverifications.toProfileVersionId, profile.id), ne(reverifications.state, 'done')))
+    .orderBy(desc(reverifications.createdAt))
+    .limit(1);
+  if (!record) {
+    const [done] = await db.select({ id: reverifications.id }).from(reverifications)
+      .where(and(eq(reverifications.sequenceVersionId, v.v.id), eq(reverifications.toProfileVersionId, profile.id), eq(reverifications.state, 'done')));
+    if (done) return; // already recomputed (a duplicate job)
+    [record] = await db.insert(reverifications).values({ sequenceVersionId: v.v.id, fromProfileVersionId: v.v.profileVersionId, toProfileVersionId: profile.id }).returning();
+  }
+  await db.update(reverifications).set({ state: 'running', attempts: record.attempts + 1, error: null }).where(eq(reverifications.id, record.id));
+
+  try {
+    const sequence = sequenceSchema.parse(storedCompiled(v.v.compiled).sequence);
+    const target = sequenceTargetSchema.parse(v.target);
+    const report = await verifySequence({ body: profile.body as Body, sequence, target, profileVersionId: profile.id });
+    const old = v.v.report as VerificationReport | null;
+    const shift = old
+      ? quatAngleBetween([old.final.attitude.w, old.final.attitude.x, old.final.attitude.y, old.final.attitude.z],
+        [report.final.attitude.w, report.final.attitude.x, report.final.attitude.y, report.final.attitude.z]) * DEG
+      : null;
+    await db.transaction(async (tx) => {
+      await tx.update(reverifications)
+        .set({ state: 'done', attitudeShiftDeg: shift, report, finishedAt: new Date() })
+        .where(eq(reverifications.id, record.id));
+      await recordAudit(tx, {
+        actorId: null, action: 'sequence_version.reverified', objectType: 'sequence_version', objectId: v.v.id,
+        detail: { toProfileVersionId: profile.id, attitudeShiftDeg: shift, targetErrorDeg: report.target.errorDeg },
+      });
+    });
+  } catch (err) {
+    const message = err instanceof Error ? err.message : String(err);
+    const last = opts.attempt >= opts.retryLimit;
+    await db.update(reverifications)
+      .set({ state: last ? 'failed' : 'queued', error: message, finishedAt: last ? new Date() : null })
+      .where(eq(reverifications.id, record.id));
+    ctx.logger.warn({ err, job, attempt: opts.attempt }, 're-verification failed');
+    throw err;
+  }
+}

@@ -1,0 +1,47 @@
+/**
+ * Verification: runs the engine (in the worker pool, off the request thread) on a compiled
+ * sequence for a profile version's body and builds the report. Used when a version is saved and by
+ * the re-verification job.
+ */
+import type { Body } from '../../shared/contracts/body.ts';
+import type { SequenceTarget, VerificationReport } from '../../shared/contracts/maneuver.ts';
+import { type Sequence, stepDuration } from '../../shared/contracts/sequence.ts';
+import { SIMULATE_LIMITS } from '../../shared/contracts/simulate-request.ts';
+import { dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import type { SimulationPool } from '../engine/pool/simulation-pool.ts';
+import { defaultSimulationPool } from '../routes/simulate.ts';
+import { HttpError, badRequest } from '../http/http-error.ts';
+import { buildReport } from './build-report.ts';
+import { inputsHash } from './inputs-hash.ts';
+
+/** Sample rate of the report's plot series, Hz (modest: the report is stored with the version). */
+export const REPORT_RATE_HZ = 20;
+
+/** What to verify. */
+export interface VerifyInputs {
+  body: Body;
+  sequence: Sequence;
+  target: SequenceTarget;
+  profileVersionId: string;
+  /** The pool to run on (default: the process-wide pool). */
+  pool?: SimulationPool;
+}
+
+/** Runs the engine and returns the report; contract problems become a 400 naming the step. */
+export async function verifySequence({ body, sequence, target, profileVersionId, pool }: VerifyInputs): Promise<VerificationReport> {
+  const duration = sequence.steps.reduce((t, s) => t + stepDuration(s), 0);
+  if (duration > SIMULATE_LIMITS.maxDurationS) {
+    throw badRequest(`primitives: the sequence lasts ${duration.toFixed(1)} s; the limit is ${SIMULATE_LIMITS.maxDurationS} s`, 'primitives');
+  }
+  let reply;
+  try {
+    reply = await (pool ?? defaultSimulationPool()).run(body, sequence, { rateHz: REPORT_RATE_HZ });
+  } catch (err) {
+    throw new HttpError(503, 'verification_failed', `verification could not run: ${err instanceof Error ? err.message : String(err)}`);
+  }
+  if (reply.kind === 'invalid') {
+    const issue = reply.issues[0];
+    throw badRequest(`${reply.which}: ${issue.message}`, reply.which === 'sequence' ? 'primitives' : 'profile');
+  }
+  return buildReport({ result: reply.result, target, profileVersionId, dofs: dofInfoFromBody(body), inputsHash: inputsHash(body, sequence) });
+}

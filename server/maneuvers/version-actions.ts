@@ -1,0 +1,213 @@
+/**
+ * What planners and reviewers do to versions: save (compile, verify, supersede), submit, decide,
+ * comment. Every status change goes through the transition table and a guarded UPDATE
+ * (`WHERE status = <expected>`), so two concurrent requests cannot both move a version; every
+ * action writes an audit event in the same transaction.
+ */
+import { and, eq, inArray, isNull, lt, max, ne, or } from 'drizzle-orm';
+
+import type { Database } from '../../db/client.ts';
+import { crewMembers, reviews, sequences, sequenceVersions, users, type SequenceVersionRow } from '../../db/schema/index.ts';
+import type { SessionUser } from '../../shared/contracts/auth.ts';
+import type { VerificationReport } from '../../shared/contracts/maneuver.ts';
+import type { Sequence } from '../../shared/contracts/sequence.ts';
+import type { VersionStatus } from '../../shared/contracts/version-status.ts';
+import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import type { AppContext } from '../app-context.ts';
+import { recordAudit } from '../audit/record-audit.ts';
+import { publicUrl } from '../config.ts';
+import { badRequest, conflict, forbidden, notFound } from '../http/http-error.ts';
+import { currentProfile } from './current-profile.ts';
+import { requireAuthor } from './maneuver-access.ts';
+import { decisionMail, submissionMail } from './review-mail.ts';
+import { refusal, statusesAllowing, transition, type VersionEvent } from './status-machine.ts';
+import type { StoredCompiled } from './stored-compiled.ts';
+import { verifySequence } from './verify-sequence.ts';
+import { readTarget } from './version-views.ts';
+
+type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
+
+/** 409 `invalid_transition` unless the table allows `event` from `from`; returns the new status. */
+export function nextStatusOr409(from: VersionStatus, event: VersionEvent): VersionStatus {
+  const to = transition(from, event);
+  if (!to) throw conflict(refusal(from, event), 'invalid_transition');
+  return to;
+}
+
+/** Moves one version from `from` by `event`, only if it is still in `from` (else 409). */
+async function moveVersion(tx: Tx, v: SequenceVersionRow, event: VersionEvent, extra: Partial<SequenceVersionRow> = {}): Promise<VersionStatus> {
+  const to = nextStatusOr409(v.status, event);
+  const updated = await tx.update(sequenceVersions).set({ ...extra, status: to })
+    .where(and(eq(sequenceVersions.id, v.id), eq(sequenceVersions.status, v.status)))
+    .returning({ id: sequenceVersions.id });
+  if (!updated.length) throw conflict('This version changed while you were working on it; reload it and try again.', 'stale_version');
+  return to;
+}
+
+/** Compiles primitives for a body; 400 naming the first bad primitive. */
+export function compileFor(primitives: Primitive[], body: Body) {
+  const compiled = compilePrimitives(primitives, dofInfoFromBody(body));
+  if (compiled.errors.length) throw badRequest(compiled.errors[0].message, compiled.errors[0].field);
+  return compiled;
+}
+
+/** Cue per compiled step: the primitive's cue; blends say what they prepare. */
+function stepCues(primitives: Primitive[], stepMap: StoredCompiled['stepMap']): string[] {
+  return stepMap.map((s) => (s.role === 'blend' ? `get ready: ${cueFor(primitives[s.primitive])}` : cueFor(primitives[s.primitive])));
+}
+
+/** Saves version N+1 of a sequence: compile, verify on the current profile, supersede older ones. */
+export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId: string, input: { primitives: Primitive[]; baseVersion: number; note: string }): Promise<string> {
+  requireAuthor(user);
+  const { db } = ctx;
+  const [seq] = await db.select().from(sequences).where(eq(sequences.id, sequenceId));
+  if (!seq) throw notFound('Sequence');
+  const latestNow = async (q: Pick<Database, 'select'>) =>
+    (await q.select({ n: max(sequenceVersions.version) }).from(sequenceVersions).where(eq(sequenceVersions.sequenceId, sequenceId)))[0]?.n ?? 0;
+  const staleCheck = (latest: number) => {
+    if (input.baseVersion !== latest) {
+      throw conflict(`This maneuver changed while you were editing: you started from version ${input.baseVersion}, but the latest is version ${latest}. Nothing was saved; reload and apply your change again.`, 'stale_version');
+    }
+  };
+  // Cheap checks first: no simulation for a stale editor.
+  staleCheck(await latestNow(db));
+  const profile = await currentProfile(db, seq.crewMemberId);
+  const body = profile.body as Body;
+  const compiled = compileFor(input.primitives, body);
+  const target = readTarget(seq.target);
+  const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id });
+  const stored: StoredCompiled = { sequence: compiled.sequence as StoredCompiled['sequence'], cues: stepCues(input.primitives, compiled.stepMap), stepMap: compiled.stepMap };
+
+  return db.transaction(async (tx) => {
+    // Serialise saves of one sequence on its row, then re-check the base version.
+    await tx.select({ id: sequences.id }).from(sequences).where(eq(sequences.id, sequenceId)).for('update');
+    const latest = await latestNow(tx);
+    staleCheck(latest);
+    const [row] = await tx.insert(sequenceVersions).values({
+      sequenceId, version: latest + 1, primitives: input.primitives, compiled: stored, profileVersionId: profile.id,
+      status: 'drafting', report, engineVersion: report.engineVersion, inputsHash: report.inputsHash, authorId: user.id, note: input.note,
+    }).returning();
+    // Older versions the save supersedes (a once-cleared recheck version stays until its successor is cleared).
+    const older = await tx.select().from(sequenceVersions).where(and(
+      eq(sequenceVersions.sequenceId, sequenceId), lt(sequenceVersions.version, row.version),
+      inArray(sequenceVersions.status, statusesAllowing('supersede_by_save')),
+      or(ne(sequenceVersions.status, 'recheck'), isNull(sequenceVersions.clearedAt)),
+    ));
+    for (const o of older) {
+      await moveVersion(tx, o, 'supersede_by_save');
+      await recordAudit(tx, { actorId: user.id, action: 'sequence_version.replace', objectType: 'sequence_version', objectId: o.id, detail: { from: o.status, byVersion: row.version } });
+    }
+    await recordAudit(tx, {
+      actorId: user.id, action: 'sequence_version.save', objectType: 'sequence_version', objectId: row.id,
+      detail: { sequenceId, version: row.version, profileVersionId: profile.id, engineVersion: report.engineVersion, inputsHash: report.inputsHash, targetErrorDeg: report.target.errorDeg },
+    });
+    return row.id;
+  });
+}
+
+/** Loads a version with its sequence and crew member; 404 when missing. */
+async function loadForAction(db: Database, versionId: string) {
+  const [row] = await db
+    .select({ v: sequenceVersions, s: sequences, crewName: crewMembers.name, currentVersion: crewMembers.currentVersion })
+    .from(sequenceVersions)
+    .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
+    .innerJoin(crewMembers, eq(crewMembers.id, sequences.crewMemberId))
+    .where(eq(sequenceVersions.id, versionId));
+  if (!row) throw notFound('Sequence version');
+  return row;
+}
+
+/** Sends mail without failing the action that already committed (the failure is logged). */
+async function sendQuietly(ctx: AppContext, mail: { to: string; subject: string; text: string }) {
+  try {
+    await ctx.mailer.send(mail);
+  } catch (err) {
+    ctx.logger.error({ err, to: mail.to }, 'review mail failed');
+  }
+}
+
+/** drafting → under_review by the author (or an admin); e-mails every reviewer. */
+export async function submitVersion(ctx: AppContext, user: SessionUser, versionId: string, note?: string): Promise<void> {
+  requireAuthor(user);
+  const { db } = ctx;
+  const row = await loadForAction(db, versionId);
+  if (row.v.authorId !== user.id && user.role !== 'admin') throw forbidden('Only the author (or an admin) submits a version.');
+  nextStatusOr409(row.v.status, 'submit');
+  // The bound profile must still be current: otherwise the report describes another body.
+  const profile = await currentProfile(db, row.s.crewMemberId);
+  if (profile.id !== row.v.profileVersionId) {
+    throw conflict(`${row.crewName}'s profile changed since this version was verified; save a new version to verify it on profile version ${profile.version}.`, 'profile_changed');
+  }
+  if (!row.v.report) throw conflict('This version has no verification report.', 'not_verified');
+  await db.transaction(async (tx) => {
+    await moveVersion(tx, row.v, 'submit', { submittedAt: new Date() });
+    await recordAudit(tx, { actorId: user.id, action: 'sequence_version.submit', objectType: 'sequence_version', objectId: versionId, detail: { sequenceId: row.s.id, version: row.v.version, note: note ?? '' } });
+  });
+  const reviewers = await db.select().from(users).where(and(eq(users.role, 'reviewer'), eq(users.disabled, false)));
+  for (const r of reviewers) {
+    await sendQuietly(ctx, submissionMail({
+      to: r.email, reviewerName: r.name, authorName: user.name, sequenceName: row.s.name, version: row.v.version,
+      crewMemberName: row.crewName, versionId, baseUrl: publicUrl(ctx.config),
+    }));
+  }
+}
+
+/** under_review → cleared | sent_back by a reviewer who is not the author; e-mails the author. */
+export async function decideVersion(ctx: AppContext, user: SessionUser, versionId: string, decision: 'clear' | 'send_back', comment: string): Promise<void> {
+  const { db } = ctx;
+  const row = await loadForAction(db, versionId);
+  if (row.v.authorId === user.id) throw forbidden('You authored this version: another reviewer must decide on it.');
+  nextStatusOr409(row.v.status, decision);
+  const report = row.v.report as VerificationReport | null;
+  await db.transaction(async (tx) => {
+    const now = new Date();
+    if (decision === 'clear') {
+      await moveVersion(tx, row.v, 'clear', { clearedBy: user.id, clearedAt: now });
+      // The newly cleared version takes over from older cleared / recheck ones.
+      const older = await tx.select().from(sequenceVersions).where(and(
+        eq(sequenceVersions.sequenceId, row.s.id), lt(sequenceVersions.version, row.v.version),
+        inArray(sequenceVersions.status, statusesAllowing('supersede_by_clear')),
+      ));
+      for (const o of older) {
+        await moveVersion(tx, o, 'supersede_by_clear');
+        await recordAudit(tx, { actorId: user.id, action: 'sequence_version.replace', objectType: 'sequence_version', objectId: o.id, detail: { from: o.status, byVersion: row.v.version } });
+      }
+    } else {
+      await moveVersion(tx, row.v, 'send_back');
+    }
+    await tx.insert(reviews).values({
+      sequenceVersionId: versionId, reviewerId: user.id, decision, comment,
+      profileVersionId: row.v.profileVersionId, engineVersion: report?.engineVersion ?? row.v.engineVersion,
+    });
+    await recordAudit(tx, {
+      actorId: user.id, action: decision === 'clear' ? 'sequence_version.clear' : 'sequence_version.send_back', objectType: 'sequence_version', objectId: versionId,
+      detail: { sequenceId: row.s.id, version: row.v.version, profileVersionId: row.v.profileVersionId, engineVersion: row.v.engineVersion, comment },
+    });
+  });
+  if (row.v.authorId) {
+    const [authorRow] = await db.select().from(users).where(eq(users.id, row.v.authorId));
+    if (authorRow) {
+      await sendQuietly(ctx, decisionMail({
+        to: authorRow.email, authorName: authorRow.name, reviewerName: user.name, sequenceName: row.s.name, version: row.v.version,
+        decision, comment, sequenceId: row.s.id, versionId, baseUrl: publicUrl(ctx.config),
+      }));
+    }
+  }
+}
+
+/** Adds a reviewer's comment without a decision. */
+export async function commentVersion(ctx: AppContext, user: SessionUser, versionId: string, comment: string): Promise<void> {
+  const row = await loadForAction(ctx.db, versionId);
+  await ctx.db.transaction(async (tx) => {
+    await tx.insert(reviews).values({ sequenceVersionId: versionId, reviewerId: user.id, decision: 'comment', comment, profileVersionId: row.v.profileVersionId, engineVersion: row.v.engineVersion });
+    await recordAudit(tx, { actorId: user.id, action: 'sequence_version.comment', objectType: 'sequence_version', objectId: versionId, detail: { comment } });
+  });
+}
+
+/** Compiled sequence stored with a version (for tests and the acceptance check). */
+export function sequenceOf(stored: StoredCompiled): Sequence {
+  return stored.sequence as Sequence;
+}

@@ -1,0 +1,48 @@
+/**
+ * /api/reviews (reviewers and admins): the queue of versions under review, decisions and comments
+ * (shapes in shared/contracts/maneuver.ts). A reviewer never decides on a version they authored.
+ */
+import { eq, inArray } from 'drizzle-orm';
+import { Router } from 'express';
+import { z } from 'zod';
+
+import { sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { reviewCommentRequestSchema, reviewDecisionRequestSchema, type ReviewQueueItem } from '../../shared/contracts/maneuver.ts';
+import type { AppContext } from '../app-context.ts';
+import { validate } from '../http/validate.ts';
+import { commentVersion, decideVersion } from '../maneuvers/version-actions.ts';
+import { loadVersionDetail } from '../maneuvers/version-detail.ts';
+import { sequenceHeads, versionSummaries } from '../maneuvers/version-views.ts';
+
+const versionParams = z.object({ versionId: z.uuid('Not a valid id.') });
+
+/** Builds the router. */
+export function reviewsRouter(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+
+  router.get('/queue', async (_req, res) => {
+    const { summaries } = await versionSummaries(db, eq(sequenceVersions.status, 'under_review'));
+    const heads = summaries.length ? await sequenceHeads(db, inArray(sequences.id, summaries.map((s) => s.sequenceId))) : [];
+    const byId = new Map(heads.map((h) => [h.id, h]));
+    const items: ReviewQueueItem[] = summaries
+      .map((version) => ({ version, sequence: byId.get(version.sequenceId)! }))
+      .sort((a, b) => (a.version.submittedAt ?? '').localeCompare(b.version.submittedAt ?? ''));
+    res.json({ items });
+  });
+
+  router.post('/:versionId/decision', validate({ params: versionParams, body: reviewDecisionRequestSchema }), async (req, res) => {
+    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
+    const input = req.body as z.infer<typeof reviewDecisionRequestSchema>;
+    await decideVersion(ctx, req.user!, versionId, input.decision, input.comment);
+    res.json(await loadVersionDetail(db, req.user!, versionId));
+  });
+
+  router.post('/:versionId/comments', validate({ params: versionParams, body: reviewCommentRequestSchema }), async (req, res) => {
+    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
+    await commentVersion(ctx, req.user!, versionId, (req.body as z.infer<typeof reviewCommentRequestSchema>).comment);
+    res.json(await loadVersionDetail(db, req.user!, versionId));
+  });
+
+  return router;
+}

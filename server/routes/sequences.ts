@@ -1,0 +1,151 @@
+/**
+ * /api/sequences: maneuvers, their versions, compile previews, submission and comparison
+ * (shapes in shared/contracts/maneuver.ts). The area is open to every role; object-level rules are
+ * in server/maneuvers/maneuver-access.ts.
+ */
+import { eq, inArray } from 'drizzle-orm';
+import { Router } from 'express';
+import { z } from 'zod';
+
+import { crewMembers, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import {
+  compileRequestSchema, createSequenceRequestSchema, saveVersionRequestSchema, submitRequestSchema, updateSequenceRequestSchema,
+  type CompileResponse, type SequenceDetail, type SequenceSummary, type VersionSummary,
+} from '../../shared/contracts/maneuver.ts';
+import { compilePrimitives, type DofInfo, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { DOF_NAMES } from '../../shared/model/dof-names.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import type { AppContext } from '../app-context.ts';
+import { recordAudit } from '../audit/record-audit.ts';
+import { badRequest, notFound } from '../http/http-error.ts';
+import { validate } from '../http/validate.ts';
+import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
+import { compareVersions } from '../maneuvers/compare-versions.ts';
+import { currentProfile } from '../maneuvers/current-profile.ts';
+import { subscribeToProfileChanges } from '../maneuvers/flag-recheck.ts';
+import { requireAuthor, visibleSequences, visibleVersions } from '../maneuvers/maneuver-access.ts';
+import { saveVersion, submitVersion } from '../maneuvers/version-actions.ts';
+import { loadVersionDetail } from '../maneuvers/version-detail.ts';
+import { allOf, sequenceHeads, versionSummaries } from '../maneuvers/version-views.ts';
+
+const uuid = z.uuid('Not a valid id.');
+const sequenceParams = z.object({ sequenceId: uuid });
+const versionParams = z.object({ versionId: uuid });
+const compareParams = z.object({ versionId: uuid, otherVersionId: uuid });
+const listQuery = z.object({ crewMemberId: uuid.optional() });
+
+/** The standard model's unsuited dof ranges (compile previews without a crew member). */
+const STANDARD_DOFS: DofInfo[] = DOF_NAMES.map((name) => ({ name, ...UNSUITED_DOF_RANGES[name] }));
+
+/** The cleared version trainees rehearse: the newest cleared, or a once-cleared recheck one. */
+function rehearsable(versions: VersionSummary[]): VersionSummary | null {
+  return versions.find((v) => v.status === 'cleared' || (v.status === 'recheck' && v.clearedAt !== null)) ?? null;
+}
+
+/** Builds the router. */
+export function sequencesRouter(ctx: AppContext): Router {
+  const router = Router();
+  const { db } = ctx;
+  subscribeToProfileChanges();
+
+  /** Sequence summaries (with their visible versions) matching a condition. */
+  async function summaries(user: Express.Request['user'] & object, sequenceIds?: string[], crewMemberId?: string): Promise<(SequenceSummary & { versions: VersionSummary[] })[]> {
+    const heads = await sequenceHeads(db, allOf(
+      visibleSequences(user),
+      crewMemberId ? eq(sequences.crewMemberId, crewMemberId) : undefined,
+      sequenceIds ? inArray(sequences.id, sequenceIds) : undefined,
+    ));
+    if (!heads.length) return [];
+    const { summaries: vs } = await versionSummaries(db, allOf(visibleVersions(user), inArray(sequenceVersions.sequenceId, heads.map((h) => h.id))));
+    const out = heads.map((h) => {
+      const versions = vs.filter((v) => v.sequenceId === h.id);
+      return { ...h, versionCount: versions.length, latest: versions[0] ?? null, cleared: rehearsable(versions), versions };
+    });
+    // A trainee sees only sequences with something to rehearse.
+    return user.role === 'trainee' ? out.filter((s) => s.versions.length > 0) : out;
+  }
+
+  router.get('/', validate({ query: listQuery }), async (req, res) => {
+    const { crewMemberId } = res.locals.query as z.infer<typeof listQuery>;
+    const list = await summaries(req.user!, undefined, crewMemberId);
+    res.json({ sequences: list.map(({ versions: _v, ...s }) => s) });
+  });
+
+  router.post('/', validate({ body: createSequenceRequestSchema }), async (req, res) => {
+    const user = req.user!;
+    requireAuthor(user);
+    const input = req.body as z.infer<typeof createSequenceRequestSchema>;
+    const [member] = await db.select({ id: crewMembers.id }).from(crewMembers).where(eq(crewMembers.id, input.crewMemberId));
+    if (!member) throw badRequest('crewMemberId: no such crew member.', 'crewMemberId');
+    const id = await db.transaction(async (tx) => {
+      const [row] = await tx.insert(sequences).values({ crewMemberId: input.crewMemberId, name: input.name, target: input.target, createdBy: user.id }).returning();
+      await recordAudit(tx, { actorId: user.id, action: 'sequence.create', objectType: 'sequence', objectId: row.id, detail: { name: input.name, crewMemberId: input.crewMemberId, target: input.target } });
+      return row.id;
+    });
+    const [created] = await summaries(user, [id]);
+    const { versions: _v, ...summary } = created;
+    res.status(201).json(summary);
+  });
+
+  router.post('/compile', validate({ body: compileRequestSchema }), async (req, res) => {
+    const input = req.body as z.infer<typeof compileRequestSchema>;
+    const dofs = input.crewMemberId ? dofInfoFromBody((await currentProfile(db, input.crewMemberId)).body as Body) : STANDARD_DOFS;
+    const primitives = input.primitives as Primitive[];
+    const c = compilePrimitives(primitives, dofs);
+    const out: CompileResponse = { compiled: c.sequence, stepMap: c.stepMap, cues: primitives.map(cueFor), durationS: c.durationS, errors: c.errors, warnings: c.warnings };
+    res.json(out);
+  });
+
+  router.get('/versions/:versionId', validate({ params: versionParams }), async (req, res) => {
+    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
+    res.json(await loadVersionDetail(db, req.user!, versionId));
+  });
+
+  router.post('/versions/:versionId/submit', validate({ params: versionParams, body: submitRequestSchema }), async (req, res) => {
+    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
+    await submitVersion(ctx, req.user!, versionId, (req.body as z.infer<typeof submitRequestSchema>).note);
+    res.json(await loadVersionDetail(db, req.user!, versionId));
+  });
+
+  router.get('/versions/:versionId/compare/:otherVersionId', validate({ params: compareParams }), async (req, res) => {
+    const { versionId, otherVersionId } = res.locals.params as z.infer<typeof compareParams>;
+    const a = await loadVersionDetail(db, req.user!, versionId);
+    const b = await loadVersionDetail(db, req.user!, otherVersionId);
+    res.json(compareVersions(a, b));
+  });
+
+  router.get('/:sequenceId', validate({ params: sequenceParams }), async (req, res) => {
+    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
+    const [s] = await summaries(req.user!, [sequenceId]);
+    if (!s) throw notFound('Sequence');
+    const detail: SequenceDetail = s;
+    res.json(detail);
+  });
+
+  router.patch('/:sequenceId', validate({ params: sequenceParams, body: updateSequenceRequestSchema }), async (req, res) => {
+    const user = req.user!;
+    requireAuthor(user);
+    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
+    const input = req.body as z.infer<typeof updateSequenceRequestSchema>;
+    await db.transaction(async (tx) => {
+      const [row] = await tx.update(sequences).set({ ...(input.name ? { name: input.name } : {}), ...(input.target ? { target: input.target } : {}) })
+        .where(eq(sequences.id, sequenceId)).returning({ id: sequences.id });
+      if (!row) throw notFound('Sequence');
+      await recordAudit(tx, { actorId: user.id, action: 'sequence.update', objectType: 'sequence', objectId: sequenceId, detail: input });
+    });
+    const [s] = await summaries(user, [sequenceId]);
+    const { versions: _v, ...summary } = s;
+    res.json(summary);
+  });
+
+  router.post('/:sequenceId/versions', validate({ params: sequenceParams, body: saveVersionRequestSchema }), async (req, res) => {
+    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
+    const input = req.body as z.infer<typeof saveVersionRequestSchema>;
+    const id = await saveVersion(ctx, req.user!, sequenceId, { primitives: input.primitives as Primitive[], baseVersion: input.baseVersion, note: input.note });
+    res.status(201).json(await loadVersionDetail(db, req.user!, id));
+  });
+
+  return router;
+}
