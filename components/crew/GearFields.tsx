@@ -41,7 +41,7 @@ export function GearFields({ control }: { control: Control<ProfileFormValues> })
               <View key={axis} style={styles.cell}>
                 <Controller
                   control={control}
-                  name={`inputs.gear.${k}.position.${a}`}
+                  name={`inputs.gear.${k}.position.${a as 0 | 1 | 2}`}
                   render={({ field, fieldState }) => (
                     <NumberField label={`Position ${axis}`} unit="m" value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
                   )}

@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
-import { SegmentedControl } from '@/components/ui/SegmentedControl';
+import { SegmentedControl, type SegmentOption } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
 import { downloadUrl } from './download-file';
 import { ProfileEditor } from './ProfileEditor';
@@ -35,11 +35,11 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
   if (q.isPending) return <LoadingState label="Loading the profile…" />;
   if (q.isError) return <ErrorBanner title="Could not load this crew member" error={q.error} onRetry={() => void q.refetch()} />;
   const { member, current } = q.data;
-  const views = [
+  const views: SegmentOption<MemberView>[] = [
     { value: 'profile', label: 'Profile' },
     { value: 'history', label: 'History' },
-    ...(canEdit ? [{ value: 'edit', label: current ? 'Edit' : 'Create profile' }] : []),
-  ] as const;
+    ...(canEdit ? [{ value: 'edit' as const, label: current ? 'Edit' : 'Create profile' }] : []),
+  ];
   const shown: MemberView = view === 'edit' && !canEdit ? 'profile' : view;
 
   return (

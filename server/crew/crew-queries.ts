@@ -14,7 +14,7 @@ function likePattern(text: string): string {
  * Crew members the user may see, by name, each with its current version row (if any). A trainee
  * gets only their own member; `q` searches name and call sign, case-insensitively.
  */
-export async function listCrewMembers(db: Database, user: SessionUser, q?: string): Promise<Array<{ member: CrewMemberRow; current: ProfileVersionRow | null }>> {
+export async function listCrewMembers(db: Database, user: SessionUser, q?: string): Promise<{ member: CrewMemberRow; current: ProfileVersionRow | null }[]> {
   const filters: SQL[] = [];
   if (user.role === 'trainee') {
     if (!user.crewMemberId) return [];

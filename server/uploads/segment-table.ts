@@ -9,7 +9,7 @@ export interface MeasuredBody {
   segments: string[];
   errors: UploadRowError[];
   /** Parsed rows for upload_rows (row number and data). */
-  rows: Array<{ row: number; data: Record<string, unknown> }>;
+  rows: { row: number; data: Record<string, unknown> }[];
 }
 
 const REQUIRED = ['segment', 'mass_kg', 'com_x_m', 'com_y_m', 'com_z_m', 'ixx_kgm2', 'iyy_kgm2', 'izz_kgm2'] as const;

@@ -22,6 +22,8 @@ afterAll(async () => {
 });
 
 const api = () => request(t.app);
+// The raw pg pool behind Drizzle, to try writes the API never makes.
+const pool = () => (t.ctx.db as unknown as { $client: { query: (text: string, values?: unknown[]) => Promise<unknown> } }).$client;
 const baseInputs = { sex: 'female', stature: 1.7, mass: 62, suitId: null };
 
 async function createMember(name: string) {
@@ -59,7 +61,7 @@ describe('crew members and profile versions', () => {
   });
 
   it('a suit snapshot adds exactly the suit\'s mass and stays with the version', async () => {
-    const suits = (await api().get('/api/suits').set('Authorization', planner)).body.suits as Array<{ id: string; config: { id: string; segments: Record<string, { mass: number }> } }>;
+    const suits = (await api().get('/api/suits').set('Authorization', planner)).body.suits as { id: string; config: { id: string; segments: Record<string, { mass: number }> } }[];
     expect(suits.map((s) => s.config.id).sort()).toEqual(['cabin-clothing', 'pressurised-suit']);
     const suit = suits.find((s) => s.config.id === 'pressurised-suit')!;
     const added = Object.values(suit.config.segments).reduce((s, x) => s + x.mass, 0);
@@ -89,8 +91,8 @@ describe('crew members and profile versions', () => {
     expect(again.current).toBe(false);
     const list = (await api().get(`/api/crew/${id}/versions`).set('Authorization', planner)).body.versions;
     expect(list.map((x: { version: number; current: boolean }) => [x.version, x.current])).toEqual([[2, true], [1, false]]);
-    await expect(t.ctx.db.$client.query('UPDATE profile_versions SET note = $1 WHERE id = $2', ['x', v1.id])).rejects.toThrow(/append-only: UPDATE refused/);
-    await expect(t.ctx.db.$client.query('DELETE FROM profile_versions WHERE id = $1', [v1.id])).rejects.toThrow(/append-only: DELETE refused/);
+    await expect(pool().query('UPDATE profile_versions SET note = $1 WHERE id = $2', ['x', v1.id])).rejects.toThrow(/append-only: UPDATE refused/);
+    await expect(pool().query('DELETE FROM profile_versions WHERE id = $1', [v1.id])).rejects.toThrow(/append-only: DELETE refused/);
   });
 
   it('a save on top of a version that is no longer the latest gets 409 and saves nothing', async () => {
@@ -124,7 +126,7 @@ describe('crew members and profile versions', () => {
     const res = await api().get(`/api/crew/${members[0].id}/compare?a=1&b=2`).set('Authorization', planner);
     expect(res.status).toBe(200);
     const c = res.body.comparison;
-    const changed = (rows: Array<{ key: string; changed: boolean }>) => rows.filter((r) => r.changed).map((r) => r.key);
+    const changed = (rows: { key: string; changed: boolean }[]) => rows.filter((r) => r.changed).map((r) => r.key);
     expect(changed(c.inputs)).toEqual(['inputs.mass']);
     expect(c.inputs.find((r: { key: string }) => r.key === 'inputs.mass')).toMatchObject({ a: 60.5, b: 59.1, unit: 'kg' });
     expect(changed(c.wholeBody)).toContain('whole.mass');
