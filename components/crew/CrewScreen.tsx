@@ -26,11 +26,12 @@ export function CrewScreen() {
   const user = session.data;
   const canEdit = user?.role === 'planner' || user?.role === 'admin';
   const [adding, setAdding] = useState(false);
-  const selected = params.member ?? (user?.role === 'trainee' ? (user.crewMemberId ?? null) : null);
+  // No `member` in the URL: a trainee lands on their own member; `member=` (empty) is the list itself.
+  const selected = params.member !== undefined ? params.member || null : user?.role === 'trainee' ? (user.crewMemberId ?? null) : null;
   const view: MemberView = VIEWS.includes(params.view as MemberView) ? (params.view as MemberView) : 'profile';
   const member = useCrewMemberQuery(selected);
 
-  const select = (id: string | null, next: MemberView = 'profile') => router.setParams({ member: id ?? undefined, view: id ? next : undefined });
+  const select = (id: string | null, next: MemberView = 'profile') => router.setParams({ member: id ?? '', view: id ? next : undefined });
 
   return (
     <Screen
