@@ -2,7 +2,7 @@ import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 
 export default defineConfig({
-  resolve: { alias: { '@': fileURLToPath(new URL('.', import.meta.url)) } },
+  resolve: { alias: { '@': fileURLToPath(new URL('.', import.meta.url).href) } },
   test: {
     include: ['tests/**/*.test.ts'],
     environment: 'node',

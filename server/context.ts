@@ -1,3 +1,4 @@
+import type pg from 'pg';
 import { pino } from 'pino';
 
 import { createDatabase } from '../db/client.ts';
@@ -9,7 +10,7 @@ import type { ReceivedMail } from './mail/smtp-fake.ts';
 import { createObjectStore } from './storage/object-store.ts';
 
 /** Builds the app context from configuration; `close()` releases the pool and the mail transport. */
-export function createContext(config: Config, devMailbox?: readonly ReceivedMail[]): AppContext & { close: () => Promise<void> } {
+export function createContext(config: Config, devMailbox?: readonly ReceivedMail[]): AppContext & { pool: pg.Pool; close: () => Promise<void> } {
   const { db, pool } = createDatabase(config.DATABASE_URL);
   const mailer = createMailer(config);
   const logger = pino({ level: config.LOG_LEVEL });
@@ -21,6 +22,7 @@ export function createContext(config: Config, devMailbox?: readonly ReceivedMail
     storage: createObjectStore(config),
     logger,
     devMailbox,
+    pool,
     close: async () => {
       mailer.close();
       await pool.end();

@@ -10,6 +10,7 @@ import { motionRouter } from './motion.ts';
 import { rehearsalsRouter } from './rehearsals.ts';
 import { reviewsRouter } from './reviews.ts';
 import { sequencesRouter } from './sequences.ts';
+import { createSimulateRouter } from './simulate.ts';
 import { teamRouter } from './team.ts';
 import { uploadsRouter } from './uploads.ts';
 
@@ -32,4 +33,5 @@ export const API_AREAS: ApiArea[] = [
   { area: 'rehearsals', path: '/rehearsals', router: rehearsalsRouter },
   { area: 'sequences', path: '/sequences', router: sequencesRouter },
   { area: 'reviews', path: '/reviews', router: reviewsRouter },
+  { area: 'simulate', path: '/simulate', router: () => createSimulateRouter() },
 ];

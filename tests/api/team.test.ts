@@ -82,7 +82,7 @@ describe('user administration', () => {
   });
 
   it('the audit log refuses UPDATE and DELETE at the database', async () => {
-    await expect(t.ctx.db.$client.query("UPDATE audit_events SET action = 'x'")).rejects.toThrow(/append-only: UPDATE refused/);
-    await expect(t.ctx.db.$client.query('DELETE FROM audit_events')).rejects.toThrow(/append-only: DELETE refused/);
+    await expect(t.pool.query("UPDATE audit_events SET action = 'x'")).rejects.toThrow(/append-only: UPDATE refused/);
+    await expect(t.pool.query('DELETE FROM audit_events')).rejects.toThrow(/append-only: DELETE refused/);
   });
 });

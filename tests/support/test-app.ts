@@ -3,6 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 
 import type { Express } from 'express';
+import type pg from 'pg';
 import request from 'supertest';
 
 import { seedDemo } from '../../db/seed/run-seed.ts';
@@ -20,6 +21,8 @@ import { createTestDatabase } from './test-database.ts';
 export interface TestApp {
   app: Express;
   ctx: AppContext;
+  /** The app's own pool, for raw SQL in tests. */
+  pool: pg.Pool;
   mail: SmtpFake;
   s3: S3Fake;
   /** Bearer token of the first demo user with that role (the demo scenario is seeded). */
@@ -65,6 +68,7 @@ export async function startTestApp(opts: { seed?: boolean; env?: Record<string, 
   return {
     app,
     ctx,
+    pool: ctx.pool,
     mail,
     s3,
     tokenForEmail,
