@@ -45,6 +45,8 @@ test('a planner creates a crew member, saves and edits a profile, compares versi
   await expect(page.getByRole('heading', { name: 'Version 1 (current)' })).toBeVisible();
   await expect(page.getByRole('table', { name: 'Derived segment table' })).toContainText('Left thigh');
   await shot(page, 'crew-profile-wide');
+  await page.getByRole('table', { name: 'Derived segment table' }).scrollIntoViewIfNeeded();
+  await shot(page, 'crew-segments-wide');
 
   // Editing makes version 2.
   await page.getByRole('radio', { name: 'Edit' }).click();
@@ -64,6 +66,7 @@ test('a planner creates a crew member, saves and edits a profile, compares versi
   await expect(massRow).toContainText('69.8');
   await expect(massRow).toContainText('Changed');
   await expect(inputs.getByRole('row').filter({ hasText: 'Stature' })).toHaveCount(0);
+  await inputs.scrollIntoViewIfNeeded();
   await shot(page, 'crew-history-wide');
 
   // Export of the derived body as contract JSON.
@@ -148,7 +151,9 @@ test('on a phone the planner goes from the list to a member, its history and bac
   await expect(page.getByRole('heading', { name: 'Version 2 (current)' })).toBeVisible();
   await shot(page, 'crew-profile-phone');
   await page.getByRole('radio', { name: 'History' }).click();
-  await expect(page.getByRole('table', { name: 'Inputs: version 1 and version 2' })).toContainText('Body mass (kg)');
+  const compared = page.getByRole('table', { name: 'Inputs: version 1 and version 2' });
+  await expect(compared).toContainText('Body mass (kg)');
+  await compared.scrollIntoViewIfNeeded();
   await shot(page, 'crew-history-phone');
   await page.getByRole('radio', { name: 'Edit' }).click();
   await expect(page.getByLabel('Body mass')).toHaveValue('59.1');

@@ -84,14 +84,6 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
       <Text tone="muted">
         {baseVersion ? `Editing on top of version ${baseVersion}. Saving makes version ${baseVersion + 1}; version ${baseVersion} stays as it is.` : 'The first save makes version 1.'}
       </Text>
-      {stale ? (
-        <View style={styles.conflict} role="alert">
-          <Text variant="bodyStrong" tone="danger">Someone saved a newer version</Text>
-          <Text>{errorMessage(save.error)}</Text>
-          <Button label="Load the newest version (discards these edits)" variant="secondary" size="sm" onPress={onReload} />
-        </View>
-      ) : null}
-      <ErrorBanner error={formError} />
 
       <Card title="Body">
         <View style={styles.fields}>
@@ -164,6 +156,15 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
       </Card>
 
       <FormTextField control={control} name="note" label="Note" placeholder="What changed and why" />
+      {/* Beside the Save button, where the person is looking when the conflict comes back. */}
+      {stale ? (
+        <View style={styles.conflict} role="alert">
+          <Text variant="bodyStrong" tone="danger">Someone saved a newer version</Text>
+          <Text>{errorMessage(save.error)}</Text>
+          <Button label="Load the newest version (discards these edits)" variant="secondary" size="sm" onPress={onReload} />
+        </View>
+      ) : null}
+      <ErrorBanner error={formError} />
       <View style={styles.actions}>
         <Button label={baseVersion ? `Save version ${baseVersion + 1}` : 'Save version 1'} icon="save" loading={save.isPending} onPress={() => void submit()} />
         <Button label="Cancel" variant="secondary" onPress={onCancel} />
