@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { sequenceVersions } from '../../db/schema/index.ts';
+import { profileVersions, sequenceVersions } from '../../db/schema/index.ts';
 import type { MotionResponse } from '../../shared/contracts/motion.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
@@ -10,7 +10,6 @@ import { simulate } from '../../server/engine/simulate.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import { defaultPrimitive } from '../../shared/primitives/primitive-schemas.ts';
-import { profileVersions } from '../../db/schema/index.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from './rehearsal-fixture.ts';
 

@@ -1,0 +1,90 @@
+import { Pressable, StyleSheet, View } from 'react-native';
+
+import { formatDate, formatDateTime } from '@/components/format/date-time';
+import { colors, radii, spacing } from '@/components/theme';
+import { Badge } from '@/components/ui/Badge';
+import { Icon } from '@/components/ui/Icon';
+import { Text } from '@/components/ui/Text';
+import { webPressState } from '@/components/ui/press-state';
+import type { RehearsableVersion } from '@/shared/contracts/rehearsal';
+
+/** Props of {@link RehearsableList}. */
+export interface RehearsableListProps {
+  versions: readonly RehearsableVersion[];
+  /** Open a cleared version in the player. */
+  onOpen: (versionId: string) => void;
+}
+
+/**
+ * The trainee's cleared maneuvers: name, target, duration, steps, last rehearsal. A version that was
+ * rehearsed but now needs a re-check (its profile changed) is listed with a notice and cannot be opened.
+ */
+export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
+  return (
+    <View style={styles.list} role="list">
+      {versions.map((v) => {
+        const stale = v.status === 'recheck';
+        return (
+          <Pressable
+            key={v.versionId}
+            role="listitem"
+            aria-label={`${v.sequenceName}, version ${v.version}${stale ? ', needs a re-check' : ''}`}
+            disabled={stale}
+            onPress={() => onOpen(v.versionId)}
+            style={(state) => [styles.row, webPressState(state).hovered && !stale && styles.rowHover, stale && styles.rowStale]}
+          >
+            <View style={styles.head}>
+              <View style={styles.titles}>
+                <Text variant="heading" numberOfLines={2}>
+                  {v.sequenceName}
+                </Text>
+                <Text variant="caption" tone="muted">
+                  Version {v.version}
+                  {v.clearedAt ? ` · cleared ${formatDate(v.clearedAt)}` : ''}
+                </Text>
+              </View>
+              {stale ? <Badge label="Re-check needed" tone="danger" icon="alert-triangle" /> : <Icon name="play-circle" size={26} color={colors.accent} />}
+            </View>
+            <View style={styles.facts}>
+              <Fact label="Target" value={v.targetLabel} />
+              <Fact label="Duration" value={`${v.duration.toFixed(1)} s`} />
+              <Fact label="Steps" value={String(v.stepCount)} />
+            </View>
+            <Text variant="caption" tone={v.lastRehearsal ? 'default' : 'muted'}>
+              {v.lastRehearsal
+                ? `Last rehearsed ${formatDateTime(v.lastRehearsal.performedAt)} · ${v.lastRehearsal.completedSteps}/${v.lastRehearsal.totalSteps} steps · rated ${v.lastRehearsal.selfRating}/5 · ${v.rehearsalCount} run${v.rehearsalCount === 1 ? '' : 's'}`
+                : 'Not rehearsed yet'}
+            </Text>
+            {stale ? (
+              <Text variant="caption" tone="danger">
+                The inertia profile behind this maneuver changed. It is being re-verified; rehearse it again once it is cleared.
+              </Text>
+            ) : null}
+          </Pressable>
+        );
+      })}
+    </View>
+  );
+}
+
+function Fact({ label, value }: { label: string; value: string }) {
+  return (
+    <View style={styles.fact}>
+      <Text variant="overline" tone="muted">
+        {label}
+      </Text>
+      <Text variant="numeric">{value}</Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  list: { gap: spacing.md },
+  row: { backgroundColor: colors.surface, borderRadius: radii.lg, borderWidth: 1, borderColor: colors.border, padding: spacing.lg, gap: spacing.sm },
+  rowHover: { borderColor: colors.borderStrong, backgroundColor: colors.raised },
+  rowStale: { borderColor: colors.danger },
+  head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.md },
+  titles: { flex: 1, minWidth: 0 },
+  facts: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xl },
+  fact: { gap: spacing.xxs },
+});
