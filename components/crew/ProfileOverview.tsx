@@ -16,12 +16,12 @@ const LENGTH_LABELS: Record<string, string> = {
 };
 
 const SEGMENT_COLUMNS: ValueColumn<SegmentSummary>[] = [
-  { header: 'Segment', cell: (s) => <Text variant="label">{SEGMENT_LABELS[s.name as SegmentName] ?? s.name}</Text>, minWidth: 150 },
-  { header: 'Mass (kg)', cell: (s) => fixed(s.mass, 3), numeric: true },
-  { header: 'CoM x, y, z (m)', cell: (s) => vector(s.com), numeric: true, minWidth: 150 },
-  { header: 'I1 (kg·m²)', cell: (s) => moment(s.principalMoments[0]), numeric: true },
-  { header: 'I2 (kg·m²)', cell: (s) => moment(s.principalMoments[1]), numeric: true },
-  { header: 'I3 (kg·m²)', cell: (s) => moment(s.principalMoments[2]), numeric: true },
+  { header: 'Segment', cell: (s) => <Text variant="label">{SEGMENT_LABELS[s.name as SegmentName] ?? s.name}</Text>, minWidth: 135 },
+  { header: 'Mass (kg)', cell: (s) => fixed(s.mass, 3), numeric: true, minWidth: 75 },
+  { header: 'CoM x, y, z (m)', cell: (s) => vector(s.com), numeric: true, minWidth: 180 },
+  { header: 'I1 (kg·m²)', cell: (s) => moment(s.principalMoments[0]), numeric: true, minWidth: 80 },
+  { header: 'I2 (kg·m²)', cell: (s) => moment(s.principalMoments[1]), numeric: true, minWidth: 80 },
+  { header: 'I3 (kg·m²)', cell: (s) => moment(s.principalMoments[2]), numeric: true, minWidth: 80 },
 ];
 
 /** One labelled figure. */

@@ -20,6 +20,7 @@ export function vector(v: readonly number[] | null | undefined): string {
 /** A comparison value for display: numbers at 4 significant digits, text as is. */
 export function comparisonValue(v: string | number | null): string {
   if (v === null) return '—';
-  if (typeof v === 'number') return Math.abs(v) < 0.01 && v !== 0 ? v.toExponential(3) : String(Number(v.toPrecision(4)));
+  // Below 1e-9 (float noise around an exact zero, e.g. a symmetric body's lateral CoM) reads as 0.
+  if (typeof v === 'number') return Math.abs(v) < 1e-9 ? '0' : Math.abs(v) < 0.01 ? v.toExponential(3) : String(Number(v.toPrecision(4)));
   return v.length > 80 ? `${v.slice(0, 77)}…` : v;
 }

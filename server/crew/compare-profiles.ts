@@ -3,12 +3,17 @@ import { SEGMENT_LABELS, type SegmentName } from '../../shared/model/segment-nam
 
 /** Relative tolerance under which two derived numbers count as equal (float noise of re-derivation). */
 const RELATIVE_TOLERANCE = 1e-9;
+/**
+ * Absolute floor of that tolerance, for values that are zero in exact arithmetic (a symmetric body's
+ * lateral CoM comes out as ±1e-18 m): 1e-12 in SI units is far below any measurable change.
+ */
+const ABSOLUTE_TOLERANCE = 1e-12;
 
 type Value = string | number | null;
 
 function differs(a: Value, b: Value): boolean {
   if (typeof a === 'number' && typeof b === 'number') {
-    return Math.abs(a - b) > RELATIVE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b), 1e-12);
+    return Math.abs(a - b) > Math.max(RELATIVE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b)), ABSOLUTE_TOLERANCE);
   }
   return a !== b;
 }

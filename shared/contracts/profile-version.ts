@@ -86,7 +86,7 @@ export interface ComparisonRow {
   /** Value in version a (null when absent there). */
   a: string | number | null;
   b: string | number | null;
-  /** True when the two differ (numbers beyond 1e-9 relative). */
+  /** True when the two differ (numbers: beyond 1e-9 relative and 1e-12 absolute). */
   changed: boolean;
 }
 

@@ -133,6 +133,18 @@ describe('crew members and profile versions', () => {
     expect(c.inputs.find((r: { key: string }) => r.key === 'inputs.stature').changed).toBe(false);
   });
 
+  it('float noise around an exact zero is not a change: a mirror-symmetric body\'s lateral CoM stays "same"', async () => {
+    const id = await createMember('Symmetry Test');
+    await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 0, inputs: { ...baseInputs, sex: 'male', stature: 1.74, mass: 71.5 } });
+    await api().post(`/api/crew/${id}/versions`).set('Authorization', planner).send({ baseVersion: 1, inputs: { ...baseInputs, sex: 'male', stature: 1.74, mass: 69.8 } });
+    const c = (await api().get(`/api/crew/${id}/compare?a=1&b=2`).set('Authorization', planner)).body.comparison;
+    const comY = c.wholeBody.find((r: { key: string }) => r.key === 'whole.com.y');
+    expect(Math.abs(comY.a)).toBeLessThan(1e-12);
+    expect(Math.abs(comY.b)).toBeLessThan(1e-12);
+    expect(comY.changed).toBe(false);
+    expect(c.wholeBody.find((r: { key: string }) => r.key === 'whole.mass').changed).toBe(true);
+  });
+
   it('exports the derived body as contract JSON, as a download', async () => {
     const members = (await api().get('/api/crew?q=Moss').set('Authorization', reviewer)).body.members;
     const res = await api().get(`/api/crew/${members[0].id}/versions/1/body.json`).set('Authorization', reviewer);
