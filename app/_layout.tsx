@@ -9,8 +9,11 @@ import { useState } from 'react';
 
 import { createQueryClient } from '@/components/api/query-client';
 import { navigationTheme } from '@/components/shell/navigation-theme';
+import { paintPageBackground } from '@/components/shell/page-background';
 import { colors } from '@/components/theme';
 import { iconFont } from '@/components/ui/Icon';
+
+paintPageBackground();
 
 export default function RootLayout() {
   const [queryClient] = useState(createQueryClient);

@@ -1,4 +1,4 @@
-import { Redirect, useRouter, useSegments } from 'expo-router';
+import { Redirect, useRouter } from 'expo-router';
 import { Tabs } from 'expo-router/js-tabs';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -8,7 +8,7 @@ import { ChangePasswordSheet } from '@/components/auth/ChangePasswordSheet';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { AppHeader } from '@/components/shell/AppHeader';
 import { tabScreenOptions, tabNavigatorOptions } from '@/components/shell/tab-bar-options';
-import { canSeeTab, homeTab, TAB_NAMES, TABS, type TabName } from '@/components/shell/tab-access';
+import { canSeeTab, TAB_NAMES, TABS } from '@/components/shell/tab-access';
 import { colors } from '@/components/theme';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
@@ -16,7 +16,6 @@ import { LoadingState } from '@/components/ui/LoadingState';
 /** The signed-in shell: header with the user menu and caution, and the role's tabs. */
 export default function AppLayout() {
   const router = useRouter();
-  const segments = useSegments();
   const wide = useIsWide();
   const session = useSessionQuery();
   const signOut = useSignOutMutation();
@@ -33,12 +32,6 @@ export default function AppLayout() {
   const user = session.data;
   if (!user) return <Redirect href="/sign-in?notice=session-ended" />;
 
-  // A tab the role does not have (typed into the address bar): go to the role's first tab.
-  const current = (segments as string[])[1];
-  if (current && (TAB_NAMES as readonly string[]).includes(current) && !canSeeTab(user.role, current as TabName)) {
-    return <Redirect href={`/${homeTab(user.role)}`} />;
-  }
-
   return (
     <View style={styles.root}>
       <AppHeader
@@ -47,8 +40,12 @@ export default function AppLayout() {
         onSignOut={() => signOut.mutate(undefined, { onSettled: () => router.replace('/sign-in?notice=signed-out') })}
       />
       <Tabs screenOptions={tabNavigatorOptions(wide)}>
+        {/* A tab the role does not have is left out of the navigator (so its address leads to the role's
+            first tab) and its button is hidden with href: null. The server enforces the same split. */}
         {TAB_NAMES.map((name) => (
-          <Tabs.Screen key={name} name={name} options={tabScreenOptions(TABS[name], canSeeTab(user.role, name))} />
+          <Tabs.Protected key={name} guard={canSeeTab(user.role, name)}>
+            <Tabs.Screen name={name} options={tabScreenOptions(TABS[name], canSeeTab(user.role, name))} />
+          </Tabs.Protected>
         ))}
       </Tabs>
       <ChangePasswordSheet
