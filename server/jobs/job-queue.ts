@@ -25,6 +25,8 @@ export interface JobQueueOptions {
   worker?: boolean;
   /** Retry delay base, seconds (default 2; tests use 1). */
   retryDelayS?: number;
+  /** How often the worker looks for due jobs (retries included), seconds (default 2). */
+  pollingIntervalS?: number;
 }
 
 /** Starts pg-boss on the app database, creates the queue, optionally works it, and returns the handle. */
@@ -39,7 +41,9 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
     notify: true,
   });
   if (opts.worker !== false) {
-    await boss.work<ReverifyJob>(REVERIFY_QUEUE, { batchSize: 1, pollingIntervalSeconds: 2 }, async (jobs) => {
+    // NOTIFY wakes the worker for new jobs only; retries become due silently, so poll often in both modes.
+    const poll = opts.pollingIntervalS ?? 2;
+    await boss.work<ReverifyJob>(REVERIFY_QUEUE, { batchSize: 1, pollingIntervalSeconds: poll, notifyPollingIntervalSeconds: poll }, async (jobs) => {
       for (const job of jobs) await reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT });
     });
   }

@@ -1,0 +1,125 @@
+/**
+ * Background re-verification: a profile change flags cleared and under-review versions `recheck`
+ * without making the request wait, and the pg-boss worker recomputes each on the new body, storing
+ * how far the final attitude moved. The recomputation is checked against the engine run directly
+ * on the same compiled steps and the new body; a failing job is retried and finally marked failed.
+ */
+import { and, eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { crewMembers, profileVersions, reverifications, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { simulate } from '../../server/engine/simulate.ts';
+import { REVERIFY_RETRY_LIMIT, startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
+import { storedCompiled } from '../../server/maneuvers/stored-compiled.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import type { Sequence } from '../../shared/contracts/sequence.ts';
+import { quatAngleBetween } from '../../shared/math/quaternion.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { PEOPLE, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+
+let t: TestApp;
+let jobs: RunningJobQueue;
+let crew: string;
+beforeAll(async () => {
+  t = await startTestApp();
+  jobs = await startJobQueue(t.ctx, { retryDelayS: 1, pollingIntervalS: 1 });
+  t.ctx.jobs = jobs;
+  crew = await crewOf(t, PEOPLE.trainee);
+}, 120_000);
+afterAll(async () => {
+  await jobs?.stop();
+  await t?.close();
+});
+
+const DEG = 180 / Math.PI;
+const quat = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
+
+/** Polls until `check` returns a value (not undefined) or the time runs out. */
+async function eventually<T>(check: () => Promise<T | undefined>, timeoutMs = 40_000): Promise<T> {
+  const until = Date.now() + timeoutMs;
+  for (;;) {
+    const v = await check();
+    if (v !== undefined) return v;
+    if (Date.now() > until) throw new Error(`condition not met within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+async function versionIn(status: 'cleared' | 'under_review' | 'drafting'): Promise<string> {
+  const sequenceId = await createSequence(t, crew, `Recheck ${status}`);
+  const v = (await saveVersion(t, sequenceId, 0)).body.id as string;
+  if (status === 'drafting') return v;
+  await as(t, PEOPLE.planner).post(`/sequences/versions/${v}/submit`);
+  if (status === 'cleared') await as(t, PEOPLE.reviewer).post(`/reviews/${v}/decision`, { decision: 'clear', comment: '' });
+  return v;
+}
+
+async function changeProfile(massKg: number) {
+  const [m] = await t.ctx.db.select().from(crewMembers).where(eq(crewMembers.id, crew));
+  return as(t, PEOPLE.planner).post(`/crew/${crew}/versions`, {
+    baseVersion: m.currentVersion, note: 'mass drift (test)', inputs: { sex: 'female', stature: 1.67, mass: massKg, suitId: null },
+  });
+}
+
+describe('re-verification after a profile change', () => {
+  it('flags cleared and under-review versions, recomputes them on the new body, and leaves drafts alone', async () => {
+    const cleared = await versionIn('cleared');
+    const reviewing = await versionIn('under_review');
+    const draft = await versionIn('drafting');
+
+    const res = await changeProfile(68);
+    expect(res.status).toBe(201);
+    // Flagged by the time the save answers; the recomputation happens later, in the worker.
+    const rows = await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.id, cleared));
+    expect(rows[0].status).toBe('recheck');
+    expect(rows[0].staleSince).not.toBeNull();
+    const [flagged] = await t.ctx.db.select({ s: sequenceVersions.status }).from(sequenceVersions).where(eq(sequenceVersions.id, reviewing));
+    expect(flagged.s).toBe('recheck');
+    const [kept] = await t.ctx.db.select({ s: sequenceVersions.status }).from(sequenceVersions).where(eq(sequenceVersions.id, draft));
+    expect(kept.s).toBe('drafting');
+
+    const done = await eventually(async () => {
+      const [r] = await t.ctx.db.select().from(reverifications).where(and(eq(reverifications.sequenceVersionId, cleared), eq(reverifications.state, 'done')));
+      return r;
+    });
+    // The same compiled steps on the new body, run by the engine directly.
+    const [pv] = await t.ctx.db.select().from(profileVersions).where(eq(profileVersions.id, done.toProfileVersionId));
+    const [v] = await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.id, cleared));
+    const direct = simulate(pv.body as Body, storedCompiled(v.compiled).sequence as Sequence, { rateHz: 20 });
+    const old = (v.report as { final: { attitude: { w: number; x: number; y: number; z: number } } }).final.attitude;
+    const expectedShift = quatAngleBetween(quat(old), quat(direct.final.attitude)) * DEG;
+    expect(done.attitudeShiftDeg).toBeCloseTo(expectedShift, 6);
+    // A heavier body turns less for the same limb motion: the attitude really moved.
+    expect(done.attitudeShiftDeg!).toBeGreaterThan(1e-4);
+
+    // The API shows the difference; a recheck version cannot be submitted again.
+    const detail = await as(t, PEOPLE.planner).get(`/sequences/versions/${cleared}`);
+    expect(detail.body.status).toBe('recheck');
+    expect(detail.body.profileIsCurrent).toBe(false);
+    expect(detail.body.reverification).toMatchObject({ state: 'done' });
+    expect(detail.body.reverification.attitudeShiftDeg).toBeCloseTo(expectedShift, 6);
+    expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${reviewing}/submit`)).status).toBe(409);
+
+    // The trainee still sees the once-cleared version, flagged.
+    const trainee = await as(t, PEOPLE.trainee).get(`/sequences/versions/${cleared}`);
+    expect(trainee.status).toBe(200);
+    expect(trainee.body.status).toBe('recheck');
+  }, 90_000);
+
+  it('retries a failing recomputation and marks it failed after the last attempt', async () => {
+    // A version whose stored steps no longer fit the contract (written behind the API's back).
+    const [pv] = await t.ctx.db.select().from(profileVersions).where(eq(profileVersions.crewMemberId, crew));
+    const [seq] = await t.ctx.db.insert(sequences).values({ crewMemberId: crew, name: 'Broken (test)', target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: 0, roll: 0 } } }).returning();
+    const [bad] = await t.ctx.db.insert(sequenceVersions).values({
+      sequenceId: seq.id, version: 1, primitives: [], compiled: { sequence: { start: {}, steps: [{ kind: 'twirl' }] }, cues: [], stepMap: [] },
+      profileVersionId: pv.id, status: 'under_review',
+    }).returning();
+    expect((await changeProfile(70)).status).toBe(201);
+    const failed = await eventually(async () => {
+      const [r] = await t.ctx.db.select().from(reverifications).where(and(eq(reverifications.sequenceVersionId, bad.id), eq(reverifications.state, 'failed')));
+      return r;
+    }, 60_000);
+    expect(failed.attempts).toBe(REVERIFY_RETRY_LIMIT + 1);
+    expect(failed.error).toMatch(/kind|twirl|step/i);
+  }, 90_000);
+});
