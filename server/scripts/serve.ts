@@ -5,6 +5,7 @@ import { seedDemo } from '../../db/seed/run-seed.ts';
 import { createApp } from '../app.ts';
 import type { Config } from '../config.ts';
 import { createContext } from '../context.ts';
+import { startJobQueue } from '../jobs/job-queue.ts';
 import type { ReceivedMail } from '../mail/smtp-fake.ts';
 
 /** A running Holonaut server. */
@@ -18,6 +19,9 @@ export async function serve(config: Config, opts: { seed: boolean; devMailbox?: 
   const ctx = createContext(config, opts.devMailbox);
   await runMigrations(ctx.db);
   const seeded = opts.seed ? await seedDemo(ctx.db, config.BCRYPT_COST) : false;
+  // The job queue and its worker run in this process (re-verification after profile changes).
+  const jobs = await startJobQueue(ctx);
+  ctx.jobs = jobs;
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(config.PORT, config.HOST, (err?: Error) => (err ? reject(err) : resolve(s)));
@@ -33,6 +37,7 @@ export async function serve(config: Config, opts: { seed: boolean; devMailbox?: 
         server.closeIdleConnections();
         setTimeout(() => server.closeAllConnections(), 3000).unref();
       });
+      await jobs.stop();
       await ctx.close();
     },
   };
