@@ -162,3 +162,23 @@ test('on a phone the planner goes from the list to a member, its history and bac
   await expect(page.getByRole('heading', { name: 'Upload measurements' })).toBeVisible();
   await shot(page, 'crew-upload-phone');
 });
+
+test('a planner edits a suit configuration; a bad value is named before anything is sent', async ({ page }) => {
+  await page.setViewportSize({ width: 1280, height: 800 });
+  await signIn(page, DEMO_BY_ROLE.planner.email);
+  await page.goto('/crew');
+  await page.getByRole('button', { name: 'Suit configurations' }).click();
+  await expect(page.getByRole('heading', { name: 'Pressurised suit' })).toBeVisible();
+  const card = page.getByRole('table', { name: 'In-cabin clothing: added mass' });
+  await expect(card).toContainText('Upper trunk');
+  await page.getByRole('button', { name: 'Edit as JSON' }).first().click();
+  const editor = page.getByRole('textbox', { name: /configuration JSON/ });
+  const json = JSON.parse(await editor.inputValue());
+  await editor.fill(JSON.stringify({ ...json, segments: { ...json.segments, upper_trunk: { mass: -2 } } }, null, 2));
+  await page.getByRole('button', { name: 'Save suit' }).click();
+  await expect(page.getByText('segments.upper_trunk.mass: added mass must not be negative')).toBeVisible();
+  await editor.fill(JSON.stringify({ ...json, note: 'Checked against the garment list (demo).' }, null, 2));
+  await page.getByRole('button', { name: 'Save suit' }).click();
+  await expect(page.getByText('Checked against the garment list (demo).')).toBeVisible();
+  await shot(page, 'crew-suits-wide');
+});

@@ -1,6 +1,7 @@
-import { useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { SuitView } from '@/shared/contracts/crew';
+import type { SuitConfigInput } from '@/shared/contracts/suit';
 import { apiFetch } from './client';
 
 /** Query keys of the suit configurations. */
@@ -15,5 +16,14 @@ export function useSuitsQuery() {
     queryKey: suitKeys.list(),
     queryFn: async ({ signal }) => (await apiFetch<{ suits: SuitView[] }>('/suits', { signal })).suits,
     staleTime: 60_000,
+  });
+}
+
+/** PUT /api/suits/:id — saves an edited configuration (planners, admins); later profile saves copy it. */
+export function useUpdateSuitMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, config }: { id: string; config: SuitConfigInput }) => apiFetch<{ suit: SuitView }>(`/suits/${encodeURIComponent(id)}`, { method: 'PUT', body: config }),
+    onSuccess: () => void qc.invalidateQueries({ queryKey: suitKeys.all }),
   });
 }

@@ -1,9 +1,11 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useState } from 'react';
+import { View } from 'react-native';
 
 import { useCrewMemberQuery } from '@/components/api/use-crew';
 import { useSessionQuery } from '@/components/api/use-session';
 import { SplitView } from '@/components/layout/SplitView';
+import { spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { Screen } from '@/components/ui/Screen';
@@ -50,7 +52,12 @@ export function CrewScreen() {
       <SplitView
         listLabel="Crew members"
         detailLabel="Crew member"
-        list={<CrewList selectedId={selected} onSelect={(id) => select(id)} />}
+        list={
+          <View style={{ gap: spacing.md }}>
+            <CrewList selectedId={selected} onSelect={(id) => select(id)} />
+            <Button label="Suit configurations" icon="layers" size="sm" variant="ghost" onPress={() => router.push('/crew/suits')} />
+          </View>
+        }
         detail={selected ? <MemberDetail key={selected} crewMemberId={selected} view={view} onView={(v) => select(selected, v)} canEdit={canEdit} /> : null}
         detailTitle={member.data?.member.name ?? 'Crew'}
         onCloseDetail={() => select(null)}

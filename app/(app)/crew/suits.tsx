@@ -1,0 +1,5 @@
+import { SuitsScreen } from '@/components/crew/SuitsScreen';
+
+export default function CrewSuitsRoute() {
+  return <SuitsScreen />;
+}

@@ -1,0 +1,123 @@
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { ApiError } from '@/components/api/client';
+import { useUpdateSuitMutation } from '@/components/api/use-suits';
+import { formatDateTime } from '@/components/format/date-time';
+import { colors, fonts, radii, spacing } from '@/components/theme';
+import { Badge } from '@/components/ui/Badge';
+import { Button } from '@/components/ui/Button';
+import { Card } from '@/components/ui/Card';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { Text } from '@/components/ui/Text';
+import type { SuitView } from '@/shared/contracts/crew';
+import { suitConfigSchema } from '@/shared/contracts/suit';
+import { DOF_LABELS, type DofName } from '@/shared/model/dof-names';
+import { SEGMENT_LABELS, type SegmentName } from '@/shared/model/segment-names';
+import { fixed } from './format-values';
+import { ValueTable } from './ValueTable';
+
+/** "segments.l_thigh.mass: …" from a zod issue path and message. */
+function issueText(path: readonly PropertyKey[], message: string): string {
+  return `${path.map(String).join('.') || '(configuration)'}: ${message}`;
+}
+
+/**
+ * One suit configuration: added mass per segment, suited ranges and locked dofs; planners edit it as
+ * JSON (checked against the shared suit schema before sending, and again by the server).
+ */
+export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }) {
+  const c = suit.config;
+  const [draft, setDraft] = useState<string | null>(null);
+  const [problem, setProblem] = useState<string | null>(null);
+  const update = useUpdateSuitMutation();
+  const added = Object.entries(c.segments).map(([seg, a]) => ({ seg, mass: a?.mass ?? 0 }));
+  const total = added.reduce((s, a) => s + a.mass, 0);
+  const ranges = Object.entries(c.ranges).map(([dof, r]) => ({ dof, min: r?.min ?? 0, max: r?.max ?? 0 }));
+
+  const save = () => {
+    setProblem(null);
+    let json: unknown;
+    try {
+      json = JSON.parse(draft ?? '');
+    } catch (err) {
+      setProblem(`Not valid JSON: ${(err as Error).message}`);
+      return;
+    }
+    const parsed = suitConfigSchema.safeParse(json);
+    if (!parsed.success) {
+      const i = parsed.error.issues[0];
+      setProblem(issueText(i.path, i.message));
+      return;
+    }
+    update.mutate({ id: suit.id, config: parsed.data }, { onSuccess: () => setDraft(null), onError: (e) => setProblem(e instanceof ApiError ? e.message : String(e)) });
+  };
+
+  return (
+    <Card
+      title={c.name}
+      subtitle={`id ${c.id} · adds ${fixed(total, 2)} kg · edited ${formatDateTime(suit.updatedAt)}${suit.updatedByName ? ` by ${suit.updatedByName}` : ''}`}
+      trailing={c.illustrative ? <Badge label="Illustrative values" tone="accent" /> : <Badge label="Measured" tone="success" />}
+    >
+      <View style={styles.stack}>
+        {c.note ? <Text tone="muted">{c.note}</Text> : null}
+        {added.length ? (
+          <ValueTable
+            label={`${c.name}: added mass`}
+            columns={[
+              { header: 'Segment', cell: (r) => <Text variant="label">{SEGMENT_LABELS[r.seg as SegmentName] ?? r.seg}</Text>, minWidth: 150 },
+              { header: 'Added mass (kg)', cell: (r) => fixed(r.mass, 2), numeric: true, minWidth: 110 },
+            ]}
+            rows={added}
+            rowKey={(r) => r.seg}
+          />
+        ) : null}
+        {ranges.length ? (
+          <ValueTable
+            label={`${c.name}: suited ranges`}
+            columns={[
+              { header: 'Joint (suited range)', cell: (r) => <Text variant="label">{DOF_LABELS[r.dof as DofName] ?? r.dof}</Text>, minWidth: 200 },
+              { header: 'Min (°)', cell: (r) => fixed(r.min, 0), numeric: true, minWidth: 70 },
+              { header: 'Max (°)', cell: (r) => fixed(r.max, 0), numeric: true, minWidth: 70 },
+            ]}
+            rows={ranges}
+            rowKey={(r) => r.dof}
+          />
+        ) : (
+          <Text variant="caption" tone="muted">Unsuited joint ranges apply.</Text>
+        )}
+        {c.lockedDofs.length ? <Text variant="caption" tone="muted">Locked: {c.lockedDofs.map((d) => DOF_LABELS[d] ?? d).join(', ')}</Text> : null}
+
+        {canEdit && draft === null ? <Button label="Edit as JSON" icon="edit-3" variant="secondary" size="sm" onPress={() => setDraft(JSON.stringify(c, null, 2))} /> : null}
+        {draft !== null ? (
+          <View style={styles.stack}>
+            <Text variant="caption" tone="muted">
+              Masses in kg, positions in m in the segment frame, inertia in kg·m², ranges in degrees. Saved profile versions keep their own copy; only later saves use the edit.
+            </Text>
+            <textarea
+              aria-label={`${c.name} configuration JSON`}
+              value={draft}
+              onChange={(e) => setDraft(e.target.value)}
+              rows={16}
+              spellCheck={false}
+              style={{
+                fontFamily: fonts.regular, fontSize: 13, color: colors.text, backgroundColor: colors.background,
+                border: `1px solid ${problem ? colors.danger : colors.border}`, borderRadius: radii.md, padding: spacing.sm, colorScheme: 'dark',
+              }}
+            />
+            <ErrorBanner error={problem} />
+            <View style={styles.row}>
+              <Button label="Save suit" icon="save" size="sm" loading={update.isPending} onPress={save} />
+              <Button label="Cancel" size="sm" variant="secondary" onPress={() => { setDraft(null); setProblem(null); }} />
+            </View>
+          </View>
+        ) : null}
+      </View>
+    </Card>
+  );
+}
+
+const styles = StyleSheet.create({
+  stack: { gap: spacing.md },
+  row: { flexDirection: 'row', gap: spacing.sm },
+});
