@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm';
 
 import type { Database } from '../client.ts';
 import { seedCrewProfiles } from './seed-crew-profiles.ts';
+import { seedManeuvers } from './seed-maneuvers.ts';
 import { seedTeam } from './seed-team.ts';
 
 /** Context handed to each later seed stage (crew profiles, sequences…). */
@@ -13,7 +14,7 @@ export interface SeedState {
 }
 
 /** Seed stages after the team, in order; each adds one part of the demo scenario. */
-export const SEED_STAGES: Array<(s: SeedState) => Promise<void>> = [seedCrewProfiles];
+export const SEED_STAGES: Array<(s: SeedState) => Promise<void>> = [seedCrewProfiles, seedManeuvers];
 
 /** Seeds the demo scenario into an empty database; does nothing when users exist. Returns whether it seeded. */
 export async function seedDemo(db: Database, bcryptCost: number): Promise<boolean> {
