@@ -134,10 +134,13 @@ export function RehearsalScene({ scene, clock, cameraMode = 'observer', preset =
   const distance = Math.max(2.6, scene.reach * 3.4);
   useLayoutEffect(() => {
     if (cameraMode !== 'observer') return;
+    // Aim a little above the CoM so the body sits below the cue card that overlays the top of the view.
+    const lift = preset === 'above' ? 0 : 0.12 * distance;
     camera.position.set(...presetPosition(preset, distance));
+    camera.position.y += lift;
     camera.up.set(0, 1, 0);
-    camera.lookAt(0, 0, 0);
-    controls.current?.target.set(0, 0, 0);
+    camera.lookAt(0, lift, 0);
+    controls.current?.target.set(0, lift, 0);
     controls.current?.update();
   }, [camera, cameraMode, preset, presetNonce, distance]);
 

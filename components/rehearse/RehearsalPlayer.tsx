@@ -10,6 +10,7 @@ import type { CameraMode, ViewPreset } from '@/scene/camera-presets';
 import { PlaybackClock } from '@/scene/playback/playback-clock';
 import RehearsalCanvas from '@/scene/RehearsalCanvas';
 import { buildSceneModel } from '@/scene/scene-model';
+import { scenePalette } from '@/scene/scene-palette';
 import type { MotionResponse } from '@/shared/contracts/motion';
 import { PLAYBACK_SPEEDS } from '@/shared/contracts/rehearsal';
 import { ControlButton } from './ControlButton';
@@ -75,38 +76,40 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
 
   return (
     <View style={styles.root} testID="rehearsal-player">
-      <View style={StyleSheet.absoluteFill}>
-        <RehearsalCanvas
-          scene={built.scene}
-          clock={clock}
-          cameraMode={cameraMode}
-          preset={preset}
-          presetNonce={presetNonce}
-          label={`3D view of ${motion.sequenceName} on ${motion.crewMemberName}'s body`}
-        />
-      </View>
-
-      <View style={styles.top} pointerEvents="box-none">
-        {!compact ? (
-          <View style={styles.titleRow}>
-            {onClose ? <ControlButton icon="x" label="Close player" onPress={() => onClose(run())} /> : null}
-            <View style={styles.titleText}>
-              <Text variant="label" numberOfLines={1}>
-                {motion.sequenceName} · v{motion.version}
-              </Text>
-              <Text variant="caption" tone="muted" numberOfLines={1}>
-                {motion.crewMemberName} · {motion.duration.toFixed(1)} s · {snap.speed}×
-              </Text>
-            </View>
-            {onLog ? <Button label="Log" icon="edit-3" size="sm" variant="secondary" onPress={() => onLog(run())} accessibilityLabel="Log rehearsal" /> : null}
+      {!compact ? (
+        <View style={styles.titleRow}>
+          {onClose ? <ControlButton icon="x" label="Close player" onPress={() => onClose(run())} /> : null}
+          <View style={styles.titleText}>
+            <Text variant="label" numberOfLines={1}>
+              {motion.sequenceName} · v{motion.version}
+            </Text>
+            <Text variant="caption" tone="muted" numberOfLines={1}>
+              {motion.crewMemberName} · {motion.duration.toFixed(1)} s · {snap.speed}×
+            </Text>
           </View>
-        ) : null}
-        <CueCard step={step} stepCount={motion.steps.length} cycle={snap.cycle} beats={snap.beats} nextCue={motion.steps[snap.step + 1]?.cue} />
-        <View style={styles.legend} pointerEvents="none">
-          <LegendDot color="#3CC8BA" label="Left" />
-          <LegendDot color="#F5A440" label="Right" />
-          <LegendDot color="#B49CFF" label="Target" />
-          <LegendDot color="#FFD98A" label="Head path" />
+          {onLog ? <Button label="Log run" icon="edit-3" size="sm" variant={snap.ended ? 'primary' : 'secondary'} onPress={() => onLog(run())} accessibilityLabel="Log rehearsal" /> : null}
+        </View>
+      ) : null}
+
+      <View style={styles.stage}>
+        <View style={StyleSheet.absoluteFill}>
+          <RehearsalCanvas
+            scene={built.scene}
+            clock={clock}
+            cameraMode={cameraMode}
+            preset={preset}
+            presetNonce={presetNonce}
+            label={`3D view of ${motion.sequenceName} on ${motion.crewMemberName}'s body`}
+          />
+        </View>
+        <View style={styles.overlay} pointerEvents="box-none">
+          <CueCard step={step} stepCount={motion.steps.length} cycle={snap.cycle} beats={snap.beats} nextCue={motion.steps[snap.step + 1]?.cue} />
+          <View style={styles.legend} pointerEvents="none">
+            <LegendDot color={scenePalette.left} label="Left" />
+            <LegendDot color={scenePalette.right} label="Right" />
+            <LegendDot color={scenePalette.ghost} label="Target" />
+            <LegendDot color={scenePalette.trail} label="Head path" />
+          </View>
         </View>
       </View>
 
@@ -119,7 +122,7 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
           <ControlButton icon="repeat" label="Loop this step" active={snap.loopStep !== null} onPress={() => clock.toggleLoop()} />
           <ControlButton icon={sound ? 'volume-2' : 'volume-x'} label="Beat tick sound" active={sound} onPress={() => setSound((s) => !s)} />
         </View>
-        <SegmentedControl label="Speed" hideLabel={compact} options={SPEED_OPTIONS} value={String(snap.speed)} onChange={(v) => clock.setSpeed(Number(v))} />
+        <SegmentedControl label="Speed" hideLabel options={SPEED_OPTIONS} value={String(snap.speed)} onChange={(v) => clock.setSpeed(Number(v))} />
         <View style={styles.cameraRow}>
           <View style={styles.cameraMode}>
             <SegmentedControl label="Camera" hideLabel options={CAMERA_OPTIONS} value={cameraMode} onChange={(v) => setCameraMode(v)} />
@@ -158,15 +161,16 @@ function LegendDot({ color, label }: { color: string; label: string }) {
 }
 
 const styles = StyleSheet.create({
-  root: { flex: 1, backgroundColor: '#0B121B', overflow: 'hidden' },
-  top: { padding: spacing.md, gap: spacing.sm },
-  titleRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
+  root: { flex: 1, backgroundColor: scenePalette.background, overflow: 'hidden' },
+  stage: { flex: 1, minHeight: 220 },
+  overlay: { padding: spacing.sm, gap: spacing.xs },
+  titleRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, paddingHorizontal: spacing.md, paddingVertical: spacing.sm },
   titleText: { flex: 1, minWidth: 0 },
   legend: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.md, paddingHorizontal: spacing.xs },
   legendItem: { flexDirection: 'row', alignItems: 'center', gap: spacing.xs },
   dot: { width: 8, height: 8, borderRadius: 4 },
   panel: {
-    marginTop: 'auto', backgroundColor: 'rgba(14, 22, 33, 0.9)', borderTopWidth: 1, borderColor: colors.border,
+    backgroundColor: colors.background, borderTopWidth: 1, borderColor: colors.border,
     paddingHorizontal: spacing.md, paddingTop: spacing.sm, paddingBottom: spacing.md, gap: spacing.sm,
     borderTopLeftRadius: radii.lg, borderTopRightRadius: radii.lg,
   },

@@ -19,6 +19,7 @@ function listDofs(names: string[]): string {
   return `${labels.slice(0, 3).join(', ')} and ${labels.length - 3} more`;
 }
 
+const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const round = (v: number) => Math.round(v * 10) / 10;
 
 /** A plain cue for one engine step (used when no primitive cue is available). */
@@ -42,7 +43,7 @@ export function stepTimeline(sequence: Sequence, cues: readonly (string | undefi
       index, kind: step.kind, start, end: t,
       cycles: step.kind === 'harmonic' ? step.cycles : null,
       period: step.kind === 'harmonic' ? step.period : null,
-      cue: cues[index]?.trim() || fallbackCue(step),
+      cue: capitalise(cues[index]?.trim() || fallbackCue(step)),
     };
   });
 }

@@ -1,0 +1,180 @@
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+
+import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+
+import { DEMO_BY_ROLE, DEMO_PASSWORD } from './support/demo-accounts.ts';
+import { signIn } from './support/sign-in.ts';
+
+const TRAINEE = 'tamsin.reed@lumen.example.test';
+// Screenshots for people to look at, only when REHEARSE_SCREENS_DIR names a folder (not part of the check).
+const SCREENS = process.env.REHEARSE_SCREENS_DIR;
+
+async function token(request: APIRequestContext, email: string): Promise<string> {
+  const res = await request.post('/api/auth/sign-in', { data: { email, password: DEMO_PASSWORD } });
+  expect(res.status()).toBe(200);
+  return (await res.json()).token as string;
+}
+
+/** A planner composes a maneuver for Tamsin Reed through the API and a reviewer clears it; returns the version id. */
+async function clearedManeuver(request: APIRequestContext): Promise<string> {
+  const planner = { Authorization: `Bearer ${await token(request, DEMO_BY_ROLE.planner.email)}` };
+  const reviewer = { Authorization: `Bearer ${await token(request, DEMO_BY_ROLE.reviewer.email)}` };
+  const crew = await (await request.get('/api/crew', { headers: planner })).json();
+  const reed = crew.members.find((m: { name: string }) => m.name === 'Tamsin Reed');
+  expect(reed).toBeTruthy();
+  const seq = await request.post('/api/sequences', {
+    headers: planner,
+    data: { crewMemberId: reed.id, name: 'E2E pitch-down arm orbit', target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: -8, roll: 0 } } },
+  });
+  expect(seq.status()).toBe(201);
+  const sequenceId = (await seq.json()).id as string;
+  const version = await request.post(`/api/sequences/${sequenceId}/versions`, {
+    headers: planner,
+    data: {
+      baseVersion: 0,
+      primitives: [
+        { kind: 'arm_orbit', arms: 'both', centre: 'forward', halfAngleDeg: 25, travel: 'outward', cycles: 3, periodS: 1.5 },
+        { kind: 'pause', durationS: 1 },
+      ],
+    },
+  });
+  expect(version.status(), await version.text()).toBe(201);
+  const versionId = (await version.json()).id as string;
+  expect((await request.post(`/api/sequences/versions/${versionId}/submit`, { headers: planner, data: {} })).status()).toBeLessThan(300);
+  const cleared = await request.post(`/api/reviews/${versionId}/decision`, { headers: reviewer, data: { decision: 'clear' } });
+  expect(cleared.status(), await cleared.text()).toBeLessThan(300);
+  return versionId;
+}
+
+/** Fraction of pixels that differ from the scene background (#0B121B) in a canvas screenshot. */
+async function drawnFraction(page: Page, png: Buffer): Promise<number> {
+  return page.evaluate(async (b64) => {
+    const img = new Image();
+    img.src = `data:image/png;base64,${b64}`;
+    await img.decode();
+    const c = document.createElement('canvas');
+    c.width = img.width; c.height = img.height;
+    const g = c.getContext('2d')!;
+    g.drawImage(img, 0, 0);
+    const d = g.getImageData(0, 0, c.width, c.height).data;
+    let n = 0;
+    for (let i = 0; i < d.length; i += 4) if (Math.abs(d[i] - 0x0b) + Math.abs(d[i + 1] - 0x12) + Math.abs(d[i + 2] - 0x1b) > 40) n++;
+    return n / (d.length / 4);
+  }, png.toString('base64'));
+}
+
+/** Fraction of pixels that differ noticeably between two same-sized screenshots. */
+async function changedFraction(page: Page, a: Buffer, b: Buffer): Promise<number> {
+  return page.evaluate(async ([a64, b64]) => {
+    const load = async (s: string) => {
+      const img = new Image();
+      img.src = `data:image/png;base64,${s}`;
+      await img.decode();
+      const c = document.createElement('canvas');
+      c.width = img.width; c.height = img.height;
+      const g = c.getContext('2d')!;
+      g.drawImage(img, 0, 0);
+      return g.getImageData(0, 0, c.width, c.height).data;
+    };
+    const [da, db] = [await load(a64), await load(b64)];
+    if (da.length !== db.length) return 1;
+    let n = 0;
+    for (let i = 0; i < da.length; i += 4) if (Math.abs(da[i] - db[i]) + Math.abs(da[i + 1] - db[i + 1]) + Math.abs(da[i + 2] - db[i + 2]) > 30) n++;
+    return n / (da.length / 4);
+  }, [a.toString('base64'), b.toString('base64')] as const);
+}
+
+/** requestAnimationFrame intervals over `ms` in the page: median, 95th percentile and mean, ms. */
+async function frameTimes(page: Page, ms: number): Promise<{ median: number; p95: number; mean: number; frames: number }> {
+  return page.evaluate((duration) => new Promise((resolve) => {
+    const deltas: number[] = [];
+    let last = performance.now();
+    const start = last;
+    const tick = (now: number) => {
+      deltas.push(now - last);
+      last = now;
+      if (now - start < duration) requestAnimationFrame(tick);
+      else {
+        const s = [...deltas].sort((x, y) => x - y);
+        resolve({ median: s[Math.floor(s.length / 2)], p95: s[Math.floor(s.length * 0.95)], mean: deltas.reduce((x, y) => x + y, 0) / deltas.length, frames: deltas.length });
+      }
+    };
+    requestAnimationFrame(tick);
+  }), ms);
+}
+
+test('a trainee on a phone opens a cleared maneuver, watches it in 3D, switches camera and speed, and logs the rehearsal', async ({ page, request }, testInfo) => {
+  test.setTimeout(120_000);
+  const versionId = await clearedManeuver(request);
+
+  await page.setViewportSize({ width: 375, height: 812 });
+  await signIn(page, TRAINEE);
+  await page.goto('/rehearse');
+  const item = page.getByRole('listitem', { name: /E2E pitch-down arm orbit/ });
+  await expect(item).toBeVisible();
+  await expect(item).toContainText('Not rehearsed yet');
+  if (SCREENS) { mkdirSync(SCREENS, { recursive: true }); await page.screenshot({ path: path.join(SCREENS, 'rehearse-list-phone.png') }); }
+  await item.click();
+  await expect(page).toHaveURL(new RegExp(`/rehearse/${versionId}`));
+
+  // The player: the canvas draws the body (software WebGL) and the first cue shows.
+  const player = page.getByTestId('rehearsal-player');
+  const canvas = player.locator('canvas');
+  await expect(canvas).toBeVisible({ timeout: 30_000 });
+  await expect(player.getByTestId('cue-step')).toHaveText(/Step 1 of \d+/);
+  await page.waitForTimeout(800);
+  const first = await canvas.screenshot();
+  const drawn = await drawnFraction(page, first);
+  testInfo.annotations.push({ type: 'drawn pixels', description: `${(drawn * 100).toFixed(1)}%` });
+  expect(drawn).toBeGreaterThan(0.03);
+
+  // Play: the cue advances to the cyclic step with its cycle count, and the image changes over time.
+  await player.getByRole('button', { name: 'Play', exact: true }).click();
+  await expect(player.getByTestId('cue-step')).toHaveText(/Step 2 of/, { timeout: 15_000 });
+  await expect(player.getByTestId('cue-cycle')).toHaveText(/cycle [12] of 3/);
+  const ft = await frameTimes(page, 3000);
+  testInfo.annotations.push({ type: 'frame time (rAF, ms)', description: `median ${ft.median.toFixed(1)}, p95 ${ft.p95.toFixed(1)}, mean ${ft.mean.toFixed(1)} over ${ft.frames} frames` });
+  console.log(`rehearse e2e frame time (rAF deltas, SwiftShader, 375×812): median ${ft.median.toFixed(1)} ms, p95 ${ft.p95.toFixed(1)} ms, mean ${ft.mean.toFixed(1)} ms, ${ft.frames} frames`);
+  const later = await canvas.screenshot();
+  const changed = await changedFraction(page, first, later);
+  testInfo.annotations.push({ type: 'changed pixels', description: `${(changed * 100).toFixed(1)}%` });
+  expect(changed).toBeGreaterThan(0.005);
+  const phone = await page.screenshot();
+  await testInfo.attach('rehearsal-player-phone', { body: phone, contentType: 'image/png' });
+  await page.screenshot({ path: testInfo.outputPath('rehearsal-player-phone.png') });
+  if (SCREENS) await page.screenshot({ path: path.join(SCREENS, 'rehearse-player-phone.png') });
+
+  // Faster playback.
+  await player.getByRole('radio', { name: '2×', exact: true }).click();
+  await expect(player.getByRole('radio', { name: '2×', exact: true })).toHaveAttribute('aria-checked', 'true');
+  await expect(player).toContainText('· 2×');
+
+  // Body-fixed camera: the view is now carried by the body.
+  const beforeCam = await canvas.screenshot();
+  await player.getByRole('radio', { name: 'Body-fixed' }).click();
+  await expect(player.getByRole('radio', { name: 'Body-fixed' })).toHaveAttribute('aria-checked', 'true');
+  await page.waitForTimeout(500);
+  expect(await changedFraction(page, beforeCam, await canvas.screenshot())).toBeGreaterThan(0.02);
+  if (SCREENS) await page.screenshot({ path: path.join(SCREENS, 'rehearse-player-body-camera-phone.png') });
+  await player.getByRole('radio', { name: 'Observer' }).click();
+  await player.getByRole('button', { name: 'Side view' }).click();
+  await player.getByRole('radio', { name: '0.5×' }).click();
+
+  // Log the run: the form is prefilled from the player.
+  await player.getByRole('button', { name: 'Log rehearsal' }).click();
+  await expect(player).toBeHidden();
+  await expect(page.getByRole('radio', { name: '0.5×' })).toHaveAttribute('aria-checked', 'true');
+  await page.getByRole('radio', { name: '4', exact: true }).click();
+  await page.getByLabel('Notes').fill('Kept the circles even; watch the left elbow.');
+  await page.getByRole('button', { name: 'Save rehearsal' }).click();
+  await expect(page.getByText('Rehearsal logged.')).toBeVisible();
+  const history = page.getByRole('list', { name: 'Rehearsal history' });
+  await expect(history).toContainText('Kept the circles even');
+  await expect(history).toContainText('0.5×');
+  if (SCREENS) await page.screenshot({ path: path.join(SCREENS, 'rehearse-log-phone.png'), fullPage: true });
+
+  // The list shows the last rehearsal.
+  await page.goto('/rehearse');
+  await expect(page.getByRole('listitem', { name: /E2E pitch-down arm orbit/ })).toContainText('rated 4/5');
+});
