@@ -1,4 +1,5 @@
-import { useForm } from 'react-hook-form';
+import { useEffect } from 'react';
+import { useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
@@ -33,15 +34,18 @@ export interface StepEditorProps {
  * schema), with a live preview of the trainee's cue.
  */
 export function StepEditor({ initial, position, onApply, onCancel, inlineButtons = false, submitRef }: StepEditorProps) {
-  const { control, handleSubmit, watch, reset, formState } = useForm<StepFormValues, unknown, Primitive>({
+  const { control, handleSubmit, reset, formState } = useForm<StepFormValues, unknown, Primitive>({
     resolver: stepFormResolver,
     defaultValues: primitiveToForm(initial),
     mode: 'onTouched',
   });
-  const values = watch();
+  const values = useWatch({ control }) as StepFormValues;
   const preview = tryParseStep(values);
   const apply = handleSubmit((step) => onApply(step));
-  if (submitRef) submitRef.current = () => void apply();
+  // Hand the sheet footer the latest submit after each render.
+  useEffect(() => {
+    if (submitRef) submitRef.current = () => void apply();
+  });
   return (
     <View style={styles.wrap} testID="step-editor">
       <Select<PrimitiveKind>

@@ -40,7 +40,7 @@ export function StepList({ steps, selected, readOnly = false, onEdit, onMove, on
               aria-label={readOnly ? label : `Edit step ${i + 1}`}
               disabled={readOnly || !onEdit}
               onPress={() => onEdit?.(i)}
-              style={({ focused }: { focused?: boolean }) => [styles.main, focused && styles.focused]}
+              style={({ pressed, focused }: { pressed: boolean; focused?: boolean }) => [styles.main, pressed && styles.pressed, focused && styles.focused]}
             >
               <View style={styles.index}>
                 <Text variant="label" tone="accent">
@@ -75,6 +75,7 @@ const styles = StyleSheet.create({
   row: { borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, padding: spacing.sm, gap: spacing.xs },
   rowSelected: { borderColor: colors.accent },
   main: { flexDirection: 'row', gap: spacing.md, alignItems: 'flex-start', borderRadius: radii.sm, padding: spacing.xs },
+  pressed: { backgroundColor: colors.raised },
   focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
   index: { width: 28, height: 28, borderRadius: radii.pill, backgroundColor: colors.accentTint, alignItems: 'center', justifyContent: 'center' },
   texts: { flex: 1, gap: 2 },

@@ -1,0 +1,108 @@
+import { useRouter } from 'expo-router';
+import { useMemo, useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { useSequencesQuery, useCrewOptionsQuery } from '@/components/api/use-sequences';
+import { useSessionQuery } from '@/components/api/use-session';
+import { useIsWide } from '@/components/layout/use-is-wide';
+import { spacing } from '@/components/theme';
+import { Button } from '@/components/ui/Button';
+import { EmptyState } from '@/components/ui/EmptyState';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { LoadingState } from '@/components/ui/LoadingState';
+import { Screen } from '@/components/ui/Screen';
+import { Select } from '@/components/ui/Select';
+import { TextField } from '@/components/ui/TextField';
+import { VERSION_STATUS_LABELS, VERSION_STATUSES, type VersionStatus } from '@/shared/contracts/version-status';
+import { CreateSequenceSheet } from './CreateSequenceSheet';
+import { ManeuverCautions } from './ManeuverCautions';
+import { SequenceRow } from './SequenceRow';
+
+/** The Maneuvers tab: every sequence with its latest status, search and filters, and "new maneuver". */
+export function ManeuversScreen() {
+  const router = useRouter();
+  const wide = useIsWide();
+  const session = useSessionQuery();
+  const [crewMemberId, setCrewMemberId] = useState('');
+  const [status, setStatus] = useState<VersionStatus | ''>('');
+  const [search, setSearch] = useState('');
+  const [creating, setCreating] = useState(false);
+  const sequences = useSequencesQuery(crewMemberId || undefined);
+  const crew = useCrewOptionsQuery();
+  const canCompose = session.data?.role === 'planner' || session.data?.role === 'admin';
+
+  const shown = useMemo(() => {
+    const needle = search.trim().toLowerCase();
+    return (sequences.data ?? []).filter(
+      (s) =>
+        (!needle || s.name.toLowerCase().includes(needle) || s.crewMemberName.toLowerCase().includes(needle)) &&
+        (!status || s.latest?.status === status),
+    );
+  }, [sequences.data, search, status]);
+
+  return (
+    <Screen
+      title="Maneuvers"
+      subtitle="Limb-sweep sequences, their verification and review"
+      actions={canCompose ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : null}
+    >
+      <View style={[styles.filters, wide && styles.filtersWide]}>
+        <View style={styles.filter}>
+          <TextField label="Search" value={search} onChangeText={setSearch} placeholder="Name or crew member" autoCapitalize="none" />
+        </View>
+        <View style={styles.filter}>
+          <Select
+            label="Crew member"
+            options={(crew.data ?? []).map((m) => ({ value: m.id, label: m.name }))}
+            value={crewMemberId}
+            onChange={setCrewMemberId}
+            placeholder="Everyone"
+          />
+        </View>
+        <View style={styles.filter}>
+          <Select label="Status" options={VERSION_STATUSES.map((s) => ({ value: s, label: VERSION_STATUS_LABELS[s] }))} value={status} onChange={setStatus} placeholder="Any status" />
+        </View>
+      </View>
+      {sequences.isPending ? <LoadingState label="Loading maneuvers…" /> : null}
+      {sequences.isError ? <ErrorBanner title="Could not load the maneuvers" error={sequences.error} onRetry={() => void sequences.refetch()} /> : null}
+      {sequences.data && shown.length === 0 ? (
+        <EmptyState
+          icon="rotate-cw"
+          title={sequences.data.length ? 'No maneuver matches' : 'No maneuvers yet'}
+          body={
+            sequences.data.length
+              ? 'Clear the search or the filters to see every maneuver.'
+              : 'A maneuver belongs to one crew member and has a target reorientation. Compose it from limb sweeps and let the engine verify it.'
+          }
+          action={canCompose && !sequences.data.length ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : undefined}
+        />
+      ) : null}
+      <View role="list" aria-label="Maneuvers" style={[styles.list, wide && styles.listWide]}>
+        {shown.map((s) => (
+          <View key={s.id} role="listitem" style={wide ? styles.cellWide : undefined}>
+            <SequenceRow sequence={s} onOpen={() => router.push(`/maneuvers/${s.id}`)} />
+          </View>
+        ))}
+      </View>
+      <ManeuverCautions compact />
+      <CreateSequenceSheet
+        visible={creating}
+        crewMemberId={crewMemberId || undefined}
+        onClose={() => setCreating(false)}
+        onCreated={(s) => {
+          setCreating(false);
+          router.push(`/maneuvers/${s.id}`);
+        }}
+      />
+    </Screen>
+  );
+}
+
+const styles = StyleSheet.create({
+  filters: { gap: spacing.md },
+  filtersWide: { flexDirection: 'row', alignItems: 'flex-start' },
+  filter: { flexGrow: 1, flexBasis: 200 },
+  list: { gap: spacing.sm },
+  listWide: { flexDirection: 'row', flexWrap: 'wrap' },
+  cellWide: { flexBasis: '48%', flexGrow: 1 },
+});

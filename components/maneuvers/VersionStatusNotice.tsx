@@ -1,0 +1,65 @@
+import { StyleSheet, View } from 'react-native';
+
+import { colors, radii, spacing } from '@/components/theme';
+import { Icon, type IconName } from '@/components/ui/Icon';
+import { Text } from '@/components/ui/Text';
+import type { VersionDetail } from '@/shared/contracts/maneuver';
+import { fmtDeg, fmtWhen } from './report/format';
+
+/** Props of {@link VersionStatusNotice}. */
+export interface VersionStatusNoticeProps {
+  version: VersionDetail;
+}
+
+/** What the version's status means for the person looking at it, in one or two sentences. */
+export function VersionStatusNotice({ version: v }: VersionStatusNoticeProps) {
+  let icon: IconName = 'info';
+  let color: string = colors.muted;
+  let text: string;
+  const lastSendBack = [...v.reviews].reverse().find((r) => r.decision === 'send_back');
+  switch (v.status) {
+    case 'drafting':
+      text = v.report ? 'Verified draft. Submit it for review when the report looks right.' : 'Draft without a verification report.';
+      break;
+    case 'under_review':
+      icon = 'clock';
+      color = colors.accent;
+      text = `Submitted ${fmtWhen(v.submittedAt)}; waiting for a reviewer. Saving changes makes a new version.`;
+      break;
+    case 'cleared':
+      icon = 'check-circle';
+      color = colors.success;
+      text = `Cleared by ${v.clearedByName ?? 'a reviewer'} on ${fmtWhen(v.clearedAt)} for profile v${v.profileVersion}, engine ${v.engineVersion ?? '—'}. A cleared version is frozen; saving changes makes a new version.`;
+      break;
+    case 'sent_back':
+      icon = 'corner-up-left';
+      color = colors.danger;
+      text = `Sent back${lastSendBack ? ` by ${lastSendBack.reviewerName}: “${lastSendBack.comment}”` : ''}. Change the steps and save a new version.`;
+      break;
+    case 'replaced':
+      icon = 'layers';
+      text = 'A newer version replaced this one. It stays here for the record.';
+      break;
+    case 'recheck': {
+      icon = 'alert-triangle';
+      color = colors.danger;
+      const r = v.reverification;
+      const moved = r?.state === 'done' ? ` Recomputed on the new profile: the final attitude moved ${fmtDeg(r.attitudeShiftDeg ?? 0, 2)}, error to target now ${fmtDeg(r.targetErrorDeg ?? 0, 2)}.` : r ? ` Recomputation ${r.state}.` : '';
+      text = `The crew member's profile changed since this version was verified (it used v${v.profileVersion}).${moved} Save a new version to verify it on the current profile and submit it again.`;
+      break;
+    }
+  }
+  return (
+    <View style={[styles.box, { borderColor: color }]} role="status" testID="version-status-notice">
+      <Icon name={icon} size={16} color={color} />
+      <Text variant="caption" style={styles.text}>
+        {text}
+      </Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  box: { flexDirection: 'row', gap: spacing.sm, padding: spacing.md, borderRadius: radii.md, borderWidth: 1, backgroundColor: colors.surface, alignItems: 'flex-start' },
+  text: { flex: 1 },
+});

@@ -1,0 +1,83 @@
+import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
+
+import { colors, radii, spacing } from '@/components/theme';
+import { Text } from '@/components/ui/Text';
+import type { VersionSummary } from '@/shared/contracts/maneuver';
+import { fmtDeg, fmtSeconds, fmtWhen } from '../report/format';
+import { VersionStatusBadge } from '../VersionStatusBadge';
+
+/** Props of {@link VersionList}. */
+export interface VersionListProps {
+  versions: readonly VersionSummary[];
+  /** The version on screen. */
+  selectedId?: string;
+  onOpen: (versionId: string) => void;
+}
+
+/** One line of a report summary: "error 0.8° · 9.5 s · no range violations". */
+export function summaryLine(v: VersionSummary): string {
+  const s = v.summary;
+  if (!s) return 'not verified';
+  const viol = s.rangeViolationCount === 0 ? 'no range violations' : `${s.rangeViolationCount} range violation${s.rangeViolationCount > 1 ? 's' : ''}`;
+  return `error ${fmtDeg(s.targetErrorDeg, 2)} · ${fmtSeconds(s.durationS, 1)} · ${viol}`;
+}
+
+/** Every version of a sequence, newest first: status, author, time, profile version and result. */
+export function VersionList({ versions, selectedId, onOpen }: VersionListProps) {
+  return (
+    <View role="list" aria-label="Versions" style={styles.list}>
+      {versions.map((v) => (
+        <Pressable
+          key={v.id}
+          role="button"
+          aria-label={`Open version ${v.version}`}
+          aria-current={v.id === selectedId}
+          onPress={() => onOpen(v.id)}
+          testID={`version-row-${v.version}`}
+          style={({ pressed, focused }: { pressed: boolean; focused?: boolean }) => [
+            styles.row,
+            v.id === selectedId && styles.selected,
+            pressed && styles.pressed,
+            focused && styles.focused,
+          ]}
+        >
+          <View style={styles.head}>
+            <Text variant="bodyStrong">Version {v.version}</Text>
+            <VersionStatusBadge status={v.status} />
+          </View>
+          <Text variant="caption" tone="muted">
+            {v.authorName ?? 'unknown author'} · {fmtWhen(v.createdAt)} · profile v{v.profileVersion}
+            {v.profileIsCurrent ? '' : ' (no longer current)'}
+          </Text>
+          <Text variant="caption" tone={v.summary?.withinTolerance === false ? 'danger' : 'default'}>
+            {summaryLine(v)}
+          </Text>
+          {v.clearedByName ? (
+            <Text variant="caption" tone="success">
+              Cleared by {v.clearedByName} · {fmtWhen(v.clearedAt)}
+            </Text>
+          ) : null}
+          {v.status === 'recheck' && v.reverification ? (
+            <Text variant="caption" tone="danger">
+              Profile changed: {v.reverification.state === 'done' ? `final attitude moved ${fmtDeg(v.reverification.attitudeShiftDeg ?? 0, 2)}` : `recomputing (${v.reverification.state})`}
+            </Text>
+          ) : null}
+          {v.note ? (
+            <Text variant="caption" tone="muted" numberOfLines={2}>
+              “{v.note}”
+            </Text>
+          ) : null}
+        </Pressable>
+      ))}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  list: { gap: spacing.sm },
+  row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: 2 },
+  selected: { borderColor: colors.accent },
+  pressed: { backgroundColor: colors.raised },
+  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
+  head: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: spacing.sm, flexWrap: 'wrap' },
+});

@@ -1,0 +1,78 @@
+import { StyleSheet, View } from 'react-native';
+
+import { useVersionQuery } from '@/components/api/use-sequences';
+import { StepList } from '@/components/maneuvers/composer/StepList';
+import { fmtWhen } from '@/components/maneuvers/report/format';
+import { VerificationReport } from '@/components/maneuvers/report/VerificationReport';
+import { targetText } from '@/components/maneuvers/target-text';
+import { VersionStatusBadge } from '@/components/maneuvers/VersionStatusBadge';
+import { VersionStatusNotice } from '@/components/maneuvers/VersionStatusNotice';
+import { isApiStatus } from '@/components/api/client';
+import { spacing } from '@/components/theme';
+import { EmptyState } from '@/components/ui/EmptyState';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { LoadingState } from '@/components/ui/LoadingState';
+import { Text } from '@/components/ui/Text';
+import { ReviewDecisionPanel } from './ReviewDecisionPanel';
+import { ReviewHistory } from './ReviewHistory';
+
+/** Props of {@link ReviewDetail}. */
+export interface ReviewDetailProps {
+  versionId: string;
+}
+
+/** One version as a reviewer sees it: what it is, the decision controls, its steps, report and history. */
+export function ReviewDetail({ versionId }: ReviewDetailProps) {
+  const q = useVersionQuery(versionId);
+  if (q.isPending) return <LoadingState label="Loading the version…" />;
+  if (q.isError) {
+    return isApiStatus(q.error, 404, 403) ? (
+      <EmptyState icon="slash" title="This version is not available" body="It does not exist, or your role cannot see it." />
+    ) : (
+      <ErrorBanner title="Could not load the version" error={q.error} onRetry={() => void q.refetch()} />
+    );
+  }
+  const v = q.data;
+  return (
+    <View style={styles.wrap} testID="review-detail">
+      <View style={styles.head}>
+        <View style={styles.titleRow}>
+          <Text variant="title" role="heading" aria-level={1} style={styles.flex}>
+            {v.sequence.name} · v{v.version}
+          </Text>
+          <VersionStatusBadge status={v.status} />
+        </View>
+        <Text tone="muted">
+          {v.sequence.crewMemberName} · target {targetText(v.sequence.target)}
+        </Text>
+        <Text variant="caption" tone="muted">
+          By {v.authorName ?? 'unknown'} · saved {fmtWhen(v.createdAt)}
+          {v.submittedAt ? ` · submitted ${fmtWhen(v.submittedAt)}` : ''} · profile v{v.profileVersion}
+          {v.profileIsCurrent ? '' : ' (no longer current)'}
+        </Text>
+        {v.note ? <Text variant="caption">“{v.note}”</Text> : null}
+      </View>
+      <VersionStatusNotice version={v} />
+      <ReviewDecisionPanel version={v} />
+      <Text variant="heading" role="heading" aria-level={2}>
+        Steps
+      </Text>
+      <StepList steps={v.primitives} readOnly />
+      <Text variant="heading" role="heading" aria-level={2}>
+        Verification report
+      </Text>
+      {v.report ? <VerificationReport report={v.report} versionId={v.id} profileVersion={v.profileVersion} /> : <Text tone="danger">This version has no verification report.</Text>}
+      <Text variant="heading" role="heading" aria-level={2}>
+        Review history
+      </Text>
+      <ReviewHistory reviews={v.reviews} />
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  wrap: { gap: spacing.lg },
+  head: { gap: spacing.xs },
+  titleRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, flexWrap: 'wrap' },
+  flex: { flex: 1 },
+});
