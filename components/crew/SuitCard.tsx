@@ -12,8 +12,8 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Text } from '@/components/ui/Text';
 import type { SuitView } from '@/shared/contracts/crew';
 import { suitConfigSchema } from '@/shared/contracts/suit';
-import { DOF_LABELS, type DofName } from '@/shared/model/dof-names';
-import { SEGMENT_LABELS, type SegmentName } from '@/shared/model/segment-names';
+import { DOF_LABELS, DOF_NAMES, type DofName } from '@/shared/model/dof-names';
+import { SEGMENT_LABELS, SEGMENT_NAMES, type SegmentName } from '@/shared/model/segment-names';
 import { fixed } from './format-values';
 import { ValueTable } from './ValueTable';
 
@@ -31,9 +31,10 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
   const [draft, setDraft] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
   const update = useUpdateSuitMutation();
-  const added = Object.entries(c.segments).map(([seg, a]) => ({ seg, mass: a?.mass ?? 0 }));
+  // Body order (stored JSON comes back with its keys reordered).
+  const added = SEGMENT_NAMES.filter((seg) => c.segments[seg]).map((seg) => ({ seg, mass: c.segments[seg]?.mass ?? 0 }));
   const total = added.reduce((s, a) => s + a.mass, 0);
-  const ranges = Object.entries(c.ranges).map(([dof, r]) => ({ dof, min: r?.min ?? 0, max: r?.max ?? 0 }));
+  const ranges = DOF_NAMES.filter((dof) => c.ranges[dof]).map((dof) => ({ dof, min: c.ranges[dof]?.min ?? 0, max: c.ranges[dof]?.max ?? 0 }));
 
   const save = () => {
     setProblem(null);
