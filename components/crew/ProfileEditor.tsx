@@ -84,6 +84,11 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
       <Text tone="muted">
         {baseVersion ? `Editing on top of version ${baseVersion}. Saving makes version ${baseVersion + 1}; version ${baseVersion} stays as it is.` : 'The first save makes version 1.'}
       </Text>
+      {current?.source === 'measured' ? (
+        <Text tone="accent">
+          Version {current.version} uses a measured segment table. Saving this form derives the body from the regression again; upload the table again to keep measured values.
+        </Text>
+      ) : null}
 
       <Card title="Body">
         <View style={styles.fields}>
