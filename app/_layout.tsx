@@ -9,11 +9,11 @@ import { useState } from 'react';
 
 import { createQueryClient } from '@/components/api/query-client';
 import { navigationTheme } from '@/components/shell/navigation-theme';
-import { paintPageBackground } from '@/components/shell/page-background';
+import { applyPageStyles } from '@/components/shell/page-styles';
 import { colors } from '@/components/theme';
 import { iconFont } from '@/components/ui/Icon';
 
-paintPageBackground();
+applyPageStyles();
 
 export default function RootLayout() {
   const [queryClient] = useState(createQueryClient);
