@@ -3,7 +3,7 @@
  * piece by piece at step boundaries (joint rates may jump there), with dense output at requested times.
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
-import { bodyRate, createMomentumWork, type MomentumWork } from './locked-momentum.ts';
+import { bodyRate, createMomentumWork, type MomentumWork, restrictToPiece } from './locked-momentum.ts';
 import { evalPiece, type MotionPlan } from './joint-motion.ts';
 import { odex } from './odex-solver.ts';
 
@@ -40,6 +40,8 @@ export function attitudeRhs(model: BodyModel, work: MomentumWork, piece: MotionP
   const qd = new Float64Array(model.dofCount);
   return (t: number, y: number[]): number[] => {
     counter.n++;
+    // Segments at rest over the piece are posed once (the work may be shared between pieces).
+    if (work.piece !== piece) restrictToPiece(model, piece, work);
     evalPiece(piece, t, q, qd);
     const w = bodyRate(model, q, qd, work);
     const wx = w[0], wy = w[1], wz = w[2];
@@ -67,11 +69,11 @@ export function integrateAttitude(
   const stats: IntegratorStats = { rhsEvaluations: 0, steps: 0, rejectedSteps: 0, pieces: plan.pieces.length };
   let y = [1, 0, 0, 0];
   let o = 0;
-  const record = (at: (c: number) => number) => {
-    const w = at(0), x = at(1), yy = at(2), z = at(3);
+  /** Appends one attitude, renormalised. */
+  function record(w: number, x: number, yy: number, z: number): void {
     const n = Math.hypot(w, x, yy, z);
     outputs[o++] = w / n; outputs[o++] = x / n; outputs[o++] = yy / n; outputs[o++] = z / n;
-  };
+  }
   plan.pieces.forEach((piece, p) => {
     const times = pieceTimes[p] ?? [];
     let next = 0;
@@ -83,14 +85,14 @@ export function integrateAttitude(
     const f = attitudeRhs(model, work, piece, counter);
     const res = solver.solve(f, piece.t0, y, piece.t1, (nr, _xOld, x, yy, dense) => {
       // The first call is the initial point (no step yet, no interpolant).
-      if (nr === 1) { while (next < times.length && times[next] <= x) { record((c) => yy[c]); next++; } return; }
-      while (next < times.length && times[next] <= x) { const t = times[next++]; record((c) => dense(c, t)); }
+      if (nr === 1) { while (next < times.length && times[next] <= x) { record(yy[0], yy[1], yy[2], yy[3]); next++; } return; }
+      while (next < times.length && times[next] <= x) { const t = times[next++]; record(dense(0, t), dense(1, t), dense(2, t), dense(3, t)); }
     });
     if (res.outcome !== odex.Outcome.Converged) {
       throw new Error(`integrator did not converge in step ${piece.step} (outcome ${odex.Outcome[res.outcome]} after ${res.nStep} steps)`);
     }
     // Times past the last accepted step (rounding at the piece end) take the end value.
-    while (next < times.length) { record((c) => res.y[c]); next++; }
+    while (next < times.length) { record(res.y[0], res.y[1], res.y[2], res.y[3]); next++; }
     stats.steps += res.nAccept;
     stats.rejectedSteps += res.nReject;
     // Carry the renormalised end state into the next piece.

@@ -28,6 +28,8 @@ export interface MotionPiece {
   readonly hAmplitude: Float64Array;
   readonly hPhase: Float64Array;
   readonly omega: number;
+  /** Indices of the dofs whose angle changes within the piece (ascending); the others stay at `from`. */
+  readonly moving: Int32Array;
 }
 
 /** The whole prescribed motion. */
@@ -64,7 +66,9 @@ export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
       hPhase = Float64Array.from(entries.map(([, j]) => j.phase * DEG));
       omega = (2 * Math.PI) / step.period;
     }
-    const piece: MotionPiece = { kind: step.kind, step: index, t0: t, t1: t + d, from, to, hDofs, hOffset, hAmplitude, hPhase, omega };
+    const moving = step.kind === 'move' ? Int32Array.from(from.keys()).filter((k) => to[k] !== from[k])
+      : step.kind === 'harmonic' ? Int32Array.from(hDofs).sort() : new Int32Array(0);
+    const piece: MotionPiece = { kind: step.kind, step: index, t0: t, t1: t + d, from, to, hDofs, hOffset, hAmplitude, hPhase, omega, moving };
     pieces.push(piece);
     // The next step starts where this one ends.
     evalPiece(piece, piece.t1, cur, null);

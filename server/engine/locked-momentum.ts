@@ -4,8 +4,9 @@
  * and the body rate ω = −I_lock⁻¹ h that keeps the total angular momentum zero.
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
-import { type BodyPose, createBodyPose, forwardKinematics, segmentVelocities } from '../../shared/kinematics/forward-kinematics.ts';
+import { type BodyPose, createBodyPose, forwardKinematics, movingSegments, segmentVelocities } from '../../shared/kinematics/forward-kinematics.ts';
 import { solveSpd3 } from '../../shared/math/mat3.ts';
+import { evalPiece, type MotionPiece } from './joint-motion.ts';
 
 /** Preallocated work buffers for one model (the mutable side of the (model, state) split). */
 export interface MomentumWork {
@@ -20,6 +21,19 @@ export interface MomentumWork {
   omega: Float64Array;
   /** System CoM in the root frame, m. */
   c: Float64Array;
+  /** Segments recomputed at each evaluation (tree order): all of them until restricted to a piece. */
+  moving: Int32Array;
+  /** The piece the work is restricted to (null: none, every segment is recomputed). */
+  piece: MotionPiece | null;
+  /** Composite of the segments at rest within that piece: mass, kg (0 when none). */
+  restMass: number;
+  /** Its CoM in the root frame, m. */
+  restCom: Float64Array;
+  /** Its inertia about restCom in the root frame, kg·m², row-major. */
+  restInertia: Float64Array;
+  /** Scratch angles and rates (rad, rad/s), one per dof. */
+  q: Float64Array;
+  qd: Float64Array;
 }
 
 /** Allocates work buffers for a model. */
@@ -27,31 +41,83 @@ export function createMomentumWork(model: BodyModel): MomentumWork {
   return {
     pose: createBodyPose(model), originVel: new Float64Array(3 * model.segmentCount),
     lock: new Float64Array(9), h: new Float64Array(3), omega: new Float64Array(3), c: new Float64Array(3),
+    moving: Int32Array.from(model.parent.keys()), piece: null,
+    restMass: 0, restCom: new Float64Array(3), restInertia: new Float64Array(9),
+    q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
   };
 }
 
 /**
+ * Restricts the work to one motion piece: segments whose own and ancestors' dofs stay still over
+ * the piece keep one pose and zero velocity relative to the root, so they are posed once here and
+ * summed once into a rigid composite (mass, CoM, inertia about its CoM); bodyRate then recomputes
+ * only the moving segments. Exact: the same sums, grouped differently (round-off only).
+ * bodyRate must then be called only with angles and rates of that piece.
+ */
+export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: MomentumWork): void {
+  if (work.piece === piece) return;
+  const { pose, q, qd, restCom, restInertia } = work;
+  evalPiece(piece, piece.t0, q, null);
+  qd.fill(0);
+  forwardKinematics(model, q, pose);
+  segmentVelocities(model, qd, pose, work.originVel);
+  work.moving = movingSegments(model, piece.moving);
+  work.piece = piece;
+  const n = model.segmentCount, { mass, inertia } = model, { rot, comPos } = pose;
+  const rest = new Uint8Array(n).fill(1);
+  for (let j = 0; j < work.moving.length; j++) rest[work.moving[j]] = 0;
+  let M = 0, x = 0, y = 0, z = 0;
+  for (let i = 0; i < n; i++) {
+    if (!rest[i]) continue;
+    M += mass[i]; x += mass[i] * comPos[3 * i]; y += mass[i] * comPos[3 * i + 1]; z += mass[i] * comPos[3 * i + 2];
+  }
+  work.restMass = M;
+  restCom[0] = M > 0 ? x / M : 0; restCom[1] = M > 0 ? y / M : 0; restCom[2] = M > 0 ? z / M : 0;
+  restInertia.fill(0);
+  for (let i = 0; i < n; i++) {
+    if (!rest[i]) continue;
+    // R J Rᵀ + m(|d|²E − d dᵀ), d = segment CoM − composite CoM.
+    const dx = comPos[3 * i] - restCom[0], dy = comPos[3 * i + 1] - restCom[1], dz = comPos[3 * i + 2] - restCom[2];
+    const d = [dx, dy, dz], d2 = dx * dx + dy * dy + dz * dz;
+    for (let r = 0; r < 3; r++) {
+      for (let c = 0; c < 3; c++) {
+        let s = 0;
+        for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) s += rot[9 * i + 3 * r + a] * inertia[9 * i + 3 * a + b] * rot[9 * i + 3 * c + b];
+        restInertia[3 * r + c] += s + mass[i] * ((r === c ? d2 : 0) - d[r] * d[c]);
+      }
+    }
+  }
+}
+
+/**
  * From angles q (rad) and rates qd (rad/s): pose, velocities, work.lock, work.h and work.omega = −I_lock⁻¹h.
+ * After restrictToPiece, q and qd must belong to that piece (only its moving segments are recomputed).
  * Throws if I_lock is not positive definite (cannot happen for a valid body).
  */
 export function bodyRate(model: BodyModel, q: ArrayLike<number>, qd: ArrayLike<number>, work: MomentumWork): Float64Array {
-  const { pose, lock, h, c } = work;
-  forwardKinematics(model, q, pose);
-  segmentVelocities(model, qd, pose, work.originVel);
+  const { pose, lock, h, c, moving, restMass: mr, restCom, restInertia: J } = work;
+  forwardKinematics(model, q, pose, moving);
+  segmentVelocities(model, qd, pose, work.originVel, moving);
   const { rot, comPos, angVel, comVel } = pose;
   const { mass, inertia, totalMass } = model;
-  const n = model.segmentCount;
-  // System CoM and its velocity in the root frame.
-  let cx = 0, cy = 0, cz = 0, vcx = 0, vcy = 0, vcz = 0;
-  for (let i = 0; i < n; i++) {
+  const n = moving.length;
+  // System CoM and its velocity in the root frame (the composite at rest adds mass, not velocity).
+  let cx = mr * restCom[0], cy = mr * restCom[1], cz = mr * restCom[2], vcx = 0, vcy = 0, vcz = 0;
+  for (let j = 0; j < n; j++) {
+    const i = moving[j];
     const m = mass[i];
     cx += m * comPos[3 * i]; cy += m * comPos[3 * i + 1]; cz += m * comPos[3 * i + 2];
     vcx += m * comVel[3 * i]; vcy += m * comVel[3 * i + 1]; vcz += m * comVel[3 * i + 2];
   }
   cx /= totalMass; cy /= totalMass; cz /= totalMass; vcx /= totalMass; vcy /= totalMass; vcz /= totalMass;
   c[0] = cx; c[1] = cy; c[2] = cz;
-  let l00 = 0, l01 = 0, l02 = 0, l11 = 0, l12 = 0, l22 = 0, hx = 0, hy = 0, hz = 0;
-  for (let i = 0; i < n; i++) {
+  // The composite at rest: its inertia moved to the system CoM; momentum m d × (0 − ċ).
+  const ex = restCom[0] - cx, ey = restCom[1] - cy, ez = restCom[2] - cz, e2 = ex * ex + ey * ey + ez * ez;
+  let l00 = J[0] + mr * (e2 - ex * ex), l11 = J[4] + mr * (e2 - ey * ey), l22 = J[8] + mr * (e2 - ez * ez);
+  let l01 = J[1] - mr * ex * ey, l02 = J[2] - mr * ex * ez, l12 = J[5] - mr * ey * ez;
+  let hx = -mr * (ey * vcz - ez * vcy), hy = -mr * (ez * vcx - ex * vcz), hz = -mr * (ex * vcy - ey * vcx);
+  for (let j = 0; j < n; j++) {
+    const i = moving[j];
     const r = 9 * i;
     // K = R J (3×3), then S = K Rᵀ (symmetric: only the upper triangle).
     const r0 = rot[r], r1 = rot[r + 1], r2 = rot[r + 2], r3 = rot[r + 3], r4 = rot[r + 4], r5 = rot[r + 5], r6 = rot[r + 6], r7 = rot[r + 7], r8 = rot[r + 8];

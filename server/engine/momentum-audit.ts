@@ -11,7 +11,7 @@
  * but its derivative is ~10³× less accurate than the tolerance.)
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
-import { type BodyPose, createBodyPose, forwardKinematics } from '../../shared/kinematics/forward-kinematics.ts';
+import { type BodyPose, createBodyPose, forwardKinematics, movingSegments } from '../../shared/kinematics/forward-kinematics.ts';
 import { quatToMatrix } from '../../shared/math/quaternion.ts';
 import { evalPiece, type MotionPiece } from './joint-motion.ts';
 
@@ -45,6 +45,11 @@ export interface AuditWork {
   vel: Float64Array;
   Rq: Float64Array;
   att: Float64Array;
+  /** Stencil weights for the current spacing, 1/s. */
+  w: Float64Array;
+  /** The piece `pose` holds the segments at rest for (null: none yet), and its moving segments (tree order). */
+  piece: MotionPiece | null;
+  moving: Int32Array;
 }
 
 /** Allocates audit buffers. */
@@ -55,6 +60,7 @@ export function createAuditWork(model: BodyModel): AuditWork {
     rotW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(9 * n)),
     comW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(3 * n)),
     vel: new Float64Array(3 * n), Rq: new Float64Array(9), att: new Float64Array(4),
+    w: new Float64Array(STENCIL_POINTS), piece: null, moving: new Int32Array(0),
   };
 }
 
@@ -66,12 +72,22 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
   const { kind, delta } = chooseStencil(t, piece.t0, piece.t1);
   const st = STENCILS[kind];
   const n = model.segmentCount;
-  const { pose, rotW, comW, vel, Rq, att } = work;
+  const { pose, rotW, comW, vel, Rq, att, w } = work;
+  // Segments at rest over the piece keep one root-frame pose: pose them once per piece, and
+  // recompute only the moving ones at each stencil point (the same forward kinematics, reused).
+  if (work.piece !== piece) {
+    evalPiece(piece, piece.t0, work.q, null);
+    forwardKinematics(model, work.q, pose);
+    work.moving = movingSegments(model, piece.moving);
+    work.piece = piece;
+  }
+  const { rot, comPos } = pose;
   const wn = Math.hypot(omega[0], omega[1], omega[2]);
   let centre = 0;
   for (let j = 0; j < STENCIL_POINTS; j++) {
     const s = st.offsets[j] * delta;
     if (s === 0) centre = j;
+    w[j] = st.weights[j] / (12 * delta);
     // Root attitude q ⊗ exp(ω s / 2).
     const half = (wn * s) / 2, k = wn > 0 ? Math.sin(half) / wn : s / 2, c = Math.cos(half);
     const ex = omega[0] * k, ey = omega[1] * k, ez = omega[2] * k;
@@ -80,51 +96,64 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     att[2] = q[0] * ey - q[1] * ez + q[2] * c + q[3] * ex;
     att[3] = q[0] * ez + q[1] * ey - q[2] * ex + q[3] * c;
     quatToMatrix(att, Rq);
+    const a0 = Rq[0], a1 = Rq[1], a2 = Rq[2], a3 = Rq[3], a4 = Rq[4], a5 = Rq[5], a6 = Rq[6], a7 = Rq[7], a8 = Rq[8];
     // Segment poses from the prescribed joint angles, then to the world frame.
     evalPiece(piece, t + s, work.q, null);
-    forwardKinematics(model, work.q, pose);
+    forwardKinematics(model, work.q, pose, work.moving);
     const R = rotW[j], X = comW[j];
     for (let i = 0; i < n; i++) {
-      for (let r = 0; r < 3; r++) {
-        const a = Rq[3 * r], b = Rq[3 * r + 1], d = Rq[3 * r + 2];
-        for (let cc = 0; cc < 3; cc++) R[9 * i + 3 * r + cc] = a * pose.rot[9 * i + cc] + b * pose.rot[9 * i + 3 + cc] + d * pose.rot[9 * i + 6 + cc];
-        X[3 * i + r] = a * pose.comPos[3 * i] + b * pose.comPos[3 * i + 1] + d * pose.comPos[3 * i + 2];
-      }
+      const o = 9 * i, i3 = 3 * i;
+      const b0 = rot[o], b1 = rot[o + 1], b2 = rot[o + 2], b3 = rot[o + 3], b4 = rot[o + 4], b5 = rot[o + 5], b6 = rot[o + 6], b7 = rot[o + 7], b8 = rot[o + 8];
+      R[o] = a0 * b0 + a1 * b3 + a2 * b6; R[o + 1] = a0 * b1 + a1 * b4 + a2 * b7; R[o + 2] = a0 * b2 + a1 * b5 + a2 * b8;
+      R[o + 3] = a3 * b0 + a4 * b3 + a5 * b6; R[o + 4] = a3 * b1 + a4 * b4 + a5 * b7; R[o + 5] = a3 * b2 + a4 * b5 + a5 * b8;
+      R[o + 6] = a6 * b0 + a7 * b3 + a8 * b6; R[o + 7] = a6 * b1 + a7 * b4 + a8 * b7; R[o + 8] = a6 * b2 + a7 * b5 + a8 * b8;
+      const x = comPos[i3], y = comPos[i3 + 1], z = comPos[i3 + 2];
+      X[i3] = a0 * x + a1 * y + a2 * z; X[i3 + 1] = a3 * x + a4 * y + a5 * z; X[i3 + 2] = a6 * x + a7 * y + a8 * z;
     }
   }
-  const w = st.weights.map((x) => x / (12 * delta));
+  const C0 = comW[0], C1 = comW[1], C2 = comW[2], C3 = comW[3], C4 = comW[4];
+  const w0 = w[0], w1 = w[1], w2 = w[2], w3 = w[3], w4 = w[4];
   // System CoM position and velocity (world).
   const M = model.totalMass;
+  const X0 = comW[centre];
   let xcx = 0, xcy = 0, xcz = 0, vcx = 0, vcy = 0, vcz = 0;
   for (let i = 0; i < n; i++) {
-    for (let a = 0; a < 3; a++) {
-      let v = 0;
-      for (let s = 0; s < STENCIL_POINTS; s++) v += w[s] * comW[s][3 * i + a];
-      vel[3 * i + a] = v;
-    }
+    for (let a = 3 * i; a < 3 * i + 3; a++) vel[a] = w0 * C0[a] + w1 * C1[a] + w2 * C2[a] + w3 * C3[a] + w4 * C4[a];
     const m = model.mass[i] / M;
-    xcx += m * comW[centre][3 * i]; xcy += m * comW[centre][3 * i + 1]; xcz += m * comW[centre][3 * i + 2];
+    xcx += m * X0[3 * i]; xcy += m * X0[3 * i + 1]; xcz += m * X0[3 * i + 2];
     vcx += m * vel[3 * i]; vcy += m * vel[3 * i + 1]; vcz += m * vel[3 * i + 2];
   }
   let Hx = 0, Hy = 0, Hz = 0;
-  const R0 = rotW[centre], X0 = comW[centre], J = model.inertia;
-  const Rd = [0, 0, 0, 0, 0, 0, 0, 0, 0];
+  const R0 = rotW[centre], J = model.inertia;
+  const P0 = rotW[0], P1 = rotW[1], P2 = rotW[2], P3 = rotW[3], P4 = rotW[4];
   for (let i = 0; i < n; i++) {
     const o = 9 * i;
-    // Ṙ by the stencil; Ω = vee(skew part of Ṙ Rᵀ).
-    for (let e = 0; e < 9; e++) { let v = 0; for (let s = 0; s < STENCIL_POINTS; s++) v += w[s] * rotW[s][o + e]; Rd[e] = v; }
-    const A = (r: number, c: number) => Rd[3 * r] * R0[o + 3 * c] + Rd[3 * r + 1] * R0[o + 3 * c + 1] + Rd[3 * r + 2] * R0[o + 3 * c + 2];
-    const Ox = (A(2, 1) - A(1, 2)) / 2, Oy = (A(0, 2) - A(2, 0)) / 2, Oz = (A(1, 0) - A(0, 1)) / 2;
+    // Ṙ by the stencil; Ω = vee(skew part of Ṙ Rᵀ), A = Ṙ Rᵀ (only its off-diagonal entries are needed).
+    const d0 = w0 * P0[o] + w1 * P1[o] + w2 * P2[o] + w3 * P3[o] + w4 * P4[o];
+    const d1 = w0 * P0[o + 1] + w1 * P1[o + 1] + w2 * P2[o + 1] + w3 * P3[o + 1] + w4 * P4[o + 1];
+    const d2 = w0 * P0[o + 2] + w1 * P1[o + 2] + w2 * P2[o + 2] + w3 * P3[o + 2] + w4 * P4[o + 2];
+    const d3 = w0 * P0[o + 3] + w1 * P1[o + 3] + w2 * P2[o + 3] + w3 * P3[o + 3] + w4 * P4[o + 3];
+    const d4 = w0 * P0[o + 4] + w1 * P1[o + 4] + w2 * P2[o + 4] + w3 * P3[o + 4] + w4 * P4[o + 4];
+    const d5 = w0 * P0[o + 5] + w1 * P1[o + 5] + w2 * P2[o + 5] + w3 * P3[o + 5] + w4 * P4[o + 5];
+    const d6 = w0 * P0[o + 6] + w1 * P1[o + 6] + w2 * P2[o + 6] + w3 * P3[o + 6] + w4 * P4[o + 6];
+    const d7 = w0 * P0[o + 7] + w1 * P1[o + 7] + w2 * P2[o + 7] + w3 * P3[o + 7] + w4 * P4[o + 7];
+    const d8 = w0 * P0[o + 8] + w1 * P1[o + 8] + w2 * P2[o + 8] + w3 * P3[o + 8] + w4 * P4[o + 8];
+    const r0 = R0[o], r1 = R0[o + 1], r2 = R0[o + 2], r3 = R0[o + 3], r4 = R0[o + 4], r5 = R0[o + 5], r6 = R0[o + 6], r7 = R0[o + 7], r8 = R0[o + 8];
+    // A(r, c) = Σ_k Ṙ[r][k] R[c][k].
+    const A01 = d0 * r3 + d1 * r4 + d2 * r5, A02 = d0 * r6 + d1 * r7 + d2 * r8;
+    const A10 = d3 * r0 + d4 * r1 + d5 * r2, A12 = d3 * r6 + d4 * r7 + d5 * r8;
+    const A20 = d6 * r0 + d7 * r1 + d8 * r2, A21 = d6 * r3 + d7 * r4 + d8 * r5;
+    const Ox = (A21 - A12) / 2, Oy = (A02 - A20) / 2, Oz = (A10 - A01) / 2;
     // Spin: R J Rᵀ Ω.
-    const bx = R0[o] * Ox + R0[o + 3] * Oy + R0[o + 6] * Oz;
-    const by = R0[o + 1] * Ox + R0[o + 4] * Oy + R0[o + 7] * Oz;
-    const bz = R0[o + 2] * Ox + R0[o + 5] * Oy + R0[o + 8] * Oz;
+    const bx = r0 * Ox + r3 * Oy + r6 * Oz;
+    const by = r1 * Ox + r4 * Oy + r7 * Oz;
+    const bz = r2 * Ox + r5 * Oy + r8 * Oz;
     const jx = J[o] * bx + J[o + 1] * by + J[o + 2] * bz;
     const jy = J[o + 3] * bx + J[o + 4] * by + J[o + 5] * bz;
     const jz = J[o + 6] * bx + J[o + 7] * by + J[o + 8] * bz;
-    Hx += R0[o] * jx + R0[o + 1] * jy + R0[o + 2] * jz;
-    Hy += R0[o + 3] * jx + R0[o + 4] * jy + R0[o + 5] * jz;
-    Hz += R0[o + 6] * jx + R0[o + 7] * jy + R0[o + 8] * jz;
+    Hx += r0 * jx + r1 * jy + r2 * jz;
+    Hy += r3 * jx + r4 * jy + r5 * jz;
+    Hz += r6 * jx + r7 * jy + r8 * jz;
     // Orbit: m (x − x_c) × (ẋ − ẋ_c).
     const m = model.mass[i];
     const dx = X0[3 * i] - xcx, dy = X0[3 * i + 1] - xcy, dz = X0[3 * i + 2] - xcz;

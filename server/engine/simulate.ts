@@ -13,7 +13,7 @@ import { quatCanonical, quatToAxisAngle } from '../../shared/math/quaternion.ts'
 import { integrateAttitude } from './integrate-attitude.ts';
 import { compileMotion, evalPiece, type MotionPlan } from './joint-motion.ts';
 import { findRangeViolations, peakJointRates } from './joint-range.ts';
-import { bodyRate, createMomentumWork } from './locked-momentum.ts';
+import { bodyRate, createMomentumWork, restrictToPiece } from './locked-momentum.ts';
 import { auditAt, createAuditWork } from './momentum-audit.ts';
 import { ENGINE_VERSION } from './version.ts';
 
@@ -87,6 +87,7 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
     evalPiece(piece, t, q, qd);
     frames.push({ t, attitude: { w: a[0], x: a[1], y: a[2], z: a[3] }, jointsDeg: Array.from(q, (v) => v * DEG) });
     // The rate the integrator follows here (for the audit's root motion) and the shape momentum.
+    if (work.piece !== piece) restrictToPiece(model, piece, work);
     const omega = bodyRate(model, q, qd, work);
     peakH = Math.max(peakH, Math.hypot(work.h[0], work.h[1], work.h[2]));
     if (options.skipAudit) return;

@@ -37,15 +37,38 @@ export function createBodyPose(model: BodyModel): BodyPose {
 }
 
 /**
+ * Segments (indices, tree order) whose pose relative to the root changes when the dofs listed in
+ * `movingDofs` change: those with a moving dof of their own or a moving ancestor.
+ */
+export function movingSegments(model: BodyModel, movingDofs: ArrayLike<number>): Int32Array {
+  const n = model.segmentCount;
+  const moves = new Uint8Array(n);
+  const dofMoves = new Uint8Array(model.dofCount);
+  for (let j = 0; j < movingDofs.length; j++) dofMoves[movingDofs[j]] = 1;
+  const out: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const p = model.parent[i];
+    let m = p >= 0 && moves[p] === 1;
+    for (let k = model.dofStart[i]; k < model.dofStart[i + 1] && !m; k++) m = dofMoves[k] === 1;
+    if (m) { moves[i] = 1; out.push(i); }
+  }
+  return Int32Array.from(out);
+}
+
+/**
  * Fills pose.rot, pos, comPos and dofAxisRoot for joint angles q (rad, one per dof).
  * Child frame = parent frame moved by joint.origin, then rotated by Rot(a₁,θ₁)·Rot(a₂,θ₂)·….
+ * With `segments` (indices in tree order, parents before children), only those segments are
+ * recomputed: the others must already hold their pose for these angles (e.g. segments whose own
+ * and ancestors' angles do not change over a motion step, posed once at its start).
  */
-export function forwardKinematics(model: BodyModel, q: ArrayLike<number>, pose: BodyPose): void {
+export function forwardKinematics(model: BodyModel, q: ArrayLike<number>, pose: BodyPose, segments?: ArrayLike<number>): void {
   const { parent, origin, com, dofStart, dofAxis } = model;
   const { rot, pos, comPos, dofAxisRoot } = pose;
-  const n = model.segmentCount;
+  const n = segments ? segments.length : model.segmentCount;
   // Hot path: everything inline on locals (no helper calls, no temporaries).
-  for (let i = 0; i < n; i++) {
+  for (let j = 0; j < n; j++) {
+    const i = segments ? segments[j] : j;
     const p = parent[i];
     const o = 9 * i, i3 = 3 * i;
     let r0 = 1, r1 = 0, r2 = 0, r3 = 0, r4 = 1, r5 = 0, r6 = 0, r7 = 0, r8 = 1;
@@ -91,12 +114,15 @@ export function forwardKinematics(model: BodyModel, q: ArrayLike<number>, pose: 
  * Fills pose.angVel and pose.comVel (relative to the root frame) for joint rates qd (rad/s),
  * after forwardKinematics for the same angles. Analytic: ω_i = ω_parent + Σ axis_k·θ̇_k,
  * v_origin_i = v_origin_parent + ω_parent × (pos_i − pos_parent), v_com_i = v_origin_i + ω_i × (com_i − pos_i).
- * `originVel` is scratch of 3 per segment (joint-centre velocities).
+ * `originVel` is scratch of 3 per segment (joint-centre velocities). With `segments` (tree order),
+ * only those are recomputed; the others must already hold theirs (zero for segments at rest).
  */
-export function segmentVelocities(model: BodyModel, qd: ArrayLike<number>, pose: BodyPose, originVel: Float64Array): void {
+export function segmentVelocities(model: BodyModel, qd: ArrayLike<number>, pose: BodyPose, originVel: Float64Array, segments?: ArrayLike<number>): void {
   const { parent, dofStart } = model;
   const { pos, comPos, dofAxisRoot, angVel, comVel } = pose;
-  for (let i = 0; i < model.segmentCount; i++) {
+  const n = segments ? segments.length : model.segmentCount;
+  for (let j = 0; j < n; j++) {
+    const i = segments ? segments[j] : j;
     const p = parent[i];
     let wx = 0, wy = 0, wz = 0, vx = 0, vy = 0, vz = 0;
     if (p >= 0) {
