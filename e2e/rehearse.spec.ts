@@ -133,6 +133,11 @@ test('a trainee on a phone opens a cleared maneuver, watches it in 3D, switches 
   await player.getByRole('button', { name: 'Play', exact: true }).click();
   await expect(player.getByTestId('cue-step')).toHaveText(/Step 2 of/, { timeout: 15_000 });
   await expect(player.getByTestId('cue-cycle')).toHaveText(/cycle [12] of 3/);
+  // The phone screenshot kept as a test artifact, mid-sweep.
+  const phone = await page.screenshot();
+  await testInfo.attach('rehearsal-player-phone', { body: phone, contentType: 'image/png' });
+  await page.screenshot({ path: testInfo.outputPath('rehearsal-player-phone.png') });
+  if (SCREENS) await page.screenshot({ path: path.join(SCREENS, 'rehearse-player-phone.png') });
   const ft = await frameTimes(page, 3000);
   testInfo.annotations.push({ type: 'frame time (rAF, ms)', description: `median ${ft.median.toFixed(1)}, p95 ${ft.p95.toFixed(1)}, mean ${ft.mean.toFixed(1)} over ${ft.frames} frames` });
   console.log(`rehearse e2e frame time (rAF deltas, SwiftShader, 375×812): median ${ft.median.toFixed(1)} ms, p95 ${ft.p95.toFixed(1)} ms, mean ${ft.mean.toFixed(1)} ms, ${ft.frames} frames`);
@@ -140,10 +145,6 @@ test('a trainee on a phone opens a cleared maneuver, watches it in 3D, switches 
   const changed = await changedFraction(page, first, later);
   testInfo.annotations.push({ type: 'changed pixels', description: `${(changed * 100).toFixed(1)}%` });
   expect(changed).toBeGreaterThan(0.005);
-  const phone = await page.screenshot();
-  await testInfo.attach('rehearsal-player-phone', { body: phone, contentType: 'image/png' });
-  await page.screenshot({ path: testInfo.outputPath('rehearsal-player-phone.png') });
-  if (SCREENS) await page.screenshot({ path: path.join(SCREENS, 'rehearse-player-phone.png') });
 
   // Faster playback.
   await player.getByRole('radio', { name: '2×', exact: true }).click();

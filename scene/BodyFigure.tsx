@@ -41,7 +41,7 @@ export function applyPose(pose: WorldPose, objects: readonly (Object3D | null)[]
  */
 export function BodyFigure({ shapes, sides, parents, headSegment, segmentRefs, ghost = false, staticPose, ...group }: ThreeElements['group'] & BodyFigureProps) {
   const res = useMemo(() => {
-    const sphere = new SphereGeometry(1, ghost ? 16 : 24, ghost ? 12 : 16);
+    const sphere = new SphereGeometry(1, ghost ? 14 : 20, ghost ? 10 : 14);
     const mat = (color: string, roughness = 0.55) =>
       new MeshStandardMaterial({ color: ghost ? scenePalette.ghost : color, roughness, metalness: 0.05, transparent: ghost, opacity: ghost ? 0.22 : 1, depthWrite: !ghost });
     return {

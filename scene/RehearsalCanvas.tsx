@@ -29,7 +29,9 @@ export default function RehearsalCanvas({ scene, clock, cameraMode, preset, pres
       style={style}
       dpr={[1, 2]}
       camera={{ fov: 45, near: 0.05, far: 200, position: [3, 0.6, 0.5] }}
-      gl={{ antialias: true, powerPreference: 'high-performance' }}
+      // No MSAA: on phones the device pixel ratio already smooths edges, and multisampling is the
+      // costliest part of a frame in software WebGL.
+      gl={{ antialias: false, powerPreference: 'high-performance' }}
       aria-label={label}
       data-testid="rehearsal-canvas"
     >
