@@ -25,7 +25,7 @@ const KINDS: PrimitiveKind[] = ['arm_orbit', 'arm_loop', 'leg_pedal', 'hip_swirl
 const JOIN_TOL_DEG = 1e-6;
 
 /** Angles of every dof at the end of each step, degrees, replaying the contract's rules. */
-function anglesAtStepEnds(start: Record<string, number>, steps: Step[]): Array<Map<string, number>> {
+function anglesAtStepEnds(start: Record<string, number>, steps: Step[]): Map<string, number>[] {
   const cur = new Map(DOFS.map((d) => [d.name, start[d.name] ?? 0]));
   return steps.map((s) => {
     if (s.kind === 'move') for (const [k, v] of Object.entries(s.to)) cur.set(k, v);
