@@ -36,7 +36,8 @@ export default defineConfig({
   retries: 0,
   timeout: 60_000,
   expect: { timeout: 10_000 },
-  outputDir: 'test-results/e2e',
+  // Per run, so concurrent runs do not delete each other's artifacts.
+  outputDir: `test-results/e2e/${port}`,
   reporter: [['list'], ['json', { outputFile: 'test-results/e2e-report.json' }]],
   use: {
     baseURL: `http://127.0.0.1:${port}`,
