@@ -28,41 +28,32 @@ function harmonicCriticalTimes(piece: MotionPiece, j: number, base: number): num
 /** Range violations of every dof over the plan. */
 export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeViolation[] {
   const out: RangeViolation[] = [];
+  // No closures inside the loops: a transpiler that keeps function names (tsx) would wrap each one.
   for (const piece of plan.pieces) {
     const span = piece.t1 - piece.t0;
     const cycles = piece.kind === 'harmonic' ? Math.ceil((span * piece.omega) / (2 * Math.PI)) : 1;
     for (let k = 0; k < model.dofCount; k++) {
-      const hj = piece.kind === 'harmonic' ? Array.from(piece.hDofs).indexOf(k) : -1;
+      const hj = piece.kind === 'harmonic' ? piece.hDofs.indexOf(k) : -1;
       const moving = hj >= 0 || (piece.kind === 'move' && piece.to[k] !== piece.from[k]);
-      const angle = (_k: number, t: number) => dofAngle(piece, k, hj, t);
       // Scan grid (a still dof: its two ends; a move is monotone: a coarse grid finds every crossing)
       // plus the analytic extrema of a harmonic dof.
       const n = !moving ? 1 : hj < 0 ? 16 : Math.min(20_000, SCAN_POINTS * Math.max(1, cycles));
       const times: number[] = [];
       for (let s = 0; s <= n; s++) times.push(piece.t0 + (span * s) / n);
       if (hj >= 0) { times.push(...harmonicCriticalTimes(piece, hj, Math.PI / 2)); times.sort((a, b) => a - b); }
-      for (const bound of ['max', 'min'] as const) {
+      for (let b = 0; b < 2; b++) {
+        const bound = b === 0 ? 'max' : 'min';
         const limit = bound === 'max' ? model.dofMax[k] : model.dofMin[k];
         // g > 0 means beyond the limit.
-        const g = (t: number) => (bound === 'max' ? angle(k, t) - limit : limit - angle(k, t));
         let inside = false, from = 0, worstT = 0, worstG = 0;
-        const crossing = (a: number, b: number) => {
-          // Bisection for the sign change of g between a and b.
-          let ga = g(a);
-          for (let it = 0; it < 60 && b - a > 1e-9; it++) {
-            const m = (a + b) / 2, gm = g(m);
-            if ((gm > 0) === (ga > 0)) { a = m; ga = gm; } else b = m;
-          }
-          return (a + b) / 2;
-        };
         let prevT = times[0];
         for (const t of times) {
-          const gt = g(t);
-          if (gt > 0 && !inside) { inside = true; from = t === times[0] ? t : crossing(prevT, t); worstT = t; worstG = gt; }
+          const gt = beyond(piece, k, hj, bound, limit, t);
+          if (gt > 0 && !inside) { inside = true; from = t === times[0] ? t : crossing(piece, k, hj, bound, limit, prevT, t); worstT = t; worstG = gt; }
           else if (gt > 0 && gt > worstG) { worstT = t; worstG = gt; }
           else if (gt <= 0 && inside) {
             inside = false;
-            out.push(violation(model, piece, k, bound, limit, from, crossing(prevT, t), worstT, worstG));
+            out.push(violation(model, piece, k, bound, limit, from, crossing(piece, k, hj, bound, limit, prevT, t), worstT, worstG));
           }
           prevT = t;
         }
@@ -71,6 +62,21 @@ export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeVi
     }
   }
   return out;
+}
+
+/** How far dof k is beyond `limit` at time t (rad; > 0 means beyond, on the side of `bound`). */
+function beyond(piece: MotionPiece, k: number, hj: number, bound: 'min' | 'max', limit: number, t: number): number {
+  return bound === 'max' ? dofAngle(piece, k, hj, t) - limit : limit - dofAngle(piece, k, hj, t);
+}
+
+/** Bisection for the sign change of `beyond` between times a and b (s). */
+function crossing(piece: MotionPiece, k: number, hj: number, bound: 'min' | 'max', limit: number, a: number, b: number): number {
+  let ga = beyond(piece, k, hj, bound, limit, a);
+  for (let it = 0; it < 60 && b - a > 1e-9; it++) {
+    const m = (a + b) / 2, gm = beyond(piece, k, hj, bound, limit, m);
+    if ((gm > 0) === (ga > 0)) { a = m; ga = gm; } else b = m;
+  }
+  return (a + b) / 2;
 }
 
 /** Angle (rad) of dof k at time t in a piece; hj is its index among the harmonic dofs or −1. */

@@ -66,9 +66,11 @@ export function createAuditWork(model: BodyModel): AuditWork {
 
 /**
  * ‖H‖ (kg·m²/s) at time t of a piece, from the integrated attitude q [w,x,y,z] there and the root's
- * body-frame rate ω (rad/s) the integrator follows at (t, q).
+ * body-frame rate ω (rad/s) the integrator follows at (t, q). `centrePose`, if given, is the body's
+ * root-frame pose (forwardKinematics) at exactly t, already computed by the caller: the stencil's
+ * centre point reuses it instead of posing the body again (the same numbers either way).
  */
-export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: ArrayLike<number>, omega: ArrayLike<number>, work: AuditWork): number {
+export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: ArrayLike<number>, omega: ArrayLike<number>, work: AuditWork, centrePose?: BodyPose): number {
   const { kind, delta } = chooseStencil(t, piece.t0, piece.t1);
   const st = STENCILS[kind];
   const n = model.segmentCount;
@@ -81,7 +83,6 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     work.moving = movingSegments(model, piece.moving);
     work.piece = piece;
   }
-  const { rot, comPos } = pose;
   const wn = Math.hypot(omega[0], omega[1], omega[2]);
   let centre = 0;
   for (let j = 0; j < STENCIL_POINTS; j++) {
@@ -98,8 +99,10 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     quatToMatrix(att, Rq);
     const a0 = Rq[0], a1 = Rq[1], a2 = Rq[2], a3 = Rq[3], a4 = Rq[4], a5 = Rq[5], a6 = Rq[6], a7 = Rq[7], a8 = Rq[8];
     // Segment poses from the prescribed joint angles, then to the world frame.
-    evalPiece(piece, t + s, work.q, null);
-    forwardKinematics(model, work.q, pose, work.moving);
+    let from = pose;
+    if (s === 0 && centrePose) from = centrePose;
+    else { evalPiece(piece, t + s, work.q, null); forwardKinematics(model, work.q, pose, work.moving); }
+    const { rot, comPos } = from;
     const R = rotW[j], X = comW[j];
     for (let i = 0; i < n; i++) {
       const o = 9 * i, i3 = 3 * i;

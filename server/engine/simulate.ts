@@ -70,30 +70,33 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
   // Samples, momentum audit, peak shape momentum.
   const work = createMomentumWork(model);
   const audit = createAuditWork(model);
-  const q = new Float64Array(nd), qd = new Float64Array(nd);
+  const q = new Float64Array(nd), qd = new Float64Array(nd), a = new Float64Array(4);
   const frames: SimulationResult['samples']['frames'] = [];
   let maxH = 0, atTime = 0, peakH = 0;
   let o = 0;
-  times.forEach((t, s) => {
-    const p = owner[s];
+  for (let s = 0; s < times.length; s++) {
+    const t = times[s], p = owner[s];
     if (p < 0) {
       frames.push({ t, attitude: { w: 1, x: 0, y: 0, z: 0 }, jointsDeg: Array.from(plan.start, (v) => v * DEG) });
-      return;
+      continue;
     }
     // Samples were integrated in time order.
-    const a = track.outputs.subarray(4 * o, 4 * o + 4);
-    o++;
+    a[0] = track.outputs[o]; a[1] = track.outputs[o + 1]; a[2] = track.outputs[o + 2]; a[3] = track.outputs[o + 3];
+    o += 4;
     const piece = plan.pieces[p];
     evalPiece(piece, t, q, qd);
-    frames.push({ t, attitude: { w: a[0], x: a[1], y: a[2], z: a[3] }, jointsDeg: Array.from(q, (v) => v * DEG) });
+    const jointsDeg = new Array<number>(nd);
+    for (let k = 0; k < nd; k++) jointsDeg[k] = q[k] * DEG;
+    frames.push({ t, attitude: { w: a[0], x: a[1], y: a[2], z: a[3] }, jointsDeg });
     // The rate the integrator follows here (for the audit's root motion) and the shape momentum.
     if (work.piece !== piece) restrictToPiece(model, piece, work);
     const omega = bodyRate(model, q, qd, work);
     peakH = Math.max(peakH, Math.hypot(work.h[0], work.h[1], work.h[2]));
-    if (options.skipAudit) return;
-    const H = auditAt(model, piece, t, a, omega, audit);
+    if (options.skipAudit) continue;
+    // The audit's stencil centre is the pose bodyRate just computed at t.
+    const H = auditAt(model, piece, t, a, omega, audit, work.pose);
     if (H > maxH) { maxH = H; atTime = t; }
-  });
+  }
 
   // Final state.
   const fq = quatCanonical(Float64Array.from(track.final));
