@@ -46,8 +46,8 @@ export function ManeuversScreen() {
       subtitle="Limb-sweep sequences, their verification and review"
       actions={canCompose ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : null}
     >
-      <View style={[styles.filters, wide && styles.filtersWide]}>
-        <View style={styles.filter}>
+      <View style={styles.filters}>
+        <View style={[styles.filter, styles.search]}>
           <TextField label="Search" value={search} onChangeText={setSearch} placeholder="Name or crew member" autoCapitalize="none" />
         </View>
         <View style={styles.filter}>
@@ -99,9 +99,10 @@ export function ManeuversScreen() {
 }
 
 const styles = StyleSheet.create({
-  filters: { gap: spacing.md },
-  filtersWide: { flexDirection: 'row', alignItems: 'flex-start' },
-  filter: { flexGrow: 1, flexBasis: 200 },
+  // A wrapping row: search takes a full line on a phone, the two pickers share the next one.
+  filters: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-start', gap: spacing.md },
+  filter: { flexGrow: 1, flexBasis: 140 },
+  search: { flexBasis: 260, flexGrow: 2 },
   list: { gap: spacing.sm },
   listWide: { flexDirection: 'row', flexWrap: 'wrap' },
   cellWide: { flexBasis: '48%', flexGrow: 1 },

@@ -1,30 +1,38 @@
+import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
+import { LazyPlayer } from '@/components/rehearse/LazyPlayer';
 import { colors, radii, spacing } from '@/components/theme';
-import { Icon } from '@/components/ui/Icon';
+import { Button } from '@/components/ui/Button';
 import { Text } from '@/components/ui/Text';
 
 /** Props of {@link Preview3DSlot}. */
 export interface Preview3DSlotProps {
-  /** The version whose motion the preview would play. */
+  /** The version whose motion the preview plays. */
   versionId: string;
 }
 
 /**
  * ── 3D PREVIEW SLOT ──
- * Where the rehearsal player goes in the verification report. The rehearsal area provides a lazily
- * loaded player (planned: `components/rehearse/LazyPlayer.tsx`, taking the version id); it was not
- * in the tree when this report was built, so this placeholder says where to look instead. Swap the
- * body of this component for `<LazyPlayer versionId={versionId} />` once that file exists — the
- * report needs no other change, and three.js stays out of the report's bundle.
+ * The report's 3D preview: the rehearsal area's lazily loaded player (components/rehearse/LazyPlayer),
+ * mounted only when asked for, so the report itself never loads three.js or computes the motion.
  */
 export function Preview3DSlot({ versionId }: Preview3DSlotProps) {
+  const [shown, setShown] = useState(false);
+  if (shown) {
+    return (
+      <View style={styles.player} testID="preview-3d">
+        <LazyPlayer versionId={versionId} height={420} compact />
+        <Button label="Hide 3D preview" icon="eye-off" variant="ghost" size="sm" onPress={() => setShown(false)} />
+      </View>
+    );
+  }
   return (
-    <View style={styles.slot} testID="preview-3d-slot" data-version={versionId}>
-      <Icon name="box" size={20} color={colors.muted} />
+    <View style={styles.slot} testID="preview-3d-slot">
       <Text variant="caption" tone="muted" style={styles.text}>
-        3D preview: a cleared version plays in the Rehearse tab with cues and timing.
+        Watch the body perform this version in 3D, with cues and timing.
       </Text>
+      <Button label="Show 3D preview" icon="box" variant="secondary" size="sm" onPress={() => setShown(true)} />
     </View>
   );
 }
@@ -32,6 +40,7 @@ export function Preview3DSlot({ versionId }: Preview3DSlotProps) {
 const styles = StyleSheet.create({
   slot: {
     flexDirection: 'row',
+    flexWrap: 'wrap',
     alignItems: 'center',
     gap: spacing.sm,
     padding: spacing.md,
@@ -40,5 +49,6 @@ const styles = StyleSheet.create({
     borderStyle: 'dashed',
     borderColor: colors.borderStrong,
   },
-  text: { flex: 1 },
+  text: { flex: 1, minWidth: 180 },
+  player: { gap: spacing.sm, borderRadius: radii.md, overflow: 'hidden' },
 });
