@@ -4,7 +4,7 @@
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { bodyRate, createMomentumWork, type MomentumWork, restrictToPiece } from './locked-momentum.ts';
-import { evalPiece, type MotionPlan } from './joint-motion.ts';
+import { evalMoving, evalPiece, type MotionPlan } from './joint-motion.ts';
 import { odex } from './odex-solver.ts';
 
 /** Integrator settings. */
@@ -38,11 +38,13 @@ export interface AttitudeTrack {
 export function attitudeRhs(model: BodyModel, work: MomentumWork, piece: MotionPlan['pieces'][number], counter: { n: number }) {
   const q = new Float64Array(model.dofCount);
   const qd = new Float64Array(model.dofCount);
+  // The dofs at rest keep the values the first evaluation writes.
+  let first = true;
   return (t: number, y: number[]): number[] => {
     counter.n++;
     // Segments at rest over the piece are posed once (the work may be shared between pieces).
     if (work.piece !== piece) restrictToPiece(model, piece, work);
-    evalPiece(piece, t, q, qd);
+    if (first) { evalPiece(piece, t, q, qd); first = false; } else evalMoving(piece, t, q, qd);
     const w = bodyRate(model, q, qd, work);
     const wx = w[0], wy = w[1], wz = w[2];
     // q̇ = ½ q ⊗ (0, ω): ω is in the body (root) frame.

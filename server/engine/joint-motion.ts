@@ -111,6 +111,35 @@ export function evalPiece(piece: MotionPiece, t: number, q: Float64Array, qd: Fl
   }
 }
 
+/**
+ * Like evalPiece, but writes only the piece's moving dofs (`piece.moving`): for a q/qd pair that
+ * already holds this piece's values of the others (angles `from`, rates 0), e.g. after one evalPiece.
+ */
+export function evalMoving(piece: MotionPiece, t: number, q: Float64Array, qd: Float64Array): void {
+  if (piece.kind === 'move') {
+    const { from, to, moving } = piece;
+    const T = piece.t1 - piece.t0;
+    const tau = Math.min(1, Math.max(0, (t - piece.t0) / T));
+    const t2 = tau * tau, t3 = t2 * tau;
+    const s = t3 * (10 - 15 * tau + 6 * t2);
+    const sd = (30 * t2 * (1 - 2 * tau + t2)) / T;
+    for (let j = 0; j < moving.length; j++) {
+      const k = moving[j];
+      const delta = to[k] - from[k];
+      q[k] = from[k] + delta * s;
+      qd[k] = delta * sd;
+    }
+  } else if (piece.kind === 'harmonic') {
+    const { hDofs, hOffset, hAmplitude, hPhase, omega } = piece;
+    const tt = t - piece.t0;
+    for (let j = 0; j < hDofs.length; j++) {
+      const arg = omega * tt + hPhase[j];
+      q[hDofs[j]] = hOffset[j] + hAmplitude[j] * Math.sin(arg);
+      qd[hDofs[j]] = hAmplitude[j] * omega * Math.cos(arg);
+    }
+  }
+}
+
 /** The piece containing t (the first whose end is ≥ t); the last piece beyond the end. */
 export function pieceAt(plan: MotionPlan, t: number): MotionPiece | undefined {
   for (const p of plan.pieces) if (t <= p.t1) return p;

@@ -122,9 +122,15 @@ export function bodyRate(model: BodyModel, q: ArrayLike<number>, qd: ArrayLike<n
     // K = R J (3×3), then S = K Rᵀ (symmetric: only the upper triangle).
     const r0 = rot[r], r1 = rot[r + 1], r2 = rot[r + 2], r3 = rot[r + 3], r4 = rot[r + 4], r5 = rot[r + 5], r6 = rot[r + 6], r7 = rot[r + 7], r8 = rot[r + 8];
     const j0 = inertia[r], j1 = inertia[r + 1], j2 = inertia[r + 2], j4 = inertia[r + 4], j5 = inertia[r + 5], j8 = inertia[r + 8];
-    const k0 = r0 * j0 + r1 * j1 + r2 * j2, k1 = r0 * j1 + r1 * j4 + r2 * j5, k2 = r0 * j2 + r1 * j5 + r2 * j8;
-    const k3 = r3 * j0 + r4 * j1 + r5 * j2, k4 = r3 * j1 + r4 * j4 + r5 * j5, k5 = r3 * j2 + r4 * j5 + r5 * j8;
-    const k6 = r6 * j0 + r7 * j1 + r8 * j2, k7 = r6 * j1 + r7 * j4 + r8 * j5, k8 = r6 * j2 + r7 * j5 + r8 * j8;
+    let k0, k1, k2, k3, k4, k5, k6, k7, k8;
+    if (j1 === 0 && j2 === 0 && j5 === 0) {
+      // Principal axes (the usual segment table): the same products without their zero terms.
+      k0 = r0 * j0; k1 = r1 * j4; k2 = r2 * j8; k3 = r3 * j0; k4 = r4 * j4; k5 = r5 * j8; k6 = r6 * j0; k7 = r7 * j4; k8 = r8 * j8;
+    } else {
+      k0 = r0 * j0 + r1 * j1 + r2 * j2; k1 = r0 * j1 + r1 * j4 + r2 * j5; k2 = r0 * j2 + r1 * j5 + r2 * j8;
+      k3 = r3 * j0 + r4 * j1 + r5 * j2; k4 = r3 * j1 + r4 * j4 + r5 * j5; k5 = r3 * j2 + r4 * j5 + r5 * j8;
+      k6 = r6 * j0 + r7 * j1 + r8 * j2; k7 = r6 * j1 + r7 * j4 + r8 * j5; k8 = r6 * j2 + r7 * j5 + r8 * j8;
+    }
     const s00 = k0 * r0 + k1 * r1 + k2 * r2, s01 = k0 * r3 + k1 * r4 + k2 * r5, s02 = k0 * r6 + k1 * r7 + k2 * r8;
     const s11 = k3 * r3 + k4 * r4 + k5 * r5, s12 = k3 * r6 + k4 * r7 + k5 * r8, s22 = k6 * r6 + k7 * r7 + k8 * r8;
     const m = mass[i];

@@ -91,14 +91,34 @@ export function forwardKinematics(model: BodyModel, q: ArrayLike<number>, pose: 
         dofAxisRoot[k3] = r0 * x + r1 * y + r2 * z;
         dofAxisRoot[k3 + 1] = r3 * x + r4 * y + r5 * z;
         dofAxisRoot[k3 + 2] = r6 * x + r7 * y + r8 * z;
-        const c = Math.cos(q[k]), s = Math.sin(q[k]), t = 1 - c;
-        const a0 = t * x * x + c, a1 = t * x * y - s * z, a2 = t * x * z + s * y;
-        const a3 = t * x * y + s * z, a4 = t * y * y + c, a5 = t * y * z - s * x;
-        const a6 = t * x * z - s * y, a7 = t * y * z + s * x, a8 = t * z * z + c;
-        const n0 = r0 * a0 + r1 * a3 + r2 * a6, n1 = r0 * a1 + r1 * a4 + r2 * a7, n2 = r0 * a2 + r1 * a5 + r2 * a8;
-        const n3 = r3 * a0 + r4 * a3 + r5 * a6, n4 = r3 * a1 + r4 * a4 + r5 * a7, n5 = r3 * a2 + r4 * a5 + r5 * a8;
-        const n6 = r6 * a0 + r7 * a3 + r8 * a6, n7 = r6 * a1 + r7 * a4 + r8 * a7, n8 = r6 * a2 + r7 * a5 + r8 * a8;
-        r0 = n0; r1 = n1; r2 = n2; r3 = n3; r4 = n4; r5 = n5; r6 = n6; r7 = n7; r8 = n8;
+        const c = Math.cos(q[k]), s = Math.sin(q[k]);
+        // Anatomical joints mostly turn about a frame axis (±x, ±y, ±z): then Rot mixes only two
+        // columns of R (the same product with its zero terms left out; a unit axis is exactly ±1).
+        if (y === 0 && z === 0) {
+          const sx = s * x;
+          const n1 = c * r1 + sx * r2, n4 = c * r4 + sx * r5, n7 = c * r7 + sx * r8;
+          r2 = c * r2 - sx * r1; r5 = c * r5 - sx * r4; r8 = c * r8 - sx * r7;
+          r1 = n1; r4 = n4; r7 = n7;
+        } else if (x === 0 && z === 0) {
+          const sy = s * y;
+          const n0 = c * r0 - sy * r2, n3 = c * r3 - sy * r5, n6 = c * r6 - sy * r8;
+          r2 = sy * r0 + c * r2; r5 = sy * r3 + c * r5; r8 = sy * r6 + c * r8;
+          r0 = n0; r3 = n3; r6 = n6;
+        } else if (x === 0 && y === 0) {
+          const sz = s * z;
+          const n0 = c * r0 + sz * r1, n3 = c * r3 + sz * r4, n6 = c * r6 + sz * r7;
+          r1 = c * r1 - sz * r0; r4 = c * r4 - sz * r3; r7 = c * r7 - sz * r6;
+          r0 = n0; r3 = n3; r6 = n6;
+        } else {
+          const t = 1 - c;
+          const a0 = t * x * x + c, a1 = t * x * y - s * z, a2 = t * x * z + s * y;
+          const a3 = t * x * y + s * z, a4 = t * y * y + c, a5 = t * y * z - s * x;
+          const a6 = t * x * z - s * y, a7 = t * y * z + s * x, a8 = t * z * z + c;
+          const n0 = r0 * a0 + r1 * a3 + r2 * a6, n1 = r0 * a1 + r1 * a4 + r2 * a7, n2 = r0 * a2 + r1 * a5 + r2 * a8;
+          const n3 = r3 * a0 + r4 * a3 + r5 * a6, n4 = r3 * a1 + r4 * a4 + r5 * a7, n5 = r3 * a2 + r4 * a5 + r5 * a8;
+          const n6 = r6 * a0 + r7 * a3 + r8 * a6, n7 = r6 * a1 + r7 * a4 + r8 * a7, n8 = r6 * a2 + r7 * a5 + r8 * a8;
+          r0 = n0; r1 = n1; r2 = n2; r3 = n3; r4 = n4; r5 = n5; r6 = n6; r7 = n7; r8 = n8;
+        }
       }
     }
     rot[o] = r0; rot[o + 1] = r1; rot[o + 2] = r2; rot[o + 3] = r3; rot[o + 4] = r4; rot[o + 5] = r5; rot[o + 6] = r6; rot[o + 7] = r7; rot[o + 8] = r8;
