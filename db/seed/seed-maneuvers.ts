@@ -52,10 +52,13 @@ const ARM_ORBITS: Primitive[] = [
   { kind: 'pause', durationS: 0.5 },
 ];
 
-/** The demo maneuvers. Reed's profile has two versions: v1 pre-flight, v2 current. */
+/**
+ * The demo maneuvers. Reed's profile has two versions (v1 pre-flight, v2 current), so her drill
+ * cleared on v1 is now `recheck`; Moss and Kettle have cleared maneuvers to rehearse.
+ */
 const DEMO_SEQUENCES: DemoSequence[] = [
   {
-    crew: 'reed', name: 'Yaw to the right by hip swirls',
+    crew: 'moss', name: 'Yaw to the right by hip swirls',
     versions: [
       { primitives: HIP_SWIRLS.map((p) => (p.kind === 'hip_swirl' ? { ...p, cycles: 2 } : p)), status: 'replaced', note: 'First draft: two swirls fall short of the turn.', review: { decision: 'clear', comment: 'Fine for cabin drills.' } },
       { primitives: HIP_SWIRLS, status: 'cleared', note: 'Three swirls to reach the full turn.', review: { decision: 'clear', comment: 'Rates well inside the limit. Cleared.' } },

@@ -3,8 +3,10 @@
  * sequence versions after a profile change. `startJobQueue` creates the queue and, unless told not
  * to, starts a worker in this process; more worker processes on more machines can call it too.
  */
+import { eq } from 'drizzle-orm';
 import { PgBoss } from 'pg-boss';
 
+import { reverifications } from '../../db/schema/index.ts';
 import type { AppContext, JobQueue } from '../app-context.ts';
 import { reverifyVersion, type ReverifyJob } from './reverify-version.ts';
 
@@ -47,13 +49,17 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
       for (const job of jobs) await reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT });
     });
   }
+  const enqueueReverification = async (sequenceVersionIds: string[], toProfileVersionId: string) => {
+    for (const sequenceVersionId of sequenceVersionIds) {
+      await boss.send(REVERIFY_QUEUE, { sequenceVersionId, toProfileVersionId } satisfies ReverifyJob);
+    }
+  };
+  // Records flagged while no queue ran (or whose job was lost) get a job now; a duplicate job is harmless.
+  const waiting = await ctx.db.select().from(reverifications).where(eq(reverifications.state, 'queued'));
+  for (const r of waiting) await enqueueReverification([r.sequenceVersionId], r.toProfileVersionId);
   return {
     boss,
-    async enqueueReverification(sequenceVersionIds, toProfileVersionId) {
-      for (const sequenceVersionId of sequenceVersionIds) {
-        await boss.send(REVERIFY_QUEUE, { sequenceVersionId, toProfileVersionId } satisfies ReverifyJob);
-      }
-    },
+    enqueueReverification,
     async stop() {
       await boss.stop({ graceful: true, timeout: 10_000 });
     },

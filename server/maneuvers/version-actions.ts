@@ -10,7 +10,6 @@ import type { Database } from '../../db/client.ts';
 import { crewMembers, reviews, sequences, sequenceVersions, users, type SequenceVersionRow } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { VerificationReport } from '../../shared/contracts/maneuver.ts';
-import type { Sequence } from '../../shared/contracts/sequence.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
@@ -205,9 +204,4 @@ export async function commentVersion(ctx: AppContext, user: SessionUser, version
     await tx.insert(reviews).values({ sequenceVersionId: versionId, reviewerId: user.id, decision: 'comment', comment, profileVersionId: row.v.profileVersionId, engineVersion: row.v.engineVersion });
     await recordAudit(tx, { actorId: user.id, action: 'sequence_version.comment', objectType: 'sequence_version', objectId: versionId, detail: { comment } });
   });
-}
-
-/** Compiled sequence stored with a version (for tests and the acceptance check). */
-export function sequenceOf(stored: StoredCompiled): Sequence {
-  return stored.sequence as Sequence;
 }
