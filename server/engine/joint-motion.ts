@@ -27,6 +27,9 @@ export interface MotionPiece {
   readonly hOffset: Float64Array;
   readonly hAmplitude: Float64Array;
   readonly hPhase: Float64Array;
+  /** harmonic: cos and sin of each phase (sin(ωt + φ) is then one sine and one cosine for all dofs). */
+  readonly hPhaseCos: Float64Array;
+  readonly hPhaseSin: Float64Array;
   readonly omega: number;
   /** Indices of the dofs whose angle changes within the piece (ascending); the others stay at `from`. */
   readonly moving: Int32Array;
@@ -68,7 +71,8 @@ export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
     }
     const moving = step.kind === 'move' ? Int32Array.from(from.keys()).filter((k) => to[k] !== from[k])
       : step.kind === 'harmonic' ? Int32Array.from(hDofs).sort() : new Int32Array(0);
-    const piece: MotionPiece = { kind: step.kind, step: index, t0: t, t1: t + d, from, to, hDofs, hOffset, hAmplitude, hPhase, omega, moving };
+    const hPhaseCos = hPhase.map(Math.cos), hPhaseSin = hPhase.map(Math.sin);
+    const piece: MotionPiece = { kind: step.kind, step: index, t0: t, t1: t + d, from, to, hDofs, hOffset, hAmplitude, hPhase, hPhaseCos, hPhaseSin, omega, moving };
     pieces.push(piece);
     // The next step starts where this one ends.
     evalPiece(piece, piece.t1, cur, null);
@@ -100,14 +104,18 @@ export function evalPiece(piece: MotionPiece, t: number, q: Float64Array, qd: Fl
   }
   for (let k = 0; k < nd; k++) q[k] = from[k];
   if (qd) qd.fill(0);
-  if (piece.kind === 'harmonic') {
-    const { hDofs, hOffset, hAmplitude, hPhase, omega } = piece;
-    const tt = t - piece.t0;
-    for (let j = 0; j < hDofs.length; j++) {
-      const arg = omega * tt + hPhase[j];
-      q[hDofs[j]] = hOffset[j] + hAmplitude[j] * Math.sin(arg);
-      if (qd) qd[hDofs[j]] = hAmplitude[j] * omega * Math.cos(arg);
-    }
+  if (piece.kind === 'harmonic') evalHarmonic(piece, t, q, qd);
+}
+
+/** The harmonic dofs of a piece: sin(ωt + φ) = sin ωt cos φ + cos ωt sin φ (one sine, one cosine per call). */
+function evalHarmonic(piece: MotionPiece, t: number, q: Float64Array, qd: Float64Array | null): void {
+  const { hDofs, hOffset, hAmplitude, hPhaseCos, hPhaseSin, omega } = piece;
+  const wt = omega * (t - piece.t0);
+  const sw = Math.sin(wt), cw = Math.cos(wt);
+  for (let j = 0; j < hDofs.length; j++) {
+    const pc = hPhaseCos[j], ps = hPhaseSin[j];
+    q[hDofs[j]] = hOffset[j] + hAmplitude[j] * (sw * pc + cw * ps);
+    if (qd) qd[hDofs[j]] = hAmplitude[j] * omega * (cw * pc - sw * ps);
   }
 }
 
@@ -129,15 +137,7 @@ export function evalMoving(piece: MotionPiece, t: number, q: Float64Array, qd: F
       q[k] = from[k] + delta * s;
       qd[k] = delta * sd;
     }
-  } else if (piece.kind === 'harmonic') {
-    const { hDofs, hOffset, hAmplitude, hPhase, omega } = piece;
-    const tt = t - piece.t0;
-    for (let j = 0; j < hDofs.length; j++) {
-      const arg = omega * tt + hPhase[j];
-      q[hDofs[j]] = hOffset[j] + hAmplitude[j] * Math.sin(arg);
-      qd[hDofs[j]] = hAmplitude[j] * omega * Math.cos(arg);
-    }
-  }
+  } else if (piece.kind === 'harmonic') evalHarmonic(piece, t, q, qd);
 }
 
 /** The piece containing t (the first whose end is ≥ t); the last piece beyond the end. */

@@ -13,7 +13,7 @@
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { type BodyPose, createBodyPose, forwardKinematics, movingSegments } from '../../shared/kinematics/forward-kinematics.ts';
 import { quatToMatrix } from '../../shared/math/quaternion.ts';
-import { evalPiece, type MotionPiece } from './joint-motion.ts';
+import { evalMoving, evalPiece, type MotionPiece } from './joint-motion.ts';
 
 /** Stencil spacing, s: δ⁴ truncation and rounding/δ both ≲ 1e-12 relative (common practice). */
 export const AUDIT_DELTA_S = 1e-3;
@@ -38,7 +38,9 @@ export function chooseStencil(t: number, t0: number, t1: number): { kind: keyof 
 /** Preallocated audit buffers for one model. */
 export interface AuditWork {
   pose: BodyPose;
+  /** Joint angles (rad) and rates (rad/s, unused but written) at a stencil point. */
   q: Float64Array;
+  qd: Float64Array;
   /** World rotation (9 per segment) and world CoM (3 per segment) at each stencil point. */
   rotW: Float64Array[];
   comW: Float64Array[];
@@ -56,7 +58,7 @@ export interface AuditWork {
 export function createAuditWork(model: BodyModel): AuditWork {
   const n = model.segmentCount;
   return {
-    pose: createBodyPose(model), q: new Float64Array(model.dofCount),
+    pose: createBodyPose(model), q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
     rotW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(9 * n)),
     comW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(3 * n)),
     vel: new Float64Array(3 * n), Rq: new Float64Array(9), att: new Float64Array(4),
@@ -78,7 +80,8 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
   // Segments at rest over the piece keep one root-frame pose: pose them once per piece, and
   // recompute only the moving ones at each stencil point (the same forward kinematics, reused).
   if (work.piece !== piece) {
-    evalPiece(piece, piece.t0, work.q, null);
+    // Angles of the dofs at rest (and zero rates) for evalMoving below.
+    evalPiece(piece, piece.t0, work.q, work.qd);
     forwardKinematics(model, work.q, pose);
     work.moving = movingSegments(model, piece.moving);
     work.piece = piece;
@@ -101,7 +104,7 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     // Segment poses from the prescribed joint angles, then to the world frame.
     let from = pose;
     if (s === 0 && centrePose) from = centrePose;
-    else { evalPiece(piece, t + s, work.q, null); forwardKinematics(model, work.q, pose, work.moving); }
+    else { evalMoving(piece, t + s, work.q, work.qd); forwardKinematics(model, work.q, pose, work.moving); }
     const { rot, comPos } = from;
     const R = rotW[j], X = comW[j];
     for (let i = 0; i < n; i++) {

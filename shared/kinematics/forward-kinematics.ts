@@ -19,6 +19,10 @@ export interface BodyPose {
   angVel: Float64Array;
   /** Segment CoM velocity relative to the root frame, m/s; 3 per segment (filled by segmentVelocities). */
   comVel: Float64Array;
+  /** Per dof: the angle (rad) whose cosine and sine are held in dofCos/dofSin (NaN: none yet). */
+  dofAngle: Float64Array;
+  dofCos: Float64Array;
+  dofSin: Float64Array;
   /** Scratch. */
   tmpRot: Float64Array;
   tmpRot2: Float64Array;
@@ -32,6 +36,8 @@ export function createBodyPose(model: BodyModel): BodyPose {
     rot: new Float64Array(9 * n), pos: new Float64Array(3 * n), comPos: new Float64Array(3 * n),
     dofAxisRoot: new Float64Array(3 * Math.max(1, model.dofCount)),
     angVel: new Float64Array(3 * n), comVel: new Float64Array(3 * n),
+    dofAngle: new Float64Array(Math.max(1, model.dofCount)).fill(NaN),
+    dofCos: new Float64Array(Math.max(1, model.dofCount)), dofSin: new Float64Array(Math.max(1, model.dofCount)),
     tmpRot: new Float64Array(9), tmpRot2: new Float64Array(9), tmpVec: new Float64Array(3),
   };
 }
@@ -64,7 +70,7 @@ export function movingSegments(model: BodyModel, movingDofs: ArrayLike<number>):
  */
 export function forwardKinematics(model: BodyModel, q: ArrayLike<number>, pose: BodyPose, segments?: ArrayLike<number>): void {
   const { parent, origin, com, dofStart, dofAxis } = model;
-  const { rot, pos, comPos, dofAxisRoot } = pose;
+  const { rot, pos, comPos, dofAxisRoot, dofAngle, dofCos, dofSin } = pose;
   const n = segments ? segments.length : model.segmentCount;
   // Hot path: everything inline on locals (no helper calls, no temporaries).
   for (let j = 0; j < n; j++) {
@@ -91,7 +97,10 @@ export function forwardKinematics(model: BodyModel, q: ArrayLike<number>, pose: 
         dofAxisRoot[k3] = r0 * x + r1 * y + r2 * z;
         dofAxisRoot[k3 + 1] = r3 * x + r4 * y + r5 * z;
         dofAxisRoot[k3 + 2] = r6 * x + r7 * y + r8 * z;
-        const c = Math.cos(q[k]), s = Math.sin(q[k]);
+        // A dof whose angle has not changed since the last call (one at rest) keeps its cos/sin.
+        const th = q[k];
+        if (th !== dofAngle[k]) { dofAngle[k] = th; dofCos[k] = Math.cos(th); dofSin[k] = Math.sin(th); }
+        const c = dofCos[k], s = dofSin[k];
         // Anatomical joints mostly turn about a frame axis (±x, ±y, ±z): then Rot mixes only two
         // columns of R (the same product with its zero terms left out; a unit axis is exactly ±1).
         if (y === 0 && z === 0) {
