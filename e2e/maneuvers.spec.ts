@@ -152,3 +152,39 @@ test.describe('maneuvers: compose, verify, review', () => {
     await plannerCtx.close();
   });
 });
+
+test('saving over a version someone else saved meanwhile is refused with a clear message, and the steps stay', async ({ browser, baseURL }) => {
+  test.setTimeout(120_000);
+  const ctx = await browser.newContext({ baseURL, viewport: { width: 375, height: 812 } });
+  const page = await ctx.newPage();
+  await signIn(page, DEMO_BY_ROLE.planner.email);
+
+  // A sequence with one saved version, made through the API.
+  const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; currentVersion: number | null }[] };
+  const member = members.find((m) => m.currentVersion != null);
+  expect(member, 'a crew member with a profile').toBeTruthy();
+  const created = await page.request.post('/api/sequences', {
+    data: { crewMemberId: member!.id, name: `Stale save check ${Date.now()}`, target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: 3, roll: 0 } } },
+  });
+  expect(created.status()).toBe(201);
+  const sequence = (await created.json()) as { id: string };
+  const first = await page.request.post(`/api/sequences/${sequence.id}/versions`, { data: { primitives: [{ kind: 'pause', durationS: 1 }], baseVersion: 0 } });
+  expect(first.status()).toBe(201);
+
+  await page.goto(`/maneuvers/${sequence.id}?panel=steps`);
+  await expect(page.getByRole('list', { name: 'Steps' }).getByRole('listitem')).toHaveCount(1);
+
+  // Someone else saves version 2 meanwhile.
+  const other = await page.request.post(`/api/sequences/${sequence.id}/versions`, { data: { primitives: [{ kind: 'pause', durationS: 2 }], baseVersion: 1 } });
+  expect(other.status()).toBe(201);
+
+  // This editor still started from version 1: its save is refused, and says so.
+  await page.getByRole('button', { name: 'Edit step 1' }).click();
+  const sheet = page.getByRole('dialog', { name: 'Edit step 1' });
+  await sheet.getByRole('textbox', { name: 'Duration', exact: true }).fill('1.5');
+  await sheet.getByRole('button', { name: 'Apply step' }).click();
+  await page.getByTestId('save-verify').click();
+  await expect(page.getByRole('alert').filter({ hasText: 'Someone saved a newer version' })).toBeVisible();
+  await expect(page.getByRole('list', { name: 'Steps' })).toContainText('hold still for 1.5 s');
+  await ctx.close();
+});

@@ -9,10 +9,12 @@ import { fmtDeg, fmtWhen } from './report/format';
 /** Props of {@link VersionStatusNotice}. */
 export interface VersionStatusNoticeProps {
   version: VersionDetail;
+  /** Leave out the author's next steps (for reviewers); default false. */
+  forReviewer?: boolean;
 }
 
 /** What the version's status means for the person looking at it, in one or two sentences. */
-export function VersionStatusNotice({ version: v }: VersionStatusNoticeProps) {
+export function VersionStatusNotice({ version: v, forReviewer = false }: VersionStatusNoticeProps) {
   let icon: IconName = 'info';
   let color: string = colors.muted;
   let text: string;
@@ -24,12 +26,12 @@ export function VersionStatusNotice({ version: v }: VersionStatusNoticeProps) {
     case 'under_review':
       icon = 'clock';
       color = colors.accent;
-      text = `Submitted ${fmtWhen(v.submittedAt)}; waiting for a reviewer. Saving changes makes a new version.`;
+      text = `Submitted ${fmtWhen(v.submittedAt)}; waiting for a reviewer.${forReviewer ? '' : ' Saving changes makes a new version.'}`;
       break;
     case 'cleared':
       icon = 'check-circle';
       color = colors.success;
-      text = `Cleared by ${v.clearedByName ?? 'a reviewer'} on ${fmtWhen(v.clearedAt)} for profile v${v.profileVersion}, engine ${v.engineVersion ?? '—'}. A cleared version is frozen; saving changes makes a new version.`;
+      text = `Cleared by ${v.clearedByName ?? 'a reviewer'} on ${fmtWhen(v.clearedAt)} for profile v${v.profileVersion}, engine ${v.engineVersion ?? '—'}. A cleared version is frozen${forReviewer ? '' : '; saving changes makes a new version'}.`;
       break;
     case 'sent_back':
       icon = 'corner-up-left';

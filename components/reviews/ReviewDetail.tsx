@@ -52,7 +52,7 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
         </Text>
         {v.note ? <Text variant="caption">“{v.note}”</Text> : null}
       </View>
-      <VersionStatusNotice version={v} />
+      <VersionStatusNotice version={v} forReviewer />
       <ReviewDecisionPanel version={v} />
       <Text variant="heading" role="heading" aria-level={2}>
         Steps

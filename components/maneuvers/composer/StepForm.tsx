@@ -45,7 +45,8 @@ function StepField({ spec, control }: { spec: FieldSpec; control: StepFormProps[
       control={control}
       name={name}
       render={({ field, fieldState }) =>
-        spec.choices.length <= 3 ? (
+        // Short choices as a segmented row; long labels would be cut off there, so they get a drop-down.
+        spec.choices.length <= 3 && spec.choices.every((c) => c.label.length <= 14) ? (
           <SegmentedControl label={spec.label} options={spec.choices} value={field.value as string} onChange={field.onChange} error={fieldState.error?.message} />
         ) : (
           <Select label={spec.label} options={spec.choices} value={(field.value as string) ?? ''} onChange={field.onChange} error={fieldState.error?.message} hint={spec.hint} />
