@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { useCompareQuery } from '@/components/api/use-sequences';
-import { colors, spacing } from '@/components/theme';
+import { colors, radii, spacing } from '@/components/theme';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Select } from '@/components/ui/Select';
@@ -57,28 +57,33 @@ export function CompareVersions({ versions }: CompareVersionsProps) {
           {!q.data.sameProfile ? <Text tone="accent">The two versions were computed for different profile versions.</Text> : null}
           {!q.data.sameEngine ? <Text tone="accent">The two versions were computed by different engine versions.</Text> : null}
           <Text variant="heading">Steps</Text>
-          <SimpleTable
-            label="Steps compared"
-            rows={q.data.primitives}
-            rowKey={(r) => String(r.index)}
-            rowTone={(r) => (r.change === 'same' ? undefined : 'danger')}
-            columns={[
-              { header: '#', cell: (r) => String(r.index + 1), numeric: true, minWidth: 36, flex: 0 },
-              { header: 'Change', cell: (r) => CHANGE_WORDS[r.change], minWidth: 80 },
-              { header: `v${va?.version ?? '?'}`, cell: (r) => <Text variant="caption">{r.a ?? '—'}</Text>, minWidth: 200, flex: 3 },
-              { header: `v${vb?.version ?? '?'}`, cell: (r) => <Text variant="caption">{r.b ?? '—'}</Text>, minWidth: 200, flex: 3 },
-            ]}
-          />
+          <View role="list" aria-label="Steps compared" style={styles.changes}>
+            {q.data.primitives.map((r) => (
+              <View key={r.index} role="listitem" style={[styles.change, r.change !== 'same' && styles.changed]}>
+                <Text variant="label" tone={r.change === 'same' ? 'muted' : 'accent'}>
+                  Step {r.index + 1} · {CHANGE_WORDS[r.change]}
+                </Text>
+                {r.change === 'same' ? (
+                  <Text variant="caption" tone="muted">{r.a}</Text>
+                ) : (
+                  <>
+                    <Text variant="caption">v{va?.version ?? '?'}: {r.a ?? '—'}</Text>
+                    <Text variant="caption">v{vb?.version ?? '?'}: {r.b ?? '—'}</Text>
+                  </>
+                )}
+              </View>
+            ))}
+          </View>
           <Text variant="heading">Result</Text>
           <SimpleTable
             label="Results compared"
             rows={FIGURES}
             rowKey={(f) => f.key}
             columns={[
-              { header: 'Figure', cell: (f) => f.label, minWidth: 130, flex: 2 },
-              { header: `v${va?.version ?? '?'}`, cell: (f) => withUnit(q.data.result[f.key].a, f.decimals, f.unit), numeric: true },
-              { header: `v${vb?.version ?? '?'}`, cell: (f) => withUnit(q.data.result[f.key].b, f.decimals, f.unit), numeric: true },
-              { header: 'Change', cell: (f) => signed(q.data.result[f.key].delta, f.decimals, f.unit), numeric: true },
+              { header: 'Figure', cell: (f) => f.label, minWidth: 110, flex: 2 },
+              { header: `v${va?.version ?? '?'}`, cell: (f) => withUnit(q.data.result[f.key].a, f.decimals, f.unit), numeric: true, minWidth: 64 },
+              { header: `v${vb?.version ?? '?'}`, cell: (f) => withUnit(q.data.result[f.key].b, f.decimals, f.unit), numeric: true, minWidth: 64 },
+              { header: 'Change', cell: (f) => signed(q.data.result[f.key].delta, f.decimals, f.unit), numeric: true, minWidth: 64 },
             ]}
           />
           <Text variant="caption" tone="muted">
@@ -104,4 +109,7 @@ const styles = StyleSheet.create({
   wrap: { gap: spacing.md, borderTopWidth: 1, borderTopColor: colors.border, paddingTop: spacing.md },
   pickers: { flexDirection: 'row', gap: spacing.md, flexWrap: 'wrap' },
   picker: { flexGrow: 1, flexBasis: 140 },
+  changes: { gap: spacing.xs },
+  change: { padding: spacing.sm, borderRadius: radii.sm, gap: 2 },
+  changed: { backgroundColor: colors.accentTint },
 });
