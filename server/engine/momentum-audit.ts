@@ -2,7 +2,8 @@
  * Momentum audit. At each sample it builds every segment's world-frame pose on a 5-point time
  * stencil — the prescribed joint angles through forward kinematics, and the root attitude moved
  * on from the integrated attitude at the rate the integrator follows there (q ⊗ exp(ω s/2), exact
- * to first order, which is all a first derivative sees) — differences those poses, and sums the
+ * to first order, which is all a first derivative sees) — differences those poses (for segments
+ * at rest relative to the root over the step, through the root's differenced world pose), and sums the
  * total angular momentum about the system CoM in the world frame,
  * H = Σ R J Rᵀ Ω + m (x − x_c) × (ẋ − ẋ_c).
  * None of the engine's I_lock / h / analytic-velocity code is used, so a wrong formula there shows
@@ -44,14 +45,19 @@ export interface AuditWork {
   /** World rotation (9 per segment) and world CoM (3 per segment) at each stencil point. */
   rotW: Float64Array[];
   comW: Float64Array[];
+  /** Stencil derivatives of each segment's world rotation (9 per segment, 1/s) and CoM (3, m/s). */
+  rotD: Float64Array;
   vel: Float64Array;
+  /** Root world rotation at each stencil point (9 per point, row-major). */
+  rootW: Float64Array;
   Rq: Float64Array;
   att: Float64Array;
   /** Stencil weights for the current spacing, 1/s. */
   w: Float64Array;
-  /** The piece `pose` holds the segments at rest for (null: none yet), and its moving segments (tree order). */
+  /** The piece `pose` holds the segments at rest for (null: none yet); its moving and resting segments. */
   piece: MotionPiece | null;
   moving: Int32Array;
+  resting: Int32Array;
 }
 
 /** Allocates audit buffers. */
@@ -61,8 +67,9 @@ export function createAuditWork(model: BodyModel): AuditWork {
     pose: createBodyPose(model), q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
     rotW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(9 * n)),
     comW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(3 * n)),
-    vel: new Float64Array(3 * n), Rq: new Float64Array(9), att: new Float64Array(4),
-    w: new Float64Array(STENCIL_POINTS), piece: null, moving: new Int32Array(0),
+    rotD: new Float64Array(9 * n), vel: new Float64Array(3 * n),
+    rootW: new Float64Array(9 * STENCIL_POINTS), Rq: new Float64Array(9), att: new Float64Array(4),
+    w: new Float64Array(STENCIL_POINTS), piece: null, moving: new Int32Array(0), resting: new Int32Array(0),
   };
 }
 
@@ -76,7 +83,7 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
   const { kind, delta } = chooseStencil(t, piece.t0, piece.t1);
   const st = STENCILS[kind];
   const n = model.segmentCount;
-  const { pose, rotW, comW, vel, Rq, att, w } = work;
+  const { pose, rotW, comW, rotD, vel, rootW, Rq, att, w } = work;
   // Segments at rest over the piece keep one root-frame pose: pose them once per piece, and
   // recompute only the moving ones at each stencil point (the same forward kinematics, reused).
   if (work.piece !== piece) {
@@ -84,8 +91,12 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     evalPiece(piece, piece.t0, work.q, work.qd);
     forwardKinematics(model, work.q, pose);
     work.moving = movingSegments(model, piece.moving);
+    const moves = new Uint8Array(n);
+    for (const i of work.moving) moves[i] = 1;
+    work.resting = Int32Array.from(moves.keys()).filter((i) => moves[i] === 0);
     work.piece = piece;
   }
+  const { moving, resting } = work;
   const wn = Math.hypot(omega[0], omega[1], omega[2]);
   let centre = 0;
   for (let j = 0; j < STENCIL_POINTS; j++) {
@@ -101,14 +112,16 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     att[3] = q[0] * ez + q[1] * ey - q[2] * ex + q[3] * c;
     quatToMatrix(att, Rq);
     const a0 = Rq[0], a1 = Rq[1], a2 = Rq[2], a3 = Rq[3], a4 = Rq[4], a5 = Rq[5], a6 = Rq[6], a7 = Rq[7], a8 = Rq[8];
-    // Segment poses from the prescribed joint angles, then to the world frame.
+    const r = 9 * j;
+    rootW[r] = a0; rootW[r + 1] = a1; rootW[r + 2] = a2; rootW[r + 3] = a3; rootW[r + 4] = a4; rootW[r + 5] = a5; rootW[r + 6] = a6; rootW[r + 7] = a7; rootW[r + 8] = a8;
+    // Moving segments' poses from the prescribed joint angles, then to the world frame.
     let from = pose;
     if (s === 0 && centrePose) from = centrePose;
-    else { evalMoving(piece, t + s, work.q, work.qd); forwardKinematics(model, work.q, pose, work.moving); }
+    else { evalMoving(piece, t + s, work.q, work.qd); forwardKinematics(model, work.q, pose, moving); }
     const { rot, comPos } = from;
     const R = rotW[j], X = comW[j];
-    for (let i = 0; i < n; i++) {
-      const o = 9 * i, i3 = 3 * i;
+    for (let m = 0; m < moving.length; m++) {
+      const i = moving[m], o = 9 * i, i3 = 3 * i;
       const b0 = rot[o], b1 = rot[o + 1], b2 = rot[o + 2], b3 = rot[o + 3], b4 = rot[o + 4], b5 = rot[o + 5], b6 = rot[o + 6], b7 = rot[o + 7], b8 = rot[o + 8];
       R[o] = a0 * b0 + a1 * b3 + a2 * b6; R[o + 1] = a0 * b1 + a1 * b4 + a2 * b7; R[o + 2] = a0 * b2 + a1 * b5 + a2 * b8;
       R[o + 3] = a3 * b0 + a4 * b3 + a5 * b6; R[o + 4] = a3 * b1 + a4 * b4 + a5 * b7; R[o + 5] = a3 * b2 + a4 * b5 + a5 * b8;
@@ -117,33 +130,56 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
       X[i3] = a0 * x + a1 * y + a2 * z; X[i3 + 1] = a3 * x + a4 * y + a5 * z; X[i3 + 2] = a6 * x + a7 * y + a8 * z;
     }
   }
-  const C0 = comW[0], C1 = comW[1], C2 = comW[2], C3 = comW[3], C4 = comW[4];
   const w0 = w[0], w1 = w[1], w2 = w[2], w3 = w[3], w4 = w[4];
+  const P0 = rotW[0], P1 = rotW[1], P2 = rotW[2], P3 = rotW[3], P4 = rotW[4];
+  const C0 = comW[0], C1 = comW[1], C2 = comW[2], C3 = comW[3], C4 = comW[4];
+  const R0 = rotW[centre], X0 = comW[centre];
+  // Moving segments: difference their world poses on the stencil.
+  for (let m = 0; m < moving.length; m++) {
+    const i = moving[m];
+    for (let e = 9 * i; e < 9 * i + 9; e++) rotD[e] = w0 * P0[e] + w1 * P1[e] + w2 * P2[e] + w3 * P3[e] + w4 * P4[e];
+    for (let e = 3 * i; e < 3 * i + 3; e++) vel[e] = w0 * C0[e] + w1 * C1[e] + w2 * C2[e] + w3 * C3[e] + w4 * C4[e];
+  }
+  // Segments at rest relative to the root: their world pose is (root world rotation)·(constant),
+  // so the stencil, being linear, differences the root's world rotation once and applies it to
+  // each: Ṙ_w = (Σ w_j Rq_j)·R, ẋ_w = (Σ w_j Rq_j)·x — the same differences, fewer products.
+  const c9 = 9 * centre;
+  const q0 = rootW[c9], q1 = rootW[c9 + 1], q2 = rootW[c9 + 2], q3 = rootW[c9 + 3], q4 = rootW[c9 + 4], q5 = rootW[c9 + 5], q6 = rootW[c9 + 6], q7 = rootW[c9 + 7], q8 = rootW[c9 + 8];
+  let e0 = 0, e1 = 0, e2 = 0, e3 = 0, e4 = 0, e5 = 0, e6 = 0, e7 = 0, e8 = 0;
+  for (let j = 0; j < STENCIL_POINTS; j++) {
+    const r = 9 * j, wj = w[j];
+    e0 += wj * rootW[r]; e1 += wj * rootW[r + 1]; e2 += wj * rootW[r + 2];
+    e3 += wj * rootW[r + 3]; e4 += wj * rootW[r + 4]; e5 += wj * rootW[r + 5];
+    e6 += wj * rootW[r + 6]; e7 += wj * rootW[r + 7]; e8 += wj * rootW[r + 8];
+  }
+  const { rot, comPos } = pose;
+  for (let m = 0; m < resting.length; m++) {
+    const i = resting[m], o = 9 * i, i3 = 3 * i;
+    const b0 = rot[o], b1 = rot[o + 1], b2 = rot[o + 2], b3 = rot[o + 3], b4 = rot[o + 4], b5 = rot[o + 5], b6 = rot[o + 6], b7 = rot[o + 7], b8 = rot[o + 8];
+    R0[o] = q0 * b0 + q1 * b3 + q2 * b6; R0[o + 1] = q0 * b1 + q1 * b4 + q2 * b7; R0[o + 2] = q0 * b2 + q1 * b5 + q2 * b8;
+    R0[o + 3] = q3 * b0 + q4 * b3 + q5 * b6; R0[o + 4] = q3 * b1 + q4 * b4 + q5 * b7; R0[o + 5] = q3 * b2 + q4 * b5 + q5 * b8;
+    R0[o + 6] = q6 * b0 + q7 * b3 + q8 * b6; R0[o + 7] = q6 * b1 + q7 * b4 + q8 * b7; R0[o + 8] = q6 * b2 + q7 * b5 + q8 * b8;
+    rotD[o] = e0 * b0 + e1 * b3 + e2 * b6; rotD[o + 1] = e0 * b1 + e1 * b4 + e2 * b7; rotD[o + 2] = e0 * b2 + e1 * b5 + e2 * b8;
+    rotD[o + 3] = e3 * b0 + e4 * b3 + e5 * b6; rotD[o + 4] = e3 * b1 + e4 * b4 + e5 * b7; rotD[o + 5] = e3 * b2 + e4 * b5 + e5 * b8;
+    rotD[o + 6] = e6 * b0 + e7 * b3 + e8 * b6; rotD[o + 7] = e6 * b1 + e7 * b4 + e8 * b7; rotD[o + 8] = e6 * b2 + e7 * b5 + e8 * b8;
+    const x = comPos[i3], y = comPos[i3 + 1], z = comPos[i3 + 2];
+    X0[i3] = q0 * x + q1 * y + q2 * z; X0[i3 + 1] = q3 * x + q4 * y + q5 * z; X0[i3 + 2] = q6 * x + q7 * y + q8 * z;
+    vel[i3] = e0 * x + e1 * y + e2 * z; vel[i3 + 1] = e3 * x + e4 * y + e5 * z; vel[i3 + 2] = e6 * x + e7 * y + e8 * z;
+  }
   // System CoM position and velocity (world).
   const M = model.totalMass;
-  const X0 = comW[centre];
   let xcx = 0, xcy = 0, xcz = 0, vcx = 0, vcy = 0, vcz = 0;
   for (let i = 0; i < n; i++) {
-    for (let a = 3 * i; a < 3 * i + 3; a++) vel[a] = w0 * C0[a] + w1 * C1[a] + w2 * C2[a] + w3 * C3[a] + w4 * C4[a];
     const m = model.mass[i] / M;
     xcx += m * X0[3 * i]; xcy += m * X0[3 * i + 1]; xcz += m * X0[3 * i + 2];
     vcx += m * vel[3 * i]; vcy += m * vel[3 * i + 1]; vcz += m * vel[3 * i + 2];
   }
   let Hx = 0, Hy = 0, Hz = 0;
-  const R0 = rotW[centre], J = model.inertia;
-  const P0 = rotW[0], P1 = rotW[1], P2 = rotW[2], P3 = rotW[3], P4 = rotW[4];
+  const J = model.inertia;
   for (let i = 0; i < n; i++) {
     const o = 9 * i;
-    // Ṙ by the stencil; Ω = vee(skew part of Ṙ Rᵀ), A = Ṙ Rᵀ (only its off-diagonal entries are needed).
-    const d0 = w0 * P0[o] + w1 * P1[o] + w2 * P2[o] + w3 * P3[o] + w4 * P4[o];
-    const d1 = w0 * P0[o + 1] + w1 * P1[o + 1] + w2 * P2[o + 1] + w3 * P3[o + 1] + w4 * P4[o + 1];
-    const d2 = w0 * P0[o + 2] + w1 * P1[o + 2] + w2 * P2[o + 2] + w3 * P3[o + 2] + w4 * P4[o + 2];
-    const d3 = w0 * P0[o + 3] + w1 * P1[o + 3] + w2 * P2[o + 3] + w3 * P3[o + 3] + w4 * P4[o + 3];
-    const d4 = w0 * P0[o + 4] + w1 * P1[o + 4] + w2 * P2[o + 4] + w3 * P3[o + 4] + w4 * P4[o + 4];
-    const d5 = w0 * P0[o + 5] + w1 * P1[o + 5] + w2 * P2[o + 5] + w3 * P3[o + 5] + w4 * P4[o + 5];
-    const d6 = w0 * P0[o + 6] + w1 * P1[o + 6] + w2 * P2[o + 6] + w3 * P3[o + 6] + w4 * P4[o + 6];
-    const d7 = w0 * P0[o + 7] + w1 * P1[o + 7] + w2 * P2[o + 7] + w3 * P3[o + 7] + w4 * P4[o + 7];
-    const d8 = w0 * P0[o + 8] + w1 * P1[o + 8] + w2 * P2[o + 8] + w3 * P3[o + 8] + w4 * P4[o + 8];
+    // Ω = vee(skew part of Ṙ Rᵀ), A = Ṙ Rᵀ (only its off-diagonal entries are needed).
+    const d0 = rotD[o], d1 = rotD[o + 1], d2 = rotD[o + 2], d3 = rotD[o + 3], d4 = rotD[o + 4], d5 = rotD[o + 5], d6 = rotD[o + 6], d7 = rotD[o + 7], d8 = rotD[o + 8];
     const r0 = R0[o], r1 = R0[o + 1], r2 = R0[o + 2], r3 = R0[o + 3], r4 = R0[o + 4], r5 = R0[o + 5], r6 = R0[o + 6], r7 = R0[o + 7], r8 = R0[o + 8];
     // A(r, c) = Σ_k Ṙ[r][k] R[c][k].
     const A01 = d0 * r3 + d1 * r4 + d2 * r5, A02 = d0 * r6 + d1 * r7 + d2 * r8;
