@@ -22,7 +22,7 @@ export function Preview3DSlot({ versionId }: Preview3DSlotProps) {
   if (shown) {
     return (
       <View style={styles.player} testID="preview-3d">
-        <LazyPlayer versionId={versionId} height={420} compact />
+        <LazyPlayer versionId={versionId} height={540} compact />
         <Button label="Hide 3D preview" icon="eye-off" variant="ghost" size="sm" onPress={() => setShown(false)} />
       </View>
     );
