@@ -159,7 +159,8 @@ test('a trainee on a phone opens a cleared maneuver, watches it in 3D, switches 
   expect(await changedFraction(page, beforeCam, await canvas.screenshot())).toBeGreaterThan(0.02);
   if (SCREENS) await page.screenshot({ path: path.join(SCREENS, 'rehearse-player-body-camera-phone.png') });
   await player.getByRole('radio', { name: 'Observer' }).click();
-  await player.getByRole('button', { name: 'Side view' }).click();
+  await player.getByRole('radio', { name: 'Side', exact: true }).click();
+  await expect(player.getByRole('radio', { name: 'Side', exact: true })).toHaveAttribute('aria-checked', 'true');
   await player.getByRole('radio', { name: '0.5×' }).click();
 
   // Log the run: the form is prefilled from the player.

@@ -17,12 +17,14 @@ export interface RehearsalCanvasProps {
   preset?: ViewPreset;
   /** Bump to re-apply the same preset. Default 0. */
   presetNonce?: number;
+  /** Pixels at the top covered by overlays; default 0. */
+  topInset?: number;
   /** Accessible description of the view. */
   label?: string;
 }
 
 /** The WebGL canvas of the rehearsal view (fills its parent). */
-export default function RehearsalCanvas({ scene, clock, cameraMode, preset, presetNonce, label }: RehearsalCanvasProps) {
+export default function RehearsalCanvas({ scene, clock, cameraMode, preset, presetNonce, topInset, label }: RehearsalCanvasProps) {
   const style = useMemo(() => ({ width: '100%', height: '100%', background: scenePalette.background, touchAction: 'none' as const }), []);
   return (
     <Canvas
@@ -35,7 +37,7 @@ export default function RehearsalCanvas({ scene, clock, cameraMode, preset, pres
       aria-label={label}
       data-testid="rehearsal-canvas"
     >
-      <RehearsalScene scene={scene} clock={clock} cameraMode={cameraMode} preset={preset} presetNonce={presetNonce} />
+      <RehearsalScene scene={scene} clock={clock} cameraMode={cameraMode} preset={preset} presetNonce={presetNonce} topInset={topInset} />
     </Canvas>
   );
 }

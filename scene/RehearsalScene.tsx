@@ -3,7 +3,7 @@ import { OrbitControls } from '@react-three/drei/core/OrbitControls';
 import { type RootState, useFrame, useThree } from '@react-three/fiber';
 import { type RefObject, useEffect, useLayoutEffect, useMemo, useRef } from 'react';
 import {
-  BufferGeometry, Float32BufferAttribute, Line, LineBasicMaterial, Matrix4, type Mesh, MeshBasicMaterial,
+  BufferGeometry, type Camera, Float32BufferAttribute, PerspectiveCamera, Line, LineBasicMaterial, Matrix4, type Mesh, MeshBasicMaterial,
   type Object3D, Quaternion, RingGeometry, SphereGeometry, Vector3,
 } from 'three';
 import type { OrbitControls as OrbitControlsImpl } from 'three-stdlib';
@@ -28,6 +28,8 @@ export interface RehearsalSceneProps {
   /** Observer preset; re-applied whenever `presetNonce` changes. Default front. */
   preset?: ViewPreset;
   presetNonce?: number;
+  /** Pixels at the top of the canvas covered by overlays (the cue card); the view centres below them. Default 0. */
+  topInset?: number;
 }
 
 /** Inertial → three.js world: −90° about x (inertial z up becomes three.js y up). */
@@ -44,6 +46,26 @@ const qCamInBody = (() => {
   const m = new Matrix4().lookAt(new Vector3(...BODY_CAMERA_EYE), new Vector3(...BODY_CAMERA_LOOK_AT), new Vector3(0, 0, 1));
   return new Quaternion().setFromRotationMatrix(m);
 })();
+
+/** Puts the observer camera at a preset, aimed at the CoM (the orbit's centre). */
+function placeObserverCamera(camera: Camera, controls: OrbitControlsImpl | null, preset: ViewPreset, distance: number): void {
+  camera.position.set(...presetPosition(preset, distance));
+  camera.up.set(0, 1, 0);
+  camera.lookAt(0, 0, 0);
+  controls?.target.set(0, 0, 0);
+  controls?.update();
+}
+
+/**
+ * Shifts the projection so the view's centre sits in the middle of the part of the canvas that
+ * overlays do not cover (`topInset` px at the top), keeping the CoM there in every camera.
+ */
+function centreBelowInset(camera: Camera, width: number, height: number, topInset: number): void {
+  if (!(camera instanceof PerspectiveCamera) || width <= 0 || height <= 0) return;
+  if (topInset > 0) camera.setViewOffset(width, height, 0, -topInset / 2, width, height);
+  else camera.clearViewOffset();
+  camera.updateProjectionMatrix();
+}
 
 /** Everything one frame reads and writes. */
 interface FrameContext {
@@ -102,7 +124,7 @@ function advanceFrame(c: FrameContext, state: RootState, delta: number): void {
  * the target ghost with its axes, the head-axis trail, a beat ring, the inertial backdrop, and the
  * observer or body-fixed camera. Everything per frame mutates preallocated objects.
  */
-export function RehearsalScene({ scene, clock, cameraMode = 'observer', preset = 'front', presetNonce = 0 }: RehearsalSceneProps) {
+export function RehearsalScene({ scene, clock, cameraMode = 'observer', preset = 'front', presetNonce = 0, topInset = 0 }: RehearsalSceneProps) {
   const { model } = scene;
   const segments = useRef<(Object3D | null)[]>([]);
   const ghostSegments = useRef<(Object3D | null)[]>([]);
@@ -110,6 +132,8 @@ export function RehearsalScene({ scene, clock, cameraMode = 'observer', preset =
   const ring = useRef<Mesh>(null);
   const controls = useRef<OrbitControlsImpl>(null);
   const camera = useThree((s) => s.camera);
+  const size = useThree((s) => s.size);
+  useLayoutEffect(() => centreBelowInset(camera, size.width, size.height, topInset), [camera, size.width, size.height, topInset]);
 
   // Per-motion buffers, made once.
   const work = useMemo(() => ({ pose: createWorldPose(model), att: new Float64Array(4), q: new Float64Array(model.dofCount) }), [model]);
@@ -131,17 +155,9 @@ export function RehearsalScene({ scene, clock, cameraMode = 'observer', preset =
   }, [trail, marks]);
 
   // Observer presets: place the camera and aim the orbit at the CoM.
-  const distance = Math.max(2.6, scene.reach * 3.4);
+  const distance = Math.max(2.6, scene.reach * 3);
   useLayoutEffect(() => {
-    if (cameraMode !== 'observer') return;
-    // Aim a little above the CoM so the body sits below the cue card that overlays the top of the view.
-    const lift = preset === 'above' ? 0 : 0.12 * distance;
-    camera.position.set(...presetPosition(preset, distance));
-    camera.position.y += lift;
-    camera.up.set(0, 1, 0);
-    camera.lookAt(0, lift, 0);
-    controls.current?.target.set(0, lift, 0);
-    controls.current?.update();
+    if (cameraMode === 'observer') placeObserverCamera(camera, controls.current, preset, distance);
   }, [camera, cameraMode, preset, presetNonce, distance]);
 
   useFrame((state, delta) => advanceFrame({ scene, clock, work, segments, triad, ring, trail, cameraMode }, state, delta));

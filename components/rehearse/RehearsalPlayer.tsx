@@ -68,6 +68,8 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
   const [preset, setPreset] = useState<ViewPreset>('front');
   const [presetNonce, setPresetNonce] = useState(0);
   const [sound, setSound] = useState(false);
+  // Height of the cue overlay, so the 3D view centres the body below it.
+  const [inset, setInset] = useState(0);
   useBeatTick(snap, sound);
 
   if (!built.scene) return <ErrorBanner title="This maneuver cannot be shown" error={built.error} />;
@@ -99,10 +101,11 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
             cameraMode={cameraMode}
             preset={preset}
             presetNonce={presetNonce}
+            topInset={inset}
             label={`3D view of ${motion.sequenceName} on ${motion.crewMemberName}'s body`}
           />
         </View>
-        <View style={styles.overlay} pointerEvents="box-none">
+        <View style={styles.overlay} pointerEvents="box-none" onLayout={(e) => setInset(Math.round(e.nativeEvent.layout.height))}>
           <CueCard step={step} stepCount={motion.steps.length} cycle={snap.cycle} beats={snap.beats} nextCue={motion.steps[snap.step + 1]?.cue} />
           <View style={styles.legend} pointerEvents="none">
             <LegendDot color={scenePalette.left} label="Left" />
@@ -113,7 +116,8 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
         </View>
       </View>
 
-      <View style={[styles.panel, compact && styles.panelCompact]}>
+      <View style={styles.panel}>
+        <View style={[styles.panelInner, compact && styles.panelCompact]}>
         <StepTimeline steps={motion.steps} duration={motion.duration} time={snap.time} current={snap.step} loopStep={snap.loopStep} onSeek={(t) => clock.seek(t)} />
         <View style={styles.transport}>
           <ControlButton icon="skip-back" label="Previous step" onPress={() => clock.prevStep()} />
@@ -127,22 +131,21 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
           <View style={styles.cameraMode}>
             <SegmentedControl label="Camera" hideLabel options={CAMERA_OPTIONS} value={cameraMode} onChange={(v) => setCameraMode(v)} />
           </View>
-          <View style={styles.presets} role="group" aria-label="Preset views">
-            {PRESETS.map((p) => (
-              <Button
-                key={p.value}
-                label={p.label}
-                size="sm"
-                variant={cameraMode === 'observer' && preset === p.value ? 'secondary' : 'ghost'}
-                disabled={cameraMode !== 'observer'}
-                accessibilityLabel={`${p.label} view`}
-                onPress={() => {
-                  setPreset(p.value);
-                  setPresetNonce((n) => n + 1);
-                }}
-              />
-            ))}
+          <View style={styles.presets}>
+            <SegmentedControl
+              label="Preset view"
+              hideLabel
+              options={PRESETS}
+              value={cameraMode === 'observer' ? preset : undefined}
+              disabled={cameraMode !== 'observer'}
+              onChange={(v) => {
+                // Pressing the current preset again re-applies it (after orbiting away).
+                setPreset(v);
+                setPresetNonce((n) => n + 1);
+              }}
+            />
           </View>
+        </View>
         </View>
       </View>
     </View>
@@ -163,7 +166,7 @@ function LegendDot({ color, label }: { color: string; label: string }) {
 const styles = StyleSheet.create({
   root: { flex: 1, backgroundColor: scenePalette.background, overflow: 'hidden' },
   stage: { flex: 1, minHeight: 220 },
-  overlay: { padding: spacing.sm, gap: spacing.xs },
+  overlay: { padding: spacing.sm, gap: spacing.xs, width: '100%', maxWidth: 640 },
   titleRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, paddingHorizontal: spacing.md, paddingVertical: spacing.sm },
   titleText: { flex: 1, minWidth: 0 },
   legend: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.md, paddingHorizontal: spacing.xs },
@@ -171,12 +174,13 @@ const styles = StyleSheet.create({
   dot: { width: 8, height: 8, borderRadius: 4 },
   panel: {
     backgroundColor: colors.background, borderTopWidth: 1, borderColor: colors.border,
-    paddingHorizontal: spacing.md, paddingTop: spacing.sm, paddingBottom: spacing.md, gap: spacing.sm,
+    paddingHorizontal: spacing.md, paddingTop: spacing.sm, paddingBottom: spacing.md,
     borderTopLeftRadius: radii.lg, borderTopRightRadius: radii.lg,
   },
+  panelInner: { width: '100%', maxWidth: 760, alignSelf: 'center', gap: spacing.sm },
   panelCompact: { gap: spacing.xs },
   transport: { flexDirection: 'row', alignItems: 'center', justifyContent: 'center', gap: spacing.md },
   cameraRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm, justifyContent: 'space-between' },
   cameraMode: { flexGrow: 1, minWidth: 200 },
-  presets: { flexDirection: 'row', gap: spacing.xs },
+  presets: { flexGrow: 1, minWidth: 200 },
 });
