@@ -1,4 +1,4 @@
-import { Redirect, useRouter } from 'expo-router';
+import { Redirect, useGlobalSearchParams, usePathname, useRouter } from 'expo-router';
 import { Tabs } from 'expo-router/js-tabs';
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
@@ -7,6 +7,7 @@ import { useSessionQuery, useSignOutMutation } from '@/components/api/use-sessio
 import { ChangePasswordSheet } from '@/components/auth/ChangePasswordSheet';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { AppHeader } from '@/components/shell/AppHeader';
+import { signInHrefFor } from '@/components/shell/return-path';
 import { tabScreenOptions, tabNavigatorOptions } from '@/components/shell/tab-bar-options';
 import { canSeeTab, TAB_NAMES, TABS } from '@/components/shell/tab-access';
 import { colors } from '@/components/theme';
@@ -20,6 +21,8 @@ export default function AppLayout() {
   const session = useSessionQuery();
   const signOut = useSignOutMutation();
   const [changingPassword, setChangingPassword] = useState(false);
+  const pathname = usePathname();
+  const params = useGlobalSearchParams();
 
   if (session.isPending) return <LoadingState fill label="Checking your session…" />;
   if (session.isError) {
@@ -30,7 +33,13 @@ export default function AppLayout() {
     );
   }
   const user = session.data;
-  if (!user) return <Redirect href="/sign-in?notice=session-ended" />;
+  if (!user) {
+    // Keep the page the person was opening (e.g. a review link from an e-mail) for after sign-in.
+    const query = new URLSearchParams(
+      Object.entries(params).flatMap(([k, v]) => (pathname.includes(String(v)) ? [] : [[k, String(v)]])),
+    ).toString();
+    return <Redirect href={signInHrefFor(pathname, query ? `?${query}` : '')} />;
+  }
 
   return (
     <View style={styles.root}>

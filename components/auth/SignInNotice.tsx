@@ -8,6 +8,7 @@ const NOTICES: Record<string, string> = {
   'signed-out': 'You are signed out.',
   'password-changed': 'Password changed. Sign in with your new password.',
   'session-ended': 'Your session ended. Sign in again to continue.',
+  'sign-in-to-continue': 'Sign in to open the page you followed.',
 };
 
 /** Props of {@link SignInNotice}. */
