@@ -3,7 +3,7 @@
  * controls subscribe to a snapshot that changes only on discrete events (step, cycle, play state,
  * speed, loop) or every TIME_TICK_S of playback, so the overlay re-renders a few times a second.
  */
-import { cycleAt, type StepSpan, stepIndexAt } from './step-position';
+import { cycleAt, cycleNumberAt, type StepSpan, stepIndexAt } from './step-position';
 
 /** What the overlay shows; a new object only when something in it changed. */
 export interface ClockSnapshot {
@@ -58,21 +58,29 @@ export class PlaybackClock {
     for (const fn of this.listeners) fn();
   }
 
-  /** Start and end of the playable window (the looped step, or the whole sequence). */
-  private window(): [number, number] {
+  /** Start and end of the playable window (the looped step, or the whole sequence), s. */
+  private windowStart(): number {
     const l = this.snap.loopStep;
-    return l === null || !this.steps[l] ? [0, this.duration] : [this.steps[l].start, this.steps[l].end];
+    return l === null || !this.steps[l] ? 0 : this.steps[l].start;
+  }
+  private windowEnd(): number {
+    const l = this.snap.loopStep;
+    return l === null || !this.steps[l] ? this.duration : this.steps[l].end;
   }
 
-  /** Recomputes the discrete parts for the current t and publishes when they changed. */
-  private sync(extra: Partial<ClockSnapshot> = {}, beat = false): void {
+  /**
+   * Recomputes the discrete parts for the current t and publishes when they changed. Called every
+   * frame: allocates only when it publishes (a few times a second).
+   */
+  private sync(extra?: Partial<ClockSnapshot>, beat = false): void {
     const step = stepIndexAt(this.steps, this.t);
-    const cycle = this.steps.length ? cycleAt(this.steps[step], this.t) : null;
+    const cycleNo = this.steps.length ? cycleNumberAt(this.steps[step], this.t) : 0;
     const time = Math.floor(this.t / TIME_TICK_S + 1e-9) * TIME_TICK_S;
     const s = this.snap;
-    const changed = step !== s.step || cycle?.cycle !== s.cycle?.cycle || cycle?.of !== s.cycle?.of || time !== s.time
-      || Object.entries(extra).some(([k, v]) => s[k as keyof ClockSnapshot] !== v) || beat;
+    let changed = beat || step !== s.step || cycleNo !== (s.cycle?.cycle ?? 0) || time !== s.time || this.passed + 1 !== s.completedSteps;
+    if (extra && !changed) for (const k in extra) if (s[k as keyof ClockSnapshot] !== extra[k as keyof ClockSnapshot]) changed = true;
     if (!changed) return;
+    const cycle = this.steps.length ? cycleAt(this.steps[step], this.t) : null;
     this.publish({ step, cycle, time, ...extra, ...(beat ? { beats: s.beats + 1 } : {}), completedSteps: this.passed + 1 });
   }
 
@@ -84,7 +92,7 @@ export class PlaybackClock {
   advance(dtReal: number, wallNow: number): void {
     if (!this.snap.playing || dtReal <= 0) return;
     const before = this.t;
-    const [w0, w1] = this.window();
+    const w0 = this.windowStart(), w1 = this.windowEnd();
     let t = before + Math.min(dtReal, 0.25) * this.snap.speed;
     let wrapped = false;
     if (t >= w1) {
@@ -93,8 +101,8 @@ export class PlaybackClock {
     }
     const stepBefore = stepIndexAt(this.steps, before);
     const stepAfter = stepIndexAt(this.steps, t);
-    const cycBefore = this.steps.length ? cycleAt(this.steps[stepBefore], before)?.cycle : undefined;
-    const cycAfter = this.steps.length ? cycleAt(this.steps[stepAfter], t)?.cycle : undefined;
+    const cycBefore = this.steps.length ? cycleNumberAt(this.steps[stepBefore], before) : 0;
+    const cycAfter = this.steps.length ? cycleNumberAt(this.steps[stepAfter], t) : 0;
     const beat = wrapped || stepAfter !== stepBefore || cycAfter !== cycBefore;
     // Steps whose end was crossed while playing count as completed.
     for (let i = stepBefore; i < this.steps.length; i++) if (this.steps[i].end <= t + 1e-9 && i > this.passed) this.passed = i;
@@ -102,13 +110,12 @@ export class PlaybackClock {
     this.t = t;
     if (beat) this.lastBeatWall = wallNow;
     const ended = this.snap.loopStep === null && t >= this.duration;
-    this.sync(ended ? { playing: false, ended: true } : {}, beat);
+    this.sync(ended ? { playing: false, ended: true } : undefined, beat);
   }
 
   /** Play; from the start when at the end. */
   play(): void {
-    const [w0, w1] = this.window();
-    if (this.t >= w1 - 1e-9) this.t = w0;
+    if (this.t >= this.windowEnd() - 1e-9) this.t = this.windowStart();
     this.sync({ playing: true, ended: false });
   }
 

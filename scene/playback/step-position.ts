@@ -15,10 +15,15 @@ export function stepIndexAt(steps: readonly StepSpan[], t: number): number {
   return idx;
 }
 
+/** The 1-based cycle in progress at t within a cyclic step; 0 for other steps. Allocation-free (render loop). */
+export function cycleNumberAt(step: StepSpan, t: number): number {
+  if (step.cycles === null || step.period === null || step.period <= 0) return 0;
+  const of = Math.ceil(step.cycles - 1e-9);
+  return Math.min(of, Math.max(1, Math.floor((t - step.start) / step.period + 1e-9) + 1));
+}
+
 /** The 1-based cycle in progress at t within a cyclic step and how many there are; null for other steps. */
 export function cycleAt(step: StepSpan, t: number): { cycle: number; of: number } | null {
-  if (step.cycles === null || step.period === null || step.period <= 0) return null;
-  const of = Math.ceil(step.cycles - 1e-9);
-  const cycle = Math.min(of, Math.max(1, Math.floor((t - step.start) / step.period + 1e-9) + 1));
-  return { cycle, of };
+  const cycle = cycleNumberAt(step, t);
+  return cycle === 0 || step.cycles === null ? null : { cycle, of: Math.ceil(step.cycles - 1e-9) };
 }
