@@ -6,6 +6,7 @@ import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { bodyRate, createMomentumWork, type MomentumWork, restrictToPiece } from './locked-momentum.ts';
 import { evalMoving, evalPiece, type MotionPlan } from './joint-motion.ts';
 import { odex } from './odex-solver.ts';
+import { mergeRigidSegments } from './rigid-merge.ts';
 
 /** Integrator settings. */
 export interface IntegratorOptions {
@@ -64,7 +65,9 @@ export function attitudeRhs(model: BodyModel, work: MomentumWork, piece: MotionP
 export function integrateAttitude(
   model: BodyModel, plan: MotionPlan, opts: IntegratorOptions, pieceTimes: ReadonlyArray<ArrayLike<number>>,
 ): AttitudeTrack {
-  const work = createMomentumWork(model);
+  // The right-hand side sees dof-less segments folded into their parents (the same I_lock and h).
+  const rhsModel = mergeRigidSegments(model);
+  const work = createMomentumWork(rhsModel);
   const total = pieceTimes.reduce((s, a) => s + a.length, 0);
   const outputs = new Float64Array(4 * total);
   const counter = { n: 0 };
@@ -84,7 +87,7 @@ export function integrateAttitude(
     solver.absoluteTolerance = opts.atol;
     solver.denseOutput = true;
     solver.maxSteps = opts.maxSteps ?? 100_000;
-    const f = attitudeRhs(model, work, piece, counter);
+    const f = attitudeRhs(rhsModel, work, piece, counter);
     const res = solver.solve(f, piece.t0, y, piece.t1, (nr, _xOld, x, yy, dense) => {
       // The first call is the initial point (no step yet, no interpolant).
       if (nr === 1) { while (next < times.length && times[next] <= x) { record(yy[0], yy[1], yy[2], yy[3]); next++; } return; }

@@ -15,6 +15,7 @@ import { compileMotion, evalPiece, type MotionPlan } from './joint-motion.ts';
 import { findRangeViolations, peakJointRates } from './joint-range.ts';
 import { bodyRate, createMomentumWork, restrictToPiece } from './locked-momentum.ts';
 import { auditAt, createAuditWork } from './momentum-audit.ts';
+import { mergeRigidSegments } from './rigid-merge.ts';
 import { ENGINE_VERSION } from './version.ts';
 
 const DEG = 180 / Math.PI;
@@ -68,7 +69,10 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
   const track = integrateAttitude(model, plan, { rtol, atol }, perPiece);
 
   // Samples, momentum audit, peak shape momentum.
-  const work = createMomentumWork(model);
+  // The rate the integrator follows is computed on its model (dof-less segments folded into their
+  // parents); the audit poses every segment of the full model itself.
+  const rhsModel = mergeRigidSegments(model);
+  const work = createMomentumWork(rhsModel);
   const audit = createAuditWork(model);
   const q = new Float64Array(nd), qd = new Float64Array(nd), a = new Float64Array(4);
   const frames: SimulationResult['samples']['frames'] = [];
@@ -89,12 +93,11 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
     for (let k = 0; k < nd; k++) jointsDeg[k] = q[k] * DEG;
     frames.push({ t, attitude: { w: a[0], x: a[1], y: a[2], z: a[3] }, jointsDeg });
     // The rate the integrator follows here (for the audit's root motion) and the shape momentum.
-    if (work.piece !== piece) restrictToPiece(model, piece, work);
-    const omega = bodyRate(model, q, qd, work);
+    if (work.piece !== piece) restrictToPiece(rhsModel, piece, work);
+    const omega = bodyRate(rhsModel, q, qd, work);
     peakH = Math.max(peakH, Math.hypot(work.h[0], work.h[1], work.h[2]));
     if (options.skipAudit) continue;
-    // The audit's stencil centre is the pose bodyRate just computed at t.
-    const H = auditAt(model, piece, t, a, omega, audit, work.pose);
+    const H = auditAt(model, piece, t, a, omega, audit);
     if (H > maxH) { maxH = H; atTime = t; }
   }
 
