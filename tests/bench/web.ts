@@ -12,7 +12,7 @@ import { gzipSync } from 'node:zlib';
 /** Sign-in's first-load budget, KB of gzipped JavaScript (the product's performance target). */
 const SIGN_IN_BUDGET_KB = 600;
 
-const root = fileURLToPath(new URL('../../dist/web/', import.meta.url));
+const root = fileURLToPath(new URL('../../dist/web/', import.meta.url).href);
 const indexHtml = path.join(root, 'index.html');
 if (!existsSync(indexHtml)) {
   console.error(`No web export at ${root}: run \`npm run build:web\` first.`);
