@@ -42,8 +42,8 @@ export function rehearsalsRouter(ctx: AppContext): Router {
       .where(where)
       .orderBy(desc(rehearsals.performedAt));
 
-  // What the caller may rehearse: cleared versions (a trainee: of their own crew member), plus the
-  // versions they rehearsed that now need a re-check, so the list can say why one went away.
+  // What the caller may rehearse: cleared versions (a trainee: of their own crew member), plus
+  // formerly cleared or rehearsed versions that now need a re-check, with a notice in the list.
   router.get('/available', async (req, res) => {
     const me = req.user!;
     if (me.role === 'trainee' && !me.crewMemberId) {
@@ -65,7 +65,8 @@ export function rehearsalsRouter(ctx: AppContext): Router {
         ))
       : [];
     const versions: RehearsableVersion[] = rows
-      .filter(({ v }) => v.status === 'cleared' || mine.some((m) => m.r.sequenceVersionId === v.id))
+      // Re-check versions show when they had been cleared (or were rehearsed), so the notice explains why they went away.
+      .filter(({ v }) => v.status === 'cleared' || v.clearedAt !== null || mine.some((m) => m.r.sequenceVersionId === v.id))
       .map(({ v, s, crewName }) => {
         const runs = mine.filter((m) => m.r.sequenceVersionId === v.id);
         const last = runs[0]?.r;
