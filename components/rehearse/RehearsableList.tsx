@@ -57,7 +57,7 @@ export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
             </Text>
             {stale ? (
               <Text variant="caption" tone="danger">
-                The inertia profile behind this maneuver changed. It is being re-verified; rehearse it again once it is cleared.
+                The inertia profile behind this maneuver changed. It is being re-verified and can be rehearsed again once it is cleared.
               </Text>
             ) : null}
           </Pressable>
