@@ -46,9 +46,10 @@ const SIDES: readonly FieldChoice[] = [
 ];
 
 const CENTRE_LABELS: Record<(typeof ARM_ORBIT_CENTRES)[number], string> = {
-  low_forward: 'Low forward (flexion 45°)',
-  forward: 'Forward (flexion 90°)',
-  high_forward: 'High forward (flexion 135°)',
+  // The trunk blocks abduction below 0°, so presets tilt the cone out by its half-angle.
+  low_forward: 'Low forward (flexion 45°, out by the half-angle)',
+  forward: 'Forward (flexion 90°, out by the half-angle)',
+  high_forward: 'High forward (flexion 135°, out by the half-angle)',
   forward_out: 'Forward and out (flexion 90°, abduction 45°)',
   custom: 'Custom angles',
 };
