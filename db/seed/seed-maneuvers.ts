@@ -54,7 +54,7 @@ const ARM_ORBITS: Primitive[] = [
 
 /**
  * The demo maneuvers. Reed's profile has two versions (v1 pre-flight, v2 current), so her drill
- * cleared on v1 is now `recheck`; Moss and Kettle have cleared maneuvers to rehearse.
+ * cleared on v1 is now `recheck`; every trainee has a cleared maneuver to rehearse.
  */
 const DEMO_SEQUENCES: DemoSequence[] = [
   {
@@ -81,6 +81,11 @@ const DEMO_SEQUENCES: DemoSequence[] = [
   {
     crew: 'reed', name: 'Pre-flight yaw drill',
     versions: [{ primitives: HIP_SWIRLS, status: 'recheck', profileVersion: 1, note: 'Cleared on the pre-flight profile.', review: { decision: 'clear', comment: 'Cleared for the pre-flight profile.' } }],
+  },
+  {
+    // Tamsin Reed, the first demo trainee, has a cleared maneuver to rehearse on her current profile.
+    crew: 'reed', name: 'Cabin yaw with hip swirls',
+    versions: [{ primitives: HIP_SWIRLS, status: 'cleared', note: 'Drill on the current profile.', review: { decision: 'clear', comment: 'Cleared for cabin practice.' } }],
   },
   {
     crew: 'kettle', name: 'Spacewalk pitch-over with leg pedalling',
