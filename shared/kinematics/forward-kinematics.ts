@@ -93,32 +93,36 @@ export function forwardKinematics(model: BodyModel, q: ArrayLike<number>, pose: 
       for (let k = dofStart[i]; k < dofStart[i + 1]; k++) {
         const k3 = 3 * k;
         const x = dofAxis[k3], y = dofAxis[k3 + 1], z = dofAxis[k3 + 2];
-        // The dof axis in the root frame uses the rotation left by the previous dofs.
-        dofAxisRoot[k3] = r0 * x + r1 * y + r2 * z;
-        dofAxisRoot[k3 + 1] = r3 * x + r4 * y + r5 * z;
-        dofAxisRoot[k3 + 2] = r6 * x + r7 * y + r8 * z;
         // A dof whose angle has not changed since the last call (one at rest) keeps its cos/sin.
         const th = q[k];
         if (th !== dofAngle[k]) { dofAngle[k] = th; dofCos[k] = Math.cos(th); dofSin[k] = Math.sin(th); }
         const c = dofCos[k], s = dofSin[k];
-        // Anatomical joints mostly turn about a frame axis (±x, ±y, ±z): then Rot mixes only two
-        // columns of R (the same product with its zero terms left out; a unit axis is exactly ±1).
+        // The dof axis in the root frame uses the rotation left by the previous dofs: R·axis.
+        // Anatomical joints mostly turn about a frame axis (±x, ±y, ±z): then R·axis is ± a column
+        // of R and Rot mixes only the two other columns (the same products with their zero terms
+        // left out; a unit axis is exactly ±1).
         if (y === 0 && z === 0) {
+          dofAxisRoot[k3] = r0 * x; dofAxisRoot[k3 + 1] = r3 * x; dofAxisRoot[k3 + 2] = r6 * x;
           const sx = s * x;
           const n1 = c * r1 + sx * r2, n4 = c * r4 + sx * r5, n7 = c * r7 + sx * r8;
           r2 = c * r2 - sx * r1; r5 = c * r5 - sx * r4; r8 = c * r8 - sx * r7;
           r1 = n1; r4 = n4; r7 = n7;
         } else if (x === 0 && z === 0) {
+          dofAxisRoot[k3] = r1 * y; dofAxisRoot[k3 + 1] = r4 * y; dofAxisRoot[k3 + 2] = r7 * y;
           const sy = s * y;
           const n0 = c * r0 - sy * r2, n3 = c * r3 - sy * r5, n6 = c * r6 - sy * r8;
           r2 = sy * r0 + c * r2; r5 = sy * r3 + c * r5; r8 = sy * r6 + c * r8;
           r0 = n0; r3 = n3; r6 = n6;
         } else if (x === 0 && y === 0) {
+          dofAxisRoot[k3] = r2 * z; dofAxisRoot[k3 + 1] = r5 * z; dofAxisRoot[k3 + 2] = r8 * z;
           const sz = s * z;
           const n0 = c * r0 + sz * r1, n3 = c * r3 + sz * r4, n6 = c * r6 + sz * r7;
           r1 = c * r1 - sz * r0; r4 = c * r4 - sz * r3; r7 = c * r7 - sz * r6;
           r0 = n0; r3 = n3; r6 = n6;
         } else {
+          dofAxisRoot[k3] = r0 * x + r1 * y + r2 * z;
+          dofAxisRoot[k3 + 1] = r3 * x + r4 * y + r5 * z;
+          dofAxisRoot[k3 + 2] = r6 * x + r7 * y + r8 * z;
           const t = 1 - c;
           const a0 = t * x * x + c, a1 = t * x * y - s * z, a2 = t * x * z + s * y;
           const a3 = t * x * y + s * z, a4 = t * y * y + c, a5 = t * y * z - s * x;
