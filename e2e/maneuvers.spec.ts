@@ -131,8 +131,8 @@ test.describe('maneuvers: compose, verify, review', () => {
     await reviewer.getByLabel('Password').fill('lumen-ring-demo');
     await reviewer.getByRole('button', { name: 'Sign in' }).click();
     await expect(reviewer.getByRole('button', { name: /^Account menu for / })).toBeVisible();
-    // Back to the linked version (the shell may already have taken the reviewer there).
-    if (!reviewer.url().endsWith(link)) await reviewer.goto(link);
+    // Sign-in returns the reviewer to the linked version.
+    await expect(reviewer).toHaveURL(new RegExp(`${link.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}$`));
     const detail = reviewer.getByTestId('review-detail');
     await expect(detail.getByRole('heading', { name: new RegExp(`^${name} · v1$`) })).toBeVisible();
     await expect(detail.getByTestId('verification-report')).toBeVisible();

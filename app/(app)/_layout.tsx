@@ -7,7 +7,7 @@ import { useSessionQuery, useSignOutMutation } from '@/components/api/use-sessio
 import { ChangePasswordSheet } from '@/components/auth/ChangePasswordSheet';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { AppHeader } from '@/components/shell/AppHeader';
-import { signInHrefFor } from '@/components/shell/return-path';
+import { signInHrefFor, takeEntryPath } from '@/components/shell/return-path';
 import { tabScreenOptions, tabNavigatorOptions } from '@/components/shell/tab-bar-options';
 import { canSeeTab, TAB_NAMES, TABS } from '@/components/shell/tab-access';
 import { colors } from '@/components/theme';
@@ -35,6 +35,11 @@ export default function AppLayout() {
   const user = session.data;
   if (!user) {
     // Keep the page the person was opening (e.g. a review link from an e-mail) for after sign-in.
+    const entry = takeEntryPath();
+    if (entry && entry !== '/') {
+      const [entryPathname, entrySearch = ''] = entry.split('?');
+      return <Redirect href={signInHrefFor(entryPathname, entrySearch ? `?${entrySearch}` : '')} />;
+    }
     const query = new URLSearchParams(
       Object.entries(params).flatMap(([k, v]) => (pathname.includes(String(v)) ? [] : [[k, String(v)]])),
     ).toString();

@@ -16,3 +16,15 @@ export function signInHrefFor(path: string, search: string): string {
   if (!path || path === '/') return '/sign-in?notice=session-ended';
   return `/sign-in?notice=sign-in-to-continue&next=${encodeURIComponent(target)}`;
 }
+
+// The address the page was opened at, read once when the bundle loads (web): the router may
+// reroute before the session check finishes, so this is the only reliable record of it.
+let entryPath: string | null =
+  typeof window !== 'undefined' && window.location ? `${window.location.pathname}${window.location.search}` : null;
+
+/** The address the app was opened at, handed out once (later redirects use the current route). */
+export function takeEntryPath(): string | null {
+  const value = entryPath;
+  entryPath = null;
+  return value;
+}
