@@ -31,6 +31,11 @@ export interface MomentumWork {
   restCom: Float64Array;
   /** Its inertia about restCom in the root frame, kg·m², row-major. */
   restInertia: Float64Array;
+  /**
+   * The model as bodyRate sees it within that piece (null: the model itself): each moving segment
+   * carries, as one rigid body, the still subtrees hanging from it (mass, CoM, inertia replaced).
+   */
+  pieceModel: BodyModel | null;
   /** Scratch angles and rates (rad, rad/s), one per dof. */
   q: Float64Array;
   qd: Float64Array;
@@ -42,17 +47,19 @@ export function createMomentumWork(model: BodyModel): MomentumWork {
     pose: createBodyPose(model), originVel: new Float64Array(3 * model.segmentCount),
     lock: new Float64Array(9), h: new Float64Array(3), omega: new Float64Array(3), c: new Float64Array(3),
     moving: Int32Array.from(model.parent.keys()), piece: null,
-    restMass: 0, restCom: new Float64Array(3), restInertia: new Float64Array(9),
+    restMass: 0, restCom: new Float64Array(3), restInertia: new Float64Array(9), pieceModel: null,
     q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
   };
 }
 
 /**
- * Restricts the work to one motion piece: segments whose own and ancestors' dofs stay still over
+ * Restricts the work to one motion piece. Segments whose own and ancestors' dofs stay still over
  * the piece keep one pose and zero velocity relative to the root, so they are posed once here and
- * summed once into a rigid composite (mass, CoM, inertia about its CoM); bodyRate then recomputes
- * only the moving segments. Exact: the same sums, grouped differently (round-off only).
- * bodyRate must then be called only with angles and rates of that piece.
+ * summed once into a rigid composite (mass, CoM, inertia about its CoM). A still subtree hanging
+ * from a moving segment (e.g. forearm and hand while only the shoulder moves) moves rigidly with it,
+ * so it is folded into that segment (summed mass, CoM and inertia in its frame). bodyRate then
+ * recomputes only the moving segments that remain. Exact: the same sums, grouped differently
+ * (round-off only). bodyRate must then be called only with angles and rates of that piece.
  */
 export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: MomentumWork): void {
   if (work.piece === piece) return;
@@ -61,21 +68,76 @@ export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: Mome
   qd.fill(0);
   forwardKinematics(model, q, pose);
   segmentVelocities(model, qd, pose, work.originVel);
-  work.moving = movingSegments(model, piece.moving);
+  const n = model.segmentCount, { parent, dofStart, mass, com, inertia } = model, { rot, pos, comPos } = pose;
+  // 0: at rest relative to the root; 1: moving, recomputed; 2: still relative to a moving host.
+  const kind = new Uint8Array(n);
+  const moving = movingSegments(model, piece.moving);
+  for (let j = 0; j < moving.length; j++) kind[moving[j]] = 1;
+  // subtreeMoves[i]: a dof of i or of a descendant moves (children come after parents).
+  const dofMoves = new Uint8Array(model.dofCount);
+  for (let j = 0; j < piece.moving.length; j++) dofMoves[piece.moving[j]] = 1;
+  const subtreeMoves = new Uint8Array(n);
+  for (let i = n - 1; i >= 0; i--) {
+    for (let k = dofStart[i]; k < dofStart[i + 1]; k++) if (dofMoves[k]) subtreeMoves[i] = 1;
+    if (subtreeMoves[i] && parent[i] >= 0) subtreeMoves[parent[i]] = 1;
+  }
+  const host = Int32Array.from(parent.keys());
+  for (let i = 0; i < n; i++) {
+    if (kind[i] === 1 && !subtreeMoves[i]) { kind[i] = 2; host[i] = host[parent[i]]; }
+  }
+  const active = moving.filter((i) => kind[i] === 1);
+  // Each moving segment's group (itself and what is folded into it), in its own frame.
+  let pieceModel: BodyModel | null = null;
+  if (active.length < moving.length) {
+    const gMass = Float64Array.from(mass), gCom = Float64Array.from(com), gInertia = Float64Array.from(inertia);
+    for (const a of active) {
+      const members = [a];
+      for (let i = a + 1; i < n; i++) if (kind[i] === 2 && host[i] === a) members.push(i);
+      if (members.length === 1) continue;
+      const o = 9 * a;
+      // Member CoM and rotation relative to the host frame: Rₐᵀ(x − pₐ), Rₐᵀ Rᵢ.
+      const rel = members.map((i) => {
+        const cx = comPos[3 * i] - pos[3 * a], cy = comPos[3 * i + 1] - pos[3 * a + 1], cz = comPos[3 * i + 2] - pos[3 * a + 2];
+        const c = [0, 1, 2].map((r) => rot[o + r] * cx + rot[o + 3 + r] * cy + rot[o + 6 + r] * cz);
+        const R = [0, 1, 2].flatMap((r) => [0, 1, 2].map((cc) => rot[o + r] * rot[9 * i + cc] + rot[o + 3 + r] * rot[9 * i + 3 + cc] + rot[o + 6 + r] * rot[9 * i + 6 + cc]));
+        return { i, c, R };
+      });
+      let M = 0;
+      const g = [0, 0, 0];
+      for (const { i, c } of rel) { M += mass[i]; for (let r = 0; r < 3; r++) g[r] += mass[i] * c[r]; }
+      for (let r = 0; r < 3; r++) g[r] /= M;
+      const J = new Array<number>(9).fill(0);
+      for (const { i, c, R } of rel) {
+        const d = [c[0] - g[0], c[1] - g[1], c[2] - g[2]], d2 = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
+        for (let r = 0; r < 3; r++) {
+          for (let cc = 0; cc < 3; cc++) {
+            let sum = 0;
+            for (let u = 0; u < 3; u++) for (let v = 0; v < 3; v++) sum += R[3 * r + u] * inertia[9 * i + 3 * u + v] * R[3 * cc + v];
+            J[3 * r + cc] += sum + mass[i] * ((r === cc ? d2 : 0) - d[r] * d[cc]);
+          }
+        }
+      }
+      gMass[a] = M;
+      gCom.set(g, 3 * a);
+      gInertia.set(J, o);
+    }
+    pieceModel = { ...model, mass: gMass, com: gCom, inertia: gInertia };
+    // The moving segments' CoMs as the folded model places them.
+    forwardKinematics(pieceModel, q, pose, active);
+  }
+  work.pieceModel = pieceModel;
+  work.moving = active;
   work.piece = piece;
-  const n = model.segmentCount, { mass, inertia } = model, { rot, comPos } = pose;
-  const rest = new Uint8Array(n).fill(1);
-  for (let j = 0; j < work.moving.length; j++) rest[work.moving[j]] = 0;
   let M = 0, x = 0, y = 0, z = 0;
   for (let i = 0; i < n; i++) {
-    if (!rest[i]) continue;
+    if (kind[i] !== 0) continue;
     M += mass[i]; x += mass[i] * comPos[3 * i]; y += mass[i] * comPos[3 * i + 1]; z += mass[i] * comPos[3 * i + 2];
   }
   work.restMass = M;
   restCom[0] = M > 0 ? x / M : 0; restCom[1] = M > 0 ? y / M : 0; restCom[2] = M > 0 ? z / M : 0;
   restInertia.fill(0);
   for (let i = 0; i < n; i++) {
-    if (!rest[i]) continue;
+    if (kind[i] !== 0) continue;
     // R J Rᵀ + m(|d|²E − d dᵀ), d = segment CoM − composite CoM.
     const dx = comPos[3 * i] - restCom[0], dy = comPos[3 * i + 1] - restCom[1], dz = comPos[3 * i + 2] - restCom[2];
     const d = [dx, dy, dz], d2 = dx * dx + dy * dy + dz * dz;
@@ -94,8 +156,9 @@ export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: Mome
  * After restrictToPiece, q and qd must belong to that piece (only its moving segments are recomputed).
  * Throws if I_lock is not positive definite (cannot happen for a valid body).
  */
-export function bodyRate(model: BodyModel, q: ArrayLike<number>, qd: ArrayLike<number>, work: MomentumWork): Float64Array {
+export function bodyRate(body: BodyModel, q: ArrayLike<number>, qd: ArrayLike<number>, work: MomentumWork): Float64Array {
   const { pose, lock, h, c, moving, restMass: mr, restCom, restInertia: J } = work;
+  const model = work.pieceModel ?? body;
   forwardKinematics(model, q, pose, moving);
   segmentVelocities(model, qd, pose, work.originVel, moving);
   const { rot, comPos, angVel, comVel } = pose;
