@@ -4,7 +4,7 @@
  * and the body rate ω = −I_lock⁻¹ h that keeps the total angular momentum zero.
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
-import { type BodyPose, createBodyPose, forwardKinematics, movingSegments, segmentVelocities } from '../../shared/kinematics/forward-kinematics.ts';
+import { type BodyPose, createBodyPose, forwardKinematics, segmentMotion, segmentVelocities } from '../../shared/kinematics/forward-kinematics.ts';
 import { solveSpd3 } from '../../shared/math/mat3.ts';
 import { evalPiece, type MotionPiece } from './joint-motion.ts';
 
@@ -68,31 +68,19 @@ export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: Mome
   qd.fill(0);
   forwardKinematics(model, q, pose);
   segmentVelocities(model, qd, pose, work.originVel);
-  const n = model.segmentCount, { parent, dofStart, mass, com, inertia } = model, { rot, pos, comPos } = pose;
-  // 0: at rest relative to the root; 1: moving, recomputed; 2: still relative to a moving host.
+  const n = model.segmentCount, { mass, com, inertia } = model, { rot, pos, comPos } = pose;
+  // 0: at rest relative to the root; 1: moving, recomputed; 2: carried by a moving host.
+  const { moving: active, carried, host } = segmentMotion(model, piece.moving);
   const kind = new Uint8Array(n);
-  const moving = movingSegments(model, piece.moving);
-  for (let j = 0; j < moving.length; j++) kind[moving[j]] = 1;
-  // subtreeMoves[i]: a dof of i or of a descendant moves (children come after parents).
-  const dofMoves = new Uint8Array(model.dofCount);
-  for (let j = 0; j < piece.moving.length; j++) dofMoves[piece.moving[j]] = 1;
-  const subtreeMoves = new Uint8Array(n);
-  for (let i = n - 1; i >= 0; i--) {
-    for (let k = dofStart[i]; k < dofStart[i + 1]; k++) if (dofMoves[k]) subtreeMoves[i] = 1;
-    if (subtreeMoves[i] && parent[i] >= 0) subtreeMoves[parent[i]] = 1;
-  }
-  const host = Int32Array.from(parent.keys());
-  for (let i = 0; i < n; i++) {
-    if (kind[i] === 1 && !subtreeMoves[i]) { kind[i] = 2; host[i] = host[parent[i]]; }
-  }
-  const active = moving.filter((i) => kind[i] === 1);
+  for (const i of active) kind[i] = 1;
+  for (const i of carried) kind[i] = 2;
   // Each moving segment's group (itself and what is folded into it), in its own frame.
   let pieceModel: BodyModel | null = null;
-  if (active.length < moving.length) {
+  if (carried.length > 0) {
     const gMass = Float64Array.from(mass), gCom = Float64Array.from(com), gInertia = Float64Array.from(inertia);
     for (const a of active) {
       const members = [a];
-      for (let i = a + 1; i < n; i++) if (kind[i] === 2 && host[i] === a) members.push(i);
+      for (const i of carried) if (host[i] === a) members.push(i);
       if (members.length === 1) continue;
       const o = 9 * a;
       // Member CoM and rotation relative to the host frame: Rₐᵀ(x − pₐ), Rₐᵀ Rᵢ.

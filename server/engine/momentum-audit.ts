@@ -3,7 +3,8 @@
  * stencil — the prescribed joint angles through forward kinematics, and the root attitude moved
  * on from the integrated attitude at the rate the integrator follows there (q ⊗ exp(ω s/2), exact
  * to first order, which is all a first derivative sees) — differences those poses (for segments
- * at rest relative to the root over the step, through the root's differenced world pose), and sums the
+ * rigid relative to the root, or to a moving segment, over the step: through that frame's
+ * differenced world pose), and sums the
  * total angular momentum about the system CoM in the world frame,
  * H = Σ R J Rᵀ Ω + m (x − x_c) × (ẋ − ẋ_c).
  * None of the engine's I_lock / h / analytic-velocity code is used, so a wrong formula there shows
@@ -12,7 +13,7 @@
  * but its derivative is ~10³× less accurate than the tolerance.)
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
-import { type BodyPose, createBodyPose, forwardKinematics, movingSegments } from '../../shared/kinematics/forward-kinematics.ts';
+import { type BodyPose, createBodyPose, forwardKinematics, segmentMotion } from '../../shared/kinematics/forward-kinematics.ts';
 import { quatToMatrix } from '../../shared/math/quaternion.ts';
 import { evalMoving, evalPiece, type MotionPiece } from './joint-motion.ts';
 
@@ -42,22 +43,30 @@ export interface AuditWork {
   /** Joint angles (rad) and rates (rad/s, unused but written) at a stencil point. */
   q: Float64Array;
   qd: Float64Array;
-  /** World rotation (9 per segment) and world CoM (3 per segment) at each stencil point. */
+  /** World rotation (9 per segment), world CoM and world frame origin (3 per segment) at each stencil point. */
   rotW: Float64Array[];
   comW: Float64Array[];
+  posW: Float64Array[];
   /** Stencil derivatives of each segment's world rotation (9 per segment, 1/s) and CoM (3, m/s). */
   rotD: Float64Array;
   vel: Float64Array;
+  /** Stencil derivative of each moving segment's world frame origin, m/s (3 per segment). */
+  posD: Float64Array;
   /** Root world rotation at each stencil point (9 per point, row-major). */
   rootW: Float64Array;
   Rq: Float64Array;
   att: Float64Array;
   /** Stencil weights for the current spacing, 1/s. */
   w: Float64Array;
-  /** The piece `pose` holds the segments at rest for (null: none yet); its moving and resting segments. */
+  /** The piece `pose` holds the segments at rest for (null: none yet); its moving, carried and resting segments. */
   piece: MotionPiece | null;
   moving: Int32Array;
   resting: Int32Array;
+  carried: Int32Array;
+  host: Int32Array;
+  /** Per carried segment: rotation (9, row-major) and CoM (3, m) relative to its host's frame. */
+  carriedRot: Float64Array;
+  carriedCom: Float64Array;
 }
 
 /** Allocates audit buffers. */
@@ -67,9 +76,11 @@ export function createAuditWork(model: BodyModel): AuditWork {
     pose: createBodyPose(model), q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
     rotW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(9 * n)),
     comW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(3 * n)),
-    rotD: new Float64Array(9 * n), vel: new Float64Array(3 * n),
+    posW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(3 * n)),
+    rotD: new Float64Array(9 * n), vel: new Float64Array(3 * n), posD: new Float64Array(3 * n),
     rootW: new Float64Array(9 * STENCIL_POINTS), Rq: new Float64Array(9), att: new Float64Array(4),
     w: new Float64Array(STENCIL_POINTS), piece: null, moving: new Int32Array(0), resting: new Int32Array(0),
+    carried: new Int32Array(0), host: new Int32Array(n), carriedRot: new Float64Array(9 * n), carriedCom: new Float64Array(3 * n),
   };
 }
 
@@ -83,20 +94,28 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
   const { kind, delta } = chooseStencil(t, piece.t0, piece.t1);
   const st = STENCILS[kind];
   const n = model.segmentCount;
-  const { pose, rotW, comW, rotD, vel, rootW, Rq, att, w } = work;
+  const { pose, rotW, comW, posW, rotD, vel, posD, rootW, Rq, att, w } = work;
   // Segments at rest over the piece keep one root-frame pose: pose them once per piece, and
   // recompute only the moving ones at each stencil point (the same forward kinematics, reused).
+  // A still subtree hanging from a moving segment keeps its pose relative to that host.
   if (work.piece !== piece) {
     // Angles of the dofs at rest (and zero rates) for evalMoving below.
     evalPiece(piece, piece.t0, work.q, work.qd);
     forwardKinematics(model, work.q, pose);
-    work.moving = movingSegments(model, piece.moving);
-    const moves = new Uint8Array(n);
-    for (const i of work.moving) moves[i] = 1;
-    work.resting = Int32Array.from(moves.keys()).filter((i) => moves[i] === 0);
+    const sm = segmentMotion(model, piece.moving);
+    work.moving = sm.moving; work.resting = sm.still; work.carried = sm.carried; work.host = sm.host;
+    const { rot, pos, comPos } = pose;
+    for (let c = 0; c < sm.carried.length; c++) {
+      const i = sm.carried[c], h = sm.host[i], o = 9 * h;
+      // Rₕᵀ Rᵢ and Rₕᵀ(xᵢ − pₕ).
+      for (let r = 0; r < 3; r++) {
+        for (let cc = 0; cc < 3; cc++) work.carriedRot[9 * c + 3 * r + cc] = rot[o + r] * rot[9 * i + cc] + rot[o + 3 + r] * rot[9 * i + 3 + cc] + rot[o + 6 + r] * rot[9 * i + 6 + cc];
+        work.carriedCom[3 * c + r] = rot[o + r] * (comPos[3 * i] - pos[3 * h]) + rot[o + 3 + r] * (comPos[3 * i + 1] - pos[3 * h + 1]) + rot[o + 6 + r] * (comPos[3 * i + 2] - pos[3 * h + 2]);
+      }
+    }
     work.piece = piece;
   }
-  const { moving, resting } = work;
+  const { moving, resting, carried, host, carriedRot, carriedCom } = work;
   const wn = Math.hypot(omega[0], omega[1], omega[2]);
   let centre = 0;
   for (let j = 0; j < STENCIL_POINTS; j++) {
@@ -118,10 +137,12 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     let from = pose;
     if (s === 0 && centrePose) from = centrePose;
     else { evalMoving(piece, t + s, work.q, work.qd); forwardKinematics(model, work.q, pose, moving); }
-    const { rot, comPos } = from;
-    const R = rotW[j], X = comW[j];
+    const { rot, pos, comPos } = from;
+    const R = rotW[j], X = comW[j], P = posW[j];
     for (let m = 0; m < moving.length; m++) {
       const i = moving[m], o = 9 * i, i3 = 3 * i;
+      const px = pos[i3], py = pos[i3 + 1], pz = pos[i3 + 2];
+      P[i3] = a0 * px + a1 * py + a2 * pz; P[i3 + 1] = a3 * px + a4 * py + a5 * pz; P[i3 + 2] = a6 * px + a7 * py + a8 * pz;
       const b0 = rot[o], b1 = rot[o + 1], b2 = rot[o + 2], b3 = rot[o + 3], b4 = rot[o + 4], b5 = rot[o + 5], b6 = rot[o + 6], b7 = rot[o + 7], b8 = rot[o + 8];
       R[o] = a0 * b0 + a1 * b3 + a2 * b6; R[o + 1] = a0 * b1 + a1 * b4 + a2 * b7; R[o + 2] = a0 * b2 + a1 * b5 + a2 * b8;
       R[o + 3] = a3 * b0 + a4 * b3 + a5 * b6; R[o + 4] = a3 * b1 + a4 * b4 + a5 * b7; R[o + 5] = a3 * b2 + a4 * b5 + a5 * b8;
@@ -133,12 +154,34 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
   const w0 = w[0], w1 = w[1], w2 = w[2], w3 = w[3], w4 = w[4];
   const P0 = rotW[0], P1 = rotW[1], P2 = rotW[2], P3 = rotW[3], P4 = rotW[4];
   const C0 = comW[0], C1 = comW[1], C2 = comW[2], C3 = comW[3], C4 = comW[4];
+  const Q0 = posW[0], Q1 = posW[1], Q2 = posW[2], Q3 = posW[3], Q4 = posW[4];
   const R0 = rotW[centre], X0 = comW[centre];
   // Moving segments: difference their world poses on the stencil.
   for (let m = 0; m < moving.length; m++) {
     const i = moving[m];
     for (let e = 9 * i; e < 9 * i + 9; e++) rotD[e] = w0 * P0[e] + w1 * P1[e] + w2 * P2[e] + w3 * P3[e] + w4 * P4[e];
-    for (let e = 3 * i; e < 3 * i + 3; e++) vel[e] = w0 * C0[e] + w1 * C1[e] + w2 * C2[e] + w3 * C3[e] + w4 * C4[e];
+    for (let e = 3 * i; e < 3 * i + 3; e++) {
+      vel[e] = w0 * C0[e] + w1 * C1[e] + w2 * C2[e] + w3 * C3[e] + w4 * C4[e];
+      posD[e] = w0 * Q0[e] + w1 * Q1[e] + w2 * Q2[e] + w3 * Q3[e] + w4 * Q4[e];
+    }
+  }
+  // Segments carried rigidly by a moving host: their world pose is (host world pose)·(constant),
+  // so, the stencil being linear, R_w = R_wₕ·Rᵣ, Ṙ_w = Ṙ_wₕ·Rᵣ, x_w = p_wₕ + R_wₕ·cᵣ, ẋ_w = ṗ_wₕ + Ṙ_wₕ·cᵣ.
+  const Pc = posW[centre];
+  for (let m = 0; m < carried.length; m++) {
+    const i = carried[m], h = host[i], o = 9 * i, oh = 9 * h, i3 = 3 * i, h3 = 3 * h, cr = 9 * m, cc = 3 * m;
+    for (let r = 0; r < 3; r++) {
+      const g0 = R0[oh + 3 * r], g1 = R0[oh + 3 * r + 1], g2 = R0[oh + 3 * r + 2];
+      const e0 = rotD[oh + 3 * r], e1 = rotD[oh + 3 * r + 1], e2 = rotD[oh + 3 * r + 2];
+      for (let c = 0; c < 3; c++) {
+        const b0 = carriedRot[cr + c], b1 = carriedRot[cr + 3 + c], b2 = carriedRot[cr + 6 + c];
+        R0[o + 3 * r + c] = g0 * b0 + g1 * b1 + g2 * b2;
+        rotD[o + 3 * r + c] = e0 * b0 + e1 * b1 + e2 * b2;
+      }
+      const x = carriedCom[cc], y = carriedCom[cc + 1], z = carriedCom[cc + 2];
+      X0[i3 + r] = Pc[h3 + r] + g0 * x + g1 * y + g2 * z;
+      vel[i3 + r] = posD[h3 + r] + e0 * x + e1 * y + e2 * z;
+    }
   }
   // Segments at rest relative to the root: their world pose is (root world rotation)·(constant),
   // so the stencil, being linear, differences the root's world rotation once and applies it to

@@ -61,6 +61,46 @@ export function movingSegments(model: BodyModel, movingDofs: ArrayLike<number>):
   return Int32Array.from(out);
 }
 
+/** How each segment moves relative to the root while only some dofs move (see segmentMotion). */
+export interface SegmentMotion {
+  /** Segments with a moving dof of their own or in their subtree, and a moving dof on the way from the root (tree order). */
+  moving: Int32Array;
+  /** Segments that move with a moving ancestor but whose own subtree is still: rigid relative to `host[i]` (tree order). */
+  carried: Int32Array;
+  /** For a carried segment: its nearest ancestor in `moving`; otherwise the segment itself. */
+  host: Int32Array;
+  /** Segments still relative to the root (tree order). */
+  still: Int32Array;
+}
+
+/**
+ * Splits the segments by how they move when only `movingDofs` change: moving, carried rigidly by
+ * a moving ancestor (a still subtree hanging from it, e.g. forearm and hand while only the
+ * shoulder turns), or still relative to the root.
+ */
+export function segmentMotion(model: BodyModel, movingDofs: ArrayLike<number>): SegmentMotion {
+  const n = model.segmentCount, { parent, dofStart } = model;
+  const inMotion = new Uint8Array(n);
+  const all = movingSegments(model, movingDofs);
+  for (let j = 0; j < all.length; j++) inMotion[all[j]] = 1;
+  // subtreeMoves[i]: a dof of i or of a descendant moves (children come after parents).
+  const dofMoves = new Uint8Array(model.dofCount);
+  for (let j = 0; j < movingDofs.length; j++) dofMoves[movingDofs[j]] = 1;
+  const subtreeMoves = new Uint8Array(n);
+  for (let i = n - 1; i >= 0; i--) {
+    for (let k = dofStart[i]; k < dofStart[i + 1]; k++) if (dofMoves[k]) subtreeMoves[i] = 1;
+    if (subtreeMoves[i] && parent[i] >= 0) subtreeMoves[parent[i]] = 1;
+  }
+  const host = Int32Array.from(parent.keys());
+  const moving: number[] = [], carried: number[] = [], still: number[] = [];
+  for (let i = 0; i < n; i++) {
+    if (!inMotion[i]) still.push(i);
+    else if (subtreeMoves[i]) moving.push(i);
+    else { carried.push(i); host[i] = host[parent[i]]; }
+  }
+  return { moving: Int32Array.from(moving), carried: Int32Array.from(carried), host, still: Int32Array.from(still) };
+}
+
 /**
  * Fills pose.rot, pos, comPos and dofAxisRoot for joint angles q (rad, one per dof).
  * Child frame = parent frame moved by joint.origin, then rotated by Rot(a₁,θ₁)·Rot(a₂,θ₂)·….
