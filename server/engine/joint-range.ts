@@ -38,9 +38,9 @@ export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeVi
       // Scan grid (a still dof: its two ends; a move is monotone: a coarse grid finds every crossing)
       // plus the analytic extrema of a harmonic dof.
       const n = !moving ? 1 : hj < 0 ? 16 : Math.min(20_000, SCAN_POINTS * Math.max(1, cycles));
-      const times: number[] = [];
-      for (let s = 0; s <= n; s++) times.push(piece.t0 + (span * s) / n);
-      if (hj >= 0) { times.push(...harmonicCriticalTimes(piece, hj, Math.PI / 2)); times.sort((a, b) => a - b); }
+      const grid: number[] = [];
+      for (let s = 0; s <= n; s++) grid.push(piece.t0 + (span * s) / n);
+      const times = hj >= 0 ? mergeSorted(grid, harmonicCriticalTimes(piece, hj, Math.PI / 2)) : grid;
       for (let b = 0; b < 2; b++) {
         const bound = b === 0 ? 'max' : 'min';
         const limit = bound === 'max' ? model.dofMax[k] : model.dofMin[k];
@@ -61,6 +61,16 @@ export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeVi
       }
     }
   }
+  return out;
+}
+
+/** The union of two ascending lists, ascending (a merge: both are already sorted). */
+function mergeSorted(a: number[], b: number[]): number[] {
+  const out = new Array<number>(a.length + b.length);
+  let i = 0, j = 0, o = 0;
+  while (i < a.length && j < b.length) out[o++] = a[i] <= b[j] ? a[i++] : b[j++];
+  while (i < a.length) out[o++] = a[i++];
+  while (j < b.length) out[o++] = b[j++];
   return out;
 }
 
