@@ -13,7 +13,16 @@ import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
 import { ROLE_LABELS, type Role } from '@/shared/contracts/roles';
 import { inviteRequestSchema } from '@/shared/contracts/team';
+import { CrewMemberPicker } from './CrewMemberPicker';
 import { ROLE_OPTIONS } from './role-options';
+
+/**
+ * The API's invitation schema, plus: a trainee must be linked to a crew member (the link cannot be
+ * added after the invitation is accepted, and an unlinked trainee has nothing to rehearse).
+ */
+const inviteFormSchema = inviteRequestSchema.superRefine((v, ctx) => {
+  if (v.role === 'trainee' && !v.crewMemberId) ctx.addIssue({ code: 'custom', path: ['crewMemberId'], message: "Choose the trainee's crew member." });
+});
 
 
 /** Props of {@link InviteForm}. */
@@ -31,22 +40,24 @@ export function InviteForm({ onInvited }: InviteFormProps) {
   const [formError, setFormError] = useState<string | null>(null);
   const [sentTo, setSentTo] = useState<string | null>(null);
   const { control, handleSubmit, setError, reset } = useForm({
-    resolver: zodResolver(inviteRequestSchema),
-    defaultValues: { email: '', name: '', role: 'planner' as Role },
+    resolver: zodResolver(inviteFormSchema),
+    defaultValues: { email: '', name: '', role: 'planner' as Role, crewMemberId: null as string | null },
   });
   const role = useWatch({ control, name: 'role' });
   const submit = handleSubmit((values) => {
     setFormError(null);
     setSentTo(null);
-    invite.mutate(values, {
+    // Only a trainee is linked to a crew member; a picked member is dropped if the role changed since.
+    const body = { ...values, crewMemberId: values.role === 'trainee' ? values.crewMemberId : null };
+    invite.mutate(body, {
       onSuccess: ({ invitation }) => {
         setSentTo(invitation.email);
-        reset({ email: '', name: '', role: values.role });
+        reset({ email: '', name: '', role: values.role, crewMemberId: null });
         onInvited?.(invitation.email);
       },
       onError: (err) => {
         // 409s (email_taken, already_invited) are about the e-mail even when the server names no field.
-        const msg = applyServerError(err, ['email', 'name', 'role'], setError);
+        const msg = applyServerError(err, ['email', 'name', 'role', 'crewMemberId'], setError);
         if (msg && (err as { status?: number }).status === 409) setError('email', { type: 'server', message: msg }, { shouldFocus: true });
         else setFormError(msg);
       },
@@ -78,6 +89,15 @@ export function InviteForm({ onInvited }: InviteFormProps) {
       <Text variant="caption" tone="muted">
         {ROLE_HELP[role]}
       </Text>
+      {role === 'trainee' ? (
+        <Controller
+          control={control}
+          name="crewMemberId"
+          render={({ field, fieldState }) => (
+            <CrewMemberPicker value={field.value ?? ''} onChange={(id) => field.onChange(id || null)} error={fieldState.error?.message} />
+          )}
+        />
+      ) : null}
       <Button label="Send invitation" icon="send" loading={invite.isPending} onPress={() => void submit()} />
     </View>
   );

@@ -1,0 +1,46 @@
+import { expect, test } from '@playwright/test';
+
+import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
+import { invitationPathFor } from './support/mailbox.ts';
+import { signIn } from './support/sign-in.ts';
+
+test('an admin invites a trainee linked to a crew member; the invitee sees that crew member', async ({ page, browser }) => {
+  const email = `sable.orrery.${Date.now()}@lumen.example.test`;
+  const name = 'Sable Orrery';
+  const password = 'tether-lattice-77';
+
+  await signIn(page, DEMO_BY_ROLE.admin.email);
+  await page.getByRole('tab', { name: 'Team' }).click();
+  await page.getByRole('button', { name: 'Invite', exact: true }).click();
+  const form = page.getByRole('form', { name: 'Invite someone' });
+  await form.getByLabel('Name').fill(name);
+  await form.getByLabel('E-mail').fill(email);
+  await form.getByRole('radio', { name: 'Trainee' }).click();
+
+  // A trainee without a crew member is refused beside the picker; nothing is sent.
+  await form.getByRole('button', { name: 'Send invitation' }).click();
+  await expect(form.getByText("Choose the trainee's crew member.")).toBeVisible();
+
+  // The picker lists the crew (GET /api/crew); pick the demo's Bram Kettle.
+  const picker = form.getByLabel('Crew member');
+  const label = (await picker.locator('option').allTextContents()).find((o) => o.startsWith('Bram Kettle'));
+  expect(label).toBeTruthy();
+  await picker.selectOption({ label: label! });
+  await form.getByRole('button', { name: 'Send invitation' }).click();
+  await expect(page.getByText(`Invitation sent to ${email}.`)).toBeVisible();
+
+  const path = await invitationPathFor(page.request, email);
+  const invitee = await (await browser.newContext()).newPage();
+  await invitee.goto(path);
+  await invitee.getByLabel('Choose a password').fill(password);
+  await invitee.getByLabel('Repeat the password').fill(password);
+  await invitee.getByRole('button', { name: 'Set password and sign in' }).click();
+  await expect(invitee.getByRole('button', { name: `Account menu for ${name}` })).toBeVisible();
+
+  // The new trainee reads exactly their own crew member.
+  const res = await invitee.request.get('/api/crew');
+  const { members } = (await res.json()) as { members: { name: string }[] };
+  expect(members.map((m) => m.name)).toEqual(['Bram Kettle']);
+  await invitee.getByRole('tab', { name: 'Crew' }).click();
+  await expect(invitee.getByRole('heading', { name: 'Bram Kettle' }).first()).toBeVisible();
+});
