@@ -15,3 +15,8 @@ export type PoolReply =
   | { id: number; kind: 'result'; result: SimulationResult }
   | { id: number; kind: 'invalid'; which: 'body' | 'sequence'; issues: ContractIssue[] }
   | { id: number; kind: 'failed'; message: string };
+
+/** Sent once by a worker when the engine has loaded (thread start-up is not part of a job's budget). */
+export interface WorkerReady {
+  kind: 'ready';
+}

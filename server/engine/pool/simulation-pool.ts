@@ -6,7 +6,7 @@
 import { cpus } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
-import type { PoolReply, PoolRequest } from './messages.ts';
+import type { PoolReply, PoolRequest, WorkerReady } from './messages.ts';
 
 /** Thrown when a simulation exceeds its time budget. */
 export class SimulationTimeoutError extends Error {
@@ -35,7 +35,7 @@ interface Job {
   reject: (e: Error) => void;
 }
 
-interface Slot { worker: Worker; job: Job | null; timer: NodeJS.Timeout | null }
+interface Slot { worker: Worker; job: Job | null; timer: NodeJS.Timeout | null; ready: boolean }
 
 const ENTRY = fileURLToPath(new URL('./worker-entry.mjs', import.meta.url).href);
 
@@ -77,15 +77,21 @@ export class SimulationPool {
       if (!slot) return;
       const job = this.queue.shift()!;
       slot.job = job;
-      slot.timer = setTimeout(() => this.timeout(slot!), this.timeoutMs);
+      // A new worker buffers the job until its engine has loaded; the budget starts once it is ready.
+      if (slot.ready) this.startBudget(slot);
       slot.worker.postMessage(job.request);
     }
   }
 
   private spawn(): Slot {
     const worker = new Worker(ENTRY);
-    const slot: Slot = { worker, job: null, timer: null };
-    worker.on('message', (reply: PoolReply) => {
+    const slot: Slot = { worker, job: null, timer: null, ready: false };
+    worker.on('message', (reply: PoolReply | WorkerReady) => {
+      if (reply.kind === 'ready') {
+        slot.ready = true;
+        if (slot.job) this.startBudget(slot);
+        return;
+      }
       const job = slot.job;
       if (!job || job.request.id !== reply.id) return;
       this.finish(slot);
@@ -99,6 +105,11 @@ export class SimulationPool {
     worker.unref();
     this.slots.push(slot);
     return slot;
+  }
+
+  private startBudget(slot: Slot): void {
+    const s = slot;
+    s.timer = setTimeout(() => this.timeout(s), this.timeoutMs);
   }
 
   private finish(slot: Slot): void {

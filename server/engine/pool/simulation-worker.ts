@@ -1,7 +1,7 @@
 /** Worker-thread body: runs one simulation per message and posts back the result or the contract issues. */
 import { parentPort } from 'node:worker_threads';
 import { simulateJson, type EngineOptions } from '../simulate.ts';
-import type { PoolReply, PoolRequest } from './messages.ts';
+import type { PoolReply, PoolRequest, WorkerReady } from './messages.ts';
 
 parentPort?.on('message', (msg: PoolRequest) => {
   let reply: PoolReply;
@@ -13,3 +13,6 @@ parentPort?.on('message', (msg: PoolRequest) => {
   }
   parentPort!.postMessage(reply);
 });
+
+// Tell the pool the engine is loaded, so a job's time budget starts now, not at thread start-up.
+parentPort?.postMessage({ kind: 'ready' } satisfies WorkerReady);
