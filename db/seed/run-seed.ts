@@ -14,7 +14,7 @@ export interface SeedState {
 }
 
 /** Seed stages after the team, in order; each adds one part of the demo scenario. */
-export const SEED_STAGES: Array<(s: SeedState) => Promise<void>> = [seedCrewProfiles, seedManeuvers];
+export const SEED_STAGES: ((s: SeedState) => Promise<void>)[] = [seedCrewProfiles, seedManeuvers];
 
 /** Seeds the demo scenario into an empty database; does nothing when users exist. Returns whether it seeded. */
 export async function seedDemo(db: Database, bcryptCost: number): Promise<boolean> {

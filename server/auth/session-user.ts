@@ -2,7 +2,7 @@ import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { UserRow } from '../../db/schema/index.ts';
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
+   
   namespace Express {
     interface Request {
       /** Set by `authenticate` for every signed-in request. */

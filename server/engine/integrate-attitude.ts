@@ -63,7 +63,7 @@ export function attitudeRhs(model: BodyModel, work: MomentumWork, piece: MotionP
  * inside piece p at which the attitude is wanted; results fill `outputs` in the same overall order.
  */
 export function integrateAttitude(
-  model: BodyModel, plan: MotionPlan, opts: IntegratorOptions, pieceTimes: ReadonlyArray<ArrayLike<number>>,
+  model: BodyModel, plan: MotionPlan, opts: IntegratorOptions, pieceTimes: readonly ArrayLike<number>[],
 ): AttitudeTrack {
   // The right-hand side sees dof-less segments folded into their parents (the same I_lock and h).
   const rhsModel = mergeRigidSegments(model);

@@ -26,7 +26,7 @@ export interface SmtpFake {
  */
 export async function startSmtpFake(port = 0): Promise<SmtpFake> {
   const messages: ReceivedMail[] = [];
-  const waiters: Array<() => void> = [];
+  const waiters: (() => void)[] = [];
   let nextId = 1;
   const server = new SMTPServer({
     disabledCommands: ['STARTTLS', 'AUTH'],

@@ -5,7 +5,7 @@ declare module 's3rver' {
     port?: number;
     directory: string;
     silent?: boolean;
-    configureBuckets?: Array<{ name: string; configs?: unknown[] }>;
+    configureBuckets?: { name: string; configs?: unknown[] }[];
   }
   export default class S3rver {
     constructor(options: S3rverOptions);

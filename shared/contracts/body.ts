@@ -73,15 +73,15 @@ export type Body = z.infer<typeof bodySchema>;
 const TRIANGLE_SLACK = 1e-9;
 
 /** Full symmetric inertia tensor (row-major 3×3, kg·m²) of a contract inertia array. */
-export function inertiaTensor(inertia: ReadonlyArray<number>): number[] {
+export function inertiaTensor(inertia: readonly number[]): number[] {
   const [ixx, iyy, izz] = inertia;
   const ixy = inertia[3] ?? 0, ixz = inertia[4] ?? 0, iyz = inertia[5] ?? 0;
   return [ixx, ixy, ixz, ixy, iyy, iyz, ixz, iyz, izz];
 }
 
-function describeBodyPath(raw: unknown, path: ReadonlyArray<PropertyKey>): string {
+function describeBodyPath(raw: unknown, path: readonly PropertyKey[]): string {
   if (path[0] !== 'segments' || typeof path[1] !== 'number') return '';
-  const seg = (raw as { segments?: Array<{ name?: unknown }> }).segments?.[path[1]];
+  const seg = (raw as { segments?: { name?: unknown }[] }).segments?.[path[1]];
   const name = seg && typeof seg.name === 'string' ? seg.name : `#${path[1]}`;
   return `segment '${name}'`;
 }

@@ -12,7 +12,7 @@ export interface ContractIssue {
 export type ContractResult<T> = { ok: true; value: T } | { ok: false; issues: ContractIssue[] };
 
 /** Formats a JSON path array as `a[0].b.c`. */
-export function formatPath(path: ReadonlyArray<PropertyKey>): string {
+export function formatPath(path: readonly PropertyKey[]): string {
   let out = '';
   for (const part of path) {
     if (typeof part === 'number') out += `[${part}]`;
@@ -26,7 +26,7 @@ export function formatPath(path: ReadonlyArray<PropertyKey>): string {
  */
 export function zodIssuesToContract(
   error: z.ZodError,
-  describe: (path: ReadonlyArray<PropertyKey>) => string,
+  describe: (path: readonly PropertyKey[]) => string,
 ): ContractIssue[] {
   return error.issues.map((issue) => {
     const path = formatPath(issue.path);

@@ -84,7 +84,7 @@ export function harmonicAngleDeg(j: { offset: number; amplitude: number; phase: 
   return j.offset + j.amplitude * Math.sin((2 * Math.PI * t) / period + (j.phase * Math.PI) / 180);
 }
 
-function describeSequencePath(path: ReadonlyArray<PropertyKey>): string {
+function describeSequencePath(path: readonly PropertyKey[]): string {
   if (path[0] === 'steps' && typeof path[1] === 'number') return `step ${path[1]}`;
   if (path[0] === 'start') return 'start';
   return '';

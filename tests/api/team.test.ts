@@ -59,7 +59,7 @@ describe('invitations', () => {
 
 describe('user administration', () => {
   it('changes a role and disables a user; the disabled user\'s token stops working', async () => {
-    const users = (await request(t.app).get('/api/team/users').set('Authorization', admin)).body.users as Array<{ id: string; email: string }>;
+    const users = (await request(t.app).get('/api/team/users').set('Authorization', admin)).body.users as { id: string; email: string }[];
     const trainee = DEMO_PEOPLE.filter((p) => p.role === 'trainee')[2];
     const target = users.find((u) => u.email === trainee.email)!;
     const token = await t.tokenForEmail(trainee.email);

@@ -101,7 +101,7 @@ describe('a two-dof loop', () => {
 });
 
 describe('momentum audit and tolerance convergence on every test body', () => {
-  const cases: Array<[string, string]> = [['arm-on-trunk', 'arm-cone'], ['nested-chain', 'nested-chain-maneuver']];
+  const cases: [string, string][] = [['arm-on-trunk', 'arm-cone'], ['nested-chain', 'nested-chain-maneuver']];
   for (const [b, s] of cases) {
     it(`${b}: audit below 1e-9 relative`, () => {
       const body = loadBody(b);

@@ -20,7 +20,7 @@ describe('body contract errors', () => {
     expect(validateBody(good()).ok).toBe(true);
   });
 
-  const cases: Array<[string, (b: Body) => void, string, RegExp]> = [
+  const cases: [string, (b: Body) => void, string, RegExp][] = [
     ['unknown parent', (b) => { b.segments[2].parent = 'r_upperarm'; }, 'segments[2].parent', /r_forearm.*unknown parent 'r_upperarm'/],
     ['two roots', (b) => { delete b.segments[2].parent; delete b.segments[2].joint; }, 'segments[2].parent', /r_forearm.*two roots/],
     ['parent listed after child', (b) => { b.segments = [b.segments[0], b.segments[2], b.segments[1]]; }, 'segments[1].parent', /r_forearm.*parent 'r_upper_arm' is listed after/],

@@ -177,7 +177,7 @@ function matrixAngle(A: ArrayLike<number>, B: ArrayLike<number>): number {
 }
 
 describe('engine vs an independent implementation (finite-difference momentum map + RK4 on rotation matrices)', () => {
-  const cases: Array<[string, string]> = [['nested-chain', 'nested-chain-maneuver'], ['arm-on-trunk', 'arm-cone']];
+  const cases: [string, string][] = [['nested-chain', 'nested-chain-maneuver'], ['arm-on-trunk', 'arm-cone']];
   for (const [b, s] of cases) {
     it(`${b}: final attitudes agree to 1e-6 rad`, () => {
       const body = loadBody(b);

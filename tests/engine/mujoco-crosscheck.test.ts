@@ -20,7 +20,7 @@ const MUJOCO_AGREEMENT_RAD = 1e-3;
 const MAX_TRACKING_RAD = 2e-3;
 
 describe('MuJoCo (mujoco-js) reaches the same final attitude', () => {
-  const cases: Array<[string, string]> = [['arm-on-trunk', 'arm-cone'], ['nested-chain', 'nested-chain-maneuver']];
+  const cases: [string, string][] = [['arm-on-trunk', 'arm-cone'], ['nested-chain', 'nested-chain-maneuver']];
   for (const [b, s] of cases) {
     it(`${b}: within 1e-3 rad, converging at first order in MuJoCo's time step`, async () => {
       const body = loadBody(b);

@@ -24,7 +24,7 @@ describe('POST /api/simulate', () => {
     expect(r.momentumResidual.relative).toBeLessThan(1e-9);
   });
 
-  const bad: Array<[string, () => object, string, string, RegExp]> = [
+  const bad: [string, () => object, string, string, RegExp][] = [
     ['missing sequence', () => ({ body }), 'invalid_request', 'sequence', /sequence is required/],
     ['rate above 240 Hz', () => ({ body, sequence, options: { rateHz: 1000 } }), 'invalid_request', 'options.rateHz', /at most 240 Hz/],
     ['rtol too loose', () => ({ body, sequence, options: { rtol: 0.1 } }), 'invalid_request', 'options.rtol', /rtol must be at most/],
