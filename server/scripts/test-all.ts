@@ -52,7 +52,7 @@ ensureChromium();
 const ok = (code: number) => (code === 0 ? 1 : 0);
 const typecheck = run('npx', ['tsc', '--noEmit', '-p', '.']);
 record('typecheck', ok(typecheck), 1 - ok(typecheck));
-const lint = run('npx', ['eslint', '.']);
+const lint = run('npx', ['eslint', '.', '--max-warnings=0']);
 record('lint', ok(lint), 1 - ok(lint));
 
 const vitestOut = path.join(reports, 'vitest.json');
