@@ -3,3 +3,4 @@ export * from './crew.ts';
 export * from './sequences.ts';
 export * from './uploads.ts';
 export * from './users.ts';
+export * from './plans.ts';

@@ -1,0 +1,39 @@
+import { doublePrecision, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+
+import { profileVersions } from './crew.ts';
+import { sequences } from './sequences.ts';
+import { users } from './users.ts';
+
+/**
+ * A planner run ("Suggest steps") for a sequence: settings, state and the ranked candidates
+ * (shapes in shared/contracts/plan.ts). Filled by the planning job.
+ */
+export const plans = pgTable('plans', {
+  id: uuid('id').primaryKey().defaultRandom(),
+  sequenceId: uuid('sequence_id')
+    .notNull()
+    .references(() => sequences.id),
+  // The body the plan used (the crew member's current profile version when requested).
+  profileVersionId: uuid('profile_version_id')
+    .notNull()
+    .references(() => profileVersions.id),
+  requestedBy: uuid('requested_by').references(() => users.id),
+  // queued | running | done | failed
+  state: text('state').notNull().default('queued'),
+  // The sequence target at request time (SequenceTarget JSON).
+  target: jsonb('target').notNull(),
+  // PlanSettings JSON.
+  settings: jsonb('settings').notNull(),
+  // 0–1 while running.
+  progress: doublePrecision('progress').notNull().default(0),
+  progressNote: text('progress_note').notNull().default(''),
+  // PlanCandidate[] JSON once done.
+  candidates: jsonb('candidates'),
+  error: text('error'),
+  engineVersion: text('engine_version'),
+  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  startedAt: timestamp('started_at', { withTimezone: true }),
+  finishedAt: timestamp('finished_at', { withTimezone: true }),
+});
+
+export type PlanRow = typeof plans.$inferSelect;

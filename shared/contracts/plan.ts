@@ -1,0 +1,126 @@
+/**
+ * The maneuver planner's API contract ("Suggest steps"): a planner asks for ranked candidate step
+ * lists that reach a sequence's target reorientation on its crew member's current profile body.
+ * Planning is a background job; the request returns a plan id to poll.
+ *
+ * Endpoints (under /api, bearer token):
+ * - POST /sequences/:sequenceId/plans          PlanRequest → 202 { planId }            (planner, admin)
+ * - GET  /sequences/:sequenceId/plans/:planId  → Plan
+ * Errors: `{ error: { code, message, field } }`.
+ * Angles in degrees, times in seconds, rates in deg/s, timestamps ISO-8601 strings.
+ */
+import { z } from 'zod';
+
+import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
+
+const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
+
+/**
+ * Spreads of the dispersion run: each sample draws every factor uniformly within ±spread.
+ * The defaults are illustrative (common practice for a first robustness look, not measured values).
+ */
+export const dispersionSpreadsSchema = z.object({
+  /** Segment mass error, ± percent (default 5). */
+  massPct: finite('massPct').min(0).max(50).default(5),
+  /** Segment length error (CoM, inertia and joint origins scale with it), ± percent (default 3). */
+  lengthPct: finite('lengthPct').min(0).max(50).default(3),
+  /** Sweep amplitude error of the person executing it, ± percent per step (default 10). */
+  amplitudePct: finite('amplitudePct').min(0).max(50).default(10),
+  /** Sweep period (timing) error, ± percent per step (default 10). */
+  periodPct: finite('periodPct').min(0).max(50).default(10),
+  /** Timing error between the joints of a sweep: phase shift of each dof, ± degrees of a cycle (default 10). */
+  phaseDeg: finite('phaseDeg').min(0).max(90).default(10),
+});
+/** Dispersion spreads (defaults filled). */
+export type DispersionSpreads = z.infer<typeof dispersionSpreadsSchema>;
+
+/** POST /sequences/:sequenceId/plans */
+export const planRequestSchema = z.object({
+  /** Monte Carlo samples per candidate (default 100). */
+  samples: finite('samples').int('samples must be a whole number').min(10).max(1000).default(100),
+  /** Seed of the dispersion run's random numbers (same seed, same figures). */
+  seed: finite('seed').int('seed must be a whole number').min(0).max(2 ** 31 - 1).default(1),
+  spreads: dispersionSpreadsSchema.default({ massPct: 5, lengthPct: 3, amplitudePct: 10, periodPct: 10, phaseDeg: 10 }),
+  /** How many ranked candidates to return (default 4). */
+  maxCandidates: finite('maxCandidates').int().min(1).max(8).default(4),
+});
+/** Planner request (input shape). */
+export type PlanRequest = z.input<typeof planRequestSchema>;
+/** Planner settings (defaults filled), stored with the plan. */
+export type PlanSettings = z.infer<typeof planRequestSchema>;
+
+/** Monte Carlo result of one candidate. */
+export const dispersionResultSchema = z.object({
+  samples: z.number().int(),
+  seed: z.number().int(),
+  spreads: dispersionSpreadsSchema,
+  /** Median final attitude error to the target, degrees. */
+  medianErrorDeg: z.number(),
+  /** 95th-percentile final attitude error to the target, degrees. */
+  p95ErrorDeg: z.number(),
+  /** Largest error over the samples, degrees. */
+  maxErrorDeg: z.number(),
+  /** Fraction of samples within the sequence's tolerance, 0–1. */
+  withinToleranceFraction: z.number(),
+});
+export type DispersionResult = z.infer<typeof dispersionResultSchema>;
+
+/** One ranked candidate step list. */
+export const planCandidateSchema = z.object({
+  /** 1 = best. */
+  rank: z.number().int(),
+  /** The composer steps (replace the composer's list with these). */
+  primitives: primitiveListSchema,
+  /** Trainee cue per step. */
+  cues: z.array(z.string()),
+  /** Planner families used, e.g. ["hip_swirl_left", "arm_orbit_outward"]. */
+  families: z.array(z.string()),
+  /** Compiled duration, seconds. */
+  durationS: z.number(),
+  /** Final attitude error to the target on the nominal body, degrees. */
+  errorDeg: z.number(),
+  withinTolerance: z.boolean(),
+  /** Reached yaw/pitch/roll, degrees. */
+  yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+  /** Peak joint rate, deg/s, and whether it is within the sequence's rate limit. */
+  peakJointRateDegS: z.number(),
+  withinRateLimit: z.boolean(),
+  /** Number of range violations on the nominal body. */
+  rangeViolationCount: z.number().int(),
+  /** Full simulations the refinement ran for this candidate. */
+  evaluations: z.number().int(),
+  dispersion: dispersionResultSchema,
+});
+export type PlanCandidate = z.infer<typeof planCandidateSchema>;
+
+/** Plan states. */
+export const PLAN_STATES = ['queued', 'running', 'done', 'failed'] as const;
+export type PlanState = (typeof PLAN_STATES)[number];
+
+/** GET /sequences/:sequenceId/plans/:planId */
+export const planSchema = z.object({
+  id: z.uuid(),
+  sequenceId: z.uuid(),
+  /** The profile version whose body the plan used. */
+  profileVersionId: z.uuid(),
+  state: z.enum(PLAN_STATES),
+  /** 0–1 while running. */
+  progress: z.number(),
+  /** What the planner is doing now (e.g. "refining candidate 2 of 4"). */
+  progressNote: z.string(),
+  settings: planRequestSchema,
+  /** Ranked candidates (empty until done). */
+  candidates: z.array(planCandidateSchema),
+  /** Why the plan failed (null otherwise). */
+  error: z.string().nullable(),
+  /** Wall-clock time of the run, seconds (null until finished). */
+  elapsedS: z.number().nullable(),
+  createdAt: z.string(),
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
+});
+export type Plan = z.infer<typeof planSchema>;
+
+/** POST response. */
+export const planCreatedSchema = z.object({ planId: z.uuid() });
+export type PlanCreated = z.infer<typeof planCreatedSchema>;
