@@ -55,7 +55,9 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   const wide = useIsWide();
   const draft = useComposerDraft(version?.primitives ?? []);
   // The newest version number when this draft started: the server answers 409 if someone saved since.
-  const [baseVersion] = useState(() => sequence.versions[0]?.version ?? 0);
+  // Right after a save the sequence's version list may still be the cached one from before it (its
+  // refetch is in flight), while the version on screen is the one just saved: take the larger.
+  const [baseVersion] = useState(() => Math.max(sequence.versions[0]?.version ?? 0, version?.version ?? 0));
   const [panel, setPanel] = useState<ComposerPanel>(initialPanel ?? (version?.report ? 'report' : 'steps'));
   const [editing, setEditing] = useState<Editing>(null);
   const [showCompiled, setShowCompiled] = useState(false);
