@@ -2,7 +2,6 @@ import { useLocalSearchParams, useRouter } from 'expo-router';
 import { useState } from 'react';
 import { View } from 'react-native';
 
-import { useCrewMemberQuery } from '@/components/api/use-crew';
 import { useSessionQuery } from '@/components/api/use-session';
 import { SplitView } from '@/components/layout/SplitView';
 import { spacing } from '@/components/theme';
@@ -31,7 +30,6 @@ export function CrewScreen() {
   // No `member` in the URL: a trainee lands on their own member; `member=` (empty) is the list itself.
   const selected = params.member !== undefined ? params.member || null : user?.role === 'trainee' ? (user.crewMemberId ?? null) : null;
   const view: MemberView = VIEWS.includes(params.view as MemberView) ? (params.view as MemberView) : 'profile';
-  const member = useCrewMemberQuery(selected);
 
   const select = (id: string | null, next: MemberView = 'profile') => router.setParams({ member: id ?? '', view: id ? next : undefined });
 
@@ -59,7 +57,8 @@ export function CrewScreen() {
           </View>
         }
         detail={selected ? <MemberDetail key={selected} crewMemberId={selected} view={view} onView={(v) => select(selected, v)} canEdit={canEdit} /> : null}
-        detailTitle={member.data?.member.name ?? 'Crew'}
+        // The back bar names the list it returns to; the member's name is the detail's own heading.
+        detailTitle="All crew"
         onCloseDetail={() => select(null)}
         placeholder={<EmptyState icon="user" title="Select a crew member" body="Pick someone on the left to see their inertia profile, its history and the derived segment table." />}
       />

@@ -1,7 +1,9 @@
 /** A number with a fixed count of decimals, or an em dash when absent. */
 export function fixed(value: number | null | undefined, decimals: number): string {
   if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  return value.toFixed(decimals);
+  const text = value.toFixed(decimals);
+  // A tiny negative (float noise around zero) would print as "-0.000": show it as the zero it rounds to.
+  return /^-0\.?0*$/.test(text) ? text.slice(1) : text;
 }
 
 /** A moment of inertia, kg·m²: 3 significant digits (segment moments span 1e-4 … 1e1). */
