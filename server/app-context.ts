@@ -17,11 +17,13 @@ export interface AppContext {
   logger: Logger;
   /** Messages of the local SMTP fake, when one runs in this process (development and tests). */
   devMailbox?: readonly ReceivedMail[];
-  /** Hands background work (re-verification) to the job queue; set when a queue is running. */
+  /** Hands background work (re-verification, planning) to the job queue; set when a queue is running. */
   jobs?: JobQueue;
 }
 
 /** The part of the job queue the routes use. */
 export interface JobQueue {
   enqueueReverification(sequenceVersionIds: string[], toProfileVersionId: string): Promise<void>;
+  /** Queues a planning run for a `plans` row (optional: queues without planning workers may omit it). */
+  enqueuePlan?(planId: string): Promise<void>;
 }

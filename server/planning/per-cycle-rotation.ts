@@ -7,15 +7,15 @@
  */
 import type { Body } from '../../shared/contracts/body.ts';
 import { quatMultiply, type Quat } from '../../shared/math/quaternion.ts';
-import { simulate } from '../engine/simulate.ts';
+import { simulate, type EngineOptions } from '../engine/simulate.ts';
 import { candidatePrimitives } from './candidate-steps.ts';
 import { compileForBody, SEARCH_ENGINE_OPTIONS } from './evaluate-steps.ts';
 import type { PlanFamily } from './plan-families.ts';
 
-/** Rotation [w,x,y,z] of one cycle of `family` at `amplitudes` on `body`. */
-export function perCycleRotation(body: Body, family: PlanFamily, amplitudes: readonly number[], rateLimitDegS: number): Quat {
+/** Rotation [w,x,y,z] of one cycle of `family` at `amplitudes` on `body` (engine options: the search's by default). */
+export function perCycleRotation(body: Body, family: PlanFamily, amplitudes: readonly number[], rateLimitDegS: number, options: EngineOptions = SEARCH_ENGINE_OPTIONS): Quat {
   const steps = candidatePrimitives([{ family, amplitudes: [...amplitudes], cycles: 1 }], rateLimitDegS);
-  const r = simulate(body, compileForBody(body, steps), SEARCH_ENGINE_OPTIONS);
+  const r = simulate(body, compileForBody(body, steps), options);
   const a = r.final.attitude;
   return [a.w, a.x, a.y, a.z];
 }

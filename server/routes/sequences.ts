@@ -23,6 +23,7 @@ import { badRequest, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
 import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
 import { compareVersions } from '../maneuvers/compare-versions.ts';
+import { sequencePlansRouter } from './sequence-plans.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
 import { subscribeToProfileChanges } from '../maneuvers/flag-recheck.ts';
 import { requireAuthor, visibleSequences, visibleVersions } from '../maneuvers/maneuver-access.ts';
@@ -115,6 +116,8 @@ export function sequencesRouter(ctx: AppContext): Router {
     const b = await loadVersionDetail(db, req.user!, otherVersionId);
     res.json(compareVersions(a, b));
   });
+
+  router.use('/:sequenceId/plans', sequencePlansRouter(ctx));
 
   router.get('/:sequenceId', validate({ params: sequenceParams }), async (req, res) => {
     const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;

@@ -1,0 +1,14 @@
+/** Worker-thread body: runs the planner on workerData and posts progress and the result. */
+import { parentPort, workerData } from 'node:worker_threads';
+
+import { planManeuver } from './plan-maneuver.ts';
+import type { PlannerThreadInput, PlannerThreadMessage } from './planner-messages.ts';
+
+const post = (m: PlannerThreadMessage) => parentPort!.postMessage(m);
+try {
+  const input = workerData as PlannerThreadInput;
+  const candidates = planManeuver({ ...input, onProgress: (fraction, note) => post({ kind: 'progress', fraction, note }) });
+  post({ kind: 'done', candidates });
+} catch (err) {
+  post({ kind: 'failed', message: err instanceof Error ? err.message : String(err) });
+}

@@ -1,0 +1,38 @@
+/**
+ * Runs the planner in a worker thread, so a long plan never blocks the process's event loop (the
+ * HTTP server shares it). A plan over its time budget is stopped by terminating the thread.
+ */
+import { fileURLToPath } from 'node:url';
+import { Worker } from 'node:worker_threads';
+
+import type { PlanCandidate } from '../../shared/contracts/plan.ts';
+import type { PlanProgress } from './plan-maneuver.ts';
+import type { PlannerThreadInput, PlannerThreadMessage } from './planner-messages.ts';
+
+const ENTRY = fileURLToPath(new URL('./planner-entry.mjs', import.meta.url).href);
+
+/** Longest a plan may run, ms (10 min). */
+export const PLAN_TIME_BUDGET_MS = 10 * 60_000;
+
+/** Resolves with the ranked candidates; rejects on failure or when the time budget runs out. */
+export function runPlannerThread(input: PlannerThreadInput, onProgress: PlanProgress, timeBudgetMs = PLAN_TIME_BUDGET_MS): Promise<PlanCandidate[]> {
+  return new Promise((resolve, reject) => {
+    const worker = new Worker(ENTRY, { workerData: input });
+    let settled = false;
+    const finish = (fn: () => void) => {
+      if (settled) return;
+      settled = true;
+      clearTimeout(timer);
+      fn();
+      void worker.terminate();
+    };
+    const timer = setTimeout(() => finish(() => reject(new Error(`planning exceeded its time budget of ${timeBudgetMs / 1000} s`))), timeBudgetMs);
+    worker.on('message', (m: PlannerThreadMessage) => {
+      if (m.kind === 'progress') onProgress(m.fraction, m.note);
+      else if (m.kind === 'done') finish(() => resolve(m.candidates));
+      else finish(() => reject(new Error(m.message)));
+    });
+    worker.on('error', (err) => finish(() => reject(err)));
+    worker.on('exit', (code) => finish(() => reject(new Error(`planner thread exited (code ${code}) without a result`))));
+  });
+}
