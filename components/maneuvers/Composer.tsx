@@ -21,6 +21,7 @@ import { StepEditorSheet } from './composer/StepEditorSheet';
 import { StepList } from './composer/StepList';
 import { useComposerDraft } from './composer/use-composer-draft';
 import { ManeuverCautions } from './ManeuverCautions';
+import { SuggestSteps } from './planner/SuggestSteps';
 import { VerificationReport } from './report/VerificationReport';
 import { targetText } from './target-text';
 import { CompareVersions } from './versions/CompareVersions';
@@ -160,6 +161,16 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           setEditing(null);
         }}
       />
+      {editable ? (
+        <SuggestSteps
+          sequenceId={sequence.id}
+          toleranceDeg={sequence.target.toleranceDeg}
+          onUse={(steps) => {
+            draft.replaceAll(steps);
+            setEditing(null);
+          }}
+        />
+      ) : null}
       <Button
         label={showCompiled ? 'Hide compiled steps' : 'Show compiled steps'}
         icon="code"

@@ -15,6 +15,8 @@ export interface ComposerDraft {
   remove: (i: number) => void;
   /** Start again from `steps` (a loaded version). */
   reset: (steps: readonly Primitive[]) => void;
+  /** Replace every step (e.g. with a planner's suggestion), keeping the draft unsaved. */
+  replaceAll: (steps: readonly Primitive[]) => void;
 }
 
 /**
@@ -41,6 +43,7 @@ export function useComposerDraft(initial: readonly Primitive[]): ComposerDraft {
     setBase(next);
     setSteps([...next]);
   }, []);
+  const replaceAll = useCallback((next: readonly Primitive[]) => setSteps([...next]), []);
   const dirty = useMemo(() => JSON.stringify(steps) !== JSON.stringify(base), [steps, base]);
-  return { steps, dirty, put, move, remove, reset };
+  return { steps, dirty, put, move, remove, reset, replaceAll };
 }

@@ -1,0 +1,134 @@
+import { useState } from 'react';
+import { StyleSheet, View } from 'react-native';
+
+import { usePlanQuery, useStartPlanMutation } from '@/components/api/use-plans';
+import { colors, radii, spacing } from '@/components/theme';
+import { Badge } from '@/components/ui/Badge';
+import { Button } from '@/components/ui/Button';
+import { Card } from '@/components/ui/Card';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { Icon } from '@/components/ui/Icon';
+import { Text } from '@/components/ui/Text';
+import type { PlanCandidate, DispersionSpreads } from '@/shared/contracts/plan';
+import type { Primitive } from '@/shared/primitives/primitive-schemas';
+
+/** Props of {@link SuggestSteps}. */
+export interface SuggestStepsProps {
+  sequenceId: string;
+  /** Target tolerance, degrees (to colour errors). */
+  toleranceDeg: number;
+  /** Replaces the composer's steps (left unsaved for the planner to review). */
+  onUse: (steps: Primitive[]) => void;
+}
+
+const deg = (x: number) => `${x < 0.1 ? x.toFixed(2) : x.toFixed(1)}°`;
+
+/** The spreads of a dispersion run as one line. */
+export function spreadsText(s: DispersionSpreads): string {
+  return `segment mass ±${s.massPct} %, length ±${s.lengthPct} %, amplitude ±${s.amplitudePct} %, period ±${s.periodPct} %, joint timing ±${s.phaseDeg}°`;
+}
+
+/**
+ * "Suggest steps": starts a planning run on the server, shows its progress, then the ranked
+ * candidates (cues, duration, error to target, 95th-percentile error, peak rate) with
+ * "Use these steps", which replaces the composer's step list without saving.
+ */
+export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsProps) {
+  const [planId, setPlanId] = useState<string | null>(null);
+  const start = useStartPlanMutation(sequenceId);
+  const plan = usePlanQuery(sequenceId, planId);
+  const state = plan.data?.state;
+  const busy = start.isPending || (!!planId && state !== 'done' && state !== 'failed');
+
+  return (
+    <View style={styles.root} testID="suggest-steps">
+      <View style={styles.row}>
+        <Button
+          label={planId && !busy ? 'Suggest again' : 'Suggest steps'}
+          icon="zap"
+          variant="secondary"
+          size="sm"
+          loading={busy}
+          onPress={() => start.mutate({}, { onSuccess: (r) => setPlanId(r.planId) })}
+          testID="suggest-steps-button"
+        />
+        {busy ? (
+          <Text variant="caption" tone="muted" style={styles.flex}>
+            {plan.data ? `${Math.round(plan.data.progress * 100)} % · ${plan.data.progressNote || plan.data.state}` : 'Queuing the planner…'}
+          </Text>
+        ) : null}
+      </View>
+      <ErrorBanner title="Could not start the planner" error={start.error} />
+      <ErrorBanner title="Could not read the plan" error={plan.error} />
+      {state === 'failed' ? <ErrorBanner title="The planner failed" error={plan.data?.error ?? 'unknown error'} /> : null}
+      {state === 'done' && plan.data ? (
+        <View style={styles.list} role="list" aria-label="Suggested step lists">
+          <Text variant="caption" tone="muted">
+            {plan.data.candidates.length} suggestion{plan.data.candidates.length === 1 ? '' : 's'} in {plan.data.elapsedS?.toFixed(1)} s, best first.
+          </Text>
+          {plan.data.candidates.map((c) => (
+            <CandidateCard key={c.rank} candidate={c} toleranceDeg={toleranceDeg} onUse={() => onUse(c.primitives)} />
+          ))}
+          <View style={styles.note} role="note">
+            <Icon name="alert-circle" size={16} color={colors.accent} />
+            <Text variant="caption" style={styles.flex}>
+              The dispersion spreads are illustrative, not measured: {spreadsText(plan.data.settings.spreads as DispersionSpreads)}. Verify the steps on the
+              crew member’s profile and judge the 95th-percentile error before relying on them.
+            </Text>
+          </View>
+        </View>
+      ) : null}
+    </View>
+  );
+}
+
+function CandidateCard({ candidate: c, toleranceDeg, onUse }: { candidate: PlanCandidate; toleranceDeg: number; onUse: () => void }) {
+  const ok = c.withinTolerance && c.withinRateLimit && c.rangeViolationCount === 0;
+  return (
+    <Card
+      title={`Suggestion ${c.rank}`}
+      subtitle={`${c.durationS.toFixed(1)} s · ${c.primitives.length} steps`}
+      trailing={<Badge label={ok ? 'Within limits' : 'Misses a limit'} tone={ok ? 'success' : 'danger'} />}
+    >
+      <View style={styles.card} role="listitem" aria-label={`Suggestion ${c.rank}`} testID={`plan-candidate-${c.rank}`}>
+        {c.cues.map((cue, i) => (
+          <Text key={i} variant="caption">
+            {i + 1}. {cue}
+          </Text>
+        ))}
+        <View style={styles.figures}>
+          <Figure label="Error to target" value={deg(c.errorDeg)} bad={c.errorDeg > toleranceDeg} />
+          <Figure label="95th pct error" value={deg(c.dispersion.p95ErrorDeg)} bad={c.dispersion.p95ErrorDeg > toleranceDeg} />
+          <Figure label="Median error" value={deg(c.dispersion.medianErrorDeg)} bad={c.dispersion.medianErrorDeg > toleranceDeg} />
+          <Figure label="Peak rate" value={`${Math.round(c.peakJointRateDegS)} °/s`} bad={!c.withinRateLimit} />
+          {c.rangeViolationCount ? <Figure label="Range violations" value={String(c.rangeViolationCount)} bad /> : null}
+        </View>
+        <Button label="Use these steps" icon="check" size="sm" onPress={onUse} testID={`use-candidate-${c.rank}`} />
+      </View>
+    </Card>
+  );
+}
+
+function Figure({ label, value, bad }: { label: string; value: string; bad: boolean }) {
+  return (
+    <View style={styles.figure}>
+      <Text variant="overline" tone="muted">
+        {label}
+      </Text>
+      <Text variant="bodyStrong" tone={bad ? 'danger' : 'default'}>
+        {value}
+      </Text>
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  root: { gap: spacing.sm },
+  row: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
+  flex: { flex: 1 },
+  list: { gap: spacing.md },
+  card: { gap: spacing.xs },
+  figures: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.lg, marginVertical: spacing.sm },
+  figure: { minWidth: 96 },
+  note: { flexDirection: 'row', gap: spacing.sm, padding: spacing.md, borderRadius: radii.md, backgroundColor: colors.accentTint },
+});
