@@ -145,6 +145,8 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       const [row] = await db.insert(sequenceVersions).values({
         sequenceId: seq.id, version: i + 1, primitives: v.primitives, compiled: stored, profileVersionId: profile.id,
         status: v.status, report, engineVersion: report.engineVersion, inputsHash: report.inputsHash, authorId: author, note: v.note,
+        // Saved before it was submitted, submitted before it was decided: the screens show all three times.
+        createdAt: minutesAgo(100 - i * 20),
         submittedAt: submitted ? minutesAgo(90 - i * 20) : null,
         clearedBy: wasCleared ? userIds[REVIEWER] : null, clearedAt: wasCleared ? minutesAgo(80 - i * 20) : null,
         staleSince: v.status === 'recheck' ? minutesAgo(30) : null,
@@ -153,7 +155,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       if (v.review) {
         await db.insert(reviews).values({
           sequenceVersionId: row.id, reviewerId: userIds[REVIEWER], decision: v.review.decision, comment: v.review.comment,
-          profileVersionId: profile.id, engineVersion: report.engineVersion,
+          profileVersionId: profile.id, engineVersion: report.engineVersion, createdAt: minutesAgo(80 - i * 20),
         });
         await recordAudit(db, { actorId: userIds[REVIEWER], action: `sequence_version.${v.review.decision}`, objectType: 'sequence_version', objectId: row.id, detail: { comment: v.review.comment, seed: true } });
       }
