@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
+import { isApiStatus } from '@/components/api/client';
 import { bodyExportUrl, useCrewMemberQuery } from '@/components/api/use-crew';
 import { spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
@@ -33,7 +34,11 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
   // Bumped by "load the newest version" after a 409; a background refresh alone never restarts the editor.
   const [editorRound, setEditorRound] = useState(0);
   if (q.isPending) return <LoadingState label="Loading the profile…" />;
-  if (q.isError) return <ErrorBanner title="Could not load this crew member" error={q.error} onRetry={() => void q.refetch()} />;
+  if (q.isError) {
+    // A stale or mistyped link: retrying cannot help, so say what is missing instead.
+    if (isApiStatus(q.error, 404, 400)) return <EmptyState icon="user-x" title="This crew member is not available" body="They do not exist, or your role cannot see them." />;
+    return <ErrorBanner title="Could not load this crew member" error={q.error} onRetry={() => void q.refetch()} />;
+  }
   const { member, current } = q.data;
   const views: SegmentOption<MemberView>[] = [
     { value: 'profile', label: 'Profile' },

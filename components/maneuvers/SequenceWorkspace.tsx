@@ -38,7 +38,7 @@ export function SequenceWorkspace({ sequenceId, versionId, panel }: SequenceWork
     return (
       <Screen>
         {back}
-        {isApiStatus(sequence.error, 404, 403) ? (
+        {isApiStatus(sequence.error, 404, 403, 400) ? (
           <EmptyState icon="slash" title="This maneuver is not available" body="It does not exist, or your role cannot see it." />
         ) : (
           <ErrorBanner title="Could not load the maneuver" error={sequence.error} onRetry={() => void sequence.refetch()} />
