@@ -4,7 +4,7 @@ import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
 import { invitationPathFor } from './support/mailbox.ts';
 import { signIn } from './support/sign-in.ts';
 
-test('an admin invites a trainee linked to a crew member; the invitee sees that crew member', async ({ page, browser }) => {
+test('an admin invites a trainee linked to a crew member; the invitee sees that crew member; the admin relinks them', async ({ page, browser }) => {
   const email = `sable.orrery.${Date.now()}@lumen.example.test`;
   const name = 'Sable Orrery';
   const password = 'tether-lattice-77';
@@ -43,4 +43,17 @@ test('an admin invites a trainee linked to a crew member; the invitee sees that 
   expect(members.map((m) => m.name)).toEqual(['Bram Kettle']);
   await invitee.getByRole('tab', { name: 'Crew' }).click();
   await expect(invitee.getByRole('heading', { name: 'Bram Kettle' }).first()).toBeVisible();
+
+  // The admin links the trainee to another crew member from the People list; it applies at once.
+  // (A reload: the People list was fetched moments ago, before the invitee joined, and is still fresh.)
+  await page.reload();
+  await page.getByRole('radio', { name: 'People' }).click();
+  await page.getByText(name, { exact: true }).click();
+  const relink = page.getByLabel('Crew member', { exact: true });
+  const ilse = (await relink.locator('option').allTextContents()).find((o) => o.startsWith('Ilse Moss'));
+  await relink.selectOption({ label: ilse! });
+  await page.getByRole('button', { name: 'Save crew member' }).click();
+  await expect(page.getByText(`${name} now sees Ilse Moss.`)).toBeVisible();
+  const after = (await (await invitee.request.get('/api/crew')).json()) as { members: { name: string }[] };
+  expect(after.members.map((m) => m.name)).toEqual(['Ilse Moss']);
 });

@@ -14,6 +14,8 @@ export interface CrewMemberPickerProps {
   value: string;
   onChange: (crewMemberId: string) => void;
   error?: string;
+  /** A user left out of the "linked to" marks (the trainee being edited, who is not linked to themselves). */
+  exceptUserId?: string;
 }
 
 /**
@@ -21,18 +23,18 @@ export interface CrewMemberPickerProps {
  * profile and maneuvers from the first sign-in. Members already linked to a trainee are marked, since
  * two accounts on one body is rarely meant.
  */
-export function CrewMemberPicker({ value, onChange, error }: CrewMemberPickerProps) {
+export function CrewMemberPicker({ value, onChange, error, exceptUserId }: CrewMemberPickerProps) {
   const crew = useCrewListQuery('');
   const people = useTeamUsersQuery();
   const options = useMemo(() => {
     const linked = new Map<string, string[]>();
-    for (const u of people.data ?? []) if (u.crewMemberId) linked.set(u.crewMemberId, [...(linked.get(u.crewMemberId) ?? []), u.name]);
+    for (const u of people.data ?? []) if (u.crewMemberId && u.id !== exceptUserId) linked.set(u.crewMemberId, [...(linked.get(u.crewMemberId) ?? []), u.name]);
     return (crew.data ?? []).map((m) => {
       const holder = linked.get(m.id);
       const name = m.callSign ? `${m.name} (${m.callSign})` : m.name;
       return { value: m.id, label: holder ? `${name} — linked to ${holder.join(', ')}` : name };
     });
-  }, [crew.data, people.data]);
+  }, [crew.data, people.data, exceptUserId]);
 
   if (crew.isError) return <ErrorBanner error="The crew list did not load, so the trainee cannot be linked yet. Reload the page to try again." />;
   if (crew.isPending) {

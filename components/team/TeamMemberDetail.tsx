@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
+import { useCrewListQuery } from '@/components/api/use-crew';
 import { useSessionQuery } from '@/components/api/use-session';
 import { useTeamUsersQuery, useUpdateUserMutation } from '@/components/api/use-team';
 import { formatDate } from '@/components/format/date-time';
@@ -15,6 +16,7 @@ import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Sheet } from '@/components/ui/Sheet';
 import { Text } from '@/components/ui/Text';
 import { ROLE_LABELS, type Role } from '@/shared/contracts/roles';
+import { CrewMemberPicker } from './CrewMemberPicker';
 import { ROLE_OPTIONS } from './role-options';
 
 /** Props of {@link TeamMemberDetail}. */
@@ -28,6 +30,9 @@ export function TeamMemberDetail({ userId }: TeamMemberDetailProps) {
   const me = useSessionQuery().data;
   const update = useUpdateUserMutation();
   const member = users.data?.find((u) => u.id === userId);
+  // The crew member picked but not saved yet (null: showing the saved link).
+  const [pendingCrew, setPendingCrew] = useState<string | null>(null);
+  const crew = useCrewListQuery('');
   // The role picked but not saved yet (null: showing the saved role). The parent keys this component by user id.
   const [pendingRole, setPendingRole] = useState<Role | null>(null);
   const [confirming, setConfirming] = useState(false);
@@ -67,6 +72,7 @@ export function TeamMemberDetail({ userId }: TeamMemberDetailProps) {
           <Text variant="caption" tone="muted">
             Member since {formatDate(member.createdAt)}
           </Text>
+
         </View>
       </View>
 
@@ -97,6 +103,33 @@ export function TeamMemberDetail({ userId }: TeamMemberDetailProps) {
           }
         />
       </Card>
+
+      {member.role === 'trainee' ? (
+        <Card
+          title="Crew member"
+          subtitle={member.crewMemberId ? 'The profile and cleared maneuvers this trainee sees. Changing it takes effect at once.' : 'Not linked yet, so this trainee has nothing to rehearse.'}
+        >
+          <CrewMemberPicker value={pendingCrew ?? member.crewMemberId ?? ''} onChange={(id) => setPendingCrew(id)} exceptUserId={member.id} />
+          <Button
+            label="Save crew member"
+            size="sm"
+            disabled={!pendingCrew || pendingCrew === member.crewMemberId}
+            loading={update.isPending && update.variables?.change.crewMemberId !== undefined}
+            onPress={() =>
+              pendingCrew &&
+              update.mutate(
+                { id: member.id, change: { crewMemberId: pendingCrew } },
+                {
+                  onSuccess: ({ user }) => {
+                    setPendingCrew(null);
+                    setSaved(`${user.name} now sees ${crew.data?.find((m) => m.id === user.crewMemberId)?.name ?? 'the chosen crew member'}.`);
+                  },
+                },
+              )
+            }
+          />
+        </Card>
+      ) : null}
 
       <Card
         title="Access"

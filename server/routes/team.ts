@@ -85,14 +85,23 @@ export function teamRouter(ctx: AppContext): Router {
     }
     const [row] = await db.select().from(users).where(eq(users.id, id));
     if (!row) throw notFound('User');
+    if (change.crewMemberId) {
+      const [member] = await db.select({ id: crewMembers.id }).from(crewMembers).where(eq(crewMembers.id, change.crewMemberId));
+      if (!member) throw badRequest('crewMemberId: no such crew member.', 'crewMemberId');
+    }
+    // A role change or disabling revokes the user's open sessions; a crew link alone does not (it is read per request).
+    const revoke = change.role !== undefined || change.disabled !== undefined;
     const updated = await db.transaction(async (tx) => {
-      // A role change or disabling revokes the user's open sessions.
       const [u] = await tx
         .update(users)
-        .set({ role: change.role ?? row.role, disabled: change.disabled ?? row.disabled, tokenVersion: row.tokenVersion + 1 })
+        .set({
+          role: change.role ?? row.role, disabled: change.disabled ?? row.disabled,
+          crewMemberId: change.crewMemberId === undefined ? row.crewMemberId : change.crewMemberId,
+          tokenVersion: revoke ? row.tokenVersion + 1 : row.tokenVersion,
+        })
         .where(eq(users.id, id))
         .returning();
-      await recordAudit(tx, { actorId: me.id, action: 'team.update_user', objectType: 'user', objectId: id, detail: { from: { role: row.role, disabled: row.disabled }, to: change } });
+      await recordAudit(tx, { actorId: me.id, action: 'team.update_user', objectType: 'user', objectId: id, detail: { from: { role: row.role, disabled: row.disabled, crewMemberId: row.crewMemberId }, to: change } });
       return u;
     });
     res.json({ user: { id: updated.id, email: updated.email, name: updated.name, role: updated.role, disabled: updated.disabled, crewMemberId: updated.crewMemberId, createdAt: updated.createdAt.toISOString() } });

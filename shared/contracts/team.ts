@@ -49,10 +49,13 @@ export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 export const acceptInvitationRequestSchema = z.object({ password: passwordSchema });
 export type AcceptInvitationRequest = z.infer<typeof acceptInvitationRequestSchema>;
 
-/** PATCH /api/team/users/:id (admin). */
+/**
+ * PATCH /api/team/users/:id (admin). `crewMemberId` links a trainee to the crew member whose profile
+ * and maneuvers they see (null unlinks); it does not sign the person out, unlike a role change.
+ */
 export const updateUserRequestSchema = z
-  .object({ role: roleSchema.optional(), disabled: z.boolean().optional() })
-  .refine((v) => v.role !== undefined || v.disabled !== undefined, { message: 'Give a role or a disabled flag.' });
+  .object({ role: roleSchema.optional(), disabled: z.boolean().optional(), crewMemberId: z.string().uuid().nullable().optional() })
+  .refine((v) => v.role !== undefined || v.disabled !== undefined || v.crewMemberId !== undefined, { message: 'Give a role, a disabled flag or a crew member.' });
 export type UpdateUserRequest = z.infer<typeof updateUserRequestSchema>;
 
 /** GET /api/audit query (admin). */

@@ -81,6 +81,27 @@ describe('user administration', () => {
     expect(res.body.events.every((e: { action: string }) => e.action === 'team.update_user')).toBe(true);
   });
 
+  it('links a trainee to another crew member without signing them out; an unknown crew member is named (400)', async () => {
+    const users = (await request(t.app).get('/api/team/users').set('Authorization', admin)).body.users as { id: string; email: string; crewMemberId: string | null }[];
+    const trainee = DEMO_PEOPLE.filter((p) => p.role === 'trainee')[1];
+    const target = users.find((u) => u.email === trainee.email)!;
+    const token = `Bearer ${await t.tokenForEmail(trainee.email)}`;
+    const members = (await request(t.app).get('/api/crew').set('Authorization', admin)).body.members as { id: string; name: string }[];
+    const other = members.find((m) => m.id !== target.crewMemberId)!;
+
+    const linked = await request(t.app).patch(`/api/team/users/${target.id}`).set('Authorization', admin).send({ crewMemberId: other.id });
+    expect(linked.status).toBe(200);
+    expect(linked.body.user.crewMemberId).toBe(other.id);
+    // The same token still works and now reads exactly the newly linked member.
+    const seen = await request(t.app).get('/api/crew').set('Authorization', token);
+    expect(seen.status).toBe(200);
+    expect(seen.body.members.map((m: { id: string }) => m.id)).toEqual([other.id]);
+
+    const unknown = await request(t.app).patch(`/api/team/users/${target.id}`).set('Authorization', admin).send({ crewMemberId: '00000000-0000-4000-8000-000000000000' });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.error.field).toBe('crewMemberId');
+  });
+
   it('the audit log refuses UPDATE and DELETE at the database', async () => {
     await expect(t.pool.query("UPDATE audit_events SET action = 'x'")).rejects.toThrow(/append-only: UPDATE refused/);
     await expect(t.pool.query('DELETE FROM audit_events')).rejects.toThrow(/append-only: DELETE refused/);
