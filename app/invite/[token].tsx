@@ -1,5 +1,6 @@
 import { useLocalSearchParams, useRouter } from 'expo-router';
 
+import { isApiStatus } from '@/components/api/client';
 import { useInvitationPreviewQuery } from '@/components/api/use-invitation';
 import { AcceptInvitationForm } from '@/components/auth/AcceptInvitationForm';
 import { AuthCard } from '@/components/auth/AuthCard';
@@ -8,6 +9,8 @@ import { homeTab } from '@/components/shell/tab-access';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
+
+const MALFORMED_LINK = 'This invitation link is not valid: it may be cut off or mistyped. Open it again from the e-mail, or ask your administrator for a new one.';
 
 /** `/invite/<token>`: the link from the invitation e-mail. Shows who it is for, then sets a password. */
 export default function InviteScreen() {
@@ -24,7 +27,8 @@ export default function InviteScreen() {
   if (preview.isError) {
     return (
       <AuthCard title="Invitation not usable">
-        <ErrorBanner error={preview.error} />
+        {/* A cut-off or mistyped link fails validation (400): say what the person can do, not which rule broke. */}
+        <ErrorBanner error={isApiStatus(preview.error, 400) ? MALFORMED_LINK : preview.error} />
         <Button label="Go to sign-in" variant="secondary" onPress={() => router.replace('/sign-in')} />
       </AuthCard>
     );

@@ -36,6 +36,7 @@ export function InvitationSummary({ invitation }: InvitationSummaryProps) {
 const styles = StyleSheet.create({
   box: { borderRadius: radii.md, backgroundColor: colors.raised, padding: spacing.md, gap: spacing.sm },
   row: { flexDirection: 'row', alignItems: 'center', gap: spacing.md },
-  key: { width: 100 },
-  value: { flex: 1 },
+  // The key keeps its width; a long e-mail wraps inside the box (minWidth 0 lets the flex item shrink).
+  key: { width: 100, flexShrink: 0 },
+  value: { flex: 1, minWidth: 0 },
 });
