@@ -8,14 +8,14 @@ import { Text } from '@/components/ui/Text';
 import type { ProfileVersionView, SegmentSummary } from '@/shared/contracts/profile-version';
 import { SEGMENT_LABELS, type SegmentName } from '@/shared/model/segment-names';
 import { fixed, moment, vector } from './format-values';
-import { ValueTable, type ValueColumn } from './ValueTable';
+import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 
 const LENGTH_LABELS: Record<string, string> = {
   head: 'Head', upperTrunk: 'Upper trunk', middleTrunk: 'Middle trunk', lowerTrunk: 'Lower trunk', upperArm: 'Upper arm',
   forearm: 'Forearm', hand: 'Hand', thigh: 'Thigh', shank: 'Shank', foot: 'Foot', ankleHeight: 'Ankle height',
 };
 
-const SEGMENT_COLUMNS: ValueColumn<SegmentSummary>[] = [
+const SEGMENT_COLUMNS: DataColumn<SegmentSummary>[] = [
   { header: 'Segment', cell: (s) => <Text variant="label">{SEGMENT_LABELS[s.name as SegmentName] ?? s.name}</Text>, minWidth: 135 },
   { header: 'Mass (kg)', cell: (s) => fixed(s.mass, 3), numeric: true, minWidth: 75 },
   { header: 'CoM x, y, z (m)', cell: (s) => vector(s.com), numeric: true, minWidth: 180 },
@@ -92,7 +92,7 @@ export function ProfileOverview({ version }: { version: ProfileVersionView }) {
       </Card>
 
       <Card title="Segment table" subtitle="Each segment's mass, CoM in its own frame, and principal moments about its CoM" padding="none">
-        <ValueTable label="Derived segment table" columns={SEGMENT_COLUMNS} rows={s.segments} rowKey={(r) => r.name} />
+        <DataTable label="Derived segment table" columns={SEGMENT_COLUMNS} rows={s.segments} rowKey={(r) => r.name} />
       </Card>
     </View>
   );

@@ -15,7 +15,7 @@ import { suitConfigSchema } from '@/shared/contracts/suit';
 import { DOF_LABELS, DOF_NAMES, type DofName } from '@/shared/model/dof-names';
 import { SEGMENT_LABELS, SEGMENT_NAMES, type SegmentName } from '@/shared/model/segment-names';
 import { fixed } from './format-values';
-import { ValueTable } from './ValueTable';
+import { DataTable } from '@/components/ui/DataTable';
 
 /** "segments.l_thigh.mass: …" from a zod issue path and message. */
 function issueText(path: readonly PropertyKey[], message: string): string {
@@ -63,7 +63,7 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
       <View style={styles.stack}>
         {c.note ? <Text tone="muted">{c.note}</Text> : null}
         {added.length ? (
-          <ValueTable
+          <DataTable
             label={`${c.name}: added mass`}
             columns={[
               { header: 'Segment', cell: (r) => <Text variant="label">{SEGMENT_LABELS[r.seg as SegmentName] ?? r.seg}</Text>, minWidth: 150 },
@@ -74,7 +74,7 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
           />
         ) : null}
         {ranges.length ? (
-          <ValueTable
+          <DataTable
             label={`${c.name}: suited ranges`}
             columns={[
               { header: 'Joint (suited range)', cell: (r) => <Text variant="label">{DOF_LABELS[r.dof as DofName] ?? r.dof}</Text>, minWidth: 200 },

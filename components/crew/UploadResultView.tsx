@@ -6,15 +6,15 @@ import { Badge } from '@/components/ui/Badge';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Text } from '@/components/ui/Text';
 import type { ImportedRowResult, UploadRowError } from '@/shared/contracts/uploads';
-import { ValueTable, type ValueColumn } from './ValueTable';
+import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 
-const ERROR_COLUMNS: ValueColumn<UploadRowError>[] = [
+const ERROR_COLUMNS: DataColumn<UploadRowError>[] = [
   { header: 'Row', cell: (e) => (e.row > 0 ? String(e.row) : 'file'), numeric: true, minWidth: 60 },
   { header: 'Column', cell: (e) => e.column || '—', minWidth: 130 },
   { header: 'Problem', cell: (e) => <Text>{e.reason}</Text>, minWidth: 260 },
 ];
 
-const IMPORTED_COLUMNS: ValueColumn<ImportedRowResult>[] = [
+const IMPORTED_COLUMNS: DataColumn<ImportedRowResult>[] = [
   { header: 'Row', cell: (r) => (r.row > 0 ? String(r.row) : '—'), numeric: true, minWidth: 60 },
   { header: 'Crew member', cell: (r) => <Text variant="label">{r.name}</Text>, minWidth: 160 },
   { header: 'Result', cell: (r) => <Badge label={r.action === 'created' ? 'New member' : 'New version'} tone={r.action === 'created' ? 'teal' : 'accent'} />, minWidth: 120 },
@@ -28,7 +28,7 @@ export function UploadResultView({ outcome }: { outcome: UploadOutcome }) {
     return (
       <View style={{ gap: spacing.md }}>
         <ErrorBanner title="Nothing was imported" error={outcome.message} />
-        <ValueTable label="Upload errors" columns={ERROR_COLUMNS} rows={upload.errors} rowKey={(e) => `${e.row}-${e.column}-${e.reason}`} rowTone={() => 'danger'} />
+        <DataTable label="Upload errors" columns={ERROR_COLUMNS} rows={upload.errors} rowKey={(e) => `${e.row}-${e.column}-${e.reason}`} rowTone={() => 'danger'} />
         <Text variant="caption" tone="muted">
           The file is kept as uploaded ({upload.objectKey}) for the record. Fix the rows above and upload it again.
         </Text>
@@ -42,7 +42,7 @@ export function UploadResultView({ outcome }: { outcome: UploadOutcome }) {
           Imported {imported.length} row{imported.length === 1 ? '' : 's'} from {upload.fileName}.
         </Text>
       </View>
-      <ValueTable label="Imported rows" columns={IMPORTED_COLUMNS} rows={imported} rowKey={(r) => `${r.row}-${r.crewMemberId}`} />
+      <DataTable label="Imported rows" columns={IMPORTED_COLUMNS} rows={imported} rowKey={(r) => `${r.row}-${r.crewMemberId}`} />
     </View>
   );
 }

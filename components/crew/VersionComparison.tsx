@@ -11,7 +11,7 @@ import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
 import type { ComparisonRow } from '@/shared/contracts/profile-version';
 import { comparisonValue } from './format-values';
-import { ValueTable, type ValueColumn } from './ValueTable';
+import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 
 /** Props of {@link VersionComparison}. */
 export interface VersionComparisonProps {
@@ -25,7 +25,7 @@ const FILTERS = [
   { value: 'all', label: 'Everything' },
 ] as const;
 
-function columns(a: number, b: number): ValueColumn<ComparisonRow>[] {
+function columns(a: number, b: number): DataColumn<ComparisonRow>[] {
   return [
     { header: 'Value', cell: (r) => <Text variant="label">{r.label}{r.unit ? ` (${r.unit})` : ''}</Text>, minWidth: 200 },
     { header: `Version ${a}`, cell: (r) => comparisonValue(r.a), numeric: true, minWidth: 110 },
@@ -62,7 +62,7 @@ export function VersionComparison({ crewMemberId, a, b }: VersionComparisonProps
       {groups.map((g) =>
         g.rows.length ? (
           <Card key={g.title} title={g.title} padding="none">
-            <ValueTable label={`${g.title}: version ${a} and version ${b}`} columns={cols} rows={g.rows} rowKey={(r) => r.key} rowTone={(r) => (r.changed ? 'changed' : undefined)} />
+            <DataTable label={`${g.title}: version ${a} and version ${b}`} columns={cols} rows={g.rows} rowKey={(r) => r.key} rowTone={(r) => (r.changed ? 'changed' : undefined)} />
           </Card>
         ) : null,
       )}

@@ -9,7 +9,7 @@ import { Text } from '@/components/ui/Text';
 import type { Step } from '@/shared/contracts/sequence';
 import type { Primitive } from '@/shared/primitives/primitive-schemas';
 import { fmtSeconds } from '../report/format';
-import { SimpleTable } from '../SimpleTable';
+import { DataTable } from '@/components/ui/DataTable';
 
 /** Props of {@link CompiledSteps}. */
 export interface CompiledStepsProps {
@@ -53,7 +53,7 @@ export function CompiledSteps({ primitives, crewMemberId }: CompiledStepsProps) 
           Step {w.primitive + 1}: {w.message}
         </Text>
       ))}
-      <SimpleTable
+      <DataTable
         label="Compiled joint steps"
         rows={rows}
         rowKey={(_, i) => String(i)}

@@ -1,5 +1,5 @@
 import { dofLabel } from '@/components/charts/JointAnglePlots';
-import { SimpleTable } from '../SimpleTable';
+import { DataTable } from '@/components/ui/DataTable';
 import { fmtRate } from './format';
 
 /** Props of {@link PeakRatesTable}. */
@@ -17,7 +17,7 @@ export function PeakRatesTable({ byDof, limitDegS }: PeakRatesTableProps) {
     .sort((a, b) => b[1] - a[1])
     .map(([dof, rate]) => ({ dof, rate }));
   return (
-    <SimpleTable
+    <DataTable
       label="Peak joint rates"
       testID="peak-rates"
       rows={rows}

@@ -1,7 +1,7 @@
 import { dofLabel } from '@/components/charts/JointAnglePlots';
 import { Text } from '@/components/ui/Text';
 import type { RangeViolation } from '@/shared/contracts/result';
-import { SimpleTable } from '../SimpleTable';
+import { DataTable } from '@/components/ui/DataTable';
 import { fmtDeg, fmtSeconds } from './format';
 
 /** Props of {@link RangeViolationsTable}. */
@@ -19,7 +19,7 @@ export function RangeViolationsTable({ violations }: RangeViolationsTableProps) 
     );
   }
   return (
-    <SimpleTable
+    <DataTable
       label="Range violations"
       testID="range-violations"
       rows={violations}

@@ -9,7 +9,7 @@ import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
 import type { CompareResponse, VersionSummary } from '@/shared/contracts/maneuver';
 import { fmtNum } from '../report/format';
-import { SimpleTable } from '../SimpleTable';
+import { DataTable } from '@/components/ui/DataTable';
 
 /** Props of {@link CompareVersions}. */
 export interface CompareVersionsProps {
@@ -75,7 +75,7 @@ export function CompareVersions({ versions }: CompareVersionsProps) {
             ))}
           </View>
           <Text variant="heading">Result</Text>
-          <SimpleTable
+          <DataTable
             label="Results compared"
             rows={FIGURES}
             rowKey={(f) => f.key}

@@ -4,52 +4,56 @@ import { ScrollView, StyleSheet, View } from 'react-native';
 import { colors, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 
-/** One column of a {@link ValueTable}. */
-export interface ValueColumn<R> {
+/** One column of a {@link DataTable}. */
+export interface DataColumn<R> {
   /** Header text, with the unit in brackets when it has one. */
   header: string;
-  /** Cell content: a string renders as tabular text. */
+  /** Cell content: a string or number renders as tabular text. */
   cell: (row: R) => ReactNode;
   /** Right-align (numbers); default false. */
   numeric?: boolean;
   /** Minimum width, px; default 90. */
   minWidth?: number;
+  /** Share of the spare width; default 1. */
+  flex?: number;
 }
 
-/** Props of {@link ValueTable}. */
-export interface ValueTableProps<R> {
+/** Props of {@link DataTable}. */
+export interface DataTableProps<R> {
   /** Accessible name of the table. */
   label: string;
-  columns: readonly ValueColumn<R>[];
+  columns: readonly DataColumn<R>[];
   rows: readonly R[];
-  rowKey: (row: R) => string;
-  /** Highlight a row: `changed` tints it (comparison), `danger` marks an error. */
+  rowKey: (row: R, index: number) => string;
+  /** Highlight a row: `changed` tints it (comparisons), `danger` marks an error or a limit crossed. */
   rowTone?: (row: R) => 'changed' | 'danger' | undefined;
+  testID?: string;
 }
 
-/** A compact table with ARIA roles that scrolls sideways on a phone instead of squashing columns. */
-export function ValueTable<R>({ label, columns, rows, rowKey, rowTone }: ValueTableProps<R>) {
+/** A compact data table with ARIA table roles; scrolls sideways on a phone rather than squashing columns. */
+export function DataTable<R>({ label, columns, rows, rowKey, rowTone, testID }: DataTableProps<R>) {
+  const width = (c: DataColumn<R>) => ({ minWidth: c.minWidth ?? 90, flex: c.flex ?? 1 });
   return (
-    <ScrollView horizontal contentContainerStyle={styles.scroll}>
+    <ScrollView horizontal contentContainerStyle={styles.scroll} testID={testID}>
       <View role="table" aria-label={label} style={styles.table}>
         <View role="row" style={[styles.row, styles.head]}>
           {columns.map((c) => (
-            <View key={c.header} role="columnheader" style={[styles.cell, { minWidth: c.minWidth ?? 90 }]}>
+            <View key={c.header} role="columnheader" style={[styles.cell, width(c)]}>
               <Text variant="overline" tone="muted" style={c.numeric && styles.right}>
                 {c.header}
               </Text>
             </View>
           ))}
         </View>
-        {rows.map((r) => {
+        {rows.map((r, i) => {
           const tone = rowTone?.(r);
           return (
-            <View key={rowKey(r)} role="row" style={[styles.row, tone === 'changed' && styles.changed, tone === 'danger' && styles.danger]}>
+            <View key={rowKey(r, i)} role="row" style={[styles.row, tone === 'changed' && styles.changed, tone === 'danger' && styles.danger]}>
               {columns.map((c) => {
                 const content = c.cell(r);
                 return (
-                  <View key={c.header} role="cell" style={[styles.cell, { minWidth: c.minWidth ?? 90 }]}>
-                    {typeof content === 'string' ? (
+                  <View key={c.header} role="cell" style={[styles.cell, width(c)]}>
+                    {typeof content === 'string' || typeof content === 'number' ? (
                       <Text variant="numeric" style={c.numeric && styles.right}>
                         {content}
                       </Text>
@@ -74,6 +78,6 @@ const styles = StyleSheet.create({
   head: { borderBottomColor: colors.borderStrong },
   changed: { backgroundColor: colors.accentTint },
   danger: { backgroundColor: colors.dangerTint },
-  cell: { flex: 1, paddingVertical: spacing.sm, paddingHorizontal: spacing.sm, justifyContent: 'center' },
+  cell: { paddingVertical: spacing.sm, paddingHorizontal: spacing.sm, justifyContent: 'center' },
   right: { textAlign: 'right' },
 });
