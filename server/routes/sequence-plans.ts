@@ -1,15 +1,18 @@
 /**
  * /api/sequences/:sequenceId/plans: the maneuver planner ("Suggest steps"). POST queues a planning
- * job on the crew member's current profile body and answers 202 { planId }; GET returns the plan's
- * state, progress and ranked candidates (shapes in shared/contracts/plan.ts).
+ * job on the crew member's current profile body and answers 202 { planId }; GET / lists the
+ * sequence's plans newest first (so a reopened composer finds its latest run); GET /:planId returns
+ * the plan's state, progress and ranked candidates (shapes in shared/contracts/plan.ts).
  */
-import { and, eq } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
 import { plans, sequences, type PlanRow } from '../../db/schema/index.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import { planRequestSchema, type Plan, type PlanCandidate, type PlanCreated } from '../../shared/contracts/plan.ts';
+import {
+  planListQuerySchema, planRequestSchema, type Plan, type PlanCandidate, type PlanCreated, type PlanList,
+} from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { forbidden, notFound } from '../http/http-error.ts';
@@ -63,6 +66,34 @@ export function sequencePlansRouter(ctx: AppContext): Router {
     // Without a queue in this process the row stays queued; a queue started later picks it up.
     if (ctx.jobs?.enqueuePlan) await ctx.jobs.enqueuePlan(id);
     res.status(202).json({ planId: id } satisfies PlanCreated);
+  });
+
+  router.get('/', validate({ params: sequenceParams, query: planListQuerySchema }), async (req, res) => {
+    requireAuthor(req.user!);
+    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
+    const { limit } = res.locals.query as z.infer<typeof planListQuerySchema>;
+    const [sequence] = await db.select({ id: sequences.id }).from(sequences).where(eq(sequences.id, sequenceId));
+    if (!sequence) throw notFound('Sequence');
+    // Counted in SQL so the list does not carry every candidate's step list.
+    const rows = await db.select({
+      id: plans.id,
+      state: plans.state,
+      progress: plans.progress,
+      createdAt: plans.createdAt,
+      candidateCount: sql<number>`coalesce(jsonb_array_length(${plans.candidates}), 0)`.mapWith(Number),
+      bestErrorDeg: sql<number | null>`(${plans.candidates} -> 0 ->> 'errorDeg')::double precision`,
+    }).from(plans).where(eq(plans.sequenceId, sequenceId)).orderBy(desc(plans.createdAt), desc(plans.id)).limit(limit);
+    const out: PlanList = {
+      plans: rows.map((r) => ({
+        id: r.id,
+        state: r.state as Plan['state'],
+        progress: r.progress,
+        createdAt: r.createdAt.toISOString(),
+        candidateCount: r.candidateCount,
+        bestErrorDeg: r.bestErrorDeg === null ? null : Number(r.bestErrorDeg),
+      })),
+    };
+    res.json(out);
   });
 
   router.get('/:planId', validate({ params: planParams }), async (req, res) => {

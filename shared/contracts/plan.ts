@@ -5,6 +5,7 @@
  *
  * Endpoints (under /api, bearer token):
  * - POST /sequences/:sequenceId/plans          PlanRequest → 202 { planId }            (planner, admin)
+ * - GET  /sequences/:sequenceId/plans?limit=N   → PlanList (newest first)      (planner, admin)
  * - GET  /sequences/:sequenceId/plans/:planId  → Plan
  * Errors: `{ error: { code, message, field } }`.
  * Angles in degrees, times in seconds, rates in deg/s, timestamps ISO-8601 strings.
@@ -124,3 +125,32 @@ export type Plan = z.infer<typeof planSchema>;
 /** POST response. */
 export const planCreatedSchema = z.object({ planId: z.uuid() });
 export type PlanCreated = z.infer<typeof planCreatedSchema>;
+
+/** GET /sequences/:sequenceId/plans query. */
+export const planListQuerySchema = z.object({
+  /** Most plans to list, newest first (default 20); 1 asks for the latest only. */
+  limit: z.coerce.number({ error: 'limit must be a whole number' }).int('limit must be a whole number').min(1).max(100).default(20),
+});
+/** Plan list query (input shape). */
+export type PlanListQuery = z.input<typeof planListQuerySchema>;
+
+/** One plan in a sequence's list (no candidates: fetch the plan for those). */
+export const planSummarySchema = z.object({
+  id: z.uuid(),
+  state: z.enum(PLAN_STATES),
+  /** 0–1 while running. */
+  progress: z.number(),
+  createdAt: z.string(),
+  /** Ranked candidates stored (0 until done). */
+  candidateCount: z.number().int(),
+  /** Error to target of the best (rank 1) candidate on the nominal body, degrees (null until done, or when there is none). */
+  bestErrorDeg: z.number().nullable(),
+});
+export type PlanSummary = z.infer<typeof planSummarySchema>;
+
+/** GET /sequences/:sequenceId/plans */
+export const planListSchema = z.object({
+  /** Newest first. */
+  plans: z.array(planSummarySchema),
+});
+export type PlanList = z.infer<typeof planListSchema>;
