@@ -1,12 +1,13 @@
-import { useMutation, useQuery } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import type { Plan, PlanCreated, PlanRequest } from '@/shared/contracts/plan';
+import type { Plan, PlanCreated, PlanList, PlanRequest } from '@/shared/contracts/plan';
 import { apiFetch } from './client';
 
 /** Query keys of maneuver plans ("Suggest steps"). */
 export const planKeys = {
   all: ['plans'] as const,
   detail: (sequenceId: string, planId: string) => [...planKeys.all, sequenceId, planId] as const,
+  latest: (sequenceId: string) => [...planKeys.all, sequenceId, 'latest'] as const,
 };
 
 /** How often a queued or running plan is polled, ms. */
@@ -14,9 +15,25 @@ export const PLAN_POLL_MS = 1000;
 
 /** POST /api/sequences/:id/plans — queues a planning run; answers { planId }. */
 export function useStartPlanMutation(sequenceId: string) {
+  const client = useQueryClient();
   return useMutation({
     mutationFn: (request: PlanRequest) =>
       apiFetch<PlanCreated>(`/sequences/${encodeURIComponent(sequenceId)}/plans`, { method: 'POST', body: request }),
+    // The new plan is now the latest: a composer opened later must find it, not the cached older one.
+    onSuccess: () => client.invalidateQueries({ queryKey: planKeys.latest(sequenceId) }),
+  });
+}
+
+/**
+ * GET /api/sequences/:id/plans?limit=1 — the sequence's latest plan (summary, or null when none),
+ * so the composer shows a running or finished plan again after a reload. Always refetched on open.
+ */
+export function useLatestPlanQuery(sequenceId: string, enabled = true) {
+  return useQuery({
+    queryKey: planKeys.latest(sequenceId),
+    queryFn: async () => (await apiFetch<PlanList>(`/sequences/${encodeURIComponent(sequenceId)}/plans?limit=1`)).plans[0] ?? null,
+    enabled,
+    staleTime: 0,
   });
 }
 

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { usePlanQuery, useStartPlanMutation } from '@/components/api/use-plans';
+import { useLatestPlanQuery, usePlanQuery, useStartPlanMutation } from '@/components/api/use-plans';
 import { colors, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
@@ -31,10 +31,14 @@ export function spreadsText(s: DispersionSpreads): string {
 /**
  * "Suggest steps": starts a planning run on the server, shows its progress, then the ranked
  * candidates (cues, duration, error to target, 95th-percentile error, peak rate) with
- * "Use these steps", which replaces the composer's step list without saving.
+ * "Use these steps", which replaces the composer's step list without saving. On opening it shows
+ * the sequence's latest plan (still running or finished), so a reload loses nothing.
  */
 export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsProps) {
-  const [planId, setPlanId] = useState<string | null>(null);
+  // The plan started here; until then, the sequence's latest one from the server.
+  const [startedPlanId, setStartedPlanId] = useState<string | null>(null);
+  const latest = useLatestPlanQuery(sequenceId, startedPlanId === null);
+  const planId = startedPlanId ?? latest.data?.id ?? null;
   const start = useStartPlanMutation(sequenceId);
   const plan = usePlanQuery(sequenceId, planId);
   const state = plan.data?.state;
@@ -49,7 +53,7 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
           variant="secondary"
           size="sm"
           loading={busy}
-          onPress={() => start.mutate({}, { onSuccess: (r) => setPlanId(r.planId) })}
+          onPress={() => start.mutate({}, { onSuccess: (r) => setStartedPlanId(r.planId) })}
           testID="suggest-steps-button"
         />
         {busy ? (
@@ -59,12 +63,14 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
         ) : null}
       </View>
       <ErrorBanner title="Could not start the planner" error={start.error} />
+      <ErrorBanner title="Could not look up earlier suggestions" error={startedPlanId === null ? latest.error : null} />
       <ErrorBanner title="Could not read the plan" error={plan.error} />
       {state === 'failed' ? <ErrorBanner title="The planner failed" error={plan.data?.error ?? 'unknown error'} /> : null}
       {state === 'done' && plan.data ? (
         <View style={styles.list} role="list" aria-label="Suggested step lists">
           <Text variant="caption" tone="muted">
-            {plan.data.candidates.length} suggestion{plan.data.candidates.length === 1 ? '' : 's'} in {plan.data.elapsedS?.toFixed(1)} s, best first.
+            {plan.data.candidates.length} suggestion{plan.data.candidates.length === 1 ? '' : 's'} in {plan.data.elapsedS?.toFixed(1)} s, best first
+            {startedPlanId === null ? ` (requested ${new Date(plan.data.createdAt).toLocaleString()})` : ''}.
           </Text>
           {plan.data.candidates.map((c) => (
             <CandidateCard key={c.rank} candidate={c} toleranceDeg={toleranceDeg} onUse={() => onUse(c.primitives)} />
