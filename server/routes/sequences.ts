@@ -23,6 +23,7 @@ import { badRequest, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
 import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
 import { compareVersions } from '../maneuvers/compare-versions.ts';
+import { cueCardRouter } from './cue-card.ts';
 import { sequencePlansRouter } from './sequence-plans.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
 import { subscribeToProfileChanges } from '../maneuvers/flag-recheck.ts';
@@ -117,6 +118,7 @@ export function sequencesRouter(ctx: AppContext): Router {
     res.json(compareVersions(a, b));
   });
 
+  router.use(cueCardRouter(ctx));
   router.use('/:sequenceId/plans', sequencePlansRouter(ctx));
 
   router.get('/:sequenceId', validate({ params: sequenceParams }), async (req, res) => {

@@ -1,0 +1,145 @@
+/**
+ * What a printed cue card says, assembled from a version as the API shows it (pure: no database,
+ * no PDF). The steps are the compiled steps the rehearsal player counts, each with the cue of the
+ * primitive it came from, so the card's step numbers match the player's.
+ */
+import type { SequenceTarget, VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { Sequence } from '../../shared/contracts/sequence.ts';
+import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
+import { HttpError } from '../http/http-error.ts';
+import { stepTimeline } from '../motion/step-timeline.ts';
+import { CUE_CARD_CAUTIONS } from './cue-card-cautions.ts';
+import { cueCardFileName } from './cue-card-file-name.ts';
+
+/** One printed step. */
+export interface CueCardStep {
+  /** 1-based, as the rehearsal player numbers steps. */
+  number: number;
+  /** Start and duration, seconds from the sequence start. */
+  startS: number;
+  durationS: number;
+  /** Plain-language cue, capitalised. */
+  cue: string;
+}
+
+/** Everything printed on one card; angles in degrees, times in seconds, timestamps ISO-8601. */
+export interface CueCardContent {
+  /** The product mark, lower case as the app writes it. */
+  productMark: 'holonaut';
+  /** Card title. */
+  title: string;
+  sequenceName: string;
+  /** Version number within the sequence. */
+  version: number;
+  crewMemberName: string;
+  /** The crew member's call sign; null when none is on file. */
+  callSign: string | null;
+  /** Number of the bound profile version. */
+  profileVersion: number;
+  /** Always "Cleared": only cleared versions get a card. */
+  statusLabel: 'Cleared';
+  clearedByName: string | null;
+  clearedAt: string | null;
+  /** Engine version with its source hash cut to 8 characters ("1.4.0+ab12cd34"), or null. */
+  engineVersionShort: string | null;
+  /** First 12 hex digits of the inputs hash, or null. */
+  inputsHashShort: string | null;
+  /** The target in words, e.g. "yaw 90°, pitch 0°, roll 0°" or "60° about [0, 0, 1]". */
+  targetText: string;
+  toleranceDeg: number;
+  /** What the verified run reaches; null when the version has no report. */
+  reached: {
+    /** Yaw/pitch/roll reached, in words. */
+    attitudeText: string;
+    /** Rotation angle between reached and target attitude, degrees. */
+    errorDeg: number;
+    withinTolerance: boolean;
+    durationS: number;
+  } | null;
+  /** Peak joint rate against the sequence's limit; null without a report. */
+  peakJointRate: { maxDegS: number; dofLabel: string | null; limitDegS: number; withinLimit: boolean } | null;
+  steps: CueCardStep[];
+  cautions: readonly string[];
+  /** Download name (sanitised). */
+  fileName: string;
+}
+
+const deg = (v: number, digits = 0) => `${Number(v.toFixed(digits))}°`;
+
+/** The target in words (no tolerance: printed beside it). */
+export function targetWords(t: SequenceTarget): string {
+  if (t.mode === 'ypr') return `yaw ${deg(t.yprDeg.yaw)}, pitch ${deg(t.yprDeg.pitch)}, roll ${deg(t.yprDeg.roll)}`;
+  return `${deg(t.axisAngle.angleDeg)} about [${t.axisAngle.axis.map((a) => Number(a.toFixed(2))).join(', ')}]`;
+}
+
+/** Whether a stored step has the fields the timeline reads (kind and finite times). */
+function isTimedStep(s: unknown): boolean {
+  if (!s || typeof s !== 'object') return false;
+  const o = s as Record<string, unknown>;
+  const finite = (k: string) => typeof o[k] === 'number' && Number.isFinite(o[k]);
+  if (o.kind === 'harmonic') return finite('cycles') && finite('period') && !!o.joints && typeof o.joints === 'object';
+  if (o.kind === 'move') return finite('duration') && !!o.to && typeof o.to === 'object';
+  return o.kind === 'hold' && finite('duration');
+}
+
+/** One cue per compiled step from the primitive cues and the step map ("get ready: …" on joining blends). */
+function compiledStepCues(v: VersionDetail): (string | undefined)[] {
+  return v.stepMap.map((origin) => {
+    const cue = v.cues[origin.primitive];
+    if (!cue) return undefined;
+    return origin.role === 'blend' ? `get ready: ${cue}` : cue;
+  });
+}
+
+/** Engine version shortened for print: the semver plus the first 8 characters of the source hash. */
+function shortEngine(v: string | null): string | null {
+  if (!v) return null;
+  const [semver, hash] = v.split('+');
+  return hash ? `${semver}+${hash.slice(0, 8)}` : semver;
+}
+
+/**
+ * The card for a cleared version. Throws HttpError 409 `not_cleared` for any other status and
+ * 422 `cue_card_invalid` naming the step when a stored step cannot be timed.
+ */
+export function cueCardContent(v: VersionDetail, crew: { callSign: string | null }): CueCardContent {
+  if (v.status !== 'cleared') {
+    throw new HttpError(409, 'not_cleared', `Only cleared versions have a cue card; version ${v.version} is ${v.status.replace('_', ' ')}.`);
+  }
+  const bad = v.compiled.steps.findIndex((s) => !isTimedStep(s));
+  if (bad >= 0) throw new HttpError(422, 'cue_card_invalid', `Step ${bad + 1} of version ${v.version} cannot be read for a cue card.`);
+  const timeline = stepTimeline(v.compiled as unknown as Sequence, compiledStepCues(v));
+  const r = v.report;
+  const target = v.sequence.target;
+  return {
+    productMark: 'holonaut',
+    title: 'Cue card',
+    sequenceName: v.sequence.name,
+    version: v.version,
+    crewMemberName: v.sequence.crewMemberName,
+    callSign: crew.callSign?.trim() || null,
+    profileVersion: v.profileVersion,
+    statusLabel: 'Cleared',
+    clearedByName: v.clearedByName,
+    clearedAt: v.clearedAt,
+    engineVersionShort: shortEngine(v.engineVersion ?? r?.engineVersion ?? null),
+    inputsHashShort: (v.inputsHash ?? r?.inputsHash)?.slice(0, 12) ?? null,
+    targetText: targetWords(target),
+    toleranceDeg: target.toleranceDeg,
+    reached: r ? {
+      attitudeText: `yaw ${deg(r.final.yprDeg.yaw, 1)}, pitch ${deg(r.final.yprDeg.pitch, 1)}, roll ${deg(r.final.yprDeg.roll, 1)}`,
+      errorDeg: r.target.errorDeg,
+      withinTolerance: r.target.withinTolerance,
+      durationS: r.durationS,
+    } : null,
+    peakJointRate: r ? {
+      maxDegS: r.peakJointRate.maxDegS,
+      dofLabel: r.peakJointRate.dof ? (isDofName(r.peakJointRate.dof) ? DOF_LABELS[r.peakJointRate.dof].replace(/ \(.*\)$/, '') : r.peakJointRate.dof) : null,
+      limitDegS: r.peakJointRate.limitDegS,
+      withinLimit: r.peakJointRate.withinLimit,
+    } : null,
+    steps: timeline.map((s) => ({ number: s.index + 1, startS: s.start, durationS: s.end - s.start, cue: s.cue })),
+    cautions: CUE_CARD_CAUTIONS,
+    fileName: cueCardFileName(v.sequence.name, v.version),
+  };
+}

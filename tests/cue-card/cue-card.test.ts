@@ -1,0 +1,138 @@
+/**
+ * The printable cue card: content assembled from a seeded cleared version (every step's cue, the
+ * target, the cautions), the download route's access rules, and the PDF itself read back with
+ * poppler's pdftotext (Debian package poppler-utils), a general-purpose PDF reader outside the project.
+ */
+import { execFileSync } from 'node:child_process';
+
+import { and, eq } from 'drizzle-orm';
+import request from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { auditEvents, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
+import { cueCardContent } from '../../server/cue-card/cue-card-content.ts';
+import { cueCardFileName } from '../../server/cue-card/cue-card-file-name.ts';
+import { loadVersionDetail } from '../../server/maneuvers/version-detail.ts';
+import type { SessionUser } from '../../shared/contracts/auth.ts';
+import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+const TAMSIN = 'tamsin.reed@lumen.example.test';
+const BRAM = 'bram.kettle@lumen.example.test';
+const PLANNER = 'orrin.vale@lumen.example.test';
+
+let t: TestApp;
+/** Ids of seeded versions: Reed's cleared "Cabin yaw with hip swirls", her drafting "Roll trim…", Kettle's cleared one. */
+let cleared: string, drafting: string, kettles: string;
+
+/** The id of the seeded version of `name` in `status`. */
+async function versionOf(name: string, status: 'cleared' | 'drafting'): Promise<string> {
+  const [row] = await t.ctx.db.select({ id: sequenceVersions.id }).from(sequenceVersions)
+    .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
+    .where(and(eq(sequences.name, name), eq(sequenceVersions.status, status)));
+  if (!row) throw new Error(`seed has no ${status} version of ${name}`);
+  return row.id;
+}
+
+beforeAll(async () => {
+  t = await startTestApp();
+  cleared = await versionOf('Cabin yaw with hip swirls', 'cleared');
+  drafting = await versionOf('Roll trim with one-arm loops', 'drafting');
+  kettles = await versionOf('Spacewalk pitch-over with leg pedalling', 'cleared');
+}, 120_000);
+afterAll(async () => {
+  await t?.close();
+});
+
+const download = async (email: string, versionId: string) =>
+  request(t.app).get(`/api/sequences/versions/${versionId}/cue-card.pdf`).set('Authorization', `Bearer ${await t.tokenForEmail(email)}`)
+    .buffer(true).parse((res, cb) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+
+/** The text of a PDF as poppler reads it (layout kept, so a row's words stay on one line). */
+const pdfText = (pdf: Buffer) => execFileSync('pdftotext', ['-layout', '-', '-'], { input: pdf }).toString('utf8');
+
+const admin: SessionUser = { id: '00000000-0000-0000-0000-000000000001', role: 'admin', name: 'Test', email: 'a@example.test', crewMemberId: null };
+
+describe('cue card content (pure assembly from the version)', () => {
+  it('lists every compiled step with its primitive’s cue, the target, the reached result and the cautions', async () => {
+    const v = await loadVersionDetail(t.ctx.db, admin, cleared);
+    const card = cueCardContent(v, { callSign: 'HERON' });
+    expect(card.sequenceName).toBe('Cabin yaw with hip swirls');
+    expect(card.crewMemberName).toBe('Tamsin Reed');
+    expect(card.callSign).toBe('HERON');
+    expect(card.statusLabel).toBe('Cleared');
+    expect(card.clearedByName).toBe(DEMO_PEOPLE.find((p) => p.role === 'reviewer')!.name);
+    // One printed step per compiled step, each carrying the cue of the primitive it came from.
+    expect(card.steps).toHaveLength(v.compiled.steps.length);
+    v.stepMap.forEach((origin, i) => {
+      expect(card.steps[i].number).toBe(i + 1);
+      expect(card.steps[i].cue.toLowerCase()).toContain(cueFor(v.primitives[origin.primitive]).toLowerCase());
+    });
+    for (const p of v.primitives) expect(card.steps.some((s) => s.cue.toLowerCase().includes(cueFor(p).toLowerCase()))).toBe(true);
+    // Step times follow the step map and add up to the engine's duration in the stored report.
+    card.steps.forEach((s, i) => expect(s.startS).toBeCloseTo(v.stepMap[i].startS, 9));
+    expect(card.steps.reduce((sum, s) => sum + s.durationS, 0)).toBeCloseTo(v.report!.durationS, 6);
+    // Target: the seed's yaw/pitch/roll in whole degrees.
+    const target = v.sequence.target;
+    if (target.mode !== 'ypr') throw new Error('seeded target is yaw/pitch/roll');
+    expect(card.targetText).toBe(`yaw ${target.yprDeg.yaw}°, pitch ${target.yprDeg.pitch}°, roll ${target.yprDeg.roll}°`);
+    expect(card.reached?.errorDeg).toBe(v.report!.target.errorDeg);
+    expect(card.peakJointRate?.limitDegS).toBe(target.rateLimitDegS);
+    // DESIGN.md "Cautions shown in the product".
+    const cautions = card.cautions.join(' ');
+    for (const words of ['planning and training aid', 'flight rules', 'tethering rules', 'certified procedures', 'injury risk', 'uncertainty']) {
+      expect(cautions).toContain(words);
+    }
+    expect(card.engineVersionShort).toBe(v.engineVersion!.split('+')[0] + '+' + v.engineVersion!.split('+')[1].slice(0, 8));
+    expect(card.inputsHashShort).toBe(v.inputsHash!.slice(0, 12));
+  });
+
+  it('refuses a version that is not cleared (409 not_cleared)', async () => {
+    const v = await loadVersionDetail(t.ctx.db, admin, drafting);
+    expect(() => cueCardContent(v, { callSign: null })).toThrow(expect.objectContaining({ status: 409, code: 'not_cleared' }));
+  });
+
+  it('names the file from the sequence name, with only letters, digits and hyphens', () => {
+    expect(cueCardFileName('Cabin yaw with hip swirls', 1)).toBe('cabin-yaw-with-hip-swirls-v1-cue-card.pdf');
+    expect(cueCardFileName('Ré-entry "drill" / A\\B;\r\n', 12)).toBe('re-entry-drill-a-b-v12-cue-card.pdf');
+    expect(cueCardFileName('???', 3)).toBe('sequence-v3-cue-card.pdf');
+  });
+});
+
+describe('GET /api/sequences/versions/:versionId/cue-card.pdf', () => {
+  it('sends the trainee a PDF of her own cleared version that reads back with the sequence name and its cues', async () => {
+    const res = await download(TAMSIN, cleared);
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toBe('application/pdf');
+    expect(res.headers['content-disposition']).toBe('attachment; filename="cabin-yaw-with-hip-swirls-v1-cue-card.pdf"');
+    const pdf = res.body as Buffer;
+    // PDF 1.x file structure (ISO 32000-1:2008, 7.5.2 header, 7.5.5 trailer).
+    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    expect(pdf.subarray(-6).toString('latin1')).toMatch(/%%EOF\s*$/);
+    const text = pdfText(pdf).replace(/\s+/g, ' ');
+    expect(text).toContain('Cabin yaw with hip swirls');
+    expect(text).toContain('HERON');
+    expect(text).toMatch(/legs together and straight, small hip circles/i);
+    expect(text).toContain('injury risk');
+    const audits = await t.ctx.db.select().from(auditEvents).where(and(eq(auditEvents.action, 'cue_card.download'), eq(auditEvents.objectId, cleared)));
+    expect(audits.length).toBeGreaterThanOrEqual(1);
+  });
+
+  it('gives a planner the card too, and 409 not_cleared for a drafting version', async () => {
+    expect((await download(PLANNER, cleared)).status).toBe(200);
+    const res = await request(t.app).get(`/api/sequences/versions/${drafting}/cue-card.pdf`).set('Authorization', `Bearer ${await t.tokenForEmail(PLANNER)}`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('not_cleared');
+  });
+
+  it('hides another crew member’s version from a trainee (404) and refuses anyone signed out (401)', async () => {
+    expect((await download(TAMSIN, kettles)).status).toBe(404);
+    expect((await download(BRAM, kettles)).status).toBe(200);
+    expect((await request(t.app).get(`/api/sequences/versions/${cleared}/cue-card.pdf`)).status).toBe(401);
+  });
+});
