@@ -4,6 +4,7 @@ import { colors, radii, spacing } from '@/components/theme';
 import { Icon, type IconName } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import type { VersionDetail } from '@/shared/contracts/maneuver';
+import { CueCardButton } from './CueCardButton';
 import { fmtDeg, fmtWhen } from './report/format';
 
 /** Props of {@link VersionStatusNotice}. */
@@ -57,6 +58,7 @@ export function VersionStatusNotice({ version: v, forReviewer = false }: Version
       <Text variant="caption" style={styles.text}>
         {text}
       </Text>
+      {v.status === 'cleared' ? <CueCardButton versionId={v.id} /> : null}
     </View>
   );
 }

@@ -11,6 +11,7 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
 import { Text } from '@/components/ui/Text';
+import { CueCardButton } from '@/components/maneuvers/CueCardButton';
 import { LazyPlayer } from './LazyPlayer';
 import { RehearsalHistory } from './RehearsalHistory';
 import { RehearsalLogForm } from './RehearsalLogForm';
@@ -52,7 +53,12 @@ export function RehearsalSession({ versionId }: RehearsalSessionProps) {
     <Screen
       title={version.sequenceName}
       subtitle={`Version ${version.version} · target ${version.targetLabel} · ${version.duration.toFixed(1)} s · ${version.stepCount} steps`}
-      actions={!stale ? <Button label="Play in 3D" icon="play" onPress={() => setPlaying(true)} /> : undefined}
+      actions={!stale ? (
+        <>
+          <CueCardButton versionId={versionId} />
+          <Button label="Play in 3D" icon="play" onPress={() => setPlaying(true)} />
+        </>
+      ) : undefined}
     >
       <View style={styles.col}>
         {stale ? (
