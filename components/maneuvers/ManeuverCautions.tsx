@@ -3,13 +3,9 @@ import { StyleSheet, View } from 'react-native';
 import { colors, radii, spacing } from '@/components/theme';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
+import { MANEUVER_CAUTIONS } from '@/shared/product/cautions';
 
-/** The cautions that apply to every maneuver report (DESIGN.md "Cautions shown in the product"). */
-export const MANEUVER_CAUTIONS = [
-  'A planning and training aid only: follow the program’s flight rules, tethering rules and certified procedures.',
-  'Suited shoulder motion near its range limits is an injury risk: keep margins to the limits.',
-  'Figures come from regression models of body segments and carry uncertainty: see the dispersion result before relying on a sequence.',
-] as const;
+export { MANEUVER_CAUTIONS };
 
 /** Props of {@link ManeuverCautions}. */
 export interface ManeuverCautionsProps {

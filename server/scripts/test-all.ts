@@ -4,7 +4,7 @@
  *   1. typecheck (tsc --noEmit) and lint (eslint), one check each;
  *   2. unit and integration tests (vitest, real PostgreSQL in a throwaway cluster);
  *   3. web build (expo export), then browser e2e (Playwright in Debian's Chromium).
- * Installs Debian's chromium with apt-get when it is missing (never a downloaded browser).
+ * Installs Debian's chromium and poppler-utils with apt-get when missing (never a downloaded browser).
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
@@ -33,13 +33,19 @@ function run(cmd: string, args: string[], env: Record<string, string> = {}): num
   return res.status ?? 1;
 }
 
-function ensureChromium() {
-  if (existsSync('/usr/bin/chromium')) return;
-  if (process.getuid?.() !== 0) throw new Error('Debian chromium is missing: sudo apt-get install -y chromium');
-  console.log('Installing Debian chromium (apt-get)…');
+/** Installs Debian packages whose program is missing: chromium (e2e) and poppler-utils (pdftotext reads cue cards). */
+function ensureDebianTools() {
+  const wanted = [
+    { program: '/usr/bin/chromium', pkg: 'chromium' },
+    { program: '/usr/bin/pdftotext', pkg: 'poppler-utils' },
+  ].filter((t) => !existsSync(t.program));
+  if (!wanted.length) return;
+  const pkgs = wanted.map((t) => t.pkg);
+  if (process.getuid?.() !== 0) throw new Error(`Missing Debian packages: sudo apt-get install -y ${pkgs.join(' ')}`);
+  console.log(`Installing Debian ${pkgs.join(', ')} (apt-get)…`);
   const env = { DEBIAN_FRONTEND: 'noninteractive' };
-  if (run('apt-get', ['update', '-qq'], env) !== 0 || run('apt-get', ['install', '-y', '-qq', 'chromium'], env) !== 0) {
-    throw new Error('apt-get install chromium failed');
+  if (run('apt-get', ['update', '-qq'], env) !== 0 || run('apt-get', ['install', '-y', '-qq', ...pkgs], env) !== 0) {
+    throw new Error(`apt-get install ${pkgs.join(' ')} failed`);
   }
 }
 
@@ -47,7 +53,7 @@ interface VitestJson { numPassedTests: number; numFailedTests: number; numTotalT
 interface PlaywrightJson { stats: { expected: number; unexpected: number; flaky: number; skipped: number } }
 
 ensurePostgresBinaries((s) => console.log(s));
-ensureChromium();
+ensureDebianTools();
 
 const ok = (code: number) => (code === 0 ? 1 : 0);
 const typecheck = run('npx', ['tsc', '--noEmit', '-p', '.']);
