@@ -2,6 +2,8 @@
 import { useLayoutEffect, useMemo } from 'react';
 import { BufferGeometry, Float32BufferAttribute, PointsMaterial } from 'three';
 
+import { seededRandom } from '@/shared/math/seeded-random';
+
 import { scenePalette } from './scene-palette';
 
 /** Number of stars. */
@@ -9,25 +11,14 @@ const STAR_COUNT = 700;
 /** Star sphere radius, m. */
 const STAR_RADIUS = 40;
 
-/** Deterministic pseudo-random numbers (mulberry32), so the sky is the same on every visit. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 /**
  * The inertial frame made visible: a fixed star field and a square grid (the cabin deck plane,
  * 1.3 m below the centre of mass), both in three.js's world coordinates (y up = inertial z).
  */
 export function InertialBackdrop() {
   const stars = useMemo(() => {
-    const rnd = mulberry32(20251);
+    // Seeded, so the sky is the same on every visit.
+    const rnd = seededRandom(20251);
     const p: number[] = [];
     for (let i = 0; i < STAR_COUNT; i++) {
       // Uniform on the sphere.

@@ -11,7 +11,7 @@ import type { Quat } from '../../shared/math/quaternion.ts';
 import { evaluateSequence } from './evaluate-steps.ts';
 import { perturbBody } from './perturb-body.ts';
 import { perturbSequence } from './perturb-sequence.ts';
-import { seededRandom, symmetricUnit } from './seeded-random.ts';
+import { seededRandom, symmetricUnit } from '../../shared/math/seeded-random.ts';
 
 /** Inputs of one dispersion run. */
 export interface DispersionInputs {
