@@ -15,6 +15,7 @@ import type { Body } from '../../shared/contracts/body.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { eventually } from '../support/eventually.ts';
 import { PEOPLE, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
 
 let t: TestApp;
@@ -34,16 +35,6 @@ afterAll(async () => {
 const DEG = 180 / Math.PI;
 const quat = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
 
-/** Polls until `check` returns a value (not undefined) or the time runs out. */
-async function eventually<T>(check: () => Promise<T | undefined>, timeoutMs = 40_000): Promise<T> {
-  const until = Date.now() + timeoutMs;
-  for (;;) {
-    const v = await check();
-    if (v !== undefined) return v;
-    if (Date.now() > until) throw new Error(`condition not met within ${timeoutMs} ms`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
 
 async function versionIn(status: 'cleared' | 'under_review' | 'drafting'): Promise<string> {
   const sequenceId = await createSequence(t, crew, `Recheck ${status}`);

@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEvents } from '../../db/schema/index.ts';
 import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { eventually } from '../support/eventually.ts';
 import { PEOPLE, as, crewOf } from '../maneuvers/maneuver-api.ts';
 
 let t: TestApp;
@@ -30,15 +31,6 @@ afterAll(async () => {
   await t?.close();
 });
 
-async function eventually<T>(check: () => Promise<T | undefined>, timeoutMs = 60_000): Promise<T> {
-  const until = Date.now() + timeoutMs;
-  for (;;) {
-    const v = await check();
-    if (v !== undefined) return v;
-    if (Date.now() > until) throw new Error(`condition not met within ${timeoutMs} ms`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
 
 describe('POST /api/sequences/:id/plans', () => {
   it('queues a plan that the worker completes with ranked candidates', async () => {

@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
 import type { Plan, PlanList } from '../../shared/contracts/plan.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { eventually } from '../support/eventually.ts';
 import { PEOPLE, as, crewOf } from '../maneuvers/maneuver-api.ts';
 
 let t: TestApp;
@@ -28,15 +29,6 @@ afterAll(async () => {
   await t?.close();
 });
 
-async function eventually<T>(check: () => Promise<T | undefined>, timeoutMs = 60_000): Promise<T> {
-  const until = Date.now() + timeoutMs;
-  for (;;) {
-    const v = await check();
-    if (v !== undefined) return v;
-    if (Date.now() > until) throw new Error(`condition not met within ${timeoutMs} ms`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
 
 async function list(query = ''): Promise<PlanList> {
   const res = await as(t, PEOPLE.planner).get(`/sequences/${sequenceId}/plans${query}`);
