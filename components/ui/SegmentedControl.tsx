@@ -1,6 +1,7 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
+import { FieldMessage } from './FieldMessage';
 import { Text } from './Text';
 import { webPressState } from './press-state';
 
@@ -64,11 +65,7 @@ export function SegmentedControl<V extends string>({
           );
         })}
       </View>
-      {error ? (
-        <Text variant="caption" tone="danger" role="alert">
-          {error}
-        </Text>
-      ) : null}
+      <FieldMessage error={error} />
     </View>
   );
 }

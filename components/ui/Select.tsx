@@ -1,6 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { colors, fonts, layout, radii, spacing } from '@/components/theme';
+import { FieldMessage } from './FieldMessage';
 import { Text } from './Text';
 
 /** One choice of a {@link Select}. */
@@ -60,15 +61,7 @@ export function Select<V extends string>({ label, options, value, onChange, plac
           </option>
         ))}
       </select>
-      {error ? (
-        <Text variant="caption" tone="danger" role="alert">
-          {error}
-        </Text>
-      ) : hint ? (
-        <Text variant="caption" tone="muted">
-          {hint}
-        </Text>
-      ) : null}
+      <FieldMessage error={error} hint={hint} />
     </View>
   );
 }

@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
 
 import { colors, fonts, layout, radii, spacing } from '@/components/theme';
+import { FieldMessage } from './FieldMessage';
 import { Text } from './Text';
 
 /** Props of {@link TextField}: React Native TextInput props plus a label, an optional unit, hint and error. */
@@ -54,15 +55,7 @@ export function TextField({ label, unit, hint, error, editable = true, onFocus, 
           </Text>
         ) : null}
       </View>
-      {error ? (
-        <Text variant="caption" tone="danger" role="alert">
-          {error}
-        </Text>
-      ) : hint ? (
-        <Text variant="caption" tone="muted">
-          {hint}
-        </Text>
-      ) : null}
+      <FieldMessage error={error} hint={hint} />
     </View>
   );
 }
