@@ -8,8 +8,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
 import type { Plan, PlanList } from '../../shared/contracts/plan.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { createQuarterTurnSequence } from './quarter-turn-sequence.ts';
 import { eventually } from '../support/eventually.ts';
-import { PEOPLE, as, crewOf } from '../maneuvers/maneuver-api.ts';
+import { PEOPLE, as } from '../maneuvers/maneuver-api.ts';
 
 let t: TestApp;
 let jobs: RunningJobQueue | undefined;
@@ -17,12 +18,7 @@ let sequenceId: string;
 beforeAll(async () => {
   // No job queue yet: a requested plan stays queued until one starts.
   t = await startTestApp();
-  const crew = await crewOf(t, PEOPLE.trainee);
-  const res = await as(t, PEOPLE.planner).post('/sequences', {
-    crewMemberId: crew, name: 'Quarter turn (plan list test)', target: { mode: 'ypr', yprDeg: { yaw: 90, pitch: 0, roll: 0 }, toleranceDeg: 2 },
-  });
-  expect(res.status).toBe(201);
-  sequenceId = res.body.id;
+  sequenceId = await createQuarterTurnSequence(t, 'Quarter turn (plan list test)');
 }, 120_000);
 afterAll(async () => {
   await jobs?.stop();
