@@ -11,6 +11,7 @@ import { ACCESS_POLICY } from './auth/access-policy.ts';
 import { guard } from './auth/authenticate.ts';
 import { errorHandler } from './http/error-handler.ts';
 import { HttpError } from './http/http-error.ts';
+import { httpLogSerializers } from './logging/logger.ts';
 import { renderDevMailbox } from './mail/dev-mailbox-page.ts';
 import { API_AREAS } from './routes/api-routes.ts';
 import { authRouter } from './routes/auth.ts';
@@ -35,7 +36,7 @@ export function createApp(ctx: AppContext): Express {
       },
     }),
   );
-  app.use(pinoHttp({ logger: ctx.logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use(pinoHttp({ logger: ctx.logger, serializers: httpLogSerializers, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
   app.use(cookieParser());
   app.use(express.json({ limit: '2mb' }));
 

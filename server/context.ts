@@ -1,19 +1,20 @@
 import type pg from 'pg';
-import { pino } from 'pino';
+import type { DestinationStream } from 'pino';
 
 import { createDatabase } from '../db/client.ts';
 import type { AppContext } from './app-context.ts';
 import { TokenService } from './auth/tokens.ts';
 import type { Config } from './config.ts';
+import { createLogger } from './logging/logger.ts';
 import { createMailer } from './mail/mailer.ts';
 import type { ReceivedMail } from './mail/smtp-fake.ts';
 import { createObjectStore } from './storage/object-store.ts';
 
 /** Builds the app context from configuration; `close()` releases the pool and the mail transport. */
-export function createContext(config: Config, devMailbox?: readonly ReceivedMail[]): AppContext & { pool: pg.Pool; close: () => Promise<void> } {
+export function createContext(config: Config, devMailbox?: readonly ReceivedMail[], logDestination?: DestinationStream): AppContext & { pool: pg.Pool; close: () => Promise<void> } {
   const { db, pool } = createDatabase(config.DATABASE_URL);
   const mailer = createMailer(config);
-  const logger = pino({ level: config.LOG_LEVEL });
+  const logger = createLogger(config.LOG_LEVEL, logDestination);
   return {
     config,
     db,

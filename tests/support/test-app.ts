@@ -4,6 +4,7 @@ import path from 'node:path';
 
 import type { Express } from 'express';
 import type pg from 'pg';
+import type { DestinationStream } from 'pino';
 import request from 'supertest';
 
 import { seedDemo } from '../../db/seed/run-seed.ts';
@@ -35,7 +36,7 @@ export interface TestApp {
 /** Low bcrypt cost for speed: tests only; production refuses < 12 (server/config.ts). */
 export const TEST_BCRYPT_COST = 4;
 
-export async function startTestApp(opts: { seed?: boolean; env?: Record<string, string> } = {}): Promise<TestApp> {
+export async function startTestApp(opts: { seed?: boolean; env?: Record<string, string>; logDestination?: DestinationStream } = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   const mail = await startSmtpFake();
   const s3Dir = mkdtempSync(path.join(os.tmpdir(), 'hn-s3-'));
@@ -53,7 +54,7 @@ export async function startTestApp(opts: { seed?: boolean; env?: Record<string, 
     SIGNIN_RATE_LIMIT: '1000',
     ...opts.env,
   });
-  const ctx = createContext(config, mail.messages);
+  const ctx = createContext(config, mail.messages, opts.logDestination);
   if (opts.seed !== false) await seedDemo(ctx.db, TEST_BCRYPT_COST);
   const app = createApp(ctx);
   const tokens = new Map<string, string>();
