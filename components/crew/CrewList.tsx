@@ -35,7 +35,7 @@ export function CrewList({ selectedId, onSelect }: CrewListProps) {
           <ListRow
             key={m.id}
             title={m.name}
-            subtitle={[m.callSign, m.currentMass !== null ? `${fixed(m.currentMass, 1)} kg` : 'no profile yet', m.currentSuit].filter(Boolean).join(' · ')}
+            subtitle={[m.callSign, m.currentMass !== null ? `${fixed(m.currentMass, 1)} kg${m.currentSuit ? ' incl. suit' : ''}` : 'no profile yet', m.currentSuit].filter(Boolean).join(' · ')}
             leading={<Avatar name={m.name} />}
             trailing={m.currentVersion ? <Badge label={`v${m.currentVersion}`} tone="teal" /> : <Badge label="New" />}
             selected={m.id === selectedId}

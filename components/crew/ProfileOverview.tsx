@@ -54,7 +54,7 @@ export function ProfileOverview({ version }: { version: ProfileVersionView }) {
 
       <Card title="Whole body" subtitle="Reference posture (standing, arms at the sides), root-segment frame: x forward, y left, z up">
         <View style={styles.figures} aria-label="Whole-body figures">
-          <Figure label="Mass" value={fixed(s.mass, 2)} unit="kg" />
+          <Figure label={i.suit || i.gear?.length ? `Mass incl. ${i.suit && i.gear?.length ? 'suit and gear' : i.suit ? 'suit' : 'gear'}` : 'Mass'} value={fixed(s.mass, 1)} unit="kg" />
           <Figure label="Centre of mass" value={vector(s.com)} unit="m" />
           <Figure label="Principal moments I1, I2, I3" value={s.principalMoments.map((m) => moment(m)).join(', ')} unit="kg·m²" />
         </View>
@@ -93,6 +93,13 @@ export function ProfileOverview({ version }: { version: ProfileVersionView }) {
 
       <Card title="Segment table" subtitle="Each segment's mass, CoM in its own frame, and principal moments about its CoM" padding="none">
         <DataTable label="Derived segment table" columns={SEGMENT_COLUMNS} rows={s.segments} rowKey={(r) => r.name} />
+        {version.source !== 'measured' ? (
+          <Text variant="caption" tone="muted" style={styles.tableNote}>
+            Masses: de Leva (1996) Table 4 fractions at their published four places. Those fractions sum to 0.9999 for women
+            (1.0000 for men), so each segment gets its fraction divided by that sum: the rounding residue is spread over the
+            segments in proportion and the segments add up to exactly the entered body mass{i.suit || i.gear?.length ? ' (plus suit and gear)' : ''}.
+          </Text>
+        ) : null}
       </Card>
     </View>
   );
@@ -100,6 +107,7 @@ export function ProfileOverview({ version }: { version: ProfileVersionView }) {
 
 const styles = StyleSheet.create({
   stack: { gap: spacing.md },
+  tableNote: { padding: spacing.md },
   figures: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.lg, marginBottom: spacing.sm },
   figure: { gap: 2, minWidth: 140, paddingRight: spacing.md, borderRightWidth: 0, borderColor: colors.border },
 });

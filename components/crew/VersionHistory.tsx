@@ -38,7 +38,7 @@ export function VersionHistory({ crewMemberId }: { crewMemberId: string }) {
             <ListRow
               key={v.id}
               title={`Version ${v.version}${v.note ? ` — ${v.note}` : ''}`}
-              subtitle={`${v.authorName ?? 'Seed'} · ${formatDateTime(v.createdAt)} · ${fixed(v.mass, 2)} kg`}
+              subtitle={`${v.authorName ?? 'Seed'} · ${formatDateTime(v.createdAt)} · ${fixed(v.mass, 1)} kg total`}
               trailing={
                 <>
                   {v.source === 'measured' ? <Badge label="Measured" tone="accent" /> : null}

@@ -2,7 +2,7 @@ import type { Vec3 } from '../../shared/model/vec3.ts';
 import type { DofName } from '../../shared/model/dof-names.ts';
 import type { SegmentName } from '../../shared/model/segment-names.ts';
 import type { ProfileInputs } from '../../shared/contracts/profile-inputs.ts';
-import { DE_LEVA_TABLE_4, type DeLevaSegment } from './data/de-leva-1996-table4.ts';
+import { DE_LEVA_TABLE_4, type DeLevaSegment, type Sex } from './data/de-leva-1996-table4.ts';
 import { unsuitedDofs, type ModelDof } from './joints.ts';
 import { combineMassProperties, type MassProperties } from './mass-properties.ts';
 import { HEEL_BEHIND_ANKLE_PER_FOOT_LENGTH } from './proportions.ts';
@@ -18,6 +18,24 @@ export interface ModelSegment {
   props: MassProperties;
   /** Joint to the parent: origin in the parent frame (m) and dofs; undefined for the root. */
   joint?: { origin: Vec3; dofs: ModelDof[] };
+}
+
+/** The 14 segments of de Leva's model (trunk as upper, middle and lower trunk; limbs twice). */
+const MODEL_SEGMENTS: readonly DeLevaSegment[] = [
+  'head', 'upper_trunk', 'middle_trunk', 'lower_trunk',
+  'upper_arm', 'upper_arm', 'forearm', 'forearm', 'hand', 'hand',
+  'thigh', 'thigh', 'shank', 'shank', 'foot', 'foot',
+];
+
+/**
+ * Sum of the table's mass fractions over the model's segments. The published fractions are rounded
+ * to four places: they sum to 1.0000 for men and 0.9999 for women. Each segment's mass is its
+ * published fraction × body mass / this sum, so the residue (0.01 % for women) is spread over the
+ * segments in proportion to their fractions and the body weighs exactly what was entered.
+ */
+export function tableMassSum(sex: Sex): number {
+  const t = DE_LEVA_TABLE_4[sex];
+  return MODEL_SEGMENTS.reduce((sum, seg) => sum + t[seg].mass, 0);
 }
 
 /**
@@ -39,8 +57,10 @@ export interface ModelSegment {
 export function standardHumanSegments(inputs: ProfileInputs, g: SegmentGeometry): ModelSegment[] {
   const t = DE_LEVA_TABLE_4[inputs.sex];
   const L = g.lengths;
+  // the published fractions keep their precision; their rounding residue is spread in proportion
+  const massScale = inputs.mass / tableMassSum(inputs.sex);
   const part = (seg: DeLevaSegment, length: number, com: Vec3, longAxis: LongAxis = 'z'): MassProperties => {
-    const mass = t[seg].mass * inputs.mass;
+    const mass = t[seg].mass * massScale;
     return { mass, com, inertia: deLevaPrincipalInertia(t[seg], mass, length, longAxis) };
   };
   const zXyph = L.middleTrunk;
