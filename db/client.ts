@@ -5,9 +5,33 @@ import * as schema from './schema/index.ts';
 
 export type Database = NodePgDatabase<typeof schema>;
 
-/** A connection pool and the typed Drizzle handle over it. */
-export function createDatabase(url: string, max = 10): { db: Database; pool: pg.Pool } {
-  const pool = new pg.Pool({ connectionString: url, max });
+/** Options of createDatabase. */
+export interface DatabaseOptions {
+  /** Most connections the pool opens (default 10). */
+  max?: number;
+  /** Told about connection errors that no query is waiting for (a restart of the server, a dropped socket). */
+  onConnectionError?: (err: Error) => void;
+}
+
+/** How long a request waits for a connection before it fails (and answers 503), ms. */
+export const CONNECT_TIMEOUT_MS = 5_000;
+
+/**
+ * A connection pool and the typed Drizzle handle over it. Connection errors never become uncaught
+ * exceptions: a PostgreSQL restart ends every open connection, and the pool opens fresh ones once
+ * the server is back.
+ */
+export function createDatabase(url: string, opts: DatabaseOptions = {}): { db: Database; pool: pg.Pool } {
+  const { max = 10, onConnectionError = () => undefined } = opts;
+  const pool = new pg.Pool({ connectionString: url, max, connectionTimeoutMillis: CONNECT_TIMEOUT_MS });
+  // An idle client that loses its connection is reported here (unheard, it would crash the process).
+  pool.on('error', onConnectionError);
+  // pg-pool takes its idle listener off a checked-out client, so a connection that drops between
+  // the statements of a transaction would emit 'error' with nobody listening. The statement in
+  // flight rejects with the same error, so this listener only keeps the process alive.
+  pool.on('connect', (client) => {
+    client.on('error', () => undefined);
+  });
   const db = drizzle(pool, { schema });
   return { db, pool };
 }

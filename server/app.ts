@@ -10,6 +10,7 @@ import type { AppContext } from './app-context.ts';
 import { ACCESS_POLICY } from './auth/access-policy.ts';
 import { guard } from './auth/authenticate.ts';
 import { errorHandler } from './http/error-handler.ts';
+import { readiness } from './http/readiness.ts';
 import { HttpError } from './http/http-error.ts';
 import { httpLogSerializers } from './logging/logger.ts';
 import { renderDevMailbox } from './mail/dev-mailbox-page.ts';
@@ -40,9 +41,11 @@ export function createApp(ctx: AppContext): Express {
   app.use(cookieParser());
   app.use(express.json({ limit: '2mb' }));
 
+  // Liveness: the process answers. Readiness: the database answers and every migration is applied.
   app.get('/healthz', (_req, res) => {
     res.json({ ok: true });
   });
+  app.get('/readyz', readiness(ctx));
 
   // Public API: sign-in and invitation acceptance.
   app.use('/api/auth', authRouter(ctx));

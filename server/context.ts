@@ -12,9 +12,11 @@ import { createObjectStore } from './storage/object-store.ts';
 
 /** Builds the app context from configuration; `close()` releases the pool and the mail transport. */
 export function createContext(config: Config, devMailbox?: readonly ReceivedMail[], logDestination?: DestinationStream): AppContext & { pool: pg.Pool; close: () => Promise<void> } {
-  const { db, pool } = createDatabase(config.DATABASE_URL);
-  const mailer = createMailer(config);
   const logger = createLogger(config.LOG_LEVEL, logDestination);
+  const { db, pool } = createDatabase(config.DATABASE_URL, {
+    onConnectionError: (err) => logger.warn({ err: { message: err.message, code: (err as { code?: string }).code } }, 'database connection lost; the pool reconnects on demand'),
+  });
+  const mailer = createMailer(config);
   return {
     config,
     db,

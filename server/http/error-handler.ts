@@ -1,8 +1,17 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 
+import { DATABASE_RETRY_AFTER_S, isDatabaseUnavailable } from './database-unavailable.ts';
 import { HttpError } from './http-error.ts';
 import { zodToHttpError } from './validate.ts';
+
+/** The PostgreSQL error behind an error (drizzle wraps driver errors in DrizzleQueryError with `cause`). */
+function pgError(err: unknown): { code?: string; message?: string } | undefined {
+  for (let e = err, depth = 0; e && typeof e === 'object' && depth < 5; e = (e as { cause?: unknown }).cause, depth++) {
+    if (typeof (e as { code?: unknown }).code === 'string') return e as { code: string; message?: string };
+  }
+  return undefined;
+}
 
 /** Maps every error to the JSON error body; never leaks a stack trace. */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
@@ -11,9 +20,13 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   else if (err instanceof ZodError) httpError = zodToHttpError(err, 'body');
   else if (err?.type === 'entity.parse.failed') httpError = new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');
   else if (err?.type === 'entity.too.large') httpError = new HttpError(413, 'too_large', 'The request body is too large.');
-  else if (err?.code === 'P0001') httpError = new HttpError(409, 'immutable', String(err.message));
-  else if (err?.code === '23505') httpError = new HttpError(409, 'duplicate', 'That record already exists.');
-  else {
+  else if (pgError(err)?.code === 'P0001') httpError = new HttpError(409, 'immutable', String(pgError(err)?.message));
+  else if (pgError(err)?.code === '23505') httpError = new HttpError(409, 'duplicate', 'That record already exists.');
+  else if (isDatabaseUnavailable(err)) {
+    req.log?.warn({ err: { message: err?.message, code: pgError(err)?.code } }, 'database unavailable');
+    res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_S));
+    httpError = new HttpError(503, 'database_unavailable', `The database is unavailable for a moment. Try again in ${DATABASE_RETRY_AFTER_S} seconds.`);
+  } else {
     req.log?.error({ err }, 'unhandled error');
     httpError = new HttpError(500, 'internal', 'Something went wrong on the server. The error was logged.');
   }

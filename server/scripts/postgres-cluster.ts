@@ -10,6 +10,10 @@ export interface LocalCluster {
   port: number;
   /** Stops the server (fast shutdown); removes the folder too when it was throwaway. */
   stop: () => void;
+  /** Fault tests: stops the server (fast shutdown, every connection ends) and keeps the data. */
+  stopServer: () => void;
+  /** Fault tests: starts the stopped server again on the same port. */
+  startServer: () => void;
 }
 
 const PG_ROOT = '/usr/lib/postgresql';
@@ -95,7 +99,8 @@ export async function startLocalCluster(opts: ClusterOptions): Promise<LocalClus
   const port = await freePort();
   const serverOpts = [`-c listen_addresses=127.0.0.1`, `-p ${port}`, `-k ${sockDir}`];
   if (opts.throwaway) serverOpts.push('-c fsync=off', '-c synchronous_commit=off', '-c full_page_writes=off');
-  run('pg_ctl', ['-D', dataDir, '-l', path.join(opts.dir, 'server.log'), '-w', '-t', '30', '-o', serverOpts.join(' '), 'start']);
+  const startServer = () => run('pg_ctl', ['-D', dataDir, '-l', path.join(opts.dir, 'server.log'), '-w', '-t', '30', '-o', serverOpts.join(' '), 'start']);
+  startServer();
 
   const exists = spawnSync(path.join(bin, 'psql'), ['-h', '127.0.0.1', '-p', String(port), '-U', 'postgres', '-tAc', `SELECT 1 FROM pg_database WHERE datname='${opts.database}'`], { encoding: 'utf8' });
   if (exists.stdout.trim() !== '1') {
@@ -113,5 +118,11 @@ export async function startLocalCluster(opts: ClusterOptions): Promise<LocalClus
     }
     if (opts.throwaway) rmSync(opts.dir, { recursive: true, force: true });
   };
-  return { url: `postgres://postgres@127.0.0.1:${port}/${opts.database}`, port, stop };
+  return {
+    url: `postgres://postgres@127.0.0.1:${port}/${opts.database}`,
+    port,
+    stop,
+    stopServer: () => run('pg_ctl', ['-D', dataDir, '-m', 'fast', '-w', 'stop']),
+    startServer,
+  };
 }

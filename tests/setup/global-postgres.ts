@@ -20,7 +20,7 @@ export default async function setup(project: TestProject) {
   // Short path: the socket folder must stay under 107 bytes; /tmp is traversable by the postgres user.
   const dir = mkdtempSync(path.join(os.tmpdir(), 'hn-pg-'));
   const cluster = await startLocalCluster({ dir, database: 'holonaut_template', throwaway: true });
-  const { db, pool } = createDatabase(cluster.url, 2);
+  const { db, pool } = createDatabase(cluster.url, { max: 2 });
   await runMigrations(db);
   await pool.end();
   project.provide('pgTemplateUrl', cluster.url);
