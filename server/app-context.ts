@@ -26,4 +26,8 @@ export interface JobQueue {
   enqueueReverification(sequenceVersionIds: string[], toProfileVersionId: string): Promise<void>;
   /** Queues a planning run for a `plans` row (optional: queues without planning workers may omit it). */
   enqueuePlan?(planId: string): Promise<void>;
+  /** Queues the chunk jobs of a `robustness_runs` row that are not done yet. */
+  enqueueRobustness?(runId: string): Promise<void>;
+  /** Cancels a queued or running robustness run and its chunk jobs; false when it had already ended. */
+  cancelRobustness?(runId: string, reason: string): Promise<boolean>;
 }

@@ -39,6 +39,18 @@ export const configSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   /** Simulation time budget per request, ms. */
   SIMULATION_TIMEOUT_MS: z.coerce.number().int().min(100).default(20_000),
+  /** Background jobs one worker process runs at once (robustness chunks run in that many threads). */
+  WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
+  /**
+   * A running job's heartbeat period, seconds (pg-boss minimum 10). A job whose worker stops
+   * beating is retried once the supervisor next looks, so heartbeat + supervise interval + poll
+   * bounds how long work held by a dead process waits (under 60 s with the defaults).
+   */
+  JOB_HEARTBEAT_SECONDS: z.coerce.number().int().min(10).max(600).default(20),
+  /** How often the queue supervisor fails jobs whose heartbeat stopped, seconds. */
+  JOB_SUPERVISE_SECONDS: z.coerce.number().int().min(1).max(600).default(10),
+  /** How often a worker looks for due jobs (retries included), seconds. */
+  JOB_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(2),
 });
 
 export type Config = z.infer<typeof configSchema>;

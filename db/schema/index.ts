@@ -4,3 +4,4 @@ export * from './sequences.ts';
 export * from './uploads.ts';
 export * from './users.ts';
 export * from './plans.ts';
+export * from './robustness.ts';

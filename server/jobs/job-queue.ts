@@ -1,23 +1,27 @@
 /**
  * The PostgreSQL-backed job queue (pg-boss 12, in the app's own database): re-verification of
- * sequence versions after a profile change, and maneuver planning ("Suggest steps"). `startJobQueue` creates the queue and, unless told not
- * to, starts a worker in this process; more worker processes on more machines can call it too.
+ * sequence versions after a profile change, maneuver planning ("Suggest steps") and robustness-run
+ * chunks. The API process starts it without a worker (it only sends); worker processes
+ * (`npm run worker`, server/scripts/worker.ts) start it with one, on this machine or on others
+ * against the same PostgreSQL.
+ *
+ * No stuck work: every queue has heartbeats, so a job held by a process that died is retried once
+ * its heartbeat stops (heartbeat + supervisor interval, under a minute by default); the records a
+ * job fills (plans, re-verifications, robustness runs) are reconciled with their jobs on start and
+ * then periodically (reconcile-work.ts), so none stays `queued` or `running` without a job behind it.
  */
-import { eq } from 'drizzle-orm';
 import { PgBoss } from 'pg-boss';
 
-import { plans, reverifications } from '../../db/schema/index.ts';
 import type { AppContext, JobQueue } from '../app-context.ts';
+import { ALL_QUEUES, CHUNK_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT, ROBUSTNESS_CHUNK_QUEUE, type QueueName } from './queue-names.ts';
+import { reconcileWork } from './reconcile-work.ts';
 import { reverifyVersion, type ReverifyJob } from './reverify-version.ts';
+import { ChunkPool } from './robustness/chunk-pool.ts';
+import { cancelRobustnessRun, enqueueRobustnessChunks, runRobustnessChunk, type RobustnessChunkJob } from './robustness/robustness-runs.ts';
 import { runPlan, type PlanJob } from './run-plan.ts';
+import { Semaphore } from './semaphore.ts';
 
-/** Queue name of re-verification jobs. */
-export const REVERIFY_QUEUE = 'sequence-reverification';
-/** Retries after a failed attempt (so up to 1 + this many attempts), with exponential backoff from 2 s. */
-export const REVERIFY_RETRY_LIMIT = 3;
-
-/** Queue name of planning jobs. */
-export const PLAN_QUEUE = 'maneuver-planning';
+export { ALL_QUEUES, CHUNK_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT, ROBUSTNESS_CHUNK_QUEUE, type QueueName } from './queue-names.ts';
 
 /** A running queue: the JobQueue the routes use, plus shutdown. */
 export interface RunningJobQueue extends JobQueue {
@@ -25,60 +29,110 @@ export interface RunningJobQueue extends JobQueue {
   stop(): Promise<void>;
 }
 
-/** Options for startJobQueue. */
+/** Options for startJobQueue; the timing ones default to the configuration (server/config.ts). */
 export interface JobQueueOptions {
   /** Start a worker in this process (default true). */
   worker?: boolean;
+  /** Jobs this process runs at once (default WORKER_CONCURRENCY). */
+  concurrency?: number;
   /** Retry delay base, seconds (default 2; tests use 1). */
   retryDelayS?: number;
-  /** How often the worker looks for due jobs (retries included), seconds (default 2). */
+  /** How often the worker looks for due jobs (retries included), seconds (default JOB_POLL_SECONDS). */
   pollingIntervalS?: number;
+  /** Heartbeat period of a running job, seconds, ≥ 10 (default JOB_HEARTBEAT_SECONDS). */
+  heartbeatS?: number;
+  /** Supervisor and reconciliation interval, seconds (default JOB_SUPERVISE_SECONDS). */
+  superviseS?: number;
+  /** Reconcile records with their jobs at start and periodically (default: when a worker runs). */
+  reconcile?: boolean;
 }
 
-/** Starts pg-boss on the app database, creates the queue, optionally works it, and returns the handle. */
+/** Starts pg-boss on the app database, creates the queues, optionally works them, and returns the handle. */
 export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {}): Promise<RunningJobQueue> {
-  const boss = new PgBoss({ connectionString: ctx.config.DATABASE_URL, useListenNotify: true });
+  const { config } = ctx;
+  const heartbeatSeconds = opts.heartbeatS ?? config.JOB_HEARTBEAT_SECONDS;
+  const superviseS = opts.superviseS ?? config.JOB_SUPERVISE_SECONDS;
+  const poll = opts.pollingIntervalS ?? config.JOB_POLL_SECONDS;
+  const concurrency = opts.concurrency ?? config.WORKER_CONCURRENCY;
+  const worker = opts.worker !== false;
+  const boss = new PgBoss({
+    connectionString: config.DATABASE_URL,
+    useListenNotify: true,
+    // The supervisor fails (and so retries) jobs whose heartbeat stopped; it runs when both timers are due.
+    superviseIntervalSeconds: superviseS,
+    monitorIntervalSeconds: superviseS,
+  });
   boss.on('error', (err) => ctx.logger.error({ err }, 'job queue error'));
   await boss.start();
-  await boss.createQueue(REVERIFY_QUEUE, {
-    retryLimit: REVERIFY_RETRY_LIMIT,
-    retryDelay: opts.retryDelayS ?? 2,
-    retryBackoff: true,
-    notify: true,
-  });
-  // Planning is deterministic: no retries (run-plan.ts stores a failure on the plan instead).
-  await boss.createQueue(PLAN_QUEUE, { retryLimit: 0, notify: true });
-  if (opts.worker !== false) {
-    // NOTIFY wakes the worker for new jobs only; retries become due silently, so poll often in both modes.
-    const poll = opts.pollingIntervalS ?? 2;
-    await boss.work<ReverifyJob>(REVERIFY_QUEUE, { batchSize: 1, pollingIntervalSeconds: poll, notifyPollingIntervalSeconds: poll }, async (jobs) => {
-      for (const job of jobs) await reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT });
-    });
-    // A plan runs in its own worker thread; one at a time per process keeps a core for the API.
-    await boss.work<PlanJob>(PLAN_QUEUE, { batchSize: 1, pollingIntervalSeconds: poll, notifyPollingIntervalSeconds: poll }, async (jobs) => {
-      for (const job of jobs) await runPlan(ctx, job.data);
-    });
+  const retryDelay = opts.retryDelayS ?? 2;
+  const queueOptions = {
+    [REVERIFY_QUEUE]: { retryLimit: REVERIFY_RETRY_LIMIT, retryDelay, retryBackoff: true },
+    [PLAN_QUEUE]: { retryLimit: PLAN_RETRY_LIMIT, retryDelay: 1 },
+    [ROBUSTNESS_CHUNK_QUEUE]: { retryLimit: CHUNK_RETRY_LIMIT, retryDelay: 1 },
+  } satisfies Record<QueueName, object>;
+  for (const name of ALL_QUEUES) {
+    await boss.createQueue(name, { ...queueOptions[name], heartbeatSeconds, notify: true });
+    // A queue made by an older release keeps its old options unless updated (heartbeats included).
+    await boss.updateQueue(name, { ...queueOptions[name], heartbeatSeconds });
   }
-  const enqueueReverification = async (sequenceVersionIds: string[], toProfileVersionId: string) => {
-    for (const sequenceVersionId of sequenceVersionIds) {
-      await boss.send(REVERIFY_QUEUE, { sequenceVersionId, toProfileVersionId } satisfies ReverifyJob);
-    }
-  };
-  // Records flagged while no queue ran (or whose job was lost) get a job now; a duplicate job is harmless.
-  const waiting = await ctx.db.select().from(reverifications).where(eq(reverifications.state, 'queued'));
-  for (const r of waiting) await enqueueReverification([r.sequenceVersionId], r.toProfileVersionId);
-  const enqueuePlan = async (planId: string) => {
-    await boss.send(PLAN_QUEUE, { planId } satisfies PlanJob);
-  };
-  // Plans requested while no queue ran get a job now (run-plan.ts skips finished ones).
-  const queuedPlans = await ctx.db.select({ id: plans.id }).from(plans).where(eq(plans.state, 'queued'));
-  for (const p of queuedPlans) await enqueuePlan(p.id);
-  return {
+
+  const pool = worker ? new ChunkPool(concurrency) : null;
+  const slots = new Semaphore(concurrency);
+  let reconcileTimer: NodeJS.Timeout | null = null;
+  let stopping = false;
+
+  const handle: RunningJobQueue = {
     boss,
-    enqueueReverification,
-    enqueuePlan,
+    async enqueueReverification(sequenceVersionIds, toProfileVersionId) {
+      for (const sequenceVersionId of sequenceVersionIds) {
+        await boss.send(REVERIFY_QUEUE, { sequenceVersionId, toProfileVersionId } satisfies ReverifyJob);
+      }
+    },
+    async enqueuePlan(planId) {
+      await boss.send(PLAN_QUEUE, { planId } satisfies PlanJob);
+    },
+    async enqueueRobustness(runId) {
+      await enqueueRobustnessChunks(ctx, boss, runId);
+    },
+    async cancelRobustness(runId, reason) {
+      return cancelRobustnessRun(ctx, boss, runId, reason);
+    },
     async stop() {
+      stopping = true;
+      if (reconcileTimer) clearInterval(reconcileTimer);
       await boss.stop({ graceful: true, timeout: 10_000 });
+      await pool?.close();
     },
   };
+
+  if (worker) {
+    // NOTIFY wakes the worker for new jobs only; retries become due silently, so poll often in both modes.
+    // Each queue gets `concurrency` pollers; one semaphore keeps this process at `concurrency` jobs in all.
+    const workOptions = { batchSize: 1, localConcurrency: concurrency, pollingIntervalSeconds: poll, notifyPollingIntervalSeconds: poll };
+    await boss.work<ReverifyJob>(REVERIFY_QUEUE, workOptions, (jobs) => slots.run(async () => {
+      for (const job of jobs) await reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT });
+    }));
+    // A plan runs in its own worker thread.
+    await boss.work<PlanJob>(PLAN_QUEUE, workOptions, (jobs) => slots.run(async () => {
+      for (const job of jobs) await runPlan(ctx, job.data);
+    }));
+    await boss.work<RobustnessChunkJob>(ROBUSTNESS_CHUNK_QUEUE, workOptions, (jobs) => slots.run(async () => {
+      for (const job of jobs) await runRobustnessChunk(ctx, pool!, job.data, { signal: job.signal, attempt: job.retryCount, retryLimit: CHUNK_RETRY_LIMIT });
+    }));
+  }
+
+  if (opts.reconcile ?? worker) {
+    const sweep = async () => {
+      if (stopping) return;
+      try {
+        await reconcileWork(ctx, handle);
+      } catch (err) {
+        ctx.logger.error({ err }, 'reconciling background work failed');
+      }
+    };
+    await sweep();
+    reconcileTimer = setInterval(() => void sweep(), Math.max(1, superviseS) * 1000);
+    reconcileTimer.unref();
+  }
+  return handle;
 }

@@ -61,9 +61,11 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
         [report.final.attitude.w, report.final.attitude.x, report.final.attitude.y, report.final.attitude.z]) * DEG
       : null;
     await db.transaction(async (tx) => {
-      await tx.update(reverifications)
-        .set({ state: 'done', attitudeShiftDeg: shift, report, finishedAt: new Date() })
-        .where(eq(reverifications.id, record.id));
+      // Only while still open: a retried or duplicated job stores one result.
+      const stored = await tx.update(reverifications)
+        .set({ state: 'done', attitudeShiftDeg: shift, report, finishedAt: new Date(), error: null })
+        .where(and(eq(reverifications.id, record.id), ne(reverifications.state, 'done'))).returning({ id: reverifications.id });
+      if (!stored.length) return;
       await recordAudit(tx, {
         actorId: null, action: 'sequence_version.reverified', objectType: 'sequence_version', objectId: v.v.id,
         detail: { toProfileVersionId: profile.id, attitudeShiftDeg: shift, targetErrorDeg: report.target.errorDeg },

@@ -1,10 +1,11 @@
 /**
  * The planning job: runs the maneuver planner for one `plans` row on the body of the profile
  * version it was requested for, in a worker thread, storing progress (at most about once a second)
- * and finally the ranked candidates or the error. Not retried: the planner is deterministic, so a
- * failure would repeat.
+ * and finally the ranked candidates or the error. A planner failure is stored, not retried (the
+ * planner is deterministic, so it would repeat); the queue retries a plan whose worker died, and the
+ * final write happens only while the plan is still open, so a retried plan stores one result.
  */
-import { eq } from 'drizzle-orm';
+import { and, eq, inArray } from 'drizzle-orm';
 
 import { plans, profileVersions } from '../../db/schema/index.ts';
 import type { Body } from '../../shared/contracts/body.ts';
@@ -20,6 +21,9 @@ export interface PlanJob {
   planId: string;
 }
 
+const OPEN = ['queued', 'running'];
+const isOpen = (id: string) => and(eq(plans.id, id), inArray(plans.state, OPEN));
+
 /** Least time between progress writes, ms. */
 const PROGRESS_EVERY_MS = 1000;
 
@@ -27,9 +31,9 @@ const PROGRESS_EVERY_MS = 1000;
 export async function runPlan(ctx: AppContext, job: PlanJob): Promise<void> {
   const { db } = ctx;
   const [plan] = await db.select().from(plans).where(eq(plans.id, job.planId));
-  if (!plan || plan.state === 'done' || plan.state === 'failed') return; // unknown or a duplicate job
+  if (!plan || !OPEN.includes(plan.state)) return; // unknown, or a duplicate job of a finished plan
   const started = Date.now();
-  await db.update(plans).set({ state: 'running', startedAt: new Date(started), progress: 0, progressNote: 'starting', engineVersion: ENGINE_VERSION }).where(eq(plans.id, plan.id));
+  await db.update(plans).set({ state: 'running', startedAt: new Date(started), progress: 0, progressNote: 'starting', engineVersion: ENGINE_VERSION }).where(isOpen(plan.id));
 
   let lastWrite = 0;
   let pending: Promise<unknown> = Promise.resolve();
@@ -37,7 +41,7 @@ export async function runPlan(ctx: AppContext, job: PlanJob): Promise<void> {
     const now = Date.now();
     if (now - lastWrite < PROGRESS_EVERY_MS) return;
     lastWrite = now;
-    pending = pending.then(() => db.update(plans).set({ progress: fraction, progressNote: note }).where(eq(plans.id, plan.id)));
+    pending = pending.then(() => db.update(plans).set({ progress: fraction, progressNote: note }).where(isOpen(plan.id)));
   };
   try {
     const [profile] = await db.select().from(profileVersions).where(eq(profileVersions.id, plan.profileVersionId));
@@ -49,7 +53,8 @@ export async function runPlan(ctx: AppContext, job: PlanJob): Promise<void> {
     }, onProgress);
     await pending;
     await db.transaction(async (tx) => {
-      await tx.update(plans).set({ state: 'done', progress: 1, progressNote: 'done', candidates, finishedAt: new Date() }).where(eq(plans.id, plan.id));
+      const stored = await tx.update(plans).set({ state: 'done', progress: 1, progressNote: 'done', candidates, finishedAt: new Date() }).where(isOpen(plan.id)).returning({ id: plans.id });
+      if (!stored.length) return; // another attempt finished it first
       await recordAudit(tx, {
         actorId: null, action: 'plan.done', objectType: 'plan', objectId: plan.id,
         detail: { sequenceId: plan.sequenceId, candidates: candidates.length, bestErrorDeg: candidates[0]?.errorDeg ?? null, elapsedS: (Date.now() - started) / 1000 },
@@ -59,7 +64,7 @@ export async function runPlan(ctx: AppContext, job: PlanJob): Promise<void> {
     await pending.catch(() => {});
     const message = err instanceof Error ? err.message : String(err);
     ctx.logger.warn({ err, job }, 'planning failed');
-    await db.update(plans).set({ state: 'failed', error: message, finishedAt: new Date() }).where(eq(plans.id, plan.id));
-    await recordAudit(db, { actorId: null, action: 'plan.failed', objectType: 'plan', objectId: plan.id, detail: { sequenceId: plan.sequenceId, error: message } });
+    const stored = await db.update(plans).set({ state: 'failed', error: message, finishedAt: new Date() }).where(isOpen(plan.id)).returning({ id: plans.id });
+    if (stored.length) await recordAudit(db, { actorId: null, action: 'plan.failed', objectType: 'plan', objectId: plan.id, detail: { sequenceId: plan.sequenceId, error: message } });
   }
 }

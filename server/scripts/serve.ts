@@ -19,8 +19,8 @@ export async function serve(config: Config, opts: { seed: boolean; devMailbox?: 
   const ctx = createContext(config, opts.devMailbox);
   await runMigrations(ctx.db);
   const seeded = opts.seed ? await seedDemo(ctx.db, config.BCRYPT_COST) : false;
-  // The job queue and its worker run in this process (re-verification after profile changes).
-  const jobs = await startJobQueue(ctx);
+  // The API only sends jobs; worker processes (`npm run worker`, started by `npm start`) run them.
+  const jobs = await startJobQueue(ctx, { worker: false });
   ctx.jobs = jobs;
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {

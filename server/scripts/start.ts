@@ -1,8 +1,10 @@
 /**
  * `npm start`: runs the whole product on this machine with its demo data.
  * Starts PostgreSQL (installing Debian's package when missing), the SMTP and S3 fakes, migrates,
- * seeds the demo scenario, builds the web app when needed and serves it on 127.0.0.1.
+ * seeds the demo scenario, builds the web app when needed and serves it on 127.0.0.1 from the API
+ * process, and runs one worker process (the job queues) beside it. Ctrl-C stops both.
  */
+import { writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -12,6 +14,7 @@ import { ROLE_LABELS } from '../../shared/contracts/roles.ts';
 import { serve } from './serve.ts';
 import { startLocalServices } from './services.ts';
 import { ensureWebBuild } from './web-build.ts';
+import { startWorkerProcess, type WorkerProcess } from './worker-process.ts';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const dataDir = process.env.HOLONAUT_DATA_DIR ?? path.join(root, '.data');
@@ -26,6 +29,7 @@ async function main() {
     if (stopping) return;
     stopping = true;
     log('Shutting down…');
+    await worker?.stop().catch(() => undefined);
     await server?.close().catch(() => undefined);
     await services.stop();
     process.exit(code);
@@ -34,11 +38,18 @@ async function main() {
   process.on('SIGTERM', () => void stopAll(0));
 
   let server: Awaited<ReturnType<typeof serve>> | undefined;
+  let worker: WorkerProcess | undefined;
   try {
-    const config = loadConfig({ WEB_DIST: webDist, ...process.env, ...services.env });
+    const env = { WEB_DIST: webDist, ...process.env, ...services.env };
+    const config = loadConfig(env);
     server = await serve(config, { seed: true, devMailbox: services.mail.messages });
     log(server.seeded ? 'Seeded the demo scenario.' : 'Database already has data; demo seed skipped.');
-    log(`Holonaut is running at ${server.url}`);
+    log(`API process (pid ${process.pid}) is running at ${server.url}`);
+    // The worker starts after the API migrated the database (workers never migrate unasked).
+    worker = startWorkerProcess(root, env, { name: 'worker 1', log });
+    const workerEnv = path.join(dataDir, 'worker.env');
+    writeFileSync(workerEnv, Object.entries(services.env).map(([k, v]) => `${k}=${v}`).join('\n') + '\n', { mode: 0o600 });
+    log(`More worker processes against this database: set -a; . ${workerEnv}; set +a; npm run worker`);
     log(`Development mailbox (invitation links): ${server.url}/dev/mail`);
     log(`Demo accounts (password for all: ${DEMO_PASSWORD}):`);
     for (const p of DEMO_PEOPLE) log(`  ${ROLE_LABELS[p.role].padEnd(15)} ${p.email}`);

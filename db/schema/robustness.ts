@@ -1,0 +1,64 @@
+import { bigint, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+
+import { plans } from './plans.ts';
+import { sequenceVersions } from './sequences.ts';
+import { users } from './users.ts';
+
+/**
+ * One robustness run (a seeded Monte Carlo) of a sequence version or of a plan candidate, split into
+ * chunks that worker processes run as separate jobs; the figures are merged when the last chunk is in.
+ * `inputs` is the snapshot every chunk computes from (body, compiled sequence, target, tolerance), so
+ * a later edit elsewhere never mixes into a running run.
+ */
+export const robustnessRuns = pgTable(
+  'robustness_runs',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    sequenceVersionId: uuid('sequence_version_id').references(() => sequenceVersions.id),
+    planId: uuid('plan_id').references(() => plans.id),
+    candidateIndex: integer('candidate_index'),
+    // queued | running | done | failed | cancelled
+    state: text('state').notNull().default('queued'),
+    samples: integer('samples').notNull(),
+    chunkSize: integer('chunk_size').notNull(),
+    seed: bigint('seed', { mode: 'number' }).notNull(),
+    // RobustnessModel JSON.
+    model: jsonb('model').notNull(),
+    toleranceDeg: doublePrecision('tolerance_deg').notNull(),
+    // { body, sequence, target } JSON (RobustnessInputs without seed, model and tolerance).
+    inputs: jsonb('inputs').notNull(),
+    doneSamples: integer('done_samples').notNull().default(0),
+    // RobustnessFigures JSON once done.
+    figures: jsonb('figures'),
+    error: text('error'),
+    requestedBy: uuid('requested_by').references(() => users.id),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [index('robustness_runs_version').on(t.sequenceVersionId), index('robustness_runs_plan').on(t.planId), index('robustness_runs_state').on(t.state)],
+);
+
+/** One chunk of a run: samples [from, to); its per-sample results once done. */
+export const robustnessChunks = pgTable(
+  'robustness_chunks',
+  {
+    runId: uuid('run_id')
+      .notNull()
+      .references(() => robustnessRuns.id, { onDelete: 'cascade' }),
+    chunkIndex: integer('chunk_index').notNull(),
+    fromSample: integer('from_sample').notNull(),
+    toSample: integer('to_sample').notNull(),
+    // queued | running | done | failed | cancelled
+    state: text('state').notNull().default('queued'),
+    // RobustnessSample[] JSON once done.
+    results: jsonb('results'),
+    attempts: integer('attempts').notNull().default(0),
+    error: text('error'),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [primaryKey({ columns: [t.runId, t.chunkIndex] })],
+);
+
+export type RobustnessRunRow = typeof robustnessRuns.$inferSelect;
+export type RobustnessChunkRow = typeof robustnessChunks.$inferSelect;

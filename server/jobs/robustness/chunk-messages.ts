@@ -1,0 +1,13 @@
+/** Messages between the chunk pool and its threads. */
+import type { RobustnessInputs, RobustnessSample } from '../../planning/robustness.ts';
+
+export interface ChunkRequest {
+  id: number;
+  inputs: RobustnessInputs;
+  from: number;
+  to: number;
+}
+
+export type ChunkReply =
+  | { id: number; kind: 'done'; samples: RobustnessSample[] }
+  | { id: number; kind: 'failed'; message: string };

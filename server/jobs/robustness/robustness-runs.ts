@@ -1,0 +1,263 @@
+/**
+ * Robustness runs as background work: a run is split into chunks of samples, each chunk is a job any
+ * worker process may take, and the last chunk to finish merges every chunk's samples into the figures
+ * (summariseRobustness). Sample i is seeded by (seed, i), so the figures do not depend on the split.
+ *
+ * Exactly one result per run: a chunk's samples are written only while it is not done, under a lock
+ * on the run row, so a retried or duplicated chunk job changes nothing; a cancelled or failed run
+ * takes no more results. A chunk's worker checks its run's state every second and stops when the
+ * run was cancelled.
+ */
+import { and, asc, eq, inArray, notInArray, sql } from 'drizzle-orm';
+import type { PgBoss } from 'pg-boss';
+
+import type { Database } from '../../../db/client.ts';
+import { robustnessChunks, robustnessRuns, type RobustnessRunRow } from '../../../db/schema/index.ts';
+import type { Body } from '../../../shared/contracts/body.ts';
+import { sequenceTargetSchema } from '../../../shared/contracts/maneuver.ts';
+import { DEFAULT_ROBUSTNESS_MODEL, robustnessModelSchema, type RobustnessModel, type RobustnessState } from '../../../shared/contracts/robustness.ts';
+import type { RobustnessRun } from '../../../shared/contracts/robustness-run.ts';
+import { sequenceSchema, type Sequence } from '../../../shared/contracts/sequence.ts';
+import type { Quat } from '../../../shared/math/quaternion.ts';
+import type { AppContext } from '../../app-context.ts';
+import { recordAudit } from '../../audit/record-audit.ts';
+import { storedCompiled } from '../../maneuvers/stored-compiled.ts';
+import { targetQuat } from '../../maneuvers/target-attitude.ts';
+import type { LoadedVersion } from '../../motion/version-access.ts';
+import { summariseRobustness, type RobustnessFigures, type RobustnessInputs, type RobustnessSample } from '../../planning/robustness.ts';
+import { ROBUSTNESS_CHUNK_QUEUE } from '../queue-names.ts';
+import { ChunkAbortedError, type ChunkPool } from './chunk-pool.ts';
+
+/** Samples of a version's run unless asked otherwise. */
+export const DEFAULT_ROBUSTNESS_SAMPLES = 1000;
+/** Seed of a version's run unless asked otherwise (a fixed seed: the same version gives the same figures). */
+export const DEFAULT_ROBUSTNESS_SEED = 1;
+/** Samples per chunk job: small enough to spread over workers, large enough that a job's overhead is small. */
+export const DEFAULT_CHUNK_SIZE = 25;
+
+/** States in which a run or chunk may still change. */
+export const OPEN_STATES = ['queued', 'running'] as const;
+const CLOSED_STATES = ['done', 'failed', 'cancelled'];
+
+/** Job payload of one chunk. */
+export interface RobustnessChunkJob {
+  runId: string;
+  chunk: number;
+}
+
+/** The snapshot stored on the run. */
+interface StoredInputs {
+  body: Body;
+  sequence: Sequence;
+  target: Quat;
+}
+
+/** What a new run needs. */
+export interface NewRun {
+  sequenceVersionId?: string;
+  planId?: string;
+  candidateIndex?: number;
+  body: Body;
+  sequence: Sequence;
+  target: Quat;
+  toleranceDeg: number;
+  samples?: number;
+  seed?: number;
+  model?: RobustnessModel;
+  chunkSize?: number;
+  requestedBy?: string | null;
+}
+
+/** The inputs of a version's run: its compiled steps on the body of its profile version, toward its target. */
+export function versionRunInputs(v: LoadedVersion): Pick<NewRun, 'body' | 'sequence' | 'target' | 'toleranceDeg' | 'sequenceVersionId'> {
+  const target = sequenceTargetSchema.parse(v.target);
+  return {
+    sequenceVersionId: v.id,
+    body: v.body as Body,
+    sequence: sequenceSchema.parse(storedCompiled(v.compiled).sequence),
+    target: targetQuat(target),
+    toleranceDeg: target.toleranceDeg,
+  };
+}
+
+/** Inserts a run and its chunks (queued); returns the run id. Enqueue its chunks after the commit. */
+export async function createRobustnessRun(db: Database, run: NewRun): Promise<string> {
+  const samples = run.samples ?? DEFAULT_ROBUSTNESS_SAMPLES;
+  const chunkSize = Math.max(1, run.chunkSize ?? DEFAULT_CHUNK_SIZE);
+  const model = robustnessModelSchema.parse(run.model ?? DEFAULT_ROBUSTNESS_MODEL);
+  return db.transaction(async (tx) => {
+    const [row] = await tx.insert(robustnessRuns).values({
+      sequenceVersionId: run.sequenceVersionId ?? null,
+      planId: run.planId ?? null,
+      candidateIndex: run.candidateIndex ?? null,
+      samples,
+      chunkSize,
+      seed: run.seed ?? DEFAULT_ROBUSTNESS_SEED,
+      model,
+      toleranceDeg: run.toleranceDeg,
+      inputs: { body: run.body, sequence: run.sequence, target: run.target } satisfies StoredInputs,
+      requestedBy: run.requestedBy ?? null,
+    }).returning({ id: robustnessRuns.id });
+    const chunks = [];
+    for (let from = 0, i = 0; from < samples; from += chunkSize, i++) {
+      chunks.push({ runId: row.id, chunkIndex: i, fromSample: from, toSample: Math.min(samples, from + chunkSize) });
+    }
+    await tx.insert(robustnessChunks).values(chunks);
+    return row.id;
+  });
+}
+
+/** Sends a job for every chunk of the run that is still queued (a duplicate job is harmless). */
+export async function enqueueRobustnessChunks(ctx: AppContext, boss: PgBoss, runId: string, only?: number[]): Promise<void> {
+  const open = await ctx.db.select({ chunk: robustnessChunks.chunkIndex }).from(robustnessChunks)
+    .where(and(eq(robustnessChunks.runId, runId), eq(robustnessChunks.state, 'queued')))
+    .orderBy(asc(robustnessChunks.chunkIndex));
+  const wanted = only ? open.filter((c) => only.includes(c.chunk)) : open;
+  if (!wanted.length) return;
+  await boss.insert(ROBUSTNESS_CHUNK_QUEUE, wanted.map((c) => ({ data: { runId, chunk: c.chunk } satisfies RobustnessChunkJob })));
+}
+
+/** Runs one chunk job. Throws only for what a retry may fix (the process shutting down, the database). */
+export async function runRobustnessChunk(
+  ctx: AppContext, pool: ChunkPool, job: RobustnessChunkJob,
+  opts: { signal?: AbortSignal; attempt: number; retryLimit: number; checkEveryMs?: number },
+): Promise<void> {
+  const { db } = ctx;
+  const [run] = await db.select().from(robustnessRuns).where(eq(robustnessRuns.id, job.runId));
+  if (!run || CLOSED_STATES.includes(run.state)) return;
+  const [chunk] = await db.select().from(robustnessChunks)
+    .where(and(eq(robustnessChunks.runId, run.id), eq(robustnessChunks.chunkIndex, job.chunk)));
+  if (!chunk || chunk.state === 'done' || chunk.state === 'cancelled') return;
+
+  await db.update(robustnessChunks).set({ state: 'running', attempts: sql`${robustnessChunks.attempts} + 1`, error: null })
+    .where(and(eq(robustnessChunks.runId, run.id), eq(robustnessChunks.chunkIndex, chunk.chunkIndex), chunkOpen()));
+  await db.update(robustnessRuns).set({ state: 'running', startedAt: sql`coalesce(${robustnessRuns.startedAt}, now())` })
+    .where(and(eq(robustnessRuns.id, run.id), eq(robustnessRuns.state, 'queued')));
+
+  // Stop when the run is cancelled (checked here) or the queue takes the job away (its signal).
+  const stop = new AbortController();
+  const onJobAbort = () => stop.abort();
+  opts.signal?.addEventListener('abort', onJobAbort, { once: true });
+  const watch = setInterval(() => {
+    void db.select({ state: robustnessRuns.state }).from(robustnessRuns).where(eq(robustnessRuns.id, run.id))
+      .then(([r]) => { if (!r || CLOSED_STATES.includes(r.state)) stop.abort(); })
+      .catch(() => undefined);
+  }, opts.checkEveryMs ?? 1000);
+  watch.unref();
+
+  const stored = run.inputs as StoredInputs;
+  const inputs: RobustnessInputs = { ...stored, toleranceDeg: run.toleranceDeg, seed: run.seed, model: robustnessModelSchema.parse(run.model) };
+  let samples: RobustnessSample[];
+  try {
+    samples = await pool.run(inputs, chunk.fromSample, chunk.toSample, stop.signal);
+  } catch (err) {
+    if (err instanceof ChunkAbortedError) {
+      if (opts.signal?.aborted) throw new Error('the queue took this chunk back (its run was cancelled or its claim expired)');
+      return; // the run was cancelled or failed meanwhile
+    }
+    const message = err instanceof Error ? err.message : String(err);
+    if (/pool is closed/.test(message)) throw err; // shutting down: another worker retries it
+    // The model failed on these inputs: a retry would fail the same way, so the run fails now.
+    await failRobustnessRun(ctx, run.id, `samples ${chunk.fromSample}–${chunk.toSample - 1} failed: ${message}`, chunk.chunkIndex);
+    return;
+  } finally {
+    clearInterval(watch);
+    opts.signal?.removeEventListener('abort', onJobAbort);
+  }
+  await mergeChunk(ctx, run.id, chunk.chunkIndex, samples);
+}
+
+function chunkOpen() {
+  return notInArray(robustnessChunks.state, ['done', 'cancelled']);
+}
+
+/** Stores one chunk's samples and, when it was the last, the run's figures. Idempotent. */
+export async function mergeChunk(ctx: AppContext, runId: string, chunkIndex: number, samples: RobustnessSample[]): Promise<void> {
+  await ctx.db.transaction(async (tx) => {
+    const [run] = await tx.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId)).for('update');
+    if (!run || CLOSED_STATES.includes(run.state)) return;
+    const stored = await tx.update(robustnessChunks)
+      .set({ state: 'done', results: samples, finishedAt: new Date(), error: null })
+      .where(and(eq(robustnessChunks.runId, runId), eq(robustnessChunks.chunkIndex, chunkIndex), chunkOpen()))
+      .returning({ from: robustnessChunks.fromSample, to: robustnessChunks.toSample });
+    if (!stored.length) return; // a duplicate: this chunk's result is already in
+    const doneSamples = run.doneSamples + (stored[0].to - stored[0].from);
+    if (doneSamples < run.samples) {
+      await tx.update(robustnessRuns).set({ doneSamples, state: 'running' }).where(eq(robustnessRuns.id, runId));
+      return;
+    }
+    const all = await tx.select({ results: robustnessChunks.results }).from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
+    const figures = summariseRobustness(all.flatMap((c) => c.results as RobustnessSample[]), run.toleranceDeg);
+    await tx.update(robustnessRuns).set({ doneSamples, state: 'done', figures, finishedAt: new Date() }).where(eq(robustnessRuns.id, runId));
+    await recordAudit(tx, {
+      actorId: null, action: 'robustness.done', objectType: run.sequenceVersionId ? 'sequence_version' : 'plan', objectId: run.sequenceVersionId ?? run.planId ?? run.id,
+      detail: { runId, samples: figures.samples, seed: run.seed, openLoopP95Deg: figures.openLoopP95Deg, feedbackP95Deg: figures.feedbackP95Deg },
+    });
+  });
+}
+
+/** Marks an open run failed with a reason the UI shows; its other chunks stop. */
+export async function failRobustnessRun(ctx: AppContext, runId: string, reason: string, chunkIndex?: number): Promise<boolean> {
+  return closeRun(ctx, runId, 'failed', reason, chunkIndex);
+}
+
+/** Cancels an open run: no chunk takes further work, running chunks stop within about a second. */
+export async function cancelRobustnessRun(ctx: AppContext, boss: PgBoss | null, runId: string, reason: string): Promise<boolean> {
+  const closed = await closeRun(ctx, runId, 'cancelled', reason);
+  if (closed && boss) {
+      const jobs = await boss.findJobs<RobustnessChunkJob>(ROBUSTNESS_CHUNK_QUEUE, { data: { runId }, queued: true });
+    if (jobs.length) await boss.cancel(ROBUSTNESS_CHUNK_QUEUE, jobs.map((j) => j.id));
+  }
+  return closed;
+}
+
+async function closeRun(ctx: AppContext, runId: string, state: 'failed' | 'cancelled', reason: string, chunkIndex?: number): Promise<boolean> {
+  return ctx.db.transaction(async (tx) => {
+    const [run] = await tx.update(robustnessRuns).set({ state, error: reason, finishedAt: new Date() })
+      .where(and(eq(robustnessRuns.id, runId), inArray(robustnessRuns.state, [...OPEN_STATES]))).returning();
+    if (!run) return false;
+    if (chunkIndex !== undefined) {
+      await tx.update(robustnessChunks).set({ state: 'failed', error: reason, finishedAt: new Date() })
+        .where(and(eq(robustnessChunks.runId, runId), eq(robustnessChunks.chunkIndex, chunkIndex)));
+    }
+    await tx.update(robustnessChunks).set({ state: 'cancelled', finishedAt: new Date() })
+      .where(and(eq(robustnessChunks.runId, runId), inArray(robustnessChunks.state, [...OPEN_STATES])));
+    await recordAudit(tx, {
+      actorId: null, action: `robustness.${state}`, objectType: run.sequenceVersionId ? 'sequence_version' : 'plan', objectId: run.sequenceVersionId ?? run.planId ?? run.id,
+      detail: { runId, reason },
+    });
+    return true;
+  });
+}
+
+/** The API view of a run. */
+export async function robustnessRunView(db: Database, run: RobustnessRunRow): Promise<RobustnessRun> {
+  const counts = await db.select({ state: robustnessChunks.state, n: sql<number>`count(*)::int` }).from(robustnessChunks)
+    .where(eq(robustnessChunks.runId, run.id)).groupBy(robustnessChunks.state);
+  const chunks = counts.reduce((s, c) => s + c.n, 0);
+  const chunksDone = counts.find((c) => c.state === 'done')?.n ?? 0;
+  const f = run.figures as RobustnessFigures | null;
+  return {
+    id: run.id,
+    sequenceVersionId: run.sequenceVersionId,
+    planId: run.planId,
+    candidateIndex: run.candidateIndex,
+    state: run.state as RobustnessState,
+    progress: run.state === 'done' ? 1 : run.doneSamples / Math.max(1, run.samples),
+    samples: run.samples,
+    seed: run.seed,
+    model: robustnessModelSchema.parse(run.model),
+    toleranceDeg: run.toleranceDeg,
+    openLoopP95Deg: f?.openLoopP95Deg ?? null,
+    feedbackP95Deg: f?.feedbackP95Deg ?? null,
+    p50Deg: f?.p50Deg ?? null,
+    withinToleranceShare: f?.withinToleranceShare ?? null,
+    feedbackErrorsDeg: f?.feedbackErrorsDeg ?? null,
+    error: run.error,
+    chunks,
+    chunksDone,
+    createdAt: run.createdAt.toISOString(),
+    startedAt: run.startedAt?.toISOString() ?? null,
+    finishedAt: run.finishedAt?.toISOString() ?? null,
+  };
+}
