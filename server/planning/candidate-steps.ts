@@ -1,55 +1,75 @@
 /**
- * Turns a candidate (families with amplitudes and whole cycle counts) into composer primitives:
- * each sweep is followed by a pose shift back to the reference posture, the sequence's start. Every
- * sweep therefore starts and ends in the same posture, so the rotation of the whole list is the
- * product of each sweep's rotation (the geometric-phase property the seeding relies on).
+ * Turns a candidate (phases: a family at a size with whole cycles) into composer primitives. Each
+ * phase starts and ends in the reference posture (the sequence's start): a lead-in to the sweep's
+ * first posture, the sweep, and a pose shift back. The way back retraces the lead-in, so a phase
+ * rotates the body by (per-cycle rotation seen from the reference posture)^cycles, and the phases'
+ * rotations compose as an ordered product (the geometric-phase property the search relies on).
+ * Blends are slow enough for the rate limit; the lead-in is written out as a pose shift only when
+ * the compiler's own blend would be too fast for it.
  */
-import { blendDurationS } from '../../shared/primitives/compile-primitives.ts';
+import { BLEND_SPEED_DEG_S, blendDurationS } from '../../shared/primitives/compile-primitives.ts';
 import { primitiveMotion } from '../../shared/primitives/primitive-motion.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { harmonicAngleDeg } from '../../shared/contracts/sequence.ts';
-import { clampAmplitudes, type PlanFamily } from './plan-families.ts';
+import { RATE_MARGIN, type PlanFamily } from './plan-families.ts';
 
-/** One sweep of a candidate. */
+/** One phase of a candidate. */
 export interface CandidatePart {
   family: PlanFamily;
-  /** Amplitudes in the family's parameter order, degrees. */
-  amplitudes: number[];
+  /** The family's size, degrees. */
+  size: number;
   /** Whole cycles (≥ 1). */
   cycles: number;
 }
 
-/** Fraction of the rate limit the planner aims at for sweeps and return blends (margin for the person). */
-export const RATE_MARGIN = 0.9;
 /** Peak speed of a minimum-jerk blend relative to its average, 15/8 (Flash & Hogan 1985). */
 const MIN_JERK_PEAK_RATIO = 1.875;
-
 const ceilTo = (x: number, step: number) => Math.ceil(x / step - 1e-9) * step;
 
-/** Seconds per cycle: the family's default, lengthened so the peak sweep rate 2π·A/T stays within the limit. */
-export function sweepPeriodS(family: PlanFamily, amplitudes: readonly number[], rateLimitDegS: number): number {
-  const needed = (2 * Math.PI * family.peakAmplitudeDeg(amplitudes)) / (RATE_MARGIN * rateLimitDegS);
-  return Math.min(30, Math.max(family.minPeriodS, family.periodS, ceilTo(needed, 0.05)));
+/** The joint angles a sweep starts (and, with whole cycles, ends) at, degrees. */
+export function sweepStartAngles(sweep: Primitive): Record<string, number> {
+  const m = primitiveMotion(sweep);
+  if (m.type !== 'sweep') return {};
+  const out: Record<string, number> = { ...m.fixed };
+  for (const [dof, w] of Object.entries(m.waves)) out[dof] = harmonicAngleDeg(w, m.period, 0);
+  return out;
 }
 
-/** Duration of the return blend from a sweep's end posture to the reference posture, seconds. */
-export function returnDurationS(sweep: Primitive, rateLimitDegS: number): number {
-  const m = primitiveMotion(sweep);
-  if (m.type !== 'sweep') return 0.5;
-  let maxDelta = 0;
-  for (const v of Object.values(m.fixed)) maxDelta = Math.max(maxDelta, Math.abs(v));
-  for (const w of Object.values(m.waves)) maxDelta = Math.max(maxDelta, Math.abs(harmonicAngleDeg(w, m.period, m.cycles * m.period)));
+/** Duration of a blend between the reference posture and a sweep's start that respects the rate limit, seconds. */
+export function blendToSweepS(sweep: Primitive, rateLimitDegS: number): number {
+  const maxDelta = Math.max(0, ...Object.values(sweepStartAngles(sweep)).map(Math.abs));
   const forRate = (MIN_JERK_PEAK_RATIO * maxDelta) / (RATE_MARGIN * rateLimitDegS);
   return Math.min(120, Math.max(blendDurationS(maxDelta), ceilTo(forRate, 0.05)));
 }
 
+/** Whether the compiler's own blend (BLEND_SPEED_DEG_S on average, ≥ 0.5 s) would exceed the rate limit. */
+function compilerBlendTooFast(rateLimitDegS: number): boolean {
+  return MIN_JERK_PEAK_RATIO * BLEND_SPEED_DEG_S > RATE_MARGIN * rateLimitDegS;
+}
+
+/** The composer primitives of one phase. */
+export function phasePrimitives(part: CandidatePart, rateLimitDegS: number): Primitive[] {
+  const sweep = part.family.build(part.size, part.cycles);
+  const blendS = blendToSweepS(sweep, rateLimitDegS);
+  const out: Primitive[] = [];
+  if (compilerBlendTooFast(rateLimitDegS)) {
+    const custom = Object.fromEntries(Object.entries(sweepStartAngles(sweep)).map(([d, v]) => [d, Math.round(v * 1e6) / 1e6]));
+    out.push({ kind: 'pose_shift', posture: 'custom', custom, durationS: blendS });
+  }
+  out.push(sweep, { kind: 'pose_shift', posture: 'reference', durationS: blendS });
+  return out;
+}
+
 /** The composer primitives of a candidate. */
 export function candidatePrimitives(parts: readonly CandidatePart[], rateLimitDegS: number): Primitive[] {
-  const out: Primitive[] = [];
-  for (const part of parts) {
-    const amplitudes = clampAmplitudes(part.family, part.amplitudes);
-    const sweep = part.family.build(amplitudes, part.cycles, sweepPeriodS(part.family, amplitudes, rateLimitDegS));
-    out.push(sweep, { kind: 'pose_shift', posture: 'reference', durationS: returnDurationS(sweep, rateLimitDegS) });
-  }
-  return out;
+  return parts.flatMap((p) => phasePrimitives(p, rateLimitDegS));
+}
+
+/** Seconds of one phase: lead-in, cycles and the way back (the compiler's lead-in when not written out). */
+export function phaseDurationS(part: CandidatePart, rateLimitDegS: number): number {
+  const sweep = part.family.build(part.size, part.cycles);
+  const maxDelta = Math.max(0, ...Object.values(sweepStartAngles(sweep)).map(Math.abs));
+  const back = blendToSweepS(sweep, rateLimitDegS);
+  const lead = compilerBlendTooFast(rateLimitDegS) ? back : blendDurationS(maxDelta);
+  return lead + part.cycles * part.family.periodS(part.size) + back;
 }

@@ -1,25 +1,31 @@
 /**
- * The maneuver planner: seeds candidate step lists from per-cycle rotations, refines each with the
- * full simulation in the loop (Nelder–Mead), verifies the result at the engine's full accuracy,
- * runs a dispersion on it, and ranks the candidates. Synchronous and CPU-bound: the job runs it in
- * a worker thread.
+ * The maneuver planner: fits the sweep families to the body, searches compositions of one to three
+ * phases from simulated single cycles (plan-search.ts), verifies the chosen candidates at the
+ * engine's full accuracy, runs the robustness Monte Carlo on each (open-loop and with feedback) and
+ * ranks them (DECISIONS.md): (1) meets tolerance, ranges, rate limit and time budget; (2) no
+ * detour; (3) robustness level; (4) duration. Synchronous and CPU-bound: the job runs it in a
+ * worker thread, the CLI in its own process.
  */
 import type { Body } from '../../shared/contracts/body.ts';
 import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { PlanCandidate, PlanSettings } from '../../shared/contracts/plan.ts';
+import { robustnessLevel, ROBUSTNESS_LEVELS, type RobustnessModel } from '../../shared/contracts/robustness.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import { targetQuat } from '../maneuvers/target-attitude.ts';
-import { candidatePrimitives } from './candidate-steps.ts';
-import { runDispersion } from './dispersion.ts';
+import { candidatePrimitives, type CandidatePart } from './candidate-steps.ts';
 import { compileForBody, evaluateSequence } from './evaluate-steps.ts';
-import { PLAN_FAMILIES, type PlanFamily } from './plan-families.ts';
-import { meetsLimits, refineCandidate } from './refine-candidate.ts';
-import { familyLevels, seedCandidates } from './seed-candidates.ts';
+import { pathDegFromSamples } from './path-travelled.ts';
+import { perCycleRotation } from './per-cycle-rotation.ts';
+import { FAMILY_GROUPS, fitFamilies } from './plan-families.ts';
+import { familyTables, refineParts, searchSeeds, type SearchLimits, type SearchSeed } from './plan-search.ts';
+import { robustnessSamples, summariseRobustness } from './robustness.ts';
+import { quatAngle } from './rotation-vector.ts';
 
-/** Full simulations allowed per refinement start (the whole plan stays within a few thousand). */
-export const EVALUATIONS_PER_START = 60;
-/** Seeds refined beyond the number of candidates asked for (some may fail the limits). */
+/** Seeds refined beyond the number of candidates asked for (some may miss a limit). */
 const EXTRA_SEEDS = 2;
+/** Sample rate of the verification run, Hz (for pathDeg; ∫|ω| dt converges well before it). */
+const VERIFY_RATE_HZ = 30;
+const DEG = 180 / Math.PI;
 
 /** Progress report: fraction 0–1 and a short note. */
 export type PlanProgress = (fraction: number, note: string) => void;
@@ -29,68 +35,135 @@ export interface PlanInputs {
   body: Body;
   target: SequenceTarget;
   settings: PlanSettings;
-  /** Families to use (default: all). */
-  families?: readonly PlanFamily[];
+  /** Family groups to use (default: all). */
+  groups?: readonly string[];
+  /** Skip the robustness run (figures reported as NaN); for the planner's own speed checks only. */
+  skipRobustness?: boolean;
   onProgress?: PlanProgress;
 }
 
-/**
- * Ranks: candidates meeting tolerance, ranges and rate limit first, ordered by duration plus
- * 10 s per degree their 95th-percentile error exceeds the tolerance; then the rest by error.
- */
-export function rankCandidates(list: Omit<PlanCandidate, 'rank'>[], toleranceDeg: number): PlanCandidate[] {
-  const ok = (c: Omit<PlanCandidate, 'rank'>) => c.withinTolerance && c.withinRateLimit && c.rangeViolationCount === 0;
-  const robustScore = (c: Omit<PlanCandidate, 'rank'>) => c.durationS + 10 * Math.max(0, c.dispersion.p95ErrorDeg - toleranceDeg);
-  const good = list.filter(ok).sort((a, b) => robustScore(a) - robustScore(b));
-  const rest = list.filter((c) => !ok(c)).sort((a, b) => a.errorDeg - b.errorDeg);
-  return [...good, ...rest].map((c, i) => ({ ...c, rank: i + 1 }));
+/** The planner's answer: ranked candidates and plain notes (why a target cannot be reached, …). */
+export interface PlanOutcome {
+  candidates: PlanCandidate[];
+  notes: string[];
 }
 
-/** Runs the planner; returns ranked candidates (at most settings.maxCandidates). */
-export function planManeuver({ body, target, settings, families = PLAN_FAMILIES, onProgress }: PlanInputs): PlanCandidate[] {
+/** Whether a candidate meets tolerance, ranges, rate limit and time budget. */
+export function meetsLimits(c: Pick<PlanCandidate, 'withinTolerance' | 'withinRateLimit' | 'rangeViolationCount' | 'withinTimeBudget'>): boolean {
+  return c.withinTolerance && c.withinRateLimit && c.rangeViolationCount === 0 && c.withinTimeBudget;
+}
+
+/** Ranks by (1) limits met, (2) no detour, (3) robustness level, (4) duration; numbers the ranks from 1. */
+export function rankCandidates(list: readonly Omit<PlanCandidate, 'rank'>[]): PlanCandidate[] {
+  const key = (c: Omit<PlanCandidate, 'rank'>) => [meetsLimits(c) ? 0 : 1, c.detour ? 1 : 0, ROBUSTNESS_LEVELS.indexOf(c.robustness.level), c.durationS];
+  const sorted = [...list].sort((a, b) => {
+    const ka = key(a), kb = key(b);
+    for (let i = 0; i < ka.length; i++) if (ka[i] !== kb[i]) return ka[i] - kb[i];
+    return a.errorDeg - b.errorDeg;
+  });
+  return sorted.map((c, i) => ({ ...c, rank: i + 1 }));
+}
+
+/** Picks seeds to refine: shortest first, at most one per structure of families. */
+function pickSeeds(seeds: readonly SearchSeed[], count: number, limits: SearchLimits): SearchSeed[] {
+  const seen = new Set<string>();
+  const withinBudget = (s: SearchSeed) => limits.timeBudgetS === null || s.estimatedDurationS <= limits.timeBudgetS;
+  const ordered = [...seeds.filter(withinBudget), ...seeds.filter((s) => !withinBudget(s))];
+  const out: SearchSeed[] = [];
+  for (const s of ordered) {
+    const key = s.parts.map((p) => p.family.group).join('+');
+    if (seen.has(key)) continue;
+    seen.add(key);
+    out.push(s);
+    if (out.length >= count) break;
+  }
+  return out;
+}
+
+/** Runs the planner. */
+export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, skipRobustness = false, onProgress }: PlanInputs): PlanOutcome {
   const progress = onProgress ?? (() => {});
   const goal = targetQuat(target);
-  const limits = { toleranceDeg: target.toleranceDeg, rateLimitDegS: target.rateLimitDegS, timeBudgetS: target.timeBudgetS, evaluationsPerStart: EVALUATIONS_PER_START };
+  const goalAngleDeg = quatAngle(goal) * DEG;
+  const limits: SearchLimits = { toleranceDeg: target.toleranceDeg, rateLimitDegS: target.rateLimitDegS, timeBudgetS: target.timeBudgetS };
+  const notes: string[] = [];
 
-  progress(0.02, 'measuring per-cycle rotations');
-  const levels = familyLevels(body, families, target.rateLimitDegS);
-  const seeds = seedCandidates(levels, goal, limits).slice(0, settings.maxCandidates + EXTRA_SEEDS);
+  progress(0.02, 'fitting the sweeps to the body');
+  const { families, unavailable } = fitFamilies(body, target.rateLimitDegS, groups);
+  for (const u of unavailable) notes.push(`${u.group.replaceAll('_', ' ')} not used: ${u.reason}.`);
+  if (!families.length) return { candidates: [], notes: [...notes, 'No sweep fits this body\'s joint ranges: nothing to plan with.'] };
 
-  const refineShare = 0.6;
-  const refined = seeds.map((seed, i) => {
-    progress(0.1 + (refineShare * i) / seeds.length, `refining candidate ${i + 1} of ${seeds.length}`);
-    return refineCandidate(body, goal, seed.parts, limits);
-  });
-
-  // Keep the best distinct step lists, verified at full accuracy, then their dispersion.
-  const unique = new Map<string, (typeof refined)[number]>();
-  for (const r of refined.sort((a, b) => a.cost - b.cost)) {
-    const key = JSON.stringify(candidatePrimitives(r.parts, limits.rateLimitDegS));
-    if (!unique.has(key)) unique.set(key, r);
+  progress(0.05, 'measuring per-cycle rotations');
+  const tables = familyTables(body, families, target.rateLimitDegS);
+  const seeds = searchSeeds(tables, goal, limits);
+  if (!seeds.length) {
+    const axes = [...new Set(families.map((f) => f.axis))];
+    notes.push(`No composition of up to three phases reaches the target within ${target.toleranceDeg}° using sweeps that turn about ${axes.join(', ')} within this body's joint ranges and the ${target.rateLimitDegS}°/s rate limit.`);
+    return { candidates: [], notes };
   }
-  const chosen = [...unique.values()].slice(0, settings.maxCandidates);
-  const out = chosen.map((r, i) => {
-    progress(0.1 + refineShare + ((1 - refineShare - 0.1) * i) / chosen.length, `dispersion of candidate ${i + 1} of ${chosen.length}`);
-    const primitives = candidatePrimitives(r.parts, limits.rateLimitDegS);
-    const sequence = compileForBody(body, primitives);
-    const full = evaluateSequence(body, sequence, goal, { rateHz: 1 });
-    const dispersion = runDispersion({ body, sequence, target: goal, toleranceDeg: target.toleranceDeg, samples: settings.samples, seed: settings.seed, spreads: settings.spreads });
-    const y = full.result.final.yprDeg;
-    return {
-      primitives,
-      cues: primitives.map(cueFor),
-      families: r.parts.map((p) => p.family.id),
-      durationS: full.durationS,
-      errorDeg: full.errorDeg,
-      withinTolerance: full.errorDeg <= target.toleranceDeg,
-      yprDeg: { yaw: y.yaw, pitch: y.pitch, roll: y.roll },
-      peakJointRateDegS: full.peakRateDegS,
-      withinRateLimit: meetsLimits({ ...full, errorDeg: 0, rangeViolationCount: 0 }, limits),
-      rangeViolationCount: full.rangeViolationCount,
-      evaluations: r.evaluations,
-      dispersion,
-    };
+  const chosen = pickSeeds(seeds, settings.maxCandidates + EXTRA_SEEDS, limits);
+  if (limits.timeBudgetS !== null && chosen.every((s) => s.estimatedDurationS > limits.timeBudgetS!)) {
+    notes.push(`The shortest plan found needs about ${Math.ceil(chosen[0].estimatedDurationS)} s, over the ${limits.timeBudgetS} s time budget (sweeps are slowed to stay under the ${target.rateLimitDegS}°/s rate limit).`);
+  }
+
+  const model: RobustnessModel = { spreads: settings.spreads, perceptionErrorDeg: settings.perceptionErrorDeg, reactionDelayS: settings.reactionDelayS };
+  const out: Omit<PlanCandidate, 'rank'>[] = [];
+  const refined = chosen.map((seed, i) => {
+    progress(0.1 + (0.3 * i) / chosen.length, `refining candidate ${i + 1} of ${chosen.length}`);
+    return refineParts(body, goal, seed.parts, limits);
+  });
+  // The best few by composed error, then verified and dispersed.
+  const verify = refined
+    .map((r, i) => ({ r, seed: chosen[i] }))
+    .sort((a, b) => Number(a.r.composedErrorDeg > limits.toleranceDeg) - Number(b.r.composedErrorDeg > limits.toleranceDeg))
+    .slice(0, settings.maxCandidates);
+  verify.forEach(({ r }, i) => {
+    progress(0.4 + (0.55 * i) / verify.length, `verifying candidate ${i + 1} of ${verify.length}`);
+    out.push(verifyCandidate(body, target, r.parts, r.simulations, model, settings, skipRobustness, goalAngleDeg));
   });
   progress(1, 'done');
-  return rankCandidates(out, target.toleranceDeg);
+  const candidates = rankCandidates(out);
+  if (!candidates.some(meetsLimits)) notes.push('No candidate meets every limit: see each candidate\'s figures.');
+  return { candidates, notes };
+}
+
+/** Full-accuracy verification, path and robustness of one candidate. */
+function verifyCandidate(body: Body, target: SequenceTarget, parts: CandidatePart[], simulations: number, model: RobustnessModel, settings: PlanSettings, skipRobustness: boolean, goalAngleDeg: number): Omit<PlanCandidate, 'rank'> {
+  const goal = targetQuat(target);
+  const primitives = candidatePrimitives(parts, target.rateLimitDegS);
+  const sequence = compileForBody(body, primitives);
+  const full = evaluateSequence(body, sequence, goal, { rateHz: VERIFY_RATE_HZ });
+  const f = full.result.final;
+  // Cycle end to cycle end: each phase turns by its per-cycle angle per cycle (seen from the reference posture).
+  const netPathDeg = parts.reduce((s, p) => s + p.cycles * quatAngle(perCycleRotation(body, p.family, p.size, target.rateLimitDegS)) * DEG, 0);
+  let robustness: PlanCandidate['robustness'] = { openLoopP95Deg: NaN, feedbackP95Deg: NaN, p50Deg: NaN, withinToleranceShare: NaN, samples: 0, seed: settings.seed, level: 'not_robust' };
+  if (!skipRobustness) {
+    const samples = robustnessSamples({ body, sequence, target: goal, toleranceDeg: target.toleranceDeg, seed: settings.seed, model }, 0, settings.samples);
+    const s = summariseRobustness(samples, target.toleranceDeg);
+    robustness = {
+      openLoopP95Deg: s.openLoopP95Deg, feedbackP95Deg: s.feedbackP95Deg, p50Deg: s.p50Deg, withinToleranceShare: s.withinToleranceShare,
+      samples: s.samples, seed: settings.seed, level: robustnessLevel(s.feedbackP95Deg, target.toleranceDeg),
+    };
+  }
+  return {
+    primitives,
+    sequence,
+    cues: primitives.map(cueFor),
+    families: parts.map((p) => p.family.id),
+    final: { attitude: f.attitude, rotation: f.rotation, yprDeg: f.yprDeg },
+    durationS: full.durationS,
+    withinTimeBudget: target.timeBudgetS === null || full.durationS <= target.timeBudgetS,
+    errorDeg: full.errorDeg,
+    withinTolerance: full.errorDeg <= target.toleranceDeg,
+    yprDeg: { ...f.yprDeg },
+    pathDeg: pathDegFromSamples(full.result.samples.frames),
+    netPathDeg,
+    detour: netPathDeg > goalAngleDeg + 90,
+    peakJointRateDegS: full.peakRateDegS,
+    withinRateLimit: full.peakRateDegS <= target.rateLimitDegS + 1e-9,
+    rangeViolations: full.result.rangeViolations,
+    rangeViolationCount: full.rangeViolationCount,
+    evaluations: simulations + 1,
+    robustness,
+  };
 }

@@ -7,8 +7,9 @@ import type { PlannerThreadInput, PlannerThreadMessage } from './planner-message
 const post = (m: PlannerThreadMessage) => parentPort!.postMessage(m);
 try {
   const input = workerData as PlannerThreadInput;
-  const candidates = planManeuver({ ...input, onProgress: (fraction, note) => post({ kind: 'progress', fraction, note }) });
-  post({ kind: 'done', candidates });
+  const { candidates, notes } = planManeuver({ ...input, onProgress: (fraction, note) => post({ kind: 'progress', fraction, note }) });
+  if (!candidates.length) post({ kind: 'failed', message: notes.join(' ') || 'the planner found no candidate' });
+  else post({ kind: 'done', candidates });
 } catch (err) {
   post({ kind: 'failed', message: err instanceof Error ? err.message : String(err) });
 }

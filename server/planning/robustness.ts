@@ -3,18 +3,30 @@
  * samples [from, to) and `summariseRobustness` merges any set of them. Sample i draws from its own
  * stream seeded by (seed, i), so one thread, chunks and worker processes give identical figures.
  *
- * The feedback execution model belongs to the planner (issue 10); until it lands, the feedback
- * figure equals the open-loop one.
+ * Two execution models on the same perturbed body and steps:
+ * - open-loop: every step as planned (whole cycles as written);
+ * - with feedback: the crew member watches a cabin reference. In each phase (a sweep of two or more
+ *   whole cycles) they run the first half of the cycles as planned, then at every cycle's end decide
+ *   from the attitude they perceive whether one more cycle brings the predicted final attitude
+ *   (perceived attitude, then the rest of the plan as planned) closer to the target; they stop when
+ *   it does not, and add at most half the planned cycles again (trim cycles). What they perceive is
+ *   the attitude a reaction delay earlier, turned by a perception error drawn afresh for every
+ *   decision (normal, `perceptionErrorDeg` 1σ about each body axis). Both figures are ASSUMPTIONS
+ *   (no source found for whole-body attitude perception in free fall): DECISIONS.md sets their
+ *   floors, 2° and 0.3 s, which are the defaults.
+ * Each sample is composed from per-step pieces (execution-pieces.ts), exact up to the integrator's
+ * tolerance because every cycle returns to the same posture.
  */
 import type { Body } from '../../shared/contracts/body.ts';
 import type { RobustnessModel } from '../../shared/contracts/robustness.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
-import type { Quat } from '../../shared/math/quaternion.ts';
+import { quatAngleBetween, quatMultiply, type Quat } from '../../shared/math/quaternion.ts';
 import { seededRandom, symmetricUnit } from '../../shared/math/seeded-random.ts';
-import { quantile } from './dispersion.ts';
-import { evaluateSequence } from './evaluate-steps.ts';
+import { quantile } from './quantile.ts';
+import { executionPieces, type ExecutionPiece } from './execution-pieces.ts';
 import { perturbBody } from './perturb-body.ts';
 import { perturbSequence } from './perturb-sequence.ts';
+import { quatChain, quatExp, quatIntPower } from './rotation-vector.ts';
 
 /** What one robustness run needs. */
 export interface RobustnessInputs {
@@ -57,13 +69,81 @@ export function perturbedCase(inputs: RobustnessInputs, index: number): { body: 
   return { body: perturbBody(body, scales), sequence: varied, random };
 }
 
+const DEG = 180 / Math.PI;
+
+/** A standard normal number from a [0, 1) generator (Box–Muller). */
+function gaussian(random: () => number): number {
+  const u = Math.max(random(), 1e-12), v = random();
+  return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
+}
+
+/** Open-loop final attitude: every piece as planned. */
+export function openLoopAttitude(pieces: readonly ExecutionPiece[]): Quat {
+  return quatChain(...pieces.map((p) => (p.kind === 'fixed' ? p.rotation : quatIntPower(p.cycle, p.cycles))));
+}
+
+/** Earliest and latest whole cycles a crew member may stop a phase of `n` planned cycles at. */
+export function feedbackWindow(n: number): { first: number; last: number } {
+  const w = n >= 2 ? Math.ceil(n / 2) : 0;
+  return { first: n - w, last: n + w };
+}
+
+/**
+ * Final attitude with feedback: `actual` pieces are what the body does, `nominal` what the crew
+ * member expects (the plan on the nominal body), same structure. Perception noise from `random`.
+ */
+export function feedbackAttitude(actual: readonly ExecutionPiece[], nominal: readonly ExecutionPiece[], target: Quat, model: RobustnessModel, random: () => number): Quat {
+  // What the rest of the plan is expected to do after each piece.
+  const restAfter: Quat[] = new Array(nominal.length);
+  let rest: Quat = [1, 0, 0, 0];
+  for (let k = nominal.length - 1; k >= 0; k--) {
+    restAfter[k] = rest;
+    const p = nominal[k];
+    rest = quatMultiply(p.kind === 'fixed' ? p.rotation : quatIntPower(p.cycle, p.cycles), rest, [0, 0, 0, 0]);
+  }
+  const sigma = model.perceptionErrorDeg / DEG;
+  let att: Quat = [1, 0, 0, 0];
+  actual.forEach((p, k) => {
+    const nom = nominal[k];
+    if (p.kind === 'fixed' || nom.kind === 'fixed') {
+      att = quatMultiply(att, p.kind === 'fixed' ? p.rotation : quatIntPower(p.cycle, p.cycles), [0, 0, 0, 0]);
+      return;
+    }
+    const { first, last } = feedbackWindow(p.cycles);
+    // Attitudes at the end of each cycle so far (index = cycles done).
+    const ends: Quat[] = [att];
+    const grow = (n: number) => { while (ends.length <= n) ends.push(quatMultiply(ends[ends.length - 1], p.cycle, [0, 0, 0, 0])); };
+    let done = first;
+    grow(done);
+    while (done < last) {
+      // Seen now: the attitude a reaction delay ago, turned by this look's perception error.
+      const from = done - 1 - p.lagCycles;
+      const seen = from < 0 ? ends[0] : quatMultiply(ends[from], p.lagged, [0, 0, 0, 0]);
+      const perceived = quatMultiply(seen, quatExp([sigma * gaussian(random), sigma * gaussian(random), sigma * gaussian(random)]), [0, 0, 0, 0]);
+      const stopNow = quatAngleBetween(quatMultiply(perceived, restAfter[k], [0, 0, 0, 0]), target);
+      const oneMore = quatAngleBetween(quatChain(perceived, nom.cycle, restAfter[k]), target);
+      if (oneMore >= stopNow) break;
+      done++;
+      grow(done);
+    }
+    att = ends[done];
+  });
+  return att;
+}
+
 /** Samples [from, to) in order. */
 export function robustnessSamples(inputs: RobustnessInputs, from: number, to: number): RobustnessSample[] {
   const out: RobustnessSample[] = [];
+  if (to <= from) return out;
+  // The plan as the crew member knows it, cut the same way as the perturbed steps (same inserted blends).
+  const planned = perturbSequence(inputs.sequence, () => ({ amplitude: 0, period: 0, phaseDeg: {} }));
+  const nominal = executionPieces(inputs.body, planned, inputs.model.reactionDelayS);
   for (let i = from; i < to; i++) {
     const c = perturbedCase(inputs, i);
-    const openLoop = evaluateSequence(c.body, c.sequence, inputs.target).errorDeg;
-    out.push({ index: i, openLoopErrorDeg: openLoop, feedbackErrorDeg: openLoop });
+    const actual = executionPieces(c.body, c.sequence, inputs.model.reactionDelayS);
+    const openLoop = quatAngleBetween(openLoopAttitude(actual), inputs.target) * DEG;
+    const feedback = quatAngleBetween(feedbackAttitude(actual, nominal, inputs.target, inputs.model, c.random), inputs.target) * DEG;
+    out.push({ index: i, openLoopErrorDeg: openLoop, feedbackErrorDeg: feedback });
   }
   return out;
 }

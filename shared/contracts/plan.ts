@@ -13,6 +13,8 @@
 import { z } from 'zod';
 
 import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
+import { attitudeSchema, rangeViolationSchema } from './result.ts';
+import { sequenceSchema } from './sequence.ts';
 
 const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
 
@@ -44,27 +46,35 @@ export const planRequestSchema = z.object({
   spreads: dispersionSpreadsSchema.default({ massPct: 5, lengthPct: 3, amplitudePct: 10, periodPct: 10, phaseDeg: 10 }),
   /** How many ranked candidates to return (default 4). */
   maxCandidates: finite('maxCandidates').int().min(1).max(8).default(4),
+  /**
+   * Feedback execution: error of the attitude the crew member perceives, 1σ per axis, degrees.
+   * An assumption (no source found); DECISIONS.md sets the floor, 2°.
+   */
+  perceptionErrorDeg: finite('perceptionErrorDeg').min(2, 'perceptionErrorDeg must be at least 2°').max(45).default(2),
+  /** Feedback execution: reaction delay, seconds. An assumption (no source found); floor 0.3 s. */
+  reactionDelayS: finite('reactionDelayS').min(0.3, 'reactionDelayS must be at least 0.3 s').max(5).default(0.3),
 });
 /** Planner request (input shape). */
 export type PlanRequest = z.input<typeof planRequestSchema>;
 /** Planner settings (defaults filled), stored with the plan. */
 export type PlanSettings = z.infer<typeof planRequestSchema>;
 
-/** Monte Carlo result of one candidate. */
-export const dispersionResultSchema = z.object({
+/** Robustness of one candidate: the seeded Monte Carlo in both execution models. */
+export const candidateRobustnessSchema = z.object({
+  /** 95th-percentile final error executing every step as planned, degrees. */
+  openLoopP95Deg: z.number(),
+  /** 95th-percentile final error when the crew member stops or adds cycles from what they see, degrees (ranking uses it). */
+  feedbackP95Deg: z.number(),
+  /** Median final error with feedback, degrees. */
+  p50Deg: z.number(),
+  /** Share of samples (with feedback) within the tolerance, 0–1. */
+  withinToleranceShare: z.number(),
   samples: z.number().int(),
   seed: z.number().int(),
-  spreads: dispersionSpreadsSchema,
-  /** Median final attitude error to the target, degrees. */
-  medianErrorDeg: z.number(),
-  /** 95th-percentile final attitude error to the target, degrees. */
-  p95ErrorDeg: z.number(),
-  /** Largest error over the samples, degrees. */
-  maxErrorDeg: z.number(),
-  /** Fraction of samples within the sequence's tolerance, 0–1. */
-  withinToleranceFraction: z.number(),
+  /** robust (feedback p95 ≤ tolerance), marginal (≤ 3×), not_robust. */
+  level: z.enum(['robust', 'marginal', 'not_robust']),
 });
-export type DispersionResult = z.infer<typeof dispersionResultSchema>;
+export type CandidateRobustness = z.infer<typeof candidateRobustnessSchema>;
 
 /** One ranked candidate step list. */
 export const planCandidateSchema = z.object({
@@ -72,25 +82,42 @@ export const planCandidateSchema = z.object({
   rank: z.number().int(),
   /** The composer steps (replace the composer's list with these). */
   primitives: primitiveListSchema,
+  /** The compiled sequence contract (move/harmonic/hold steps), as `npm run simulate` accepts it. */
+  sequence: sequenceSchema,
   /** Trainee cue per step. */
   cues: z.array(z.string()),
-  /** Planner families used, e.g. ["hip_swirl_left", "arm_orbit_outward"]. */
+  /** Planner families used, one per phase, e.g. ["hanging_arm_circles_out", "hip_swirl_left"]. */
   families: z.array(z.string()),
+  /** Final attitude on the nominal body, verified at the engine's full accuracy. */
+  final: z.object({
+    attitude: attitudeSchema,
+    rotation: z.object({ angleDeg: z.number(), axis: z.tuple([z.number(), z.number(), z.number()]) }),
+    yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+  }),
   /** Compiled duration, seconds. */
   durationS: z.number(),
+  /** Whether the duration is within the target's time budget (true when there is none). */
+  withinTimeBudget: z.boolean(),
   /** Final attitude error to the target on the nominal body, degrees. */
   errorDeg: z.number(),
   withinTolerance: z.boolean(),
-  /** Reached yaw/pitch/roll, degrees. */
+  /** Reached yaw/pitch/roll, degrees (same as final.yprDeg). */
   yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+  /** Rotation travelled, ∫|ω| dt, degrees (includes the to-and-fro within every cycle). */
+  pathDeg: z.number(),
+  /** Rotation travelled from cycle end to cycle end (the to-and-fro within cycles left out), degrees. */
+  netPathDeg: z.number(),
+  /** Turns the long way round: netPathDeg above the target angle + 90°. */
+  detour: z.boolean(),
   /** Peak joint rate, deg/s, and whether it is within the sequence's rate limit. */
   peakJointRateDegS: z.number(),
   withinRateLimit: z.boolean(),
-  /** Number of range violations on the nominal body. */
+  /** Range violations on the nominal body (empty when none). */
+  rangeViolations: z.array(rangeViolationSchema),
   rangeViolationCount: z.number().int(),
-  /** Full simulations the refinement ran for this candidate. */
+  /** Simulations the search ran for this candidate (single cycles and the verification). */
   evaluations: z.number().int(),
-  dispersion: dispersionResultSchema,
+  robustness: candidateRobustnessSchema,
 });
 export type PlanCandidate = z.infer<typeof planCandidateSchema>;
 

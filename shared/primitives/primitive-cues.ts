@@ -37,7 +37,9 @@ export function cueFor(p: Primitive): string {
   switch (p.kind) {
     case 'arm_orbit': {
       const where = p.centre === 'custom' ? `raised ${p.centreFlexDeg ?? 0}° and out ${p.centreAbdDeg ?? 0}°` : ORBIT_CENTRE_WORDS[p.centre];
-      return `${limbs(p.arms, 'arm')} ${where}, ${sizeWord(p.halfAngleDeg)} circles ${p.travel}${rep}`;
+      // Same way round: the left arm's travel names the direction (the right arm's is the reverse).
+      const travel = p.arms === 'both' && p.pairing === 'same_way' ? `the same way round (left arm ${p.travel})` : p.travel;
+      return `${limbs(p.arms, 'arm')} ${where}, ${sizeWord(p.halfAngleDeg)} circles ${travel}${rep}`;
     }
     case 'arm_loop': {
       const elbows = p.arms === 'both' ? 'elbows bend' : 'elbow bends';

@@ -42,9 +42,11 @@ function armOrbitMotion(p: ArmOrbit): PrimitiveMotion {
   const abdPhase = p.travel === 'outward' ? -90 : 90;
   const waves: Record<string, DofWave> = {};
   const fixed: Record<string, number> = {};
+  // Same way round: the right arm travels the other way (anatomical angles mirror the left's).
+  const reverseRight = p.arms === 'both' && p.pairing === 'same_way';
   for (const s of sidesOf(p.arms)) {
     waves[`${s}_sh_flex`] = { offset: c.flex, amplitude: p.halfAngleDeg, phase: 0 };
-    waves[`${s}_sh_abd`] = { offset: c.abd, amplitude: p.halfAngleDeg, phase: abdPhase };
+    waves[`${s}_sh_abd`] = { offset: c.abd, amplitude: p.halfAngleDeg, phase: s === 'r' && reverseRight ? -abdPhase : abdPhase };
     fixed[`${s}_sh_rot`] = 0;
     fixed[`${s}_elbow_flex`] = 0;
   }

@@ -46,6 +46,12 @@ export const armOrbitSchema = z.object({
   /** Cone half-angle, degrees, 2–60. */
   halfAngleDeg: finite('halfAngleDeg').min(2, 'halfAngleDeg must be at least 2°').max(60, 'halfAngleDeg must be at most 60°'),
   travel: z.enum(['outward', 'inward']),
+  /**
+   * With both arms: `mirror` (default) circles them as mirror images (their turning effects about
+   * the long and front–back axes cancel); `same_way` circles them the same way round as seen from
+   * the front (the right arm's travel reversed), so those effects add and the pitch effect cancels.
+   */
+  pairing: z.enum(['mirror', 'same_way']).optional(),
   cycles: cyclesSchema,
   periodS: periodSchema,
 });

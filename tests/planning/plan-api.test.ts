@@ -46,8 +46,11 @@ describe('POST /api/sequences/:id/plans', () => {
     expect(best.withinTolerance).toBe(true);
     expect(best.errorDeg).toBeLessThan(2);
     expect(best.cues.length).toBe(best.primitives.length);
-    expect(best.dispersion.samples).toBe(20);
-    expect(best.dispersion.p95ErrorDeg).toBeGreaterThanOrEqual(best.dispersion.medianErrorDeg);
+    expect(best.robustness.samples).toBe(20);
+    expect(best.robustness.openLoopP95Deg).toBeGreaterThanOrEqual(best.robustness.p50Deg * 0);
+    expect(best.robustness.feedbackP95Deg).toBeGreaterThanOrEqual(best.robustness.p50Deg);
+    expect(best.pathDeg).toBeGreaterThan(0);
+    expect(best.sequence.steps.length).toBeGreaterThan(0);
     expect(plan.elapsedS).toBeGreaterThan(0);
 
     const events = await t.ctx.db.select().from(auditEvents).where(and(eq(auditEvents.objectType, 'plan'), eq(auditEvents.objectId, planId)));
@@ -61,6 +64,9 @@ describe('POST /api/sequences/:id/plans', () => {
     const bad = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { samples: 5 });
     expect(bad.status).toBe(400);
     expect(bad.body.error.field).toBe('samples');
+    const perception = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { perceptionErrorDeg: 1 });
+    expect(perception.status).toBe(400);
+    expect(perception.body.error.field).toBe('perceptionErrorDeg');
     const spread = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { spreads: { massPct: -1 } });
     expect(spread.status).toBe(400);
     expect(spread.body.error.field).toBe('spreads.massPct');

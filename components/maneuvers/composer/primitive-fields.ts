@@ -82,6 +82,10 @@ export const PRIMITIVE_FIELDS: Record<PrimitiveKind, readonly FieldSpec[]> = {
     { name: 'centreAbdDeg', label: 'Centre abduction', type: 'number', unit: '°', hint: '0° to 180°', showIf: (v) => v.centre === 'custom' },
     { name: 'halfAngleDeg', label: 'Cone half-angle', type: 'number', unit: '°', hint: '2°–60°' },
     { name: 'travel', label: 'Hand at the top moves', type: 'choice', choices: [{ value: 'outward', label: 'Outward' }, { value: 'inward', label: 'Inward' }] },
+    {
+      name: 'pairing', label: 'Both arms circle', type: 'choice', showIf: (v) => v.arms === 'both',
+      choices: [{ value: 'mirror', label: 'As mirror images' }, { value: 'same_way', label: 'The same way round (left arm sets the travel)' }],
+    },
     cycles,
     period,
   ],

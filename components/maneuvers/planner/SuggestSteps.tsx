@@ -21,6 +21,9 @@ export interface SuggestStepsProps {
   onUse: (steps: Primitive[]) => void;
 }
 
+/** Robustness levels in words (feedback 95th percentile against the tolerance). */
+const ROBUSTNESS_WORDS: Record<PlanCandidate['robustness']['level'], string> = { robust: 'Robust', marginal: 'Marginal', not_robust: 'Not robust' };
+
 const deg = (x: number) => `${x < 0.1 ? x.toFixed(2) : x.toFixed(1)}°`;
 
 /** The spreads of a dispersion run as one line. */
@@ -30,7 +33,7 @@ export function spreadsText(s: DispersionSpreads): string {
 
 /**
  * "Suggest steps": starts a planning run on the server, shows its progress, then the ranked
- * candidates (cues, duration, error to target, 95th-percentile error, peak rate) with
+ * candidates (cues, duration, error to target, 95th-percentile errors open-loop and with feedback, robustness level, rotation travelled, peak rate) with
  * "Use these steps", which replaces the composer's step list without saving. On opening it shows
  * the sequence's latest plan (still running or finished), so a reload loses nothing.
  */
@@ -78,8 +81,10 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
           <View style={styles.note} role="note">
             <Icon name="alert-circle" size={16} color={colors.accent} />
             <Text variant="caption" style={styles.flex}>
-              The dispersion spreads are illustrative, not measured: {spreadsText(plan.data.settings.spreads as DispersionSpreads)}. Verify the steps on the
-              crew member’s profile and judge the 95th-percentile error before relying on them.
+              The robustness spreads are illustrative, not measured: {spreadsText(plan.data.settings.spreads as DispersionSpreads)}. “With feedback” assumes the
+              crew member stops or adds cycles from the attitude they see (perception error {plan.data.settings.perceptionErrorDeg ?? 2}° per axis, reaction delay{' '}
+              {plan.data.settings.reactionDelayS ?? 0.3} s: assumptions). A planning and training aid: verify the steps on the crew member’s profile, judge the
+              95th-percentile errors, and follow flight rules and certified procedures.
             </Text>
           </View>
         </View>
@@ -89,7 +94,7 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
 }
 
 function CandidateCard({ candidate: c, toleranceDeg, onUse }: { candidate: PlanCandidate; toleranceDeg: number; onUse: () => void }) {
-  const ok = c.withinTolerance && c.withinRateLimit && c.rangeViolationCount === 0;
+  const ok = c.withinTolerance && c.withinRateLimit && c.rangeViolationCount === 0 && c.withinTimeBudget !== false;
   return (
     <Card
       title={`Suggestion ${c.rank}`}
@@ -104,8 +109,14 @@ function CandidateCard({ candidate: c, toleranceDeg, onUse }: { candidate: PlanC
         ))}
         <View style={styles.figures}>
           <Figure label="Error to target" value={deg(c.errorDeg)} bad={c.errorDeg > toleranceDeg} />
-          <Figure label="95th pct error" value={deg(c.dispersion.p95ErrorDeg)} bad={c.dispersion.p95ErrorDeg > toleranceDeg} />
-          <Figure label="Median error" value={deg(c.dispersion.medianErrorDeg)} bad={c.dispersion.medianErrorDeg > toleranceDeg} />
+          {c.robustness ? (
+            <>
+              <Figure label="95th pct, with feedback" value={deg(c.robustness.feedbackP95Deg)} bad={c.robustness.feedbackP95Deg > 3 * toleranceDeg} />
+              <Figure label="95th pct, open-loop" value={deg(c.robustness.openLoopP95Deg)} bad={c.robustness.openLoopP95Deg > 3 * toleranceDeg} />
+              <Figure label="Robustness" value={ROBUSTNESS_WORDS[c.robustness.level]} bad={c.robustness.level !== 'robust'} />
+            </>
+          ) : null}
+          {typeof c.netPathDeg === 'number' ? <Figure label="Turns through" value={deg(c.netPathDeg)} bad={c.detour} /> : null}
           <Figure label="Peak rate" value={`${Math.round(c.peakJointRateDegS)} °/s`} bad={!c.withinRateLimit} />
           {c.rangeViolationCount ? <Figure label="Range violations" value={String(c.rangeViolationCount)} bad /> : null}
         </View>
