@@ -9,7 +9,8 @@ test('a person changes their password from the account menu, is signed out, and 
   const email = `sol.marrow.${Date.now()}@lumen.example.test`;
   const first = 'first-password-77';
   const second = 'second-password-88';
-  const admin = await playwrightRequest.newContext({ baseURL });
+  // Cookie-authenticated changes must name our origin (the server refuses cross-site ones).
+  const admin = await playwrightRequest.newContext({ baseURL, extraHTTPHeaders: { Origin: baseURL! } });
   expect((await admin.post('/api/auth/sign-in', { data: { email: DEMO_BY_ROLE.admin.email, password: DEMO_PASSWORD } })).status()).toBe(200);
   expect((await admin.post('/api/team/invitations', { data: { email, name: 'Sol Marrow', role: 'reviewer' } })).status()).toBe(201);
   const token = (await invitationPathFor(admin, email)).split('/').pop();

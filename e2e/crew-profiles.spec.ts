@@ -100,7 +100,7 @@ test('a planner creates a crew member, saves and edits a profile, compares versi
   }
 });
 
-test('a stale save shows the conflict and saves nothing', async ({ page }) => {
+test('a stale save shows the conflict and saves nothing', async ({ page, baseURL }) => {
   await page.setViewportSize({ width: 1280, height: 800 });
   await signIn(page, DEMO_BY_ROLE.planner.email);
   await page.goto('/crew');
@@ -109,7 +109,7 @@ test('a stale save shows the conflict and saves nothing', async ({ page }) => {
   await expect(page.getByLabel('Body mass')).toHaveValue('54');
   // Someone else saves version 2 meanwhile (through the API, as another tab would).
   const id = new URL(page.url()).searchParams.get('member')!;
-  const other = await page.request.post(`/api/crew/${id}/versions`, { data: { baseVersion: 1, note: 'other tab', inputs: { sex: 'female', stature: 1.61, mass: 53.2, suitId: null } } });
+  const other = await page.request.post(`/api/crew/${id}/versions`, { headers: { Origin: baseURL! }, data: { baseVersion: 1, note: 'other tab', inputs: { sex: 'female', stature: 1.61, mass: 53.2, suitId: null } } });
   expect(other.status()).toBe(201);
   await page.getByLabel('Body mass').fill('55');
   await page.getByRole('button', { name: 'Save version 2' }).click();

@@ -13,7 +13,9 @@ test('a planner saves a new maneuver, edits it at once and saves again: version 
   const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; currentVersion: number | null }[] };
   const member = members.find((m) => m.currentVersion != null);
   expect(member, 'a crew member with a profile').toBeTruthy();
+  // A cookie-authenticated change from outside the page names our origin, as a browser would.
   const created = await page.request.post('/api/sequences', {
+    headers: { Origin: baseURL! },
     data: { crewMemberId: member!.id, name: `Save twice ${Date.now()}`, target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: 0, roll: 0 } } },
   });
   expect(created.status()).toBe(201);

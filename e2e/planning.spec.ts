@@ -22,7 +22,9 @@ test('a planner asks for suggested steps, finds them again after a reload, uses 
   const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; name: string; currentVersion: number | null }[] };
   const member = members.find((m) => m.name === 'Tamsin Reed' && m.currentVersion != null) ?? members.find((m) => m.currentVersion != null);
   expect(member, 'a crew member with a profile').toBeTruthy();
+  // A cookie-authenticated change from outside the page names our origin, as a browser would.
   const created = await page.request.post('/api/sequences', {
+    headers: { Origin: baseURL! },
     data: { crewMemberId: member!.id, name: `Suggested quarter turn ${Date.now()}`, target: { mode: 'ypr', yprDeg: { yaw: 90, pitch: 0, roll: 0 }, toleranceDeg } },
   });
   expect(created.status()).toBe(201);

@@ -9,6 +9,7 @@ import { pinoHttp } from 'pino-http';
 import type { AppContext } from './app-context.ts';
 import { ACCESS_POLICY } from './auth/access-policy.ts';
 import { guard } from './auth/authenticate.ts';
+import { originCheck } from './auth/origin-check.ts';
 import { errorHandler } from './http/error-handler.ts';
 import { readiness } from './http/readiness.ts';
 import { HttpError } from './http/http-error.ts';
@@ -22,7 +23,8 @@ import { invitationsRouter } from './routes/invitations.ts';
 export function createApp(ctx: AppContext): Express {
   const app = express();
   app.disable('x-powered-by');
-  app.set('trust proxy', 'loopback');
+  // Proxy trust is explicit (TRUST_PROXY, default none): otherwise any client could pick its own address.
+  app.set('trust proxy', ctx.config.TRUST_PROXY);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -39,6 +41,7 @@ export function createApp(ctx: AppContext): Express {
   );
   app.use(pinoHttp({ logger: ctx.logger, serializers: httpLogSerializers, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
   app.use(cookieParser());
+  app.use('/api', originCheck(ctx.config));
   app.use(express.json({ limit: '2mb' }));
 
   // Liveness: the process answers. Readiness: the database answers and every migration is applied.
@@ -58,7 +61,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/*splat', (_req, _res, next) => next(new HttpError(404, 'not_found', 'No such API route.')));
   app.use('/api', (_req, _res, next) => next(new HttpError(404, 'not_found', 'No such API route.')));
 
-  if (ctx.devMailbox) {
+  if (ctx.config.DEV_MAILBOX && ctx.devMailbox) {
     const mailbox = ctx.devMailbox;
     app.get('/dev/mail', (_req, res) => {
       res.type('html').send(renderDevMailbox(mailbox));

@@ -18,8 +18,10 @@ export const configSchema = z.object({
   TOKEN_TTL: z.string().default('8h'),
   /** bcrypt cost. 12 or more in production; tests lower it through this setting only. */
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
-  /** Sign-in attempts allowed per e-mail and address per window. */
-  SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  /** Failed sign-in attempts allowed per client address per window (whatever e-mails they name). */
+  SIGNIN_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+  /** Failed sign-in attempts allowed per account (e-mail) per window, from all addresses together. */
+  SIGNIN_ACCOUNT_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   SIGNIN_RATE_WINDOW_MS: z.coerce.number().int().min(1000).default(15 * 60 * 1000),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
@@ -34,6 +36,34 @@ export const configSchema = z.object({
   S3_BUCKET: z.string().default('holonaut-uploads'),
   S3_ACCESS_KEY_ID: z.string().default('S3RVER'),
   S3_SECRET_ACCESS_KEY: z.string().default('S3RVER'),
+  /**
+   * Which reverse proxies Express believes about the client address (X-Forwarded-For): "false"
+   * (default: none, the socket address counts), a hop count, or a comma list of addresses, subnets
+   * or the names loopback / linklocal / uniquelocal. Set it only behind your own proxy.
+   */
+  TRUST_PROXY: z
+    .string()
+    .default('false')
+    .transform((v, c): boolean | number | string[] => {
+      const t = v.trim();
+      if (t === '' || t === 'false' || t === '0') return false;
+      if (/^[1-9]\d?$/.test(t)) return Number(t);
+      const items = t.split(',').map((x) => x.trim()).filter(Boolean);
+      const ok = /^(loopback|linklocal|uniquelocal|[0-9a-fA-F.:]+(\/\d{1,3})?)$/;
+      const bad = items.find((x) => !ok.test(x));
+      if (bad !== undefined) {
+        c.addIssue({ code: 'custom', message: `"${bad}" is not false, a hop count, an address, a subnet or loopback/linklocal/uniquelocal` });
+        return z.NEVER;
+      }
+      return items;
+    }),
+  /** Extra origins (comma list) allowed to send cookie-authenticated changes, besides PUBLIC_URL and the server's own host. */
+  ALLOWED_ORIGINS: z
+    .string()
+    .default('')
+    .transform((v) => v.split(',').map((x) => x.trim().replace(/\/$/, '')).filter(Boolean)),
+  /** Serve the local SMTP fake's messages at /dev/mail (development only; refused in production). */
+  DEV_MAILBOX: bool.default(false),
   /** Folder of the exported web app; served when it exists. */
   WEB_DIST: z.string().optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
@@ -64,6 +94,9 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   }
   if (parsed.data.NODE_ENV === 'production' && parsed.data.BCRYPT_COST < 12) {
     throw new Error('Invalid configuration:\n  BCRYPT_COST: must be at least 12 in production');
+  }
+  if (parsed.data.NODE_ENV === 'production' && parsed.data.DEV_MAILBOX) {
+    throw new Error('Invalid configuration:\n  DEV_MAILBOX: the development mailbox is never served in production');
   }
   return parsed.data;
 }

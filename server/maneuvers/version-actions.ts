@@ -7,7 +7,7 @@
 import { and, eq, inArray, isNull, lt, max, ne, or } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, reviews, sequences, sequenceVersions, users, type SequenceVersionRow } from '../../db/schema/index.ts';
+import { auditEvents, crewMembers, reviews, sequences, sequenceVersions, users, type SequenceVersionRow } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
@@ -159,6 +159,11 @@ export async function decideVersion(ctx: AppContext, user: SessionUser, versionI
   const { db } = ctx;
   const row = await loadForAction(db, versionId);
   if (row.v.authorId === user.id) throw forbidden('You authored this version: another reviewer must decide on it.');
+  // An admin may submit someone else's draft; whoever put it up for review does not decide on it either.
+  const [submitted] = await db.select({ id: auditEvents.id }).from(auditEvents).where(and(
+    eq(auditEvents.objectId, versionId), eq(auditEvents.action, 'sequence_version.submit'), eq(auditEvents.actorId, user.id),
+  )).limit(1);
+  if (submitted) throw forbidden('You submitted this version for review: another reviewer must decide on it.');
   nextStatusOr409(row.v.status, decision);
   const report = row.v.report as VerificationReport | null;
   await db.transaction(async (tx) => {

@@ -1,11 +1,12 @@
 import { eq } from 'drizzle-orm';
-import { type CookieOptions, Router } from 'express';
+import { type CookieOptions, type Request, type Response, Router } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 
 import { users } from '../../db/schema/index.ts';
 import { changePasswordRequestSchema, signInRequestSchema } from '../../shared/contracts/auth.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
+import { assertStrongPassword } from '../auth/password-strength.ts';
 import { hashPassword, verifyPassword } from '../auth/passwords.ts';
 import { toSessionUser } from '../auth/session-user.ts';
 import { SESSION_COOKIE } from '../auth/tokens.ts';
@@ -24,18 +25,33 @@ export function authRouter(ctx: AppContext): Router {
   // Compared against when the e-mail is unknown, so response time does not reveal which accounts exist.
   const dummyHash = hashPassword('not-a-real-password', config.BCRYPT_COST);
 
-  const limiter = rateLimit({
+  // Failed attempts are limited twice: per client address (whatever e-mails it tries) and per
+  // account (from every address together), so neither spraying e-mails nor spreading addresses helps.
+  const limited = (message: string) => (_req: Request, res: Response) => {
+    res.status(429).json({ error: { code: 'rate_limited', message } });
+  };
+  const perAddress = rateLimit({
     windowMs: config.SIGNIN_RATE_WINDOW_MS,
     limit: config.SIGNIN_RATE_LIMIT,
+    skipSuccessfulRequests: true,
     standardHeaders: 'draft-8',
     legacyHeaders: false,
-    keyGenerator: (req) => `${ipKeyGenerator(req.ip ?? '')}|${String(req.body?.email ?? '').trim().toLowerCase()}`,
-    handler: (_req, res) => {
-      res.status(429).json({ error: { code: 'rate_limited', message: 'Too many sign-in attempts. Wait a few minutes and try again.' } });
-    },
+    identifier: 'sign-in-address',
+    keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''),
+    handler: limited('Too many failed sign-in attempts from this network. Wait a few minutes and try again.'),
+  });
+  const perAccount = rateLimit({
+    windowMs: config.SIGNIN_RATE_WINDOW_MS,
+    limit: config.SIGNIN_ACCOUNT_RATE_LIMIT,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    identifier: 'sign-in-account',
+    keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    handler: limited('Too many failed sign-in attempts for this e-mail. Wait a few minutes and try again, or ask your administrator.'),
   });
 
-  router.post('/sign-in', limiter, validate({ body: signInRequestSchema }), async (req, res) => {
+  router.post('/sign-in', perAddress, perAccount, validate({ body: signInRequestSchema }), async (req, res) => {
     const { email, password } = req.body as { email: string; password: string };
     const [row] = await db.select().from(users).where(eq(users.email, email));
     const ok = await verifyPassword(password, row?.passwordHash ?? (await dummyHash));
@@ -76,6 +92,7 @@ export function meRouter(ctx: AppContext): Router {
       res.status(400).json({ error: { code: 'wrong_password', message: 'The current password is not right.', field: 'currentPassword' } });
       return;
     }
+    assertStrongPassword(newPassword, row, 'newPassword');
     const passwordHash = await hashPassword(newPassword, config.BCRYPT_COST);
     await db.update(users).set({ passwordHash, tokenVersion: row.tokenVersion + 1 }).where(eq(users.id, me.id));
     await recordAudit(db, { actorId: me.id, action: 'auth.password_changed', objectType: 'user', objectId: me.id });

@@ -6,6 +6,7 @@ import { invitations, users } from '../../db/schema/index.ts';
 import { acceptInvitationRequestSchema } from '../../shared/contracts/team.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
+import { assertStrongPassword } from '../auth/password-strength.ts';
 import { hashPassword } from '../auth/passwords.ts';
 import { toSessionUser } from '../auth/session-user.ts';
 import { SESSION_COOKIE } from '../auth/tokens.ts';
@@ -39,7 +40,9 @@ export function invitationsRouter(ctx: AppContext): Router {
   router.post('/:token/accept', validate({ params: tokenParams, body: acceptInvitationRequestSchema }), async (req, res) => {
     const inv = await openInvitation((res.locals.params as { token: string }).token);
     if (!inv) throw invalid();
-    const passwordHash = await hashPassword((req.body as { password: string }).password, ctx.config.BCRYPT_COST);
+    const { password } = req.body as { password: string };
+    assertStrongPassword(password, inv);
+    const passwordHash = await hashPassword(password, ctx.config.BCRYPT_COST);
     const user = await db.transaction(async (tx) => {
       // Marking the invitation used in the same statement that checks it keeps a double click from making two accounts.
       const used = await tx

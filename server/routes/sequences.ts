@@ -19,6 +19,7 @@ import { DOF_NAMES } from '../../shared/model/dof-names.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
+import { readableMember } from '../crew/crew-access.ts';
 import { badRequest, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
 import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
@@ -93,6 +94,8 @@ export function sequencesRouter(ctx: AppContext): Router {
 
   router.post('/compile', validate({ body: compileRequestSchema }), async (req, res) => {
     const input = req.body as z.infer<typeof compileRequestSchema>;
+    // Compiling against a member's profile reads that profile: the same rule as reading it (a trainee only their own).
+    if (input.crewMemberId) await readableMember(db, req.user!, input.crewMemberId);
     const dofs = input.crewMemberId ? dofInfoFromBody((await currentProfile(db, input.crewMemberId)).body as Body) : STANDARD_DOFS;
     const primitives = input.primitives as Primitive[];
     const c = compilePrimitives(primitives, dofs);

@@ -36,6 +36,8 @@ export async function startLocalServices(dataDir: string, opts: { throwaway?: bo
   env.SMTP_HOST = '127.0.0.1';
   env.SMTP_PORT = String(mail.port);
   env.SMTP_IGNORE_TLS = 'true';
+  // The fake's messages are readable at /dev/mail: only in this local development mode.
+  if (process.env.NODE_ENV !== 'production' && process.env.DEV_MAILBOX === undefined) env.DEV_MAILBOX = '1';
   log(`SMTP fake on 127.0.0.1:${mail.port}.`);
 
   let s3: S3Fake | null = null;

@@ -50,7 +50,7 @@ async function main() {
     const workerEnv = path.join(dataDir, 'worker.env');
     writeFileSync(workerEnv, Object.entries(services.env).map(([k, v]) => `${k}=${v}`).join('\n') + '\n', { mode: 0o600 });
     log(`More worker processes against this database: set -a; . ${workerEnv}; set +a; npm run worker`);
-    log(`Development mailbox (invitation links): ${server.url}/dev/mail`);
+    if (config.DEV_MAILBOX) log(`Development mailbox (invitation links): ${server.url}/dev/mail`);
     log(`Demo accounts (password for all: ${DEMO_PASSWORD}):`);
     for (const p of DEMO_PEOPLE) log(`  ${ROLE_LABELS[p.role].padEnd(15)} ${p.email}`);
     log('Planning and training aid only: follow flight rules and certified procedures.');

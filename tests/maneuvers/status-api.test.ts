@@ -161,6 +161,16 @@ describe('decisions on a version under review', () => {
     expect((await decide(versionId, 'clear', '', PEOPLE.reviewer)).status).toBe(200);
   });
 
+  it('an admin who submitted a planner\'s draft cannot clear it either (403); another reviewer can', async () => {
+    const { versionId } = await drafted(PEOPLE.planner);
+    expect((await submit(versionId, PEOPLE.admin)).status).toBe(200);
+    const own = await decide(versionId, 'clear', '', PEOPLE.admin);
+    expect(own.status).toBe(403);
+    expect(own.body.error.message).toMatch(/submitted/);
+    expect(await statusOf(versionId)).toBe('under_review');
+    expect((await decide(versionId, 'clear', '', PEOPLE.reviewer)).status).toBe(200);
+  });
+
   it('planners and trainees cannot decide (403 from the reviews area)', async () => {
     const { versionId } = await drafted();
     await submit(versionId);

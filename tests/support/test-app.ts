@@ -52,6 +52,7 @@ export async function startTestApp(opts: { seed?: boolean; env?: Record<string, 
     PUBLIC_URL: 'http://127.0.0.1:9',
     LOG_LEVEL: 'silent',
     SIGNIN_RATE_LIMIT: '1000',
+    SIGNIN_ACCOUNT_RATE_LIMIT: '1000',
     ...opts.env,
   });
   const ctx = createContext(config, mail.messages, opts.logDestination);
