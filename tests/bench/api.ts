@@ -99,7 +99,7 @@ async function main() {
   const cluster = await startLocalCluster({ dir, database: 'holonaut', throwaway: true, log: () => undefined });
   let child: ReturnType<typeof fork> | undefined;
   try {
-    const { db, pool } = createDatabase(cluster.url, 4);
+    const { db, pool } = createDatabase(cluster.url, { max: 4 });
     await runMigrations(db);
     await seedDemo(db, 12);
     const t0 = performance.now();
