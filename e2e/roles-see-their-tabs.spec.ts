@@ -21,6 +21,12 @@ for (const [role, tabs] of Object.entries(EXPECTED_TABS) as [keyof typeof EXPECT
   });
 }
 
+test('a reviewer lands on the review queue after signing in', async ({ page }) => {
+  await signIn(page, DEMO_BY_ROLE.reviewer.email);
+  await expect(page).toHaveURL(/\/reviews$/);
+  await expect(page.getByRole('tab', { name: 'Reviews' })).toHaveAttribute('aria-selected', 'true');
+});
+
 test('a planner who types the Team address lands on their own first tab', async ({ page }) => {
   await signIn(page, DEMO_BY_ROLE.planner.email);
   await page.goto('/team');

@@ -9,16 +9,16 @@ import type { ImportedRowResult, UploadRowError } from '@/shared/contracts/uploa
 import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 
 const ERROR_COLUMNS: DataColumn<UploadRowError>[] = [
-  { header: 'Row', cell: (e) => (e.row > 0 ? String(e.row) : 'file'), numeric: true, minWidth: 60 },
-  { header: 'Column', cell: (e) => e.column || '—', minWidth: 130 },
-  { header: 'Problem', cell: (e) => <Text>{e.reason}</Text>, minWidth: 260 },
+  { header: 'Row', cell: (e) => (e.row > 0 ? String(e.row) : 'file'), numeric: true, minWidth: 44, flex: 0 },
+  { header: 'Column', cell: (e) => <Text variant="label">{e.column || '—'}</Text>, minWidth: 96, flex: 1 },
+  { header: 'Problem', cell: (e) => <Text>{e.reason}</Text>, minWidth: 170, flex: 3 },
 ];
 
 const IMPORTED_COLUMNS: DataColumn<ImportedRowResult>[] = [
-  { header: 'Row', cell: (r) => (r.row > 0 ? String(r.row) : '—'), numeric: true, minWidth: 60 },
-  { header: 'Crew member', cell: (r) => <Text variant="label">{r.name}</Text>, minWidth: 160 },
-  { header: 'Result', cell: (r) => <Badge label={r.action === 'created' ? 'New member' : 'New version'} tone={r.action === 'created' ? 'teal' : 'accent'} />, minWidth: 120 },
-  { header: 'Version', cell: (r) => `v${r.version}`, numeric: true, minWidth: 70 },
+  { header: 'Row', cell: (r) => (r.row > 0 ? String(r.row) : '—'), numeric: true, minWidth: 40, flex: 0 },
+  { header: 'Crew member', cell: (r) => <Text variant="label">{r.name}</Text>, minWidth: 110, flex: 2 },
+  { header: 'Result', cell: (r) => <Badge label={r.action === 'created' ? 'New member' : 'New version'} tone={r.action === 'created' ? 'teal' : 'accent'} />, minWidth: 104 },
+  { header: 'Ver.', cell: (r) => `v${r.version}`, numeric: true, minWidth: 48, flex: 0 },
 ];
 
 /** What an upload did: the imported rows, or every row error of a rejected file (nothing imported). */
@@ -27,7 +27,7 @@ export function UploadResultView({ outcome }: { outcome: UploadOutcome }) {
   if (!outcome.ok) {
     return (
       <View style={{ gap: spacing.md }}>
-        <ErrorBanner title="Nothing was imported" error={outcome.message} />
+        <ErrorBanner title="Nothing was imported" error={`${upload.errors.length} problem${upload.errors.length === 1 ? '' : 's'} in ${new Set(upload.errors.map((e) => e.row)).size} row${new Set(upload.errors.map((e) => e.row)).size === 1 ? '' : 's'}: every one is listed below.`} />
         <DataTable label="Upload errors" columns={ERROR_COLUMNS} rows={upload.errors} rowKey={(e) => `${e.row}-${e.column}-${e.reason}`} rowTone={() => 'danger'} />
         <Text variant="caption" tone="muted">
           The file is kept as uploaded ({upload.objectKey}) for the record. Fix the rows above and upload it again.

@@ -8,6 +8,7 @@ import { targetText } from '@/components/maneuvers/target-text';
 import { VersionStatusBadge } from '@/components/maneuvers/VersionStatusBadge';
 import { VersionStatusNotice } from '@/components/maneuvers/VersionStatusNotice';
 import { isApiStatus } from '@/components/api/client';
+import { useIsWide } from '@/components/layout/use-is-wide';
 import { spacing } from '@/components/theme';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
@@ -24,6 +25,7 @@ export interface ReviewDetailProps {
 /** One version as a reviewer sees it: what it is, the decision controls, its steps, report and history. */
 export function ReviewDetail({ versionId }: ReviewDetailProps) {
   const q = useVersionQuery(versionId);
+  const wide = useIsWide();
   if (q.isPending) return <LoadingState label="Loading the version…" />;
   if (q.isError) {
     return isApiStatus(q.error, 404, 403) ? (
@@ -33,6 +35,8 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
     );
   }
   const v = q.data;
+  // on a phone the decision follows what it decides on; on a wide screen it stays in view at the top
+  const panel = <ReviewDecisionPanel version={v} />;
   return (
     <View style={styles.wrap} testID="review-detail">
       <View style={styles.head}>
@@ -53,7 +57,7 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
         {v.note ? <Text variant="caption">“{v.note}”</Text> : null}
       </View>
       <VersionStatusNotice version={v} forReviewer />
-      <ReviewDecisionPanel version={v} />
+      {wide ? panel : null}
       <Text variant="heading" role="heading" aria-level={2}>
         Steps
       </Text>
@@ -62,6 +66,7 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
         Verification report
       </Text>
       {v.report ? <VerificationReport report={v.report} versionId={v.id} profileVersion={v.profileVersion} /> : <Text tone="danger">This version has no verification report.</Text>}
+      {wide ? null : panel}
       <Text variant="heading" role="heading" aria-level={2}>
         Review history
       </Text>

@@ -20,7 +20,10 @@ export function canSeeTab(role: Role, tab: TabName): boolean {
   return TABS[tab].roles.includes(role);
 }
 
-/** The first tab a role lands on after signing in. */
+/** Where each role's work starts: a reviewer's is the review queue, not the first tab in the bar. */
+const HOME_TAB: Partial<Record<Role, TabName>> = { reviewer: 'reviews' };
+
+/** The tab a role lands on after signing in. */
 export function homeTab(role: Role): TabName {
-  return TAB_NAMES.find((t) => canSeeTab(role, t)) ?? 'crew';
+  return HOME_TAB[role] ?? TAB_NAMES.find((t) => canSeeTab(role, t)) ?? 'crew';
 }

@@ -1,5 +1,5 @@
-import type { ReactNode } from 'react';
-import { ScrollView, StyleSheet, View } from 'react-native';
+import { useState, type ReactNode } from 'react';
+import { ScrollView, StyleSheet, View, type NativeScrollEvent, type NativeSyntheticEvent, type ViewStyle } from 'react-native';
 
 import { colors, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
@@ -30,11 +30,36 @@ export interface DataTableProps<R> {
   testID?: string;
 }
 
-/** A compact data table with ARIA table roles; scrolls sideways on a phone rather than squashing columns. */
+/**
+ * A compact data table with ARIA table roles; scrolls sideways on a phone rather than squashing
+ * columns, and then says so: a hint line above and a fade on the edge that has more columns.
+ */
 export function DataTable<R>({ label, columns, rows, rowKey, rowTone, testID }: DataTableProps<R>) {
   const width = (c: DataColumn<R>) => ({ minWidth: c.minWidth ?? 90, flex: c.flex ?? 1 });
+  const [box, setBox] = useState(0);
+  const [content, setContent] = useState(0);
+  const [offset, setOffset] = useState(0);
+  const overflow = content - box > 2;
+  const moreRight = overflow && offset < content - box - 2;
+  const moreLeft = overflow && offset > 2;
+  const onScroll = (e: NativeSyntheticEvent<NativeScrollEvent>) => setOffset(e.nativeEvent.contentOffset.x);
   return (
-    <ScrollView horizontal contentContainerStyle={styles.scroll} testID={testID}>
+    <View>
+      {overflow ? (
+        <Text variant="caption" tone="muted" style={styles.hint} testID={testID ? `${testID}-scroll-hint` : undefined}>
+          {moreRight ? 'More columns → swipe or scroll sideways' : '← More columns on the left'}
+        </Text>
+      ) : null}
+      <View>
+    <ScrollView
+      horizontal
+      contentContainerStyle={styles.scroll}
+      testID={testID}
+      onLayout={(e) => setBox(e.nativeEvent.layout.width)}
+      onContentSizeChange={(w) => setContent(w)}
+      onScroll={onScroll}
+      scrollEventThrottle={50}
+    >
       <View role="table" aria-label={label} style={styles.table}>
         <View role="row" style={[styles.row, styles.head]}>
           {columns.map((c) => (
@@ -68,7 +93,16 @@ export function DataTable<R>({ label, columns, rows, rowKey, rowTone, testID }: 
         })}
       </View>
     </ScrollView>
+        {moreRight ? <View pointerEvents="none" style={[styles.fade, styles.fadeRight]} /> : null}
+        {moreLeft ? <View pointerEvents="none" style={[styles.fade, styles.fadeLeft]} /> : null}
+      </View>
+    </View>
   );
+}
+
+/** react-native-web takes a CSS background image on a View; the native types do not list it. */
+function webGradient(direction: string): ViewStyle {
+  return { backgroundImage: `linear-gradient(${direction}, rgba(21, 34, 50, 0), ${colors.surface})` } as ViewStyle;
 }
 
 const styles = StyleSheet.create({
@@ -80,4 +114,9 @@ const styles = StyleSheet.create({
   danger: { backgroundColor: colors.dangerTint },
   cell: { paddingVertical: spacing.sm, paddingHorizontal: spacing.sm, justifyContent: 'center' },
   right: { textAlign: 'right' },
+  hint: { paddingHorizontal: spacing.sm, paddingTop: spacing.xs },
+  // a soft edge over the cut-off columns (web draws the gradient; elsewhere a plain shade)
+  fade: { position: 'absolute', top: 0, bottom: 0, width: 28 },
+  fadeRight: { right: 0, ...webGradient('to right') },
+  fadeLeft: { left: 0, ...webGradient('to left') },
 });

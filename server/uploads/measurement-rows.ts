@@ -2,7 +2,7 @@ import { sql } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, suitConfigs } from '../../db/schema/index.ts';
-import type { SegmentLengths } from '../../shared/contracts/profile-inputs.ts';
+import { profileInputsSchema, type SegmentLengths } from '../../shared/contracts/profile-inputs.ts';
 import { suitConfigSchema, type SuitConfig } from '../../shared/contracts/suit.ts';
 import {
   MEASUREMENT_COLUMNS,
@@ -100,6 +100,17 @@ function planRow(
     const wanted = c.suit.toLowerCase();
     suit = suits.find((s) => s.id === wanted || s.name.toLowerCase() === wanted) ?? null;
     if (!suit) errors.push({ row: r.row, column: 'suit', reason: `no suit "${c.suit}"; use one of: ${suits.map((s) => s.id).join(', ') || '(none stored)'}, or leave empty` });
+  }
+  // every range check of every field, not only the first: the schema lists all its issues at once
+  const candidate = { sex: sex === 'female' || sex === 'male' ? sex : 'female', stature: stature ?? 1.75, mass: mass ?? 70, lengths, biacromialBreadth, hipBreadth, gear: [] };
+  const checked = profileInputsSchema.safeParse(candidate);
+  if (!checked.success) {
+    for (const issue of checked.error.issues) {
+      const column = columnFor(issue.path.join('.'));
+      // a cell already reported (empty, not a number) or filled in above with a placeholder is not checked twice
+      if (errors.some((e) => e.column === column)) continue;
+      errors.push({ row: r.row, column, reason: issue.message });
+    }
   }
   if (errors.length) return null;
 

@@ -51,6 +51,18 @@ describe('measurements CSV', () => {
     expect(res.body.upload.errors[0].reason).toBe('stature must be at most 2.3 m');
   });
 
+  it('lists every problem of one row in a single upload: bad sex, out-of-range stature and mass, unknown suit, negative length', async () => {
+    const csv = [HEADER, 'D Four,,other,2.9,25,moon-suit,-0.4', 'E Five,,male,1.7,60,,'].join('\n');
+    const res = await api().post('/api/uploads/measurements').set('Authorization', planner).attach('file', Buffer.from(csv), 'one-row-many.csv');
+    expect(res.status).toBe(422);
+    const errors = res.body.upload.errors as { row: number; column: string; reason: string }[];
+    expect(errors.map((e) => e.column).sort()).toEqual(['mass_kg', 'sex', 'stature_m', 'suit', 'thigh_m']);
+    expect(errors.every((e) => e.row === 2)).toBe(true);
+    expect(errors.find((e) => e.column === 'stature_m')?.reason).toBe('stature must be at most 2.3 m');
+    expect(errors.find((e) => e.column === 'mass_kg')?.reason).toBe('mass must be at least 30 kg');
+    expect(errors.find((e) => e.column === 'thigh_m')?.reason).toBe('thigh length must be positive');
+  });
+
   it('refuses an unknown column in the header (row 1)', async () => {
     const res = await api().post('/api/uploads/measurements').set('Authorization', planner).attach('file', Buffer.from('name,sex,stature_m,mass_kg,height\nX,male,1.7,70,1\n'), 'h.csv');
     expect(res.status).toBe(422);
