@@ -12,3 +12,17 @@ test('serves the web app, the API and the development mailbox', async ({ page, r
   await page.goto('/');
   await expect(page).toHaveTitle(/Holonaut/i);
 });
+
+// The product's own icon (assets/, named in app.json) ships with the web build: favicon and the sign-in mark.
+test('the web build ships the favicon and the app icon', async ({ page, request }) => {
+  const favicon = await request.get('/favicon.ico');
+  expect(favicon.status()).toBe(200);
+  expect((await favicon.body()).length).toBeGreaterThan(1000);
+  await page.goto('/sign-in');
+  const icon = page.getByRole('img', { name: 'Holonaut' }).locator('img').first();
+  await expect(icon).toHaveAttribute('src', /icon/);
+  const src = (await icon.getAttribute('src')) ?? '';
+  const res = await request.get(src);
+  expect(res.status()).toBe(200);
+  expect(res.headers()['content-type']).toContain('image/png');
+});

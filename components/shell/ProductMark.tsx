@@ -1,7 +1,10 @@
-import { StyleSheet, View } from 'react-native';
+import { Image, StyleSheet, View } from 'react-native';
 
-import { colors, spacing } from '@/components/theme';
+import { spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
+
+/** The product's own icon (assets/icon.svg rendered by server/scripts/render-assets.ts). */
+const ICON = require('@/assets/icon.png') as number;
 
 /** Props of {@link ProductMark}. */
 export interface ProductMarkProps {
@@ -10,16 +13,14 @@ export interface ProductMarkProps {
 }
 
 /**
- * The Holonaut mark: a ring (the closed limb loop) with an offset dot (the body's turned attitude),
- * drawn with plain views so it needs no image asset, and the word mark.
+ * The Holonaut mark: the app icon (a closed limb loop whose traversal leaves the body turned) and
+ * the word mark. The same image is the favicon and the splash, so the product looks the same everywhere.
  */
 export function ProductMark({ size = 'md' }: ProductMarkProps) {
-  const ring = size === 'lg' ? 34 : 24;
+  const side = size === 'lg' ? 40 : 28;
   return (
     <View style={styles.row} aria-label="Holonaut" role="img">
-      <View style={[styles.ring, { width: ring, height: ring, borderRadius: ring / 2, borderWidth: size === 'lg' ? 3 : 2.5 }]}>
-        <View style={[styles.dot, { width: ring * 0.3, height: ring * 0.3, borderRadius: ring, top: -ring * 0.12, right: -ring * 0.06 }]} />
-      </View>
+      <Image source={ICON} style={{ width: side, height: side }} accessibilityIgnoresInvertColors />
       <Text variant={size === 'lg' ? 'title' : 'heading'} style={[styles.word, size === 'lg' && styles.wordLg]}>
         holonaut
       </Text>
@@ -29,8 +30,6 @@ export function ProductMark({ size = 'md' }: ProductMarkProps) {
 
 const styles = StyleSheet.create({
   row: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm + 2 },
-  ring: { borderColor: colors.teal },
-  dot: { position: 'absolute', backgroundColor: colors.accent, borderWidth: 2, borderColor: colors.background },
   word: { fontFamily: 'Inter_700Bold', letterSpacing: 0.2 },
   wordLg: { fontSize: 28, lineHeight: 34 },
 });
