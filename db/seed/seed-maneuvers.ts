@@ -17,6 +17,7 @@ import { recordAudit } from '../../server/audit/record-audit.ts';
 import type { StoredCompiled } from '../../server/maneuvers/stored-compiled.ts';
 import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
 import { profileVersions, reverifications, reviews, sequences, sequenceVersions, type ProfileVersionRow } from '../schema/index.ts';
+import { loadPlannedManeuvers } from './planned-maneuvers.ts';
 import type { SeedState } from './run-seed.ts';
 
 const PLANNER = 'orrin.vale@lumen.example.test';
@@ -39,6 +40,8 @@ interface DemoSequence {
   crew: string;
   name: string;
   versions: DemoVersion[];
+  /** The target it was planned for (default: what the newest version reaches, rounded). */
+  yprDeg?: { yaw: number; pitch: number; roll: number };
 }
 
 const HIP_SWIRLS: Primitive[] = [
@@ -103,6 +106,15 @@ const DEMO_SEQUENCES: DemoSequence[] = [
   },
 ];
 
+/** Maneuvers the planner made for meaningful targets (db/seed/planned-maneuvers.json): waiting for review or being drafted. */
+const PLANNED_SEQUENCES: DemoSequence[] = loadPlannedManeuvers().map((m, i) => ({
+  crew: m.crew, name: m.name, yprDeg: m.yprDeg,
+  versions: [{
+    primitives: m.primitives, status: i % 2 ? 'drafting' : 'under_review', author: PLANNER_2,
+    note: `Suggested by the planner for yaw ${m.yprDeg.yaw}°, pitch ${m.yprDeg.pitch}°, roll ${m.yprDeg.roll}°; robustness with feedback (95th percentile) ${m.feedbackP95Deg.toFixed(1)}°.`,
+  }],
+}));
+
 const quatOf = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
 
 /** Seed stage: inserts the demo maneuvers (after the crew profiles). */
@@ -111,7 +123,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
   const profiles = async (crewMemberId: string) =>
     db.select().from(profileVersions).where(eq(profileVersions.crewMemberId, crewMemberId)).orderBy(desc(profileVersions.version));
 
-  for (const demo of DEMO_SEQUENCES) {
+  for (const demo of [...DEMO_SEQUENCES, ...PLANNED_SEQUENCES]) {
     const crewMemberId = crewIds[demo.crew];
     const all = await profiles(crewMemberId);
     if (!all.length) continue;
@@ -123,9 +135,11 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
     const probeTarget = sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: 0, pitch: 0, roll: 0 } });
     const probe = await verifySequence({ body: current.body as Body, sequence: first.sequence, target: probeTarget, profileVersionId: current.id });
     const y = probe.final.yprDeg;
-    const target: SequenceTarget = sequenceTargetSchema.parse({
-      mode: 'ypr', yprDeg: { yaw: Math.round(y.yaw), pitch: Math.round(y.pitch), roll: Math.round(y.roll) }, toleranceDeg: 3, rateLimitDegS: 150, timeBudgetS: 30,
-    });
+    const target: SequenceTarget = demo.yprDeg
+      ? sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: demo.yprDeg, toleranceDeg: 2, rateLimitDegS: 180, timeBudgetS: 60 })
+      : sequenceTargetSchema.parse({
+        mode: 'ypr', yprDeg: { yaw: Math.round(y.yaw), pitch: Math.round(y.pitch), roll: Math.round(y.roll) }, toleranceDeg: 3, rateLimitDegS: 150, timeBudgetS: 30,
+      });
 
     const [seq] = await db.insert(sequences).values({ crewMemberId, name: demo.name, target, createdBy: userIds[PLANNER] }).returning();
     for (const [i, v] of demo.versions.entries()) {

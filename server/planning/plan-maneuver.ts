@@ -46,6 +46,8 @@ export interface PlanInputs {
 export interface PlanOutcome {
   candidates: PlanCandidate[];
   notes: string[];
+  /** Wall time of the search and verification, and of the robustness runs, seconds. */
+  timings: { searchS: number; robustnessS: number };
 }
 
 /** Whether a candidate meets tolerance, ranges, rate limit and time budget. */
@@ -83,6 +85,8 @@ function pickSeeds(seeds: readonly SearchSeed[], count: number, limits: SearchLi
 /** Runs the planner. */
 export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, skipRobustness = false, onProgress }: PlanInputs): PlanOutcome {
   const progress = onProgress ?? (() => {});
+  const started = performance.now();
+  const timings = { searchS: 0, robustnessS: 0 };
   const goal = targetQuat(target);
   const goalAngleDeg = quatAngle(goal) * DEG;
   const limits: SearchLimits = { toleranceDeg: target.toleranceDeg, rateLimitDegS: target.rateLimitDegS, timeBudgetS: target.timeBudgetS };
@@ -91,7 +95,7 @@ export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, s
   progress(0.02, 'fitting the sweeps to the body');
   const { families, unavailable } = fitFamilies(body, target.rateLimitDegS, groups);
   for (const u of unavailable) notes.push(`${u.group.replaceAll('_', ' ')} not used: ${u.reason}.`);
-  if (!families.length) return { candidates: [], notes: [...notes, 'No sweep fits this body\'s joint ranges: nothing to plan with.'] };
+  if (!families.length) return { candidates: [], notes: [...notes, 'No sweep fits this body\'s joint ranges: nothing to plan with.'], timings };
 
   progress(0.05, 'measuring per-cycle rotations');
   const tables = familyTables(body, families, target.rateLimitDegS);
@@ -99,7 +103,7 @@ export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, s
   if (!seeds.length) {
     const axes = [...new Set(families.map((f) => f.axis))];
     notes.push(`No composition of up to three phases reaches the target within ${target.toleranceDeg}° using sweeps that turn about ${axes.join(', ')} within this body's joint ranges and the ${target.rateLimitDegS}°/s rate limit.`);
-    return { candidates: [], notes };
+    return { candidates: [], notes, timings };
   }
   const chosen = pickSeeds(seeds, settings.maxCandidates + EXTRA_SEEDS, limits);
   if (limits.timeBudgetS !== null && chosen.every((s) => s.estimatedDurationS > limits.timeBudgetS!)) {
@@ -119,16 +123,17 @@ export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, s
     .slice(0, settings.maxCandidates);
   verify.forEach(({ r }, i) => {
     progress(0.4 + (0.55 * i) / verify.length, `verifying candidate ${i + 1} of ${verify.length}`);
-    out.push(verifyCandidate(body, target, r.parts, r.simulations, model, settings, skipRobustness, goalAngleDeg));
+    out.push(verifyCandidate(body, target, r.parts, r.simulations, model, settings, skipRobustness, goalAngleDeg, timings));
   });
+  timings.searchS = (performance.now() - started) / 1000 - timings.robustnessS;
   progress(1, 'done');
   const candidates = rankCandidates(out);
   if (!candidates.some(meetsLimits)) notes.push('No candidate meets every limit: see each candidate\'s figures.');
-  return { candidates, notes };
+  return { candidates, notes, timings };
 }
 
 /** Full-accuracy verification, path and robustness of one candidate. */
-function verifyCandidate(body: Body, target: SequenceTarget, parts: CandidatePart[], simulations: number, model: RobustnessModel, settings: PlanSettings, skipRobustness: boolean, goalAngleDeg: number): Omit<PlanCandidate, 'rank'> {
+function verifyCandidate(body: Body, target: SequenceTarget, parts: CandidatePart[], simulations: number, model: RobustnessModel, settings: PlanSettings, skipRobustness: boolean, goalAngleDeg: number, timings: PlanOutcome['timings']): Omit<PlanCandidate, 'rank'> {
   const goal = targetQuat(target);
   const primitives = candidatePrimitives(parts, target.rateLimitDegS);
   const sequence = compileForBody(body, primitives);
@@ -138,12 +143,14 @@ function verifyCandidate(body: Body, target: SequenceTarget, parts: CandidatePar
   const netPathDeg = parts.reduce((s, p) => s + p.cycles * quatAngle(perCycleRotation(body, p.family, p.size, target.rateLimitDegS)) * DEG, 0);
   let robustness: PlanCandidate['robustness'] = { openLoopP95Deg: NaN, feedbackP95Deg: NaN, p50Deg: NaN, withinToleranceShare: NaN, samples: 0, seed: settings.seed, level: 'not_robust' };
   if (!skipRobustness) {
+    const t0 = performance.now();
     const samples = robustnessSamples({ body, sequence, target: goal, toleranceDeg: target.toleranceDeg, seed: settings.seed, model }, 0, settings.samples);
     const s = summariseRobustness(samples, target.toleranceDeg);
     robustness = {
       openLoopP95Deg: s.openLoopP95Deg, feedbackP95Deg: s.feedbackP95Deg, p50Deg: s.p50Deg, withinToleranceShare: s.withinToleranceShare,
       samples: s.samples, seed: settings.seed, level: robustnessLevel(s.feedbackP95Deg, target.toleranceDeg),
     };
+    timings.robustnessS += (performance.now() - t0) / 1000;
   }
   return {
     primitives,
