@@ -35,12 +35,12 @@ test('a planner asks for suggested steps, finds them again after a reload, uses 
   const panel = page.getByTestId('suggest-steps');
   await panel.getByRole('button', { name: 'Suggest steps' }).click();
 
-  // Ranked candidates, each with its error to target and 95th-percentile error.
+  // Ranked candidates, each with its error to target, 95th-percentile errors (with feedback and open-loop) and robustness level.
   const best = panel.getByTestId('plan-candidate-1');
   await expect(best).toBeVisible({ timeout: 180_000 });
   await expect(panel.getByRole('list', { name: 'Suggested step lists' })).toContainText('best first');
   await expect(best).toContainText('Error to target');
-  await expect(best).toContainText('95th pct error');
+  await expect(best).toContainText('95th pct, with feedback');
   await expect(best).toContainText(/\d°/);
 
   // A reload keeps the plan: the panel finds the sequence's latest plan again.
@@ -48,7 +48,7 @@ test('a planner asks for suggested steps, finds them again after a reload, uses 
   await expect(page.getByText('No steps yet')).toBeVisible();
   await expect(best).toBeVisible({ timeout: 30_000 });
   await expect(best).toContainText('Error to target');
-  await expect(best).toContainText('95th pct error');
+  await expect(best).toContainText('95th pct, with feedback');
   await expect(panel.getByRole('button', { name: 'Suggest again' })).toBeVisible();
 
   // The cues the suggestion lists ("1. cue") become the composer's steps.
