@@ -81,6 +81,10 @@ export const configSchema = z.object({
   JOB_SUPERVISE_SECONDS: z.coerce.number().int().min(1).max(600).default(10),
   /** How often a worker looks for due jobs (retries included), seconds. */
   JOB_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(2),
+  /** Samples of the robustness run queued when a version is saved. */
+  ROBUSTNESS_SAMPLES: z.coerce.number().int().min(10).max(20_000).default(1000),
+  /** Samples per robustness chunk job. */
+  ROBUSTNESS_CHUNK_SIZE: z.coerce.number().int().min(1).max(10_000).default(25),
 });
 
 export type Config = z.infer<typeof configSchema>;

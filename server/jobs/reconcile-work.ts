@@ -105,6 +105,10 @@ export async function reconcileWork(ctx: AppContext, queue: JobSender): Promise<
       resend.set(c.runId, [...(resend.get(c.runId) ?? []), c.chunk]);
       continue;
     }
+    // The job may have finished this chunk since the list was read: fail the run only if it is still open.
+    const [now] = await db.select({ state: robustnessChunks.state }).from(robustnessChunks)
+      .where(and(eq(robustnessChunks.runId, c.runId), eq(robustnessChunks.chunkIndex, c.chunk)));
+    if (!now || !(OPEN_STATES as readonly string[]).includes(now.state)) continue;
     if (await failRobustnessRun(ctx, c.runId, `Robustness run did not finish: ${v.reason}.`, c.chunk)) failed++;
   }
   for (const [runId, chunks] of resend) {

@@ -25,6 +25,8 @@ import { validate } from '../http/validate.ts';
 import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
 import { compareVersions } from '../maneuvers/compare-versions.ts';
 import { cueCardRouter } from './cue-card.ts';
+import { robustnessRouter } from './robustness.ts';
+import { queueRobustnessAfterSave } from '../jobs/robustness/version-robustness.ts';
 import { sequencePlansRouter } from './sequence-plans.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
 import { subscribeToProfileChanges } from '../maneuvers/flag-recheck.ts';
@@ -122,6 +124,7 @@ export function sequencesRouter(ctx: AppContext): Router {
   });
 
   router.use(cueCardRouter(ctx));
+  router.use(robustnessRouter(ctx));
   router.use('/:sequenceId/plans', sequencePlansRouter(ctx));
 
   router.get('/:sequenceId', validate({ params: sequenceParams }), async (req, res) => {
@@ -152,6 +155,7 @@ export function sequencesRouter(ctx: AppContext): Router {
     const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
     const input = req.body as z.infer<typeof saveVersionRequestSchema>;
     const id = await saveVersion(ctx, req.user!, sequenceId, { primitives: input.primitives as Primitive[], baseVersion: input.baseVersion, note: input.note });
+    await queueRobustnessAfterSave(ctx, id, req.user!.id);
     res.status(201).json(await loadVersionDetail(db, req.user!, id));
   });
 

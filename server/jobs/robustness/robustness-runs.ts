@@ -218,7 +218,7 @@ async function closeRun(ctx: AppContext, runId: string, state: 'failed' | 'cance
     if (!run) return false;
     if (chunkIndex !== undefined) {
       await tx.update(robustnessChunks).set({ state: 'failed', error: reason, finishedAt: new Date() })
-        .where(and(eq(robustnessChunks.runId, runId), eq(robustnessChunks.chunkIndex, chunkIndex)));
+        .where(and(eq(robustnessChunks.runId, runId), eq(robustnessChunks.chunkIndex, chunkIndex), chunkOpen()));
     }
     await tx.update(robustnessChunks).set({ state: 'cancelled', finishedAt: new Date() })
       .where(and(eq(robustnessChunks.runId, runId), inArray(robustnessChunks.state, [...OPEN_STATES])));

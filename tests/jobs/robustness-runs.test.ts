@@ -1,0 +1,128 @@
+/**
+ * Robustness runs as chunked background work: saving a version queues its run; chunks run as jobs
+ * and merge to exactly the figures of one thread computing every sample (sample i is seeded by
+ * (seed, i)); a run reports progress; a cancelled run stops its chunks; the API guards who may
+ * start, read and cancel.
+ */
+import { and, eq } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { auditEvents, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
+import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
+import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
+import { robustnessRunView, versionRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
+import { loadVersion } from '../../server/motion/version-access.ts';
+import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
+import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
+import { PEOPLE, as, createSequence, crewOf, saveVersion } from '../maneuvers/maneuver-api.ts';
+import { eventually } from '../support/eventually.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+let t: TestApp;
+let jobs: RunningJobQueue;
+let versionId: string;
+
+beforeAll(async () => {
+  // Small runs so the suite stays quick: 40 samples in chunks of 7 (6 chunks, the last one short).
+  t = await startTestApp({ env: { ROBUSTNESS_SAMPLES: '40', ROBUSTNESS_CHUNK_SIZE: '7', WORKER_CONCURRENCY: '2' } });
+  jobs = await startJobQueue(t.ctx, { pollingIntervalS: 0.5, superviseS: 1 });
+  t.ctx.jobs = jobs;
+  const sequenceId = await createSequence(t, await crewOf(t, PEOPLE.trainee), 'Robustness run test');
+  const saved = await saveVersion(t, sequenceId, 0);
+  expect(saved.status).toBe(201);
+  versionId = saved.body.id as string;
+}, 120_000);
+afterAll(async () => {
+  await jobs?.stop();
+  await t?.close();
+});
+
+describe('robustness run of a saved version', () => {
+  it('is queued by the save and merges its chunks to the figures of one thread', async () => {
+    const run = await eventually(async () => {
+      const r = await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}/robustness`);
+      expect(r.status).toBe(200);
+      expect(r.body.progress).toBeGreaterThanOrEqual(0);
+      expect(r.body.progress).toBeLessThanOrEqual(1);
+      return ['done', 'failed', 'cancelled'].includes(r.body.state) ? r.body : undefined;
+    }, 90_000);
+    expect(run).toMatchObject({ state: 'done', progress: 1, samples: 40, seed: 1, chunks: 6, chunksDone: 6, error: null });
+
+    // The same samples computed in one thread, in one call.
+    const v = (await loadVersion(t.ctx.db, versionId))!;
+    const inputs = { ...versionRunInputs(v), seed: 1, model: robustnessModelSchema.parse(run.model) };
+    const single = summariseRobustness(robustnessSamples(inputs, 0, 40), inputs.toleranceDeg);
+    expect(run.openLoopP95Deg).toBe(single.openLoopP95Deg);
+    expect(run.feedbackP95Deg).toBe(single.feedbackP95Deg);
+    expect(run.p50Deg).toBe(single.p50Deg);
+    expect(run.withinToleranceShare).toBe(single.withinToleranceShare);
+    expect(run.feedbackErrorsDeg).toEqual(single.feedbackErrorsDeg);
+    expect(run.feedbackP95Deg).toBeGreaterThan(0);
+
+    // Exactly one result: one 'done' audit event for the run.
+    const done = await t.ctx.db.select().from(auditEvents).where(and(eq(auditEvents.action, 'robustness.done'), eq(auditEvents.objectId, versionId)));
+    expect(done).toHaveLength(1);
+
+    // A trainee does not see a draft version's run; a reviewer does.
+    expect((await as(t, PEOPLE.reviewer).get(`/sequences/versions/${versionId}/robustness`)).status).toBe(200);
+    expect((await as(t, PEOPLE.trainee).get(`/sequences/versions/${versionId}/robustness`)).status).toBe(404);
+  }, 120_000);
+
+  it('merging a chunk twice (a retried job) changes nothing', async () => {
+    const [run] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.sequenceVersionId, versionId));
+    const before = await robustnessRunView(t.ctx.db, run);
+    const { mergeChunk } = await import('../../server/jobs/robustness/robustness-runs.ts');
+    await mergeChunk(t.ctx, run.id, 0, [{ index: 0, openLoopErrorDeg: 99, feedbackErrorDeg: 99 }]);
+    const [again] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, run.id));
+    expect(await robustnessRunView(t.ctx.db, again)).toEqual(before);
+  });
+
+  it('a cancelled run stops its chunks: no chunk finishes after the cancel and no job stays queued', async () => {
+    // A long run: 2,000 samples in chunks of 5.
+    const started = await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness`, { samples: 2000, seed: 7 });
+    expect(started.status).toBe(202);
+    expect(started.body).toMatchObject({ state: 'queued', samples: 2000, seed: 7 });
+    const runId = started.body.id as string;
+    // A second start while it runs is refused.
+    const twice = await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness`, {});
+    expect(twice.status).toBe(409);
+    expect(twice.body.error.code).toBe('run_open');
+
+    await eventually(async () => {
+      const r = await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}/robustness`);
+      return r.body.id === runId && r.body.progress > 0 ? true : undefined;
+    }, 60_000, 100);
+    // Trainees and reviewers may not cancel.
+    expect((await as(t, PEOPLE.reviewer).post(`/sequences/versions/${versionId}/robustness/cancel`)).status).toBe(403);
+    const cancelled = await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness/cancel`);
+    expect(cancelled.status).toBe(200);
+    expect(cancelled.body.state).toBe('cancelled');
+    expect(cancelled.body.error).toMatch(/Cancelled by/);
+    const doneAtCancel = cancelled.body.chunksDone as number;
+    expect(doneAtCancel).toBeLessThan(400);
+
+    // Give running chunks time to notice (they check every second), then nothing more completes.
+    await new Promise((r) => setTimeout(r, 2500));
+    const chunks = await t.ctx.db.select().from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
+    const done = chunks.filter((c) => c.state === 'done').length;
+    expect(done).toBe(doneAtCancel);
+    expect(chunks.filter((c) => c.state === 'queued' || c.state === 'running')).toHaveLength(0);
+    const live = (await jobs.boss.findJobs(ROBUSTNESS_CHUNK_QUEUE, { data: { runId } })).filter((j) => ['created', 'retry', 'active'].includes(j.state));
+    expect(live).toHaveLength(0);
+    const [row] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
+    expect(row.state).toBe('cancelled');
+    expect(row.figures).toBeNull();
+
+    // Cancelling again: nothing open.
+    expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness/cancel`)).body.error.code).toBe('no_open_run');
+  }, 120_000);
+
+  it('refuses bad requests naming the field', async () => {
+    const bad = await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness`, { samples: 5 });
+    expect(bad.status).toBe(400);
+    expect(JSON.stringify(bad.body)).toMatch(/samples/);
+    expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness`, { seed: -1 })).status).toBe(400);
+    expect((await as(t, PEOPLE.planner).get('/sequences/versions/not-an-id/robustness')).status).toBe(400);
+    expect((await as(t, PEOPLE.planner).get('/sequences/versions/00000000-0000-4000-8000-000000000000/robustness')).status).toBe(404);
+  });
+});
