@@ -1,4 +1,4 @@
-import { doublePrecision, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 import { profileVersions } from './crew.ts';
 import { sequences } from './sequences.ts';
@@ -8,7 +8,9 @@ import { users } from './users.ts';
  * A planner run ("Suggest steps") for a sequence: settings, state and the ranked candidates
  * (shapes in shared/contracts/plan.ts). Filled by the planning job.
  */
-export const plans = pgTable('plans', {
+export const plans = pgTable(
+  'plans',
+  {
   id: uuid('id').primaryKey().defaultRandom(),
   sequenceId: uuid('sequence_id')
     .notNull()
@@ -34,6 +36,9 @@ export const plans = pgTable('plans', {
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   startedAt: timestamp('started_at', { withTimezone: true }),
   finishedAt: timestamp('finished_at', { withTimezone: true }),
-});
+  },
+  // A sequence's plans, newest first.
+  (t) => [index('plans_sequence_created_idx').on(t.sequenceId, t.createdAt)],
+);
 
 export type PlanRow = typeof plans.$inferSelect;

@@ -1,4 +1,5 @@
-import { doublePrecision, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import { doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 
 import { VERSION_STATUSES } from '../../shared/contracts/version-status.ts';
 import { crewMembers, profileVersions } from './crew.ts';
@@ -7,16 +8,21 @@ import { users } from './users.ts';
 export const versionStatusEnum = pgEnum('version_status', VERSION_STATUSES);
 
 /** A named maneuver for one crew member with its target reorientation (JSON per shared contracts). */
-export const sequences = pgTable('sequences', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  crewMemberId: uuid('crew_member_id')
-    .notNull()
-    .references(() => crewMembers.id),
-  name: text('name').notNull(),
-  target: jsonb('target').notNull(),
-  createdBy: uuid('created_by').references(() => users.id),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-});
+export const sequences = pgTable(
+  'sequences',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    crewMemberId: uuid('crew_member_id')
+      .notNull()
+      .references(() => crewMembers.id),
+    name: text('name').notNull(),
+    target: jsonb('target').notNull(),
+    createdBy: uuid('created_by').references(() => users.id),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  // A trainee's list and the crew filter select by crew member.
+  (t) => [index('sequences_crew_member_idx').on(t.crewMemberId)],
+);
 
 /**
  * One version of a sequence: composer primitives, the compiled engine steps, the profile version it
@@ -38,6 +44,8 @@ export const sequenceVersions = pgTable(
       .references(() => profileVersions.id),
     status: versionStatusEnum('status').notNull().default('drafting'),
     report: jsonb('report'),
+    // The report's headline figures (ReportSummary), computed by PostgreSQL (migration 0004) for lists.
+    reportSummary: jsonb('report_summary').generatedAlwaysAs(sql`holonaut_report_summary(report)`),
     engineVersion: text('engine_version'),
     inputsHash: text('inputs_hash'),
     authorId: uuid('author_id').references(() => users.id),
@@ -48,11 +56,18 @@ export const sequenceVersions = pgTable(
     clearedAt: timestamp('cleared_at', { withTimezone: true }),
     staleSince: timestamp('stale_since', { withTimezone: true }),
   },
-  (t) => [unique('sequence_versions_seq_version').on(t.sequenceId, t.version)],
+  (t) => [
+    unique('sequence_versions_seq_version').on(t.sequenceId, t.version),
+    // The review queue and re-checks select by status; re-checks by profile version.
+    index('sequence_versions_status_idx').on(t.status),
+    index('sequence_versions_profile_version_idx').on(t.profileVersionId),
+  ],
 );
 
 /** A reviewer's decision or comment on a version, with the exact bindings it was made against. */
-export const reviews = pgTable('reviews', {
+export const reviews = pgTable(
+  'reviews',
+  {
   id: uuid('id').primaryKey().defaultRandom(),
   sequenceVersionId: uuid('sequence_version_id')
     .notNull()
@@ -66,10 +81,14 @@ export const reviews = pgTable('reviews', {
   profileVersionId: uuid('profile_version_id').references(() => profileVersions.id),
   engineVersion: text('engine_version'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-});
+  },
+  (t) => [index('reviews_sequence_version_idx').on(t.sequenceVersionId)],
+);
 
 /** Background recomputation of a version against a newer profile version (pg-boss job outcome). */
-export const reverifications = pgTable('reverifications', {
+export const reverifications = pgTable(
+  'reverifications',
+  {
   id: uuid('id').primaryKey().defaultRandom(),
   sequenceVersionId: uuid('sequence_version_id')
     .notNull()
@@ -89,10 +108,15 @@ export const reverifications = pgTable('reverifications', {
   attempts: integer('attempts').notNull().default(0),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   finishedAt: timestamp('finished_at', { withTimezone: true }),
-});
+  },
+  // Lists show each version's newest record.
+  (t) => [index('reverifications_version_created_idx').on(t.sequenceVersionId, t.createdAt)],
+);
 
 /** A trainee's logged run of a cleared version. */
-export const rehearsals = pgTable('rehearsals', {
+export const rehearsals = pgTable(
+  'rehearsals',
+  {
   id: uuid('id').primaryKey().defaultRandom(),
   sequenceVersionId: uuid('sequence_version_id')
     .notNull()
@@ -106,7 +130,9 @@ export const rehearsals = pgTable('rehearsals', {
   totalSteps: integer('total_steps').notNull(),
   selfRating: integer('self_rating').notNull(),
   notes: text('notes').notNull().default(''),
-});
+  },
+  (t) => [index('rehearsals_trainee_idx').on(t.traineeId, t.performedAt), index('rehearsals_sequence_version_idx').on(t.sequenceVersionId)],
+);
 
 export type SequenceRow = typeof sequences.$inferSelect;
 export type SequenceVersionRow = typeof sequenceVersions.$inferSelect;

@@ -1,7 +1,8 @@
-import { and, asc, eq, ilike, or, type SQL } from 'drizzle-orm';
+import { and, asc, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, users, type CrewMemberRow, type ProfileVersionRow } from '../../db/schema/index.ts';
+import type { CurrentGlimpse } from './profile-views.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import { notFound } from '../http/http-error.ts';
 
@@ -11,10 +12,11 @@ function likePattern(text: string): string {
 }
 
 /**
- * Crew members the user may see, by name, each with its current version row (if any). A trainee
- * gets only their own member; `q` searches name and call sign, case-insensitively.
+ * Crew members the user may see, by name, each with a glimpse of its current version (mass and
+ * suit, read in SQL: the version's body is not loaded). A trainee gets only their own member; `q`
+ * searches name and call sign, case-insensitively.
  */
-export async function listCrewMembers(db: Database, user: SessionUser, q?: string): Promise<{ member: CrewMemberRow; current: ProfileVersionRow | null }[]> {
+export async function listCrewMembers(db: Database, user: SessionUser, q?: string): Promise<{ member: CrewMemberRow; current: CurrentGlimpse | null }[]> {
   const filters: SQL[] = [];
   if (user.role === 'trainee') {
     if (!user.crewMemberId) return [];
@@ -22,12 +24,16 @@ export async function listCrewMembers(db: Database, user: SessionUser, q?: strin
   }
   if (q) filters.push(or(ilike(crewMembers.name, likePattern(q)), ilike(crewMembers.callSign, likePattern(q)))!);
   const rows = await db
-    .select({ member: crewMembers, current: profileVersions })
+    .select({
+      member: crewMembers,
+      mass: sql<number | null>`(${profileVersions.summary}->>'mass')::float8`,
+      suitName: sql<string | null>`${profileVersions.inputs}->'suit'->>'name'`,
+    })
     .from(crewMembers)
     .leftJoin(profileVersions, and(eq(profileVersions.crewMemberId, crewMembers.id), eq(profileVersions.version, crewMembers.currentVersion)))
     .where(filters.length ? and(...filters) : undefined)
     .orderBy(asc(crewMembers.name));
-  return rows;
+  return rows.map(({ member, mass, suitName }) => ({ member, current: mass === null ? null : { mass, suitName } }));
 }
 
 /** Every version of a member, newest first, with the author's name. */

@@ -9,17 +9,28 @@ import type {
   StoredProfileInputs,
 } from '../../shared/contracts/profile-version.ts';
 
+/** What a crew member's list entry shows of the current profile version. */
+export interface CurrentGlimpse {
+  /** Whole-body mass, kg. */
+  mass: number;
+  suitName: string | null;
+}
+
+/** The glimpse of a full version row. */
+export function glimpseOf(row: ProfileVersionRow): CurrentGlimpse {
+  return { mass: (row.summary as ProfileSummary).mass, suitName: (row.inputs as StoredProfileInputs).suit?.name ?? null };
+}
+
 /** A crew member for the API, with a glimpse of the current version (null before the first save). */
-export function crewMemberView(row: CrewMemberRow, current: ProfileVersionRow | null): CrewMemberView {
-  const inputs = current?.inputs as StoredProfileInputs | undefined;
+export function crewMemberView(row: CrewMemberRow, current: CurrentGlimpse | null): CrewMemberView {
   return {
     id: row.id,
     name: row.name,
     callSign: row.callSign,
     notes: row.notes,
     currentVersion: row.currentVersion,
-    currentMass: current ? (current.summary as ProfileSummary).mass : null,
-    currentSuit: inputs?.suit?.name ?? null,
+    currentMass: current?.mass ?? null,
+    currentSuit: current?.suitName ?? null,
     createdAt: row.createdAt.toISOString(),
   };
 }

@@ -2,7 +2,7 @@
 import { eq } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
-import { sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { sequenceVersions } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { VerificationReport, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { primitiveListSchema } from '../../shared/primitives/primitive-schemas.ts';
@@ -11,27 +11,32 @@ import { notFound } from '../http/http-error.ts';
 import { assertVersionVisible, canAuthor, canReview } from './maneuver-access.ts';
 import { transition } from './status-machine.ts';
 import { storedCompiled } from './stored-compiled.ts';
-import { reviewEntries, selectReverifications, sequenceHeads, toReverification, toVersionSummary, selectVersions } from './version-views.ts';
+import { reviewEntries, selectReverifications, selectVersions, toReverification, toSequenceHead, toVersionSummary } from './version-views.ts';
 
 /** The full view of a version, or 404 when missing or hidden from the user. */
 export async function loadVersionDetail(db: Database, user: SessionUser, versionId: string): Promise<VersionDetail> {
   const [row] = await selectVersions(db, eq(sequenceVersions.id, versionId));
   if (!row) throw notFound('Sequence version');
   assertVersionVisible(user, { crewMemberId: row.crewMemberId, status: row.v.status, clearedAt: row.v.clearedAt });
-  const [sequence] = await sequenceHeads(db, eq(sequences.id, row.v.sequenceId));
-  const revs = await selectReverifications(db, [row.v.id]);
-  const primitives = primitiveListSchema.parse(row.v.primitives);
-  const compiled = storedCompiled(row.v.compiled);
+  // The content (steps, report) and the histories, read side by side once the version is visible.
+  const [[content], revs, reviews] = await Promise.all([
+    db.select({ primitives: sequenceVersions.primitives, compiled: sequenceVersions.compiled, report: sequenceVersions.report })
+      .from(sequenceVersions).where(eq(sequenceVersions.id, versionId)),
+    selectReverifications(db, [row.v.id]),
+    reviewEntries(db, row.v.id),
+  ]);
+  const primitives = primitiveListSchema.parse(content.primitives);
+  const compiled = storedCompiled(content.compiled);
   const isAuthor = row.v.authorId === user.id;
   return {
-    ...toVersionSummary(row, revs[0]),
-    sequence,
+    ...toVersionSummary(row),
+    sequence: toSequenceHead(row),
     primitives,
     cues: primitives.map(cueFor),
     compiled: compiled.sequence,
     stepMap: compiled.stepMap,
-    report: (row.v.report as VerificationReport | null) ?? null,
-    reviews: await reviewEntries(db, row.v.id),
+    report: (content.report as VerificationReport | null) ?? null,
+    reviews,
     reverifications: revs.map(toReverification),
     allowed: {
       submit: canAuthor(user) && (isAuthor || user.role === 'admin') && transition(row.v.status, 'submit') !== null,

@@ -2,38 +2,73 @@
  * Reads versions and sequences as the API shows them (shared/contracts/maneuver.ts), with the
  * names, profile version numbers and latest re-verification joined in.
  */
-import { and, asc, desc, eq, inArray, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, reverifications, reviews, sequences, sequenceVersions, users, type ReverificationRow, type SequenceVersionRow } from '../../db/schema/index.ts';
-import type { Reverification, ReviewEntry, SequenceHead, SequenceTarget, VerificationReport, VersionSummary } from '../../shared/contracts/maneuver.ts';
+import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import { summarizeReport } from './build-report.ts';
 
 const author = alias(users, 'author');
 const clearer = alias(users, 'clearer');
 
-/** A version row with what its summary needs. */
+/** The columns of a version that lists show: no primitives, compiled steps or report (only its summary). */
+const versionListColumns = {
+  id: sequenceVersions.id, sequenceId: sequenceVersions.sequenceId, version: sequenceVersions.version, status: sequenceVersions.status,
+  profileVersionId: sequenceVersions.profileVersionId, authorId: sequenceVersions.authorId, note: sequenceVersions.note,
+  createdAt: sequenceVersions.createdAt, submittedAt: sequenceVersions.submittedAt, clearedBy: sequenceVersions.clearedBy,
+  clearedAt: sequenceVersions.clearedAt, staleSince: sequenceVersions.staleSince, engineVersion: sequenceVersions.engineVersion,
+  inputsHash: sequenceVersions.inputsHash, reportSummary: sequenceVersions.reportSummary,
+};
+
+/** A re-verification record without its report (only the target error read from it). */
+const reverificationColumns = {
+  id: reverifications.id, sequenceVersionId: reverifications.sequenceVersionId, fromProfileVersionId: reverifications.fromProfileVersionId,
+  toProfileVersionId: reverifications.toProfileVersionId, state: reverifications.state, attitudeShiftDeg: reverifications.attitudeShiftDeg,
+  targetErrorDeg: sql<number | null>`(${reverifications.report}->'target'->>'errorDeg')::float8`.as('target_error_deg'),
+  error: reverifications.error, attempts: reverifications.attempts, createdAt: reverifications.createdAt, finishedAt: reverifications.finishedAt,
+};
+
+/** A re-verification record as lists read it. */
+export type ReverificationListRow = { [K in keyof typeof reverificationColumns]: K extends 'targetErrorDeg' ? number | null : ReverificationRow[K & keyof ReverificationRow] };
+
+/** A version row with what its summary needs (its sequence head and newest re-verification joined in). */
 export interface VersionRowJoined {
-  v: SequenceVersionRow;
+  v: { [K in keyof typeof versionListColumns]: SequenceVersionRow[K] };
   crewMemberId: string;
+  crewMemberName: string;
+  sequence: { name: string; target: unknown; createdAt: Date };
   profileVersion: number;
   currentProfileVersion: number | null;
   authorName: string | null;
   clearedByName: string | null;
+  latestReverification: ReverificationListRow | null;
 }
 
-/** Version rows matching `where`, newest version first. */
+/**
+ * Version rows matching `where`, newest version first, in one query: the sequence, crew member,
+ * profile version number, names and the newest re-verification are joined in.
+ */
 export async function selectVersions(db: Database, where: SQL | undefined): Promise<VersionRowJoined[]> {
-  return db
+  const rev = db.select(reverificationColumns).from(reverifications)
+    .where(eq(reverifications.sequenceVersionId, sequenceVersions.id))
+    .orderBy(desc(reverifications.createdAt)).limit(1).as('latest_reverification');
+  const rows = await db
     .select({
-      v: sequenceVersions,
+      v: versionListColumns,
       crewMemberId: sequences.crewMemberId,
+      crewMemberName: crewMembers.name,
+      sequence: { name: sequences.name, target: sequences.target, createdAt: sequences.createdAt },
       profileVersion: profileVersions.version,
       currentProfileVersion: crewMembers.currentVersion,
       authorName: author.name,
       clearedByName: clearer.name,
+      rev: {
+        id: rev.id, sequenceVersionId: rev.sequenceVersionId, fromProfileVersionId: rev.fromProfileVersionId, toProfileVersionId: rev.toProfileVersionId,
+        state: rev.state, attitudeShiftDeg: rev.attitudeShiftDeg, targetErrorDeg: rev.targetErrorDeg, error: rev.error, attempts: rev.attempts,
+        createdAt: rev.createdAt, finishedAt: rev.finishedAt,
+      },
     })
     .from(sequenceVersions)
     .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
@@ -41,30 +76,30 @@ export async function selectVersions(db: Database, where: SQL | undefined): Prom
     .innerJoin(profileVersions, eq(profileVersions.id, sequenceVersions.profileVersionId))
     .leftJoin(author, eq(author.id, sequenceVersions.authorId))
     .leftJoin(clearer, eq(clearer.id, sequenceVersions.clearedBy))
+    .leftJoinLateral(rev, sql`true`)
     .where(where)
     .orderBy(desc(sequenceVersions.version));
+  return rows.map(({ rev: r, ...row }) => ({ ...row, latestReverification: r && r.id ? (r as ReverificationListRow) : null }));
 }
 
-/** Re-verification records of the given versions, newest first. */
-export async function selectReverifications(db: Database, versionIds: string[]): Promise<ReverificationRow[]> {
+/** Re-verification records of the given versions, newest first (reports not read). */
+export async function selectReverifications(db: Database, versionIds: string[]): Promise<ReverificationListRow[]> {
   if (!versionIds.length) return [];
-  return db.select().from(reverifications).where(inArray(reverifications.sequenceVersionId, versionIds)).orderBy(desc(reverifications.createdAt));
+  return db.select(reverificationColumns).from(reverifications).where(inArray(reverifications.sequenceVersionId, versionIds)).orderBy(desc(reverifications.createdAt));
 }
 
 /** A re-verification record as the API shows it. */
-export function toReverification(r: ReverificationRow): Reverification {
-  const report = r.report as VerificationReport | null;
+export function toReverification(r: ReverificationListRow): Reverification {
   return {
     id: r.id, fromProfileVersionId: r.fromProfileVersionId, toProfileVersionId: r.toProfileVersionId,
-    state: r.state as Reverification['state'], attitudeShiftDeg: r.attitudeShiftDeg, targetErrorDeg: report?.target.errorDeg ?? null,
+    state: r.state as Reverification['state'], attitudeShiftDeg: r.attitudeShiftDeg, targetErrorDeg: r.targetErrorDeg,
     error: r.error, attempts: r.attempts, createdAt: r.createdAt.toISOString(), finishedAt: r.finishedAt?.toISOString() ?? null,
   };
 }
 
-/** The summary of one joined version row; `latestReverification` is the newest record, if any. */
-export function toVersionSummary(row: VersionRowJoined, latestReverification: ReverificationRow | undefined): VersionSummary {
+/** The summary of one joined version row. */
+export function toVersionSummary(row: VersionRowJoined): VersionSummary {
   const { v } = row;
-  const report = v.report as VerificationReport | null;
   return {
     id: v.id, sequenceId: v.sequenceId, version: v.version, status: v.status,
     profileVersionId: v.profileVersionId, profileVersion: row.profileVersion,
@@ -73,18 +108,23 @@ export function toVersionSummary(row: VersionRowJoined, latestReverification: Re
     createdAt: v.createdAt.toISOString(), submittedAt: v.submittedAt?.toISOString() ?? null,
     clearedBy: v.clearedBy, clearedByName: row.clearedByName, clearedAt: v.clearedAt?.toISOString() ?? null,
     staleSince: v.staleSince?.toISOString() ?? null, engineVersion: v.engineVersion, inputsHash: v.inputsHash,
-    summary: report ? summarizeReport(report) : null,
-    reverification: latestReverification ? toReverification(latestReverification) : null,
+    summary: (v.reportSummary as ReportSummary | null) ?? null,
+    reverification: row.latestReverification ? toReverification(row.latestReverification) : null,
+  };
+}
+
+/** The sequence head of a joined version row. */
+export function toSequenceHead(row: VersionRowJoined): SequenceHead {
+  return {
+    id: row.v.sequenceId, crewMemberId: row.crewMemberId, crewMemberName: row.crewMemberName, name: row.sequence.name,
+    target: readTarget(row.sequence.target), createdAt: row.sequence.createdAt.toISOString(),
   };
 }
 
 /** Summaries of the versions matching `where`, newest first. */
 export async function versionSummaries(db: Database, where: SQL | undefined): Promise<{ rows: VersionRowJoined[]; summaries: VersionSummary[] }> {
   const rows = await selectVersions(db, where);
-  const revs = await selectReverifications(db, rows.map((r) => r.v.id));
-  const latest = new Map<string, ReverificationRow>();
-  for (const r of revs) if (!latest.has(r.sequenceVersionId)) latest.set(r.sequenceVersionId, r);
-  return { rows, summaries: rows.map((r) => toVersionSummary(r, latest.get(r.v.id))) };
+  return { rows, summaries: rows.map(toVersionSummary) };
 }
 
 /** Sequence heads matching `where`, by name. */
@@ -98,6 +138,41 @@ export async function sequenceHeads(db: Database, where: SQL | undefined): Promi
   return rows.map(({ s, crewMemberName }) => ({
     id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name,
     target: readTarget(s.target), createdAt: s.createdAt.toISOString(),
+  }));
+}
+
+/** A sequence head with the ids of its newest visible version and of the version trainees rehearse. */
+export interface SequenceListRow {
+  head: SequenceHead;
+  versionCount: number;
+  latestId: string | null;
+  clearedId: string | null;
+}
+
+/**
+ * Sequence heads matching `where`, by name, each with its visible version count, newest visible
+ * version id and rehearsable version id (newest cleared, or a once-cleared recheck one), in one
+ * query (index-backed lateral look-ups, whatever the number of versions).
+ */
+export async function sequenceListRows(db: Database, where: SQL | undefined, visible: SQL | undefined): Promise<SequenceListRow[]> {
+  const ofSequence = eq(sequenceVersions.sequenceId, sequences.id);
+  const latest = db.select({ id: sequenceVersions.id }).from(sequenceVersions)
+    .where(allOf(ofSequence, visible)).orderBy(desc(sequenceVersions.version)).limit(1).as('latest');
+  const cleared = db.select({ id: sequenceVersions.id }).from(sequenceVersions)
+    .where(allOf(ofSequence, visible, or(eq(sequenceVersions.status, 'cleared'), and(eq(sequenceVersions.status, 'recheck'), isNotNull(sequenceVersions.clearedAt)))))
+    .orderBy(desc(sequenceVersions.version)).limit(1).as('cleared');
+  const count = sql<number>`(SELECT count(*)::int FROM ${sequenceVersions} WHERE ${allOf(ofSequence, visible)})`;
+  const rows = await db
+    .select({ s: sequences, crewMemberName: crewMembers.name, versionCount: count, latestId: latest.id, clearedId: cleared.id })
+    .from(sequences)
+    .innerJoin(crewMembers, eq(crewMembers.id, sequences.crewMemberId))
+    .leftJoinLateral(latest, sql`true`)
+    .leftJoinLateral(cleared, sql`true`)
+    .where(where)
+    .orderBy(asc(sequences.name));
+  return rows.map(({ s, crewMemberName, versionCount, latestId, clearedId }) => ({
+    head: { id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name, target: readTarget(s.target), createdAt: s.createdAt.toISOString() },
+    versionCount, latestId, clearedId,
   }));
 }
 

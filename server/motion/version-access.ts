@@ -50,6 +50,37 @@ export async function loadVersion(db: Database, versionId: string): Promise<Load
   };
 }
 
+/** The few columns the access rule needs (no body, no steps). */
+export interface VersionAccess {
+  id: string;
+  status: VersionStatus;
+  crewMemberId: string;
+  profileVersionId: string;
+}
+
+/** Applies the rehearsal view's rule to a version (see loadVersionFor). */
+function assertPlayable(user: SessionUser, v: { status: VersionStatus; crewMemberId: string }): void {
+  if (user.role !== 'trainee') return;
+  if (!user.crewMemberId || v.crewMemberId !== user.crewMemberId) throw notFound('Sequence version');
+  if (!PLAYABLE_FOR_TRAINEE.includes(v.status)) {
+    throw forbidden(v.status === 'recheck'
+      ? 'This version needs a re-check after a profile change; rehearse it again once it is cleared.'
+      : 'Only cleared versions can be rehearsed.');
+  }
+}
+
+/** Like loadVersionFor, reading only what the rule needs: enough to serve a cached motion. */
+export async function versionAccessFor(db: Database, user: SessionUser, versionId: string): Promise<VersionAccess> {
+  const [row] = await db
+    .select({ id: sequenceVersions.id, status: sequenceVersions.status, crewMemberId: sequences.crewMemberId, profileVersionId: sequenceVersions.profileVersionId })
+    .from(sequenceVersions)
+    .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
+    .where(eq(sequenceVersions.id, versionId));
+  if (!row) throw notFound('Sequence version');
+  assertPlayable(user, row);
+  return row;
+}
+
 /**
  * The version if `user` may see it in the rehearsal view; 404 when it does not exist or belongs to
  * another crew member (a trainee learns nothing about others' versions), 403 when it is the trainee's
@@ -58,13 +89,6 @@ export async function loadVersion(db: Database, versionId: string): Promise<Load
 export async function loadVersionFor(db: Database, user: SessionUser, versionId: string): Promise<LoadedVersion> {
   const v = await loadVersion(db, versionId);
   if (!v) throw notFound('Sequence version');
-  if (user.role === 'trainee') {
-    if (!user.crewMemberId || v.crewMemberId !== user.crewMemberId) throw notFound('Sequence version');
-    if (!PLAYABLE_FOR_TRAINEE.includes(v.status)) {
-      throw forbidden(v.status === 'recheck'
-        ? 'This version needs a re-check after a profile change; rehearse it again once it is cleared.'
-        : 'Only cleared versions can be rehearsed.');
-    }
-  }
+  assertPlayable(user, v);
   return v;
 }

@@ -17,7 +17,7 @@ import { readableMember, requireCrewEditor } from '../crew/crew-access.ts';
 import { getVersion, listCrewMembers, listVersions } from '../crew/crew-queries.ts';
 import { deriveProfile, suitSnapshot } from '../crew/derive-profile.ts';
 import { emitProfileVersionChanged } from '../crew/profile-events.ts';
-import { crewMemberView, profileVersionHeader, profileVersionView } from '../crew/profile-views.ts';
+import { crewMemberView, glimpseOf, profileVersionHeader, profileVersionView } from '../crew/profile-views.ts';
 import { validate } from '../http/validate.ts';
 
 const idParams = z.object({ id: z.string().uuid('Not a valid crew member id.') });
@@ -62,7 +62,7 @@ export function crewRouter(ctx: AppContext): Router {
     const member = await readableMember(db, req.user!, id);
     const current = member.currentVersion ? await getVersion(db, id, member.currentVersion) : null;
     res.json({
-      member: crewMemberView(member, current?.version ?? null),
+      member: crewMemberView(member, current ? glimpseOf(current.version) : null),
       current: current ? profileVersionView(current.version, current.authorName, member.currentVersion) : null,
     });
   });

@@ -2,17 +2,17 @@
  * /api/reviews (reviewers and admins): the queue of versions under review, decisions and comments
  * (shapes in shared/contracts/maneuver.ts). A reviewer never decides on a version they authored.
  */
-import { eq, inArray } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
-import { sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { sequenceVersions } from '../../db/schema/index.ts';
 import { reviewCommentRequestSchema, reviewDecisionRequestSchema, type ReviewQueueItem } from '../../shared/contracts/maneuver.ts';
 import type { AppContext } from '../app-context.ts';
 import { validate } from '../http/validate.ts';
 import { commentVersion, decideVersion } from '../maneuvers/version-actions.ts';
 import { loadVersionDetail } from '../maneuvers/version-detail.ts';
-import { sequenceHeads, versionSummaries } from '../maneuvers/version-views.ts';
+import { selectVersions, toSequenceHead, toVersionSummary } from '../maneuvers/version-views.ts';
 
 const versionParams = z.object({ versionId: z.uuid('Not a valid id.') });
 
@@ -22,11 +22,10 @@ export function reviewsRouter(ctx: AppContext): Router {
   const { db } = ctx;
 
   router.get('/queue', async (_req, res) => {
-    const { summaries } = await versionSummaries(db, eq(sequenceVersions.status, 'under_review'));
-    const heads = summaries.length ? await sequenceHeads(db, inArray(sequences.id, summaries.map((s) => s.sequenceId))) : [];
-    const byId = new Map(heads.map((h) => [h.id, h]));
-    const items: ReviewQueueItem[] = summaries
-      .map((version) => ({ version, sequence: byId.get(version.sequenceId)! }))
+    // One query: the versions under review with their sequences joined in.
+    const rows = await selectVersions(db, eq(sequenceVersions.status, 'under_review'));
+    const items: ReviewQueueItem[] = rows
+      .map((row) => ({ version: toVersionSummary(row), sequence: toSequenceHead(row) }))
       .sort((a, b) => (a.version.submittedAt ?? '').localeCompare(b.version.submittedAt ?? ''));
     res.json({ items });
   });

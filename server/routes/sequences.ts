@@ -33,7 +33,7 @@ import { subscribeToProfileChanges } from '../maneuvers/flag-recheck.ts';
 import { requireAuthor, visibleSequences, visibleVersions } from '../maneuvers/maneuver-access.ts';
 import { saveVersion, submitVersion } from '../maneuvers/version-actions.ts';
 import { loadVersionDetail } from '../maneuvers/version-detail.ts';
-import { allOf, sequenceHeads, versionSummaries } from '../maneuvers/version-views.ts';
+import { allOf, sequenceHeads, sequenceListRows, versionSummaries } from '../maneuvers/version-views.ts';
 
 const uuid = z.uuid('Not a valid id.');
 const sequenceParams = z.object({ sequenceId: uuid });
@@ -55,27 +55,39 @@ export function sequencesRouter(ctx: AppContext): Router {
   const { db } = ctx;
   subscribeToProfileChanges();
 
-  /** Sequence summaries (with their visible versions) matching a condition. */
-  async function summaries(user: Express.Request['user'] & object, sequenceIds?: string[], crewMemberId?: string): Promise<(SequenceSummary & { versions: VersionSummary[] })[]> {
-    const heads = await sequenceHeads(db, allOf(
+  /**
+   * Sequence summaries matching a condition, by name: one query for the heads with their version
+   * count and the ids of the newest and the rehearsable version, one for those versions' summaries.
+   */
+  async function summaries(user: Express.Request['user'] & object, sequenceIds?: string[], crewMemberId?: string): Promise<SequenceSummary[]> {
+    const rows = await sequenceListRows(db, allOf(
       visibleSequences(user),
       crewMemberId ? eq(sequences.crewMemberId, crewMemberId) : undefined,
       sequenceIds ? inArray(sequences.id, sequenceIds) : undefined,
-    ));
-    if (!heads.length) return [];
-    const { summaries: vs } = await versionSummaries(db, allOf(visibleVersions(user), inArray(sequenceVersions.sequenceId, heads.map((h) => h.id))));
-    const out = heads.map((h) => {
-      const versions = vs.filter((v) => v.sequenceId === h.id);
-      return { ...h, versionCount: versions.length, latest: versions[0] ?? null, cleared: rehearsable(versions), versions };
-    });
+    ), visibleVersions(user));
+    const ids = [...new Set(rows.flatMap((r) => [r.latestId, r.clearedId]).filter((id): id is string => id !== null))];
+    const versions = ids.length ? (await versionSummaries(db, inArray(sequenceVersions.id, ids))).summaries : [];
+    const byId = new Map(versions.map((v) => [v.id, v]));
+    const out = rows.map((r) => ({
+      ...r.head, versionCount: r.versionCount,
+      latest: (r.latestId && byId.get(r.latestId)) || null, cleared: (r.clearedId && byId.get(r.clearedId)) || null,
+    }));
     // A trainee sees only sequences with something to rehearse.
-    return user.role === 'trainee' ? out.filter((s) => s.versions.length > 0) : out;
+    return user.role === 'trainee' ? out.filter((s) => s.versionCount > 0) : out;
+  }
+
+  /** One sequence with every version the user may see, newest first; 404 when hidden or missing. */
+  async function detail(user: Express.Request['user'] & object, sequenceId: string): Promise<SequenceDetail> {
+    const [head] = await sequenceHeads(db, allOf(visibleSequences(user), eq(sequences.id, sequenceId)));
+    if (!head) throw notFound('Sequence');
+    const { summaries: versions } = await versionSummaries(db, allOf(visibleVersions(user), eq(sequenceVersions.sequenceId, sequenceId)));
+    if (user.role === 'trainee' && !versions.length) throw notFound('Sequence');
+    return { ...head, versionCount: versions.length, latest: versions[0] ?? null, cleared: rehearsable(versions), versions };
   }
 
   router.get('/', validate({ query: listQuery }), async (req, res) => {
     const { crewMemberId } = res.locals.query as z.infer<typeof listQuery>;
-    const list = await summaries(req.user!, undefined, crewMemberId);
-    res.json({ sequences: list.map(({ versions: _v, ...s }) => s) });
+    res.json({ sequences: await summaries(req.user!, undefined, crewMemberId) });
   });
 
   router.post('/', validate({ body: createSequenceRequestSchema }), async (req, res) => {
@@ -90,8 +102,7 @@ export function sequencesRouter(ctx: AppContext): Router {
       return row.id;
     });
     const [created] = await summaries(user, [id]);
-    const { versions: _v, ...summary } = created;
-    res.status(201).json(summary);
+    res.status(201).json(created);
   });
 
   router.post('/compile', validate({ body: compileRequestSchema }), async (req, res) => {
@@ -129,10 +140,7 @@ export function sequencesRouter(ctx: AppContext): Router {
 
   router.get('/:sequenceId', validate({ params: sequenceParams }), async (req, res) => {
     const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
-    const [s] = await summaries(req.user!, [sequenceId]);
-    if (!s) throw notFound('Sequence');
-    const detail: SequenceDetail = s;
-    res.json(detail);
+    res.json(await detail(req.user!, sequenceId));
   });
 
   router.patch('/:sequenceId', validate({ params: sequenceParams, body: updateSequenceRequestSchema }), async (req, res) => {
@@ -146,8 +154,7 @@ export function sequencesRouter(ctx: AppContext): Router {
       if (!row) throw notFound('Sequence');
       await recordAudit(tx, { actorId: user.id, action: 'sequence.update', objectType: 'sequence', objectId: sequenceId, detail: input });
     });
-    const [s] = await summaries(user, [sequenceId]);
-    const { versions: _v, ...summary } = s;
+    const [summary] = await summaries(user, [sequenceId]);
     res.json(summary);
   });
 
