@@ -79,6 +79,7 @@ function isTimedStep(s: unknown): boolean {
   const finite = (k: string) => typeof o[k] === 'number' && Number.isFinite(o[k]);
   if (o.kind === 'harmonic') return finite('cycles') && finite('period') && !!o.joints && typeof o.joints === 'object';
   if (o.kind === 'move') return finite('duration') && !!o.to && typeof o.to === 'object';
+  if (o.kind === 'track') return finite('rateHz') && Array.isArray(o.frames) && Array.isArray(o.dofs);
   return o.kind === 'hold' && finite('duration');
 }
 

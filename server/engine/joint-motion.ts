@@ -1,18 +1,20 @@
 /**
- * Joint motion prescribed by a sequence: one piece per step, each evaluating every dof's angle
- * (rad) and analytic rate (rad/s) at a time. Pieces are the integrator's boundaries, since joint
- * rates may jump between steps.
+ * Joint motion prescribed by a sequence: one piece per step (one per spline interval for a track),
+ * each evaluating every dof's angle (rad) and analytic rate (rad/s) at a time. Pieces are the
+ * integrator's boundaries, since joint rates may jump between steps and a track's third derivative
+ * jumps at every frame.
  */
-import type { Sequence } from '../../shared/contracts/sequence.ts';
+import type { Sequence, TrackStep } from '../../shared/contracts/sequence.ts';
 import { stepDuration } from '../../shared/contracts/sequence.ts';
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
+import { naturalCubicSpline, uniformKnots } from '../../shared/math/natural-cubic-spline.ts';
 
 const DEG = Math.PI / 180;
 
 /** One step compiled: [t0, t1] in seconds from the sequence start; angles in rad. */
 export interface MotionPiece {
   /** Step kind. */
-  readonly kind: 'move' | 'harmonic' | 'hold';
+  readonly kind: 'move' | 'harmonic' | 'hold' | 'track';
   /** Index of the step in the sequence. */
   readonly step: number;
   /** Start and end time, s. */
@@ -31,6 +33,9 @@ export interface MotionPiece {
   readonly hPhaseCos: Float64Array;
   readonly hPhaseSin: Float64Array;
   readonly omega: number;
+  /** track: indices of the tracked dofs and their cubic on this interval, 4 per dof: a (rad), b (rad/s), c (rad/s²), d (rad/s³), θ = a + b·u + c·u² + d·u³ with u = t − t0. */
+  readonly tDofs: Int32Array;
+  readonly tCoeffs: Float64Array;
   /** Indices of the dofs whose angle changes within the piece (ascending); the others stay at `from`. */
   readonly moving: Int32Array;
 }
@@ -44,6 +49,36 @@ export interface MotionPlan {
   readonly start: Float64Array;
 }
 
+const NO_DOFS = new Int32Array(0);
+
+/**
+ * A track step as one piece per frame interval: each tracked dof's natural cubic spline through its
+ * frames (degrees → rad), knots at k/rateHz from `t` (s). Updates `cur` to the last frame; returns the end time.
+ */
+function compileTrack(model: BodyModel, step: TrackStep, index: number, t: number, cur: Float64Array, pieces: MotionPiece[]): number {
+  const n = step.frames.length;
+  const knots = uniformKnots(n, step.rateHz);
+  const tDofs = Int32Array.from(step.dofs.map((name) => model.dofIndex.get(name)!));
+  const splines = step.dofs.map((_, j) => naturalCubicSpline(knots, step.frames.map((f) => f[j] * DEG)));
+  const moving = Int32Array.from(tDofs).sort();
+  const empty = new Float64Array(0);
+  for (let i = 0; i < n - 1; i++) {
+    const from = cur.slice();
+    const tCoeffs = new Float64Array(4 * tDofs.length);
+    for (let j = 0; j < tDofs.length; j++) tCoeffs.set(splines[j].coeffs.subarray(4 * i, 4 * i + 4), 4 * j);
+    const piece: MotionPiece = {
+      kind: 'track', step: index, t0: t + knots[i], t1: t + knots[i + 1], from, to: from, hDofs: NO_DOFS, hOffset: empty, hAmplitude: empty,
+      hPhase: empty, hPhaseCos: empty, hPhaseSin: empty, omega: 0, tDofs, tCoeffs, moving,
+    };
+    pieces.push(piece);
+    // The next interval starts where this one ends (the spline is continuous there).
+    evalPiece(piece, piece.t1, cur, null);
+  }
+  // End exactly on the last frame (the cubic's end value differs from it by rounding only).
+  for (let j = 0; j < tDofs.length; j++) cur[tDofs[j]] = step.frames[n - 1][j] * DEG;
+  return t + knots[n - 1];
+}
+
 /** Compiles a validated sequence for a model. */
 export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
   const nd = model.dofCount;
@@ -54,6 +89,10 @@ export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
   let t = 0;
   const empty = new Float64Array(0);
   seq.steps.forEach((step, index) => {
+    if (step.kind === 'track') {
+      t = compileTrack(model, step, index, t, cur, pieces);
+      return;
+    }
     const d = stepDuration(step);
     const from = cur.slice();
     let to = from;
@@ -72,7 +111,7 @@ export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
     const moving = step.kind === 'move' ? Int32Array.from(from.keys()).filter((k) => to[k] !== from[k])
       : step.kind === 'harmonic' ? Int32Array.from(hDofs).sort() : new Int32Array(0);
     const hPhaseCos = hPhase.map(Math.cos), hPhaseSin = hPhase.map(Math.sin);
-    const piece: MotionPiece = { kind: step.kind, step: index, t0: t, t1: t + d, from, to, hDofs, hOffset, hAmplitude, hPhase, hPhaseCos, hPhaseSin, omega, moving };
+    const piece: MotionPiece = { kind: step.kind, step: index, t0: t, t1: t + d, from, to, hDofs, hOffset, hAmplitude, hPhase, hPhaseCos, hPhaseSin, omega, tDofs: NO_DOFS, tCoeffs: empty, moving };
     pieces.push(piece);
     // The next step starts where this one ends.
     evalPiece(piece, piece.t1, cur, null);
@@ -105,6 +144,18 @@ export function evalPiece(piece: MotionPiece, t: number, q: Float64Array, qd: Fl
   for (let k = 0; k < nd; k++) q[k] = from[k];
   if (qd) qd.fill(0);
   if (piece.kind === 'harmonic') evalHarmonic(piece, t, q, qd);
+  else if (piece.kind === 'track') evalTrack(piece, t, q, qd);
+}
+
+/** The tracked dofs of a piece: their cubic on this interval (Horner), clamped to [t0, t1]. */
+function evalTrack(piece: MotionPiece, t: number, q: Float64Array, qd: Float64Array | null): void {
+  const { tDofs, tCoeffs } = piece;
+  const u = Math.min(piece.t1 - piece.t0, Math.max(0, t - piece.t0));
+  for (let j = 0; j < tDofs.length; j++) {
+    const a = tCoeffs[4 * j], b = tCoeffs[4 * j + 1], c = tCoeffs[4 * j + 2], d = tCoeffs[4 * j + 3];
+    q[tDofs[j]] = a + u * (b + u * (c + u * d));
+    if (qd) qd[tDofs[j]] = b + u * (2 * c + 3 * u * d);
+  }
 }
 
 /** The harmonic dofs of a piece: sin(ωt + φ) = sin ωt cos φ + cos ωt sin φ (one sine, one cosine per call). */
@@ -138,6 +189,7 @@ export function evalMoving(piece: MotionPiece, t: number, q: Float64Array, qd: F
       qd[k] = delta * sd;
     }
   } else if (piece.kind === 'harmonic') evalHarmonic(piece, t, q, qd);
+  else if (piece.kind === 'track') evalTrack(piece, t, q, qd);
 }
 
 /** The piece containing t (the first whose end is ≥ t); the last piece beyond the end. */

@@ -25,22 +25,37 @@ function harmonicCriticalTimes(piece: MotionPiece, j: number, base: number): num
   return out;
 }
 
+/** Real roots of b + 2c·u + 3d·u² (a track cubic's rate: angle extrema) inside [0, span], as times from t0. */
+function trackExtremumTimes(piece: MotionPiece, j: number): number[] {
+  const b = piece.tCoeffs[4 * j + 1], c = piece.tCoeffs[4 * j + 2], d = piece.tCoeffs[4 * j + 3];
+  const span = piece.t1 - piece.t0;
+  const roots: number[] = [];
+  if (Math.abs(d) < 1e-300) { if (c !== 0) roots.push(-b / (2 * c)); } else {
+    const disc = 4 * c * c - 12 * d * b;
+    if (disc >= 0) { const r = Math.sqrt(disc); roots.push((-2 * c - r) / (6 * d), (-2 * c + r) / (6 * d)); }
+  }
+  return roots.filter((u) => u > 0 && u < span).sort((x, y) => x - y).map((u) => piece.t0 + u);
+}
+
 /** Range violations of every dof over the plan. */
 export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeViolation[] {
   const out: RangeViolation[] = [];
+  // A track step is one piece per frame interval: a violation running across intervals is one violation.
+  const lastOf = new Map<string, RangeViolation>();
   // No closures inside the loops: a transpiler that keeps function names (tsx) would wrap each one.
   for (const piece of plan.pieces) {
     const span = piece.t1 - piece.t0;
     const cycles = piece.kind === 'harmonic' ? Math.ceil((span * piece.omega) / (2 * Math.PI)) : 1;
     for (let k = 0; k < model.dofCount; k++) {
-      const hj = piece.kind === 'harmonic' ? piece.hDofs.indexOf(k) : -1;
+      // hj: the dof's index among the harmonic dofs, or (for a track interval) among the tracked dofs.
+      const hj = piece.kind === 'harmonic' ? piece.hDofs.indexOf(k) : piece.kind === 'track' ? piece.tDofs.indexOf(k) : -1;
       const moving = hj >= 0 || (piece.kind === 'move' && piece.to[k] !== piece.from[k]);
-      // Scan grid (a still dof: its two ends; a move is monotone: a coarse grid finds every crossing)
-      // plus the analytic extrema of a harmonic dof.
-      const n = !moving ? 1 : hj < 0 ? 16 : Math.min(20_000, SCAN_POINTS * Math.max(1, cycles));
+      // Scan grid (a still dof: its two ends; a move is monotone: a coarse grid finds every crossing;
+      // a track interval is one cubic) plus the analytic extrema of a harmonic or tracked dof.
+      const n = !moving ? 1 : piece.kind !== 'harmonic' ? (piece.kind === 'track' ? 4 : 16) : Math.min(20_000, SCAN_POINTS * Math.max(1, cycles));
       const grid: number[] = [];
       for (let s = 0; s <= n; s++) grid.push(piece.t0 + (span * s) / n);
-      const times = hj >= 0 ? mergeSorted(grid, harmonicCriticalTimes(piece, hj, Math.PI / 2)) : grid;
+      const times = hj < 0 ? grid : mergeSorted(grid, piece.kind === 'track' ? trackExtremumTimes(piece, hj) : harmonicCriticalTimes(piece, hj, Math.PI / 2));
       for (let b = 0; b < 2; b++) {
         const bound = b === 0 ? 'max' : 'min';
         const limit = bound === 'max' ? model.dofMax[k] : model.dofMin[k];
@@ -53,15 +68,28 @@ export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeVi
           else if (gt > 0 && gt > worstG) { worstT = t; worstG = gt; }
           else if (gt <= 0 && inside) {
             inside = false;
-            out.push(violation(model, piece, k, bound, limit, from, crossing(piece, k, hj, bound, limit, prevT, t), worstT, worstG));
+            addViolation(out, lastOf, violation(model, piece, k, bound, limit, from, crossing(piece, k, hj, bound, limit, prevT, t), worstT, worstG));
           }
           prevT = t;
         }
-        if (inside) out.push(violation(model, piece, k, bound, limit, from, piece.t1, worstT, worstG));
+        if (inside) addViolation(out, lastOf, violation(model, piece, k, bound, limit, from, piece.t1, worstT, worstG));
       }
     }
   }
   return out;
+}
+
+/** Appends a violation, or extends the same dof's, step's and bound's previous one when it ends where this one starts. */
+function addViolation(out: RangeViolation[], lastOf: Map<string, RangeViolation>, v: RangeViolation): void {
+  const key = `${v.dof}|${v.step}|${v.bound}`;
+  const last = lastOf.get(key);
+  if (last && Math.abs(last.to - v.from) < 1e-9) {
+    last.to = v.to;
+    if (v.marginDeg > last.marginDeg) { last.marginDeg = v.marginDeg; last.worstTime = v.worstTime; last.worstAngleDeg = v.worstAngleDeg; }
+    return;
+  }
+  out.push(v);
+  lastOf.set(key, v);
 }
 
 /** The union of two ascending lists, ascending (a merge: both are already sorted). */
@@ -89,8 +117,12 @@ function crossing(piece: MotionPiece, k: number, hj: number, bound: 'min' | 'max
   return (a + b) / 2;
 }
 
-/** Angle (rad) of dof k at time t in a piece; hj is its index among the harmonic dofs or −1. */
+/** Angle (rad) of dof k at time t in a piece; hj is its index among the harmonic (or tracked) dofs or −1. */
 function dofAngle(piece: MotionPiece, k: number, hj: number, t: number): number {
+  if (hj >= 0 && piece.kind === 'track') {
+    const c = piece.tCoeffs, u = Math.min(piece.t1 - piece.t0, Math.max(0, t - piece.t0));
+    return c[4 * hj] + u * (c[4 * hj + 1] + u * (c[4 * hj + 2] + u * c[4 * hj + 3]));
+  }
   if (hj >= 0) return piece.hOffset[hj] + piece.hAmplitude[hj] * Math.sin(piece.omega * (t - piece.t0) + piece.hPhase[hj]);
   if (piece.kind !== 'move') return piece.from[k];
   const tau = Math.min(1, Math.max(0, (t - piece.t0) / (piece.t1 - piece.t0)));
@@ -104,7 +136,10 @@ function violation(model: BodyModel, piece: MotionPiece, k: number, bound: 'min'
   };
 }
 
-/** Peak |joint rate| per dof and overall (deg/s), analytic: minimum-jerk peak 1.875·|Δθ|/T at mid-move; harmonic |A|ω at cos = ±1. */
+/**
+ * Peak |joint rate| per dof and overall (deg/s), analytic: minimum-jerk peak 1.875·|Δθ|/T at mid-move;
+ * harmonic |A|ω at cos = ±1; a track interval's quadratic rate at its ends and its vertex.
+ */
 export function peakJointRates(model: BodyModel, plan: MotionPlan): { max: number; dof: string | null; time: number; byDof: Record<string, number> } {
   const byDof: Record<string, number> = Object.fromEntries(model.dofNames.map((d) => [d, 0]));
   let max = 0, dof: string | null = null, time = 0;
@@ -118,6 +153,16 @@ export function peakJointRates(model: BodyModel, plan: MotionPlan): { max: numbe
     if (piece.kind === 'move') {
       const T = piece.t1 - piece.t0;
       for (let k = 0; k < model.dofCount; k++) consider(k, (1.875 * Math.abs(piece.to[k] - piece.from[k]) * DEG) / T, piece.t0 + T / 2);
+    } else if (piece.kind === 'track') {
+      const span = piece.t1 - piece.t0;
+      for (let j = 0; j < piece.tDofs.length; j++) {
+        const b = piece.tCoeffs[4 * j + 1], c = piece.tCoeffs[4 * j + 2], d = piece.tCoeffs[4 * j + 3];
+        // Rate b + 2cu + 3du²: its ends and, when inside, its vertex u = −c/(3d).
+        const vertex = d !== 0 ? -c / (3 * d) : -1;
+        consider(piece.tDofs[j], Math.abs(b) * DEG, piece.t0);
+        consider(piece.tDofs[j], Math.abs(b + span * (2 * c + 3 * span * d)) * DEG, piece.t1);
+        if (vertex > 0 && vertex < span) consider(piece.tDofs[j], Math.abs(b + vertex * (2 * c + 3 * vertex * d)) * DEG, piece.t0 + vertex);
+      }
     } else if (piece.kind === 'harmonic') {
       piece.hDofs.forEach((k, j) => {
         // Candidates: the ends and every cos(arg) = ±1 inside.

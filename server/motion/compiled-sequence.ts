@@ -34,6 +34,7 @@ export function compiledDuration(compiled: unknown): number {
   let t = 0;
   for (const s of seq.steps as Record<string, unknown>[]) {
     if (s?.kind === 'harmonic' && typeof s.cycles === 'number' && typeof s.period === 'number') t += s.cycles * s.period;
+    else if (s?.kind === 'track' && Array.isArray(s.frames) && typeof s.rateHz === 'number' && s.rateHz > 0) t += (s.frames.length - 1) / s.rateHz;
     else if (typeof s?.duration === 'number') t += s.duration;
   }
   return t;

@@ -29,6 +29,9 @@ export function fallbackCue(step: Step): string {
     const dofs = Object.keys(step.to);
     return dofs.length ? `Move into position: ${listDofs(dofs)} (${round(step.duration)} s)` : `Settle (${round(step.duration)} s)`;
   }
+  if (step.kind === 'track') {
+    return `Follow the recorded sweep: ${listDofs(step.dofs)} (${round((step.frames.length - 1) / step.rateHz)} s)`;
+  }
   const dofs = Object.keys(step.joints);
   return `Sweep ${listDofs(dofs)}: ${round(step.cycles)} cycles of ${round(step.period)} s`;
 }

@@ -27,7 +27,7 @@ export interface MotionStep {
   /** Index in the compiled sequence's steps. */
   index: number;
   /** Engine step kind. */
-  kind: 'move' | 'harmonic' | 'hold';
+  kind: 'move' | 'harmonic' | 'hold' | 'track';
   /** Start and end, seconds from the sequence start. */
   start: number;
   end: number;

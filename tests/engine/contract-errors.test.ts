@@ -106,7 +106,7 @@ describe('sequence contract errors', () => {
   });
 
   it('names an unknown step kind', () => {
-    expect(issuesOf({ steps: [{ kind: 'spin', duration: 1 }] })[0].message).toMatch(/step 0:.*'move', 'harmonic' or 'hold'/);
+    expect(issuesOf({ steps: [{ kind: 'spin', duration: 1 }] })[0].message).toMatch(/step 0:.*'move', 'harmonic', 'hold' or 'track'/);
   });
 
   it('rejects NaN and absurd angles, naming the field', () => {

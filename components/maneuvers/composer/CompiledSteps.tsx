@@ -25,12 +25,15 @@ function stepText(step: Step): string {
     const parts = Object.entries(step.to).map(([d, v]) => `${dofLabel(d)} → ${v.toFixed(0)}°`);
     return parts.length ? parts.join(', ') : 'no change';
   }
+  if (step.kind === 'track') {
+    return `recorded ${step.dofs.map(dofLabel).join(', ')} — ${step.frames.length} frames at ${step.rateHz} Hz`;
+  }
   return Object.entries(step.joints)
     .map(([d, j]) => `${dofLabel(d)} ${j.offset.toFixed(0)}° ± ${Math.abs(j.amplitude).toFixed(0)}°`)
     .join(', ') + ` — ${step.cycles} × ${step.period} s`;
 }
 
-/** The joint-space steps (move / harmonic / hold) the composed primitives compile to, with blends marked. */
+/** The joint-space steps (move / harmonic / hold / track) the composed primitives compile to, with blends marked. */
 export function CompiledSteps({ primitives, crewMemberId }: CompiledStepsProps) {
   const q = useCompileQuery(primitives.length ? { primitives: [...primitives], crewMemberId } : null);
   if (primitives.length === 0) return <Text tone="muted">Add a step to see its joint steps.</Text>;
