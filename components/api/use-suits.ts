@@ -2,7 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { SuitView } from '@/shared/contracts/crew';
 import type { SuitConfigInput } from '@/shared/contracts/suit';
-import { apiFetch } from './client';
+import { ApiError, apiFetch } from './client';
 
 /** Query keys of the suit configurations. */
 export const suitKeys = {
@@ -19,11 +19,20 @@ export function useSuitsQuery() {
   });
 }
 
-/** PUT /api/suits/:id — saves an edited configuration (planners, admins); later profile saves copy it. */
+/**
+ * PUT /api/suits/:id — saves an edited configuration (planners, admins); later profile saves copy it.
+ * `baseVersion` is the version the edit started from: the server answers 409 `stale_version` when
+ * someone saved in between.
+ */
 export function useUpdateSuitMutation() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: ({ id, config }: { id: string; config: SuitConfigInput }) => apiFetch<{ suit: SuitView }>(`/suits/${encodeURIComponent(id)}`, { method: 'PUT', body: config }),
+    mutationFn: ({ id, config, baseVersion }: { id: string; config: SuitConfigInput; baseVersion: number }) =>
+      apiFetch<{ suit: SuitView }>(`/suits/${encodeURIComponent(id)}`, { method: 'PUT', body: { ...config, baseVersion } }),
     onSuccess: () => void qc.invalidateQueries({ queryKey: suitKeys.all }),
+    // A stale save means the list is behind: fetch the newer version so the editor can load it.
+    onError: (e) => {
+      if (e instanceof ApiError && e.code === 'stale_version') void qc.invalidateQueries({ queryKey: suitKeys.all });
+    },
   });
 }

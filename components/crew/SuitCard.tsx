@@ -29,7 +29,10 @@ function issueText(path: readonly PropertyKey[], message: string): string {
 export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }) {
   const c = suit.config;
   const [draft, setDraft] = useState<string | null>(null);
+  // The stored version the draft started from (kept while the list refetches underneath).
+  const [baseVersion, setBaseVersion] = useState(suit.version);
   const [problem, setProblem] = useState<string | null>(null);
+  const [stale, setStale] = useState(false);
   const update = useUpdateSuitMutation();
   // Body order (stored JSON comes back with its keys reordered).
   const added = SEGMENT_NAMES.filter((seg) => c.segments[seg]).map((seg) => ({ seg, mass: c.segments[seg]?.mass ?? 0 }));
@@ -51,13 +54,25 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
       setProblem(issueText(i.path, i.message));
       return;
     }
-    update.mutate({ id: suit.id, config: parsed.data }, { onSuccess: () => setDraft(null), onError: (e) => setProblem(e instanceof ApiError ? e.message : String(e)) });
+    update.mutate({ id: suit.id, config: parsed.data, baseVersion }, {
+      onSuccess: () => setDraft(null),
+      onError: (e) => {
+        setStale(e instanceof ApiError && e.code === 'stale_version');
+        setProblem(e instanceof ApiError ? e.message : String(e));
+      },
+    });
+  };
+  const startEdit = () => {
+    setBaseVersion(suit.version);
+    setDraft(JSON.stringify(c, null, 2));
+    setProblem(null);
+    setStale(false);
   };
 
   return (
     <Card
       title={c.name}
-      subtitle={`id ${c.id} · adds ${fixed(total, 2)} kg · edited ${formatDateTime(suit.updatedAt)}${suit.updatedByName ? ` by ${suit.updatedByName}` : ''}`}
+      subtitle={`id ${c.id} · version ${suit.version} · adds ${fixed(total, 2)} kg · edited ${formatDateTime(suit.updatedAt)}${suit.updatedByName ? ` by ${suit.updatedByName}` : ''}`}
       trailing={c.illustrative ? <Badge label="Illustrative values" tone="accent" /> : <Badge label="Measured" tone="success" />}
     >
       <View style={styles.stack}>
@@ -89,7 +104,7 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
         )}
         {c.lockedDofs.length ? <Text variant="caption" tone="muted">Locked: {c.lockedDofs.map((d) => DOF_LABELS[d] ?? d).join(', ')}</Text> : null}
 
-        {canEdit && draft === null ? <Button label="Edit as JSON" icon="edit-3" variant="secondary" size="sm" onPress={() => setDraft(JSON.stringify(c, null, 2))} /> : null}
+        {canEdit && draft === null ? <Button label="Edit as JSON" icon="edit-3" variant="secondary" size="sm" onPress={startEdit} /> : null}
         {draft !== null ? (
           <View style={styles.stack}>
             <Text variant="caption" tone="muted">
@@ -108,8 +123,13 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
             />
             <ErrorBanner error={problem} />
             <View style={styles.row}>
-              <Button label="Save suit" icon="save" size="sm" loading={update.isPending} onPress={save} />
-              <Button label="Cancel" size="sm" variant="secondary" onPress={() => { setDraft(null); setProblem(null); }} />
+              {stale ? (
+                // Someone saved in between: start again from their version (the draft is replaced).
+                <Button label={`Load version ${suit.version}`} icon="refresh-cw" size="sm" onPress={startEdit} disabled={suit.version === baseVersion} />
+              ) : (
+                <Button label="Save suit" icon="save" size="sm" loading={update.isPending} onPress={save} />
+              )}
+              <Button label="Cancel" size="sm" variant="secondary" onPress={() => { setDraft(null); setProblem(null); setStale(false); }} />
             </View>
           </View>
         ) : null}

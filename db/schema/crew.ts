@@ -20,6 +20,8 @@ export const suitConfigs = pgTable('suit_configs', {
   name: text('name').notNull().unique(),
   config: jsonb('config').notNull(),
   illustrative: boolean('illustrative').notNull().default(true),
+  // Optimistic lock: an edit names the version it started from (409 stale_version otherwise).
+  version: integer('version').notNull().default(1),
   updatedBy: uuid('updated_by').references(() => users.id),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 });

@@ -1,20 +1,20 @@
-import { asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
 import { suitConfigs, users, type SuitConfigRow } from '../../db/schema/index.ts';
 import type { SuitView } from '../../shared/contracts/crew.ts';
-import { suitConfigSchema, type SuitConfig } from '../../shared/contracts/suit.ts';
+import { suitConfigSchema, updateSuitRequestSchema } from '../../shared/contracts/suit.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { requireCrewEditor } from '../crew/crew-access.ts';
-import { badRequest, notFound } from '../http/http-error.ts';
+import { badRequest, conflict, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
 
 const idParams = z.object({ id: z.string().uuid('Not a valid suit id.') });
 
 function suitView(row: SuitConfigRow, updatedByName: string | null): SuitView {
-  return { id: row.id, config: suitConfigSchema.parse(row.config), updatedAt: row.updatedAt.toISOString(), updatedByName };
+  return { id: row.id, config: suitConfigSchema.parse(row.config), version: row.version, updatedAt: row.updatedAt.toISOString(), updatedByName };
 }
 
 /**
@@ -41,21 +41,28 @@ export function suitsRouter(ctx: AppContext): Router {
     res.json({ suit: suitView(row.suit, row.by) });
   });
 
-  router.put('/:id', requireCrewEditor, validate({ params: idParams, body: suitConfigSchema }), async (req, res) => {
+  router.put('/:id', requireCrewEditor, validate({ params: idParams, body: updateSuitRequestSchema }), async (req, res) => {
     const me = req.user!;
     const { id } = res.locals.params as { id: string };
-    const config = req.body as SuitConfig;
+    const { baseVersion, ...config } = req.body as z.infer<typeof updateSuitRequestSchema>;
     const [existing] = await db.select().from(suitConfigs).where(eq(suitConfigs.id, id));
     if (!existing) throw notFound('Suit configuration');
     const before = suitConfigSchema.parse(existing.config);
     if (config.id !== before.id) throw badRequest(`id: a suit's id stays "${before.id}" (profiles and CSV files refer to it).`, 'id');
+    const stale = (latest: number) => conflict(
+      `${before.name} changed while you were editing: you started from version ${baseVersion}, but the latest is version ${latest}. Nothing was saved; copy your changes, reload and apply them again.`,
+      'stale_version',
+    );
+    if (existing.version !== baseVersion) throw stale(existing.version);
     const row = await db.transaction(async (tx) => {
+      // The version condition in the same statement makes two saves from one read give exactly one success.
       const [updated] = await tx
         .update(suitConfigs)
-        .set({ name: config.name, config, illustrative: config.illustrative, updatedBy: me.id, updatedAt: new Date() })
-        .where(eq(suitConfigs.id, id))
+        .set({ name: config.name, config, illustrative: config.illustrative, version: sql`${suitConfigs.version} + 1`, updatedBy: me.id, updatedAt: new Date() })
+        .where(and(eq(suitConfigs.id, id), eq(suitConfigs.version, baseVersion)))
         .returning();
-      await recordAudit(tx, { actorId: me.id, action: 'suit.update', objectType: 'suit_config', objectId: id, detail: { name: config.name } });
+      if (!updated) throw stale(baseVersion + 1);
+      await recordAudit(tx, { actorId: me.id, action: 'suit.update', objectType: 'suit_config', objectId: id, detail: { name: config.name, version: updated.version } });
       return updated;
     });
     res.json({ suit: suitView(row, me.name) });

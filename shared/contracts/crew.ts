@@ -72,6 +72,8 @@ export interface SuitView {
   id: string;
   /** The configuration (shared/contracts/suit.ts); `config.id` is its stable slug. */
   config: SuitConfig;
+  /** Stored version, 1 upwards; an edit sends it back as `baseVersion`. */
+  version: number;
   updatedAt: string;
   updatedByName: string | null;
 }

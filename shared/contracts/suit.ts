@@ -48,6 +48,12 @@ export type SuitConfig = z.infer<typeof suitConfigSchema>;
 /** A suit configuration before defaults are applied (what a client may send). */
 export type SuitConfigInput = z.input<typeof suitConfigSchema>;
 
+/** PUT /api/suits/:id: the edited configuration and the stored version the edit started from. */
+export const updateSuitRequestSchema = suitConfigSchema.extend({
+  baseVersion: z.number().int().min(1, 'baseVersion: the suit version your edit started from (1 or more).'),
+});
+export type UpdateSuitRequest = z.input<typeof updateSuitRequestSchema>;
+
 /**
  * A carried gear item: a rigid mass with its own inertia, fixed to a segment at a position.
  */

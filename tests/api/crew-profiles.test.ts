@@ -192,13 +192,41 @@ describe('who may do what', () => {
   it('planners edit a suit configuration; its id stays fixed; reviewers may not edit', async () => {
     const suits = (await api().get('/api/suits').set('Authorization', planner)).body.suits;
     const cabin = suits.find((s: { config: { id: string } }) => s.config.id === 'cabin-clothing');
-    const edited = { ...cabin.config, note: 'Edited in a test.' };
+    expect(cabin.version).toBe(1);
+    const edited = { ...cabin.config, note: 'Edited in a test.', baseVersion: 1 };
     expect((await api().put(`/api/suits/${cabin.id}`).set('Authorization', reviewer).send(edited)).status).toBe(403);
     const ok = await api().put(`/api/suits/${cabin.id}`).set('Authorization', planner).send(edited);
     expect(ok.status).toBe(200);
     expect(ok.body.suit.config.note).toBe('Edited in a test.');
-    const renamed = await api().put(`/api/suits/${cabin.id}`).set('Authorization', planner).send({ ...edited, id: 'other-id' });
+    expect(ok.body.suit.version).toBe(2);
+    const renamed = await api().put(`/api/suits/${cabin.id}`).set('Authorization', planner).send({ ...edited, baseVersion: 2, id: 'other-id' });
     expect(renamed.status).toBe(400);
     expect(renamed.body.error.field).toBe('id');
+    const noBase = await api().put(`/api/suits/${cabin.id}`).set('Authorization', planner).send(cabin.config);
+    expect(noBase.status).toBe(400);
+    expect(noBase.body.error.field).toBe('baseVersion');
+  });
+
+  it('two planners saving a suit from the same read: exactly one succeeds, the other gets 409 stale_version and nothing of theirs is stored', async () => {
+    const suits = (await api().get('/api/suits').set('Authorization', planner)).body.suits;
+    const suit = suits.find((s: { config: { id: string } }) => s.config.id === 'pressurised-suit');
+    const otherPlanner = `Bearer ${await t.tokenForEmail(DEMO_PEOPLE.filter((p) => p.role === 'planner')[1].email)}`;
+    const [a, b] = await Promise.all([
+      api().put(`/api/suits/${suit.id}`).set('Authorization', planner).send({ ...suit.config, note: 'first', baseVersion: suit.version }),
+      api().put(`/api/suits/${suit.id}`).set('Authorization', otherPlanner).send({ ...suit.config, note: 'second', baseVersion: suit.version }),
+    ]);
+    const statuses = [a.status, b.status].sort();
+    expect(statuses).toEqual([200, 409]);
+    const loser = a.status === 409 ? a : b;
+    const winner = a.status === 200 ? a : b;
+    expect(loser.body.error.code).toBe('stale_version');
+    expect(loser.body.error.message).toMatch(/Nothing was saved/);
+    const after = (await api().get(`/api/suits/${suit.id}`).set('Authorization', planner)).body.suit;
+    expect(after.version).toBe(suit.version + 1);
+    expect(after.config.note).toBe(winner.body.suit.config.note);
+    // A later save from the old read is refused too.
+    const late = await api().put(`/api/suits/${suit.id}`).set('Authorization', planner).send({ ...suit.config, note: 'late', baseVersion: suit.version });
+    expect(late.status).toBe(409);
+    expect(late.body.error.code).toBe('stale_version');
   });
 });

@@ -1,0 +1,1 @@
+ALTER TABLE "suit_configs" ADD COLUMN "version" integer DEFAULT 1 NOT NULL;
