@@ -9,6 +9,7 @@ import { type Sequence, validateSequence } from '../../shared/contracts/sequence
 import { DEFAULT_RATE_HZ, DEFAULT_RTOL } from '../../shared/contracts/simulate-request.ts';
 import { type BodyModel, compileBody } from '../../shared/kinematics/body-model.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
+import { pathDegFromSamples } from '../../shared/math/path-travelled.ts';
 import { quatCanonical, quatToAxisAngle } from '../../shared/math/quaternion.ts';
 import { integrateAttitude } from './integrate-attitude.ts';
 import { compileMotion, evalPiece, type MotionPlan } from './joint-motion.ts';
@@ -107,6 +108,7 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
   return {
     engineVersion: ENGINE_VERSION,
     duration: plan.duration,
+    pathDeg: pathDegFromSamples(frames),
     final: {
       attitude: { w: fq[0], x: fq[1], y: fq[2], z: fq[3] },
       rotation: { angleDeg: aa.angle * DEG, axis: aa.axis },

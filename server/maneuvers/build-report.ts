@@ -69,6 +69,7 @@ export function buildReport({ result, target, profileVersionId, dofs, inputsHash
     inputsHash,
     profileVersionId,
     durationS: result.duration,
+    pathDeg: result.pathDeg,
     final: { attitude: fa, rotation: result.final.rotation, yprDeg: result.final.yprDeg, jointsDeg: result.final.jointsDeg },
     target: {
       attitude: { w: tq[0], x: tq[1], y: tq[2], z: tq[3] },

@@ -14,7 +14,7 @@ import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import { targetQuat } from '../maneuvers/target-attitude.ts';
 import { candidatePrimitives, type CandidatePart } from './candidate-steps.ts';
 import { compileForBody, evaluateSequence } from './evaluate-steps.ts';
-import { pathDegFromSamples } from './path-travelled.ts';
+import { pathDegFromSamples } from '../../shared/math/path-travelled.ts';
 import { perCycleRotation } from './per-cycle-rotation.ts';
 import { FAMILY_GROUPS, fitFamilies } from './plan-families.ts';
 import { familyTables, refineParts, searchSeeds, type SearchLimits, type SearchSeed } from './plan-search.ts';

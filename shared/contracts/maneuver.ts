@@ -169,6 +169,8 @@ export const verificationReportSchema = z.object({
   /** The profile version the body came from. */
   profileVersionId: z.uuid(),
   durationS: z.number(),
+  /** Rotation travelled, ∫|ω| dt over the report's samples, degrees (absent in reports made before it was added). */
+  pathDeg: z.number().optional(),
   final: z.object({
     /** {w,x,y,z}, body → inertial, w ≥ 0. */
     attitude: attitudeSchema,

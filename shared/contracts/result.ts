@@ -49,6 +49,11 @@ export const simulationResultSchema = z.object({
   engineVersion: z.string(),
   /** Total duration of the sequence, seconds. */
   duration: z.number(),
+  /**
+   * Rotation travelled, ∫|ω| dt, degrees: the sum of the angles between successive samples (a lower
+   * bound that converges as the sample rate grows; includes the to-and-fro within every cycle).
+   */
+  pathDeg: z.number(),
   final: z.object({
     /** Final attitude {w,x,y,z} with w ≥ 0. */
     attitude: attitudeSchema,

@@ -4,7 +4,7 @@
  * sum approaches the integral from below as the sample rate grows, with an error of second order
  * in the sample interval for smooth motion).
  */
-import { quatAngleBetween } from '../../shared/math/quaternion.ts';
+import { quatAngleBetween } from './quaternion.ts';
 
 /** Attitude sample {w,x,y,z}. */
 interface AttitudeSample { attitude: { w: number; x: number; y: number; z: number } }
