@@ -83,6 +83,11 @@ export class PlanRate implements RateSource {
     const w = bodyRate(this.rhsModel, this.q, this.qd, this.work);
     out[o] = w[0]; out[o + 1] = w[1]; out[o + 2] = w[2];
   }
+
+  /** The shape momentum h (root frame, kg·m²/s) of the last `rate` call. */
+  shapeMomentum(): Float64Array {
+    return this.work.h;
+  }
 }
 
 /**

@@ -1,16 +1,14 @@
 /**
- * Momentum audit. At each sample it builds every segment's world-frame pose on a 5-point time
- * stencil — the prescribed joint angles through forward kinematics, and the root attitude moved
- * on from the integrated attitude at the rate the integrator follows there (q ⊗ exp(ω s/2), exact
- * to first order, which is all a first derivative sees) — differences those poses (for segments
- * rigid relative to the root, or to a moving segment, over the step: through that frame's
- * differenced world pose), and sums the
- * total angular momentum about the system CoM in the world frame,
- * H = Σ R J Rᵀ Ω + m (x − x_c) × (ẋ − ẋ_c).
+ * Momentum audit at one sample (track-audit.ts runs it over a track). It builds every segment's
+ * world-frame pose on a 5-point time stencil — the prescribed joint angles through forward
+ * kinematics, and the root attitude moved on from the sample's attitude at a given body rate
+ * (q ⊗ exp(ω s/2), exact to first order, which is all a first derivative sees) — differences those
+ * poses (for segments rigid relative to the root, or to a moving segment, over the step: through
+ * that frame's differenced world pose), and sums the total angular momentum about the system CoM
+ * in the world frame, H = Σ R J Rᵀ Ω + m (x − x_c) × (ẋ − ẋ_c), and the world locked inertia
+ * from the same poses (so a caller can add what a different root rate would contribute).
  * None of the engine's I_lock / h / analytic-velocity code is used, so a wrong formula there shows
- * up as H ≠ 0; a correct run gives ‖H‖ at the rounding/truncation floor (≈1e-11 relative).
- * (Differencing odex's dense output instead is not usable: its interpolant is accurate in value
- * but its derivative is ~10³× less accurate than the tolerance.)
+ * up as H ≠ 0; a correct rate gives ‖H‖ at the rounding/truncation floor (≈1e-11 relative).
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { type BodyPose, createBodyPose, forwardKinematics, segmentMotion } from '../../shared/kinematics/forward-kinematics.ts';
@@ -67,6 +65,10 @@ export interface AuditWork {
   /** Per carried segment: rotation (9, row-major) and CoM (3, m) relative to its host's frame. */
   carriedRot: Float64Array;
   carriedCom: Float64Array;
+  /** Total angular momentum about the system CoM (world frame, kg·m²/s) at the last auditAt. */
+  H: Float64Array;
+  /** Locked inertia about the system CoM in the world frame there (row-major, kg·m²), from the same world poses. */
+  lockW: Float64Array;
 }
 
 /** Allocates audit buffers. */
@@ -81,12 +83,13 @@ export function createAuditWork(model: BodyModel): AuditWork {
     rootW: new Float64Array(9 * STENCIL_POINTS), Rq: new Float64Array(9), att: new Float64Array(4),
     w: new Float64Array(STENCIL_POINTS), piece: null, moving: new Int32Array(0), resting: new Int32Array(0),
     carried: new Int32Array(0), host: new Int32Array(n), carriedRot: new Float64Array(9 * n), carriedCom: new Float64Array(3 * n),
+    H: new Float64Array(3), lockW: new Float64Array(9),
   };
 }
 
 /**
- * ‖H‖ (kg·m²/s) at time t of a piece, from the integrated attitude q [w,x,y,z] there and the root's
- * body-frame rate ω (rad/s) the integrator follows at (t, q). `centrePose`, if given, is the body's
+ * ‖H‖ (kg·m²/s) at time t of a piece, from the attitude q [w,x,y,z] there and the root's
+ * body-frame rate ω (rad/s); also leaves H and the world locked inertia in `work`. `centrePose`, if given, is the body's
  * root-frame pose (forwardKinematics) at exactly t, already computed by the caller: the stencil's
  * centre point reuses it instead of posing the body again (the same numbers either way).
  */
@@ -218,6 +221,8 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     vcx += m * vel[3 * i]; vcy += m * vel[3 * i + 1]; vcz += m * vel[3 * i + 2];
   }
   let Hx = 0, Hy = 0, Hz = 0;
+  // World locked inertia (upper triangle): Σ R J Rᵀ + m(|d|²E − d dᵀ).
+  let L00 = 0, L01 = 0, L02 = 0, L11 = 0, L12 = 0, L22 = 0;
   const J = model.inertia;
   for (let i = 0; i < n; i++) {
     const o = 9 * i;
@@ -244,6 +249,20 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: Arra
     const dx = X0[3 * i] - xcx, dy = X0[3 * i + 1] - xcy, dz = X0[3 * i + 2] - xcz;
     const ux = vel[3 * i] - vcx, uy = vel[3 * i + 1] - vcy, uz = vel[3 * i + 2] - vcz;
     Hx += m * (dy * uz - dz * uy); Hy += m * (dz * ux - dx * uz); Hz += m * (dx * uy - dy * ux);
+    // R J Rᵀ: K = J Rᵀ column by column is what the spin term did for one vector; here all of it.
+    const k00 = J[o] * r0 + J[o + 1] * r1 + J[o + 2] * r2, k01 = J[o] * r3 + J[o + 1] * r4 + J[o + 2] * r5, k02 = J[o] * r6 + J[o + 1] * r7 + J[o + 2] * r8;
+    const k10 = J[o + 3] * r0 + J[o + 4] * r1 + J[o + 5] * r2, k11 = J[o + 3] * r3 + J[o + 4] * r4 + J[o + 5] * r5, k12 = J[o + 3] * r6 + J[o + 4] * r7 + J[o + 5] * r8;
+    const k20 = J[o + 6] * r0 + J[o + 7] * r1 + J[o + 8] * r2, k21 = J[o + 6] * r3 + J[o + 7] * r4 + J[o + 8] * r5, k22 = J[o + 6] * r6 + J[o + 7] * r7 + J[o + 8] * r8;
+    const e2 = dx * dx + dy * dy + dz * dz;
+    L00 += r0 * k00 + r1 * k10 + r2 * k20 + m * (e2 - dx * dx);
+    L01 += r0 * k01 + r1 * k11 + r2 * k21 - m * dx * dy;
+    L02 += r0 * k02 + r1 * k12 + r2 * k22 - m * dx * dz;
+    L11 += r3 * k01 + r4 * k11 + r5 * k21 + m * (e2 - dy * dy);
+    L12 += r3 * k02 + r4 * k12 + r5 * k22 - m * dy * dz;
+    L22 += r6 * k02 + r7 * k12 + r8 * k22 + m * (e2 - dz * dz);
   }
+  const { H, lockW } = work;
+  H[0] = Hx; H[1] = Hy; H[2] = Hz;
+  lockW[0] = L00; lockW[1] = L01; lockW[2] = L02; lockW[3] = L01; lockW[4] = L11; lockW[5] = L12; lockW[6] = L02; lockW[7] = L12; lockW[8] = L22;
   return Math.hypot(Hx, Hy, Hz);
 }

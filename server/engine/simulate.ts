@@ -11,12 +11,10 @@ import { type BodyModel, compileBody } from '../../shared/kinematics/body-model.
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import { pathDegFromSamples } from '../../shared/math/path-travelled.ts';
 import { quatCanonical, quatToAxisAngle } from '../../shared/math/quaternion.ts';
-import { integrateAttitude } from './integrate-attitude.ts';
-import { compileMotion, evalPiece, type MotionPlan } from './joint-motion.ts';
+import { type AttitudeTrack, integrateAttitude } from './integrate-attitude.ts';
+import { anglesAt, compileMotion, evalPiece, type MotionPlan } from './joint-motion.ts';
 import { findRangeViolations, peakJointRates } from './joint-range.ts';
-import { bodyRate, createMomentumWork, restrictToPiece } from './locked-momentum.ts';
-import { auditAt, createAuditWork } from './momentum-audit.ts';
-import { mergeRigidSegments } from './rigid-merge.ts';
+import { auditTrack, type TrackAudit } from './track-audit.ts';
 import { ENGINE_VERSION } from './version.ts';
 
 const DEG = 180 / Math.PI;
@@ -31,6 +29,8 @@ export interface EngineOptions {
   atol?: number;
   /** Skip the momentum audit (reported as NaN); only for benchmarks isolating the integrator. */
   skipAudit?: boolean;
+  /** Search mode (simulateFinal): final attitude, range violations and peak joint rates only. */
+  finalOnly?: boolean;
 }
 
 /** Sample times 0, 1/rate, 2/rate, … and the end (s). */
@@ -42,17 +42,32 @@ export function sampleTimes(duration: number, rateHz: number): number[] {
   return out;
 }
 
-/** Index of the piece that owns time t (the first whose end is ≥ t). */
-function pieceIndexAt(plan: MotionPlan, t: number): number {
-  for (let p = 0; p < plan.pieces.length; p++) if (t <= plan.pieces[p].t1) return p;
-  return plan.pieces.length - 1;
-}
-
 /** Simulates a validated body and sequence. Throws only on internal failure (e.g. integrator divergence). */
 export function simulate(body: Body, sequence: Sequence, options: EngineOptions = {}): SimulationResult {
   const model = compileBody(body);
   const plan = compileMotion(model, sequence);
   return simulateModel(model, plan, options);
+}
+
+/**
+ * Search mode, for the planner's and the robustness run's inner loops: the final attitude, range
+ * violations and peak joint rates only — no samples, no audit, no interpolation. The result has the
+ * contract's shape with `samples.frames` empty and the momentum audit NaN.
+ */
+export function simulateFinal(body: Body, sequence: Sequence, options: Pick<EngineOptions, 'rtol' | 'atol'> = {}): SimulationResult {
+  const model = compileBody(body);
+  const plan = compileMotion(model, sequence);
+  return simulateModelFinal(model, plan, options);
+}
+
+/** Search mode on a compiled model and plan. */
+export function simulateModelFinal(model: BodyModel, plan: MotionPlan, options: Pick<EngineOptions, 'rtol' | 'atol'> = {}): SimulationResult {
+  const rtol = options.rtol ?? DEFAULT_RTOL;
+  const atol = options.atol ?? rtol;
+  const track = integrateAttitude(model, plan, { rtol, atol });
+  return assemble(model, plan, track, { rtol, atol }, 0, [], {
+    maxAbs: NaN, relative: NaN, peakShapeMomentum: NaN, atTime: 0, points: 0, rateEvaluations: 0,
+  }, 'search mode (final attitude only)');
 }
 
 /** Simulates a compiled model and plan (the benchmark's entry: no re-compilation). */
@@ -62,49 +77,34 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
   const atol = options.atol ?? rtol;
   const times = sampleTimes(plan.duration, rateHz);
   const nd = model.dofCount;
-
-  const owner = times.map((t) => pieceIndexAt(plan, t));
   const track = integrateAttitude(model, plan, { rtol, atol }, times);
+  const audit = auditTrack(model, plan, times, track.outputs, options.skipAudit === true);
 
-  // Samples, momentum audit, peak shape momentum.
-  // The rate the integrator follows is computed on its model (dof-less segments folded into their
-  // parents); the audit poses every segment of the full model itself.
-  const rhsModel = mergeRigidSegments(model);
-  const work = createMomentumWork(rhsModel);
-  const audit = createAuditWork(model);
-  const q = new Float64Array(nd), qd = new Float64Array(nd), a = new Float64Array(4);
-  const frames: SimulationResult['samples']['frames'] = [];
-  let maxH = 0, atTime = 0, peakH = 0;
-  let o = 0;
+  // Samples: the integrated attitude and the prescribed joint angles.
+  const q = new Float64Array(nd);
+  const frames: SimulationResult['samples']['frames'] = new Array(times.length);
+  const o = track.outputs;
   for (let s = 0; s < times.length; s++) {
-    const t = times[s], p = owner[s];
-    a[0] = track.outputs[o]; a[1] = track.outputs[o + 1]; a[2] = track.outputs[o + 2]; a[3] = track.outputs[o + 3];
-    o += 4;
-    if (p < 0) {
-      frames.push({ t, attitude: { w: 1, x: 0, y: 0, z: 0 }, jointsDeg: Array.from(plan.start, (v) => v * DEG) });
-      continue;
-    }
-    const piece = plan.pieces[p];
-    evalPiece(piece, t, q, qd);
+    const t = times[s];
+    anglesAt(plan, t, q);
     const jointsDeg = new Array<number>(nd);
     for (let k = 0; k < nd; k++) jointsDeg[k] = q[k] * DEG;
-    frames.push({ t, attitude: { w: a[0], x: a[1], y: a[2], z: a[3] }, jointsDeg });
-    // The rate the integrator follows here (for the audit's root motion) and the shape momentum.
-    if (work.piece !== piece) restrictToPiece(rhsModel, piece, work);
-    const omega = bodyRate(rhsModel, q, qd, work);
-    peakH = Math.max(peakH, Math.hypot(work.h[0], work.h[1], work.h[2]));
-    if (options.skipAudit) continue;
-    const H = auditAt(model, piece, t, a, omega, audit);
-    if (H > maxH) { maxH = H; atTime = t; }
+    frames[s] = { t, attitude: { w: o[4 * s], x: o[4 * s + 1], y: o[4 * s + 2], z: o[4 * s + 3] }, jointsDeg };
   }
+  return assemble(model, plan, track, { rtol, atol }, rateHz, frames, audit, 'full');
+}
 
-  // Final state.
+/** The result contract from a track (final state, checks, solver figures). */
+function assemble(
+  model: BodyModel, plan: MotionPlan, track: AttitudeTrack, tol: { rtol: number; atol: number }, rateHz: number,
+  frames: SimulationResult['samples']['frames'], audit: TrackAudit, mode: string,
+): SimulationResult {
+  const nd = model.dofCount;
   const fq = quatCanonical(Float64Array.from(track.final));
   const aa = quatToAxisAngle(fq);
   const ypr = quatToYpr(fq);
   const finalQ = new Float64Array(nd);
   if (plan.pieces.length) evalPiece(plan.pieces[plan.pieces.length - 1], plan.duration, finalQ, null); else finalQ.set(plan.start);
-
   return {
     engineVersion: ENGINE_VERSION,
     duration: plan.duration,
@@ -116,17 +116,15 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
       jointsDeg: Object.fromEntries(model.dofNames.map((name, k) => [name, finalQ[k] * DEG])),
     },
     momentumResidual: {
-      maxAbs: options.skipAudit ? NaN : maxH,
-      relative: options.skipAudit ? NaN : peakH > 0 ? maxH / peakH : 0,
-      peakShapeMomentum: peakH, atTime, points: times.length,
+      maxAbs: audit.maxAbs, relative: audit.relative, peakShapeMomentum: audit.peakShapeMomentum, atTime: audit.atTime, points: audit.points,
     },
     rangeViolations: findRangeViolations(model, plan),
     peakJointRateDegS: peakJointRates(model, plan),
     samples: { rateHz, dofs: [...model.dofNames], frames },
     solver: {
-      method: 'Magnus, 6th order (3 Gauss–Legendre nodes), adaptive',
+      method: `Magnus, 6th order (3 Gauss–Legendre nodes), adaptive; ${mode}`,
       rhsEvaluations: track.stats.rhsEvaluations, steps: track.stats.steps, rejectedSteps: track.stats.rejectedSteps,
-      pieces: track.stats.pieces, tolerances: { relative: rtol, absolute: atol },
+      pieces: track.stats.pieces, tolerances: { relative: tol.rtol, absolute: tol.atol },
     },
   };
 }

@@ -8,15 +8,15 @@ import type { SimulationResult } from '../../shared/contracts/result.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { quatAngleBetween, type Quat } from '../../shared/math/quaternion.ts';
-import { simulate, type EngineOptions } from '../engine/simulate.ts';
+import { simulate, simulateFinal, type EngineOptions } from '../engine/simulate.ts';
 
 const DEG = 180 / Math.PI;
 
 /**
  * Engine settings inside the optimisation loop: a looser tolerance than verification's 1e-10
- * (still far below the degree-level errors being minimised), 1 Hz samples and no momentum audit.
+ * (still far below the degree-level errors being minimised), in search mode: no samples, no audit.
  */
-export const SEARCH_ENGINE_OPTIONS: EngineOptions = { rtol: 1e-8, rateHz: 1, skipAudit: true };
+export const SEARCH_ENGINE_OPTIONS: EngineOptions = { rtol: 1e-8, finalOnly: true };
 
 /** What one evaluation measured. */
 export interface StepsOutcome {
@@ -40,7 +40,8 @@ export function compileForBody(body: Body, primitives: readonly Primitive[]): Se
 
 /** Simulates an engine sequence and measures it against the target quaternion [w,x,y,z]. */
 export function evaluateSequence(body: Body, sequence: Sequence, target: Quat, options: EngineOptions = SEARCH_ENGINE_OPTIONS): StepsOutcome {
-  const result = simulate(body, sequence, options);
+  // Search mode: the final attitude and the checks only (no samples, audit or interpolation).
+  const result = options.finalOnly ? simulateFinal(body, sequence, options) : simulate(body, sequence, options);
   const a = result.final.attitude;
   return {
     errorDeg: quatAngleBetween([a.w, a.x, a.y, a.z], target) * DEG,

@@ -1,0 +1,141 @@
+/**
+ * The momentum audit of an attitude track: the total angular momentum H about the system CoM that
+ * the sampled motion — the integrated attitudes and the prescribed joint angles — actually has,
+ * relative to the peak shape momentum. It takes nothing from the integrator but its output.
+ *
+ * At each sample the root's angular velocity is the track's own: the rate ω(t) = −I_lock⁻¹h that
+ * the audit evaluates itself, plus the rate at which the track departs from that rate's flow —
+ * between consecutive samples the audit re-integrates ω with its own sixth-order Magnus step on
+ * Gauss–Lobatto nodes (not the integrator's Gauss nodes, steps or interpolant), and the defect
+ * d = log((qₖ ⊗ exp θ)⁻¹ ⊗ qₖ₊₁) over Δt is the track's excess rate on that interval. With that
+ * rate, every segment's world pose is differenced on a short stencil (momentum-audit.ts: no
+ * I_lock / h / analytic-velocity code of the engine) and H summed in the world frame. So:
+ * - a wrong formula for ω shows as H ≠ 0 through the independent differencing;
+ * - an integrator that follows a wrong ω, or a wrong attitude at a sample, shows through the
+ *   defects (I·d/Δt: a 1e-6 rad error at 60 Hz is ≈6e-5 rad/s of rate);
+ * - a healthy run stays at the integration and rounding floor (≈1e-10 of the peak shape momentum).
+ * H is checked with the defect on either side of each sample; the larger counts.
+ */
+import type { BodyModel } from '../../shared/kinematics/body-model.ts';
+import { quatToMatrix } from '../../shared/math/quaternion.ts';
+import { PlanRate } from './integrate-attitude.ts';
+import type { MotionPlan } from './joint-motion.ts';
+import { LOBATTO_NODES, magnusLobatto, quatLogBetween, quatTimesExp } from './magnus.ts';
+import { auditAt, createAuditWork } from './momentum-audit.ts';
+
+/** Sample intervals shorter than this (s) give no defect: rounding over Δt would swamp it (e.g. a last sample 1e-9 s before the end). */
+export const MIN_DEFECT_INTERVAL_S = 1e-3;
+
+/**
+ * Longest stretch (s) the audit re-integrates in one Magnus step: longer sample intervals are split
+ * (at 60 Hz and above, one step per interval; its own error then stays near 1e-12 rad).
+ */
+export const MAX_REINTEGRATION_STEP_S = 1 / 60;
+
+/** What the audit found. */
+export interface TrackAudit {
+  /** Max ‖H‖ over the samples, kg·m²/s. */
+  maxAbs: number;
+  /** maxAbs over the peak shape momentum (0 if nothing moves). */
+  relative: number;
+  /** Peak ‖h‖ over the samples, kg·m²/s. */
+  peakShapeMomentum: number;
+  /** Time of the max, s. */
+  atTime: number;
+  /** Samples audited. */
+  points: number;
+  /** Evaluations of ω(t) the audit made (not the integrator's). */
+  rateEvaluations: number;
+}
+
+/** Index of the piece that owns time t (the first whose end is ≥ t); −1 without pieces. */
+export function pieceIndexAt(plan: MotionPlan, t: number): number {
+  for (let p = 0; p < plan.pieces.length; p++) if (t <= plan.pieces[p].t1) return p;
+  return plan.pieces.length - 1;
+}
+
+/**
+ * Audits attitudes `attitudes` ([w,x,y,z] per time, body → inertial) at ascending `times` (s) of
+ * a plan on a model. `shapeOnly`: only the peak shape momentum (the audit skipped; H is NaN).
+ */
+export function auditTrack(model: BodyModel, plan: MotionPlan, times: ArrayLike<number>, attitudes: Float64Array, shapeOnly = false): TrackAudit {
+  const n = times.length;
+  const rate = new PlanRate(model);
+  const owner = new Int32Array(n);
+  // ω (root frame, rad/s) at every sample, from the audit's own evaluations; peak ‖h‖.
+  const omega = new Float64Array(3 * n);
+  let peakH = 0;
+  for (let k = 0; k < n; k++) {
+    const p = pieceIndexAt(plan, times[k]);
+    owner[k] = p;
+    if (p < 0) continue;
+    rate.setPiece(plan.pieces[p]);
+    rate.rate(times[k], omega, 3 * k);
+    const h = rate.shapeMomentum();
+    peakH = Math.max(peakH, Math.sqrt(h[0] * h[0] + h[1] * h[1] + h[2] * h[2]));
+  }
+  if (shapeOnly) return { maxAbs: NaN, relative: NaN, peakShapeMomentum: peakH, atTime: 0, points: n, rateEvaluations: rate.evaluations };
+
+  // The track's excess rate on each interval k → k+1 (body frame, rad/s; NaN: none).
+  const excess = new Float64Array(3 * Math.max(0, n - 1)).fill(NaN);
+  const w = new Float64Array(12), theta = new Float64Array(3), u = new Float64Array(4), d = new Float64Array(3);
+  for (let k = 0; k + 1 < n; k++) {
+    const ta = times[k], tb = times[k + 1], dt = tb - ta;
+    if (owner[k] < 0 || dt < MIN_DEFECT_INTERVAL_S) continue;
+    // Re-integrate from the sample's attitude, split at step boundaries (joint rates may jump there).
+    u.set(attitudes.subarray(4 * k, 4 * k + 4));
+    for (let p = owner[k]; p <= owner[k + 1]; p++) {
+      const piece = plan.pieces[p];
+      const u0 = Math.max(ta, piece.t0), u1 = Math.min(tb, piece.t1), span = u1 - u0;
+      if (span <= 0) continue;
+      rate.setPiece(piece);
+      const m = Math.ceil(span / MAX_REINTEGRATION_STEP_S - 1e-9), hs = span / m;
+      for (let i = 0; i < m; i++) {
+        const v0 = u0 + i * hs, v1 = i === m - 1 ? u1 : u0 + (i + 1) * hs;
+        for (let j = 0; j < 4; j++) {
+          // End nodes at a sample of this piece reuse its rate; an inner end node, the sub-step before's.
+          if (j === 0 && i === 0 && u0 === ta && p === owner[k]) { w[0] = omega[3 * k]; w[1] = omega[3 * k + 1]; w[2] = omega[3 * k + 2]; }
+          else if (j === 0 && i > 0) { w[0] = w[9]; w[1] = w[10]; w[2] = w[11]; }
+          else if (j === 3 && i === m - 1 && u1 === tb && p === owner[k + 1]) { w[9] = omega[3 * k + 3]; w[10] = omega[3 * k + 4]; w[11] = omega[3 * k + 5]; }
+          else rate.rate(j === 3 ? v1 : v0 + LOBATTO_NODES[j] * (v1 - v0), w, 3 * j);
+        }
+        magnusLobatto(w, v1 - v0, theta);
+        quatTimesExp(u, 0, theta, 0, u, 0);
+      }
+    }
+    quatLogBetween(u, 0, attitudes, 4 * (k + 1), d);
+    excess[3 * k] = d[0] / dt; excess[3 * k + 1] = d[1] / dt; excess[3 * k + 2] = d[2] / dt;
+  }
+
+  // H at each sample with the rate the track has on either side.
+  const work = createAuditWork(model);
+  const R = new Float64Array(9), a = new Float64Array(4);
+  let maxH = 0, atTime = 0;
+  for (let k = 0; k < n; k++) {
+    const p = owner[k];
+    if (p < 0) continue;
+    a.set(attitudes.subarray(4 * k, 4 * k + 4));
+    auditAt(model, plan.pieces[p], times[k], a, omega.subarray(3 * k, 3 * k + 3), work);
+    const { H, lockW: L } = work;
+    quatToMatrix(a, R);
+    // Without a defect on either side (a lone sample, or intervals under MIN_DEFECT_INTERVAL_S), H as it stands.
+    let checked = false;
+    for (let side = 0; side < 3; side++) {
+      const i = k - 1 + side;
+      let ex = 0, ey = 0, ez = 0;
+      if (side < 2) {
+        if (i < 0 || i >= n - 1 || Number.isNaN(excess[3 * i])) continue;
+        // The excess rate into the world frame (R δ); I_world · R δ is what it adds to H.
+        const bx = excess[3 * i], by = excess[3 * i + 1], bz = excess[3 * i + 2];
+        ex = R[0] * bx + R[1] * by + R[2] * bz; ey = R[3] * bx + R[4] * by + R[5] * bz; ez = R[6] * bx + R[7] * by + R[8] * bz;
+        checked = true;
+      } else if (checked) break;
+      const hx = H[0] + L[0] * ex + L[1] * ey + L[2] * ez;
+      const hy = H[1] + L[3] * ex + L[4] * ey + L[5] * ez;
+      const hz = H[2] + L[6] * ex + L[7] * ey + L[8] * ez;
+      const norm = Math.sqrt(hx * hx + hy * hy + hz * hz);
+      if (norm > maxH) { maxH = norm; atTime = times[k]; }
+    }
+  }
+  return { maxAbs: maxH, relative: peakH > 0 ? maxH / peakH : 0, peakShapeMomentum: peakH, atTime, points: n, rateEvaluations: rate.evaluations };
+}
