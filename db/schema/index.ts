@@ -5,3 +5,4 @@ export * from './uploads.ts';
 export * from './users.ts';
 export * from './plans.ts';
 export * from './robustness.ts';
+export * from './recordings.ts';

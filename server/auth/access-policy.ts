@@ -20,6 +20,7 @@ export const ACCESS_POLICY = {
   reviews: ['admin', 'reviewer'],
   rehearsals: ALL,
   motion: ALL,
+  recordings: STAFF,
 } as const satisfies Record<string, readonly Role[]>;
 
 export type AccessArea = keyof typeof ACCESS_POLICY;

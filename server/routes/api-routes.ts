@@ -7,6 +7,7 @@ import { meRouter } from './auth.ts';
 import { crewRouter } from './crew.ts';
 import { suitsRouter } from './suits.ts';
 import { motionRouter } from './motion.ts';
+import { recordingsRouter } from './recordings.ts';
 import { rehearsalsRouter } from './rehearsals.ts';
 import { reviewsRouter } from './reviews.ts';
 import { sequencesRouter } from './sequences.ts';
@@ -31,6 +32,7 @@ export const API_AREAS: ApiArea[] = [
   { area: 'uploads', path: '/uploads', router: uploadsRouter },
   { area: 'motion', path: '/motion', router: motionRouter },
   { area: 'rehearsals', path: '/rehearsals', router: rehearsalsRouter },
+  { area: 'recordings', path: '/recordings', router: recordingsRouter },
   { area: 'sequences', path: '/sequences', router: sequencesRouter },
   { area: 'reviews', path: '/reviews', router: reviewsRouter },
   { area: 'simulate', path: '/simulate', router: () => createSimulateRouter() },

@@ -20,6 +20,7 @@ import { receiveFile } from '../uploads/receive-file.ts';
 import { recordRejectedUpload, rejectUpload } from '../uploads/reject-upload.ts';
 import { measuredBodyFromCsv, measuredBodyFromJson } from '../uploads/segment-table.ts';
 import { storeRawFile, uploadValues, uploadView } from '../uploads/stored-file.ts';
+import { mountRecordingUploads } from './recording-uploads.ts';
 
 const idParams = z.object({ id: z.string().uuid('Not a valid upload id.') });
 const segmentTableFields = z.object({
@@ -59,6 +60,9 @@ export function uploadsRouter(ctx: AppContext): Router {
     const bytes = await ctx.storage.get(row.objectKey);
     res.attachment(row.fileName).type(row.contentType).send(bytes);
   });
+
+  // Joint-angle CSV and BVH recordings (issue 15).
+  mountRecordingUploads(router, ctx);
 
   router.post('/measurements', receiveFile(['.csv']), async (req, res) => {
     const me = req.user!;

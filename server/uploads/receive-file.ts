@@ -5,7 +5,7 @@ import { UPLOAD_MAX_BYTES } from '../../shared/contracts/uploads.ts';
 import { HttpError } from '../http/http-error.ts';
 
 /** Extensions accepted per upload route, lower-case with the dot. */
-export type AcceptedExtension = '.csv' | '.json';
+export type AcceptedExtension = '.csv' | '.json' | '.bvh';
 
 function extensionOf(name: string): string {
   const dot = name.lastIndexOf('.');

@@ -25,7 +25,8 @@ export async function storeRawFile(ctx: AppContext, kind: UploadKind, file: Expr
   const id = randomUUID();
   const fileName = safeFileName(file.originalname);
   const objectKey = `uploads/${id}/${fileName}`;
-  const contentType = fileName.toLowerCase().endsWith('.json') ? 'application/json' : 'text/csv';
+  const lower = fileName.toLowerCase();
+  const contentType = lower.endsWith('.json') ? 'application/json' : lower.endsWith('.bvh') ? 'text/plain' : 'text/csv';
   await ctx.storage.put(objectKey, file.buffer, contentType);
   return {
     id,

@@ -4,7 +4,7 @@ import type { SegmentLengthKey } from './profile-inputs.ts';
 export const UPLOAD_MAX_BYTES = 1024 * 1024;
 
 /** What an upload holds. */
-export type UploadKind = 'measurements_csv' | 'segment_table_csv' | 'segment_table_json';
+export type UploadKind = 'measurements_csv' | 'segment_table_csv' | 'segment_table_json' | 'joint_angles_csv' | 'bvh';
 
 /** One problem in an uploaded file: the row (as numbered in the file, header = row 1), the column and why. */
 export interface UploadRowError {
