@@ -4,9 +4,12 @@
  * the planner: its composer steps compiled by the composer's compiler and run by the engine at its
  * full (verification) accuracy must land within the tolerance of the target quaternion, with no
  * range violation and the peak joint rate under the limit; its `sequence` is what the compiler makes.
+ * The final attitude is also re-integrated by a general-purpose solver (odex, Gragg–Bulirsch–Stoer
+ * extrapolation: tests/engine/odex-reference.ts), which shares only ω(t) with the engine.
  */
 import { describe, expect, it } from 'vitest';
 
+import { compileMotion } from '../../server/engine/joint-motion.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
 import { planManeuver } from '../../server/planning/plan-maneuver.ts';
@@ -15,7 +18,9 @@ import type { Body } from '../../shared/contracts/body.ts';
 import { planRequestSchema } from '../../shared/contracts/plan.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { primitiveListSchema } from '../../shared/primitives/primitive-schemas.ts';
+import { odexFinalAttitude } from '../engine/odex-reference.ts';
 import { demoBody } from './planner-bodies.ts';
 
 const settings = planRequestSchema.parse({ samples: 10, maxCandidates: 2 });
@@ -43,6 +48,10 @@ function checkBest(body: Body, target: SequenceTarget) {
   expect(error).toBeCloseTo(best.errorDeg, 4);
   expect(r.peakJointRateDegS.max).toBeLessThanOrEqual(target.rateLimitDegS);
   expect(r.rangeViolations).toEqual([]);
+  const model = compileBody(body);
+  const independent = odexFinalAttitude(model, compileMotion(model, compiled.sequence), 1e-10).q;
+  expect(quatAngleBetween(independent, targetQuat(target)) * DEG).toBeLessThan(target.toleranceDeg);
+  expect(quatAngleBetween(independent, [a.w, a.x, a.y, a.z])).toBeLessThan(1e-6);
   // Every moving dof keeps the planner's margin inside its range.
   const ranges = new Map(dofInfoFromBody(body).map((d) => [d.name, d]));
   r.samples.frames.forEach((f) => f.jointsDeg.forEach((v, k) => {
