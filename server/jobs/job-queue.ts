@@ -10,7 +10,7 @@
  * job fills (plans, re-verifications, robustness runs) are reconciled with their jobs on start and
  * then periodically (reconcile-work.ts), so none stays `queued` or `running` without a job behind it.
  */
-import { PgBoss } from 'pg-boss';
+import { PgBoss, type Job } from 'pg-boss';
 
 import type { AppContext, JobQueue } from '../app-context.ts';
 import { ALL_QUEUES, CHUNK_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT, ROBUSTNESS_CHUNK_QUEUE, type QueueName } from './queue-names.ts';
@@ -26,6 +26,8 @@ export { ALL_QUEUES, CHUNK_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, REVERIFY_Q
 /** A running queue: the JobQueue the routes use, plus shutdown. */
 export interface RunningJobQueue extends JobQueue {
   boss: PgBoss;
+  /** Jobs this process has run since it started, by queue. */
+  jobsRun: Record<QueueName, number>;
   stop(): Promise<void>;
 }
 
@@ -81,8 +83,10 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
   let reconcileTimer: NodeJS.Timeout | null = null;
   let stopping = false;
 
+  const jobsRun = Object.fromEntries(ALL_QUEUES.map((q) => [q, 0])) as Record<QueueName, number>;
   const handle: RunningJobQueue = {
     boss,
+    jobsRun,
     async enqueueReverification(sequenceVersionIds, toProfileVersionId) {
       for (const sequenceVersionId of sequenceVersionIds) {
         await boss.send(REVERIFY_QUEUE, { sequenceVersionId, toProfileVersionId } satisfies ReverifyJob);
@@ -106,19 +110,31 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
   };
 
   if (worker) {
+    await pool!.warm();
     // NOTIFY wakes the worker for new jobs only; retries become due silently, so poll often in both modes.
     // Each queue gets `concurrency` pollers; one semaphore keeps this process at `concurrency` jobs in all.
     const workOptions = { batchSize: 1, localConcurrency: concurrency, pollingIntervalSeconds: poll, notifyPollingIntervalSeconds: poll };
-    await boss.work<ReverifyJob>(REVERIFY_QUEUE, workOptions, (jobs) => slots.run(async () => {
-      for (const job of jobs) await reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT });
-    }));
+    // After a job, this queue's pollers fetch again at once instead of waiting out the poll interval,
+    // so a backlog (a run's chunks) drains back to back.
+    const wake = (queue: QueueName) => {
+      for (const w of boss.getWipData()) if (w.name === queue) boss.notifyWorker(w.id);
+    };
+    const handler = <T>(queue: QueueName, run: (job: Job<T>) => Promise<void>) => (jobs: Job<T>[]) => slots.run(async () => {
+      try {
+        for (const job of jobs) {
+          jobsRun[queue]++;
+          await run(job);
+        }
+      } finally {
+        wake(queue);
+      }
+    });
+    await boss.work<ReverifyJob>(REVERIFY_QUEUE, workOptions, handler(REVERIFY_QUEUE, (job: Job<ReverifyJob>) =>
+      reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT })));
     // A plan runs in its own worker thread.
-    await boss.work<PlanJob>(PLAN_QUEUE, workOptions, (jobs) => slots.run(async () => {
-      for (const job of jobs) await runPlan(ctx, job.data);
-    }));
-    await boss.work<RobustnessChunkJob>(ROBUSTNESS_CHUNK_QUEUE, workOptions, (jobs) => slots.run(async () => {
-      for (const job of jobs) await runRobustnessChunk(ctx, pool!, job.data, { signal: job.signal, attempt: job.retryCount, retryLimit: CHUNK_RETRY_LIMIT });
-    }));
+    await boss.work<PlanJob>(PLAN_QUEUE, workOptions, handler(PLAN_QUEUE, (job: Job<PlanJob>) => runPlan(ctx, job.data)));
+    await boss.work<RobustnessChunkJob>(ROBUSTNESS_CHUNK_QUEUE, workOptions, handler(ROBUSTNESS_CHUNK_QUEUE, (job: Job<RobustnessChunkJob>) =>
+      runRobustnessChunk(ctx, pool!, job.data, { signal: job.signal, attempt: job.retryCount, retryLimit: CHUNK_RETRY_LIMIT })));
   }
 
   if (opts.reconcile ?? worker) {

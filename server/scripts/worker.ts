@@ -38,6 +38,7 @@ async function main() {
     stopping = true;
     log('Stopping: finishing the jobs in hand (up to 10 s)…');
     await jobs?.stop().catch((err: unknown) => console.error(err));
+    if (jobs) log(`Jobs run: ${Object.entries(jobs.jobsRun).map(([q, n]) => `${q} ${n}`).join(', ')}.`);
     await ctx.close().catch(() => undefined);
     log('Stopped.');
     process.exit(code);

@@ -11,3 +11,8 @@ export interface ChunkRequest {
 export type ChunkReply =
   | { id: number; kind: 'done'; samples: RobustnessSample[] }
   | { id: number; kind: 'failed'; message: string };
+
+/** Sent once by a thread when the model has loaded. */
+export interface ChunkThreadReady {
+  kind: 'ready';
+}

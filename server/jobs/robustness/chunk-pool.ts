@@ -8,7 +8,7 @@ import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 
 import type { RobustnessInputs, RobustnessSample } from '../../planning/robustness.ts';
-import type { ChunkReply, ChunkRequest } from './chunk-messages.ts';
+import type { ChunkReply, ChunkRequest, ChunkThreadReady } from './chunk-messages.ts';
 
 const ENTRY = fileURLToPath(new URL('./chunk-entry.mjs', import.meta.url).href);
 
@@ -18,7 +18,7 @@ export class ChunkAbortedError extends Error {
 }
 
 interface Pending { request: ChunkRequest; resolve: (s: RobustnessSample[]) => void; reject: (e: Error) => void; signal?: AbortSignal; onAbort?: () => void }
-interface Slot { worker: Worker; job: Pending | null }
+interface Slot { worker: Worker; job: Pending | null; ready: Promise<void> }
 
 export class ChunkPool {
   private slots: Slot[] = [];
@@ -39,6 +39,12 @@ export class ChunkPool {
       this.queue.push(job);
       this.dispatch();
     });
+  }
+
+  /** Starts every thread and waits until each has loaded the model (a worker process does this at start). */
+  async warm(): Promise<void> {
+    while (this.slots.length < this.size) this.spawn();
+    await Promise.all(this.slots.map((s) => s.ready));
   }
 
   async close(): Promise<void> {
@@ -64,8 +70,10 @@ export class ChunkPool {
 
   private spawn(): Slot {
     const worker = new Worker(ENTRY);
-    const slot: Slot = { worker, job: null };
-    worker.on('message', (reply: ChunkReply) => {
+    let markReady = () => {};
+    const slot: Slot = { worker, job: null, ready: new Promise<void>((resolve) => { markReady = resolve; }) };
+    worker.on('message', (reply: ChunkReply | ChunkThreadReady) => {
+      if (reply.kind === 'ready') return markReady();
       const job = slot.job;
       if (!job || job.request.id !== reply.id) return;
       slot.job = null;
@@ -74,6 +82,7 @@ export class ChunkPool {
       this.dispatch();
     });
     const crash = (message: string) => {
+      markReady();
       this.slots = this.slots.filter((s) => s !== slot);
       const job = slot.job;
       slot.job = null;

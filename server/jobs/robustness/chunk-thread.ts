@@ -2,7 +2,7 @@
 import { parentPort } from 'node:worker_threads';
 
 import { robustnessSamples } from '../../planning/robustness.ts';
-import type { ChunkReply, ChunkRequest } from './chunk-messages.ts';
+import type { ChunkReply, ChunkRequest, ChunkThreadReady } from './chunk-messages.ts';
 
 parentPort?.on('message', (msg: ChunkRequest) => {
   let reply: ChunkReply;
@@ -13,3 +13,6 @@ parentPort?.on('message', (msg: ChunkRequest) => {
   }
   parentPort!.postMessage(reply);
 });
+
+// Tell the pool the model has loaded (a warmed pool starts its first chunk without the load time).
+parentPort?.postMessage({ kind: 'ready' } satisfies ChunkThreadReady);
