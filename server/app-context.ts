@@ -1,3 +1,4 @@
+import type { PgBoss } from 'pg-boss';
 import type { Logger } from 'pino';
 
 import type { Database } from '../db/client.ts';
@@ -23,6 +24,8 @@ export interface AppContext {
 
 /** The part of the job queue the routes use. */
 export interface JobQueue {
+  /** The pg-boss instance (admin view: find and cancel jobs). */
+  boss?: PgBoss;
   enqueueReverification(sequenceVersionIds: string[], toProfileVersionId: string): Promise<void>;
   /** Queues a planning run for a `plans` row (optional: queues without planning workers may omit it). */
   enqueuePlan?(planId: string): Promise<void>;

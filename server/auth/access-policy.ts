@@ -12,6 +12,7 @@ export const ACCESS_POLICY = {
   me: ALL,
   team: ['admin'],
   audit: ['admin'],
+  jobs: ['admin'],
   simulate: STAFF,
   crew: ALL,
   suits: ALL,

@@ -3,6 +3,7 @@ import type { Router } from 'express';
 import type { AppContext } from '../app-context.ts';
 import type { AccessArea } from '../auth/access-policy.ts';
 import { auditRouter } from './audit.ts';
+import { jobsRouter } from './jobs.ts';
 import { meRouter } from './auth.ts';
 import { crewRouter } from './crew.ts';
 import { suitsRouter } from './suits.ts';
@@ -27,6 +28,7 @@ export const API_AREAS: ApiArea[] = [
   { area: 'me', path: '/me', router: meRouter },
   { area: 'team', path: '/team', router: teamRouter },
   { area: 'audit', path: '/audit', router: auditRouter },
+  { area: 'jobs', path: '/jobs', router: jobsRouter },
   { area: 'crew', path: '/crew', router: crewRouter },
   { area: 'suits', path: '/suits', router: suitsRouter },
   { area: 'uploads', path: '/uploads', router: uploadsRouter },

@@ -1,0 +1,52 @@
+/**
+ * The admin view of background work (GET /api/jobs): plans, robustness runs and re-verifications
+ * with their state, progress and the reason of a failure, plus the queue's raw job counts.
+ */
+import { z } from 'zod';
+
+export const WORK_KINDS = ['plan', 'robustness', 'reverification'] as const;
+export type WorkKind = (typeof WORK_KINDS)[number];
+
+export const WORK_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+export type WorkState = (typeof WORK_STATES)[number];
+
+/** Which items to list. */
+export const WORK_FILTERS = ['open', 'failed', 'done'] as const;
+export type WorkFilter = (typeof WORK_FILTERS)[number];
+
+export const workItemSchema = z.object({
+  kind: z.enum(WORK_KINDS),
+  id: z.uuid(),
+  /** What it is about, e.g. "Robustness of Quarter turn v3 (1,000 samples)". */
+  label: z.string(),
+  state: z.enum(WORK_STATES),
+  /** 0–1, null when the kind reports none. */
+  progress: z.number().nullable(),
+  /** Why it failed or was cancelled. */
+  error: z.string().nullable(),
+  /** Attempts made by workers (retries after a worker died count). */
+  attempts: z.number().int(),
+  createdAt: z.string(),
+  finishedAt: z.string().nullable(),
+  canRetry: z.boolean(),
+  canCancel: z.boolean(),
+});
+export type WorkItem = z.infer<typeof workItemSchema>;
+
+export const queueCountsSchema = z.object({
+  queue: z.string(),
+  queued: z.number().int(),
+  active: z.number().int(),
+  failed: z.number().int(),
+  completed: z.number().int(),
+  cancelled: z.number().int(),
+});
+export type QueueCounts = z.infer<typeof queueCountsSchema>;
+
+export const backgroundWorkSchema = z.object({
+  items: z.array(workItemSchema),
+  queues: z.array(queueCountsSchema),
+});
+export type BackgroundWork = z.infer<typeof backgroundWorkSchema>;
+
+export const workListQuerySchema = z.object({ filter: z.enum(WORK_FILTERS, { error: 'filter must be open, failed or done' }).default('open') });
