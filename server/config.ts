@@ -69,6 +69,17 @@ export const configSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   /** Simulation time budget per request, ms. */
   SIMULATION_TIMEOUT_MS: z.coerce.number().int().min(100).default(20_000),
+  /** Ad-hoc simulations (POST /api/simulate) one person may have running or waiting at once. */
+  SIMULATE_CONCURRENCY_PER_USER: z.coerce.number().int().min(1).default(1),
+  /** Ad-hoc simulations one person may start per window. */
+  SIMULATE_RATE_LIMIT: z.coerce.number().int().min(1).default(30),
+  SIMULATE_RATE_WINDOW_MS: z.coerce.number().int().min(1000).default(60_000),
+  /** Ad-hoc simulations allowed to wait for a worker, everyone together (more get 429). */
+  SIMULATE_QUEUE_MAX: z.coerce.number().int().min(0).default(4),
+  /** Worker threads for ad-hoc simulations (trainee motion and verification have their own pool). */
+  SIMULATE_POOL_SIZE: z.coerce.number().int().min(1).max(16).default(1),
+  /** Largest result one ad-hoc simulation may return, as samples × dofs (≈ 12 bytes of JSON each). */
+  SIMULATE_MAX_SAMPLE_VALUES: z.coerce.number().int().min(1000).default(1_000_000),
   /** Background jobs one worker process runs at once (robustness chunks run in that many threads). */
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
   /**

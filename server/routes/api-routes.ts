@@ -12,7 +12,8 @@ import { recordingsRouter } from './recordings.ts';
 import { rehearsalsRouter } from './rehearsals.ts';
 import { reviewsRouter } from './reviews.ts';
 import { sequencesRouter } from './sequences.ts';
-import { createSimulateRouter } from './simulate.ts';
+import { adhocSimulationPool } from '../engine/pool/shared-pools.ts';
+import { createSimulateRouter, fairnessFromConfig } from './simulate.ts';
 import { teamRouter } from './team.ts';
 import { uploadsRouter } from './uploads.ts';
 
@@ -37,5 +38,11 @@ export const API_AREAS: ApiArea[] = [
   { area: 'recordings', path: '/recordings', router: recordingsRouter },
   { area: 'sequences', path: '/sequences', router: sequencesRouter },
   { area: 'reviews', path: '/reviews', router: reviewsRouter },
-  { area: 'simulate', path: '/simulate', router: () => createSimulateRouter() },
+  {
+    area: 'simulate', path: '/simulate',
+    router: (ctx) => createSimulateRouter({
+      pool: adhocSimulationPool({ size: ctx.config.SIMULATE_POOL_SIZE, timeoutMs: ctx.config.SIMULATION_TIMEOUT_MS }),
+      fairness: fairnessFromConfig(ctx.config),
+    }),
+  },
 ];

@@ -4,25 +4,56 @@
  * in the worker pool under a time budget. Errors: `{ error: { code, message, field } }` (plus `issues`
  * listing every contract problem). Roles are enforced where the router is mounted.
  */
-import { type Request, type Response, Router } from 'express';
+import { type NextFunction, type Request, type Response, Router } from 'express';
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+
 import { validateBody } from '../../shared/contracts/body.ts';
 import type { ContractIssue } from '../../shared/contracts/contract-issue.ts';
 import { stepDuration, validateSequence } from '../../shared/contracts/sequence.ts';
 import { formatPath } from '../../shared/contracts/contract-issue.ts';
-import { SIMULATE_LIMITS, simulateRequestSchema } from '../../shared/contracts/simulate-request.ts';
-import { SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
+import { DEFAULT_RATE_HZ, SIMULATE_LIMITS, simulateRequestSchema } from '../../shared/contracts/simulate-request.ts';
+import type { Config } from '../config.ts';
+import { FairAdmission } from '../engine/pool/fair-admission.ts';
+import { adhocSimulationPool, productSimulationPool } from '../engine/pool/shared-pools.ts';
+import { type SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
+
+/** Fair-use limits of ad-hoc simulations (server/config.ts holds the defaults). */
+export interface SimulateFairness {
+  /** Simulations one person may have running or waiting at once. */
+  perUser: number;
+  /** Simulations one person may start per window. */
+  rateLimit: number;
+  rateWindowMs: number;
+  /** Simulations allowed to wait for a worker, everyone together. */
+  queueMax: number;
+  /** Largest result: samples × dofs. */
+  maxSampleValues: number;
+}
+
+/** The limits from configuration. */
+export function fairnessFromConfig(config: Config): SimulateFairness {
+  return {
+    perUser: config.SIMULATE_CONCURRENCY_PER_USER, rateLimit: config.SIMULATE_RATE_LIMIT, rateWindowMs: config.SIMULATE_RATE_WINDOW_MS,
+    queueMax: config.SIMULATE_QUEUE_MAX, maxSampleValues: config.SIMULATE_MAX_SAMPLE_VALUES,
+  };
+}
+
+const DEFAULT_FAIRNESS: SimulateFairness = { perUser: 1, rateLimit: 30, rateWindowMs: 60_000, queueMax: 4, maxSampleValues: 1_000_000 };
 
 /** Router settings. */
 export interface SimulateRouterOptions {
-  /** The pool to run on (default: one shared pool created on first use). */
+  /** The pool to run on (default: the process's ad-hoc pool, separate from trainee motion). */
   pool?: SimulationPool;
+  /** Fair-use limits (defaults as in server/config.ts). */
+  fairness?: Partial<SimulateFairness>;
 }
 
-let sharedPool: SimulationPool | null = null;
-/** The process-wide simulation pool (created on first use; 20 s budget per simulation). */
+/**
+ * The pool for product work: trainee motion and version verification. Ad-hoc simulations run on
+ * their own pool (server/engine/pool/shared-pools.ts), so they never hold these up.
+ */
 export function defaultSimulationPool(): SimulationPool {
-  sharedPool ??= new SimulationPool({ timeoutMs: 20_000 });
-  return sharedPool;
+  return productSimulationPool();
 }
 
 function fail(res: Response, status: number, code: string, message: string, field?: string, issues?: ContractIssue[]) {
@@ -35,10 +66,30 @@ function contractFail(res: Response, which: 'body' | 'sequence', issues: Contrac
     issues.map((i) => ({ path: i.path ? `${which}.${i.path}` : which, message: i.message })));
 }
 
-/** Builds the router (tests pass their own pool). */
+/** Who is asking: the signed-in user, else the client address (bare routers in tests). */
+const requester = (req: Request) => (req.user?.id ? `user:${req.user.id}` : `ip:${ipKeyGenerator(req.ip ?? '')}`);
+
+/** Builds the router (tests pass their own pool and limits). */
 export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
   const router = Router();
-  router.post('/', async (req: Request, res: Response) => {
+  const fair = { ...DEFAULT_FAIRNESS, ...opts.fairness };
+  const pool = () => opts.pool ?? adhocSimulationPool();
+  let admission: FairAdmission | null = null;
+  const admit = () => (admission ??= new FairAdmission(pool(), { perUser: fair.perUser, queueMax: fair.queueMax }));
+
+  const perUserRate = rateLimit({
+    windowMs: fair.rateWindowMs,
+    limit: fair.rateLimit,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    identifier: 'simulate',
+    keyGenerator: requester,
+    handler: (_req: Request, res: Response, _next: NextFunction, o: { windowMs: number }) => {
+      fail(res, 429, 'rate_limited', `You started ${fair.rateLimit} simulations within ${Math.round(o.windowMs / 1000)} s, the most allowed; try again after the time in Retry-After.`);
+    },
+  });
+
+  router.post('/', perUserRate, async (req: Request, res: Response) => {
     // Envelope and options.
     const env = simulateRequestSchema.safeParse(req.body);
     if (!env.success) {
@@ -71,18 +122,42 @@ export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
     if (duration > SIMULATE_LIMITS.maxDurationS) {
       return fail(res, 400, 'limit_exceeded', `sequence lasts ${duration.toFixed(1)} s; the limit is ${SIMULATE_LIMITS.maxDurationS} s`, 'sequence.steps');
     }
+    // Response size: the samples dominate it (one angle per dof per sample). Refuse before running.
+    const rateHz = options.rateHz ?? DEFAULT_RATE_HZ;
+    const dofCount = Math.max(1, countDofs(b.value));
+    const samples = Math.floor(duration * rateHz + 1e-9) + 1;
+    if (samples * dofCount > fair.maxSampleValues) {
+      const fitHz = Math.floor(((fair.maxSampleValues / dofCount) - 1) / Math.max(duration, 1e-9));
+      const advice = fitHz >= SIMULATE_LIMITS.minRateHz ? `ask for at most ${fitHz} Hz (options.rateHz) for this ${duration.toFixed(1)} s sequence, or simulate a shorter one` : 'simulate a shorter sequence';
+      return fail(res, 422, 'too_many_samples',
+        `This simulation would return ${samples.toLocaleString('en')} samples × ${dofCount} dofs = ${(samples * dofCount).toLocaleString('en')} values; the limit is ${fair.maxSampleValues.toLocaleString('en')}. Ask for fewer samples: ${advice}.`,
+        'options.rateHz');
+    }
+    // Fair use: one person cannot fill the ad-hoc pool, and its queue stays short.
+    const who = requester(req);
+    const refused = admit().enter(who);
+    if (refused) {
+      res.set('Retry-After', String(refused.retryAfterS));
+      return fail(res, 429, refused.reason === 'per_user' ? 'simulation_in_progress' : 'simulations_busy', refused.reason === 'per_user'
+        ? `You already have ${fair.perUser} simulation${fair.perUser > 1 ? 's' : ''} running; wait for it to finish (retry after ${refused.retryAfterS} s).`
+        : `The simulation service is busy with other people's requests; retry after ${refused.retryAfterS} s.`);
+    }
     // Simulate off the request thread.
     try {
-      const reply = await (opts.pool ?? defaultSimulationPool()).run(b.value, s.value, options);
+      const reply = await pool().run(b.value, s.value, options);
       if (reply.kind === 'invalid') return contractFail(res, reply.which, reply.issues);
       res.json(reply.result);
     } catch (err) {
       if (err instanceof SimulationTimeoutError) return fail(res, 503, 'simulation_timeout', err.message);
       return fail(res, 500, 'simulation_failed', `simulation failed: ${err instanceof Error ? err.message : String(err)}`);
+    } finally {
+      admit().leave(who);
     }
   });
   return router;
 }
 
-/** The router with the shared pool, to mount at /api/simulate. */
-export const simulateRouter: Router = createSimulateRouter();
+/** Joint dofs of a validated body. */
+function countDofs(body: { segments: readonly { joint?: { dofs?: readonly unknown[] } | null }[] }): number {
+  return body.segments.reduce((n, seg) => n + (seg.joint?.dofs?.length ?? 0), 0);
+}

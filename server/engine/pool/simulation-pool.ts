@@ -53,6 +53,16 @@ export class SimulationPool {
     this.timeoutMs = opts.timeoutMs ?? 20_000;
   }
 
+  /** Jobs waiting for a worker. */
+  get queued(): number {
+    return this.queue.length;
+  }
+
+  /** Jobs running on a worker. */
+  get running(): number {
+    return this.slots.filter((s) => s.job).length;
+  }
+
   /** Runs one simulation; resolves with the result or the contract issues, rejects on timeout or failure. */
   run(body: unknown, sequence: unknown, options: PoolRequest['options'] = {}): Promise<Exclude<PoolReply, { kind: 'failed' }>> {
     if (this.closed) return Promise.reject(new SimulationFailedError('simulation pool is closed'));
