@@ -122,7 +122,12 @@ test('a trainee on a phone opens a cleared maneuver, watches it in 3D, switches 
   const player = page.getByTestId('rehearsal-player');
   const canvas = player.locator('canvas');
   await expect(canvas).toBeVisible({ timeout: 30_000 });
-  await expect(player.getByTestId('cue-step')).toHaveText(/Step 1 of \d+/);
+  // one step list (DECISIONS.md "Steps"): the orbit and the pause, as the composer lists them; the
+  // joining move into the orbit is the first step's short lead-in, not a step of its own
+  await expect(player.getByTestId('cue-step')).toHaveText('Step 1 of 2');
+  await expect(player.getByTestId('cue-lead-in')).toHaveText('Get ready: arms forward');
+  await expect(player.getByRole('button', { name: 'Previous step' })).toBeDisabled();
+  await expect(player.getByRole('button', { name: 'Next step' })).toBeEnabled();
   await page.waitForTimeout(800);
   const first = await canvas.screenshot();
   const drawn = await drawnFraction(page, first);
@@ -131,8 +136,8 @@ test('a trainee on a phone opens a cleared maneuver, watches it in 3D, switches 
 
   // Play: the cue advances to the cyclic step with its cycle count, and the image changes over time.
   await player.getByRole('button', { name: 'Play', exact: true }).click();
-  await expect(player.getByTestId('cue-step')).toHaveText(/Step 2 of/, { timeout: 15_000 });
-  await expect(player.getByTestId('cue-cycle')).toHaveText(/cycle [12] of 3/);
+  await expect(player.getByTestId('cue-cycle')).toHaveText(/cycle [12] of 3/, { timeout: 15_000 });
+  await expect(player.getByTestId('cue-step')).toHaveText('Step 1 of 2');
   // The phone screenshot kept as a test artifact, mid-sweep.
   const phone = await page.screenshot();
   await testInfo.attach('rehearsal-player-phone', { body: phone, contentType: 'image/png' });
@@ -145,6 +150,11 @@ test('a trainee on a phone opens a cleared maneuver, watches it in 3D, switches 
   const changed = await changedFraction(page, first, later);
   testInfo.annotations.push({ type: 'changed pixels', description: `${(changed * 100).toFixed(1)}%` });
   expect(changed).toBeGreaterThan(0.005);
+
+  // Next step goes to the last step, where Next is disabled.
+  await player.getByRole('button', { name: 'Next step' }).click();
+  await expect(player.getByTestId('cue-step')).toHaveText('Step 2 of 2');
+  await expect(player.getByRole('button', { name: 'Next step' })).toBeDisabled();
 
   // Faster playback.
   await player.getByRole('radio', { name: '2×', exact: true }).click();

@@ -15,10 +15,12 @@ export interface CueCardProps {
   beats: number;
   /** The next step's cue, shown small. */
   nextCue?: string;
+  /** True while the step's lead-in (the joining move into its start posture) plays. */
+  inLeadIn?: boolean;
 }
 
 /** The overlay over the 3D view: step number, cue, "cycle 2 of 4" and a beat lamp that flashes each cycle. */
-export function CueCard({ step, stepCount, cycle, beats, nextCue }: CueCardProps) {
+export function CueCard({ step, stepCount, cycle, beats, nextCue, inLeadIn = false }: CueCardProps) {
   const [flash] = useState(() => new Animated.Value(0));
   useEffect(() => {
     if (beats === 0) return;
@@ -45,10 +47,21 @@ export function CueCard({ step, stepCount, cycle, beats, nextCue }: CueCardProps
           />
         </View>
       </View>
-      <Text variant="heading" testID="cue-text" numberOfLines={3}>
-        {step.cue}
-      </Text>
-      {nextCue ? (
+      {inLeadIn && step.leadIn ? (
+        <>
+          <Text variant="heading" tone="accent" testID="cue-lead-in" numberOfLines={2}>
+            {step.leadIn.cue}
+          </Text>
+          <Text variant="caption" testID="cue-text" numberOfLines={3}>
+            Then: {step.cue}
+          </Text>
+        </>
+      ) : (
+        <Text variant="heading" testID="cue-text" numberOfLines={3}>
+          {step.cue}
+        </Text>
+      )}
+      {nextCue && !inLeadIn ? (
         <Text variant="caption" tone="muted" numberOfLines={1}>
           Next: {nextCue}
         </Text>

@@ -106,7 +106,14 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
           />
         </View>
         <View style={styles.overlay} pointerEvents="box-none" onLayout={(e) => setInset(Math.round(e.nativeEvent.layout.height))}>
-          <CueCard step={step} stepCount={motion.steps.length} cycle={snap.cycle} beats={snap.beats} nextCue={motion.steps[snap.step + 1]?.cue} />
+          <CueCard
+            step={step}
+            stepCount={motion.steps.length}
+            cycle={snap.cycle}
+            beats={snap.beats}
+            nextCue={motion.steps[snap.step + 1]?.cue}
+            inLeadIn={!!step?.leadIn && snap.time < step.leadIn.end - 1e-6}
+          />
           <View style={styles.legend} pointerEvents="none">
             <LegendDot color={scenePalette.left} label="Left" />
             <LegendDot color={scenePalette.right} label="Right" />
@@ -120,9 +127,9 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
         <View style={[styles.panelInner, compact && styles.panelCompact]}>
         <StepTimeline steps={motion.steps} duration={motion.duration} time={snap.time} current={snap.step} loopStep={snap.loopStep} onSeek={(t) => clock.seek(t)} />
         <View style={styles.transport}>
-          <ControlButton icon="skip-back" label="Previous step" onPress={() => clock.prevStep()} />
+          <ControlButton icon="skip-back" label="Previous step" disabled={snap.step === 0 && snap.time - (step?.start ?? 0) <= 1} onPress={() => clock.prevStep()} />
           <ControlButton icon={snap.playing ? 'pause' : 'play'} label={snap.playing ? 'Pause' : 'Play'} primary onPress={() => clock.toggle()} />
-          <ControlButton icon="skip-forward" label="Next step" onPress={() => clock.nextStep()} />
+          <ControlButton icon="skip-forward" label="Next step" disabled={snap.step >= motion.steps.length - 1} onPress={() => clock.nextStep()} />
           <ControlButton icon="repeat" label="Loop this step" active={snap.loopStep !== null} onPress={() => clock.toggleLoop()} />
           <ControlButton icon={sound ? 'volume-2' : 'volume-x'} label="Beat tick sound" active={sound} onPress={() => setSound((s) => !s)} />
         </View>

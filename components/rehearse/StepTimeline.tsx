@@ -62,9 +62,10 @@ export function StepTimeline({ steps, duration, time, current, loopStep, onSeek 
               s.index === loopStep && styles.stepLooped,
             ]}
           >
+            {s.leadIn ? <View style={[styles.leadIn, { width: `${(100 * (s.leadIn.end - s.start)) / (s.end - s.start)}%` }]} /> : null}
             {s.cycles && s.period
               ? Array.from({ length: Math.max(0, Math.ceil(s.cycles) - 1) }, (_, c) => (
-                  <View key={c} style={[styles.tick, { left: `${(100 * (c + 1) * s.period!) / (s.end - s.start)}%` }]} />
+                  <View key={c} style={[styles.tick, { left: `${(100 * (s.cycleStart - s.start + (c + 1) * s.period!)) / (s.end - s.start)}%` }]} />
                 ))
               : null}
           </View>
@@ -93,6 +94,8 @@ const styles = StyleSheet.create({
   },
   stepCurrent: { backgroundColor: colors.borderStrong },
   stepLooped: { borderWidth: 1, borderColor: colors.accent },
+  // the lead-in (joining move) of a step: a lighter band at its start
+  leadIn: { position: 'absolute', left: 0, top: 0, bottom: 0, backgroundColor: colors.mutedTint },
   tick: { position: 'absolute', top: 2, bottom: 2, width: 1, backgroundColor: colors.muted, opacity: 0.6 },
   fill: { position: 'absolute', left: 0, top: 12, height: 4, backgroundColor: colors.accent, borderRadius: 2 },
   thumb: { position: 'absolute', top: 4, width: 4, height: 20, marginLeft: -2, backgroundColor: colors.accent, borderRadius: 2 },

@@ -10,7 +10,7 @@ import type { Body } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema, type SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { recordAudit } from '../../server/audit/record-audit.ts';
@@ -149,7 +149,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id });
       const stored: StoredCompiled = {
         sequence: compiled.sequence as StoredCompiled['sequence'],
-        cues: compiled.stepMap.map((s) => (s.role === 'blend' ? 'get ready: ' : '') + cueFor(v.primitives[s.primitive])),
+        cues: compiled.stepMap.map((s) => (s.role === 'blend' ? leadInCue(v.primitives[s.primitive]) : cueFor(v.primitives[s.primitive]))),
         stepMap: compiled.stepMap,
       };
       const author = userIds[v.author ?? PLANNER];

@@ -6,6 +6,8 @@ export interface StepSpan {
   end: number;
   cycles: number | null;
   period: number | null;
+  /** Where the cycles begin, s (after a lead-in); default `start`. */
+  cycleStart?: number;
 }
 
 /** Index of the step holding t: the last step whose start ≤ t (0 before the first; the last at the end). */
@@ -18,8 +20,11 @@ export function stepIndexAt(steps: readonly StepSpan[], t: number): number {
 /** The 1-based cycle in progress at t within a cyclic step; 0 for other steps. Allocation-free (render loop). */
 export function cycleNumberAt(step: StepSpan, t: number): number {
   if (step.cycles === null || step.period === null || step.period <= 0) return 0;
+  const from = step.cycleStart ?? step.start;
+  // during the lead-in no cycle is under way yet
+  if (t < from - 1e-9) return 0;
   const of = Math.ceil(step.cycles - 1e-9);
-  return Math.min(of, Math.max(1, Math.floor((t - step.start) / step.period + 1e-9) + 1));
+  return Math.min(of, Math.max(1, Math.floor((t - from) / step.period + 1e-9) + 1));
 }
 
 /** The 1-based cycle in progress at t within a cyclic step and how many there are; null for other steps. */

@@ -20,6 +20,8 @@ export interface CueCardStep {
   durationS: number;
   /** Plain-language cue, capitalised. */
   cue: string;
+  /** The step's lead-in (a joining move into its start posture) in a few words with its length, or null. */
+  leadIn: string | null;
 }
 
 /** Everything printed on one card; angles in degrees, times in seconds, timestamps ISO-8601. */
@@ -109,7 +111,7 @@ export function cueCardContent(v: VersionDetail, crew: { callSign: string | null
   }
   const bad = v.compiled.steps.findIndex((s) => !isTimedStep(s));
   if (bad >= 0) throw new HttpError(422, 'cue_card_invalid', `Step ${bad + 1} of version ${v.version} cannot be read for a cue card.`);
-  const timeline = stepTimeline(v.compiled as unknown as Sequence, compiledStepCues(v));
+  const timeline = stepTimeline(v.compiled as unknown as Sequence, compiledStepCues(v), { primitives: v.primitives, stepMap: v.stepMap });
   const r = v.report;
   const target = v.sequence.target;
   return {
@@ -139,7 +141,10 @@ export function cueCardContent(v: VersionDetail, crew: { callSign: string | null
       limitDegS: r.peakJointRate.limitDegS,
       withinLimit: r.peakJointRate.withinLimit,
     } : null,
-    steps: timeline.map((s) => ({ number: s.index + 1, startS: s.start, durationS: s.end - s.start, cue: s.cue })),
+    steps: timeline.map((s) => ({
+      number: s.index + 1, startS: s.start, durationS: s.end - s.start, cue: s.cue,
+      leadIn: s.leadIn ? `${s.leadIn.cue} (${Number((s.leadIn.end - s.start).toFixed(1))} s)` : null,
+    })),
     cautions: CUE_CARD_CAUTIONS,
     fileName: cueCardFileName(v.sequence.name, v.version),
   };

@@ -117,8 +117,10 @@ export function renderCueCard(card: CueCardContent, opts: RenderCueCardOptions =
   y = doc.y + 6;
   tableHeader();
   for (const s of card.steps) {
+    doc.font('regular').fontSize(9);
+    const leadH = s.leadIn ? doc.heightOfString(s.leadIn, { width: cueW }) + 2 : 0;
     doc.font('regular').fontSize(10.5);
-    const h = Math.max(doc.heightOfString(s.cue, { width: cueW }), 14) + 10;
+    const h = Math.max(doc.heightOfString(s.cue, { width: cueW }) + leadH, 14) + 10;
     if (y + h > bottom() - 20) {
       doc.addPage();
       y = MARGIN;
@@ -127,7 +129,8 @@ export function renderCueCard(card: CueCardContent, opts: RenderCueCardOptions =
     doc.save().rect(col.box, y, 11, 11).lineWidth(0.9).strokeColor(INK).stroke().restore();
     doc.font('semibold').fontSize(10.5).fillColor(INK).text(String(s.number), col.num, y, { lineBreak: false });
     doc.font('regular').fontSize(9).fillColor(MUTED).text(`${Number(s.startS.toFixed(1))} – ${secs(s.startS + s.durationS)}`, col.time, y + 1, { width: col.cue - col.time - 6, lineBreak: false });
-    doc.font('regular').fontSize(10.5).fillColor(INK).text(s.cue, col.cue, y, { width: cueW });
+    if (s.leadIn) doc.font('regular').fontSize(9).fillColor(MUTED).text(s.leadIn, col.cue, y + 1, { width: cueW });
+    doc.font('regular').fontSize(10.5).fillColor(INK).text(s.cue, col.cue, y + leadH, { width: cueW });
     y += h;
     rule(y - 5);
   }

@@ -13,7 +13,7 @@ import type { VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
-import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
@@ -55,7 +55,7 @@ export function compileFor(primitives: Primitive[], body: Body) {
 
 /** Cue per compiled step: the primitive's cue; blends say what they prepare. */
 function stepCues(primitives: Primitive[], stepMap: StoredCompiled['stepMap']): string[] {
-  return stepMap.map((s) => (s.role === 'blend' ? `get ready: ${cueFor(primitives[s.primitive])}` : cueFor(primitives[s.primitive])));
+  return stepMap.map((s) => (s.role === 'blend' ? leadInCue(primitives[s.primitive]) : cueFor(primitives[s.primitive])));
 }
 
 /** Saves version N+1 of a sequence: compile, verify on the current profile, supersede older ones. */

@@ -9,8 +9,9 @@ import { SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
 import { defaultSimulationPool } from '../routes/simulate.ts';
 import { HttpError } from '../http/http-error.ts';
 import { compiledParts } from './compiled-sequence.ts';
-import { primitiveCues } from './primitive-cues.ts';
+import { primitiveCues, primitiveStepMap } from './primitive-cues.ts';
 import { stepTimeline } from './step-timeline.ts';
+import { storedCompiled } from '../maneuvers/stored-compiled.ts';
 import { targetAttitude } from './target-attitude.ts';
 import type { LoadedVersion } from './version-access.ts';
 
@@ -39,10 +40,15 @@ export async function buildMotion(v: LoadedVersion, rateHz: number): Promise<Mot
   if (reply.kind === 'invalid') throw unprocessable(reply.which === 'body' ? 'profile body' : 'compiled sequence', reply.issues[0].message);
   const result = reply.result;
   const target = targetAttitude(v.target);
+  const storedStepMap = storedCompiled(v.compiled).stepMap;
   return {
     versionId: v.id, sequenceId: v.sequenceId, sequenceName: v.sequenceName, version: v.version, status: v.status,
     crewMemberName: v.crewMemberName, body: body.value, engineVersion: result.engineVersion, duration: result.duration,
-    samples: result.samples, steps: stepTimeline(sequence.value, parts.cues.length ? parts.cues : primitiveCues(v.primitives, body.value, sequence.value)),
+    samples: result.samples, steps: stepTimeline(sequence.value, parts.cues.length ? parts.cues : primitiveCues(v.primitives, body.value, sequence.value), {
+      primitives: v.primitives,
+      // versions saved before the step map was stored get it by recompiling their primitives
+      stepMap: storedStepMap.length ? storedStepMap : (primitiveStepMap(v.primitives, body.value, sequence.value) ?? []),
+    }),
     target: v.target, targetAttitude: target ?? result.final.attitude, targetSource: target ? 'target' : 'final',
     final: result.final,
   };

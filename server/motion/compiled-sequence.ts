@@ -1,3 +1,7 @@
+import type { Sequence } from '../../shared/contracts/sequence.ts';
+import { storedCompiled } from '../maneuvers/stored-compiled.ts';
+import { stepTimeline } from './step-timeline.ts';
+
 /**
  * The compiled sequence of a version as stored: either the engine sequence contract itself
  * (`{ start, steps }`) or that contract wrapped as `{ sequence, cues? }` with one cue per step.
@@ -21,7 +25,25 @@ export function compiledParts(compiled: unknown): CompiledParts {
   return { sequence: compiled, cues: [] };
 }
 
-/** Number of steps in stored compiled JSON (0 when unreadable). */
+/**
+ * Number of steps as the composer lists them (DECISIONS.md "Steps"): the primitives named by the
+ * stored step map, or, without one, the compiled steps less the joining moves that become lead-ins
+ * (the same grouping as the player's step list). 0 when unreadable.
+ */
+export function stepListCount(compiled: unknown): number {
+  const stepMap = storedCompiled(compiled).stepMap;
+  if (stepMap.length) return new Set(stepMap.map((o) => o.primitive)).size;
+  const parts = compiledParts(compiled);
+  const seq = parts.sequence as { steps?: unknown };
+  if (!Array.isArray(seq?.steps) || compiledDuration(compiled) <= 0) return compiledStepCount(compiled);
+  try {
+    return stepTimeline(parts.sequence as Sequence, parts.cues).length;
+  } catch {
+    return compiledStepCount(compiled);
+  }
+}
+
+/** Number of compiled (engine) steps in stored compiled JSON (0 when unreadable). */
 export function compiledStepCount(compiled: unknown): number {
   const seq = compiledParts(compiled).sequence as { steps?: unknown };
   return Array.isArray(seq?.steps) ? seq.steps.length : 0;

@@ -1,11 +1,13 @@
 /**
- * The timeline of a compiled sequence: each step's start and end time, cycle count, and a cue in
- * words. Cues come from the composer's primitives when the maneuvers API supplies them; otherwise
- * they are written here from the engine step itself.
+ * The step list of a compiled sequence as composer, review, player and cue card number it: one entry
+ * per composer step (DECISIONS.md "Steps"), with its start and end time, cycle count, cue, and the
+ * joining move into its start posture as a short lead-in sub-phase, never a step of its own.
  */
 import type { MotionStep } from '../../shared/contracts/motion.ts';
 import { type Sequence, type Step, stepDuration } from '../../shared/contracts/sequence.ts';
 import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
+import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
+import { primitiveListSchema, type Primitive } from '../../shared/primitives/primitive-schemas.ts';
 
 /** A dof in words ("Right shoulder flexion"), or its raw name for custom bodies. */
 function dofLabel(name: string): string {
@@ -36,17 +38,96 @@ export function fallbackCue(step: Step): string {
   return `Sweep ${listDofs(dofs)}: ${round(step.cycles)} cycles of ${round(step.period)} s`;
 }
 
-/** Steps with start/end times (s) and cues; `cues[i]`, when given and non-empty, replaces step i's fallback cue. */
-export function stepTimeline(sequence: Sequence, cues: readonly (string | undefined)[] = []): MotionStep[] {
+/** The composer's side of a version: its primitives and which primitive each compiled step came from. */
+export interface ComposerOrigin {
+  primitives: unknown;
+  stepMap: readonly { primitive: number; role: string }[];
+}
+
+/** Compiled step indices of one composer step: the lead-in prefix and the step's own motion. */
+interface Group {
+  lead: number[];
+  main: number[];
+  primitive: Primitive | null;
+}
+
+/** Groups from the composer's step map, or null when the map does not describe these steps. */
+function composerGroups(sequence: Sequence, origin: ComposerOrigin | undefined): Group[] | null {
+  if (!origin || origin.stepMap.length !== sequence.steps.length || sequence.steps.length === 0) return null;
+  const parsed = primitiveListSchema.safeParse(origin.primitives);
+  if (!parsed.success) return null;
+  const groups: Group[] = [];
+  let last = -1;
+  for (let i = 0; i < origin.stepMap.length; i++) {
+    const { primitive, role } = origin.stepMap[i];
+    const p = parsed.data[primitive];
+    if (!p || primitive < last) return null;
+    if (primitive !== last) groups.push({ lead: [], main: [], primitive: p });
+    const g = groups[groups.length - 1];
+    // a blend before the primitive's own motion is its lead-in; one after it (rare) belongs to the motion
+    if (role === 'blend' && g.main.length === 0) g.lead.push(i);
+    else g.main.push(i);
+    last = primitive;
+  }
+  return groups.every((g) => g.main.length > 0) ? groups : null;
+}
+
+const LEAD_IN_WORDS = /^(get ready|get into position)/i;
+
+/**
+ * Groups without a composer map (planner or hand-made sequences): a move that only joins into the
+ * next sweep (worded as a lead-in, or followed by a harmonic or track step) is that step's lead-in.
+ */
+function plainGroups(sequence: Sequence, cues: readonly (string | undefined)[]): Group[] {
+  const groups: Group[] = [];
+  let pending: number[] = [];
+  sequence.steps.forEach((step, i) => {
+    const next = sequence.steps[i + 1];
+    const joins = step.kind === 'move' && next !== undefined && next.kind !== 'move' && next.kind !== 'hold';
+    if (step.kind === 'move' && (LEAD_IN_WORDS.test(cues[i] ?? '') || (joins && cues[i] === undefined))) {
+      pending.push(i);
+      return;
+    }
+    groups.push({ lead: pending, main: [i], primitive: null });
+    pending = [];
+  });
+  // a trailing lead-in with nothing after it is a step of its own
+  if (pending.length) groups.push({ lead: [], main: pending, primitive: null });
+  return groups;
+}
+
+/**
+ * The step list: one entry per composer step with start/end times (s), cycles, cue and lead-in.
+ * With `origin` (the version's primitives and step map) steps follow the composer exactly; without
+ * it, joining moves still become lead-ins. `cues[i]`, when given, words compiled step i.
+ */
+export function stepTimeline(sequence: Sequence, cues: readonly (string | undefined)[] = [], origin?: ComposerOrigin): MotionStep[] {
+  const starts: number[] = [];
   let t = 0;
-  return sequence.steps.map((step, index) => {
-    const start = t;
+  for (const step of sequence.steps) {
+    starts.push(t);
     t += stepDuration(step);
+  }
+  const endOf = (i: number) => starts[i] + stepDuration(sequence.steps[i]);
+  const groups = composerGroups(sequence, origin) ?? plainGroups(sequence, cues);
+  return groups.map((g, index) => {
+    const first = g.lead[0] ?? g.main[0];
+    const lastMain = g.main[g.main.length - 1];
+    const main = sequence.steps[g.main[0]];
+    const harmonics = g.main.filter((i) => sequence.steps[i].kind === 'harmonic');
+    const cyclic = harmonics.length === 1 ? (sequence.steps[harmonics[0]] as Extract<Step, { kind: 'harmonic' }>) : null;
+    const mainCue = g.primitive ? cueFor(g.primitive) : cues[g.main[0]]?.trim() || fallbackCue(main);
+    const leadCue = g.primitive ? leadInCue(g.primitive) : 'get ready: move into position';
     return {
-      index, kind: step.kind, start, end: t,
-      cycles: step.kind === 'harmonic' ? step.cycles : null,
-      period: step.kind === 'harmonic' ? step.period : null,
-      cue: capitalise(cues[index]?.trim() || fallbackCue(step)),
+      index,
+      kind: main.kind,
+      start: starts[first],
+      end: endOf(lastMain),
+      leadIn: g.lead.length ? { end: endOf(g.lead[g.lead.length - 1]), cue: capitalise(leadCue) } : null,
+      cycleStart: cyclic ? starts[harmonics[0]] : starts[g.main[0]],
+      cycles: cyclic ? cyclic.cycles : null,
+      period: cyclic ? cyclic.period : null,
+      cue: capitalise(mainCue),
     };
   });
 }

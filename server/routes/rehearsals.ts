@@ -10,7 +10,7 @@ import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, forbidden } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
-import { compiledDuration, compiledStepCount } from '../motion/compiled-sequence.ts';
+import { compiledDuration, stepListCount } from '../motion/compiled-sequence.ts';
 import { targetLabel } from '../motion/target-attitude.ts';
 import { loadVersionFor } from '../motion/version-access.ts';
 
@@ -73,7 +73,7 @@ export function rehearsalsRouter(ctx: AppContext): Router {
         return {
           versionId: v.id, sequenceId: s.id, sequenceName: s.name, version: v.version, status: v.status,
           crewMemberName: crewName, target: s.target, targetLabel: targetLabel(s.target),
-          duration: compiledDuration(v.compiled), stepCount: compiledStepCount(v.compiled),
+          duration: compiledDuration(v.compiled), stepCount: stepListCount(v.compiled),
           clearedAt: v.clearedAt?.toISOString() ?? null,
           lastRehearsal: last ? { performedAt: last.performedAt.toISOString(), selfRating: last.selfRating, completedSteps: last.completedSteps, totalSteps: last.totalSteps } : null,
           rehearsalCount: runs.length,
@@ -97,7 +97,7 @@ export function rehearsalsRouter(ctx: AppContext): Router {
     if (me.role !== 'trainee') throw forbidden('Only crew trainees log rehearsals.');
     const input = req.body as z.infer<typeof logRehearsalSchema>;
     const v = await loadVersionFor(db, me, input.sequenceVersionId);
-    const totalSteps = compiledStepCount(v.compiled);
+    const totalSteps = stepListCount(v.compiled);
     if (input.completedSteps > totalSteps) {
       throw badRequest(`completedSteps: this version has ${totalSteps} steps; ${input.completedSteps} cannot be completed.`, 'completedSteps');
     }

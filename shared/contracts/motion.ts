@@ -8,6 +8,7 @@ import { z } from 'zod';
 
 import type { Body } from './body.ts';
 import type { Attitude, SimulationResult } from './result.ts';
+import type { Step } from './sequence.ts';
 import type { VersionStatus } from './version-status.ts';
 
 /** Sample-rate bounds of the motion endpoint, Hz (the view interpolates between samples). */
@@ -22,16 +23,23 @@ export const motionQuerySchema = z.object({
     .default(MOTION_RATE.default),
 });
 
-/** One step of the sequence on the timeline. */
+/**
+ * One step of the sequence on the timeline: a step as the composer lists it (DECISIONS.md "Steps");
+ * composer, review, player, cue card and rehearsal log number the same steps.
+ */
 export interface MotionStep {
-  /** Index in the compiled sequence's steps. */
+  /** Index in the composer's step list (0-based). */
   index: number;
-  /** Engine step kind. */
-  kind: 'move' | 'harmonic' | 'hold' | 'track';
-  /** Start and end, seconds from the sequence start. */
+  /** Engine kind of the step's own motion (after any lead-in). */
+  kind: Step['kind'];
+  /** Start (of the lead-in, when there is one) and end, seconds from the sequence start. */
   start: number;
   end: number;
-  /** Harmonic steps: number of cycles (may be fractional) and seconds per cycle; null otherwise. */
+  /** The joining move into the step's start posture: from `start` to `leadIn.end`, a cue of a few words; null when none is needed. */
+  leadIn: { end: number; cue: string } | null;
+  /** Where the step's own motion (and its cycles) begins, s: `leadIn.end`, or `start`. */
+  cycleStart: number;
+  /** Cyclic steps: number of cycles (may be fractional) and seconds per cycle; null otherwise. */
   cycles: number | null;
   period: number | null;
   /** What to do, in words for the trainee. */

@@ -62,3 +62,27 @@ export function cueFor(p: Primitive): string {
       return `hold still for ${secondsText(p.durationS)}`;
   }
 }
+
+const LEAD_IN_ARM_PLANE = { sagittal: 'forward', frontal: 'out to the side', horizontal: 'forward, shoulder high' } as const;
+
+/**
+ * The few words of a step's lead-in (the joining move into the step's start posture), e.g.
+ * "get ready: arms forward". Never repeats the step's own cue: the lead-in only says where to be.
+ */
+export function leadInCue(p: Primitive): string {
+  const arms = (which: 'left' | 'right' | 'both') => (which === 'both' ? 'arms' : `${which} arm`);
+  const legs = (which: 'left' | 'right' | 'both') => (which === 'both' ? 'legs' : `${which} leg`);
+  switch (p.kind) {
+    case 'arm_orbit':
+      return `get ready: ${arms(p.arms)} ${p.centre === 'custom' ? 'to the start' : ORBIT_CENTRE_WORDS[p.centre]}`;
+    case 'arm_loop':
+      return `get ready: ${arms(p.arms)} ${LEAD_IN_ARM_PLANE[p.plane]}`;
+    case 'leg_pedal':
+      return `get ready: ${legs(p.legs)} to the start`;
+    case 'hip_swirl':
+      return 'get ready: legs together';
+    case 'pose_shift':
+    case 'pause':
+      return 'get ready';
+  }
+}

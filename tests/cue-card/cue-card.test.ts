@@ -15,7 +15,7 @@ import { cueCardContent } from '../../server/cue-card/cue-card-content.ts';
 import { cueCardFileName } from '../../server/cue-card/cue-card-file-name.ts';
 import { loadVersionDetail } from '../../server/maneuvers/version-detail.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
-import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 const TAMSIN = 'tamsin.reed@lumen.example.test';
@@ -67,15 +67,19 @@ describe('cue card content (pure assembly from the version)', () => {
     expect(card.callSign).toBe('HERON');
     expect(card.statusLabel).toBe('Cleared');
     expect(card.clearedByName).toBe(DEMO_PEOPLE.find((p) => p.role === 'reviewer')!.name);
-    // One printed step per compiled step, each carrying the cue of the primitive it came from.
-    expect(card.steps).toHaveLength(v.compiled.steps.length);
-    v.stepMap.forEach((origin, i) => {
+    // One printed step per composer step (DECISIONS.md "Steps"), numbered as the composer numbers them,
+    // each with its primitive's cue; a joining blend is the step's short lead-in, not a step.
+    expect(card.steps).toHaveLength(v.primitives.length);
+    v.primitives.forEach((p, i) => {
+      const first = v.stepMap.find((o) => o.primitive === i)!;
       expect(card.steps[i].number).toBe(i + 1);
-      expect(card.steps[i].cue.toLowerCase()).toContain(cueFor(v.primitives[origin.primitive]).toLowerCase());
+      expect(card.steps[i].cue.toLowerCase()).toBe(cueFor(p).toLowerCase());
+      expect(card.steps[i].startS).toBeCloseTo(first.startS, 9);
+      expect(card.steps[i].leadIn !== null).toBe(first.role === 'blend');
+      if (card.steps[i].leadIn) expect(card.steps[i].leadIn!.toLowerCase()).toContain(leadInCue(p));
     });
-    for (const p of v.primitives) expect(card.steps.some((s) => s.cue.toLowerCase().includes(cueFor(p).toLowerCase()))).toBe(true);
-    // Step times follow the step map and add up to the engine's duration in the stored report.
-    card.steps.forEach((s, i) => expect(s.startS).toBeCloseTo(v.stepMap[i].startS, 9));
+    expect(v.stepMap.length).toBeGreaterThan(v.primitives.length); // the seed's version does have joining blends
+    // Step times add up to the engine's duration in the stored report.
     expect(card.steps.reduce((sum, s) => sum + s.durationS, 0)).toBeCloseTo(v.report!.durationS, 6);
     // Target: the seed's yaw/pitch/roll in whole degrees.
     const target = v.sequence.target;

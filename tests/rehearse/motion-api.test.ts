@@ -8,7 +8,7 @@ import { validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import { defaultPrimitive } from '../../shared/primitives/primitive-schemas.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from './rehearsal-fixture.ts';
@@ -51,11 +51,13 @@ describe('GET /api/motion/:versionId', () => {
     expect(m.samples.rateHz).toBe(20);
     // 1 + 3·1.5 + 0.5 + 1 = 7 s (sum of the step durations in ARM_SWEEP).
     expect(m.duration).toBeCloseTo(7, 12);
+    // the opening move only joins into the sweep: it is the sweep's lead-in, not a numbered step
     expect(m.steps.map((s) => [s.kind, s.start, s.end])).toEqual([
-      ['move', 0, 1], ['harmonic', 1, 5.5], ['hold', 5.5, 6], ['move', 6, 7],
+      ['harmonic', 0, 5.5], ['hold', 5.5, 6], ['move', 6, 7],
     ]);
-    expect(m.steps[1]).toMatchObject({ cycles: 3, period: 1.5 });
-    expect(m.steps[1].cue).toMatch(/3 cycles of 1\.5 s/);
+    expect(m.steps[0]).toMatchObject({ cycles: 3, period: 1.5, cycleStart: 1, leadIn: { end: 1, cue: 'Get ready: move into position' } });
+    expect(m.steps[0].cue).toMatch(/3 cycles of 1\.5 s/);
+    expect(m.steps.map((s) => s.index)).toEqual([0, 1, 2]);
     expect(m.samples.frames.at(-1)!.t).toBeCloseTo(7, 12);
   });
 
@@ -94,9 +96,14 @@ describe('GET /api/motion/:versionId', () => {
     const compiled = compilePrimitives(primitives, dofInfoFromBody(body.value));
     const id = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv.id, status: 'cleared', name: 'Composed', compiled: compiled.sequence, primitives });
     const m = (await get('juno.brack@lumen.example.test', `/api/motion/${id}`)).body as MotionResponse;
-    expect(m.steps).toHaveLength(compiled.steps.length);
-    const sweep = compiled.stepMap.findIndex((o) => o.role === 'sweep');
-    expect(m.steps[sweep].cue.toLowerCase()).toBe(cueFor(primitives[0]).toLowerCase());
+    // one step per composer step (DECISIONS.md "Steps"); the joining blend is the orbit's lead-in
+    expect(m.steps).toHaveLength(primitives.length);
+    expect(m.steps[0].cue.toLowerCase()).toBe(cueFor(primitives[0]).toLowerCase());
+    expect(m.steps[1].cue.toLowerCase()).toBe(cueFor(primitives[1]).toLowerCase());
+    if (compiled.stepMap[0].role === 'blend') {
+      expect(m.steps[0].leadIn?.cue.toLowerCase()).toBe(leadInCue(primitives[0]));
+      expect(m.steps[0].leadIn!.cue.split(' ').length).toBeLessThanOrEqual(6);
+    }
   });
 
   it('lets a reviewer preview any version', async () => {
@@ -126,19 +133,19 @@ describe('rehearsals', () => {
     expect(names).not.toContain('Draft sweep');
     expect(names).not.toContain('Kettle sweep');
     expect(res.body.versions.find((v: { sequenceName: string }) => v.sequenceName === 'Old sweep').status).toBe('recheck');
-    expect(res.body.versions.find((v: { sequenceName: string }) => v.sequenceName === 'Arm cone, both sides')).toMatchObject({ duration: 7, stepCount: 4, lastRehearsal: null, rehearsalCount: 0, targetLabel: 'yaw 0°, pitch -20°, roll 0°' });
+    expect(res.body.versions.find((v: { sequenceName: string }) => v.sequenceName === 'Arm cone, both sides')).toMatchObject({ duration: 7, stepCount: 3, lastRehearsal: null, rehearsalCount: 0, targetLabel: 'yaw 0°, pitch -20°, roll 0°' });
   });
 
   it('logs a rehearsal, shows it in the history and as the last rehearsal, and audits it', async () => {
     const token = await t.tokenForEmail(TAMSIN);
     const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${token}`)
-      .send({ sequenceVersionId: cleared, playbackSpeed: 0.5, completedSteps: 4, selfRating: 4, notes: 'Smooth cones' });
+      .send({ sequenceVersionId: cleared, playbackSpeed: 0.5, completedSteps: 3, selfRating: 4, notes: 'Smooth cones' });
     expect(res.status).toBe(201);
-    expect(res.body.rehearsal).toMatchObject({ completedSteps: 4, totalSteps: 4, playbackSpeed: 0.5, selfRating: 4, notes: 'Smooth cones', traineeName: 'Tamsin Reed' });
+    expect(res.body.rehearsal).toMatchObject({ completedSteps: 3, totalSteps: 3, playbackSpeed: 0.5, selfRating: 4, notes: 'Smooth cones', traineeName: 'Tamsin Reed' });
     const list = await get(TAMSIN, `/api/rehearsals?versionId=${cleared}`);
     expect(list.body.rehearsals).toHaveLength(1);
     const avail = await get(TAMSIN, '/api/rehearsals/available');
-    expect(avail.body.versions.find((v: { versionId: string }) => v.versionId === cleared).lastRehearsal).toMatchObject({ selfRating: 4, completedSteps: 4 });
+    expect(avail.body.versions.find((v: { versionId: string }) => v.versionId === cleared).lastRehearsal).toMatchObject({ selfRating: 4, completedSteps: 3 });
     const audit = await get('ada.quill@lumen.example.test', '/api/audit');
     expect(JSON.stringify(audit.body)).toContain('rehearsal.log');
   });
@@ -154,9 +161,9 @@ describe('rehearsals', () => {
     expect(leg).toMatchObject({ status: 'recheck', rehearsalCount: 1 });
   });
 
-  it('names the field: completedSteps beyond the version’s 4 steps (400)', async () => {
+  it('names the field: completedSteps beyond the version’s 3 steps (400; the opening move is the sweep’s lead-in)', async () => {
     const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${await t.tokenForEmail(TAMSIN)}`)
-      .send({ sequenceVersionId: cleared, playbackSpeed: 1, completedSteps: 5, selfRating: 3 });
+      .send({ sequenceVersionId: cleared, playbackSpeed: 1, completedSteps: 4, selfRating: 3 });
     expect(res.status).toBe(400);
     expect(res.body.error.field).toBe('completedSteps');
   });
