@@ -10,7 +10,7 @@ import type { OrbitControls as OrbitControlsImpl } from 'three-stdlib';
 
 import { AxesTriad } from './AxesTriad';
 import { applyPose, BodyFigure } from './BodyFigure';
-import { BODY_CAMERA_EYE, BODY_CAMERA_LOOK_AT, type CameraMode, presetPosition, type ViewPreset } from './camera-presets';
+import { BODY_FOV_DEG, type CameraMode, fitDistance, OBSERVER_FOV_DEG, presetPosition, type ViewPreset } from './camera-presets';
 import { InertialBackdrop } from './InertialBackdrop';
 import type { PlaybackClock } from './playback/playback-clock';
 import { trackStateAt } from './pose/interpolate';
@@ -41,11 +41,18 @@ const _q = new Quaternion();
 const _v = new Vector3();
 const _eye = new Vector3();
 
-/** Camera orientation relative to the root frame for the body-fixed view (constant). */
-const qCamInBody = (() => {
-  const m = new Matrix4().lookAt(new Vector3(...BODY_CAMERA_EYE), new Vector3(...BODY_CAMERA_LOOK_AT), new Vector3(0, 0, 1));
+/** Camera orientation relative to the root frame for the body-fixed view (from the eyes, per body). */
+function cameraInBody(eyes: SceneModel['eyes']): Quaternion {
+  const m = new Matrix4().lookAt(new Vector3(...eyes.eye), new Vector3(...eyes.lookAt), new Vector3(0, 0, 1));
   return new Quaternion().setFromRotationMatrix(m);
-})();
+}
+
+/** The camera's vertical field of view, degrees: wide from the eyes, narrower for the observer. */
+function setFieldOfView(camera: Camera, fovDeg: number): void {
+  if (!(camera instanceof PerspectiveCamera) || camera.fov === fovDeg) return;
+  camera.fov = fovDeg;
+  camera.updateProjectionMatrix();
+}
 
 /** Puts the observer camera at a preset, aimed at the CoM (the orbit's centre). */
 function placeObserverCamera(camera: Camera, controls: OrbitControlsImpl | null, preset: ViewPreset, distance: number): void {
@@ -77,6 +84,8 @@ interface FrameContext {
   ring: RefObject<Mesh | null>;
   trail: Line;
   cameraMode: CameraMode;
+  /** Body-fixed camera orientation in the root frame. */
+  qCamInBody: Quaternion;
 }
 
 /**
@@ -112,10 +121,11 @@ function advanceFrame(c: FrameContext, state: RootState, delta: number): void {
   // Body-fixed camera: rigidly attached to the root segment.
   if (c.cameraMode === 'body') {
     _q.set(work.pose.quat[1], work.pose.quat[2], work.pose.quat[3], work.pose.quat[0]);
-    _eye.set(BODY_CAMERA_EYE[0], BODY_CAMERA_EYE[1], BODY_CAMERA_EYE[2]).applyQuaternion(_q);
+    const e = scene.eyes.eye;
+    _eye.set(e[0], e[1], e[2]).applyQuaternion(_q);
     _v.set(work.pose.pos[0], work.pose.pos[1], work.pose.pos[2]).add(_eye).applyQuaternion(qInertial);
     state.camera.position.copy(_v);
-    state.camera.quaternion.copy(qInertial).multiply(_q).multiply(qCamInBody);
+    state.camera.quaternion.copy(qInertial).multiply(_q).multiply(c.qCamInBody);
   }
 }
 
@@ -154,13 +164,16 @@ export function RehearsalScene({ scene, clock, cameraMode = 'observer', preset =
     marks.target.dispose(); marks.targetMat.dispose(); marks.ring.dispose(); marks.ringMat.dispose();
   }, [trail, marks]);
 
-  // Observer presets: place the camera and aim the orbit at the CoM.
-  const distance = Math.max(2.6, scene.reach * 3);
+  // Observer presets: place the camera and aim the orbit at the CoM, far enough that the whole body
+  // (its reach over the motion) fits the part of the view the overlays leave free.
+  const distance = fitDistance(scene.reach, size.width, size.height, topInset);
   useLayoutEffect(() => {
+    setFieldOfView(camera, cameraMode === 'body' ? BODY_FOV_DEG : OBSERVER_FOV_DEG);
     if (cameraMode === 'observer') placeObserverCamera(camera, controls.current, preset, distance);
   }, [camera, cameraMode, preset, presetNonce, distance]);
+  const qCamInBody = useMemo(() => cameraInBody(scene.eyes), [scene.eyes]);
 
-  useFrame((state, delta) => advanceFrame({ scene, clock, work, segments, triad, ring, trail, cameraMode }, state, delta));
+  useFrame((state, delta) => advanceFrame({ scene, clock, work, segments, triad, ring, trail, cameraMode, qCamInBody }, state, delta));
 
   return (
     <>

@@ -26,6 +26,31 @@ export function presetPosition(preset: ViewPreset, distance: number): [number, n
   }
 }
 
-/** Body-fixed camera: eye behind and above the shoulders, looking past the head (root frame, m). */
-export const BODY_CAMERA_EYE: [number, number, number] = [-1.5, 0, 0.95];
-export const BODY_CAMERA_LOOK_AT: [number, number, number] = [0.9, 0, 0.05];
+/** Vertical field of view of the observer camera, degrees. */
+export const OBSERVER_FOV_DEG = 45;
+/** Vertical field of view of the body-fixed camera, degrees: wide, as the eyes see arms and legs. */
+export const BODY_FOV_DEG = 100;
+
+/**
+ * Observer distance (m) that keeps a sphere of `radius` m about the CoM wholly in view: the sphere
+ * must fit the narrower of the horizontal field and the part of the vertical field the overlays
+ * leave free (`topInset` px of `height` at the top; the view is centred below it), with a margin.
+ */
+export function fitDistance(radius: number, width: number, height: number, topInset = 0, fovDeg = OBSERVER_FOV_DEG, margin = 1.08): number {
+  const tanV = Math.tan((fovDeg * Math.PI) / 360);
+  if (!(width > 0 && height > 0)) return radius * margin / Math.sin(Math.atan(tanV));
+  const free = Math.max(0.3, (height - Math.max(0, topInset)) / height);
+  const half = Math.min(Math.atan(tanV * free), Math.atan((tanV * width) / height));
+  return (radius * margin) / Math.sin(half);
+}
+
+/**
+ * Body-fixed camera from the eyes (root frame, m): the eye point a hand's length in front of the
+ * face, looking down so both the arms in front and the legs below stay in the wide field of view.
+ * `headTop` is the vertex height above the root origin; `feet` the height of the soles (negative).
+ */
+export function bodyCamera(headTop: number, feet: number): { eye: [number, number, number]; lookAt: [number, number, number] } {
+  // a little in front of the face, so the chest does not hide the legs below
+  const eyeZ = headTop - 0.08;
+  return { eye: [0.34, 0, eyeZ], lookAt: [0.22, 0, feet * 0.55] };
+}

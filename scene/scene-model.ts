@@ -3,6 +3,7 @@
  * body, drawing shapes and sides, the sample track, the target ghost's pose and the head-axis path.
  */
 import type { MotionResponse } from '@/shared/contracts/motion';
+import { bodyCamera } from './camera-presets';
 import { type BodyModel, compileBody } from '@/shared/kinematics/body-model';
 import { createBodyPose, forwardKinematics } from '@/shared/kinematics/forward-kinematics';
 import { trackStateAt } from './pose/interpolate';
@@ -29,6 +30,8 @@ export interface SceneModel {
   targetHeadPoint: Float32Array;
   /** Largest distance of any segment origin from the CoM over the motion, m (for camera framing). */
   reach: number;
+  /** Body-fixed camera from the eyes: eye point and aim point in the root frame, m. */
+  eyes: { eye: [number, number, number]; lookAt: [number, number, number] };
 }
 
 /** Builds the scene model; throws with a clear message if the samples do not fit the body. */
@@ -55,7 +58,12 @@ export function buildSceneModel(motion: MotionResponse): SceneModel {
     trail[3 * k] = pose.rot[r + 2] * TRAIL_RADIUS_M;
     trail[3 * k + 1] = pose.rot[r + 5] * TRAIL_RADIUS_M;
     trail[3 * k + 2] = pose.rot[r + 8] * TRAIL_RADIUS_M;
-    for (let i = 0; i < model.segmentCount; i++) reach = Math.max(reach, Math.hypot(pose.pos[3 * i], pose.pos[3 * i + 1], pose.pos[3 * i + 2]));
+    // the drawn extent: segment origin plus its shape's centre and longest semi-axis
+    for (let i = 0; i < model.segmentCount; i++) {
+      const sh = shapes[i];
+      const extent = Math.hypot(sh.centre[0], sh.centre[1], sh.centre[2]) + Math.max(sh.semiAxes[0], sh.semiAxes[1], sh.semiAxes[2]);
+      reach = Math.max(reach, Math.hypot(pose.pos[3 * i], pose.pos[3 * i + 1], pose.pos[3 * i + 2]) + extent);
+    }
   }
 
   // Ghost: the last sample's joint angles at the target attitude.
@@ -65,5 +73,10 @@ export function buildSceneModel(motion: MotionResponse): SceneModel {
   computeWorldPose(model, [t.w, t.x, t.y, t.z], q, ghost);
   const r = 9 * headSegment;
   const targetHeadPoint = new Float32Array([ghost.rot[r + 2] * TRAIL_RADIUS_M, ghost.rot[r + 5] * TRAIL_RADIUS_M, ghost.rot[r + 8] * TRAIL_RADIUS_M]);
-  return { model, shapes, sides, track, headSegment, ghost, trail, targetHeadPoint, reach };
+  // the eyes' camera: from the head's top and the soles in the reference posture (root frame)
+  let feet = 0;
+  for (let i = 0; i < model.segmentCount; i++) feet = Math.min(feet, ref.comPos[3 * i + 2] - shapes[i].semiAxes[2]);
+  const headTop = ref.comPos[3 * headSegment + 2] + shapes[headSegment].semiAxes[2];
+  const eyes = bodyCamera(headTop, feet);
+  return { model, shapes, sides, track, headSegment, ghost, trail, targetHeadPoint, reach, eyes };
 }

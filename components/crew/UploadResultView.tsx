@@ -9,9 +9,9 @@ import type { ImportedRowResult, UploadRowError } from '@/shared/contracts/uploa
 import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 
 const ERROR_COLUMNS: DataColumn<UploadRowError>[] = [
-  { header: 'Row', cell: (e) => (e.row > 0 ? String(e.row) : 'file'), numeric: true, minWidth: 44, flex: 0 },
-  { header: 'Column', cell: (e) => <Text variant="label">{e.column || '—'}</Text>, minWidth: 96, flex: 1 },
-  { header: 'Problem', cell: (e) => <Text>{e.reason}</Text>, minWidth: 170, flex: 3 },
+  { header: 'Row', cell: (e) => (e.row > 0 ? String(e.row) : 'file'), numeric: true, minWidth: 50, flex: 0 },
+  { header: 'Column', cell: (e) => <Text variant="label">{e.column || '—'}</Text>, minWidth: 86, flex: 1 },
+  { header: 'Problem', cell: (e) => <Text>{e.reason}</Text>, minWidth: 150, flex: 3 },
 ];
 
 const IMPORTED_COLUMNS: DataColumn<ImportedRowResult>[] = [

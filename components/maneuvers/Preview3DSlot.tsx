@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { StyleSheet, useWindowDimensions, View } from 'react-native';
 
 import { LazyPlayer } from '@/components/rehearse/LazyPlayer';
 import { colors, radii, spacing } from '@/components/theme';
@@ -19,10 +19,13 @@ export interface Preview3DSlotProps {
  */
 export function Preview3DSlot({ versionId }: Preview3DSlotProps) {
   const [shown, setShown] = useState(false);
+  // the player's controls take about 290 px: the rest of nearly a screen's height goes to the body
+  const { height: screenHeight } = useWindowDimensions();
+  const height = Math.round(Math.min(820, Math.max(560, screenHeight - 60)));
   if (shown) {
     return (
       <View style={styles.player} testID="preview-3d">
-        <LazyPlayer versionId={versionId} height={540} compact />
+        <LazyPlayer versionId={versionId} height={height} compact />
         <Button label="Hide 3D preview" icon="eye-off" variant="ghost" size="sm" onPress={() => setShown(false)} />
       </View>
     );
