@@ -6,3 +6,4 @@ export * from './users.ts';
 export * from './plans.ts';
 export * from './robustness.ts';
 export * from './recordings.ts';
+export * from './rehearsal-captures.ts';

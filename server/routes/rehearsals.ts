@@ -13,6 +13,7 @@ import { validate } from '../http/validate.ts';
 import { compiledDuration, stepListCount } from '../motion/compiled-sequence.ts';
 import { targetLabel } from '../motion/target-attitude.ts';
 import { loadVersionFor } from '../motion/version-access.ts';
+import { mountRehearsalCaptures } from './rehearsal-captures.ts';
 
 type RehearsalJoin = { r: typeof rehearsals.$inferSelect; seqName: string; version: number; traineeName: string };
 
@@ -44,6 +45,9 @@ export function rehearsalsRouter(ctx: AppContext): Router {
 
   // What the caller may rehearse: cleared versions (a trainee: of their own crew member), plus
   // formerly cleared or rehearsed versions that now need a re-check, with a notice in the list.
+  // Recordings attached to rehearsals (issue 15); before '/:id' style routes.
+  mountRehearsalCaptures(router, ctx);
+
   router.get('/available', async (req, res) => {
     const me = req.user!;
     if (me.role === 'trainee' && !me.crewMemberId) {

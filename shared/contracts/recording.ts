@@ -76,3 +76,75 @@ export interface RecordingView {
   bvhJoints: BvhJointInfo[] | null;
   createdAt: string;
 }
+
+/** One simulated outcome of a rehearsal recording on one profile version. */
+export interface CaptureOutcome {
+  profileVersionId: string;
+  profileVersion: number;
+  /** `plan`: the profile version the plan was verified for; `current`: the trainee's current one. */
+  role: 'plan' | 'current';
+  /** Attitude the recorded motion would have reached in free fall, {w,x,y,z}. */
+  reached: { w: number; x: number; y: number; z: number };
+  reachedYprDeg: { yaw: number; pitch: number; roll: number };
+  /** Angle from the reached attitude to the plan's target, and to the plan's own simulated result, degrees. */
+  errorToTargetDeg: number;
+  errorToPlanDeg: number;
+}
+
+/** Per plan sweep step, the recorded timing and amplitude (see server/recordings/compare-execution.ts). */
+export interface CaptureStepTiming {
+  step: number;
+  cue: string;
+  startS: number;
+  endS: number;
+  periodRatio: number;
+  amplitudeRatio: number;
+  phaseLagS: number;
+  dofs: { dof: string; periodRatio: number; amplitudeRatio: number; phaseLagS: number; fitRmsDeg: number }[];
+}
+
+/** Planned and executed series for the overlay plot (same times). */
+export interface CaptureOverlay {
+  t: number[];
+  /** Joint angles by dof, degrees. */
+  planned: Record<string, number[]>;
+  executed: Record<string, number[]>;
+  /** Rotation angle from the start attitude, degrees. */
+  plannedTurnDeg: number[];
+  executedTurnDeg: number[];
+}
+
+/** A rehearsal's recording and what it would have done. */
+export interface RehearsalCapture {
+  rehearsalId: string;
+  uploadId: string;
+  fileName: string;
+  rateHz: number;
+  duration: number;
+  dofs: string[];
+  assumptions: string[];
+  /** Plan: the target and the plan's own result. */
+  targetYprDeg: { yaw: number; pitch: number; roll: number } | null;
+  planReachedYprDeg: { yaw: number; pitch: number; roll: number };
+  outcomes: CaptureOutcome[];
+  steps: CaptureStepTiming[];
+  overlay: CaptureOverlay;
+  signedOff: { by: string; byName: string; at: string; note: string } | null;
+  createdAt: string;
+}
+
+/** One rehearsal in a trainee's trend of recorded figures. */
+export interface CaptureTrendPoint {
+  rehearsalId: string;
+  performedAt: string;
+  sequenceName: string;
+  version: number;
+  errorToTargetDeg: number;
+  meanPhaseLagS: number | null;
+  meanAmplitudeRatio: number | null;
+  meanPeriodRatio: number | null;
+  signedOff: boolean;
+}
+
+/** Body of POST /api/rehearsals/:id/recording/sign-off. */
+export const captureSignOffSchema = z.object({ note: z.string().trim().max(2000).default('') });
