@@ -6,7 +6,9 @@
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { bodyRate, createMomentumWork, type MomentumWork, restrictToPiece } from './locked-momentum.ts';
 import { evalMoving, evalPiece, type MotionPiece, type MotionPlan } from './joint-motion.ts';
-import { createEstimateWork, ESTIMATE_NODES, type EstimateWork, GAUSS_NODES, localErrorEstimate, magnusTheta, quatLogBetween, quatTimesExp } from './magnus.ts';
+import {
+  createEstimateWork, createRatePolynomial, ESTIMATE_NODES, type EstimateWork, fitRatePolynomial, GAUSS_NODES, localErrorEstimate, polynomialTheta,
+  type RatePolynomial, magnusTheta, quatLogBetween, quatTimesExp } from './magnus.ts';
 import { mergeRigidSegments } from './rigid-merge.ts';
 
 /** Integrator settings. */
@@ -123,12 +125,13 @@ const ERROR_EXPONENT = 1 / 7;
 const FIRST_STEP_S = 0.05;
 
 /**
- * Per-step bound on the local error estimate, rad, for the tolerances: a tenth of the tighter one,
- * so that the errors of a few hundred steps add up to about rtol on the final attitude
+ * Per-step bound on the local error estimate, rad, for the tolerances: a twentieth of the tighter
+ * one, so that the errors of a few hundred steps add up to about rtol on the final attitude, and
+ * samples stay consistent enough for the momentum audit's 1e-9 floor
  * (tests/engine/magnus-integrator.test.ts checks that against odex at a tight tolerance).
  */
 export function stepTolerance(rtol: number, atol: number): number {
-  return 0.1 * Math.min(rtol, atol);
+  return 0.05 * Math.min(rtol, atol);
 }
 
 /** Preallocated buffers of one integration. */
@@ -141,6 +144,17 @@ interface StepWork {
   /** Nodes of accepted steps in the history so far (within the piece). */
   histCount: number;
   est: EstimateWork;
+  /** The rate polynomial for attitudes inside a step. */
+  poly: RatePolynomial;
+  /** The last nine accepted nodes of the piece (times, s; ω, rad/s): the last three steps'. */
+  ringT: Float64Array;
+  ringW: Float64Array;
+  /** A step whose inner sample times wait for the next step's nodes: its start (s), attitude and sample range. */
+  pending: boolean;
+  pendT: number;
+  pendQ: Float64Array;
+  pendFrom: number;
+  pendTo: number;
   /** The two halves of a piece's first step (step doubling), and ω there. */
   wA: Float64Array;
   thetaA: Float64Array;
@@ -199,13 +213,43 @@ function pushNodes(sw: StepWork, t: number, h: number, w: Float64Array, inPlace:
   histT.copyWithin(0, 3);
   histW.copyWithin(0, 9);
   sw.histCount += 3;
+  const { ringT, ringW } = sw;
+  ringT.copyWithin(0, 3);
+  ringW.copyWithin(0, 9);
+  for (let j = 0; j < 3; j++) {
+    ringT[6 + j] = t + GAUSS_NODES[j] * h;
+    for (let c = 0; c < 3; c++) ringW[3 * (6 + j) + c] = w[3 * j + c];
+  }
+}
+
+/**
+ * The attitudes at the pending step's inner sample times: from its start, by the Magnus formula on
+ * the polynomial through the seven nodes around that step (two before it, its three, two after:
+ * interpolation, no new evaluations), or — at the end of a piece, with no step after it — by a
+ * Magnus step from its start with three new evaluations each.
+ */
+function flushPending(sw: StepWork, times: ArrayLike<number>, outputs: Float64Array, source: RateSource, stats: IntegratorStats, centred: boolean): void {
+  if (!sw.pending) return;
+  sw.pending = false;
+  if (centred) fitRatePolynomial(sw.ringT.subarray(1, 8), sw.ringW.subarray(3, 24), sw.poly);
+  for (let i = sw.pendFrom; i < sw.pendTo; i++) {
+    if (times[i] <= sw.pendT) { outputs.set(sw.pendQ, 4 * i); continue; }
+    if (centred) polynomialTheta(sw.poly, sw.pendT, times[i], sw.thetaS);
+    else {
+      magnusStep(source, sw.pendT, times[i] - sw.pendT, sw.ws, sw.thetaS);
+      stats.sampleEvaluations += 3;
+    }
+    quatTimesExp(sw.pendQ, 0, sw.thetaS, 0, outputs, 4 * i);
+  }
 }
 
 /**
  * Integrates the attitude over the plan from identity. `times` lists ascending times (s) at which
  * the attitude is wanted (a time on a step boundary belongs to the earlier step); they fill
- * `outputs` in order. Each is reached by a sixth-order Magnus step from the start of the
- * integration step that contains it (an interpolant as accurate as the step itself).
+ * `outputs` in order. Each is reached from the start of the integration step that contains it by
+ * the same sixth-order Magnus formula, on the polynomial through the rate at that step's nodes and
+ * its neighbours' (flushPending): an interpolant about as accurate as the step, at no extra
+ * evaluations except in a piece's first and last steps.
  * `source` is the body rate to follow (default: the plan's own).
  */
 export function integrateAttitude(
@@ -214,7 +258,8 @@ export function integrateAttitude(
   const outputs = new Float64Array(4 * times.length);
   const stats: IntegratorStats = { rhsEvaluations: 0, sampleEvaluations: 0, steps: 0, rejectedSteps: 0, pieces: plan.pieces.length };
   const sw: StepWork = {
-    w: new Float64Array(9), histT: new Float64Array(ESTIMATE_NODES), histW: new Float64Array(3 * ESTIMATE_NODES), histCount: 0, est: createEstimateWork(), wA: new Float64Array(9), thetaA: new Float64Array(3), thetaB: new Float64Array(3),
+    w: new Float64Array(9), histT: new Float64Array(ESTIMATE_NODES), histW: new Float64Array(3 * ESTIMATE_NODES), histCount: 0, est: createEstimateWork(), poly: createRatePolynomial(),
+    ringT: new Float64Array(9), ringW: new Float64Array(27), pending: false, pendT: 0, pendQ: new Float64Array(4), pendFrom: 0, pendTo: 0, wA: new Float64Array(9), thetaA: new Float64Array(3), thetaB: new Float64Array(3),
     qTmp: new Float64Array(4), theta: new Float64Array(3), ws: new Float64Array(9), thetaS: new Float64Array(3),
   };
   const tol = stepTolerance(opts.rtol, opts.atol);
@@ -233,6 +278,7 @@ export function integrateAttitude(
     const still = piece.moving.length === 0;
     let t = piece.t0, tries = 0;
     sw.histCount = 0;
+    sw.pending = false;
     while (t < piece.t1) {
       const left = piece.t1 - t;
       // The last step lands on the boundary; a remainder under half a step is shared with the one before.
@@ -263,28 +309,40 @@ export function integrateAttitude(
           continue;
         }
         h = hTry * Math.min(MAX_FACTOR, Math.max(MIN_FACTOR, err > 0 ? SAFETY * Math.pow(err, -ERROR_EXPONENT) : MAX_FACTOR));
-        // Keep the accepted nodes for the next estimate (after step doubling: both halves').
-        if (sw.histCount >= ESTIMATE_NODES - 3) pushNodes(sw, t, hTry, sw.w, true);
-        else { pushNodes(sw, t, hTry / 2, sw.wA, false); pushNodes(sw, t + hTry / 2, hTry / 2, sw.w, false); }
       }
       const tEnd = hTry === left ? piece.t1 : t + hTry;
-      // Requested times inside (t, tEnd]: a Magnus step from t to each.
+      // Requested times inside (t, tEnd]. In a piece's first step (no nodes before it), a Magnus
+      // step from t with its own three evaluations; otherwise they wait for the next step's nodes
+      // (flushPending). A time on tEnd takes the step's end.
+      const withHistory = !still && sw.histCount >= ESTIMATE_NODES - 3;
+      const from = next;
       while (next < times.length && times[next] <= tEnd) {
         const s = times[next] - t;
         if (still || s <= 0) outputs.set(q, 4 * next);
         else if (times[next] === tEnd) quatTimesExp(q, 0, sw.theta, 0, outputs, 4 * next);
-        else {
+        else if (!withHistory) {
           magnusStep(source, t, s, sw.ws, sw.thetaS);
           stats.sampleEvaluations += 3;
           quatTimesExp(q, 0, sw.thetaS, 0, outputs, 4 * next);
         }
         next++;
       }
+      // Keep the accepted nodes for the next estimate (after step doubling: both halves').
+      if (withHistory) pushNodes(sw, t, hTry, sw.w, true);
+      else if (!still) { pushNodes(sw, t, hTry / 2, sw.wA, false); pushNodes(sw, t + hTry / 2, hTry / 2, sw.w, false); }
+      // The step before now has nodes on both sides; this one waits if it has inner times.
+      flushPending(sw, times, outputs, source, stats, true);
+      if (withHistory) {
+        let to = next;
+        while (to > from && times[to - 1] >= tEnd) to--;
+        if (to > from) { sw.pending = true; sw.pendT = t; sw.pendQ.set(q); sw.pendFrom = from; sw.pendTo = to; }
+      }
       if (!still) quatTimesExp(q, 0, sw.theta, 0, q, 0);
       stats.steps++;
       if (++tries > maxSteps) throw new Error(`integrator did not converge in step ${piece.step} (more than ${maxSteps} steps)`);
       t = tEnd;
     }
+    flushPending(sw, times, outputs, source, stats, false);
   }
   // Times past the end (rounding) take the final attitude.
   while (next < times.length) { outputs.set(q, 4 * next); next++; }

@@ -204,3 +204,100 @@ export function magnusLobatto(w: ArrayLike<number>, h: number, out: Float64Array
     out, 0,
   );
 }
+
+/** The degree-6 polynomial through ω at seven nodes, for attitudes inside a step without new evaluations. */
+export interface RatePolynomial {
+  /** Centre and half-span of the nodes, s: u = (t − centre)/scale ∈ [−1, 1]. */
+  centre: number;
+  scale: number;
+  /** Coefficients of u⁰ … u⁶, 3 per power (rad/s). */
+  c: Float64Array;
+  /** Scratch: the system, and the coefficients shifted to an interval's midpoint. */
+  m: Float64Array;
+  d: Float64Array;
+}
+
+/** Allocates a rate polynomial. */
+export function createRatePolynomial(): RatePolynomial {
+  return { centre: 0, scale: 1, c: new Float64Array(3 * ESTIMATE_NODES), m: new Float64Array(ESTIMATE_NODES * (ESTIMATE_NODES + 3)), d: new Float64Array(3 * ESTIMATE_NODES) };
+}
+
+/**
+ * Fits the polynomial through seven nodes (`ts`, s; `ws`, rad/s, 3 per node): the same nodes as the
+ * error estimate, so it is accurate inside the step to about that estimate.
+ */
+export function fitRatePolynomial(ts: ArrayLike<number>, ws: ArrayLike<number>, poly: RatePolynomial): void {
+  const N = ESTIMATE_NODES, W = N + 3, { m, c } = poly;
+  let lo = Infinity, hi = -Infinity;
+  for (let k = 0; k < N; k++) { lo = Math.min(lo, ts[k]); hi = Math.max(hi, ts[k]); }
+  poly.centre = (lo + hi) / 2;
+  poly.scale = (hi - lo) / 2;
+  // Rows k: [u_k^0 … u_k^6 | ω_k].
+  for (let k = 0; k < N; k++) {
+    const u = (ts[k] - poly.centre) / poly.scale, row = W * k;
+    let p = 1;
+    for (let j = 0; j < N; j++) { m[row + j] = p; p *= u; }
+    m[row + N] = ws[3 * k]; m[row + N + 1] = ws[3 * k + 1]; m[row + N + 2] = ws[3 * k + 2];
+  }
+  solveAugmented(m, N);
+  for (let j = 0; j < N; j++) { c[3 * j] = m[W * j + N]; c[3 * j + 1] = m[W * j + N + 1]; c[3 * j + 2] = m[W * j + N + 2]; }
+}
+
+/**
+ * The sixth-order Magnus rotation vector (rad) over [a, b] (s) of the fitted polynomial rate, from
+ * its exact moments. Writes out[0..2].
+ */
+export function polynomialTheta(poly: RatePolynomial, a: number, b: number, out: Float64Array): void {
+  const N = ESTIMATE_NODES, { c, d } = poly, S = poly.scale;
+  const um = ((a + b) / 2 - poly.centre) / S, r = (b - a) / (2 * S), sigma = b - a;
+  // Taylor shift: p(u) = Σ d_j (u − um)^j (Horner, repeated synthetic division).
+  d.set(c);
+  for (let i = 0; i < N; i++) {
+    for (let j = N - 2; j >= i; j--) {
+      d[3 * j] += um * d[3 * j + 3]; d[3 * j + 1] += um * d[3 * j + 4]; d[3 * j + 2] += um * d[3 * j + 5];
+    }
+  }
+  // Bₙ = ∫ ((t − t_mid)/σ)ⁿ ω dt = S^(n+1)/σⁿ Σ_j d_j ∫_{−r}^{r} v^(n+j) dv.
+  let b0x = 0, b0y = 0, b0z = 0, b1x = 0, b1y = 0, b1z = 0, b2x = 0, b2y = 0, b2z = 0;
+  for (let j = 0; j < N; j++) {
+    const dx = d[3 * j], dy = d[3 * j + 1], dz = d[3 * j + 2];
+    if (j % 2 === 0) {
+      const i0 = (2 * Math.pow(r, j + 1)) / (j + 1), i2 = (2 * Math.pow(r, j + 3)) / (j + 3);
+      b0x += dx * i0; b0y += dy * i0; b0z += dz * i0;
+      b2x += dx * i2; b2y += dy * i2; b2z += dz * i2;
+    } else {
+      const i1 = (2 * Math.pow(r, j + 2)) / (j + 2);
+      b1x += dx * i1; b1y += dy * i1; b1z += dz * i1;
+    }
+  }
+  const k0 = S, k1 = (S * S) / sigma, k2 = (S * S * S) / (sigma * sigma);
+  b0x *= k0; b0y *= k0; b0z *= k0; b1x *= k1; b1y *= k1; b1z *= k1; b2x *= k2; b2y *= k2; b2z *= k2;
+  magnusFromMoments(
+    2.25 * b0x - 15 * b2x, 2.25 * b0y - 15 * b2y, 2.25 * b0z - 15 * b2z,
+    12 * b1x, 12 * b1y, 12 * b1z,
+    180 * b2x - 15 * b0x, 180 * b2y - 15 * b0y, 180 * b2z - 15 * b0z,
+    out, 0,
+  );
+}
+
+/** Solves an N×N system with 3 right-hand sides in place (rows of [A | b₁ b₂ b₃]; partial pivoting); solutions in the last 3 columns. */
+function solveAugmented(m: Float64Array, N: number): void {
+  const W = N + 3;
+  for (let c = 0; c < N; c++) {
+    let piv = c;
+    for (let j = c + 1; j < N; j++) if (Math.abs(m[W * j + c]) > Math.abs(m[W * piv + c])) piv = j;
+    if (piv !== c) for (let k = 0; k < W; k++) { const tmp = m[W * c + k]; m[W * c + k] = m[W * piv + k]; m[W * piv + k] = tmp; }
+    const dd = m[W * c + c];
+    for (let j = c + 1; j < N; j++) {
+      const f = m[W * j + c] / dd;
+      if (f !== 0) for (let k = c; k < W; k++) m[W * j + k] -= f * m[W * c + k];
+    }
+  }
+  for (let c = N - 1; c >= 0; c--) {
+    for (let r = N; r < W; r++) {
+      let s = m[W * c + r];
+      for (let k = c + 1; k < N; k++) s -= m[W * c + k] * m[W * k + r];
+      m[W * c + r] = s / m[W * c + c];
+    }
+  }
+}

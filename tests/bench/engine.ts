@@ -1,8 +1,10 @@
 /**
- * npm run bench:engine — the zero-momentum engine on the 15-segment standard human model through a
- * ≈10 s maneuver (arm cones, then leg loops), side by side with a fixed-step RK4 of our own (same
- * right-hand side, at the step that matches the adaptive result to 1e-8 rad) and MuJoCo (mujoco-js,
- * servo-driven, at the step it needs for 1e-3 rad). Prints figures, ratios and peak memory.
+ * npm run bench:engine [-- --json] — the zero-momentum engine on the 15-segment standard human
+ * model through a ≈10 s maneuver (arm cones, then leg loops), side by side with a fixed-step RK4 of
+ * our own (same right-hand side, at the step that matches the reference to 1e-8 rad), odex (the
+ * general-purpose solver the engine used before, now its cross-check) and MuJoCo (mujoco-js,
+ * servo-driven, dt = 2.5e-4 s as before). Prints figures, ratios, the load average and peak memory;
+ * with --json, one JSON object as the last line.
  */
 import os from 'node:os';
 import type { Body } from '../../shared/contracts/body.ts';
@@ -10,13 +12,17 @@ import { validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
-import { attitudeRhs } from '../../server/engine/integrate-attitude.ts';
 import { compileMotion, evalPiece } from '../../server/engine/joint-motion.ts';
 import { bodyRate, createMomentumWork } from '../../server/engine/locked-momentum.ts';
 import { mergeRigidSegments } from '../../server/engine/rigid-merge.ts';
-import { simulateModel } from '../../server/engine/simulate.ts';
+import { attitudeRhs, integrateAttitude } from '../../server/engine/integrate-attitude.ts';
+import { sampleTimes, simulateModel } from '../../server/engine/simulate.ts';
+import { auditTrack } from '../../server/engine/track-audit.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
 import { runMujoco } from '../engine/mujoco-run.ts';
+import { odexFinalAttitude } from '../engine/odex-reference.ts';
+
+const JSON_OUT = process.argv.includes('--json');
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 const q4 = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
@@ -51,8 +57,8 @@ const out: string[] = [];
 const line = (s = '') => { out.push(s); console.log(s); };
 line(`Body: ${body.name} — ${model.segmentCount} segments, ${model.dofCount} dofs; maneuver ${plan.duration.toFixed(2)} s, ${plan.pieces.length} steps`);
 
-// 1. Engine (adaptive odex, rtol 1e-10), full result with audit and without, interleaved so both
-// see the same machine load (a shared 2-core machine: the median and the best run are both printed).
+// 1. Engine (Magnus, rtol 1e-10), full result with audit and without, interleaved so both see the
+// same machine load (a shared 2-core machine: the median and the best run are both printed).
 const RUNS = 41;
 for (let i = 0; i < 10; i++) { simulateModel(model, plan, {}); simulateModel(model, plan, { skipAudit: true }); }
 const tFull: number[] = [], tCore: number[] = [];
@@ -61,6 +67,9 @@ for (let i = 0; i < RUNS; i++) {
   let t = performance.now(); res = simulateModel(model, plan, {}); tFull.push(performance.now() - t);
   t = performance.now(); simulateModel(model, plan, { skipAudit: true }); tCore.push(performance.now() - t);
 }
+// Evaluations of ω spent on samples and on the audit (not RHS evaluations: DECISIONS.md).
+const extra = integrateAttitude(model, plan, { rtol: 1e-10, atol: 1e-10 }, sampleTimes(plan.duration, 60));
+const auditEvals = auditTrack(model, plan, sampleTimes(plan.duration, 60), extra.outputs).rateEvaluations;
 const evals = res.solver.rhsEvaluations;
 // Cost of one RHS evaluation, timed alone on every step of the maneuver (calls spread over each
 // step, weighted by its duration: steps with more moving segments cost more), best of 5 passes.
@@ -84,6 +93,7 @@ let usPerRhs = Infinity;
 }
 const engineMs = median(tFull), coreMs = median(tCore);
 const bestFull = Math.min(...tFull), bestCore = Math.min(...tCore);
+// The reference: the engine at rtol 1e-13 (checked against odex at 1e-13 below).
 const reference = q4(simulateModel(model, plan, { rtol: 1e-13, rateHz: 1, skipAudit: true }).final.attitude);
 const engineErr = quatAngleBetween(q4(res.final.attitude), reference);
 
@@ -114,10 +124,24 @@ while (quatAngleBetween(rk.q, reference) > 1e-8 && sps < 1e6) { sps *= 2; rk = r
 const rkTimes = [rk.ms]; for (let i = 0; i < 4; i++) rkTimes.push(rk4(sps).ms);
 const rkMs = median(rkTimes), rkErr = quatAngleBetween(rk.q, reference);
 
-// 3. MuJoCo, halving the step until within 1e-3 rad of the engine.
-let dt = 1e-3, mj = await runMujoco(body, seq, dt), mjMs = 0;
-while (quatAngleBetween(mj.attitude, reference) > 1e-3 && dt > 1e-5) { dt /= 2; mj = await runMujoco(body, seq, dt); }
-{ const t = performance.now(); mj = await runMujoco(body, seq, dt); mjMs = performance.now() - t; }
+// 3. odex (Gragg–Bulirsch–Stoer extrapolation) on the same right-hand side at the same rtol: the
+// engine's integrator before the Magnus method, and its cross-check in the tests.
+const odexTimes: number[] = [];
+let od = odexFinalAttitude(model, plan, 1e-10);
+for (let i = 0; i < 5; i++) { const t = performance.now(); od = odexFinalAttitude(model, plan, 1e-10); odexTimes.push(performance.now() - t); }
+const odexMs = median(odexTimes), odexErr = quatAngleBetween(od.q, reference);
+const odexRef = odexFinalAttitude(model, plan, 1e-13).q;
+
+// 4. MuJoCo at dt = 2.5e-4 s (servo tracking, as in every earlier run of this benchmark, so the
+// ratio is comparable), 5 timed runs, each between two engine runs (interleaved: same load).
+const dt = 2.5e-4;
+let mj = await runMujoco(body, seq, dt);
+const mjTimes: number[] = [], tFull2: number[] = [];
+for (let i = 0; i < 5; i++) {
+  let t = performance.now(); simulateModel(model, plan, {}); tFull2.push(performance.now() - t);
+  t = performance.now(); mj = await runMujoco(body, seq, dt); mjTimes.push(performance.now() - t);
+}
+const mjMs = median(mjTimes), engineBesideMujocoMs = median(tFull2);
 const mjErr = quatAngleBetween(mj.attitude, reference);
 
 // Shape momentum scale, for relative figures.
@@ -127,17 +151,28 @@ let peakH = 0;
 for (const p of plan.pieces) for (let k = 0; k <= 50; k++) { evalPiece(p, p.t0 + ((p.t1 - p.t0) * k) / 50, qq, qd); bodyRate(model, qq, qd, work); peakH = Math.max(peakH, Math.hypot(...work.h)); }
 
 const ru = process.resourceUsage();
+const load = os.loadavg()[0];
 line('');
-line('method                         | time/sim ms | ratio | RHS evals | attitude err vs rtol 1e-13 (rad) | momentum drift');
-line('-------------------------------|-------------|-------|-----------|----------------------------------|---------------');
-line(`engine odex rtol 1e-10 + audit | ${engineMs.toFixed(2).padStart(11)} | 1.00  | ${String(evals).padStart(9)} | ${engineErr.toExponential(2).padStart(32)} | audit max ‖H‖ ${res.momentumResidual.maxAbs.toExponential(2)} kg·m²/s (${res.momentumResidual.relative.toExponential(2)} rel)`);
-line(`engine odex, audit skipped     | ${coreMs.toFixed(2).padStart(11)} | ${(coreMs / engineMs).toFixed(2)}  | ${String(evals).padStart(9)} | ${engineErr.toExponential(2).padStart(32)} | —`);
-line(`fixed-step RK4 h=${(1 / sps).toExponential(1)} s    | ${rkMs.toFixed(2).padStart(11)} | ${(rkMs / engineMs).toFixed(2).padEnd(5)} | ${String(rk.evals).padStart(9)} | ${rkErr.toExponential(2).padStart(32)} | same ω formula: H = 0 at every evaluation`);
-line(`MuJoCo servo dt=${dt.toExponential(2)} s   | ${mjMs.toFixed(2).padStart(11)} | ${(mjMs / engineMs).toFixed(1).padEnd(5)} | ${String(mj.steps).padStart(9)} steps | ${mjErr.toExponential(2).padStart(26)} | max ‖H‖ ${mj.maxMomentum.toExponential(2)} kg·m²/s (${(mj.maxMomentum / peakH).toExponential(2)} rel)`);
+line('method                            | time/sim ms | ratio | RHS evals | attitude err vs rtol 1e-13 (rad) | momentum drift');
+line('----------------------------------|-------------|-------|-----------|----------------------------------|---------------');
+line(`engine Magnus rtol 1e-10 + audit  | ${engineMs.toFixed(2).padStart(11)} | 1.00  | ${String(evals).padStart(9)} | ${engineErr.toExponential(2).padStart(32)} | audit max ‖H‖ ${res.momentumResidual.maxAbs.toExponential(2)} kg·m²/s (${res.momentumResidual.relative.toExponential(2)} rel)`);
+line(`engine Magnus, audit skipped      | ${coreMs.toFixed(2).padStart(11)} | ${(coreMs / engineMs).toFixed(2)}  | ${String(evals).padStart(9)} | ${engineErr.toExponential(2).padStart(32)} | —`);
+line(`odex rtol 1e-10, final only       | ${odexMs.toFixed(2).padStart(11)} | ${(odexMs / engineMs).toFixed(2).padEnd(5)} | ${String(od.evaluations).padStart(9)} | ${odexErr.toExponential(2).padStart(32)} | —`);
+line(`fixed-step RK4 h=${(1 / sps).toExponential(1)} s       | ${rkMs.toFixed(2).padStart(11)} | ${(rkMs / engineMs).toFixed(2).padEnd(5)} | ${String(rk.evals).padStart(9)} | ${rkErr.toExponential(2).padStart(32)} | same ω formula: H = 0 at every evaluation`);
+line(`MuJoCo servo dt=${dt.toExponential(2)} s      | ${mjMs.toFixed(2).padStart(11)} | ${(mjMs / engineBesideMujocoMs).toFixed(1).padEnd(5)} | ${String(mj.steps).padStart(9)} steps | ${mjErr.toExponential(2).padStart(26)} | max ‖H‖ ${mj.maxMomentum.toExponential(2)} kg·m²/s (${(mj.maxMomentum / peakH).toExponential(2)} rel)`);
 line('');
-line(`Engine, best of ${RUNS} runs: ${bestFull.toFixed(2)} ms with audit, ${bestCore.toFixed(2)} ms audit skipped (audit ${(bestFull - bestCore).toFixed(2)} ms for ${res.momentumResidual.points} samples); medians above; load average ${os.loadavg()[0].toFixed(1)} on ${os.availableParallelism()} cores`);
+line(`Engine, best of ${RUNS} runs: ${bestFull.toFixed(2)} ms with audit, ${bestCore.toFixed(2)} ms audit skipped (samples and audit ${(bestFull - bestCore).toFixed(2)} ms for ${res.momentumResidual.points} samples); medians above; load average ${load.toFixed(1)} on ${os.availableParallelism()} cores`);
+line(`MuJoCo ratio against the engine runs interleaved with it (median ${engineBesideMujocoMs.toFixed(2)} ms): ${(mjMs / engineBesideMujocoMs).toFixed(0)}×`);
+line(`ω evaluations: ${evals} by the integrator (${res.solver.steps} steps, ${res.solver.rejectedSteps} rejected), ${extra.stats.sampleEvaluations} for the 60 Hz samples, ${auditEvals} by the audit`);
 const rhsMs = (evals * usPerRhs) / 1000;
-line(`RHS cost alone: ${usPerRhs.toFixed(2)} µs/evaluation → evals × cost = ${rhsMs.toFixed(2)} ms; engine core/that = ${(coreMs / rhsMs).toFixed(2)}× (median), ${(bestCore / rhsMs).toFixed(2)}× (best); with audit ${(engineMs / rhsMs).toFixed(2)}× (median), ${(bestFull / rhsMs).toFixed(2)}× (best)`);
+line(`RHS cost alone: ${usPerRhs.toFixed(2)} µs/evaluation → evals × cost = ${rhsMs.toFixed(2)} ms; engine core/that = ${(coreMs / rhsMs).toFixed(2)}× (median), ${(bestCore / rhsMs).toFixed(2)}× (best)`);
+line(`Reference (engine, rtol 1e-13) vs odex at rtol 1e-13: ${quatAngleBetween(reference, odexRef).toExponential(2)} rad`);
 line(`Peak shape momentum ${peakH.toFixed(3)} kg·m²/s; final rotation ${res.final.rotation.angleDeg.toFixed(3)}°`);
 line(`Peak memory: maxRSS ${(ru.maxRSS / 1024).toFixed(0)} MiB; heap used now ${(process.memoryUsage().heapUsed / 2 ** 20).toFixed(0)} MiB`);
+if (JSON_OUT) {
+  console.log(JSON.stringify({
+    engineMs: +engineMs.toFixed(3), engineNoAuditMs: +coreMs.toFixed(3), rhsEvaluations: evals, errorRad: +engineErr.toExponential(3),
+    mujocoMs: +mjMs.toFixed(1), mujocoErrorRad: +mjErr.toExponential(3), loadAverage: +load.toFixed(2),
+  }));
+}
 process.exit(0);

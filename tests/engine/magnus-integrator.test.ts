@@ -82,8 +82,8 @@ describe('adaptive Magnus integration of a prescribed rate', () => {
     for (const tol of [1e-8, 1e-10, 1e-12]) {
       const src = syntheticSource();
       const tr = integrateAttitude(compileBody(loadBody('rotor')), syntheticPlan([0, 0.5, 1.3, 2]), { rtol: tol, atol: tol }, [0.25, 1, 1.9], src);
-      // About the tolerance at every level (measured 3.3e-9, 9.1e-11, 2.1e-12: the per-step bound
-      // is a tenth of it, and a few hundred steps add up); odex at the same rtol was off by up to 17×.
+      // About the tolerance at every level (the per-step bound is a twentieth of it, and a few
+      // hundred steps add up); odex at the same rtol was off by up to 17× on the standard maneuver.
       expect(quatAngleBetween(tr.final, ref)).toBeLessThan(3 * tol);
       // Every call of the rate function is counted, by stepping or by samples.
       expect(tr.stats.rhsEvaluations + tr.stats.sampleEvaluations).toBe(src.calls);
@@ -166,7 +166,8 @@ describe('Magnus (production) vs odex (independent cross-check) at the default r
     const magnus = integrateAttitude(model, plan, { rtol: 1e-10, atol: 1e-10 }, times);
     const ref = odexAttitudesAt(model, plan, 1e-13, times);
     times.forEach((_, k) => expect(quatAngleBetween(magnus.outputs.subarray(4 * k, 4 * k + 4), ref[k])).toBeLessThan(SAMPLE_AGREEMENT_RAD));
-    expect(magnus.stats.sampleEvaluations).toBe(3 * times.length);
+    // Inside a piece's first step a sample costs three evaluations; elsewhere none (the rate polynomial).
+    expect(magnus.stats.sampleEvaluations).toBeLessThanOrEqual(3);
   });
 
   it('a hold costs no evaluation and keeps the attitude', () => {
