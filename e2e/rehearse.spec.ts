@@ -11,7 +11,8 @@ const TRAINEE = 'tamsin.reed@lumen.example.test';
 const SCREENS = process.env.REHEARSE_SCREENS_DIR;
 
 async function token(request: APIRequestContext, email: string): Promise<string> {
-  const res = await request.post('/api/auth/sign-in', { data: { email, password: DEMO_PASSWORD } });
+  // the context may already hold a session cookie from an earlier sign-in: say where the request comes from
+  const res = await request.post('/api/auth/sign-in', { data: { email, password: DEMO_PASSWORD }, headers: { Origin: `http://127.0.0.1:${process.env.E2E_PORT}` } });
   expect(res.status()).toBe(200);
   return (await res.json()).token as string;
 }
@@ -151,7 +152,10 @@ test('a trainee on a phone opens a cleared maneuver, watches it in 3D, switches 
   testInfo.annotations.push({ type: 'changed pixels', description: `${(changed * 100).toFixed(1)}%` });
   expect(changed).toBeGreaterThan(0.005);
 
-  // Next step goes to the last step, where Next is disabled.
+  // Back to the first step (playback may have moved on), then Next goes to the last step, where Next is disabled.
+  const cueStep = player.getByTestId('cue-step');
+  for (let i = 0; i < 3 && (await cueStep.textContent()) !== 'Step 1 of 2'; i++) await player.getByRole('button', { name: 'Previous step' }).click();
+  await expect(cueStep).toHaveText('Step 1 of 2');
   await player.getByRole('button', { name: 'Next step' }).click();
   await expect(player.getByTestId('cue-step')).toHaveText('Step 2 of 2');
   await expect(player.getByRole('button', { name: 'Next step' })).toBeDisabled();
