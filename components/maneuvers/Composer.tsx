@@ -70,9 +70,12 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   const isLatest = !version || version.id === sequence.versions[0]?.id;
   const stale = save.error instanceof ApiError && save.error.status === 409;
 
+  // A version keeps its own target; a new one is composed for the sequence's current target.
+  const shownTarget = version?.target ?? sequence.target;
+  const retargeted = !!version && targetText(version.target) !== targetText(sequence.target);
   const doSave = () =>
     save.mutate(
-      { primitives: draft.steps, baseVersion, note },
+      { primitives: draft.steps, baseVersion, note, target: sequence.target },
       { onSuccess: (v) => onOpenVersion(v.id, 'report') },
     );
   const applyStep = (index: number, step: Primitive) => {
@@ -90,9 +93,14 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
         {version ? <VersionStatusBadge status={version.status} /> : null}
       </View>
       <Text tone="muted">
-        {sequence.crewMemberName} · target {targetText(sequence.target)} · rate limit {sequence.target.rateLimitDegS} °/s
-        {sequence.target.timeBudgetS != null ? ` · budget ${sequence.target.timeBudgetS} s` : ''}
+        {sequence.crewMemberName} · target {targetText(shownTarget)} · rate limit {shownTarget.rateLimitDegS} °/s
+        {shownTarget.timeBudgetS != null ? ` · budget ${shownTarget.timeBudgetS} s` : ''}
       </Text>
+      {retargeted ? (
+        <Text variant="caption" tone="muted" testID="next-target">
+          A new version will be verified for target {targetText(sequence.target)}.
+        </Text>
+      ) : null}
       {version ? (
         <Text variant="caption" tone="muted">
           Showing version {version.version} of {sequence.versionCount}
@@ -121,7 +129,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           label="Save and verify"
           icon="cpu"
           loading={save.isPending}
-          disabled={draft.steps.length === 0 || (!draft.dirty && !!version && version.status !== 'recheck')}
+          disabled={draft.steps.length === 0 || (!draft.dirty && !!version && version.status !== 'recheck' && !retargeted)}
           onPress={doSave}
           testID="save-verify"
         />

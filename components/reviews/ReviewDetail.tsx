@@ -47,7 +47,7 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
           <VersionStatusBadge status={v.status} />
         </View>
         <Text tone="muted">
-          {v.sequence.crewMemberName} · target {targetText(v.sequence.target)}
+          {v.sequence.crewMemberName} · target {targetText(v.target)}
         </Text>
         <Text variant="caption" tone="muted">
           By {v.authorName ?? 'unknown'} · saved {fmtWhen(v.createdAt)}

@@ -38,6 +38,8 @@ export const sequenceVersions = pgTable(
       .references(() => sequences.id),
     version: integer('version').notNull(),
     primitives: jsonb('primitives').notNull(),
+    // The target this version was composed and verified for (shared/contracts/maneuver.ts); the sequence's own target is the next version's default.
+    target: jsonb('target').notNull(),
     compiled: jsonb('compiled').notNull(),
     profileVersionId: uuid('profile_version_id')
       .notNull()

@@ -157,7 +157,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       const submitted = v.status !== 'drafting';
       const minutesAgo = (m: number) => new Date(Date.now() - m * 60_000);
       const [row] = await db.insert(sequenceVersions).values({
-        sequenceId: seq.id, version: i + 1, primitives: v.primitives, compiled: stored, profileVersionId: profile.id,
+        sequenceId: seq.id, version: i + 1, primitives: v.primitives, target, compiled: stored, profileVersionId: profile.id,
         status: v.status, report, engineVersion: report.engineVersion, inputsHash: report.inputsHash, authorId: author, note: v.note,
         // Saved before it was submitted, submitted before it was decided: the screens show all three times.
         createdAt: minutesAgo(100 - i * 20),

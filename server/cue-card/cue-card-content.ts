@@ -113,7 +113,7 @@ export function cueCardContent(v: VersionDetail, crew: { callSign: string | null
   if (bad >= 0) throw new HttpError(422, 'cue_card_invalid', `Step ${bad + 1} of version ${v.version} cannot be read for a cue card.`);
   const timeline = stepTimeline(v.compiled as unknown as Sequence, compiledStepCues(v), { primitives: v.primitives, stepMap: v.stepMap });
   const r = v.report;
-  const target = v.sequence.target;
+  const target = v.target;
   return {
     productMark: 'holonaut',
     title: 'Cue card',

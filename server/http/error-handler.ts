@@ -3,6 +3,7 @@ import { ZodError } from 'zod';
 
 import { DATABASE_RETRY_AFTER_S, isDatabaseUnavailable } from './database-unavailable.ts';
 import { HttpError } from './http-error.ts';
+import { unfinishedSimulation } from './unfinished-simulation.ts';
 import { zodToHttpError } from './validate.ts';
 
 /** The PostgreSQL error behind an error (drizzle wraps driver errors in DrizzleQueryError with `cause`). */
@@ -22,6 +23,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   else if (err?.type === 'entity.too.large') httpError = new HttpError(413, 'too_large', 'The request body is too large.');
   else if (pgError(err)?.code === 'P0001') httpError = new HttpError(409, 'immutable', String(pgError(err)?.message));
   else if (pgError(err)?.code === '23505') httpError = new HttpError(409, 'duplicate', 'That record already exists.');
+  else if (unfinishedSimulation(err)) httpError = unfinishedSimulation(err)!;
   else if (isDatabaseUnavailable(err)) {
     req.log?.warn({ err: { message: err?.message, code: pgError(err)?.code } }, 'database unavailable');
     res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_S));

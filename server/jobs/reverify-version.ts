@@ -6,7 +6,7 @@
  */
 import { and, desc, eq, ne } from 'drizzle-orm';
 
-import { profileVersions, reverifications, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { profileVersions, reverifications, sequenceVersions } from '../../db/schema/index.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema, type VerificationReport } from '../../shared/contracts/maneuver.ts';
 import { sequenceSchema } from '../../shared/contracts/sequence.ts';
@@ -28,9 +28,8 @@ const DEG = 180 / Math.PI;
 export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: { attempt: number; retryLimit: number }): Promise<void> {
   const { db } = ctx;
   const [v] = await db
-    .select({ v: sequenceVersions, target: sequences.target })
+    .select({ v: sequenceVersions })
     .from(sequenceVersions)
-    .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
     .where(eq(sequenceVersions.id, job.sequenceVersionId));
   if (!v) throw new Error(`sequence version ${job.sequenceVersionId} not found`);
   const [profile] = await db.select().from(profileVersions).where(eq(profileVersions.id, job.toProfileVersionId));
@@ -53,7 +52,8 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
 
   try {
     const sequence = sequenceSchema.parse(storedCompiled(v.v.compiled).sequence);
-    const target = sequenceTargetSchema.parse(v.target);
+    // The version's own target (a re-check verifies what was cleared, not the sequence's next default).
+    const target = sequenceTargetSchema.parse(v.v.target);
     const report = await verifySequence({ body: profile.body as Body, sequence, target, profileVersionId: profile.id });
     const old = v.v.report as VerificationReport | null;
     const shift = old

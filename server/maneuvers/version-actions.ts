@@ -9,7 +9,7 @@ import { and, eq, inArray, isNull, lt, max, ne, or } from 'drizzle-orm';
 import type { Database } from '../../db/client.ts';
 import { auditEvents, crewMembers, reviews, sequences, sequenceVersions, users, type SequenceVersionRow } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
-import type { VerificationReport } from '../../shared/contracts/maneuver.ts';
+import type { SequenceTarget, VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
@@ -59,7 +59,7 @@ function stepCues(primitives: Primitive[], stepMap: StoredCompiled['stepMap']): 
 }
 
 /** Saves version N+1 of a sequence: compile, verify on the current profile, supersede older ones. */
-export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId: string, input: { primitives: Primitive[]; baseVersion: number; note: string }): Promise<string> {
+export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId: string, input: { primitives: Primitive[]; baseVersion: number; note: string; target?: SequenceTarget }): Promise<string> {
   requireAuthor(user);
   const { db } = ctx;
   const [seq] = await db.select().from(sequences).where(eq(sequences.id, sequenceId));
@@ -76,7 +76,8 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
   const profile = await currentProfile(db, seq.crewMemberId);
   const body = profile.body as Body;
   const compiled = compileFor(input.primitives, body);
-  const target = readTarget(seq.target);
+  // The version's own target: the request's, else the sequence's default.
+  const target = input.target ?? readTarget(seq.target);
   const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id });
   const stored: StoredCompiled = { sequence: compiled.sequence as StoredCompiled['sequence'], cues: stepCues(input.primitives, compiled.stepMap), stepMap: compiled.stepMap };
 
@@ -86,9 +87,13 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
     const latest = await latestNow(tx);
     staleCheck(latest);
     const [row] = await tx.insert(sequenceVersions).values({
-      sequenceId, version: latest + 1, primitives: input.primitives, compiled: stored, profileVersionId: profile.id,
+      sequenceId, version: latest + 1, primitives: input.primitives, target, compiled: stored, profileVersionId: profile.id,
       status: 'drafting', report, engineVersion: report.engineVersion, inputsHash: report.inputsHash, authorId: user.id, note: input.note,
     }).returning();
+    // A new target becomes the default for the next version.
+    if (input.target && JSON.stringify(input.target) !== JSON.stringify(readTarget(seq.target))) {
+      await tx.update(sequences).set({ target: input.target }).where(eq(sequences.id, sequenceId));
+    }
     // Older versions the save supersedes (a once-cleared recheck version stays until its successor is cleared).
     const older = await tx.select().from(sequenceVersions).where(and(
       eq(sequenceVersions.sequenceId, sequenceId), lt(sequenceVersions.version, row.version),
@@ -101,7 +106,7 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
     }
     await recordAudit(tx, {
       actorId: user.id, action: 'sequence_version.save', objectType: 'sequence_version', objectId: row.id,
-      detail: { sequenceId, version: row.version, profileVersionId: profile.id, engineVersion: report.engineVersion, inputsHash: report.inputsHash, targetErrorDeg: report.target.errorDeg },
+      detail: { sequenceId, version: row.version, target, profileVersionId: profile.id, engineVersion: report.engineVersion, inputsHash: report.inputsHash, targetErrorDeg: report.target.errorDeg },
     });
     return row.id;
   });

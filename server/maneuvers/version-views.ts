@@ -16,7 +16,7 @@ const clearer = alias(users, 'clearer');
 /** The columns of a version that lists show: no primitives, compiled steps or report (only its summary). */
 const versionListColumns = {
   id: sequenceVersions.id, sequenceId: sequenceVersions.sequenceId, version: sequenceVersions.version, status: sequenceVersions.status,
-  profileVersionId: sequenceVersions.profileVersionId, authorId: sequenceVersions.authorId, note: sequenceVersions.note,
+  profileVersionId: sequenceVersions.profileVersionId, authorId: sequenceVersions.authorId, note: sequenceVersions.note, target: sequenceVersions.target,
   createdAt: sequenceVersions.createdAt, submittedAt: sequenceVersions.submittedAt, clearedBy: sequenceVersions.clearedBy,
   clearedAt: sequenceVersions.clearedAt, staleSince: sequenceVersions.staleSince, engineVersion: sequenceVersions.engineVersion,
   inputsHash: sequenceVersions.inputsHash, reportSummary: sequenceVersions.reportSummary,
@@ -104,7 +104,7 @@ export function toVersionSummary(row: VersionRowJoined): VersionSummary {
     id: v.id, sequenceId: v.sequenceId, version: v.version, status: v.status,
     profileVersionId: v.profileVersionId, profileVersion: row.profileVersion,
     profileIsCurrent: row.currentProfileVersion === row.profileVersion,
-    authorId: v.authorId, authorName: row.authorName, note: v.note,
+    authorId: v.authorId, authorName: row.authorName, note: v.note, target: readTarget(v.target),
     createdAt: v.createdAt.toISOString(), submittedAt: v.submittedAt?.toISOString() ?? null,
     clearedBy: v.clearedBy, clearedByName: row.clearedByName, clearedAt: v.clearedAt?.toISOString() ?? null,
     staleSince: v.staleSince?.toISOString() ?? null, engineVersion: v.engineVersion, inputsHash: v.inputsHash,

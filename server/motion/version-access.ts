@@ -45,7 +45,7 @@ export async function loadVersion(db: Database, versionId: string): Promise<Load
   if (!row) return null;
   return {
     id: row.v.id, sequenceId: row.s.id, sequenceName: row.s.name, version: row.v.version, status: row.v.status,
-    crewMemberId: row.s.crewMemberId, crewMemberName: row.crewName, target: row.s.target, compiled: row.v.compiled, primitives: row.v.primitives,
+    crewMemberId: row.s.crewMemberId, crewMemberName: row.crewName, target: row.v.target, compiled: row.v.compiled, primitives: row.v.primitives,
     profileVersionId: row.v.profileVersionId, body: row.body, clearedAt: row.v.clearedAt,
   };
 }

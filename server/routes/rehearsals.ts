@@ -76,7 +76,7 @@ export function rehearsalsRouter(ctx: AppContext): Router {
         const last = runs[0]?.r;
         return {
           versionId: v.id, sequenceId: s.id, sequenceName: s.name, version: v.version, status: v.status,
-          crewMemberName: crewName, target: s.target, targetLabel: targetLabel(s.target),
+          crewMemberName: crewName, target: v.target, targetLabel: targetLabel(v.target),
           duration: compiledDuration(v.compiled), stepCount: stepListCount(v.compiled),
           clearedAt: v.clearedAt?.toISOString() ?? null,
           lastRehearsal: last ? { performedAt: last.performedAt.toISOString(), selfRating: last.selfRating, completedSteps: last.completedSteps, totalSteps: last.totalSteps } : null,

@@ -31,6 +31,7 @@ import { sequencePlansRouter } from './sequence-plans.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
 import { subscribeToProfileChanges } from '../maneuvers/flag-recheck.ts';
 import { requireAuthor, visibleSequences, visibleVersions } from '../maneuvers/maneuver-access.ts';
+import { updateSequence } from '../maneuvers/update-sequence.ts';
 import { saveVersion, submitVersion } from '../maneuvers/version-actions.ts';
 import { loadVersionDetail } from '../maneuvers/version-detail.ts';
 import { allOf, sequenceHeads, sequenceListRows, versionSummaries } from '../maneuvers/version-views.ts';
@@ -147,13 +148,7 @@ export function sequencesRouter(ctx: AppContext): Router {
     const user = req.user!;
     requireAuthor(user);
     const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
-    const input = req.body as z.infer<typeof updateSequenceRequestSchema>;
-    await db.transaction(async (tx) => {
-      const [row] = await tx.update(sequences).set({ ...(input.name ? { name: input.name } : {}), ...(input.target ? { target: input.target } : {}) })
-        .where(eq(sequences.id, sequenceId)).returning({ id: sequences.id });
-      if (!row) throw notFound('Sequence');
-      await recordAudit(tx, { actorId: user.id, action: 'sequence.update', objectType: 'sequence', objectId: sequenceId, detail: input });
-    });
+    await updateSequence(ctx, user, sequenceId, req.body as z.infer<typeof updateSequenceRequestSchema>);
     const [summary] = await summaries(user, [sequenceId]);
     res.json(summary);
   });
@@ -161,7 +156,7 @@ export function sequencesRouter(ctx: AppContext): Router {
   router.post('/:sequenceId/versions', validate({ params: sequenceParams, body: saveVersionRequestSchema }), async (req, res) => {
     const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
     const input = req.body as z.infer<typeof saveVersionRequestSchema>;
-    const id = await saveVersion(ctx, req.user!, sequenceId, { primitives: input.primitives as Primitive[], baseVersion: input.baseVersion, note: input.note });
+    const id = await saveVersion(ctx, req.user!, sequenceId, { primitives: input.primitives as Primitive[], baseVersion: input.baseVersion, note: input.note, target: input.target });
     await queueRobustnessAfterSave(ctx, id, req.user!.id);
     res.status(201).json(await loadVersionDetail(db, req.user!, id));
   });

@@ -16,6 +16,8 @@ import type { Config } from '../config.ts';
 import { FairAdmission } from '../engine/pool/fair-admission.ts';
 import { adhocSimulationPool, productSimulationPool } from '../engine/pool/shared-pools.ts';
 import { type SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
+import { unfinishedSimulation } from '../http/unfinished-simulation.ts';
+import { validate } from '../http/validate.ts';
 
 /** Fair-use limits of ad-hoc simulations (server/config.ts holds the defaults). */
 export interface SimulateFairness {
@@ -89,7 +91,8 @@ export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
     },
   });
 
-  router.post('/', perUserRate, async (req: Request, res: Response) => {
+  // validate() with no schema: only the shared text check (NUL, unpaired surrogates); the contracts are checked below.
+  router.post('/', validate({}), perUserRate, async (req: Request, res: Response) => {
     // Envelope and options.
     const env = simulateRequestSchema.safeParse(req.body);
     if (!env.success) {
@@ -149,6 +152,8 @@ export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
       res.json(reply.result);
     } catch (err) {
       if (err instanceof SimulationTimeoutError) return fail(res, 503, 'simulation_timeout', err.message);
+      const unfinished = unfinishedSimulation(err);
+      if (unfinished) return fail(res, unfinished.status, unfinished.code, unfinished.message, unfinished.field);
       return fail(res, 500, 'simulation_failed', `simulation failed: ${err instanceof Error ? err.message : String(err)}`);
     } finally {
       admit().leave(who);

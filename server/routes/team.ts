@@ -85,6 +85,9 @@ export function teamRouter(ctx: AppContext): Router {
     }
     const [row] = await db.select().from(users).where(eq(users.id, id));
     if (!row) throw notFound('User');
+    const changes = (change.role !== undefined && change.role !== row.role) || (change.disabled !== undefined && change.disabled !== row.disabled)
+      || (change.crewMemberId !== undefined && change.crewMemberId !== row.crewMemberId);
+    if (!changes) throw badRequest('Nothing to change: the user already has that role, state and crew member.', Object.keys(change)[0]);
     if (change.crewMemberId) {
       const [member] = await db.select({ id: crewMembers.id }).from(crewMembers).where(eq(crewMembers.id, change.crewMemberId));
       if (!member) throw badRequest('crewMemberId: no such crew member.', 'crewMemberId');

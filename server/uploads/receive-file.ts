@@ -47,7 +47,10 @@ export function receiveFile(accept: readonly AcceptedExtension[]) {
         }
         return next(new HttpError(400, 'bad_upload', `Upload refused: ${err.message} (${err.field ?? 'file'}). Send one file in the field "file".`, err.field ?? 'file'));
       }
-      next(err);
+      // Anything else the multipart parser throws is about the request itself: a missing boundary,
+      // a body cut off before its closing boundary, malformed part headers.
+      const why = err instanceof Error ? err.message : String(err);
+      next(new HttpError(400, 'malformed_upload', `The upload is not a complete multipart form (${why}). Send the file again as multipart/form-data with the field "file".`, 'file'));
     });
   };
 }

@@ -95,11 +95,16 @@ export const createSequenceRequestSchema = z.object({
 });
 export type CreateSequenceRequest = z.input<typeof createSequenceRequestSchema>;
 
-/** PATCH /sequences/:sequenceId (the target is not part of a version's approval; changing it is audited). */
-export const updateSequenceRequestSchema = z.object({
-  name: z.string().trim().min(1).max(120).optional(),
-  target: sequenceTargetSchema.optional(),
-});
+/**
+ * PATCH /sequences/:sequenceId: the name, or the target the next version starts from (each version
+ * keeps its own target; 409 `cleared_version` while the latest version is under review or cleared).
+ */
+export const updateSequenceRequestSchema = z
+  .object({
+    name: z.string().trim().min(1).max(120).optional(),
+    target: sequenceTargetSchema.optional(),
+  })
+  .refine((v) => v.name !== undefined || v.target !== undefined, { message: 'Give a name or a target to change.' });
 export type UpdateSequenceRequest = z.input<typeof updateSequenceRequestSchema>;
 
 /** POST /sequences/:sequenceId/versions */
@@ -110,6 +115,11 @@ export const saveVersionRequestSchema = z.object({
   baseVersion: z.number().int().min(0),
   /** Free-text note on what changed. */
   note: z.string().max(2000).default(''),
+  /**
+   * The target this version is composed for; it stays with the version. Omitted: the sequence's
+   * current target. A different one also becomes the sequence's default for the next version.
+   */
+  target: sequenceTargetSchema.optional(),
 });
 export type SaveVersionRequest = z.input<typeof saveVersionRequestSchema>;
 
@@ -252,6 +262,8 @@ export const versionSummarySchema = z.object({
   authorId: z.uuid().nullable(),
   authorName: z.string().nullable(),
   note: z.string(),
+  /** The target this version was composed and verified for (its own; the sequence's target is the next version's default). */
+  target: sequenceTargetSchema,
   createdAt: isoTime,
   submittedAt: isoTime.nullable(),
   clearedBy: z.uuid().nullable(),

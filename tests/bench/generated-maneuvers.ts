@@ -83,7 +83,7 @@ export async function addGeneratedManeuvers(db: Database, count: number): Promis
       const decided = cleared || status === 'sent_back';
       const ago = (m: number) => new Date(Date.now() - (count - i) * 3_600_000 - m * 60_000);
       const [row] = await db.insert(sequenceVersions).values({
-        sequenceId: seq.id, version: j + 1, primitives: FAMILIES[family](cycles), compiled, profileVersionId: profile.id,
+        sequenceId: seq.id, version: j + 1, primitives: FAMILIES[family](cycles), target, compiled, profileVersionId: profile.id,
         status, report, engineVersion: report.engineVersion, inputsHash: report.inputsHash, authorId: planner.id,
         note: `Generated version ${j + 1}.`, createdAt: ago(60 - j * 10), submittedAt: status === 'drafting' ? null : ago(55 - j * 10),
         clearedBy: cleared ? reviewer.id : null, clearedAt: cleared ? ago(50 - j * 10) : null,

@@ -102,7 +102,7 @@ describe('re-verification after a profile change', () => {
     const [pv] = await t.ctx.db.select().from(profileVersions).where(eq(profileVersions.crewMemberId, crew));
     const [seq] = await t.ctx.db.insert(sequences).values({ crewMemberId: crew, name: 'Broken (test)', target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: 0, roll: 0 } } }).returning();
     const [bad] = await t.ctx.db.insert(sequenceVersions).values({
-      sequenceId: seq.id, version: 1, primitives: [], compiled: { sequence: { start: {}, steps: [{ kind: 'twirl' }] }, cues: [], stepMap: [] },
+      sequenceId: seq.id, version: 1, primitives: [], target: seq.target, compiled: { sequence: { start: {}, steps: [{ kind: 'twirl' }] }, cues: [], stepMap: [] },
       profileVersionId: pv.id, status: 'under_review',
     }).returning();
     expect((await changeProfile(70)).status).toBe(201);

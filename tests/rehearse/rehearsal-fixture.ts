@@ -54,14 +54,15 @@ export async function insertVersion(
   db: Database,
   opts: { crewMemberId: string; profileVersionId: string; status: VersionStatus; name?: string; compiled?: unknown; primitives?: unknown; target?: unknown },
 ): Promise<string> {
+  const target = opts.target ?? { yaw: 0, pitch: -20, roll: 0 };
   const [seq] = await db
     .insert(sequences)
-    .values({ crewMemberId: opts.crewMemberId, name: opts.name ?? 'Arm cone, both sides', target: opts.target ?? { yaw: 0, pitch: -20, roll: 0 } })
+    .values({ crewMemberId: opts.crewMemberId, name: opts.name ?? 'Arm cone, both sides', target })
     .returning({ id: sequences.id });
   const [v] = await db
     .insert(sequenceVersions)
     .values({
-      sequenceId: seq.id, version: 1, primitives: opts.primitives ?? [], compiled: opts.compiled ?? ARM_SWEEP,
+      sequenceId: seq.id, version: 1, primitives: opts.primitives ?? [], target, compiled: opts.compiled ?? ARM_SWEEP,
       profileVersionId: opts.profileVersionId, status: opts.status,
       clearedAt: opts.status === 'cleared' ? new Date() : null,
     })
