@@ -231,7 +231,7 @@ function pushNodes(sw: StepWork, t: number, h: number, w: Float64Array, inPlace:
 function flushPending(sw: StepWork, times: ArrayLike<number>, outputs: Float64Array, source: RateSource, stats: IntegratorStats, centred: boolean): void {
   if (!sw.pending) return;
   sw.pending = false;
-  if (centred) fitRatePolynomial(sw.ringT.subarray(1, 8), sw.ringW.subarray(3, 24), sw.poly);
+  if (centred) fitRatePolynomial(sw.ringT, sw.ringW, 1, sw.poly);
   for (let i = sw.pendFrom; i < sw.pendTo; i++) {
     if (times[i] <= sw.pendT) { outputs.set(sw.pendQ, 4 * i); continue; }
     if (centred) polynomialTheta(sw.poly, sw.pendT, times[i], sw.thetaS);

@@ -223,21 +223,20 @@ export function createRatePolynomial(): RatePolynomial {
 }
 
 /**
- * Fits the polynomial through seven nodes (`ts`, s; `ws`, rad/s, 3 per node): the same nodes as the
- * error estimate, so it is accurate inside the step to about that estimate.
+ * Fits the polynomial through seven nodes from index `first` (`ts`, s; `ws`, rad/s, 3 per node).
  */
-export function fitRatePolynomial(ts: ArrayLike<number>, ws: ArrayLike<number>, poly: RatePolynomial): void {
+export function fitRatePolynomial(ts: ArrayLike<number>, ws: ArrayLike<number>, first: number, poly: RatePolynomial): void {
   const N = ESTIMATE_NODES, W = N + 3, { m, c } = poly;
   let lo = Infinity, hi = -Infinity;
-  for (let k = 0; k < N; k++) { lo = Math.min(lo, ts[k]); hi = Math.max(hi, ts[k]); }
+  for (let k = first; k < first + N; k++) { lo = Math.min(lo, ts[k]); hi = Math.max(hi, ts[k]); }
   poly.centre = (lo + hi) / 2;
   poly.scale = (hi - lo) / 2;
   // Rows k: [u_k^0 … u_k^6 | ω_k].
   for (let k = 0; k < N; k++) {
-    const u = (ts[k] - poly.centre) / poly.scale, row = W * k;
+    const u = (ts[first + k] - poly.centre) / poly.scale, row = W * k, o = 3 * (first + k);
     let p = 1;
     for (let j = 0; j < N; j++) { m[row + j] = p; p *= u; }
-    m[row + N] = ws[3 * k]; m[row + N + 1] = ws[3 * k + 1]; m[row + N + 2] = ws[3 * k + 2];
+    m[row + N] = ws[o]; m[row + N + 1] = ws[o + 1]; m[row + N + 2] = ws[o + 2];
   }
   solveAugmented(m, N);
   for (let j = 0; j < N; j++) { c[3 * j] = m[W * j + N]; c[3 * j + 1] = m[W * j + N + 1]; c[3 * j + 2] = m[W * j + N + 2]; }

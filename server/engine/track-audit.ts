@@ -83,7 +83,7 @@ export function auditTrack(model: BodyModel, plan: MotionPlan, times: ArrayLike<
     const ta = times[k], tb = times[k + 1], dt = tb - ta;
     if (owner[k] < 0 || dt < MIN_DEFECT_INTERVAL_S) continue;
     // Re-integrate from the sample's attitude, split at step boundaries (joint rates may jump there).
-    u.set(attitudes.subarray(4 * k, 4 * k + 4));
+    u[0] = attitudes[4 * k]; u[1] = attitudes[4 * k + 1]; u[2] = attitudes[4 * k + 2]; u[3] = attitudes[4 * k + 3];
     for (let p = owner[k]; p <= owner[k + 1]; p++) {
       const piece = plan.pieces[p];
       const u0 = Math.max(ta, piece.t0), u1 = Math.min(tb, piece.t1), span = u1 - u0;
@@ -114,8 +114,9 @@ export function auditTrack(model: BodyModel, plan: MotionPlan, times: ArrayLike<
   for (let k = 0; k < n; k++) {
     const p = owner[k];
     if (p < 0) continue;
-    a.set(attitudes.subarray(4 * k, 4 * k + 4));
-    auditAt(model, plan.pieces[p], times[k], a, omega.subarray(3 * k, 3 * k + 3), work);
+    a[0] = attitudes[4 * k]; a[1] = attitudes[4 * k + 1]; a[2] = attitudes[4 * k + 2]; a[3] = attitudes[4 * k + 3];
+    w[0] = omega[3 * k]; w[1] = omega[3 * k + 1]; w[2] = omega[3 * k + 2];
+    auditAt(model, plan.pieces[p], times[k], a, w, work);
     const { H, lockW: L } = work;
     quatToMatrix(a, R);
     // Without a defect on either side (a lone sample, or intervals under MIN_DEFECT_INTERVAL_S), H as it stands.
