@@ -96,7 +96,8 @@ export function compilePrimitives(primitives: readonly Primitive[], dofInfo: rea
     const label = `step ${i + 1} (${PRIMITIVE_LABELS[p.kind]})`;
     const motion: PrimitiveMotion = primitiveMotion(p);
     // Every dof the primitive names must exist in the body.
-    const named = motion.type === 'sweep' ? [...Object.keys(motion.waves), ...Object.keys(motion.fixed)] : motion.type === 'shift' ? Object.keys(motion.to) : [];
+    const named = motion.type === 'sweep' ? [...Object.keys(motion.waves), ...Object.keys(motion.fixed)]
+      : motion.type === 'shift' ? Object.keys(motion.to) : motion.type === 'recorded' ? motion.dofs : [];
     const unknown = named.filter((n) => !byName.has(n));
     for (const n of unknown) {
       const field = p.kind === 'pose_shift' && p.posture === 'custom' ? `primitives[${i}].custom.${n}` : `primitives[${i}]`;
@@ -121,6 +122,25 @@ export function compilePrimitives(primitives: readonly Primitive[], dofInfo: rea
       else Object.assign(to, motion.to);
       for (const [dof, v] of Object.entries(to)) { checkRange(dof, v, v); current.set(dof, v); }
       push({ kind: 'move', duration: motion.duration, to }, i, 'shift', motion.duration);
+      return;
+    }
+
+    if (motion.type === 'recorded') {
+      // Each repetition: a blend to the first frame when needed, then the track.
+      const { rateHz, dofs, frames, repeat } = motion;
+      dofs.forEach((d, j) => { const vs = frames.map((f) => f[j]); checkRange(d, Math.min(...vs), Math.max(...vs)); });
+      const d = (frames.length - 1) / rateHz;
+      for (let r = 0; r < repeat; r++) {
+        const first: Record<string, number> = {};
+        let maxDelta = 0;
+        dofs.forEach((dof, j) => { first[dof] = frames[0][j]; maxDelta = Math.max(maxDelta, Math.abs(frames[0][j] - (current.get(dof) ?? 0))); });
+        if (maxDelta > JOIN_TOLERANCE_DEG) {
+          const b = blendDurationS(maxDelta);
+          push({ kind: 'move', duration: b, to: first }, i, 'blend', b);
+        }
+        push({ kind: 'track', rateHz, dofs: [...dofs], frames: frames.map((f) => [...f]) }, i, 'sweep', d);
+        dofs.forEach((dof, j) => current.set(dof, frames[frames.length - 1][j]));
+      }
       return;
     }
 

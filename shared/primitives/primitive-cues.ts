@@ -60,6 +60,8 @@ export function cueFor(p: Primitive): string {
     }
     case 'pause':
       return `hold still for ${secondsText(p.durationS)}`;
+    case 'recorded_sweep':
+      return `follow the recorded sweep "${p.recordingName}" (${secondsText(Math.round((p.trimEndS - p.trimStartS) * 10) / 10)}${p.repeat > 1 ? `, ${timesText(p.repeat)}` : ''})`;
   }
 }
 
@@ -84,5 +86,7 @@ export function leadInCue(p: Primitive): string {
     case 'pose_shift':
     case 'pause':
       return 'get ready';
+    case 'recorded_sweep':
+      return 'get ready: the recording\'s starting posture';
   }
 }

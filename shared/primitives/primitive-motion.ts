@@ -3,7 +3,7 @@
  * (one harmonic step, with dofs held at fixed angles during it) or a blend to target angles, or a
  * pause. Angles in degrees on the standard human model's dofs, times in seconds.
  */
-import type { ArmLoop, ArmOrbit, HipSwirl, LegPedal, Primitive } from './primitive-schemas.ts';
+import { type ArmLoop, type ArmOrbit, type HipSwirl, type LegPedal, type Primitive, trimmedFrameRange } from './primitive-schemas.ts';
 import { NAMED_POSTURES } from './named-postures.ts';
 
 /** One dof's sinusoid: θ(t) = offset + amplitude·sin(2πt/period + phase), degrees. */
@@ -20,7 +20,9 @@ export type PrimitiveMotion =
   /** A minimum-jerk blend to `to` over `duration`; `allDofs` means dofs not in `to` go to 0°. */
   | { type: 'shift'; duration: number; to: Record<string, number>; allDofs: boolean }
   /** Nothing moves. */
-  | { type: 'pause'; duration: number };
+  | { type: 'pause'; duration: number }
+  /** Recorded frames (degrees, trimmed) played `repeat` times as track steps. */
+  | { type: 'recorded'; rateHz: number; dofs: string[]; frames: number[][]; repeat: number };
 
 const sidesOf = (which: 'left' | 'right' | 'both'): ('l' | 'r')[] => (which === 'both' ? ['l', 'r'] : [which === 'left' ? 'l' : 'r']);
 
@@ -125,5 +127,9 @@ export function primitiveMotion(p: Primitive): PrimitiveMotion {
         ? { type: 'shift', duration: p.durationS, to: { ...(p.custom ?? {}) }, allDofs: false }
         : { type: 'shift', duration: p.durationS, to: { ...NAMED_POSTURES[p.posture] }, allDofs: true };
     case 'pause': return { type: 'pause', duration: p.durationS };
+    case 'recorded_sweep': {
+      const { first, count } = trimmedFrameRange(p);
+      return { type: 'recorded', rateHz: p.rateHz, dofs: [...p.dofs], frames: p.frames.slice(first, first + count), repeat: p.repeat };
+    }
   }
 }

@@ -144,10 +144,31 @@ export const pauseSchema = z.object({
   durationS: durationSchema,
 });
 
+/**
+ * Recorded sweep: an imported joint-angle recording (its frames copied in, so a saved version never
+ * changes when the recording is re-mapped), trimmed to [trimStartS, trimEndS] and played `repeat`
+ * times; a blend joins each repetition when it does not start where the previous step ended.
+ * Compiles to `track` steps (natural cubic spline through the frames).
+ */
+export const recordedSweepSchema = z.object({
+  kind: z.literal('recorded_sweep'),
+  recordingId: z.string().uuid('recordingId must be a recording id'),
+  recordingName: z.string().max(200),
+  /** Frames per second of `frames`, 1–1000 Hz. */
+  rateHz: finite('rateHz').min(1, 'rateHz must be at least 1 Hz').max(1000, 'rateHz must be at most 1000 Hz'),
+  dofs: z.array(z.string().min(1)).min(1, 'the recording has no dofs'),
+  /** Degrees, one value per dof, frame k at k/rateHz s. */
+  frames: z.array(z.array(finite('frame value').min(-3600).max(3600))).min(4, 'the recording needs at least 4 frames'),
+  /** Seconds from the recording's start. */
+  trimStartS: finite('trimStartS').min(0, 'trimStartS must be ≥ 0'),
+  trimEndS: finite('trimEndS').positive('trimEndS must be positive'),
+  repeat: finite('repeat').int('repeat must be a whole number').min(1, 'repeat must be at least 1').max(20, 'repeat must be at most 20'),
+});
+
 /** One composer primitive. */
 export const primitiveSchema = z
-  .discriminatedUnion('kind', [armOrbitSchema, armLoopSchema, legPedalSchema, hipSwirlSchema, poseShiftSchema, pauseSchema], {
-    error: "primitive kind must be 'arm_orbit', 'arm_loop', 'leg_pedal', 'hip_swirl', 'pose_shift' or 'pause'",
+  .discriminatedUnion('kind', [armOrbitSchema, armLoopSchema, legPedalSchema, hipSwirlSchema, poseShiftSchema, pauseSchema, recordedSweepSchema], {
+    error: "primitive kind must be 'arm_orbit', 'arm_loop', 'leg_pedal', 'hip_swirl', 'pose_shift', 'pause' or 'recorded_sweep'",
   })
   .superRefine((p, ctx) => {
     // Fields that only some choices need.
@@ -157,6 +178,13 @@ export const primitiveSchema = z
     }
     if (p.kind === 'pose_shift' && p.posture === 'custom' && (!p.custom || Object.keys(p.custom).length === 0)) {
       ctx.addIssue({ code: 'custom', path: ['custom'], message: 'a custom posture needs at least one dof angle' });
+    }
+    if (p.kind === 'recorded_sweep') {
+      const bad = p.frames.findIndex((f) => f.length !== p.dofs.length);
+      if (bad >= 0) ctx.addIssue({ code: 'custom', path: ['frames', bad], message: `frame ${bad} has ${p.frames[bad].length} values but the recording has ${p.dofs.length} dofs` });
+      const total = (p.frames.length - 1) / p.rateHz;
+      if (p.trimEndS > total + 1e-9) ctx.addIssue({ code: 'custom', path: ['trimEndS'], message: `trimEndS must be at most the recording's ${Math.round(total * 1000) / 1000} s` });
+      if (trimmedFrameRange(p).count < 4) ctx.addIssue({ code: 'custom', path: ['trimEndS'], message: 'the trimmed recording must keep at least 4 frames' });
     }
   });
 
@@ -176,6 +204,15 @@ export type HipSwirl = z.infer<typeof hipSwirlSchema>;
 export type PoseShift = z.infer<typeof poseShiftSchema>;
 /** A pause. */
 export type Pause = z.infer<typeof pauseSchema>;
+/** A recorded sweep. */
+export type RecordedSweep = z.infer<typeof recordedSweepSchema>;
+
+/** The frames a recorded sweep's trim keeps: indices [first, first + count). */
+export function trimmedFrameRange(p: Pick<RecordedSweep, 'rateHz' | 'frames' | 'trimStartS' | 'trimEndS'>): { first: number; count: number } {
+  const first = Math.max(0, Math.ceil(p.trimStartS * p.rateHz - 1e-9));
+  const last = Math.min(p.frames.length - 1, Math.floor(p.trimEndS * p.rateHz + 1e-9));
+  return { first, count: Math.max(0, last - first + 1) };
+}
 
 /** A composed list of primitives (1–60). */
 export const primitiveListSchema = z.array(primitiveSchema).min(1, 'add at least one step').max(60, 'at most 60 steps');
@@ -188,10 +225,11 @@ export const PRIMITIVE_LABELS: Record<PrimitiveKind, string> = {
   hip_swirl: 'Hip swirl',
   pose_shift: 'Pose shift',
   pause: 'Pause',
+  recorded_sweep: 'Recorded sweep',
 };
 
 /** A sensible new primitive of each kind, for the composer's "add step". */
-export function defaultPrimitive(kind: PrimitiveKind): Primitive {
+export function defaultPrimitive(kind: Exclude<PrimitiveKind, 'recorded_sweep'>): Primitive {
   switch (kind) {
     case 'arm_orbit':
       return { kind, arms: 'both', centre: 'forward', halfAngleDeg: 20, travel: 'outward', cycles: 4, periodS: 1.5 };

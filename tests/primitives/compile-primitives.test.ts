@@ -14,13 +14,13 @@ import { harmonicAngleDeg, stepDuration, validateSequence, type HarmonicStep, ty
 import type { DofName } from '../../shared/model/dof-names.ts';
 import { BLEND_SPEED_DEG_S, compilePrimitives, dofInfoFromBody, MIN_BLEND_S } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
-import { defaultPrimitive, primitiveSchema, type Primitive, type PrimitiveKind } from '../../shared/primitives/primitive-schemas.ts';
+import { defaultPrimitive, primitiveSchema, type Primitive, type PrimitiveKind, type RecordedSweep } from '../../shared/primitives/primitive-schemas.ts';
 
 glMatrix.setMatrixArrayType(Array);
 
 const BODY = deriveBody({ sex: 'male', stature: 1.75, mass: 75 }).body as Body;
 const DOFS = dofInfoFromBody(BODY);
-const KINDS: PrimitiveKind[] = ['arm_orbit', 'arm_loop', 'leg_pedal', 'hip_swirl', 'pose_shift', 'pause'];
+const KINDS: Exclude<PrimitiveKind, 'recorded_sweep'>[] = ['arm_orbit', 'arm_loop', 'leg_pedal', 'hip_swirl', 'pose_shift', 'pause'];
 /** Continuity tolerance of the sequence contract, degrees (DESIGN.md "Sequence contract"). */
 const JOIN_TOL_DEG = 1e-6;
 
@@ -214,5 +214,46 @@ describe('bad input', () => {
     const r = primitiveSchema.safeParse(raw);
     expect(r.success).toBe(false);
     expect(r.error!.issues[0].path.join('.')).toBe(field);
+  });
+});
+
+describe('recorded sweep', () => {
+  // An imported recording: 2 s of a right-arm sweep at 50 Hz (invented).
+  const frames = Array.from({ length: 101 }, (_, k) => [90 + 30 * Math.sin((2 * Math.PI * k) / 50), 20 + 15 * (1 - Math.cos((2 * Math.PI * k) / 50))]);
+  const sweep = (over: Partial<RecordedSweep> = {}): RecordedSweep => ({
+    kind: 'recorded_sweep', recordingId: '00000000-0000-4000-8000-000000000001', recordingName: 'Expert sweep', rateHz: 50,
+    dofs: ['r_sh_flex', 'r_sh_abd'], frames, trimStartS: 0.5, trimEndS: 1.3, repeat: 2, ...over,
+  });
+
+  it('trims to [0.5 s, 1.3 s] (41 frames), repeats twice with a blend before each repetition, and the engine accepts it', () => {
+    expect(primitiveSchema.safeParse(sweep()).success).toBe(true);
+    const c = compilePrimitives([sweep()], DOFS);
+    expect(c.errors).toEqual([]);
+    expect(c.steps.map((s) => s.kind)).toEqual(['move', 'track', 'move', 'track']);
+    const track = c.steps[1] as Extract<Step, { kind: 'track' }>;
+    expect(track.frames).toHaveLength(41);
+    expect(track.frames[0]).toEqual(frames[25]);
+    expect(c.stepMap.map((s) => s.role)).toEqual(['blend', 'sweep', 'blend', 'sweep']);
+    expect(validateSequence(c.sequence, BODY).ok).toBe(true);
+    expect(c.durationS).toBeCloseTo(c.steps.reduce((t, s) => t + stepDuration(s), 0), 9);
+  });
+
+  it('a whole-cycle trim (last frame = first) repeats without a blend between repetitions', () => {
+    const c = compilePrimitives([sweep({ trimStartS: 0, trimEndS: 1, repeat: 3 })], DOFS);
+    expect(c.steps.map((s) => s.kind)).toEqual(['move', 'track', 'track', 'track']);
+    expect(validateSequence(c.sequence, BODY).ok).toBe(true);
+  });
+
+  it('rejects a trim keeping fewer than 4 frames and a trim past the recording\'s end, naming trimEndS', () => {
+    const short = primitiveSchema.safeParse(sweep({ trimStartS: 1, trimEndS: 1.05 }));
+    expect(short.success).toBe(false);
+    expect(short.error!.issues.find((i) => i.path.join('.') === 'trimEndS')?.message).toMatch(/at least 4 frames/);
+    const long = primitiveSchema.safeParse(sweep({ trimEndS: 3 }));
+    expect(long.error!.issues.find((i) => i.path.join('.') === 'trimEndS')?.message).toMatch(/at most the recording's 2 s/);
+  });
+
+  it('warns when the recorded frames go beyond a dof range', () => {
+    const c = compilePrimitives([sweep({ frames: frames.map(([a, b]) => [a + 80, b]) })], DOFS);
+    expect(c.warnings.some((w) => /r_sh_flex reaches .* above its maximum/.test(w.message))).toBe(true);
   });
 });

@@ -12,7 +12,9 @@ import { primitiveToForm, type StepFormValues } from './primitive-fields';
 import { StepForm } from './StepForm';
 import { stepFormResolver, tryParseStep } from './step-form-resolver';
 
-const KIND_CHOICES = (Object.keys(PRIMITIVE_LABELS) as PrimitiveKind[]).map((k) => ({ value: k, label: PRIMITIVE_LABELS[k] }));
+/** Kinds made from scratch here (a recorded sweep comes from an imported recording). */
+type FormKind = Exclude<PrimitiveKind, 'recorded_sweep'>;
+const KIND_CHOICES = (Object.keys(PRIMITIVE_LABELS) as PrimitiveKind[]).filter((k): k is FormKind => k !== 'recorded_sweep').map((k) => ({ value: k, label: PRIMITIVE_LABELS[k] }));
 
 /** Props of {@link StepEditor}. */
 export interface StepEditorProps {
@@ -48,11 +50,11 @@ export function StepEditor({ initial, position, onApply, onCancel, inlineButtons
   });
   return (
     <View style={styles.wrap} testID="step-editor">
-      <Select<PrimitiveKind>
+      <Select<FormKind>
         label={`Step ${position} kind`}
-        options={KIND_CHOICES}
-        value={values.kind}
-        onChange={(k) => k && reset(primitiveToForm(defaultPrimitive(k)))}
+        options={values.kind === 'recorded_sweep' ? [{ value: 'recorded_sweep' as FormKind, label: PRIMITIVE_LABELS.recorded_sweep }] : KIND_CHOICES}
+        value={values.kind as FormKind}
+        onChange={(k) => k && k !== ('recorded_sweep' as string) && reset(primitiveToForm(defaultPrimitive(k)))}
       />
       <StepForm control={control} values={values} errors={formState.errors} />
       <View style={styles.cue} role="status" aria-live="polite" aria-label="Cue preview">

@@ -21,6 +21,7 @@ export interface StepListProps {
 
 /** Seconds a primitive lasts on its own (blends the compiler inserts come on top). */
 export function primitiveSeconds(p: Primitive): number {
+  if (p.kind === 'recorded_sweep') return (p.trimEndS - p.trimStartS) * p.repeat;
   return 'cycles' in p ? p.cycles * p.periodS : p.durationS;
 }
 

@@ -121,6 +121,11 @@ export const PRIMITIVE_FIELDS: Record<PrimitiveKind, readonly FieldSpec[]> = {
     duration,
   ],
   pause: [duration],
+  recorded_sweep: [
+    { name: 'trimStartS', label: 'Trim start', type: 'number', unit: 's' },
+    { name: 'trimEndS', label: 'Trim end', type: 'number', unit: 's' },
+    { name: 'repeat', label: 'Repeat', type: 'number', unit: '×' },
+  ],
 };
 
 /** One row of a custom pose shift in the form: dof name and angle text. */
@@ -161,6 +166,11 @@ export function formToPrimitiveInput(values: StepFormValues): Record<string, unk
   }
   // Legs moving on one side have no pattern choice; the schema still wants one.
   if (values.kind === 'leg_pedal' && out.pattern === undefined) out.pattern = values.pattern ?? 'alternating';
+  // A recorded sweep keeps its recording (only trim and repeat are edited here).
+  if (values.kind === 'recorded_sweep') {
+    for (const k of ['recordingId', 'recordingName', 'dofs', 'frames']) out[k] = values[k];
+    out.rateHz = parseNumber(values.rateHz);
+  }
   if (values.kind === 'pose_shift' && values.posture === 'custom') {
     const custom: Record<string, number | undefined> = {};
     for (const r of values.customRows ?? []) if (r.dof) custom[r.dof] = parseNumber(r.angle);
