@@ -92,6 +92,20 @@ const SPECS: readonly FamilySpec[] = [
       };
     },
   },
+  ...(['left', 'right'] as const).map((side): FamilySpec => ({
+    // One leg pedalling: timing errors between its hip and knee change the loop's size, not its
+    // sense, so the turn stays about the same axis (both legs pedalling drift when they fall out of step).
+    group: `${side}_leg_pedal`, axis: 'pitch', variants: [`${side}_leg_pedal_forward`, `${side}_leg_pedal_backward`], minSize: 5, maxSize: 35, minPeriodS: 1.6,
+    make: (h, v, r) => {
+      const knee = Math.min(1.2 * h, 50);
+      const hip = side === 'left' ? 'l_hip_flex' : 'r_hip_flex', kn = side === 'left' ? 'l_knee_flex' : 'r_knee_flex';
+      return {
+        kind: 'leg_pedal', legs: side, pattern: 'together', direction: v ? 'backward' : 'forward', hipSwingDeg: h, kneeSwingDeg: knee,
+        hipCentreDeg: clamp(35, Math.max(-15, (r[hip]?.min ?? -15) + M + h), (r[hip]?.max ?? 120) - M - h),
+        kneeCentreDeg: Math.max(0, (r[kn]?.min ?? 0) + M + knee),
+      };
+    },
+  })),
   {
     group: 'forward_arm_twin_circles', axis: 'roll', variants: ['forward_arm_twin_circles_out', 'forward_arm_twin_circles_in'], minSize: 4, maxSize: 40, minPeriodS: 1.2,
     make: (h, v, r) => ({

@@ -9,6 +9,7 @@
 import type { Body } from '../../shared/contracts/body.ts';
 import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { PlanCandidate, PlanSettings } from '../../shared/contracts/plan.ts';
+import type { Quat } from '../../shared/math/quaternion.ts';
 import { robustnessLevel, ROBUSTNESS_LEVELS, type RobustnessModel } from '../../shared/contracts/robustness.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import { targetQuat } from '../maneuvers/target-attitude.ts';
@@ -17,12 +18,14 @@ import { compileForBody, evaluateSequence } from './evaluate-steps.ts';
 import { pathDegFromSamples } from '../../shared/math/path-travelled.ts';
 import { perCycleRotation } from './per-cycle-rotation.ts';
 import { FAMILY_GROUPS, fitFamilies } from './plan-families.ts';
-import { familyTables, refineParts, searchSeeds, type SearchLimits, type SearchSeed } from './plan-search.ts';
+import { familyTables, refineParts, searchSeeds, type RefinedParts, type SearchLimits, type SearchSeed } from './plan-search.ts';
 import { robustnessSamples, summariseRobustness } from './robustness.ts';
 import { quatAngle } from './rotation-vector.ts';
 
-/** Seeds refined beyond the number of candidates asked for (some may miss a limit). */
-const EXTRA_SEEDS = 2;
+/** Seeds refined beyond the number of candidates asked for (some may miss a limit or turn out less robust). */
+const EXTRA_SEEDS = 4;
+/** Samples of the quick robustness screen that picks which refined seeds to verify. */
+const SCREEN_SAMPLES = 12;
 /** Sample rate of the verification run, Hz (for pathDeg; ∫|ω| dt converges well before it). */
 const VERIFY_RATE_HZ = 30;
 const DEG = 180 / Math.PI;
@@ -66,18 +69,32 @@ export function rankCandidates(list: readonly Omit<PlanCandidate, 'rank'>[]): Pl
   return sorted.map((c, i) => ({ ...c, rank: i + 1 }));
 }
 
-/** Picks seeds to refine: shortest first, at most one per structure of families. */
-function pickSeeds(seeds: readonly SearchSeed[], count: number, limits: SearchLimits): SearchSeed[] {
-  const seen = new Set<string>();
+/** Main family of a seed: the one whose phase turns most (cycles × size², a loop's effect grows with its area). */
+const mainGroup = (s: SearchSeed) => [...s.parts].sort((a, b) => b.cycles * b.size ** 2 - a.cycles * a.size ** 2)[0].family.group;
+
+/**
+ * Refines seeds shortest first (within the time budget first), one per structure of families, until
+ * `count` meet the tolerance with at most two per main family (so different ways of turning are
+ * compared), or `4 × count` have been tried.
+ */
+function refineSeeds(body: Body, goal: Quat, seeds: readonly SearchSeed[], count: number, limits: SearchLimits, progress: PlanProgress): { seed: SearchSeed; r: RefinedParts }[] {
   const withinBudget = (s: SearchSeed) => limits.timeBudgetS === null || s.estimatedDurationS <= limits.timeBudgetS;
   const ordered = [...seeds.filter(withinBudget), ...seeds.filter((s) => !withinBudget(s))];
-  const out: SearchSeed[] = [];
-  for (const s of ordered) {
-    const key = s.parts.map((p) => p.family.group).join('+');
-    if (seen.has(key)) continue;
+  const seen = new Set<string>();
+  const perMain = new Map<string, number>();
+  const out: { seed: SearchSeed; r: RefinedParts }[] = [];
+  let tried = 0, good = 0;
+  for (const seed of ordered) {
+    if (good >= count || tried >= 4 * count) break;
+    const key = seed.parts.map((p) => p.family.group).join('+');
+    const main = mainGroup(seed);
+    if (seen.has(key) || (perMain.get(main) ?? 0) >= 2) continue;
     seen.add(key);
-    out.push(s);
-    if (out.length >= count) break;
+    progress(0.1 + (0.3 * tried) / (4 * count), `refining candidate ${tried + 1}`);
+    tried++;
+    const r = refineParts(body, goal, seed.parts, limits);
+    out.push({ seed, r });
+    if (r.composedErrorDeg <= limits.toleranceDeg) { good++; perMain.set(main, (perMain.get(main) ?? 0) + 1); }
   }
   return out;
 }
@@ -105,24 +122,29 @@ export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, s
     notes.push(`No composition of up to three phases reaches the target within ${target.toleranceDeg}° using sweeps that turn about ${axes.join(', ')} within this body's joint ranges and the ${target.rateLimitDegS}°/s rate limit.`);
     return { candidates: [], notes, timings };
   }
-  const chosen = pickSeeds(seeds, settings.maxCandidates + EXTRA_SEEDS, limits);
-  if (limits.timeBudgetS !== null && chosen.every((s) => s.estimatedDurationS > limits.timeBudgetS!)) {
-    notes.push(`The shortest plan found needs about ${Math.ceil(chosen[0].estimatedDurationS)} s, over the ${limits.timeBudgetS} s time budget (sweeps are slowed to stay under the ${target.rateLimitDegS}°/s rate limit).`);
+  const refined = refineSeeds(body, goal, seeds, settings.maxCandidates + EXTRA_SEEDS, limits, progress);
+  if (limits.timeBudgetS !== null && refined.every(({ seed }) => seed.estimatedDurationS > limits.timeBudgetS!)) {
+    notes.push(`The shortest plan found needs about ${Math.ceil(refined[0].seed.estimatedDurationS)} s, over the ${limits.timeBudgetS} s time budget (sweeps are slowed to stay under the ${target.rateLimitDegS}°/s rate limit).`);
   }
 
   const model: RobustnessModel = { spreads: settings.spreads, perceptionErrorDeg: settings.perceptionErrorDeg, reactionDelayS: settings.reactionDelayS };
   const out: Omit<PlanCandidate, 'rank'>[] = [];
-  const refined = chosen.map((seed, i) => {
-    progress(0.1 + (0.3 * i) / chosen.length, `refining candidate ${i + 1} of ${chosen.length}`);
-    return refineParts(body, goal, seed.parts, limits);
+  // A quick robustness screen (few samples, its own seed) picks which to verify: within tolerance,
+  // no detour, robustness level, then duration, as the final ranking does.
+  progress(0.4, 'screening robustness');
+  const screened = refined.map(({ r, seed }) => {
+    if (r.composedErrorDeg > limits.toleranceDeg) return { r, seed, level: ROBUSTNESS_LEVELS.length, p95: Infinity };
+    const sequence = compileForBody(body, candidatePrimitives(r.parts, limits.rateLimitDegS));
+    const s = summariseRobustness(robustnessSamples({ body, sequence, target: goal, toleranceDeg: target.toleranceDeg, seed: settings.seed + 7919, model }, 0, SCREEN_SAMPLES), target.toleranceDeg);
+    return { r, seed, level: ROBUSTNESS_LEVELS.indexOf(robustnessLevel(s.feedbackP95Deg, target.toleranceDeg)), p95: s.feedbackP95Deg };
   });
-  // The best few by composed error, then verified and dispersed.
-  const verify = refined
-    .map((r, i) => ({ r, seed: chosen[i] }))
-    .sort((a, b) => Number(a.r.composedErrorDeg > limits.toleranceDeg) - Number(b.r.composedErrorDeg > limits.toleranceDeg))
+  const verify = screened
+    .sort((a, b) => Number(a.r.composedErrorDeg > limits.toleranceDeg) - Number(b.r.composedErrorDeg > limits.toleranceDeg)
+      || Number(a.seed.netAngleDeg > goalAngleDeg + 90) - Number(b.seed.netAngleDeg > goalAngleDeg + 90)
+      || a.level - b.level || a.seed.estimatedDurationS - b.seed.estimatedDurationS)
     .slice(0, settings.maxCandidates);
   verify.forEach(({ r }, i) => {
-    progress(0.4 + (0.55 * i) / verify.length, `verifying candidate ${i + 1} of ${verify.length}`);
+    progress(0.5 + (0.45 * i) / verify.length, `verifying candidate ${i + 1} of ${verify.length}`);
     out.push(verifyCandidate(body, target, r.parts, r.simulations, model, settings, skipRobustness, goalAngleDeg, timings));
   });
   timings.searchS = (performance.now() - started) / 1000 - timings.robustnessS;

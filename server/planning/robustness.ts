@@ -10,8 +10,10 @@
  *   from the attitude they perceive whether one more cycle brings the predicted final attitude
  *   (perceived attitude, then the rest of the plan as planned) closer to the target; they stop when
  *   it does not, and add at most half the planned cycles again (trim cycles). What they perceive is
- *   the attitude a reaction delay earlier, turned by a perception error drawn afresh for every
- *   decision (normal, `perceptionErrorDeg` 1σ about each body axis). Both figures are ASSUMPTIONS
+ *   the attitude a reaction delay before the cycle's end, turned by a perception error drawn afresh
+ *   for every decision (normal, `perceptionErrorDeg` 1σ about each body axis); knowing how a cycle
+ *   goes, they carry it forward to the cycle's end as planned (the body's to-and-fro within a cycle
+ *   is large, so judging the late glimpse as it is would mislead them). Both figures are ASSUMPTIONS
  *   (no source found for whole-body attitude perception in free fall): DECISIONS.md sets their
  *   floors, 2° and 0.3 s, which are the defaults.
  * Each sample is composed from per-step pieces (execution-pieces.ts), exact up to the integrator's
@@ -26,7 +28,7 @@ import { quantile } from './quantile.ts';
 import { executionPieces, type ExecutionPiece } from './execution-pieces.ts';
 import { perturbBody } from './perturb-body.ts';
 import { perturbSequence } from './perturb-sequence.ts';
-import { quatChain, quatExp, quatIntPower } from './rotation-vector.ts';
+import { quatChain, quatConj, quatExp, quatIntPower } from './rotation-vector.ts';
 
 /** What one robustness run needs. */
 export interface RobustnessInputs {
@@ -119,7 +121,9 @@ export function feedbackAttitude(actual: readonly ExecutionPiece[], nominal: rea
       // Seen now: the attitude a reaction delay ago, turned by this look's perception error.
       const from = done - 1 - p.lagCycles;
       const seen = from < 0 ? ends[0] : quatMultiply(ends[from], p.lagged, [0, 0, 0, 0]);
-      const perceived = quatMultiply(seen, quatExp([sigma * gaussian(random), sigma * gaussian(random), sigma * gaussian(random)]), [0, 0, 0, 0]);
+      // They know how a cycle goes: what they saw, carried forward to the cycle's end as planned.
+      const ahead = quatChain(quatConj(nom.lagged), quatIntPower(nom.cycle, Math.min(done, p.lagCycles + 1)));
+      const perceived = quatChain(seen, quatExp([sigma * gaussian(random), sigma * gaussian(random), sigma * gaussian(random)]), from < 0 ? [1, 0, 0, 0] : ahead);
       const stopNow = quatAngleBetween(quatMultiply(perceived, restAfter[k], [0, 0, 0, 0]), target);
       const oneMore = quatAngleBetween(quatChain(perceived, nom.cycle, restAfter[k]), target);
       if (oneMore >= stopNow) break;
