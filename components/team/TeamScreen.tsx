@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { ScrollView, StyleSheet, View } from 'react-native';
 
 import { SplitView } from '@/components/layout/SplitView';
 import { useIsWide } from '@/components/layout/use-is-wide';
@@ -12,17 +12,19 @@ import type { AuditEvent } from '@/shared/contracts/team';
 import { AuditEventDetail } from './AuditEventDetail';
 import { AuditEventList } from './AuditEventList';
 import { AuditFiltersPanel } from './AuditFiltersPanel';
+import { BackgroundWorkList } from './BackgroundWorkList';
 import { EMPTY_AUDIT_FILTER_FORM, toAuditFilters, type AuditFilterForm } from './audit-filter-form';
 import { InvitationList } from './InvitationList';
 import { InviteForm } from './InviteForm';
 import { PeopleList } from './PeopleList';
 import { TeamMemberDetail } from './TeamMemberDetail';
 
-type Section = 'people' | 'invitations' | 'audit';
+type Section = 'people' | 'invitations' | 'audit' | 'jobs';
 const SECTIONS = [
   { value: 'people', label: 'People' },
   { value: 'invitations', label: 'Invitations' },
   { value: 'audit', label: 'Audit log' },
+  { value: 'jobs', label: 'Jobs' },
 ] as const;
 
 /** Admin's Team tab: people (roles, access), invitations (and the invite form), and the audit log. */
@@ -42,7 +44,7 @@ export function TeamScreen() {
   return (
     <Screen
       title="Team"
-      subtitle="People, roles and the record of who did what"
+      subtitle="People, roles, the record of who did what, and background jobs"
       scroll={false}
       actions={section !== 'invitations' || !wide ? <Button label="Invite" icon="user-plus" size="sm" onPress={openInvite} /> : null}
     >
@@ -93,6 +95,11 @@ export function TeamScreen() {
           />
         </View>
       ) : null}
+      {section === 'jobs' ? (
+        <ScrollView style={styles.jobs} contentContainerStyle={styles.jobsContent}>
+          <BackgroundWorkList />
+        </ScrollView>
+      ) : null}
     </Screen>
   );
 }
@@ -101,4 +108,6 @@ const styles = StyleSheet.create({
   switcher: { maxWidth: 460 },
   listStack: { gap: spacing.md },
   auditStack: { flex: 1, minHeight: 0, gap: spacing.md },
+  jobs: { flex: 1, minHeight: 0 },
+  jobsContent: { paddingBottom: spacing.lg },
 });

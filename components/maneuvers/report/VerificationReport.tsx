@@ -13,6 +13,7 @@ import { Preview3DSlot } from '../Preview3DSlot';
 import { fmtDeg, fmtNum, fmtRate, fmtSci, fmtSeconds, fmtWhen, shortHash } from './format';
 import { PeakRatesTable } from './PeakRatesTable';
 import { RangeViolationsTable } from './RangeViolationsTable';
+import { RobustnessPanel } from './RobustnessPanel';
 import { StatGrid } from './StatGrid';
 
 /** Props of {@link VerificationReport}. */
@@ -82,6 +83,9 @@ export function VerificationReport({ report, versionId, profileVersion, hidePlot
           },
         ]}
       />
+      <Section title="Robustness">
+        <RobustnessPanel versionId={versionId} />
+      </Section>
       {hidePlots ? null : (
         <Section title="Plots">
           <AttitudePlot t={series.t} yawDeg={series.yawDeg} pitchDeg={series.pitchDeg} rollDeg={series.rollDeg} target={{ yaw: round1(targetYpr.yaw * DEG), pitch: round1(targetYpr.pitch * DEG), roll: round1(targetYpr.roll * DEG) }} />

@@ -1,0 +1,98 @@
+import { StyleSheet, View } from 'react-native';
+
+import { errorMessage } from '@/components/api/client';
+import { useSessionQuery } from '@/components/api/use-session';
+import { useRobustnessActions, useVersionRobustnessQuery } from '@/components/api/use-robustness';
+import { spacing } from '@/components/theme';
+import { Badge, type BadgeTone } from '@/components/ui/Badge';
+import { Button } from '@/components/ui/Button';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { LoadingState } from '@/components/ui/LoadingState';
+import { ProgressBar } from '@/components/ui/ProgressBar';
+import { Text } from '@/components/ui/Text';
+import { robustnessLevel, type RobustnessLevel, type RobustnessState } from '@/shared/contracts/robustness';
+import { fmtDeg } from './format';
+import { StatGrid } from './StatGrid';
+
+const STATE_BADGE: Record<RobustnessState, { label: string; tone: BadgeTone }> = {
+  queued: { label: 'Queued', tone: 'neutral' },
+  running: { label: 'Running', tone: 'teal' },
+  done: { label: 'Computed', tone: 'success' },
+  failed: { label: 'Failed', tone: 'danger' },
+  cancelled: { label: 'Cancelled', tone: 'accent' },
+};
+
+const LEVEL_TEXT: Record<RobustnessLevel, { text: string; tone: 'success' | 'accent' | 'danger' }> = {
+  robust: { text: 'Robust: with feedback, 95 % of executions end within the tolerance.', tone: 'success' },
+  marginal: { text: 'Marginal: with feedback, the 95th-percentile error is beyond the tolerance (up to 3×). Rehearse with care and expect to trim.', tone: 'accent' },
+  not_robust: { text: 'Not robust: with feedback, the 95th-percentile error is more than 3× the tolerance. A small execution error spoils this maneuver.', tone: 'danger' },
+};
+
+/**
+ * The version's robustness run (a background job split across worker processes): progress while it
+ * runs, then the figures that decide whether a person can land the maneuver; start again or cancel.
+ */
+export function RobustnessPanel({ versionId }: { versionId: string }) {
+  const run = useVersionRobustnessQuery(versionId);
+  const actions = useRobustnessActions(versionId);
+  const session = useSessionQuery();
+  const author = session.data?.role === 'planner' || session.data?.role === 'admin';
+  if (run.isPending) return <LoadingState label="Loading robustness…" />;
+  if (run.isError) return <ErrorBanner title="Could not load the robustness run" error={run.error} onRetry={() => void run.refetch()} />;
+  const r = run.data;
+  const actionError = actions.start.error ?? actions.cancel.error;
+  const startButton = author ? (
+    <Button label={r ? 'Run again' : 'Compute robustness'} icon="play" size="sm" variant="secondary" loading={actions.start.isPending} onPress={() => actions.start.mutate({})} />
+  ) : null;
+  if (!r) {
+    return (
+      <View style={styles.stack} testID="robustness-panel">
+        <Text tone="muted">No robustness run for this version yet.</Text>
+        {startButton}
+        {actionError ? <Text tone="danger">{errorMessage(actionError)}</Text> : null}
+      </View>
+    );
+  }
+  const badge = STATE_BADGE[r.state];
+  const open = r.state === 'queued' || r.state === 'running';
+  const level = r.feedbackP95Deg !== null ? robustnessLevel(r.feedbackP95Deg, r.toleranceDeg) : null;
+  return (
+    <View style={styles.stack} testID="robustness-panel">
+      <View style={styles.row}>
+        <Badge label={badge.label} tone={badge.tone} />
+        <Text variant="caption" tone="muted">{`${r.samples.toLocaleString('en-US')} samples · seed ${r.seed} · perception error ${r.model.perceptionErrorDeg}° · reaction delay ${r.model.reactionDelayS} s`}</Text>
+      </View>
+      {open ? (
+        <View style={styles.row}>
+          <View style={styles.grow}><ProgressBar value={r.progress} label="Robustness run progress" /></View>
+          <Text variant="caption" tone="muted">{`${Math.round(r.progress * 100)} % · ${r.chunksDone} of ${r.chunks} chunks`}</Text>
+        </View>
+      ) : null}
+      {r.error ? <Text tone={r.state === 'failed' ? 'danger' : 'muted'}>{r.error}</Text> : null}
+      {r.state === 'done' && r.feedbackP95Deg !== null ? (
+        <>
+          <StatGrid
+            stats={[
+              { label: '95th pct. with feedback', value: fmtDeg(r.feedbackP95Deg, 1), note: `tolerance ${fmtDeg(r.toleranceDeg, 1)}`, tone: level ? LEVEL_TEXT[level].tone : 'default', testID: 'stat-feedback-p95' },
+              { label: '95th pct. open-loop', value: fmtDeg(r.openLoopP95Deg ?? NaN, 1) },
+              { label: 'Median with feedback', value: fmtDeg(r.p50Deg ?? NaN, 1) },
+              { label: 'Within tolerance', value: `${Math.round((r.withinToleranceShare ?? 0) * 100)} %`, note: 'of executions, with feedback' },
+            ]}
+          />
+          {level ? <Text tone={LEVEL_TEXT[level].tone}>{LEVEL_TEXT[level].text}</Text> : null}
+        </>
+      ) : null}
+      <View style={styles.row}>
+        {open && author ? <Button label="Cancel run" icon="x-circle" size="sm" variant="ghost" loading={actions.cancel.isPending} onPress={() => actions.cancel.mutate()} /> : null}
+        {!open ? startButton : null}
+      </View>
+      {actionError ? <Text tone="danger">{errorMessage(actionError)}</Text> : null}
+    </View>
+  );
+}
+
+const styles = StyleSheet.create({
+  stack: { gap: spacing.sm },
+  row: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
+  grow: { flex: 1, minWidth: 120 },
+});
