@@ -62,6 +62,8 @@ export default defineConfig({
       LOG_LEVEL: 'warn',
       // Many sign-ins from one address during the suite.
       SIGNIN_RATE_LIMIT: '500',
+      // Every saved version queues a robustness run; smaller runs keep the suite's worker from crowding the 2 cores.
+      ROBUSTNESS_SAMPLES: '200',
     },
   },
 });

@@ -89,8 +89,8 @@ afterAll(async () => {
 describe('worker processes', () => {
   it('a chunk held by a worker killed with SIGKILL is retried by another worker and completes once', async () => {
     const first = await startWorker('worker A');
-    // One long chunk (3,000 samples), so the kill lands mid-job.
-    const runId = await queueVersionRobustness(t.ctx, versionId, { samples: 3000, chunkSize: 3000 });
+    // One long chunk (1,500 samples), so the kill lands mid-job.
+    const runId = await queueVersionRobustness(t.ctx, versionId, { samples: 1500, chunkSize: 1500 });
     await eventually(async () => {
       const [c] = await t.ctx.db.select().from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
       return c.state === 'running' ? true : undefined;
@@ -108,7 +108,7 @@ describe('worker processes', () => {
     }, 120_000, 250);
     expect(run.error).toBeNull();
     expect(run.state).toBe('done');
-    expect(run.doneSamples).toBe(3000);
+    expect(run.doneSamples).toBe(1500);
     // Retried within the minute the product promises (the retry's own computation is on top).
     const [chunk] = await t.ctx.db.select().from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
     expect(chunk.attempts).toBe(2);
