@@ -10,10 +10,17 @@ config.cacheStores = [new FileStore({ root: path.join(__dirname, 'node_modules',
 
 // drei's OrbitControls imports all of three-stdlib; point it at the single file (Metro does not tree-shake).
 const orbitControlsFile = path.join(__dirname, 'node_modules', 'three-stdlib', 'controls', 'OrbitControls.js');
+// zod re-exports every message locale as `z.locales` and `z.core.locales` (≈70 KB gzipped that every
+// screen would load); the app uses only English, which zod's schemas import on their own: point both at it.
+const zodV4 = `${path.sep}zod${path.sep}v4${path.sep}`;
+const zodEnglish = (ext) => path.join(__dirname, 'node_modules', 'zod', 'v4', 'locales', `en.${ext}`);
 const upstreamResolve = config.resolver.resolveRequest;
 config.resolver.resolveRequest = (context, moduleName, platform) => {
   if (moduleName === 'three-stdlib' && context.originModulePath.includes(`${path.sep}drei${path.sep}core${path.sep}OrbitControls`)) {
     return { type: 'sourceFile', filePath: orbitControlsFile };
+  }
+  if (/^\.\.\/locales\/index\.c?js$/.test(moduleName) && context.originModulePath.includes(zodV4)) {
+    return { type: 'sourceFile', filePath: zodEnglish(moduleName.endsWith('.cjs') ? 'cjs' : 'js') };
   }
   return (upstreamResolve ?? context.resolveRequest)(context, moduleName, platform);
 };

@@ -4,15 +4,18 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { useSessionQuery, useSignOutMutation } from '@/components/api/use-session';
-import { ChangePasswordSheet } from '@/components/auth/ChangePasswordSheet';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { AppHeader } from '@/components/shell/AppHeader';
+import { lazyScreen } from '@/components/shell/lazy-screen';
 import { signInHrefFor, takeEntryPath } from '@/components/shell/return-path';
 import { tabScreenOptions, tabNavigatorOptions } from '@/components/shell/tab-bar-options';
 import { canSeeTab, TAB_NAMES, TABS } from '@/components/shell/tab-access';
 import { colors } from '@/components/theme';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
+
+// Loaded (and mounted) only when opened, like the screens.
+const ChangePasswordSheet = lazyScreen(() => import('@/components/shell/signed-in-screens').then((m) => m.ChangePasswordSheet), null);
 
 /** The signed-in shell: header with the user menu and caution, and the role's tabs. */
 export default function AppLayout() {
@@ -62,14 +65,16 @@ export default function AppLayout() {
           </Tabs.Protected>
         ))}
       </Tabs>
-      <ChangePasswordSheet
-        visible={changingPassword}
-        onClose={() => setChangingPassword(false)}
-        onChanged={() => {
-          setChangingPassword(false);
-          router.replace('/sign-in?notice=password-changed');
-        }}
-      />
+      {changingPassword && (
+        <ChangePasswordSheet
+          visible
+          onClose={() => setChangingPassword(false)}
+          onChanged={() => {
+            setChangingPassword(false);
+            router.replace('/sign-in?notice=password-changed');
+          }}
+        />
+      )}
     </View>
   );
 }

@@ -2,13 +2,16 @@ import { useLocalSearchParams, useRouter } from 'expo-router';
 
 import { isApiStatus } from '@/components/api/client';
 import { useInvitationPreviewQuery } from '@/components/api/use-invitation';
-import { AcceptInvitationForm } from '@/components/auth/AcceptInvitationForm';
 import { AuthCard } from '@/components/auth/AuthCard';
 import { InvitationSummary } from '@/components/auth/InvitationSummary';
+import { lazyScreen } from '@/components/shell/lazy-screen';
 import { homeTab } from '@/components/shell/tab-access';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
+
+// The password form loads (with the signed-in screens) only on a valid invitation.
+const AcceptInvitationForm = lazyScreen(() => import('@/components/shell/signed-in-screens').then((m) => m.AcceptInvitationForm));
 
 const MALFORMED_LINK = 'This invitation link is not valid: it may be cut off or mistyped. Open it again from the e-mail, or ask your administrator for a new one.';
 

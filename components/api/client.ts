@@ -1,4 +1,17 @@
-import { apiErrorSchema } from '@/shared/contracts/api-error';
+import type { ApiErrorBody } from '@/shared/contracts/api-error';
+
+/**
+ * Whether a parsed response body has the shape of apiErrorSchema (shared/contracts/api-error.ts).
+ * A plain check, not zod: every screen's API client uses it, including sign-in, whose first load
+ * should not carry the zod runtime. A test checks it agrees with apiErrorSchema.
+ */
+export function isApiErrorBody(json: unknown): json is ApiErrorBody {
+  if (typeof json !== 'object' || json === null) return false;
+  const e = (json as { error?: unknown }).error;
+  if (typeof e !== 'object' || e === null) return false;
+  const { code, message, field } = e as Record<string, unknown>;
+  return typeof code === 'string' && typeof message === 'string' && (field === undefined || typeof field === 'string');
+}
 
 /** An API failure: HTTP status plus the server's `{ error: { code, message, field? } }` body. */
 export class ApiError extends Error {
@@ -67,9 +80,8 @@ export async function apiFetch<T>(path: string, options: ApiFetchOptions = {}): 
     // A proxy's HTML error page: fall through to the generic message below.
   }
   if (!res.ok) {
-    const parsed = apiErrorSchema.safeParse(json);
-    if (parsed.success) {
-      const { code, message, field } = parsed.data.error;
+    if (isApiErrorBody(json)) {
+      const { code, message, field } = json.error;
       throw new ApiError(res.status, code, message, field);
     }
     throw new ApiError(res.status, 'http_error', `The server answered ${res.status} ${res.statusText || ''}`.trim() + '.');

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { colors, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Text } from '@/components/ui/Text';
-import { ROLE_LABELS } from '@/shared/contracts/roles';
+import { ROLE_LABELS } from '@/shared/contracts/role-labels';
 import type { InvitationPreview } from '@/shared/contracts/team';
 
 /** Props of {@link InvitationSummary}. */

@@ -1,4 +1,3 @@
-import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
@@ -9,8 +8,8 @@ import { spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
-import type { SessionUser } from '@/shared/contracts/auth';
-import { signInRequestSchema } from '@/shared/contracts/auth';
+import type { SessionUser, SignInRequest } from '@/shared/contracts/auth';
+import { signInResolver } from './sign-in-check';
 
 /** Props of {@link SignInForm}. */
 export interface SignInFormProps {
@@ -22,8 +21,8 @@ export interface SignInFormProps {
 export function SignInForm({ onSignedIn }: SignInFormProps) {
   const signIn = useSignInMutation();
   const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError } = useForm({
-    resolver: zodResolver(signInRequestSchema),
+  const { control, handleSubmit, setError } = useForm<SignInRequest>({
+    resolver: signInResolver,
     defaultValues: { email: '', password: '' },
   });
   const submit = handleSubmit((values) => {

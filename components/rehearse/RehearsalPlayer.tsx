@@ -12,7 +12,7 @@ import RehearsalCanvas from '@/scene/RehearsalCanvas';
 import { buildSceneModel } from '@/scene/scene-model';
 import { scenePalette } from '@/scene/scene-palette';
 import type { MotionResponse } from '@/shared/contracts/motion';
-import { PLAYBACK_SPEEDS } from '@/shared/contracts/rehearsal';
+import { PLAYBACK_SPEEDS } from '@/shared/contracts/playback-speeds';
 import { ControlButton } from './ControlButton';
 import { CueCard } from './CueCard';
 import { StepTimeline } from './StepTimeline';

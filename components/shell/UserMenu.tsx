@@ -5,7 +5,7 @@ import { colors, radii, spacing } from '@/components/theme';
 import { Avatar } from '@/components/ui/Avatar';
 import { Icon, type IconName } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
-import { ROLE_LABELS } from '@/shared/contracts/roles';
+import { ROLE_LABELS } from '@/shared/contracts/role-labels';
 import type { SessionUser } from '@/shared/contracts/auth';
 import { webPressState } from '@/components/ui/press-state';
 

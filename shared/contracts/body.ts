@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 import { symmetricEigenvalues3 } from '../math/mat3.ts';
+import { inertiaTensor } from './body-inertia.ts';
 import { type ContractIssue, type ContractResult, zodIssuesToContract } from './contract-issue.ts';
 
 const finite = (what: string) =>
@@ -72,12 +73,7 @@ export type Body = z.infer<typeof bodySchema>;
 /** Relative slack for the triangle inequality on principal moments (rounding in hand-typed tables). */
 const TRIANGLE_SLACK = 1e-9;
 
-/** Full symmetric inertia tensor (row-major 3×3, kg·m²) of a contract inertia array. */
-export function inertiaTensor(inertia: readonly number[]): number[] {
-  const [ixx, iyy, izz] = inertia;
-  const ixy = inertia[3] ?? 0, ixz = inertia[4] ?? 0, iyz = inertia[5] ?? 0;
-  return [ixx, ixy, ixz, ixy, iyy, iyz, ixz, iyz, izz];
-}
+export { inertiaTensor };
 
 function describeBodyPath(raw: unknown, path: readonly PropertyKey[]): string {
   if (path[0] !== 'segments' || typeof path[1] !== 'number') return '';

@@ -6,10 +6,9 @@ import { z } from 'zod';
 
 import type { VersionStatus } from './version-status.ts';
 
-/** Playback speeds the player offers (multiples of real time). */
-export const PLAYBACK_SPEEDS = [0.25, 0.5, 1, 1.5, 2] as const;
-/** Slowest and fastest playback, × real time. */
-export const PLAYBACK_SPEED_RANGE = { min: 0.25, max: 2 } as const;
+import { PLAYBACK_SPEED_RANGE, PLAYBACK_SPEEDS } from './playback-speeds.ts';
+
+export { PLAYBACK_SPEED_RANGE, PLAYBACK_SPEEDS };
 
 /** POST /api/rehearsals body. */
 export const logRehearsalSchema = z.object({

@@ -1,14 +1,8 @@
 import { z } from 'zod';
 
-/** The four roles a user can hold; one per user. */
-export const ROLES = ['admin', 'planner', 'reviewer', 'trainee'] as const;
-export const roleSchema = z.enum(ROLES);
-export type Role = z.infer<typeof roleSchema>;
+import { ROLES } from './role-labels.ts';
 
-/** Human labels for the roles, used by the Team screen and invitations. */
-export const ROLE_LABELS: Record<Role, string> = {
-  admin: 'Administrator',
-  planner: 'Flight planner',
-  reviewer: 'Reviewer',
-  trainee: 'Crew trainee',
-};
+export { ROLE_LABELS, ROLES, type Role } from './role-labels.ts';
+
+/** A role, validated. */
+export const roleSchema = z.enum(ROLES);

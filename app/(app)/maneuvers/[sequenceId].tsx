@@ -1,7 +1,10 @@
 import { useLocalSearchParams } from 'expo-router';
 
 import type { ComposerPanel } from '@/components/maneuvers/Composer';
-import { SequenceWorkspace } from '@/components/maneuvers/SequenceWorkspace';
+import { lazyScreen } from '@/components/shell/lazy-screen';
+
+// The composer, report charts and version history load with the signed-in screens, not on sign-in.
+const SequenceWorkspace = lazyScreen(() => import('@/components/shell/signed-in-screens').then((m) => m.SequenceWorkspace), 'Loading the composer…');
 
 const PANELS: readonly ComposerPanel[] = ['steps', 'report', 'versions'];
 

@@ -1,6 +1,8 @@
 import { useLocalSearchParams } from 'expo-router';
 
-import { ReviewScreen } from '@/components/reviews/ReviewScreen';
+import { lazyScreen } from '@/components/shell/lazy-screen';
+
+const ReviewScreen = lazyScreen(() => import('@/components/shell/signed-in-screens').then((m) => m.ReviewScreen), 'Loading the review…');
 
 /** `/reviews/<versionId>`: one version to review (the link reviewers get by e-mail). */
 export default function ReviewRoute() {
