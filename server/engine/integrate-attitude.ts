@@ -17,7 +17,7 @@ export interface IntegratorOptions {
   rtol: number;
   /** Absolute tolerance, rad (default = rtol). */
   atol: number;
-  /** Max accepted plus rejected steps per piece. */
+  /** Max accepted plus rejected steps per piece (default 100,000, as odex had). */
   maxSteps?: number;
 }
 
@@ -263,7 +263,7 @@ export function integrateAttitude(
     qTmp: new Float64Array(4), theta: new Float64Array(3), ws: new Float64Array(9), thetaS: new Float64Array(3),
   };
   const tol = stepTolerance(opts.rtol, opts.atol);
-  const maxSteps = opts.maxSteps ?? 1_000_000;
+  const maxSteps = opts.maxSteps ?? 100_000;
   const q = Float64Array.of(1, 0, 0, 0);
   let next = 0;
   // Times before the first piece (or with no pieces) take the initial attitude.
