@@ -27,6 +27,8 @@ export interface JobQueue {
   /** The pg-boss instance (admin view: find and cancel jobs). */
   boss?: PgBoss;
   enqueueReverification(sequenceVersionIds: string[], toProfileVersionId: string): Promise<void>;
+  /** Queues the e-mail of an invitation in state `sending` (retried with backoff). */
+  enqueueInvitationMail?(invitationId: string): Promise<void>;
   /** Queues a planning run for a `plans` row (optional: queues without planning workers may omit it). */
   enqueuePlan?(planId: string): Promise<void>;
   /** Queues the chunk jobs of a `robustness_runs` row that are not done yet. */

@@ -1,4 +1,5 @@
-import { boolean, integer, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import { boolean, integer, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 
 import { ROLES } from '../../shared/contracts/roles.ts';
 
@@ -18,7 +19,15 @@ export const users = pgTable('users', {
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
-/** E-mailed invitations; only the SHA-256 of the secret token is stored. */
+/** Delivery of an invitation's e-mail (the row is the outbox; a pg-boss job retries the send). */
+export const INVITATION_MAIL_STATES = ['sending', 'sent', 'failed'] as const;
+export const invitationMailStateEnum = pgEnum('invitation_mail_state', INVITATION_MAIL_STATES);
+
+/**
+ * E-mailed invitations; only the SHA-256 of the secret token is stored (each send makes a new token,
+ * so no plain token waits in the outbox). One address has at most one invitation that is neither
+ * accepted nor revoked (expired ones are revoked when the address is invited again).
+ */
 export const invitations = pgTable('invitations', {
   id: uuid('id').primaryKey().defaultRandom(),
   email: text('email').notNull(),
@@ -30,7 +39,16 @@ export const invitations = pgTable('invitations', {
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
   acceptedAt: timestamp('accepted_at', { withTimezone: true }),
-});
+  revokedAt: timestamp('revoked_at', { withTimezone: true }),
+  revokedBy: uuid('revoked_by').references(() => users.id),
+  mailState: invitationMailStateEnum('mail_state').notNull().default('sending'),
+  mailAttempts: integer('mail_attempts').notNull().default(0),
+  /** The last delivery error, for the admin (no secrets: the mailer's message). */
+  mailError: text('mail_error'),
+  mailSentAt: timestamp('mail_sent_at', { withTimezone: true }),
+}, (t) => [
+  uniqueIndex('invitations_one_open_per_email').on(t.email).where(sql`${t.acceptedAt} IS NULL AND ${t.revokedAt} IS NULL`),
+]);
 
 export type UserRow = typeof users.$inferSelect;
 export type InvitationRow = typeof invitations.$inferSelect;

@@ -13,7 +13,11 @@
 import { PgBoss, type Job } from 'pg-boss';
 
 import type { AppContext, JobQueue } from '../app-context.ts';
-import { ALL_QUEUES, CHUNK_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT, ROBUSTNESS_CHUNK_QUEUE, type QueueName } from './queue-names.ts';
+import {
+  ALL_QUEUES, CHUNK_RETRY_LIMIT, INVITATION_MAIL_QUEUE, INVITATION_MAIL_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT,
+  ROBUSTNESS_CHUNK_QUEUE, type QueueName,
+} from './queue-names.ts';
+import { deliverInvitation, type InvitationMailJob } from '../team/deliver-invitation.ts';
 import { reconcileWork } from './reconcile-work.ts';
 import { reverifyVersion, type ReverifyJob } from './reverify-version.ts';
 import { ChunkPool } from './robustness/chunk-pool.ts';
@@ -71,6 +75,7 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
     [REVERIFY_QUEUE]: { retryLimit: REVERIFY_RETRY_LIMIT, retryDelay, retryBackoff: true },
     [PLAN_QUEUE]: { retryLimit: PLAN_RETRY_LIMIT, retryDelay: 1 },
     [ROBUSTNESS_CHUNK_QUEUE]: { retryLimit: CHUNK_RETRY_LIMIT, retryDelay: 1 },
+    [INVITATION_MAIL_QUEUE]: { retryLimit: INVITATION_MAIL_RETRY_LIMIT, retryDelay, retryBackoff: true },
   } satisfies Record<QueueName, object>;
   for (const name of ALL_QUEUES) {
     await boss.createQueue(name, { ...queueOptions[name], heartbeatSeconds, notify: true });
@@ -94,6 +99,9 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
     },
     async enqueuePlan(planId) {
       await boss.send(PLAN_QUEUE, { planId } satisfies PlanJob);
+    },
+    async enqueueInvitationMail(invitationId) {
+      await boss.send(INVITATION_MAIL_QUEUE, { invitationId } satisfies InvitationMailJob);
     },
     async enqueueRobustness(runId) {
       await enqueueRobustnessChunks(ctx, boss, runId);
@@ -133,6 +141,8 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
       reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT })));
     // A plan runs in its own worker thread.
     await boss.work<PlanJob>(PLAN_QUEUE, workOptions, handler(PLAN_QUEUE, (job: Job<PlanJob>) => runPlan(ctx, job.data)));
+    await boss.work<InvitationMailJob>(INVITATION_MAIL_QUEUE, workOptions, handler(INVITATION_MAIL_QUEUE, (job: Job<InvitationMailJob>) =>
+      deliverInvitation(ctx, job.data, { attempt: job.retryCount, retryLimit: INVITATION_MAIL_RETRY_LIMIT })));
     await boss.work<RobustnessChunkJob>(ROBUSTNESS_CHUNK_QUEUE, workOptions, handler(ROBUSTNESS_CHUNK_QUEUE, (job: Job<RobustnessChunkJob>) =>
       runRobustnessChunk(ctx, pool!, job.data, { signal: job.signal, attempt: job.retryCount, retryLimit: CHUNK_RETRY_LIMIT })));
   }

@@ -18,6 +18,11 @@ export const ROBUSTNESS_CHUNK_QUEUE = 'robustness-chunk';
 /** Retries of a chunk whose worker died (a failure inside the model fails the run at once). */
 export const CHUNK_RETRY_LIMIT = 3;
 
+/** Queue name of invitation e-mails (the invitation row is the outbox). */
+export const INVITATION_MAIL_QUEUE = 'invitation-mail';
+/** Retries of a failed send, with exponential backoff from the retry delay (2, 4, 8, 16 s by default). */
+export const INVITATION_MAIL_RETRY_LIMIT = 4;
+
 /** Every queue a worker consumes. */
-export const ALL_QUEUES = [REVERIFY_QUEUE, PLAN_QUEUE, ROBUSTNESS_CHUNK_QUEUE] as const;
+export const ALL_QUEUES = [REVERIFY_QUEUE, PLAN_QUEUE, ROBUSTNESS_CHUNK_QUEUE, INVITATION_MAIL_QUEUE] as const;
 export type QueueName = (typeof ALL_QUEUES)[number];

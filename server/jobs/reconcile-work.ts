@@ -6,13 +6,14 @@
  * before heartbeats existed) or ends `failed` with the reason its last job ended with (retries used
  * up by workers that died).
  */
-import { and, eq, inArray, lt } from 'drizzle-orm';
+import { and, eq, inArray, isNull, lt } from 'drizzle-orm';
 import type { PgBoss } from 'pg-boss';
 
-import { plans, reverifications, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
+import { invitations, plans, reverifications, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
-import { PLAN_QUEUE, REVERIFY_QUEUE, ROBUSTNESS_CHUNK_QUEUE } from './queue-names.ts';
+import type { InvitationMailJob } from '../team/deliver-invitation.ts';
+import { INVITATION_MAIL_QUEUE, PLAN_QUEUE, REVERIFY_QUEUE, ROBUSTNESS_CHUNK_QUEUE } from './queue-names.ts';
 import type { ReverifyJob } from './reverify-version.ts';
 import { enqueueRobustnessChunks, failRobustnessRun, OPEN_STATES } from './robustness/robustness-runs.ts';
 import type { PlanJob } from './run-plan.ts';
@@ -48,6 +49,7 @@ export interface JobSender {
   boss: PgBoss;
   enqueuePlan?(planId: string): Promise<void>;
   enqueueReverification(ids: string[], toProfileVersionId: string): Promise<void>;
+  enqueueInvitationMail?(invitationId: string): Promise<void>;
 }
 
 /** One reconciliation pass; returns how many records it re-queued and failed. */
@@ -114,6 +116,23 @@ export async function reconcileWork(ctx: AppContext, queue: JobSender): Promise<
   for (const [runId, chunks] of resend) {
     await enqueueRobustnessChunks(ctx, queue.boss, runId, chunks);
     requeued += chunks.length;
+  }
+
+  // Invitation e-mails still `sending` whose job was lost get one; ones whose jobs all ended are `failed` (the admin resends).
+  const sending = await db.select({ id: invitations.id }).from(invitations)
+    .where(and(eq(invitations.mailState, 'sending'), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), lt(invitations.createdAt, before)));
+  for (const inv of sending) {
+    const v = await verdict(queue.boss, INVITATION_MAIL_QUEUE, { invitationId: inv.id } satisfies InvitationMailJob);
+    if (v.kind === 'live') continue;
+    if (v.kind === 'none' && queue.enqueueInvitationMail) {
+      await queue.enqueueInvitationMail(inv.id);
+      requeued++;
+      continue;
+    }
+    const reason = v.kind === 'ended' ? `Sending stopped: ${v.reason}.` : 'No worker sends e-mail here.';
+    const [row] = await db.update(invitations).set({ mailState: 'failed', mailError: reason })
+      .where(and(eq(invitations.id, inv.id), eq(invitations.mailState, 'sending'))).returning({ id: invitations.id });
+    if (row) failed++;
   }
   return { requeued, failed };
 }

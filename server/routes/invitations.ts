@@ -27,7 +27,7 @@ export function invitationsRouter(ctx: AppContext): Router {
     const [inv] = await db
       .select()
       .from(invitations)
-      .where(and(eq(invitations.tokenHash, hashInvitationToken(token)), isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())));
+      .where(and(eq(invitations.tokenHash, hashInvitationToken(token)), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, new Date())));
     return inv;
   };
 
@@ -48,7 +48,7 @@ export function invitationsRouter(ctx: AppContext): Router {
       const used = await tx
         .update(invitations)
         .set({ acceptedAt: new Date() })
-        .where(and(eq(invitations.id, inv.id), isNull(invitations.acceptedAt)))
+        .where(and(eq(invitations.id, inv.id), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
         .returning({ id: invitations.id });
       if (!used.length) throw invalid();
       const [existing] = await tx.select({ id: users.id }).from(users).where(eq(users.email, inv.email));

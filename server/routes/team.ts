@@ -1,18 +1,27 @@
-import { and, desc, eq, gt, isNull } from 'drizzle-orm';
+import { and, desc, eq, isNull, lte } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
-import { crewMembers, invitations, users } from '../../db/schema/index.ts';
-import { inviteRequestSchema, updateUserRequestSchema, type InviteRequest, type UpdateUserRequest } from '../../shared/contracts/team.ts';
+import { crewMembers, invitations, users, type InvitationRow } from '../../db/schema/index.ts';
+import { inviteRequestSchema, updateUserRequestSchema, type Invitation, type InviteRequest, type UpdateUserRequest } from '../../shared/contracts/team.ts';
 import type { AppContext } from '../app-context.ts';
-import { publicUrl } from '../config.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, conflict, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
-import { invitationMail } from '../team/invitation-mail.ts';
 import { INVITATION_TTL_MS, newInvitationToken } from '../team/invitation-token.ts';
+import { queueInvitationMail } from '../team/queue-invitation-mail.ts';
 
 const idParams = z.object({ id: z.string().uuid('Not a valid id.') });
+
+/** An invitation as the Team screen lists it. */
+function invitationView(inv: InvitationRow, invitedBy: string): Invitation {
+  return {
+    id: inv.id, email: inv.email, name: inv.name, role: inv.role, invitedBy,
+    createdAt: inv.createdAt.toISOString(), expiresAt: inv.expiresAt.toISOString(),
+    acceptedAt: inv.acceptedAt?.toISOString() ?? null, revokedAt: inv.revokedAt?.toISOString() ?? null,
+    mailState: inv.mailState, mailAttempts: inv.mailAttempts, mailError: inv.mailError, mailSentAt: inv.mailSentAt?.toISOString() ?? null,
+  };
+}
 
 /** Admin routes: list people and invitations, invite, change a role, disable or enable a user. */
 export function teamRouter(ctx: AppContext): Router {
@@ -35,13 +44,7 @@ export function teamRouter(ctx: AppContext): Router {
       .from(invitations)
       .innerJoin(users, eq(users.id, invitations.invitedBy))
       .orderBy(desc(invitations.createdAt));
-    res.json({
-      invitations: rows.map(({ inv, by }) => ({
-        id: inv.id, email: inv.email, name: inv.name, role: inv.role, invitedBy: by,
-        createdAt: inv.createdAt.toISOString(), expiresAt: inv.expiresAt.toISOString(),
-        acceptedAt: inv.acceptedAt?.toISOString() ?? null,
-      })),
-    });
+    res.json({ invitations: rows.map(({ inv, by }) => invitationView(inv, by)) });
   });
 
   router.post('/invitations', validate({ body: inviteRequestSchema }), async (req, res) => {
@@ -53,28 +56,76 @@ export function teamRouter(ctx: AppContext): Router {
       const [member] = await db.select({ id: crewMembers.id }).from(crewMembers).where(eq(crewMembers.id, input.crewMemberId));
       if (!member) throw badRequest('crewMemberId: no such crew member.', 'crewMemberId');
     }
-    const pending = await db
-      .select({ id: invitations.id })
-      .from(invitations)
-      .where(and(eq(invitations.email, input.email), isNull(invitations.acceptedAt), gt(invitations.expiresAt, new Date())));
-    if (pending.length) throw conflict('An open invitation for that e-mail already exists.', 'already_invited');
-
-    const { token, hash } = newInvitationToken();
-    const [inv] = await db.transaction(async (tx) => {
-      const inserted = await tx
+    const alreadyInvited = () => conflict('That e-mail already has an open invitation: resend or revoke it in the list of invitations.', 'already_invited');
+    const inv = await db.transaction(async (tx) => {
+      // An expired invitation no longer holds the address: revoke it so the new one can take its place.
+      await tx.update(invitations).set({ revokedAt: new Date() })
+        .where(and(eq(invitations.email, input.email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), lte(invitations.expiresAt, new Date())));
+      const [open] = await tx.select({ id: invitations.id }).from(invitations)
+        .where(and(eq(invitations.email, input.email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)));
+      if (open) throw alreadyInvited();
+      // The e-mail goes out from the outbox; until then the stored hash is of a token nobody holds.
+      const [inserted] = await tx
         .insert(invitations)
         .values({
           email: input.email, name: input.name, role: input.role, crewMemberId: input.crewMemberId ?? null,
-          tokenHash: hash, invitedBy: me.id, expiresAt: new Date(Date.now() + INVITATION_TTL_MS),
+          tokenHash: newInvitationToken().hash, invitedBy: me.id, expiresAt: new Date(Date.now() + INVITATION_TTL_MS), mailState: 'sending',
         })
+        .onConflictDoNothing()
         .returning();
-      await recordAudit(tx, { actorId: me.id, action: 'team.invite', objectType: 'invitation', objectId: inserted[0].id, detail: { email: input.email, role: input.role } });
+      // Two admins inviting the same address at once: the unique index lets one through.
+      if (!inserted) throw alreadyInvited();
+      await recordAudit(tx, { actorId: me.id, action: 'team.invite', objectType: 'invitation', objectId: inserted.id, detail: { email: input.email, role: input.role } });
       return inserted;
     });
-    const link = `${publicUrl(ctx.config)}/invite/${token}`;
-    await ctx.mailer.send(invitationMail({ to: input.email, name: input.name, role: input.role, invitedBy: me.name, link }));
-    res.status(201).json({ invitation: { id: inv.id, email: inv.email, name: inv.name, role: inv.role, expiresAt: inv.expiresAt.toISOString() } });
+    await queueInvitationMail(ctx, inv.id);
+    res.status(201).json({ invitation: invitationView(inv, me.name) });
   });
+
+  /** Sends the invitation again with a fresh link and a fresh 7-day validity (sending, sent or failed alike). */
+  router.post('/invitations/:id/resend', validate({ params: idParams }), async (req, res) => {
+    const me = req.user!;
+    const { id } = res.locals.params as { id: string };
+    const [inv] = await db.transaction(async (tx) => {
+      const updated = await tx.update(invitations)
+        .set({ mailState: 'sending', mailError: null, expiresAt: new Date(Date.now() + INVITATION_TTL_MS) })
+        .where(and(eq(invitations.id, id), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
+        .returning();
+      if (updated.length) await recordAudit(tx, { actorId: me.id, action: 'team.resend_invitation', objectType: 'invitation', objectId: id, detail: { email: updated[0].email } });
+      return updated;
+    });
+    if (!inv) throw await closedInvitation(id);
+    await queueInvitationMail(ctx, inv.id);
+    res.json({ invitation: await loadInvitationView(id) });
+  });
+
+  /** Withdraws an invitation: its link stops working and the address may be invited again. */
+  router.post('/invitations/:id/revoke', validate({ params: idParams }), async (req, res) => {
+    const me = req.user!;
+    const { id } = res.locals.params as { id: string };
+    const [inv] = await db.transaction(async (tx) => {
+      const updated = await tx.update(invitations)
+        .set({ revokedAt: new Date(), revokedBy: me.id, tokenHash: newInvitationToken().hash })
+        .where(and(eq(invitations.id, id), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
+        .returning();
+      if (updated.length) await recordAudit(tx, { actorId: me.id, action: 'team.revoke_invitation', objectType: 'invitation', objectId: id, detail: { email: updated[0].email } });
+      return updated;
+    });
+    if (!inv) throw await closedInvitation(id);
+    res.json({ invitation: await loadInvitationView(id) });
+  });
+
+  /** 404 for an unknown id, 409 for an accepted or revoked invitation. */
+  async function closedInvitation(id: string) {
+    const [row] = await db.select().from(invitations).where(eq(invitations.id, id));
+    if (!row) return notFound('Invitation');
+    return conflict(row.acceptedAt ? 'That invitation was already accepted.' : 'That invitation was revoked; send a new one.', 'invitation_closed');
+  }
+
+  async function loadInvitationView(id: string) {
+    const [row] = await db.select({ inv: invitations, by: users.name }).from(invitations).innerJoin(users, eq(users.id, invitations.invitedBy)).where(eq(invitations.id, id));
+    return invitationView(row.inv, row.by);
+  }
 
   router.patch('/users/:id', validate({ params: idParams, body: updateUserRequestSchema }), async (req, res) => {
     const me = req.user!;

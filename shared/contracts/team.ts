@@ -24,6 +24,10 @@ export const inviteRequestSchema = z.object({
 });
 export type InviteRequest = z.infer<typeof inviteRequestSchema>;
 
+/** Delivery of the invitation e-mail: queued or being retried, delivered to the mail server, or given up. */
+export const invitationMailStateSchema = z.enum(['sending', 'sent', 'failed']);
+export type InvitationMailState = z.infer<typeof invitationMailStateSchema>;
+
 /** An open or used invitation as listed to admins. */
 export const invitationSchema = z.object({
   id: z.string().uuid(),
@@ -34,6 +38,13 @@ export const invitationSchema = z.object({
   createdAt: z.string(),
   expiresAt: z.string(),
   acceptedAt: z.string().nullable(),
+  revokedAt: z.string().nullable(),
+  mailState: invitationMailStateSchema,
+  /** Send attempts so far. */
+  mailAttempts: z.number().int(),
+  /** Why the last attempt failed (null after a successful send). */
+  mailError: z.string().nullable(),
+  mailSentAt: z.string().nullable(),
 });
 export type Invitation = z.infer<typeof invitationSchema>;
 
