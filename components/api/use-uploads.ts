@@ -9,7 +9,7 @@ import { crewKeys } from './use-crew';
 export type UploadOutcome = { ok: true; result: UploadResult } | { ok: false; message: string; result: UploadResult };
 
 /** Sends one file as multipart; a 422 rejection is an outcome (with its row errors), other failures throw ApiError. */
-async function postFile(path: string, file: File, fields: Record<string, string> = {}): Promise<UploadOutcome> {
+export async function postFile(path: string, file: File, fields: Record<string, string> = {}): Promise<UploadOutcome> {
   const form = new FormData();
   for (const [k, v] of Object.entries(fields)) form.append(k, v);
   form.append('file', file, file.name);

@@ -5,16 +5,19 @@ import { colors, spacing } from '@/components/theme';
 import { Card } from '@/components/ui/Card';
 import { Text } from '@/components/ui/Text';
 import type { Rehearsal } from '@/shared/contracts/rehearsal';
+import { RehearsalCapturePanel } from './RehearsalCapturePanel';
 
 /** Props of {@link RehearsalHistory}. */
 export interface RehearsalHistoryProps {
   rehearsals: readonly Rehearsal[];
   /** Show the trainee's name on each row (staff views); default false. */
   showTrainee?: boolean;
+  /** Offer the reviewer's sign-off on attached recordings; default false. */
+  canSignOff?: boolean;
 }
 
 /** Logged rehearsals, newest first: when, steps, speed, rating, notes. */
-export function RehearsalHistory({ rehearsals, showTrainee = false }: RehearsalHistoryProps) {
+export function RehearsalHistory({ rehearsals, showTrainee = false, canSignOff = false }: RehearsalHistoryProps) {
   return (
     <Card title="History" subtitle={rehearsals.length ? `${rehearsals.length} logged` : undefined}>
       {rehearsals.length === 0 ? (
@@ -35,6 +38,7 @@ export function RehearsalHistory({ rehearsals, showTrainee = false }: RehearsalH
                 {r.completedSteps}/{r.totalSteps} steps · {r.playbackSpeed}× · v{r.version}
               </Text>
               {r.notes ? <Text variant="caption">{r.notes}</Text> : null}
+              <RehearsalCapturePanel rehearsalId={r.id} canSignOff={canSignOff} />
             </View>
           ))}
         </View>
