@@ -136,7 +136,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
     const probe = await verifySequence({ body: current.body as Body, sequence: first.sequence, target: probeTarget, profileVersionId: current.id });
     const y = probe.final.yprDeg;
     const target: SequenceTarget = demo.yprDeg
-      ? sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: demo.yprDeg, toleranceDeg: 2, rateLimitDegS: 180, timeBudgetS: 60 })
+      ? sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: demo.yprDeg, toleranceDeg: 2, rateLimitDegS: 180, timeBudgetS: 90 })
       : sequenceTargetSchema.parse({
         mode: 'ypr', yprDeg: { yaw: Math.round(y.yaw), pitch: Math.round(y.pitch), roll: Math.round(y.roll) }, toleranceDeg: 3, rateLimitDegS: 150, timeBudgetS: 30,
       });
