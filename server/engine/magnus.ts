@@ -114,10 +114,8 @@ export function createEstimateWork(): EstimateWork {
   return { y: new Float64Array(ESTIMATE_NODES), m: new Float64Array(ESTIMATE_NODES * (ESTIMATE_NODES + 3)), theta: new Float64Array(3) };
 }
 
-/** ∫ y^k dy over [−½, ½]. */
-function centredMoment(k: number): number {
-  return k % 2 === 1 ? 0 : (2 * Math.pow(0.5, k + 1)) / (k + 1);
-}
+/** ∫ y^k dy over [−½, ½], k = 0 … ESTIMATE_NODES + 1. */
+const CENTRED_MOMENTS = Float64Array.from({ length: ESTIMATE_NODES + 2 }, (_, k) => (k % 2 === 1 ? 0 : (2 * Math.pow(0.5, k + 1)) / (k + 1)));
 
 /**
  * Local error estimate (rad) of the Magnus step [t, t+h] with rotation vector θ, whose ω at its
@@ -136,28 +134,16 @@ export function localErrorEstimate(ts: ArrayLike<number>, ws: ArrayLike<number>,
   const mid = ts[N - 2];
   for (let k = 0; k < N; k++) y[k] = (ts[k] - mid) / h;
   // Weights Wₖ⁽ⁿ⁾ with Σₖ Wₖ⁽ⁿ⁾ yₖʲ = ∫ y^(n+j) dy (j = 0 … N−1): Gaussian elimination with partial pivoting.
+  for (let k = 0; k < N; k++) {
+    // Row j holds y_k^j: powers by running products.
+    let p = 1;
+    for (let j = 0; j < N; j++) { m[W * j + k] = p; p *= y[k]; }
+  }
   for (let j = 0; j < N; j++) {
     const row = W * j;
-    for (let k = 0; k < N; k++) m[row + k] = Math.pow(y[k], j);
-    m[row + N] = centredMoment(j); m[row + N + 1] = centredMoment(j + 1); m[row + N + 2] = centredMoment(j + 2);
+    m[row + N] = CENTRED_MOMENTS[j]; m[row + N + 1] = CENTRED_MOMENTS[j + 1]; m[row + N + 2] = CENTRED_MOMENTS[j + 2];
   }
-  for (let c = 0; c < N; c++) {
-    let piv = c;
-    for (let j = c + 1; j < N; j++) if (Math.abs(m[W * j + c]) > Math.abs(m[W * piv + c])) piv = j;
-    if (piv !== c) for (let k = 0; k < W; k++) { const tmp = m[W * c + k]; m[W * c + k] = m[W * piv + k]; m[W * piv + k] = tmp; }
-    const d = m[W * c + c];
-    for (let j = c + 1; j < N; j++) {
-      const f = m[W * j + c] / d;
-      if (f !== 0) for (let k = c; k < W; k++) m[W * j + k] -= f * m[W * c + k];
-    }
-  }
-  for (let c = N - 1; c >= 0; c--) {
-    for (let r = N; r < W; r++) {
-      let s = m[W * c + r];
-      for (let k = c + 1; k < N; k++) s -= m[W * c + k] * m[W * k + r];
-      m[W * c + r] = s / m[W * c + c];
-    }
-  }
+  solveAugmented(m, N);
   // Moments Bₙ/h = Σₖ Wₖ⁽ⁿ⁾ ωₖ, then β₁ = h(9/4 B₀ − 15 B₂), β₂ = 12h B₁, β₃ = h(180 B₂ − 15 B₀).
   let p0x = 0, p0y = 0, p0z = 0, p1x = 0, p1y = 0, p1z = 0, p2x = 0, p2y = 0, p2z = 0;
   for (let k = 0; k < N; k++) {
@@ -258,16 +244,20 @@ export function polynomialTheta(poly: RatePolynomial, a: number, b: number, out:
   }
   // Bₙ = ∫ ((t − t_mid)/σ)ⁿ ω dt = S^(n+1)/σⁿ Σ_j d_j ∫_{−r}^{r} v^(n+j) dv.
   let b0x = 0, b0y = 0, b0z = 0, b1x = 0, b1y = 0, b1z = 0, b2x = 0, b2y = 0, b2z = 0;
+  // rp = r^(j+1), running.
+  let rp = r;
+  const r2 = r * r;
   for (let j = 0; j < N; j++) {
     const dx = d[3 * j], dy = d[3 * j + 1], dz = d[3 * j + 2];
     if (j % 2 === 0) {
-      const i0 = (2 * Math.pow(r, j + 1)) / (j + 1), i2 = (2 * Math.pow(r, j + 3)) / (j + 3);
+      const i0 = (2 * rp) / (j + 1), i2 = (2 * rp * r2) / (j + 3);
       b0x += dx * i0; b0y += dy * i0; b0z += dz * i0;
       b2x += dx * i2; b2y += dy * i2; b2z += dz * i2;
     } else {
-      const i1 = (2 * Math.pow(r, j + 2)) / (j + 2);
+      const i1 = (2 * rp * r) / (j + 2);
       b1x += dx * i1; b1y += dy * i1; b1z += dz * i1;
     }
+    rp *= r;
   }
   const k0 = S, k1 = (S * S) / sigma, k2 = (S * S * S) / (sigma * sigma);
   b0x *= k0; b0y *= k0; b0z *= k0; b1x *= k1; b1y *= k1; b1z *= k1; b2x *= k2; b2y *= k2; b2z *= k2;
