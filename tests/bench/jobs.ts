@@ -28,6 +28,8 @@ import { startJobQueue } from '../../server/jobs/job-queue.ts';
 import { createRobustnessRun } from '../../server/jobs/robustness/robustness-runs.ts';
 import { BUILT_IN_SUITS } from '../../server/model/suits/index.ts';
 import { compileForBody, evaluateSequence } from '../../server/planning/evaluate-steps.ts';
+import { robustnessSamples } from '../../server/planning/robustness.ts';
+import { DEFAULT_ROBUSTNESS_MODEL } from '../../shared/contracts/robustness.ts';
 import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 
@@ -124,6 +126,12 @@ async function main() {
       return { median: median(times), times, figures };
     };
 
+    // Reference: the same samples in this process, one thread, no queue (the work the workers share).
+    const t0 = performance.now();
+    robustnessSamples({ body, sequence, target, toleranceDeg: 2, seed: 1, model: DEFAULT_ROBUSTNESS_MODEL }, 0, SAMPLES);
+    const directS = (performance.now() - t0) / 1000;
+    log(`  one thread in this process, no queue: ${directS.toFixed(2)} s (load ${load()})`);
+
     workers.push(await startWorker(env, 'bench worker 1'));
     await new Promise((r) => setTimeout(r, 1000));
     const one = await measure('one worker process');
@@ -140,7 +148,7 @@ async function main() {
     log('');
     log(`| workers | wall time, enqueue → merged result (median of ${REPEATS}) | ratio |`);
     log('|---|---|---|');
-    log(`| 1 | ${one.median.toFixed(2)} s | 1.00 |`);
+    log(`| 1 | ${one.median.toFixed(2)} s | 1.00 (queue overhead vs one thread without a queue, measured once: ${(one.median / directS).toFixed(2)}×) |`);
     log(`| 2 | ${two.median.toFixed(2)} s | ${ratio.toFixed(2)}× faster |`);
     log(`Identical figures with one and two workers: yes (open-loop p95 ${f.openLoopP95Deg.toFixed(2)}°, feedback p95 ${f.feedbackP95Deg.toFixed(2)}°).`);
     log(`Load average (1/5/15 min) before ${loadBefore}, after ${loadAfter}; ${os.cpus().length} cores shared with whatever else runs.`);
@@ -149,7 +157,7 @@ async function main() {
     if (values.json) {
       console.log(JSON.stringify({
         oneWorkerS: Number(one.median.toFixed(3)), twoWorkersS: Number(two.median.toFixed(3)), ratio: Number(ratio.toFixed(3)),
-        samples: SAMPLES, chunkSize: CHUNK, repeats: REPEATS, oneWorkerRunsS: one.times, twoWorkersRunsS: two.times,
+        directOneThreadS: Number(directS.toFixed(3)), samples: SAMPLES, chunkSize: CHUNK, repeats: REPEATS, oneWorkerRunsS: one.times, twoWorkersRunsS: two.times,
         loadBefore, loadAfter,
       }));
     }
