@@ -4,6 +4,7 @@ import { useSessionQuery } from '@/components/api/use-session';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { Screen } from '@/components/ui/Screen';
+import { RecordingUploadPanel } from '@/components/recordings/RecordingUploadPanel';
 import { UploadPanel } from './UploadPanel';
 
 /** The Crew tab's upload page (planners and admins). */
@@ -18,7 +19,9 @@ export function UploadScreen() {
       subtitle="Import several crew members from a CSV, or replace one member's regression with a measured segment table"
       actions={<Button label="Back to crew" icon="chevron-left" size="sm" variant="secondary" onPress={() => router.replace('/crew')} />}
     >
-      {allowed ? <UploadPanel /> : <EmptyState icon="lock" title="Planners upload measurements" body="Your role reads crew profiles but does not import them." />}
+      {allowed ? <UploadPanel /> : null}
+      {allowed ? <RecordingUploadPanel /> : null}
+      {allowed ? null : <EmptyState icon="lock" title="Planners upload measurements" body="Your role reads crew profiles but does not import them." />}
     </Screen>
   );
 }

@@ -1,3 +1,4 @@
+import { RecordedSweepPicker } from '@/components/recordings/RecordedSweepPicker';
 import { useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
@@ -158,6 +159,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           <Button label="Add step" icon="plus" variant="secondary" size="sm" onPress={() => setEditing({ index: draft.steps.length, step: defaultPrimitive('arm_orbit'), isNew: true })} />
         ) : null}
       </View>
+      {editable ? <RecordedSweepPicker onPick={(step) => setEditing({ index: draft.steps.length, step, isNew: true })} /> : null}
       <StepList
         steps={draft.steps}
         selected={wide ? editing?.index : null}
