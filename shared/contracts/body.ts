@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { symmetricEigenvalues3 } from '../math/mat3.ts';
-import { inertiaTensor } from './body-inertia.ts';
+import { inertiaTensor } from '../kinematics/inertia-tensor.ts';
 import { type ContractIssue, type ContractResult, zodIssuesToContract } from './contract-issue.ts';
 
 const finite = (what: string) =>

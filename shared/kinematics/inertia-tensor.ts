@@ -1,6 +1,7 @@
 /**
  * The body contract's inertia array as a tensor, without zod (shared/contracts/body.ts re-exports it
- * beside the schemas), so the 3D view's code does not carry the zod runtime.
+ * beside the schemas), so the 3D view's code does not carry the zod runtime. In shared/kinematics so
+ * that ENGINE_VERSION hashes it with the engine's other inputs.
  */
 
 /** Full symmetric inertia tensor (row-major 3×3, kg·m²) of a contract inertia array. */
