@@ -5,6 +5,7 @@ import { colors, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { AuditEvent } from '@/shared/contracts/team';
 import { auditActionLabel } from './audit-action-labels';
+import { auditDetailLines, auditSentence } from './audit-sentence';
 
 /** Props of {@link AuditEventDetail}. */
 export interface AuditEventDetailProps {
@@ -15,16 +16,18 @@ export interface AuditEventDetailProps {
 export function AuditEventDetail({ event }: AuditEventDetailProps) {
   const rows: [string, string][] = [
     ['When', formatDateTime(event.at)],
-    ['Done by', event.actorEmail ?? 'system'],
-    ['Action', event.action],
-    ['Object', `${event.objectType}${event.objectId ? ` · ${event.objectId}` : ''}`],
+    ['Done by', event.actorName ? `${event.actorName} (${event.actorEmail})` : (event.actorEmail ?? 'system')],
+    ['What', auditActionLabel(event.action)],
+    ['Object', event.objectLabel ?? event.objectType.replace(/_/g, ' ')],
     ['Event number', String(event.id)],
   ];
+  const lines = auditDetailLines(event);
   return (
     <View style={styles.wrap}>
       <Text variant="title" role="heading" aria-level={2}>
         {auditActionLabel(event.action)}
       </Text>
+      <Text>{auditSentence(event)}</Text>
       <View style={styles.table}>
         {rows.map(([k, v]) => (
           <View key={k} style={styles.row}>
@@ -41,10 +44,22 @@ export function AuditEventDetail({ event }: AuditEventDetailProps) {
         Recorded detail
       </Text>
       <View style={styles.code}>
-        <Text variant="caption" style={styles.mono} selectable>
-          {event.detail == null ? '—' : JSON.stringify(event.detail, null, 2)}
-        </Text>
+        {lines.length ? (
+          lines.map((l) => (
+            <Text key={l} variant="caption" selectable>
+              {l}
+            </Text>
+          ))
+        ) : (
+          <Text variant="caption" tone="muted">
+            Nothing more was recorded.
+          </Text>
+        )}
       </View>
+      <Text variant="caption" tone="muted" selectable>
+        Code {event.action} · {event.objectType}
+        {event.objectId ? ` ${event.objectId}` : ''}
+      </Text>
     </View>
   );
 }
@@ -55,6 +70,5 @@ const styles = StyleSheet.create({
   row: { flexDirection: 'row', gap: spacing.md },
   key: { width: 110 },
   value: { flex: 1 },
-  code: { backgroundColor: colors.background, borderRadius: radii.md, padding: spacing.md, borderWidth: 1, borderColor: colors.border },
-  mono: { fontFamily: 'ui-monospace, SFMono-Regular, Menlo, monospace', color: colors.text },
+  code: { backgroundColor: colors.background, borderRadius: radii.md, padding: spacing.md, borderWidth: 1, borderColor: colors.border, gap: spacing.xxs },
 });

@@ -4,14 +4,13 @@ import type { AuditFilters } from '@/components/api/use-audit';
 import { useAuditQuery } from '@/components/api/use-audit';
 import { formatDateTime } from '@/components/format/date-time';
 import { spacing } from '@/components/theme';
-import { Badge } from '@/components/ui/Badge';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { ListRow } from '@/components/ui/ListRow';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
 import type { AuditEvent } from '@/shared/contracts/team';
-import { auditActionLabel } from './audit-action-labels';
+import { auditSentence } from './audit-sentence';
 
 /** Props of {@link AuditEventList}. */
 export interface AuditEventListProps {
@@ -36,12 +35,11 @@ export function AuditEventList({ filters, selectedId, onSelect }: AuditEventList
       {events.data.map((e) => (
         <ListRow
           key={e.id}
-          title={auditActionLabel(e.action)}
-          subtitle={`${formatDateTime(e.at)} · ${e.actorEmail ?? 'system'}`}
-          trailing={<Badge label={e.action} />}
+          title={auditSentence(e)}
+          subtitle={formatDateTime(e.at)}
           selected={e.id === selectedId}
           onPress={() => onSelect(e)}
-          accessibilityLabel={`${e.action} by ${e.actorEmail ?? 'system'} at ${formatDateTime(e.at)}`}
+          accessibilityLabel={`${e.action} by ${e.actorEmail ?? 'system'} at ${formatDateTime(e.at)}: ${auditSentence(e)}`}
         />
       ))}
     </View>

@@ -10,6 +10,7 @@ import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { FormTextField } from '@/components/ui/FormTextField';
 import { Select } from '@/components/ui/Select';
+import { AUDIT_ACTION_OPTIONS, AUDIT_DATE_PRESETS, presetDays } from './audit-sentence';
 import { auditFilterFormSchema, countActiveFilters, EMPTY_AUDIT_FILTER_FORM, type AuditFilterForm } from './audit-filter-form';
 
 /** Props of {@link AuditFiltersPanel}. */
@@ -23,7 +24,8 @@ export function AuditFiltersPanel({ value, onApply }: AuditFiltersPanelProps) {
   const wide = useIsWide();
   const [open, setOpen] = useState(wide);
   const users = useTeamUsersQuery();
-  const { control, handleSubmit, reset } = useForm({ resolver: zodResolver(auditFilterFormSchema), defaultValues: value });
+  const { control, handleSubmit, reset, setValue } = useForm({ resolver: zodResolver(auditFilterFormSchema), defaultValues: value });
+  const [preset, setPreset] = useState('');
   const active = countActiveFilters(value);
   const apply = handleSubmit((v) => {
     onApply(v);
@@ -45,7 +47,13 @@ export function AuditFiltersPanel({ value, onApply }: AuditFiltersPanelProps) {
     <Card padding="md">
       <View style={styles.grid} role="form" aria-label="Audit filters">
         <View style={styles.cell}>
-          <FormTextField control={control} name="action" label="Action" placeholder="e.g. team.invite" autoCapitalize="none" />
+          <Controller
+            control={control}
+            name="action"
+            render={({ field }) => (
+              <Select label="Action" placeholder="Any action" value={field.value} onChange={field.onChange} options={AUDIT_ACTION_OPTIONS} />
+            )}
+          />
         </View>
         <View style={styles.cell}>
           <FormTextField control={control} name="objectType" label="Object type" placeholder="e.g. user" autoCapitalize="none" />
@@ -66,6 +74,22 @@ export function AuditFiltersPanel({ value, onApply }: AuditFiltersPanelProps) {
           />
         </View>
         <View style={styles.cell}>
+          <Select
+            label="When"
+            placeholder="Any time"
+            value={preset}
+            onChange={(v) => {
+              setPreset(v);
+              const p = AUDIT_DATE_PRESETS.find((x) => x.value === v);
+              const days = p ? presetDays(p.days) : { since: '', until: '' };
+              setValue('since', days.since);
+              setValue('until', days.until);
+            }}
+            options={AUDIT_DATE_PRESETS.map((p) => ({ value: p.value, label: p.label }))}
+            hint="Or type the days below"
+          />
+        </View>
+        <View style={styles.cell}>
           <FormTextField control={control} name="since" label="From (UTC day)" placeholder="YYYY-MM-DD" />
         </View>
         <View style={styles.cell}>
@@ -83,6 +107,7 @@ export function AuditFiltersPanel({ value, onApply }: AuditFiltersPanelProps) {
           size="sm"
           onPress={() => {
             reset(EMPTY_AUDIT_FILTER_FORM);
+            setPreset('');
             onApply(EMPTY_AUDIT_FILTER_FORM);
           }}
         />

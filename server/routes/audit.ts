@@ -5,6 +5,7 @@ import { auditEvents, users } from '../../db/schema/index.ts';
 import { auditQuerySchema, type AuditQuery } from '../../shared/contracts/team.ts';
 import type { AppContext } from '../app-context.ts';
 import { validate } from '../http/validate.ts';
+import { auditObjectLabels } from '../audit/audit-labels.ts';
 
 /** Admin: read the audit log, newest first, filtered by actor, action, object and time. */
 export function auditRouter(ctx: AppContext): Router {
@@ -19,16 +20,17 @@ export function auditRouter(ctx: AppContext): Router {
     if (q.since) where.push(gte(auditEvents.at, new Date(q.since)));
     if (q.until) where.push(lte(auditEvents.at, new Date(q.until)));
     const rows = await ctx.db
-      .select({ e: auditEvents, email: users.email })
+      .select({ e: auditEvents, email: users.email, name: users.name })
       .from(auditEvents)
       .leftJoin(users, eq(users.id, auditEvents.actorId))
       .where(where.length ? and(...where) : undefined)
       .orderBy(desc(auditEvents.id))
       .limit(q.limit);
+    const labels = await auditObjectLabels(ctx.db, rows.map(({ e }) => e));
     res.json({
-      events: rows.map(({ e, email }) => ({
-        id: e.id, at: e.at.toISOString(), actorId: e.actorId, actorEmail: email, action: e.action,
-        objectType: e.objectType, objectId: e.objectId, detail: e.detail,
+      events: rows.map(({ e, email, name }) => ({
+        id: e.id, at: e.at.toISOString(), actorId: e.actorId, actorEmail: email, actorName: name, action: e.action,
+        objectType: e.objectType, objectId: e.objectId, objectLabel: labels.get(`${e.objectType}:${e.objectId}`) ?? null, detail: e.detail,
       })),
     });
   });

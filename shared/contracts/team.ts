@@ -86,9 +86,13 @@ export const auditEventSchema = z.object({
   at: z.string(),
   actorId: z.string().nullable(),
   actorEmail: z.string().nullable(),
+  /** The actor's name; null for the system. */
+  actorName: z.string().nullable().default(null),
   action: z.string(),
   objectType: z.string(),
   objectId: z.string().nullable(),
+  /** The object's name as it reads now ("'Quarter turn left' v2"), or null when gone or unnamed. */
+  objectLabel: z.string().nullable().default(null),
   detail: z.unknown(),
 });
 export type AuditEvent = z.infer<typeof auditEventSchema>;

@@ -79,6 +79,10 @@ describe('user administration', () => {
     expect(res.status).toBe(200);
     expect(res.body.events.length).toBe(2);
     expect(res.body.events.every((e: { action: string }) => e.action === 'team.update_user')).toBe(true);
+    // names for a readable log: who did it and to whom, not only ids
+    const admin1 = DEMO_PEOPLE.find((p) => p.role === 'admin')!;
+    const trainee = DEMO_PEOPLE.filter((p) => p.role === 'trainee')[2];
+    expect(res.body.events[0]).toMatchObject({ actorName: admin1.name, objectType: 'user', objectLabel: trainee.name });
   });
 
   it('links a trainee to another crew member without signing them out; an unknown crew member is named (400)', async () => {
