@@ -36,6 +36,7 @@ export function AuditEventList({ filters, selectedId, onSelect }: AuditEventList
         <ListRow
           key={e.id}
           title={auditSentence(e)}
+          titleLines={3}
           subtitle={formatDateTime(e.at)}
           selected={e.id === selectedId}
           onPress={() => onSelect(e)}

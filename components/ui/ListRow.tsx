@@ -20,18 +20,20 @@ export interface ListRowProps {
   selected?: boolean;
   /** Makes the row a button; rows without it are plain. */
   onPress?: () => void;
+  /** Lines the title may take before it is cut with an ellipsis; default 1 (a name). */
+  titleLines?: number;
   /** Accessible name; default the title. */
   accessibilityLabel?: string;
   testID?: string;
 }
 
 /** A list row for SplitView lists: title, subtitle, leading and trailing slots, selected highlight. */
-export function ListRow({ title, subtitle, leading, trailing, selected = false, onPress, accessibilityLabel, testID }: ListRowProps) {
+export function ListRow({ title, subtitle, leading, trailing, selected = false, onPress, titleLines = 1, accessibilityLabel, testID }: ListRowProps) {
   const body = (
     <>
       {leading}
       <View style={styles.text}>
-        <Text variant="bodyStrong" numberOfLines={1}>
+        <Text variant="bodyStrong" numberOfLines={titleLines}>
           {title}
         </Text>
         {subtitle ? (
