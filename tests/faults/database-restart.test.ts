@@ -15,6 +15,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { loadConfig } from '../../server/config.ts';
+import { createContext } from '../../server/context.ts';
+import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
 import { startLocalCluster, type LocalCluster } from '../../server/scripts/postgres-cluster.ts';
 import { serve, type RunningServer } from '../../server/scripts/serve.ts';
 import { TEST_BCRYPT_COST } from '../support/test-app.ts';
@@ -24,6 +26,9 @@ const RECOVERY_LIMIT_MS = 10_000;
 
 let cluster: LocalCluster;
 let server: RunningServer;
+// The API only sends jobs; a worker (here in this process, with its own pool) runs them, as `npm run worker` does.
+let worker: RunningJobQueue;
+let workerCtx: ReturnType<typeof createContext>;
 let token: string;
 const uncaught: unknown[] = [];
 const onUncaught = (err: unknown) => uncaught.push(err);
@@ -59,12 +64,16 @@ beforeAll(async () => {
     BCRYPT_COST: String(TEST_BCRYPT_COST), LOG_LEVEL: 'silent', SIGNIN_RATE_LIMIT: '1000', PUBLIC_URL: 'http://127.0.0.1:9',
   });
   server = await serve(config, { seed: true });
+  workerCtx = createContext(config);
+  worker = await startJobQueue(workerCtx, { worker: true, pollingIntervalS: 0.5 });
   const planner = DEMO_PEOPLE.find((p) => p.role === 'planner')!;
   const res = await fetch(`${server.url}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: planner.email, password: DEMO_PASSWORD }) });
   token = ((await res.json()) as { token: string }).token;
 }, 120_000);
 
 afterAll(async () => {
+  await worker?.stop();
+  await workerCtx?.close();
   await server?.close();
   cluster?.stop();
   process.off('uncaughtException', onUncaught);

@@ -275,7 +275,7 @@ describe('comparison and audit', () => {
     await decide(versionId, 'clear');
     const rows = await t.ctx.db.select({ action: auditEvents.action }).from(auditEvents)
       .where(and(eq(auditEvents.objectType, 'sequence_version'), eq(auditEvents.objectId, versionId)));
-    expect(rows.map((r) => r.action).sort()).toEqual(['sequence_version.clear', 'sequence_version.comment', 'sequence_version.save', 'sequence_version.submit']);
+    expect(rows.map((r) => r.action).sort()).toEqual(['robustness.queued', 'sequence_version.clear', 'sequence_version.comment', 'sequence_version.save', 'sequence_version.submit']);
     const created = await t.ctx.db.select().from(auditEvents).where(eq(auditEvents.action, 'sequence.create'));
     expect(created.length).toBeGreaterThan(0);
   });
