@@ -177,10 +177,14 @@ export function fitFamilies(body: Body, rateLimitDegS: number, groups: readonly 
       const shape = spec.make(size, v, r);
       if (!shape) return 'no centre of the sweep fits the ranges';
       const p = { ...shape, cycles: 1, periodS: 2 } as Primitive;
-      const parsed = primitiveSchema.safeParse(p);
-      if (!parsed.success) return parsed.error.issues[0]?.message ?? 'invalid primitive';
       const w = sweepWithinRanges(p, r);
-      return w.ok ? null : w.reason;
+      if (!w.ok) return w.reason;
+      const parsed = primitiveSchema.safeParse(p);
+      if (!parsed.success) {
+        const field = String(parsed.error.issues[0]?.path.join('.') ?? 'a field');
+        return `its ${field} would be ${String((p as Record<string, unknown>)[field])}, outside what the step allows`;
+      }
+      return null;
     };
     // Largest legal size for both variants, scanning down from the comfort maximum.
     let max = 0, why = '';

@@ -119,7 +119,9 @@ export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, s
   const seeds = searchSeeds(tables, goal, limits);
   if (!seeds.length) {
     const axes = [...new Set(families.map((f) => f.axis))];
-    notes.push(`No composition of up to three phases reaches the target within ${target.toleranceDeg}° using sweeps that turn about ${axes.join(', ')} within this body's joint ranges and the ${target.rateLimitDegS}°/s rate limit.`);
+    const missing = (['yaw', 'pitch', 'roll'] as const).filter((a) => !axes.includes(a));
+    notes.push(`No composition of up to three phases reaches the target within ${target.toleranceDeg}° using the sweeps that fit this body's joint ranges (3° margin) and the ${target.rateLimitDegS}°/s rate limit`
+      + (missing.length ? `: none of them turns the body mainly about ${missing.join(' or ')}.` : '.'));
     return { candidates: [], notes, timings };
   }
   const refined = refineSeeds(body, goal, seeds, settings.maxCandidates + EXTRA_SEEDS, limits, progress);

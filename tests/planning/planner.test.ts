@@ -77,3 +77,21 @@ describe('planner on a cabin-clothed demo crew member', () => {
     checkBest(cabin, sequenceTargetSchema.parse({ mode: 'axis_angle', axisAngle: { axis: [1, 0, 0], angleDeg: 45 }, toleranceDeg: 2 }));
   }, 120_000);
 });
+
+describe('targets the planner cannot reach', () => {
+  it('says which sweep breaks which joint range when none fits the body', () => {
+    // Hips and knees held within ±4°, shoulder abduction within 0…4°: no leg sweep and no arm circle fits.
+    const body = demoBody('reed', 1);
+    const narrowed = {
+      ...body,
+      segments: body.segments.map((s) => (s.joint ? { ...s, joint: { ...s.joint, dofs: s.joint.dofs.map((d) => (
+        /hip_|knee/.test(d.name) ? { ...d, min: -4, max: 4 } : /sh_abd/.test(d.name) ? { ...d, min: 0, max: 4 } : d)) } } : s)),
+    };
+    const { candidates, notes } = planManeuver({ body: narrowed, target: ypr(0, 60, 0), settings, skipRobustness: true });
+    expect(candidates).toEqual([]);
+    const text = notes.join(' ');
+    expect(text).toMatch(/leg pedal not used: .*hip_flex would go/);
+    expect(text).toMatch(/forward arm circles not used: .*sh_abd would go above 1°/);
+    expect(text).toMatch(/No sweep fits this body's joint ranges/);
+  }, 60_000);
+});
