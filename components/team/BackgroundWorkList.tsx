@@ -34,6 +34,7 @@ const QUEUE_LABELS: Record<string, string> = {
   'maneuver-planning': 'Planning',
   'robustness-chunk': 'Robustness chunks',
   'sequence-reverification': 'Re-verification',
+  'invitation-mail': 'Invitation e-mail',
 };
 
 /**
