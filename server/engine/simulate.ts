@@ -29,7 +29,7 @@ export interface EngineOptions {
   atol?: number;
   /** Skip the momentum audit (reported as NaN); only for benchmarks isolating the integrator. */
   skipAudit?: boolean;
-  /** Search mode (simulateFinal): final attitude, range violations and peak joint rates only. */
+  /** Search mode (as simulateFinal, which every entry point then runs): final attitude, range violations and peak joint rates only. */
   finalOnly?: boolean;
 }
 
@@ -72,6 +72,7 @@ export function simulateModelFinal(model: BodyModel, plan: MotionPlan, options: 
 
 /** Simulates a compiled model and plan (the benchmark's entry: no re-compilation). */
 export function simulateModel(model: BodyModel, plan: MotionPlan, options: EngineOptions = {}): SimulationResult {
+  if (options.finalOnly) return simulateModelFinal(model, plan, options);
   const rateHz = options.rateHz ?? DEFAULT_RATE_HZ;
   const rtol = options.rtol ?? DEFAULT_RTOL;
   const atol = options.atol ?? rtol;
