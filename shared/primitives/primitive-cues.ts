@@ -10,6 +10,12 @@ export function secondsText(s: number): string {
   return `${Number(s.toFixed(2))} s`;
 }
 
+/** An angle a person can aim for: whole degrees (planner-refined values carry many decimals). */
+export function degreesText(deg: number): string {
+  const r = Math.round(deg);
+  return `${Object.is(r, -0) ? 0 : r}°`;
+}
+
 /** Repetitions as text: "once", "twice", "4 times". */
 export function timesText(n: number): string {
   return n === 1 ? 'once' : n === 2 ? 'twice' : `${n} times`;
@@ -36,7 +42,7 @@ export function cueFor(p: Primitive): string {
   const rep = 'cycles' in p ? `, ${timesText(p.cycles)}, ${secondsText(p.periodS)} each` : '';
   switch (p.kind) {
     case 'arm_orbit': {
-      const where = p.centre === 'custom' ? `raised ${p.centreFlexDeg ?? 0}° and out ${p.centreAbdDeg ?? 0}°` : ORBIT_CENTRE_WORDS[p.centre];
+      const where = p.centre === 'custom' ? `raised ${degreesText(p.centreFlexDeg ?? 0)} and out ${degreesText(p.centreAbdDeg ?? 0)}` : ORBIT_CENTRE_WORDS[p.centre];
       // Same way round: the left arm's travel names the direction (the right arm's is the reverse).
       const travel = p.arms === 'both' && p.pairing === 'same_way' ? `the same way round (left arm ${p.travel})` : p.travel;
       return `${limbs(p.arms, 'arm')} ${where}, ${sizeWord(p.halfAngleDeg)} circles ${travel}${rep}`;
@@ -54,7 +60,7 @@ export function cueFor(p: Primitive): string {
       return `legs together and straight, ${sizeWord(p.halfAngleDeg)} hip circles, feet to the ${p.turn === 'to_left' ? 'left' : 'right'} at the front${rep}`;
     case 'pose_shift': {
       const target = p.posture === 'custom'
-        ? `custom posture (${Object.entries(p.custom ?? {}).map(([d, v]) => `${d} ${v}°`).join(', ')})`
+        ? `custom posture (${Object.entries(p.custom ?? {}).map(([d, v]) => `${d} ${degreesText(v)}`).join(', ')})`
         : POSTURE_LABELS[p.posture];
       return `move smoothly to ${target} over ${secondsText(p.durationS)}`;
     }

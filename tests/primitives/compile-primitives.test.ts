@@ -176,6 +176,9 @@ describe('what the primitives mean, checked with gl-matrix rotations', () => {
 describe('cues', () => {
   it('arm orbit: "both arms forward, small circles outward, 4 times, 1.5 s each"', () => {
     expect(cueFor({ kind: 'arm_orbit', arms: 'both', centre: 'forward', halfAngleDeg: 15, travel: 'outward', cycles: 4, periodS: 1.5 })).toBe('both arms forward, small circles outward, 4 times, 1.5 s each');
+    // A planner-refined custom centre reads in whole degrees a person can aim for.
+    expect(cueFor({ kind: 'arm_orbit', arms: 'both', centre: 'custom', centreFlexDeg: -0.3, centreAbdDeg: 14.28074280433176, halfAngleDeg: 8, travel: 'inward', pairing: 'same_way', cycles: 10, periodS: 1.2 }))
+      .toBe('both arms raised 0° and out 14°, small circles the same way round (left arm inward), 10 times, 1.2 s each');
   });
   it('arm loop, one arm, once: singular elbow and "once"', () => {
     expect(cueFor({ kind: 'arm_loop', arms: 'right', plane: 'frontal', swingDeg: 40, elbowDeg: 20, bendOn: 'return_swing', cycles: 1, periodS: 2 }))
