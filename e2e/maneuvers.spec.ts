@@ -163,19 +163,22 @@ test('saving over a version someone else saved meanwhile is refused with a clear
   const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; currentVersion: number | null }[] };
   const member = members.find((m) => m.currentVersion != null);
   expect(member, 'a crew member with a profile').toBeTruthy();
+  // The page's session cookie rides along, so these API calls say their Origin as the browser would.
+  const origin = { Origin: new URL(baseURL!).origin };
   const created = await page.request.post('/api/sequences', {
+    headers: origin,
     data: { crewMemberId: member!.id, name: `Stale save check ${Date.now()}`, target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: 3, roll: 0 } } },
   });
   expect(created.status()).toBe(201);
   const sequence = (await created.json()) as { id: string };
-  const first = await page.request.post(`/api/sequences/${sequence.id}/versions`, { data: { primitives: [{ kind: 'pause', durationS: 1 }], baseVersion: 0 } });
+  const first = await page.request.post(`/api/sequences/${sequence.id}/versions`, { headers: origin, data: { primitives: [{ kind: 'pause', durationS: 1 }], baseVersion: 0 } });
   expect(first.status()).toBe(201);
 
   await page.goto(`/maneuvers/${sequence.id}?panel=steps`);
   await expect(page.getByRole('list', { name: 'Steps' }).getByRole('listitem')).toHaveCount(1);
 
   // Someone else saves version 2 meanwhile.
-  const other = await page.request.post(`/api/sequences/${sequence.id}/versions`, { data: { primitives: [{ kind: 'pause', durationS: 2 }], baseVersion: 1 } });
+  const other = await page.request.post(`/api/sequences/${sequence.id}/versions`, { headers: origin, data: { primitives: [{ kind: 'pause', durationS: 2 }], baseVersion: 1 } });
   expect(other.status()).toBe(201);
 
   // This editor still started from version 1: its save is refused, and says so.
