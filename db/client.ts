@@ -13,6 +13,14 @@ export interface DatabaseOptions {
   onConnectionError?: (err: Error) => void;
 }
 
+/** Set on errors from opening a database connection, so they are told apart from other services' network errors. */
+export const DATABASE_CONNECT_ERROR = Symbol.for('holonaut.databaseConnectError');
+
+function markConnectError(err: unknown): unknown {
+  if (err && typeof err === 'object') (err as Record<symbol, boolean>)[DATABASE_CONNECT_ERROR] = true;
+  return err;
+}
+
 /** How long a request waits for a connection before it fails (and answers 503), ms. */
 export const CONNECT_TIMEOUT_MS = 5_000;
 
@@ -32,6 +40,12 @@ export function createDatabase(url: string, opts: DatabaseOptions = {}): { db: D
   pool.on('connect', (client) => {
     client.on('error', () => undefined);
   });
+  // Mark connect failures (pool.query connects through this too): "ECONNREFUSED" alone could be any service.
+  const connect = pool.connect.bind(pool) as (cb?: (err: Error | undefined, client?: pg.PoolClient, done?: (release?: unknown) => void) => void) => Promise<pg.PoolClient> | void;
+  pool.connect = ((cb?: (err: Error | undefined, client?: pg.PoolClient, done?: (release?: unknown) => void) => void) => {
+    if (cb) return connect((err, client, done) => cb(err ? (markConnectError(err) as Error) : undefined, client, done));
+    return (connect() as Promise<pg.PoolClient>).catch((err: unknown) => Promise.reject(markConnectError(err)));
+  }) as typeof pool.connect;
   const db = drizzle(pool, { schema });
   return { db, pool };
 }

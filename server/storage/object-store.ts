@@ -1,6 +1,11 @@
 import { CreateBucketCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3';
 
 import type { Config } from '../config.ts';
+import { HttpError } from '../http/http-error.ts';
+
+/** The error a request gets while object storage is down. */
+const unavailable = (err: unknown) =>
+  new HttpError(503, 'storage_unavailable', `File storage is not answering (${err instanceof Error ? err.name || err.message : 'error'}); nothing was saved. Try the upload again in a minute.`, 'file');
 
 /** Raw files (uploads) kept in S3-compatible object storage. */
 export interface ObjectStore {
@@ -32,14 +37,27 @@ export function createObjectStore(config: Config): ObjectStore {
         throw err;
       }));
   return {
+    // A storage failure is a 503 naming the service (never mistaken for the database's), and the
+    // bucket is checked again next time: the service may have come back empty.
     async put(key, body, contentType) {
-      await ensureBucket();
-      await client.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: contentType }));
+      try {
+        await ensureBucket();
+        await client.send(new PutObjectCommand({ Bucket, Key: key, Body: body, ContentType: contentType }));
+      } catch (err) {
+        bucketReady = null;
+        throw unavailable(err);
+      }
     },
     async get(key) {
-      await ensureBucket();
-      const out = await client.send(new GetObjectCommand({ Bucket, Key: key }));
-      return Buffer.from(await out.Body!.transformToByteArray());
+      try {
+        await ensureBucket();
+        const out = await client.send(new GetObjectCommand({ Bucket, Key: key }));
+        return Buffer.from(await out.Body!.transformToByteArray());
+      } catch (err) {
+        bucketReady = null;
+        if ((err as { name?: string }).name === 'NoSuchKey') throw new HttpError(404, 'not_found', 'The stored file is missing.');
+        throw unavailable(err);
+      }
     },
   };
 }

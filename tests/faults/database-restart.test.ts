@@ -15,10 +15,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { loadConfig } from '../../server/config.ts';
-import { createContext } from '../../server/context.ts';
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
 import { startLocalCluster, type LocalCluster } from '../../server/scripts/postgres-cluster.ts';
 import { serve, type RunningServer } from '../../server/scripts/serve.ts';
+import { startWorkerProcess, type WorkerProcess } from '../../server/scripts/worker-process.ts';
 import { TEST_BCRYPT_COST } from '../support/test-app.ts';
 
 // Upper bound for "serves again within seconds of the database returning" (the figure itself is printed).
@@ -26,10 +25,10 @@ const RECOVERY_LIMIT_MS = 10_000;
 
 let cluster: LocalCluster;
 let server: RunningServer;
-// The API only sends jobs; a worker (here in this process, with its own pool) runs them, as `npm run worker` does.
-let worker: RunningJobQueue;
-let workerCtx: ReturnType<typeof createContext>;
 let token: string;
+let worker: WorkerProcess;
+let workerPid: number | undefined;
+const workerLog: string[] = [];
 const uncaught: unknown[] = [];
 const onUncaught = (err: unknown) => uncaught.push(err);
 
@@ -59,13 +58,14 @@ beforeAll(async () => {
   process.on('unhandledRejection', onUncaught);
   const dir = mkdtempSync(path.join(os.tmpdir(), 'hn-pgf-'));
   cluster = await startLocalCluster({ dir, database: 'holonaut', throwaway: true, log: () => undefined });
-  const config = loadConfig({
-    NODE_ENV: 'test', DATABASE_URL: cluster.url, PORT: '0', JWT_SECRET: 'test-secret-that-is-long-enough-0123456789',
+  const env: NodeJS.ProcessEnv = {
+    NODE_ENV: 'test' as const, DATABASE_URL: cluster.url, PORT: '0', JWT_SECRET: 'test-secret-that-is-long-enough-0123456789',
     BCRYPT_COST: String(TEST_BCRYPT_COST), LOG_LEVEL: 'silent', SIGNIN_RATE_LIMIT: '1000', PUBLIC_URL: 'http://127.0.0.1:9',
-  });
-  server = await serve(config, { seed: true });
-  workerCtx = createContext(config);
-  worker = await startJobQueue(workerCtx, { worker: true, pollingIntervalS: 0.5 });
+  };
+  server = await serve(loadConfig(env), { seed: true });
+  // The job queues run in a worker process, as `npm start` runs them; it must live through the restart too.
+  worker = startWorkerProcess(process.cwd(), { ...process.env, ...env }, { name: 'fault worker', log: (s) => workerLog.push(s) });
+  workerPid = worker.pid();
   const planner = DEMO_PEOPLE.find((p) => p.role === 'planner')!;
   const res = await fetch(`${server.url}/api/auth/sign-in`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: planner.email, password: DEMO_PASSWORD }) });
   token = ((await res.json()) as { token: string }).token;
@@ -73,7 +73,6 @@ beforeAll(async () => {
 
 afterAll(async () => {
   await worker?.stop();
-  await workerCtx?.close();
   await server?.close();
   cluster?.stop();
   process.off('uncaughtException', onUncaught);
@@ -168,7 +167,7 @@ describe('PostgreSQL restart while the server runs', () => {
     expect(uncaught).toEqual([]);
   }, 120_000);
 
-  it('runs background jobs again after the restart (pg-boss reconnects)', async () => {
+  it('the worker process runs background jobs again after the restart (pg-boss reconnects)', async () => {
     const crew = await api('GET', '/api/crew');
     const memberId = (crew.body.members as { id: string; currentVersion: unknown }[]).find((m) => m.currentVersion)!.id;
     const seq = await api('POST', '/api/sequences', { crewMemberId: memberId, name: 'After the restart', target: { mode: 'ypr', yprDeg: { yaw: 90, pitch: 0, roll: 0 }, toleranceDeg: 2 } });
@@ -182,6 +181,9 @@ describe('PostgreSQL restart while the server runs', () => {
       state = String((await api('GET', `/api/sequences/${seq.body.id as string}/plans/${plan.body.planId as string}`)).body.state);
     }
     expect(state).toBe('done');
+    // The same worker process did it: it never stopped.
+    expect(worker.pid()).toBe(workerPid);
+    expect(workerLog.filter((l) => /stopped/.test(l))).toEqual([]);
     expect(uncaught).toEqual([]);
   }, 120_000);
 });
