@@ -19,6 +19,10 @@ test('an admin invites a planner; the invitee follows the e-mailed link, sets a 
   await form.getByRole('button', { name: 'Send invitation' }).click();
   await expect(page.getByText(`Invitation sent to ${email}.`)).toBeVisible();
   await expect(page.getByText(`${email} — valid until`, { exact: false })).toBeVisible();
+  // The e-mail leaves through the outbox; the list follows its delivery.
+  const row = page.getByRole('listitem', { name: `Invitation for ${email}` });
+  await expect(row.getByText('E-mail sent', { exact: true })).toBeVisible({ timeout: 15_000 });
+  await expect(row.getByRole('button', { name: `Resend the invitation to ${email}` })).toBeVisible();
 
   // The invitee, in a browser of their own, follows the link from the mail fake.
   const path = await invitationPathFor(page.request, email);

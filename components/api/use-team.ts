@@ -18,11 +18,27 @@ export function useTeamUsersQuery() {
   });
 }
 
-/** GET /api/team/invitations — open, used and expired invitations, newest first. */
+/** GET /api/team/invitations — open, used, revoked and expired invitations, newest first. */
 export function useTeamInvitationsQuery() {
   return useQuery({
     queryKey: teamKeys.invitations(),
     queryFn: async ({ signal }) => (await apiFetch<{ invitations: Invitation[] }>('/team/invitations', { signal })).invitations,
+    // While an e-mail is being sent (or retried), follow it until it is sent or fails.
+    refetchInterval: (query) => (query.state.data?.some((i) => i.mailState === 'sending' && !i.acceptedAt && !i.revokedAt) ? 3000 : false),
+  });
+}
+
+/** POST /api/team/invitations/:id/resend or /revoke; refreshes the Team lists and the audit log. */
+export function useInvitationActionMutation() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, action }: { id: string; action: 'resend' | 'revoke' }) =>
+      apiFetch<{ invitation: Invitation }>(`/team/invitations/${encodeURIComponent(id)}/${action}`, { method: 'POST', body: {} }),
+    onSuccess: ({ invitation }) => {
+      qc.setQueryData<Invitation[]>(teamKeys.invitations(), (old) => old?.map((i) => (i.id === invitation.id ? invitation : i)));
+      void qc.invalidateQueries({ queryKey: teamKeys.all });
+      void qc.invalidateQueries({ queryKey: ['audit'] });
+    },
   });
 }
 

@@ -74,6 +74,7 @@ export function InviteForm({ onInvited }: InviteFormProps) {
       {sentTo ? (
         <View role="status">
           <Text tone="success">Invitation sent to {sentTo}.</Text>
+          <Text variant="caption" tone="muted">The e-mail goes out in the background (retried if mail is down): the list of invitations shows whether it was sent.</Text>
         </View>
       ) : null}
       <ErrorBanner error={formError} />

@@ -1,12 +1,13 @@
 import type { BadgeTone } from '@/components/ui/Badge';
-import type { Invitation } from '@/shared/contracts/team';
+import type { Invitation, InvitationMailState } from '@/shared/contracts/team';
 
-/** Where an invitation stands: waiting for the invitee, used, or past its expiry. */
-export type InvitationState = 'open' | 'accepted' | 'expired';
+/** Where an invitation stands: waiting for the invitee, used, withdrawn, or past its expiry. */
+export type InvitationState = 'open' | 'accepted' | 'revoked' | 'expired';
 
 /** The state of an invitation at time `now` (ms since epoch). */
-export function invitationState(inv: Pick<Invitation, 'acceptedAt' | 'expiresAt'>, now: number = Date.now()): InvitationState {
+export function invitationState(inv: Pick<Invitation, 'acceptedAt' | 'expiresAt'> & { revokedAt?: string | null }, now: number = Date.now()): InvitationState {
   if (inv.acceptedAt) return 'accepted';
+  if (inv.revokedAt) return 'revoked';
   return new Date(inv.expiresAt).getTime() <= now ? 'expired' : 'open';
 }
 
@@ -14,5 +15,13 @@ export function invitationState(inv: Pick<Invitation, 'acceptedAt' | 'expiresAt'
 export const INVITATION_STATE_BADGE: Record<InvitationState, { label: string; tone: BadgeTone }> = {
   open: { label: 'Waiting', tone: 'accent' },
   accepted: { label: 'Joined', tone: 'success' },
+  revoked: { label: 'Revoked', tone: 'neutral' },
   expired: { label: 'Expired', tone: 'neutral' },
+};
+
+/** Badge label and tone for the delivery of an open invitation's e-mail. */
+export const MAIL_STATE_BADGE: Record<InvitationMailState, { label: string; tone: BadgeTone }> = {
+  sending: { label: 'Sending e-mail', tone: 'teal' },
+  sent: { label: 'E-mail sent', tone: 'success' },
+  failed: { label: 'E-mail failed', tone: 'danger' },
 };
