@@ -57,6 +57,7 @@ beforeAll(async () => {
   const body = JSON.parse(readFileSync('tests/fixtures/bodies/arm-on-trunk.json', 'utf8'));
   const sequence = JSON.parse(readFileSync('tests/fixtures/sequences/arm-cone.json', 'utf8'));
   const measurementsCsv = 'name,call_sign,sex,stature_m,mass_kg,suit,thigh_m\nFuzz Person,FZ,female,1.64,58.2,cabin-clothing,\nFuzz Other,,male,1.79,80.5,,0.45\n';
+  const recordingCsv = 'time_s,r_sh_flex,r_sh_abd\n0,0,0\n0.1,2,1\n0.2,4,2\n0.3,6,3\n';
   const segmentCsv = 'segment,mass_kg,com_x_m,com_y_m,com_z_m,ixx_kgm2,iyy_kgm2,izz_kgm2\nhead_neck,4.6,0,0,0.12,0.024,0.026,0.017\nl_hand,0.4,0,0,-0.07,0.0006,0.0005,0.0002\n';
   const json = (method: JsonRoute['method'], path: string, who: string | null, valid: Record<string, unknown>): JsonRoute => ({ kind: 'json', method, path, as: who, valid });
   routes.push(
@@ -78,12 +79,18 @@ beforeAll(async () => {
     json('post', `/api/sequences/${seqId}/versions`, PEOPLE.planner, { primitives: THREE_STEPS, baseVersion: 1, note: 'fuzz', target }),
     json('post', `/api/sequences/${seqId}/plans`, PEOPLE.planner, { samples: 10, seed: 1, maxCandidates: 1, spreads: { massPct: 5, lengthPct: 3, amplitudePct: 10, periodPct: 10, phaseDeg: 10 } }),
     json('post', '/api/simulate', PEOPLE.planner, { body, sequence, options: { rateHz: 10, rtol: 1e-8 } }),
+    json('post', `/api/sequences/versions/${draft}/robustness`, PEOPLE.planner, { samples: 20, seed: 1 }),
+    json('post', `/api/rehearsals/${cleared.id}/recording/sign-off`, PEOPLE.reviewer, { note: 'fuzz sign-off' }),
     { kind: 'query', path: '/api/crew', as: PEOPLE.planner, valid: { q: 'Tamsin' } },
     { kind: 'query', path: '/api/audit', as: PEOPLE.admin, valid: { action: 'crew.create', objectType: 'crew_member', since: '2026-01-01T00:00:00Z' } },
     { kind: 'query', path: `/api/motion/${cleared.id}`, as: PEOPLE.trainee, valid: { rateHz: '30' } },
     {
       kind: 'upload', path: '/api/uploads/measurements', as: PEOPLE.planner,
       inputs: malformedUploads({ fields: {}, fileName: 'crew.csv', validFile: measurementsCsv, brokenFiles: brokenCsv(measurementsCsv) }),
+    },
+    {
+      kind: 'upload', path: `/api/rehearsals/${cleared.id}/recording`, as: PEOPLE.trainee,
+      inputs: malformedUploads({ fields: {}, fileName: 'run.csv', validFile: recordingCsv, brokenFiles: brokenCsv(recordingCsv) }),
     },
     {
       kind: 'upload', path: '/api/uploads/segment-table', as: PEOPLE.planner,
@@ -119,6 +126,18 @@ async function send(route: Route, input: Payload | string | RawUpload): Promise<
   return { status: res.status, code: res.body?.error?.code };
 }
 
+/** Snapshots every 200 ms until two in a row agree (at most 5 s): the state background work leaves. */
+async function settled(first: DbSnapshot): Promise<DbSnapshot> {
+  let last = first;
+  for (let i = 0; i < 25; i++) {
+    await new Promise((r) => setTimeout(r, 200));
+    const next = await snapshot(t.pool, tables);
+    if (changedTables(last, next).length === 0) return next;
+    last = next;
+  }
+  return last;
+}
+
 describe('fuzzing every JSON and upload route', () => {
   it(`no 5xx and no partial write over ≥ ${MIN_TOTAL} malformed requests (≥ ${MIN_REJECTED} refused per route)`, async () => {
     const failures: string[] = [];
@@ -147,7 +166,8 @@ describe('fuzzing every JSON and upload route', () => {
             && (await t.pool.query(`SELECT status FROM uploads ORDER BY created_at DESC LIMIT 1`)).rows[0]?.status === 'rejected';
           if (changed.length && !recordedRejection) failures.push(`${label} → ${status} ${code ?? ''} changed ${changed.join(', ')} for ${shown}`);
         }
-        before = after;
+        // An accepted request may start background work (the invitation outbox sends its mail): wait until the tables settle.
+        before = status < 400 ? await settled(after) : after;
       }
     }
     const elapsedS = (Date.now() - started) / 1000;
