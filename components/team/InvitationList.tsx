@@ -18,7 +18,7 @@ import { INVITATION_STATE_BADGE, invitationState, MAIL_STATE_BADGE } from './inv
 
 /** What the admin reads about the e-mail of an open invitation. */
 function mailLine(inv: Invitation): string {
-  if (inv.mailState === 'sent') return `E-mail sent ${inv.mailSentAt ? formatDateTime(inv.mailSentAt) : ''}`.trim();
+  if (inv.mailState === 'sent') return inv.mailSentAt ? `Handed to the mail server ${formatDateTime(inv.mailSentAt)}.` : 'Handed to the mail server.';
   if (inv.mailState === 'failed') return `The e-mail could not be sent after ${inv.mailAttempts} attempts${inv.mailError ? ` (${inv.mailError})` : ''}. Resend it once mail works, or revoke it.`;
   return inv.mailAttempts > 0 && inv.mailError
     ? `Sending: attempt ${inv.mailAttempts} failed (${inv.mailError}); trying again shortly.`
