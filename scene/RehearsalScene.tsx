@@ -99,6 +99,9 @@ function advanceFrame(c: FrameContext, state: RootState, delta: number): void {
   trackStateAt(scene.track, clock.t, work.att, work.q);
   computeWorldPose(scene.model, work.att, work.q, work.pose);
   applyPose(work.pose, c.segments.current);
+  // from the eyes the own head is not in view
+  const head = c.segments.current[scene.headSegment];
+  if (head) head.visible = c.cameraMode !== 'body';
   // Body triad on the root segment.
   const triad = c.triad.current;
   if (triad) {
