@@ -1,5 +1,5 @@
 /**
- * Property-based fuzzing of every JSON route and both upload routes (fast-check, fixed seed,
+ * Property-based fuzzing of every JSON route and every upload route (fast-check, fixed seed,
  * bounded counts): each route gets malformed requests built from a valid example. Properties:
  * no response is 5xx, and after every rejected request every table's row count and content
  * checksum are unchanged (nothing half-written). The one deliberate write of a rejection — a
@@ -16,6 +16,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequences, sequenceVersions, users } from '../../db/schema/index.ts';
 import { PEOPLE, THREE_STEPS, as, createSequence, crewOf, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { writeBvh } from '../recordings/bvh-writer.ts';
 import { appTables, changedTables, rowCount, snapshot, type DbSnapshot } from './db-snapshot.ts';
 import { malformedBodies, malformedQueries, type Payload } from './malformed.ts';
 import { brokenCsv, malformedUploads, type RawUpload } from './multipart.ts';
@@ -59,6 +60,11 @@ beforeAll(async () => {
   const measurementsCsv = 'name,call_sign,sex,stature_m,mass_kg,suit,thigh_m\nFuzz Person,FZ,female,1.64,58.2,cabin-clothing,\nFuzz Other,,male,1.79,80.5,,0.45\n';
   const recordingCsv = 'time_s,r_sh_flex,r_sh_abd\n0,0,0\n0.1,2,1\n0.2,4,2\n0.3,6,3\n';
   const segmentCsv = 'segment,mass_kg,com_x_m,com_y_m,com_z_m,ixx_kgm2,iyy_kgm2,izz_kgm2\nhead_neck,4.6,0,0,0.12,0.024,0.026,0.017\nl_hand,0.4,0,0,-0.07,0.0006,0.0005,0.0002\n';
+  // A BVH recording, for its mapping route.
+  const bvhText = writeBvh(Array.from({ length: 8 }, (_, k) => ({ LeftArm: [0, -(20 + 10 * Math.sin(k / 2)), 0] as [number, number, number] })), 1 / 30);
+  const bvhUpload = await request(t.app).post('/api/uploads/bvh').set('Authorization', `Bearer ${await t.tokenForEmail(PEOPLE.planner)}`).attach('file', Buffer.from(bvhText), 'fuzz.bvh');
+  expect(bvhUpload.status, JSON.stringify(bvhUpload.body)).toBe(201);
+  const bvhRecording = bvhUpload.body.recording as { id: string; mapping: Record<string, unknown> };
   const json = (method: JsonRoute['method'], path: string, who: string | null, valid: Record<string, unknown>): JsonRoute => ({ kind: 'json', method, path, as: who, valid });
   routes.push(
     json('post', '/api/auth/sign-in', null, { email: PEOPLE.planner, password: 'not-the-password' }),
@@ -81,6 +87,7 @@ beforeAll(async () => {
     json('post', '/api/simulate', PEOPLE.planner, { body, sequence, options: { rateHz: 10, rtol: 1e-8 } }),
     json('post', `/api/sequences/versions/${draft}/robustness`, PEOPLE.planner, { samples: 20, seed: 1 }),
     json('post', `/api/rehearsals/${cleared.id}/recording/sign-off`, PEOPLE.reviewer, { note: 'fuzz sign-off' }),
+    json('put', `/api/recordings/${bvhRecording.id}/mapping`, PEOPLE.planner, { mapping: bvhRecording.mapping, rateHz: 30 }),
     { kind: 'query', path: '/api/crew', as: PEOPLE.planner, valid: { q: 'Tamsin' } },
     { kind: 'query', path: '/api/audit', as: PEOPLE.admin, valid: { action: 'crew.create', objectType: 'crew_member', since: '2026-01-01T00:00:00Z' } },
     { kind: 'query', path: `/api/motion/${cleared.id}`, as: PEOPLE.trainee, valid: { rateHz: '30' } },
@@ -91,6 +98,14 @@ beforeAll(async () => {
     {
       kind: 'upload', path: `/api/rehearsals/${cleared.id}/recording`, as: PEOPLE.trainee,
       inputs: malformedUploads({ fields: {}, fileName: 'run.csv', validFile: recordingCsv, brokenFiles: brokenCsv(recordingCsv) }),
+    },
+    {
+      kind: 'upload', path: '/api/uploads/joint-angles', as: PEOPLE.planner,
+      inputs: malformedUploads({ fields: { name: 'fuzz sweep' }, fileName: 'sweep.csv', validFile: recordingCsv, brokenFiles: brokenCsv(recordingCsv) }),
+    },
+    {
+      kind: 'upload', path: '/api/uploads/bvh', as: PEOPLE.planner,
+      inputs: malformedUploads({ fields: { name: 'fuzz capture' }, fileName: 'capture.bvh', validFile: bvhText, brokenFiles: brokenCsv(bvhText) }),
     },
     {
       kind: 'upload', path: '/api/uploads/segment-table', as: PEOPLE.planner,
