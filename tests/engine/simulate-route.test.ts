@@ -47,15 +47,17 @@ describe('POST /api/simulate', () => {
   }
 
   it('stops a simulation over its time budget with a clear 503, and the pool keeps serving', async () => {
-    const tinyPool = new SimulationPool({ size: 1, timeoutMs: 1000 });
+    const tinyPool = new SimulationPool({ size: 1, timeoutMs: 300 });
     const slowApp = express().use(express.json()).use('/api/simulate', createSimulateRouter({ pool: tinyPool }));
     try {
-      // 10 minutes of fast harmonic motion at a very tight tolerance: far more than 1 s of work.
-      const slow = { steps: [{ kind: 'harmonic', period: 0.2, cycles: 2999, joints: { r_sh_abd: { offset: 0, amplitude: 60, phase: 0 } } }] };
+      // 10 minutes of fast harmonic motion at a very tight tolerance, in twelve 50 s steps (each within
+      // the integrator's step limit): over a second of work, several times the 300 ms budget.
+      const circles = { kind: 'harmonic', period: 0.15, cycles: 333, joints: { r_sh_abd: { offset: 0, amplitude: 60, phase: 0 } } };
+      const slow = { steps: Array.from({ length: 12 }, () => circles) };
       const res = await request(slowApp).post('/api/simulate').send({ body, sequence: slow, options: { rtol: 1e-13 } });
       expect(res.status).toBe(503);
       expect(res.body.error.code).toBe('simulation_timeout');
-      expect(res.body.error.message).toMatch(/exceeded its time budget of 1000 ms/);
+      expect(res.body.error.message).toMatch(/exceeded its time budget of 300 ms/);
       const ok = await request(slowApp).post('/api/simulate').send({ body, sequence: { steps: [{ kind: 'hold', duration: 0.1 }] } });
       expect(ok.status).toBe(200);
     } finally {
