@@ -12,6 +12,9 @@ export const crewMembers = pgTable('crew_members', {
   currentVersion: integer('current_version'),
   createdBy: uuid('created_by').references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  // Archived members leave the default crew list and take no new profile versions until restored.
+  archivedAt: timestamp('archived_at', { withTimezone: true }),
+  archivedBy: uuid('archived_by').references(() => users.id),
 });
 
 /** Suit configurations: added mass/inertia per segment, suited ranges, locked joints (JSON per shared/contracts/suit.ts). */

@@ -19,6 +19,9 @@ export const sequences = pgTable(
     target: jsonb('target').notNull(),
     createdBy: uuid('created_by').references(() => users.id),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    // Archived maneuvers leave every default list and take no new versions until restored.
+    archivedAt: timestamp('archived_at', { withTimezone: true }),
+    archivedBy: uuid('archived_by').references(() => users.id),
   },
   // A trainee's list and the crew filter select by crew member.
   (t) => [index('sequences_crew_member_idx').on(t.crewMemberId)],
