@@ -6,7 +6,7 @@ import type { Body } from '../../shared/contracts/body.ts';
 import type { ProfileSource, ProfileSummary, StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
 import { ENGINE_VERSION } from '../engine/version.ts';
 import { conflict, notFound } from '../http/http-error.ts';
-import type { ProfileVersionChanged } from './profile-events.ts';
+import { type FlaggedVersions, flagStaleVersions } from '../maneuvers/flag-recheck.ts';
 
 /** An open transaction of the app database. */
 export type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
@@ -27,13 +27,15 @@ export interface NewProfileVersion {
 /**
  * Appends version N+1 and makes it current, inside the caller's transaction. The crew member row is
  * locked (SELECT … FOR UPDATE) first, so two concurrent saves on the same base serialise: the second
- * sees the first's version and gets 409 `stale_version` — never a lost update.
+ * sees the first's version and gets 409 `stale_version` — never a lost update. In the same
+ * transaction, versions approved or under review against another profile version are flagged for a
+ * re-check (their queued re-verification records are the outbox; pass `flagged` to
+ * `sendRecheckJobs` after commit).
  */
-export async function appendProfileVersion(tx: Tx, v: NewProfileVersion): Promise<{ row: ProfileVersionRow; event: ProfileVersionChanged }> {
+export async function appendProfileVersion(tx: Tx, v: NewProfileVersion): Promise<{ row: ProfileVersionRow; flagged: FlaggedVersions }> {
   const [member] = await tx.select().from(crewMembers).where(eq(crewMembers.id, v.crewMemberId)).for('update');
   if (!member) throw notFound('Crew member');
   const latest = member.currentVersion ?? 0;
-  let previousVersionId: string | null = null;
   if (latest > 0) {
     const [prev] = await tx
       .select({ id: profileVersions.id, createdAt: profileVersions.createdAt, author: users.name })
@@ -42,7 +44,6 @@ export async function appendProfileVersion(tx: Tx, v: NewProfileVersion): Promis
       .where(eq(profileVersions.crewMemberId, v.crewMemberId))
       .orderBy(desc(profileVersions.version))
       .limit(1);
-    previousVersionId = prev?.id ?? null;
     if (v.baseVersion !== latest) {
       const who = prev?.author ? ` by ${prev.author}` : '';
       const when = prev ? ` at ${prev.createdAt.toISOString().slice(0, 16).replace('T', ' ')} UTC` : '';
@@ -71,8 +72,6 @@ export async function appendProfileVersion(tx: Tx, v: NewProfileVersion): Promis
     })
     .returning();
   await tx.update(crewMembers).set({ currentVersion: row.version }).where(eq(crewMembers.id, v.crewMemberId));
-  return {
-    row,
-    event: { crewMemberId: v.crewMemberId, profileVersionId: row.id, version: row.version, previousVersionId, actorId: v.authorId },
-  };
+  const flagged = await flagStaleVersions(tx, { crewMemberId: v.crewMemberId, profileVersionId: row.id, actorId: v.authorId });
+  return { row, flagged };
 }

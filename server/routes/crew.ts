@@ -16,9 +16,9 @@ import { compareProfiles } from '../crew/compare-profiles.ts';
 import { readableMember, requireCrewEditor } from '../crew/crew-access.ts';
 import { getVersion, listCrewMembers, listVersions } from '../crew/crew-queries.ts';
 import { deriveProfile, suitSnapshot } from '../crew/derive-profile.ts';
-import { emitProfileVersionChanged } from '../crew/profile-events.ts';
 import { crewMemberView, glimpseOf, profileVersionHeader, profileVersionView } from '../crew/profile-views.ts';
 import { validate } from '../http/validate.ts';
+import { sendRecheckJobs } from '../maneuvers/flag-recheck.ts';
 
 const idParams = z.object({ id: z.string().uuid('Not a valid crew member id.') });
 const versionParams = idParams.extend({ version: z.coerce.number().int('Not a version number.').min(1, 'Versions start at 1.') });
@@ -82,7 +82,7 @@ export function crewRouter(ctx: AppContext): Router {
     const { suitId, ...form } = input.inputs;
     const suit = suitId ? await suitSnapshot(db, suitId, 'inputs.suitId') : null;
     const derived = deriveProfile(form, suit, member.name);
-    const { row, event } = await db.transaction(async (tx) => {
+    const { row, flagged } = await db.transaction(async (tx) => {
       const out = await appendProfileVersion(tx, {
         crewMemberId: id, baseVersion: input.baseVersion, source: 'regression',
         inputs: derived.inputs, body: derived.body, summary: derived.summary, note: input.note, authorId: me.id,
@@ -90,7 +90,7 @@ export function crewRouter(ctx: AppContext): Router {
       await recordAudit(tx, { actorId: me.id, action: 'crew.save_profile', objectType: 'profile_version', objectId: out.row.id, detail: { crewMemberId: id, version: out.row.version } });
       return out;
     });
-    await emitProfileVersionChanged(ctx, [event]);
+    await sendRecheckJobs(ctx, [flagged]);
     res.status(201).json({ version: profileVersionView(row, me.name, row.version) });
   });
 

@@ -29,7 +29,6 @@ import { robustnessRouter } from './robustness.ts';
 import { queueRobustnessAfterSave } from '../jobs/robustness/version-robustness.ts';
 import { sequencePlansRouter } from './sequence-plans.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
-import { subscribeToProfileChanges } from '../maneuvers/flag-recheck.ts';
 import { requireAuthor, visibleSequences, visibleVersions } from '../maneuvers/maneuver-access.ts';
 import { updateSequence } from '../maneuvers/update-sequence.ts';
 import { saveVersion, submitVersion } from '../maneuvers/version-actions.ts';
@@ -54,7 +53,6 @@ function rehearsable(versions: VersionSummary[]): VersionSummary | null {
 export function sequencesRouter(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
-  subscribeToProfileChanges();
 
   /**
    * Sequence summaries matching a condition, by name: one query for the heads with their version

@@ -11,10 +11,10 @@ import { recordAudit } from '../audit/record-audit.ts';
 import { appendProfileVersion } from '../crew/append-profile-version.ts';
 import { readableMember } from '../crew/crew-access.ts';
 import { getVersion } from '../crew/crew-queries.ts';
-import { emitProfileVersionChanged, type ProfileVersionChanged } from '../crew/profile-events.ts';
 import { summarizeBody } from '../crew/profile-summary.ts';
 import { HttpError, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
+import { type FlaggedVersions, sendRecheckJobs } from '../maneuvers/flag-recheck.ts';
 import { planMeasurementImport } from '../uploads/measurement-rows.ts';
 import { receiveFile } from '../uploads/receive-file.ts';
 import { recordRejectedUpload, rejectUpload } from '../uploads/reject-upload.ts';
@@ -76,7 +76,7 @@ export function uploadsRouter(ctx: AppContext): Router {
         const [upload] = await tx.insert(uploads).values(uploadValues(file, 'imported', rowCount, [], me.id)).returning();
         await tx.insert(uploadRows).values(plans.map((p) => ({ uploadId: file.id, rowNumber: p.row, data: p.cells })));
         const out: ImportedRowResult[] = [];
-        const evs: ProfileVersionChanged[] = [];
+        const evs: FlaggedVersions[] = [];
         for (const p of plans) {
           let memberId = p.existingMemberId;
           if (!memberId) {
@@ -85,12 +85,12 @@ export function uploadsRouter(ctx: AppContext): Router {
           }
           // Imports build on whatever is latest; the row lock in appendProfileVersion still serialises them.
           const [locked] = await tx.select({ v: crewMembers.currentVersion }).from(crewMembers).where(eq(crewMembers.id, memberId)).for('update');
-          const { row, event } = await appendProfileVersion(tx, {
+          const { row, flagged } = await appendProfileVersion(tx, {
             crewMemberId: memberId, baseVersion: locked.v ?? 0, source: 'regression', inputs: p.profile.inputs,
             body: p.profile.body, summary: p.profile.summary, note: p.note || `Imported from ${file.fileName}, row ${p.row}`, authorId: me.id,
           });
           out.push({ row: p.row, crewMemberId: memberId, name: p.name, action: p.existingMemberId ? 'updated' : 'created', version: row.version });
-          evs.push(event);
+          evs.push(flagged);
         }
         await recordAudit(tx, { actorId: me.id, action: 'upload.import', objectType: 'upload', objectId: file.id, detail: { fileName: file.fileName, rows: out.length } });
         return { upload, out, evs };
@@ -99,7 +99,7 @@ export function uploadsRouter(ctx: AppContext): Router {
       if (err instanceof HttpError) return rejectUpload(ctx, res, file, rowCount, [{ row: 0, column: '', reason: err.message }], me.id);
       throw err;
     }
-    await emitProfileVersionChanged(ctx, result.evs);
+    await sendRecheckJobs(ctx, result.evs);
     const body: UploadResult = { upload: uploadView(result.upload), imported: result.out };
     res.status(201).json(body);
   });
@@ -139,7 +139,7 @@ export function uploadsRouter(ctx: AppContext): Router {
       }
       throw err;
     }
-    await emitProfileVersionChanged(ctx, [result.appended.event]);
+    await sendRecheckJobs(ctx, [result.appended.flagged]);
     const imported: ImportedRowResult[] = [{ row: 0, crewMemberId: member.id, name: member.name, action: 'updated', version: result.appended.row.version }];
     res.status(201).json({ upload: uploadView(result.upload), imported } satisfies UploadResult);
   });
