@@ -16,6 +16,12 @@
  *   is large, so judging the late glimpse as it is would mislead them). Both figures are ASSUMPTIONS
  *   (no source found for whole-body attitude perception in free fall): DECISIONS.md sets their
  *   floors, 2° and 0.3 s, which are the defaults.
+ * Both models share the body and execution errors: per segment mass and length, per sweep amplitude
+ * and period, per dof phase (timing). A person moving both arms or both legs together keeps them in
+ * step, so by default (`spreads.pairedLimbs: together`) the left and right dof of a joint share one
+ * phase error; each joint (shoulder flexion, abduction …) still has its own, so the loop's shape
+ * varies. With independent errors two-limb loops drift about other axes, which no stopping corrects:
+ * `independent` keeps that stricter model available.
  * Each sample is composed from per-step pieces (execution-pieces.ts), exact up to the integrator's
  * tolerance because every cycle returns to the same posture.
  */
@@ -57,6 +63,27 @@ export function sampleSeed(seed: number, index: number): number {
   return (z ^ (z >>> 16)) >>> 0;
 }
 
+/** The joint a dof belongs to on either side (`l_sh_flex` and `r_sh_flex` → `sh_flex`). */
+const pairedJoint = (dof: string) => dof.replace(/^[lr]_/, '');
+
+/**
+ * Phase errors (degrees of a cycle) of a sweep's dofs. Every dof draws its own error in order (so
+ * the random stream does not depend on the pairing); with `pairedLimbs: together` the second side
+ * of a paired joint takes the first side's error instead of its own.
+ */
+export function phaseErrors(dofs: readonly string[], spreads: RobustnessModel['spreads'], random: () => number): Record<string, number> {
+  const out: Record<string, number> = {};
+  const bySide = new Map<string, number>();
+  for (const dof of dofs) {
+    const own = symmetricUnit(random) * spreads.phaseDeg;
+    const joint = pairedJoint(dof);
+    const shared = spreads.pairedLimbs === 'together' && joint !== dof ? bySide.get(joint) : undefined;
+    out[dof] = shared ?? own;
+    if (shared === undefined && joint !== dof) bySide.set(joint, own);
+  }
+  return out;
+}
+
 /** One sample's perturbed body and sequence (open-loop execution). */
 export function perturbedCase(inputs: RobustnessInputs, index: number): { body: Body; sequence: Sequence; random: () => number } {
   const { body, sequence, model } = inputs;
@@ -66,7 +93,7 @@ export function perturbedCase(inputs: RobustnessInputs, index: number): { body: 
   const varied = perturbSequence(sequence, (_k, dofs) => ({
     amplitude: symmetricUnit(random) * spreads.amplitudePct / 100,
     period: symmetricUnit(random) * spreads.periodPct / 100,
-    phaseDeg: Object.fromEntries(dofs.map((d) => [d, symmetricUnit(random) * spreads.phaseDeg])),
+    phaseDeg: phaseErrors(dofs, spreads, random),
   }));
   return { body: perturbBody(body, scales), sequence: varied, random };
 }

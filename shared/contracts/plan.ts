@@ -33,6 +33,13 @@ export const dispersionSpreadsSchema = z.object({
   periodPct: finite('periodPct').min(0).max(50).default(10),
   /** Timing error between the joints of a sweep: phase shift of each dof, ± degrees of a cycle (default 10). */
   phaseDeg: finite('phaseDeg').min(0).max(90).default(10),
+  /**
+   * Timing of paired limbs in one sweep (both arms or both legs): `together` (default) gives the left
+   * and right dof of a joint one shared phase error, as a person moving both limbs together keeps
+   * them in step; `independent` draws every dof's error on its own (limbs fall out of step). An
+   * ASSUMPTION (no measured spread of left–right timing found).
+   */
+  pairedLimbs: z.enum(['together', 'independent'], { error: 'pairedLimbs must be together or independent' }).default('together'),
 });
 /** Dispersion spreads (defaults filled). */
 export type DispersionSpreads = z.infer<typeof dispersionSpreadsSchema>;
@@ -43,7 +50,7 @@ export const planRequestSchema = z.object({
   samples: finite('samples').int('samples must be a whole number').min(10).max(1000).default(100),
   /** Seed of the dispersion run's random numbers (same seed, same figures). */
   seed: finite('seed').int('seed must be a whole number').min(0).max(2 ** 31 - 1).default(1),
-  spreads: dispersionSpreadsSchema.default({ massPct: 5, lengthPct: 3, amplitudePct: 10, periodPct: 10, phaseDeg: 10 }),
+  spreads: dispersionSpreadsSchema.default({ massPct: 5, lengthPct: 3, amplitudePct: 10, periodPct: 10, phaseDeg: 10, pairedLimbs: 'together' }),
   /** How many ranked candidates to return (default 4). */
   maxCandidates: finite('maxCandidates').int().min(1).max(8).default(4),
   /**
