@@ -28,7 +28,7 @@ const deg = (x: number) => `${x < 0.1 ? x.toFixed(2) : x.toFixed(1)}°`;
 
 /** The spreads of a dispersion run as one line. */
 export function spreadsText(s: DispersionSpreads): string {
-  return `segment mass ±${s.massPct} %, length ±${s.lengthPct} %, amplitude ±${s.amplitudePct} %, period ±${s.periodPct} %, joint timing ±${s.phaseDeg}°`;
+  return `segment mass ±${s.massPct} %, length ±${s.lengthPct} %, amplitude ±${s.amplitudePct} %, period ±${s.periodPct} %, joint timing ±${s.phaseDeg}°${s.pairedLimbs === 'independent' ? ' (each limb on its own)' : ' (both limbs of a pair in step)'}`;
 }
 
 /**
