@@ -26,9 +26,12 @@ const ROBUSTNESS_WORDS: Record<PlanCandidate['robustness']['level'], string> = {
 
 const deg = (x: number) => `${x < 0.1 ? x.toFixed(2) : x.toFixed(1)}°`;
 
+// Plans stored before the pairing existed have no pairedLimbs: nothing is said about it.
+const PAIRING_WORDS: Record<string, string> = { together: ' (both limbs of a pair in step)', independent: ' (each limb on its own)' };
+
 /** The spreads of a dispersion run as one line. */
 export function spreadsText(s: DispersionSpreads): string {
-  return `segment mass ±${s.massPct} %, length ±${s.lengthPct} %, amplitude ±${s.amplitudePct} %, period ±${s.periodPct} %, joint timing ±${s.phaseDeg}°${s.pairedLimbs === 'independent' ? ' (each limb on its own)' : ' (both limbs of a pair in step)'}`;
+  return `segment mass ±${s.massPct} %, length ±${s.lengthPct} %, amplitude ±${s.amplitudePct} %, period ±${s.periodPct} %, joint timing ±${s.phaseDeg}°${PAIRING_WORDS[String(s.pairedLimbs)] ?? ''}`;
 }
 
 /**
