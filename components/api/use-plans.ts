@@ -37,15 +37,30 @@ export function useLatestPlanQuery(sequenceId: string, enabled = true) {
   });
 }
 
-/** GET /api/sequences/:id/plans/:planId — polled every second until the plan is done or failed. */
+/** Whether a plan has ended (nothing more to poll). */
+export function planEnded(state: Plan['state'] | undefined): boolean {
+  return state === 'done' || state === 'failed' || state === 'cancelled';
+}
+
+/** POST /api/sequences/:id/plans/:planId/cancel — stops a queued or running plan; answers the plan. */
+export function useCancelPlanMutation(sequenceId: string) {
+  const client = useQueryClient();
+  return useMutation({
+    mutationFn: (planId: string) =>
+      apiFetch<Plan>(`/sequences/${encodeURIComponent(sequenceId)}/plans/${encodeURIComponent(planId)}/cancel`, { method: 'POST' }),
+    onSuccess: (plan) => {
+      client.setQueryData(planKeys.detail(sequenceId, plan.id), plan);
+      return client.invalidateQueries({ queryKey: planKeys.latest(sequenceId) });
+    },
+  });
+}
+
+/** GET /api/sequences/:id/plans/:planId — polled every second until the plan has ended. */
 export function usePlanQuery(sequenceId: string, planId: string | null) {
   return useQuery({
     queryKey: planKeys.detail(sequenceId, planId ?? ''),
     queryFn: () => apiFetch<Plan>(`/sequences/${encodeURIComponent(sequenceId)}/plans/${encodeURIComponent(planId ?? '')}`),
     enabled: !!planId,
-    refetchInterval: (query) => {
-      const state = query.state.data?.state;
-      return state === 'done' || state === 'failed' ? false : PLAN_POLL_MS;
-    },
+    refetchInterval: (query) => (planEnded(query.state.data?.state) ? false : PLAN_POLL_MS),
   });
 }

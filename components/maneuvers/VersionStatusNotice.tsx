@@ -47,7 +47,7 @@ export function VersionStatusNotice({ version: v, forReviewer = false }: Version
       icon = 'alert-triangle';
       color = colors.danger;
       const r = v.reverification;
-      const moved = r?.state === 'done' ? ` Recomputed on the new profile: the final attitude moved ${fmtDeg(r.attitudeShiftDeg ?? 0, 2)}, error to target now ${fmtDeg(r.targetErrorDeg ?? 0, 2)}.` : r ? ` Recomputation ${r.state}.` : '';
+      const moved = r?.state === 'done' ? ` Recomputed on the new profile: the final attitude moved ${fmtDeg(r.attitudeShiftDeg ?? 0, 2)}, error to target now ${fmtDeg(r.targetErrorDeg ?? 0, 2)}.` : r ? ` Recomputation ${r.state === 'cancelled' ? 'stopped' : r.state}.` : '';
       text = `The crew member's profile changed since this version was verified (it used v${v.profileVersion}).${moved} Save a new version to verify it on the current profile and submit it again.`;
       break;
     }

@@ -1,9 +1,9 @@
 /**
  * The admin's view of background work: every plan, robustness run and re-verification as one list
  * (state, progress, attempts, the reason of a failure), the queues' raw job counts, and the two
- * actions: retry what failed or was cancelled, cancel what is queued or running. A cancelled plan or
- * re-verification ends `failed` with "Cancelled by …" as its reason (their screens know no other
- * end state); a cancelled robustness run ends `cancelled`.
+ * actions: retry what failed or was cancelled, cancel what is queued or running. Cancelled work ends
+ * `cancelled` with "Cancelled by …" as its reason, and stops: a plan's thread is terminated, a
+ * robustness run's chunks stop, a queued re-verification's job is cancelled.
  */
 import { and, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
 
@@ -15,6 +15,7 @@ import { recordAudit } from '../audit/record-audit.ts';
 import { conflict, HttpError, notFound } from '../http/http-error.ts';
 import { ALL_QUEUES, PLAN_QUEUE, REVERIFY_QUEUE } from './queue-names.ts';
 import { cancelRobustnessRun, OPEN_STATES } from './robustness/robustness-runs.ts';
+import { cancelPlan } from './run-plan.ts';
 
 const LIMIT = 100;
 const STATES_OF: Record<WorkFilter, WorkState[]> = { open: ['queued', 'running'], failed: ['failed', 'cancelled'], done: ['done'] };
@@ -98,13 +99,10 @@ export async function cancelBackgroundWork(ctx: AppContext, kind: WorkKind, id: 
     cancelled = ctx.jobs?.cancelRobustness ? await ctx.jobs.cancelRobustness(id, reason) : await cancelRobustnessRun(ctx, null, id, reason);
   } else if (kind === 'plan') {
     await requireExists(ctx, kind, id);
-    const rows = await ctx.db.update(plans).set({ state: 'failed', error: reason, finishedAt: new Date() })
-      .where(and(eq(plans.id, id), inArray(plans.state, [...OPEN_STATES]))).returning({ id: plans.id });
-    cancelled = rows.length > 0;
-    if (cancelled && boss) await cancelJobs(boss, PLAN_QUEUE, { planId: id });
+    cancelled = await cancelPlan(ctx, id, reason);
   } else {
     await requireExists(ctx, kind, id);
-    const rows = await ctx.db.update(reverifications).set({ state: 'failed', error: reason, finishedAt: new Date() })
+    const rows = await ctx.db.update(reverifications).set({ state: 'cancelled', error: reason, finishedAt: new Date() })
       .where(and(eq(reverifications.id, id), inArray(reverifications.state, [...OPEN_STATES]))).returning();
     cancelled = rows.length > 0;
     if (cancelled && boss) await cancelJobs(boss, REVERIFY_QUEUE, { sequenceVersionId: rows[0].sequenceVersionId, toProfileVersionId: rows[0].toProfileVersionId });
@@ -153,7 +151,8 @@ async function requireExists(ctx: AppContext, kind: WorkKind, id: string): Promi
   if (!row) throw notFound(kind === 'plan' ? 'Plan' : kind === 'robustness' ? 'Robustness run' : 'Re-verification');
 }
 
-async function cancelJobs(boss: NonNullable<AppContext['jobs']>['boss'] & object, queue: string, data: object): Promise<void> {
+/** Cancels the live jobs (queued, waiting for a retry, or running) of one queue whose data match. */
+export async function cancelJobs(boss: NonNullable<AppContext['jobs']>['boss'] & object, queue: string, data: object): Promise<void> {
   const live = (await boss.findJobs(queue, { data })).filter((j) => j.state === 'created' || j.state === 'retry' || j.state === 'active');
   if (live.length) await boss.cancel(queue, live.map((j) => j.id));
 }

@@ -140,7 +140,7 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
     await boss.work<ReverifyJob>(REVERIFY_QUEUE, workOptions, handler(REVERIFY_QUEUE, (job: Job<ReverifyJob>) =>
       reverifyVersion(ctx, job.data, { attempt: job.retryCount, retryLimit: REVERIFY_RETRY_LIMIT })));
     // A plan runs in its own worker thread.
-    await boss.work<PlanJob>(PLAN_QUEUE, workOptions, handler(PLAN_QUEUE, (job: Job<PlanJob>) => runPlan(ctx, job.data)));
+    await boss.work<PlanJob>(PLAN_QUEUE, workOptions, handler(PLAN_QUEUE, (job: Job<PlanJob>) => runPlan(ctx, job.data, { signal: job.signal })));
     await boss.work<InvitationMailJob>(INVITATION_MAIL_QUEUE, workOptions, handler(INVITATION_MAIL_QUEUE, (job: Job<InvitationMailJob>) =>
       deliverInvitation(ctx, job.data, { attempt: job.retryCount, retryLimit: INVITATION_MAIL_RETRY_LIMIT })));
     await boss.work<RobustnessChunkJob>(ROBUSTNESS_CHUNK_QUEUE, workOptions, handler(ROBUSTNESS_CHUNK_QUEUE, (job: Job<RobustnessChunkJob>) =>

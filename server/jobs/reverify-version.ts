@@ -2,9 +2,10 @@
  * The re-verification job: recomputes one sequence version's compiled steps on a newer profile
  * version's body and records how far the final attitude moved (`attitudeShiftDeg`) in
  * `reverifications`. The version itself is frozen (it may be cleared); only the record changes.
- * Throws on failure so the queue retries; the last attempt marks the record `failed`.
+ * Throws on failure so the queue retries; the last attempt marks the record `failed`. A record
+ * cancelled meanwhile (Team → Jobs) keeps `cancelled`.
  */
-import { and, desc, eq, ne } from 'drizzle-orm';
+import { and, desc, eq, ne, notInArray } from 'drizzle-orm';
 
 import { profileVersions, reverifications, sequenceVersions } from '../../db/schema/index.ts';
 import type { Body } from '../../shared/contracts/body.ts';
@@ -23,6 +24,9 @@ export interface ReverifyJob {
 }
 
 const DEG = 180 / Math.PI;
+const notIn = (states: string[]) => notInArray(reverifications.state, states);
+/** A cancelled record keeps its end state: no later write of a job reopens it. */
+const notCancelled = () => notIn(['cancelled']);
 
 /** Runs one re-verification; `attempt` counts retries already made (0 on the first run). */
 export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: { attempt: number; retryLimit: number }): Promise<void> {
@@ -42,13 +46,16 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
     .where(and(eq(reverifications.sequenceVersionId, v.v.id), eq(reverifications.toProfileVersionId, profile.id), ne(reverifications.state, 'done')))
     .orderBy(desc(reverifications.createdAt))
     .limit(1);
+  if (record?.state === 'cancelled') return; // someone stopped it: its job has nothing to do
   if (!record) {
     const [done] = await db.select({ id: reverifications.id }).from(reverifications)
       .where(and(eq(reverifications.sequenceVersionId, v.v.id), eq(reverifications.toProfileVersionId, profile.id), eq(reverifications.state, 'done')));
     if (done) return; // already recomputed (a duplicate job)
     [record] = await db.insert(reverifications).values({ sequenceVersionId: v.v.id, fromProfileVersionId: v.v.profileVersionId, toProfileVersionId: profile.id }).returning();
   }
-  await db.update(reverifications).set({ state: 'running', attempts: record.attempts + 1, error: null }).where(eq(reverifications.id, record.id));
+  const claimed = await db.update(reverifications).set({ state: 'running', attempts: record.attempts + 1, error: null })
+    .where(and(eq(reverifications.id, record.id), notCancelled())).returning({ id: reverifications.id });
+  if (!claimed.length) return;
 
   try {
     const sequence = sequenceSchema.parse(storedCompiled(v.v.compiled).sequence);
@@ -64,7 +71,7 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
       // Only while still open: a retried or duplicated job stores one result.
       const stored = await tx.update(reverifications)
         .set({ state: 'done', attitudeShiftDeg: shift, report, finishedAt: new Date(), error: null })
-        .where(and(eq(reverifications.id, record.id), ne(reverifications.state, 'done'))).returning({ id: reverifications.id });
+        .where(and(eq(reverifications.id, record.id), notIn(['done', 'cancelled']))).returning({ id: reverifications.id });
       if (!stored.length) return;
       await recordAudit(tx, {
         actorId: null, action: 'sequence_version.reverified', objectType: 'sequence_version', objectId: v.v.id,
@@ -76,7 +83,7 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
     const last = opts.attempt >= opts.retryLimit;
     await db.update(reverifications)
       .set({ state: last ? 'failed' : 'queued', error: message, finishedAt: last ? new Date() : null })
-      .where(eq(reverifications.id, record.id));
+      .where(and(eq(reverifications.id, record.id), notCancelled()));
     ctx.logger.warn({ err, job, attempt: opts.attempt }, 're-verification failed');
     throw err;
   }

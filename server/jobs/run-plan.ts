@@ -4,6 +4,8 @@
  * and finally the ranked candidates or the error. A planner failure is stored, not retried (the
  * planner is deterministic, so it would repeat); the queue retries a plan whose worker died, and the
  * final write happens only while the plan is still open, so a retried plan stores one result.
+ * A cancelled plan (its row set to `cancelled` by a planner or an admin, from any process) is seen
+ * within about a second and its planner thread is terminated.
  */
 import { and, eq, inArray } from 'drizzle-orm';
 
@@ -14,7 +16,8 @@ import { planRequestSchema } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { ENGINE_VERSION } from '../engine/version.ts';
-import { runPlannerThread } from '../planning/run-planner-thread.ts';
+import { PlanStoppedError, runPlannerThread } from '../planning/run-planner-thread.ts';
+import { PLAN_QUEUE } from './queue-names.ts';
 
 /** Job payload. */
 export interface PlanJob {
@@ -27,8 +30,11 @@ const isOpen = (id: string) => and(eq(plans.id, id), inArray(plans.state, OPEN))
 /** Least time between progress writes, ms. */
 const PROGRESS_EVERY_MS = 1000;
 
+/** How often a running plan checks whether it was cancelled, ms. */
+const CANCEL_CHECK_MS = 1000;
+
 /** Runs one plan; never throws for planner failures (they are stored on the row). */
-export async function runPlan(ctx: AppContext, job: PlanJob): Promise<void> {
+export async function runPlan(ctx: AppContext, job: PlanJob, opts: { signal?: AbortSignal; checkEveryMs?: number } = {}): Promise<void> {
   const { db } = ctx;
   const [plan] = await db.select().from(plans).where(eq(plans.id, job.planId));
   if (!plan || !OPEN.includes(plan.state)) return; // unknown, or a duplicate job of a finished plan
@@ -43,6 +49,16 @@ export async function runPlan(ctx: AppContext, job: PlanJob): Promise<void> {
     lastWrite = now;
     pending = pending.then(() => db.update(plans).set({ progress: fraction, progressNote: note }).where(isOpen(plan.id)));
   };
+  // Stop the thread when the plan is closed by someone else (cancelled) or the queue takes the job back.
+  const stop = new AbortController();
+  const onJobAbort = () => stop.abort();
+  opts.signal?.addEventListener('abort', onJobAbort, { once: true });
+  const watch = setInterval(() => {
+    void db.select({ state: plans.state }).from(plans).where(eq(plans.id, plan.id))
+      .then(([r]) => { if (!r || !OPEN.includes(r.state)) stop.abort(); })
+      .catch(() => undefined);
+  }, opts.checkEveryMs ?? CANCEL_CHECK_MS);
+  watch.unref();
   try {
     const [profile] = await db.select().from(profileVersions).where(eq(profileVersions.id, plan.profileVersionId));
     if (!profile) throw new Error(`profile version ${plan.profileVersionId} not found`);
@@ -50,7 +66,7 @@ export async function runPlan(ctx: AppContext, job: PlanJob): Promise<void> {
       body: profile.body as Body,
       target: sequenceTargetSchema.parse(plan.target),
       settings: planRequestSchema.parse(plan.settings),
-    }, onProgress);
+    }, onProgress, undefined, stop.signal);
     await pending;
     await db.transaction(async (tx) => {
       const stored = await tx.update(plans).set({ state: 'done', progress: 1, progressNote: 'done', candidates, finishedAt: new Date() }).where(isOpen(plan.id)).returning({ id: plans.id });
@@ -62,9 +78,34 @@ export async function runPlan(ctx: AppContext, job: PlanJob): Promise<void> {
     });
   } catch (err) {
     await pending.catch(() => {});
+    if (err instanceof PlanStoppedError) {
+      // Cancelled: the row already says so. Taken back by the queue: another attempt runs it.
+      if (opts.signal?.aborted) throw new Error('the queue took this plan back (cancelled or its claim expired)');
+      return;
+    }
     const message = err instanceof Error ? err.message : String(err);
     ctx.logger.warn({ err, job }, 'planning failed');
     const stored = await db.update(plans).set({ state: 'failed', error: message, finishedAt: new Date() }).where(isOpen(plan.id)).returning({ id: plans.id });
     if (stored.length) await recordAudit(db, { actorId: null, action: 'plan.failed', objectType: 'plan', objectId: plan.id, detail: { sequenceId: plan.sequenceId, error: message } });
+  } finally {
+    clearInterval(watch);
+    opts.signal?.removeEventListener('abort', onJobAbort);
   }
+}
+
+/**
+ * Cancels an open plan (state `cancelled`, the reason kept in `error`); its planner thread stops
+ * within about a second wherever it runs. False when the plan had already ended.
+ */
+export async function cancelPlan(ctx: AppContext, planId: string, reason: string): Promise<boolean> {
+  const rows = await ctx.db.update(plans).set({ state: 'cancelled', error: reason, finishedAt: new Date() })
+    .where(isOpen(planId)).returning({ id: plans.id });
+  if (!rows.length) return false;
+  // A queued job would only find a closed plan; cancelling it keeps the queue's counts honest.
+  const boss = ctx.jobs?.boss;
+  if (boss) {
+    const live = (await boss.findJobs(PLAN_QUEUE, { data: { planId } })).filter((j) => j.state === 'created' || j.state === 'retry' || j.state === 'active');
+    if (live.length) await boss.cancel(PLAN_QUEUE, live.map((j) => j.id));
+  }
+  return true;
 }

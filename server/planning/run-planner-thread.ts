@@ -14,18 +14,30 @@ const ENTRY = fileURLToPath(new URL('./planner-entry.mjs', import.meta.url).href
 /** Longest a plan may run, ms (10 min). */
 export const PLAN_TIME_BUDGET_MS = 10 * 60_000;
 
-/** Resolves with the ranked candidates; rejects on failure or when the time budget runs out. */
-export function runPlannerThread(input: PlannerThreadInput, onProgress: PlanProgress, timeBudgetMs = PLAN_TIME_BUDGET_MS): Promise<PlanCandidate[]> {
+/** Thrown when a plan was stopped through its AbortSignal (cancelled). */
+export class PlanStoppedError extends Error {
+  constructor() { super('planning stopped'); this.name = 'PlanStoppedError'; }
+}
+
+/**
+ * Resolves with the ranked candidates; rejects on failure, when the time budget runs out, or with
+ * PlanStoppedError when `signal` aborts (the thread is terminated: the only way to stop synchronous code).
+ */
+export function runPlannerThread(input: PlannerThreadInput, onProgress: PlanProgress, timeBudgetMs = PLAN_TIME_BUDGET_MS, signal?: AbortSignal): Promise<PlanCandidate[]> {
+  if (signal?.aborted) return Promise.reject(new PlanStoppedError());
   return new Promise((resolve, reject) => {
     const worker = new Worker(ENTRY, { workerData: input });
     let settled = false;
+    const onAbort = () => finish(() => reject(new PlanStoppedError()));
     const finish = (fn: () => void) => {
       if (settled) return;
       settled = true;
       clearTimeout(timer);
+      signal?.removeEventListener('abort', onAbort);
       fn();
       void worker.terminate();
     };
+    signal?.addEventListener('abort', onAbort, { once: true });
     const timer = setTimeout(() => finish(() => reject(new Error(`planning exceeded its time budget of ${timeBudgetMs / 1000} s`))), timeBudgetMs);
     worker.on('message', (m: PlannerThreadMessage) => {
       if (m.kind === 'progress') onProgress(m.fraction, m.note);

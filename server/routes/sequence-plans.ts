@@ -2,7 +2,9 @@
  * /api/sequences/:sequenceId/plans: the maneuver planner ("Suggest steps"). POST queues a planning
  * job on the crew member's current profile body and answers 202 { planId }; GET / lists the
  * sequence's plans newest first (so a reopened composer finds its latest run); GET /:planId returns
- * the plan's state, progress and ranked candidates (shapes in shared/contracts/plan.ts).
+ * the plan's state, progress and ranked candidates (shapes in shared/contracts/plan.ts);
+ * POST /:planId/cancel stops a queued or running plan (its planner thread ends within about a
+ * second; the plan ends `cancelled`), 409 `not_open` when it has already ended.
  */
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { Router } from 'express';
@@ -15,8 +17,9 @@ import {
 } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
-import { forbidden, notFound } from '../http/http-error.ts';
+import { conflict, forbidden, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
+import { cancelPlan } from '../jobs/run-plan.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
 import { requireAuthor } from '../maneuvers/maneuver-access.ts';
 
@@ -104,6 +107,19 @@ export function sequencePlansRouter(ctx: AppContext): Router {
       .where(and(eq(plans.id, planId), eq(plans.sequenceId, sequenceId)));
     if (!row) throw notFound('Plan');
     res.json(planView(row.plan));
+  });
+
+  router.post('/:planId/cancel', validate({ params: planParams }), async (req, res) => {
+    const user = req.user!;
+    requireAuthor(user);
+    const { sequenceId, planId } = res.locals.params as z.infer<typeof planParams>;
+    const [row] = await db.select({ id: plans.id }).from(plans).where(and(eq(plans.id, planId), eq(plans.sequenceId, sequenceId)));
+    if (!row) throw notFound('Plan');
+    const reason = `Cancelled by ${user.name}.`;
+    if (!(await cancelPlan(ctx, planId, reason))) throw conflict('The plan has already ended; there is nothing to cancel.', 'not_open');
+    await recordAudit(db, { actorId: user.id, action: 'plan.cancel', objectType: 'plan', objectId: planId, detail: { sequenceId, reason } });
+    const [plan] = await db.select().from(plans).where(eq(plans.id, planId));
+    res.json(planView(plan));
   });
 
   return router;

@@ -235,8 +235,8 @@ export const reverificationSchema = z.object({
   id: z.uuid(),
   fromProfileVersionId: z.uuid(),
   toProfileVersionId: z.uuid(),
-  /** queued | running | done | failed */
-  state: z.enum(['queued', 'running', 'done', 'failed']),
+  /** queued | running | done | failed | cancelled */
+  state: z.enum(['queued', 'running', 'done', 'failed', 'cancelled']),
   /** Angle between the stored and the recomputed final attitude, degrees (null until done). */
   attitudeShiftDeg: z.number().nullable(),
   /** Target error on the new profile, degrees (null until done). */

@@ -128,8 +128,8 @@ export const planCandidateSchema = z.object({
 });
 export type PlanCandidate = z.infer<typeof planCandidateSchema>;
 
-/** Plan states. */
-export const PLAN_STATES = ['queued', 'running', 'done', 'failed'] as const;
+/** Plan states: `cancelled` when a planner or an admin stopped it (its thread is stopped too). */
+export const PLAN_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
 export type PlanState = (typeof PLAN_STATES)[number];
 
 /** GET /sequences/:sequenceId/plans/:planId */

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { useLatestPlanQuery, usePlanQuery, useStartPlanMutation } from '@/components/api/use-plans';
+import { planEnded, useCancelPlanMutation, useLatestPlanQuery, usePlanQuery, useStartPlanMutation } from '@/components/api/use-plans';
 import { colors, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
@@ -48,7 +48,8 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
   const start = useStartPlanMutation(sequenceId);
   const plan = usePlanQuery(sequenceId, planId);
   const state = plan.data?.state;
-  const busy = start.isPending || (!!planId && state !== 'done' && state !== 'failed');
+  const cancel = useCancelPlanMutation(sequenceId);
+  const busy = start.isPending || (!!planId && !planEnded(state));
 
   return (
     <View style={styles.root} testID="suggest-steps">
@@ -67,11 +68,20 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
             {plan.data ? `${Math.round(plan.data.progress * 100)} % · ${plan.data.progressNote || plan.data.state}` : 'Queuing the planner…'}
           </Text>
         ) : null}
+        {busy && planId ? (
+          <Button label="Stop" icon="x" variant="ghost" size="sm" loading={cancel.isPending} onPress={() => cancel.mutate(planId)} testID="cancel-plan" />
+        ) : null}
       </View>
       <ErrorBanner title="Could not start the planner" error={start.error} />
+      <ErrorBanner title="Could not stop the planner" error={cancel.error} />
       <ErrorBanner title="Could not look up earlier suggestions" error={startedPlanId === null ? latest.error : null} />
       <ErrorBanner title="Could not read the plan" error={plan.error} />
       {state === 'failed' ? <ErrorBanner title="The planner failed" error={plan.data?.error ?? 'unknown error'} /> : null}
+      {state === 'cancelled' ? (
+        <Text tone="muted" role="status" testID="plan-cancelled">
+          Planning stopped. {plan.data?.error ?? ''} Nothing was suggested; start it again when you are ready.
+        </Text>
+      ) : null}
       {state === 'done' && plan.data ? (
         <View style={styles.list} role="list" aria-label="Suggested step lists">
           <Text variant="caption" tone="muted">

@@ -59,7 +59,8 @@ export function VersionList({ versions, selectedId, onOpen }: VersionListProps) 
           ) : null}
           {v.status === 'recheck' && v.reverification ? (
             <Text variant="caption" tone="danger">
-              Profile changed: {v.reverification.state === 'done' ? `final attitude moved ${fmtDeg(v.reverification.attitudeShiftDeg ?? 0, 2)}` : `recomputing (${v.reverification.state})`}
+              Profile changed: {v.reverification.state === 'done' ? `final attitude moved ${fmtDeg(v.reverification.attitudeShiftDeg ?? 0, 2)}`
+                : v.reverification.state === 'cancelled' ? 'recomputation stopped' : v.reverification.state === 'failed' ? 'recomputation failed' : `recomputing (${v.reverification.state})`}
             </Text>
           ) : null}
           {v.note ? (
