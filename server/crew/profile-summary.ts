@@ -1,7 +1,7 @@
 import type { Body } from '../../shared/contracts/body.ts';
 import type { ProfileSummary, Triple } from '../../shared/contracts/profile-version.ts';
-import { inertiaTensor } from '../../shared/model/mat3.ts';
-import { symmetricEigen3 } from '../../shared/model/symmetric-eigen.ts';
+import { inertiaTensor } from '../../shared/math/inertia.ts';
+import { symmetricEigen3 } from '../../shared/math/symmetric-eigen.ts';
 import { wholeBodyInertia } from '../../shared/model/whole-body.ts';
 
 /**

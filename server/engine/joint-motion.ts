@@ -7,6 +7,7 @@
 import type { Sequence, TrackStep } from '../../shared/contracts/sequence.ts';
 import { stepDuration } from '../../shared/contracts/sequence.ts';
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
+import { minimumJerk, minimumJerkSlope } from '../../shared/math/minimum-jerk.ts';
 import { naturalCubicSpline, uniformKnots } from '../../shared/math/natural-cubic-spline.ts';
 
 const DEG = Math.PI / 180;
@@ -129,10 +130,9 @@ export function evalPiece(piece: MotionPiece, t: number, q: Float64Array, qd: Fl
   const nd = from.length;
   if (piece.kind === 'move') {
     const T = piece.t1 - piece.t0;
-    const tau = Math.min(1, Math.max(0, (t - piece.t0) / T));
-    const t2 = tau * tau, t3 = t2 * tau;
-    const s = t3 * (10 - 15 * tau + 6 * t2);
-    const sd = (30 * t2 * (1 - 2 * tau + t2)) / T;
+    const tau = (t - piece.t0) / T;
+    const s = minimumJerk(tau);
+    const sd = minimumJerkSlope(tau) / T;
     const to = piece.to;
     for (let k = 0; k < nd; k++) {
       const delta = to[k] - from[k];
@@ -178,10 +178,9 @@ export function evalMoving(piece: MotionPiece, t: number, q: Float64Array, qd: F
   if (piece.kind === 'move') {
     const { from, to, moving } = piece;
     const T = piece.t1 - piece.t0;
-    const tau = Math.min(1, Math.max(0, (t - piece.t0) / T));
-    const t2 = tau * tau, t3 = t2 * tau;
-    const s = t3 * (10 - 15 * tau + 6 * t2);
-    const sd = (30 * t2 * (1 - 2 * tau + t2)) / T;
+    const tau = (t - piece.t0) / T;
+    const s = minimumJerk(tau);
+    const sd = minimumJerkSlope(tau) / T;
     for (let j = 0; j < moving.length; j++) {
       const k = moving[j];
       const delta = to[k] - from[k];

@@ -4,6 +4,7 @@
  */
 import type { RangeViolation } from '../../shared/contracts/result.ts';
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
+import { MINIMUM_JERK_PEAK_SLOPE, minimumJerk } from '../../shared/math/minimum-jerk.ts';
 import { evalPiece, type MotionPiece, type MotionPlan } from './joint-motion.ts';
 
 const DEG = 180 / Math.PI;
@@ -125,8 +126,7 @@ function dofAngle(piece: MotionPiece, k: number, hj: number, t: number): number 
   }
   if (hj >= 0) return piece.hOffset[hj] + piece.hAmplitude[hj] * Math.sin(piece.omega * (t - piece.t0) + piece.hPhase[hj]);
   if (piece.kind !== 'move') return piece.from[k];
-  const tau = Math.min(1, Math.max(0, (t - piece.t0) / (piece.t1 - piece.t0)));
-  return piece.from[k] + (piece.to[k] - piece.from[k]) * tau * tau * tau * (10 - 15 * tau + 6 * tau * tau);
+  return piece.from[k] + (piece.to[k] - piece.from[k]) * minimumJerk((t - piece.t0) / (piece.t1 - piece.t0));
 }
 
 function violation(model: BodyModel, piece: MotionPiece, k: number, bound: 'min' | 'max', limit: number, from: number, to: number, worstT: number, worstG: number): RangeViolation {
@@ -152,7 +152,7 @@ export function peakJointRates(model: BodyModel, plan: MotionPlan): { max: numbe
   for (const piece of plan.pieces) {
     if (piece.kind === 'move') {
       const T = piece.t1 - piece.t0;
-      for (let k = 0; k < model.dofCount; k++) consider(k, (1.875 * Math.abs(piece.to[k] - piece.from[k]) * DEG) / T, piece.t0 + T / 2);
+      for (let k = 0; k < model.dofCount; k++) consider(k, (MINIMUM_JERK_PEAK_SLOPE * Math.abs(piece.to[k] - piece.from[k]) * DEG) / T, piece.t0 + T / 2);
     } else if (piece.kind === 'track') {
       const span = piece.t1 - piece.t0;
       for (let j = 0; j < piece.tDofs.length; j++) {

@@ -1,10 +1,10 @@
-import type { Vec3 } from '../../shared/model/vec3.ts';
+import type { Vec3 } from '../../shared/math/vec3.ts';
 import type { DofName } from '../../shared/model/dof-names.ts';
 import type { SegmentName } from '../../shared/model/segment-names.ts';
 import { profileInputsSchema, type ProfileInputs, type ProfileInputsInput } from '../../shared/contracts/profile-inputs.ts';
 import { applyGear } from './apply-gear.ts';
 import { applySuit } from './apply-suit.ts';
-import { contractInertia, type ContractInertia } from './mass-properties.ts';
+import { inertiaList, type InertiaList } from '../../shared/math/inertia.ts';
 import { segmentGeometry, type SegmentGeometry } from './segment-geometry.ts';
 import { standardHumanSegments, type ModelSegment } from './standard-human.ts';
 
@@ -18,7 +18,7 @@ export interface DerivedSegment {
   /** CoM in the segment frame, m. */
   com: Vec3;
   /** About the CoM, segment frame, kg·m²: [Ixx, Iyy, Izz] or [Ixx, Iyy, Izz, Ixy, Ixz, Iyz]. */
-  inertia: ContractInertia;
+  inertia: InertiaList;
   /** Absent for the root. Origin in the parent frame (m); dof ranges in degrees. */
   joint?: { origin: Vec3; dofs: { name: DofName; axis: Vec3; min: number; max: number }[] };
 }
@@ -84,7 +84,7 @@ function defaultBodyName(i: ProfileInputs): string {
 }
 
 function toContractSegment(s: ModelSegment): DerivedSegment {
-  const out: DerivedSegment = { name: s.name, mass: s.props.mass, com: [...s.props.com], inertia: contractInertia(s.props.inertia) };
+  const out: DerivedSegment = { name: s.name, mass: s.props.mass, com: [...s.props.com], inertia: inertiaList(s.props.inertia) };
   if (s.parent) out.parent = s.parent;
   if (s.joint) out.joint = { origin: [...s.joint.origin], dofs: s.joint.dofs.map((d) => ({ ...d, axis: [...d.axis] })) };
   // key order as the contract example shows it

@@ -1,4 +1,4 @@
-import type { Vec3 } from '../../shared/model/vec3.ts';
+import type { Vec3 } from '../../shared/math/vec3.ts';
 import type { DofName } from '../../shared/model/dof-names.ts';
 import { UNSUITED_DOF_RANGES } from './data/joint-ranges-unsuited.ts';
 

@@ -1,4 +1,4 @@
-import type { Vec3 } from '../../shared/model/vec3.ts';
+import type { Vec3 } from '../../shared/math/vec3.ts';
 import type { DofName } from '../../shared/model/dof-names.ts';
 import type { SegmentName } from '../../shared/model/segment-names.ts';
 import type { ProfileInputs } from '../../shared/contracts/profile-inputs.ts';

@@ -11,6 +11,7 @@ import { BLEND_SPEED_DEG_S, blendDurationS } from '../../shared/primitives/compi
 import { primitiveMotion } from '../../shared/primitives/primitive-motion.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { harmonicAngleDeg } from '../../shared/contracts/sequence.ts';
+import { MINIMUM_JERK_PEAK_SLOPE } from '../../shared/math/minimum-jerk.ts';
 import { RATE_MARGIN, type PlanFamily } from './plan-families.ts';
 
 /** One phase of a candidate. */
@@ -22,8 +23,6 @@ export interface CandidatePart {
   cycles: number;
 }
 
-/** Peak speed of a minimum-jerk blend relative to its average, 15/8 (Flash & Hogan 1985). */
-const MIN_JERK_PEAK_RATIO = 1.875;
 const ceilTo = (x: number, step: number) => Math.ceil(x / step - 1e-9) * step;
 
 /** The joint angles a sweep starts (and, with whole cycles, ends) at, degrees. */
@@ -38,13 +37,13 @@ export function sweepStartAngles(sweep: Primitive): Record<string, number> {
 /** Duration of a blend between the reference posture and a sweep's start that respects the rate limit, seconds. */
 export function blendToSweepS(sweep: Primitive, rateLimitDegS: number): number {
   const maxDelta = Math.max(0, ...Object.values(sweepStartAngles(sweep)).map(Math.abs));
-  const forRate = (MIN_JERK_PEAK_RATIO * maxDelta) / (RATE_MARGIN * rateLimitDegS);
+  const forRate = (MINIMUM_JERK_PEAK_SLOPE * maxDelta) / (RATE_MARGIN * rateLimitDegS);
   return Math.min(120, Math.max(blendDurationS(maxDelta), ceilTo(forRate, 0.05)));
 }
 
 /** Whether the compiler's own blend (BLEND_SPEED_DEG_S on average, ≥ 0.5 s) would exceed the rate limit. */
 function compilerBlendTooFast(rateLimitDegS: number): boolean {
-  return MIN_JERK_PEAK_RATIO * BLEND_SPEED_DEG_S > RATE_MARGIN * rateLimitDegS;
+  return MINIMUM_JERK_PEAK_SLOPE * BLEND_SPEED_DEG_S > RATE_MARGIN * rateLimitDegS;
 }
 
 /** The composer primitives of one phase. */

@@ -3,8 +3,7 @@
  * limits in degrees. Frame convention: x anterior, y to the person's left, z toward the head.
  */
 import { z } from 'zod';
-import { symmetricEigenvalues3 } from '../math/mat3.ts';
-import { inertiaTensor } from '../kinematics/inertia-tensor.ts';
+import { checkInertia } from '../math/inertia.ts';
 import { type ContractIssue, type ContractResult, zodIssuesToContract } from './contract-issue.ts';
 
 const finite = (what: string) =>
@@ -70,11 +69,6 @@ export const bodySchema = z.object({
 /** A body as written in the contract (angles in degrees, SI units). */
 export type Body = z.infer<typeof bodySchema>;
 
-/** Relative slack for the triangle inequality on principal moments (rounding in hand-typed tables). */
-const TRIANGLE_SLACK = 1e-9;
-
-export { inertiaTensor };
-
 function describeBodyPath(raw: unknown, path: readonly PropertyKey[]): string {
   if (path[0] !== 'segments' || typeof path[1] !== 'number') return '';
   const seg = (raw as { segments?: { name?: unknown }[] }).segments?.[path[1]];
@@ -111,11 +105,12 @@ function checkBodySemantics(body: Body): ContractIssue[] {
     }
     // Mass and inertia.
     if (!(s.mass > 0)) add(i, 'mass', `mass must be positive (got ${s.mass} kg)`);
-    const eig = symmetricEigenvalues3(inertiaTensor(s.inertia));
-    if (!(eig[0] > 0)) {
-      add(i, 'inertia', `inertia tensor is not positive definite (principal moments ${eig.map((e) => e.toPrecision(4)).join(', ')} kg·m²)`);
-    } else if (eig[0] + eig[1] < eig[2] * (1 - TRIANGLE_SLACK)) {
-      add(i, 'inertia', `principal moments ${eig.map((e) => e.toPrecision(4)).join(', ')} kg·m² break the triangle inequality (the two smaller must sum to at least the largest)`);
+    const { moments, problem } = checkInertia(s.inertia, 'definite');
+    const listed = moments.map((e) => e.toPrecision(4)).join(', ');
+    if (problem === 'not_positive') {
+      add(i, 'inertia', `inertia tensor is not positive definite (principal moments ${listed} kg·m²)`);
+    } else if (problem === 'triangle') {
+      add(i, 'inertia', `principal moments ${listed} kg·m² break the triangle inequality (the two smaller must sum to at least the largest)`);
     }
     // Dofs: non-zero axes, unique names, ordered limits.
     s.joint?.dofs.forEach((d, k) => {

@@ -46,7 +46,7 @@ export function createBodyPose(model: BodyModel): BodyPose {
  * Segments (indices, tree order) whose pose relative to the root changes when the dofs listed in
  * `movingDofs` change: those with a moving dof of their own or a moving ancestor.
  */
-export function movingSegments(model: BodyModel, movingDofs: ArrayLike<number>): Int32Array {
+function movingSegments(model: BodyModel, movingDofs: ArrayLike<number>): Int32Array {
   const n = model.segmentCount;
   const moves = new Uint8Array(n);
   const dofMoves = new Uint8Array(model.dofCount);

@@ -29,7 +29,7 @@ export function naturalCubicSpline(x: ArrayLike<number>, y: ArrayLike<number>): 
 }
 
 /** Index of the interval holding x (clamped to the first and last interval). */
-export function splineInterval(s: CubicSpline, x: number): number {
+function splineInterval(s: CubicSpline, x: number): number {
   const n = s.knots.length - 1;
   let lo = 0, hi = n - 1;
   if (x <= s.knots[0]) return 0;

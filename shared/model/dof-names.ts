@@ -1,5 +1,3 @@
-import type { SegmentName } from './segment-names.ts';
-
 /**
  * The joint degrees of freedom of the standard human model, in the order the derived body lists
  * them. Angles in degrees; 0 is the reference posture (standing, arms at the sides, palms forward).
@@ -29,28 +27,6 @@ export const DOF_NAMES = [
 
 /** One dof name of the standard human model. */
 export type DofName = (typeof DOF_NAMES)[number];
-
-/** Which segment's joint (the joint between the segment and its parent) carries each dof. */
-export const DOF_SEGMENT: Record<DofName, SegmentName> = {
-  waist_rot: 'lower_trunk',
-  waist_flex: 'lower_trunk',
-  l_sh_flex: 'l_upper_arm',
-  l_sh_abd: 'l_upper_arm',
-  l_sh_rot: 'l_upper_arm',
-  l_elbow_flex: 'l_forearm',
-  r_sh_flex: 'r_upper_arm',
-  r_sh_abd: 'r_upper_arm',
-  r_sh_rot: 'r_upper_arm',
-  r_elbow_flex: 'r_forearm',
-  l_hip_flex: 'l_thigh',
-  l_hip_abd: 'l_thigh',
-  l_hip_rot: 'l_thigh',
-  l_knee_flex: 'l_shank',
-  r_hip_flex: 'r_thigh',
-  r_hip_abd: 'r_thigh',
-  r_hip_rot: 'r_thigh',
-  r_knee_flex: 'r_shank',
-};
 
 /** Display labels for screens, the composer and cue cards. */
 export const DOF_LABELS: Record<DofName, string> = {

@@ -2,8 +2,7 @@ import { z } from 'zod';
 
 import { DOF_NAMES } from './dof-names.ts';
 import { SEGMENT_NAMES } from './segment-names.ts';
-import { symmetricEigen3 } from './symmetric-eigen.ts';
-import { inertiaTensor } from './mat3.ts';
+import { checkInertia } from '../math/inertia.ts';
 
 /** A segment name of the standard human model. */
 export const segmentNameSchema = z.enum(SEGMENT_NAMES);
@@ -23,11 +22,10 @@ export const vec3Schema = z.tuple([z.number().finite(), z.number().finite(), z.n
 export const addedInertiaSchema = z
   .union([z.array(z.number().finite()).length(3), z.array(z.number().finite()).length(6)])
   .superRefine((list, ctx) => {
-    const { values } = symmetricEigen3(inertiaTensor(list));
-    const scale = Math.max(1e-12, Math.abs(values[2]));
-    if (values[0] < -1e-9 * scale) {
+    const { problem } = checkInertia(list, 'semidefinite');
+    if (problem === 'not_positive') {
       ctx.addIssue({ code: 'custom', message: 'inertia must be positive semi-definite (a principal moment is negative)' });
-    } else if (values[0] + values[1] < values[2] - 1e-9 * scale) {
+    } else if (problem === 'triangle') {
       ctx.addIssue({ code: 'custom', message: 'inertia breaks the triangle inequality (I1 + I2 < I3)' });
     }
   });

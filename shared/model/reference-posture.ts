@@ -1,15 +1,5 @@
-import { DOF_NAMES, type DofName } from './dof-names.ts';
-
 /** Joint angles in degrees, keyed by dof name; a dof left out is at 0 (its reference value). */
 export type Posture = Partial<Record<string, number>>;
-
-/**
- * The reference posture: every dof at 0° — standing upright, arms hanging at the sides with the
- * palms forward (the anatomical position), legs straight and together at hip-joint spacing.
- */
-export const REFERENCE_POSTURE: Readonly<Record<DofName, number>> = Object.freeze(
-  Object.fromEntries(DOF_NAMES.map((name) => [name, 0])) as Record<DofName, number>,
-);
 
 /** Both arms straight overhead (shoulders flexed 180°), the rest as in the reference posture. */
 export const ARMS_OVERHEAD_POSTURE: Readonly<Posture> = Object.freeze({ l_sh_flex: 180, r_sh_flex: 180 });

@@ -24,28 +24,6 @@ export const SEGMENT_NAMES = [
 /** One segment name of the standard human model. */
 export type SegmentName = (typeof SEGMENT_NAMES)[number];
 
-/** The root segment of the standard human model: its frame is the body frame the attitude refers to. */
-export const ROOT_SEGMENT: SegmentName = 'upper_trunk';
-
-/** Each segment's parent in the standard human model (the root has none). */
-export const SEGMENT_PARENT: Record<SegmentName, SegmentName | null> = {
-  upper_trunk: null,
-  head_neck: 'upper_trunk',
-  l_upper_arm: 'upper_trunk',
-  l_forearm: 'l_upper_arm',
-  l_hand: 'l_forearm',
-  r_upper_arm: 'upper_trunk',
-  r_forearm: 'r_upper_arm',
-  r_hand: 'r_forearm',
-  lower_trunk: 'upper_trunk',
-  l_thigh: 'lower_trunk',
-  l_shank: 'l_thigh',
-  l_foot: 'l_shank',
-  r_thigh: 'lower_trunk',
-  r_shank: 'r_thigh',
-  r_foot: 'r_shank',
-};
-
 /** Display labels for screens and tables. */
 export const SEGMENT_LABELS: Record<SegmentName, string> = {
   upper_trunk: 'Upper trunk',

@@ -1,10 +1,11 @@
 import type { Body } from '../contracts/body.ts';
 import { compileBody } from '../kinematics/body-model.ts';
 import { createBodyPose, forwardKinematics } from '../kinematics/forward-kinematics.ts';
-import type { Vec3 } from './vec3.ts';
-import { add3, pointMassTensor, rotateTensor, type Mat3 } from './mat3.ts';
+import { pointMassTensor, rotateTensor } from '../math/inertia.ts';
+import { mat3Add } from '../math/mat3.ts';
+import { symmetricEigen3 } from '../math/symmetric-eigen.ts';
+import type { Vec3 } from '../math/vec3.ts';
 import type { Posture } from './reference-posture.ts';
-import { symmetricEigen3 } from './symmetric-eigen.ts';
 
 /** Whole-body mass properties in one posture, expressed in the root segment's frame. */
 export interface WholeBodyInertia {
@@ -12,8 +13,8 @@ export interface WholeBodyInertia {
   mass: number;
   /** System centre of mass in the root frame, m. */
   com: Vec3;
-  /** Inertia tensor about the system CoM in the root frame, kg·m² (rows). */
-  inertia: Mat3;
+  /** Inertia tensor about the system CoM in the root frame, kg·m² (flat, row-major). */
+  inertia: number[];
   /** Principal moments about the system CoM, ascending, kg·m². */
   principalMoments: Vec3;
   /** Unit principal axes in the root frame; principalAxes[k] belongs to principalMoments[k]. */
@@ -45,20 +46,11 @@ export function wholeBodyInertia(body: Body, posture: Posture = {}): WholeBodyIn
     for (let k = 0; k < 3; k++) com[k] += (model.mass[i] * pose.comPos[3 * i + k]) / model.totalMass;
 
   // each segment's own inertia turned into the root frame, plus its parallel-axis term
-  let inertia: Mat3 = [
-    [0, 0, 0],
-    [0, 0, 0],
-    [0, 0, 0],
-  ];
+  let inertia = new Array<number>(9).fill(0);
   for (let i = 0; i < model.segmentCount; i++) {
-    const rows = (a: ArrayLike<number>, o: number): Mat3 => [
-      [a[o], a[o + 1], a[o + 2]],
-      [a[o + 3], a[o + 4], a[o + 5]],
-      [a[o + 6], a[o + 7], a[o + 8]],
-    ];
-    const d: Vec3 = [0, 1, 2].map((k) => pose.comPos[3 * i + k] - com[k]) as Vec3;
-    inertia = add3(inertia, rotateTensor(rows(pose.rot, 9 * i), rows(model.inertia, 9 * i)));
-    inertia = add3(inertia, pointMassTensor(model.mass[i], d));
+    const d = [0, 1, 2].map((k) => pose.comPos[3 * i + k] - com[k]);
+    inertia = mat3Add(inertia, rotateTensor(pose.rot.subarray(9 * i, 9 * i + 9), model.inertia.subarray(9 * i, 9 * i + 9)));
+    inertia = mat3Add(inertia, pointMassTensor(model.mass[i], d));
   }
   const eig = symmetricEigen3(inertia);
   return { mass: model.totalMass, com, inertia, principalMoments: eig.values, principalAxes: eig.vectors };
