@@ -21,18 +21,22 @@ export function linearScale(domain: readonly [number, number], range: readonly [
   return f;
 }
 
-/** The 1-2-5 step nearest to span/count, e.g. 0.2, 5, 50. */
+/**
+ * The 1-2-5 step nearest to span/count (on a log scale: the switch points are √2, √10 and √50, as in
+ * d3-array's tickStep, which the tests compare with), e.g. 0.2, 5, 50.
+ */
 export function niceStep(span: number, count: number): number {
   if (!(span > 0) || !(count > 0)) return 1;
   const raw = span / count;
   const mag = 10 ** Math.floor(Math.log10(raw));
   const norm = raw / mag;
-  const nice = norm < 1.5 ? 1 : norm < 3 ? 2 : norm < 7 ? 5 : 10;
+  const nice = norm < Math.SQRT2 ? 1 : norm < Math.sqrt(10) ? 2 : norm < Math.sqrt(50) ? 5 : 10;
   return nice * mag;
 }
 
 /**
- * Widens [lo, hi] to whole tick steps and lists the ticks (about `count` of them).
+ * Widens [lo, hi] to whole tick steps and lists the ticks (about `count` of them), like d3-scale's
+ * nice() then ticks() (the tests compare them).
  * A degenerate interval (lo = hi) is widened by ±1 so a flat line still gets an axis.
  */
 export function niceDomain(lo: number, hi: number, count = 5): { domain: [number, number]; ticks: number[] } {
@@ -41,9 +45,18 @@ export function niceDomain(lo: number, hi: number, count = 5): { domain: [number
     lo -= 1;
     hi += 1;
   }
-  const step = niceStep(hi - lo, count);
-  const start = Math.floor(lo / step) * step;
-  const end = Math.ceil(hi / step) * step;
+  // Widen to whole steps, then re-step the widened span until the step settles (as d3's nice() does):
+  // a span that grows past a switch point would otherwise get twice the ticks asked for.
+  let step = niceStep(hi - lo, count);
+  let start = Math.floor(lo / step) * step;
+  let end = Math.ceil(hi / step) * step;
+  for (let i = 0; i < 10; i++) {
+    const next = niceStep(end - start, count);
+    if (next === step) break;
+    step = next;
+    start = Math.floor(start / step) * step;
+    end = Math.ceil(end / step) * step;
+  }
   const ticks: number[] = [];
   // Index-based so floating-point steps do not drift (0.1 + 0.2 …).
   for (let i = 0; start + i * step <= end + step * 1e-9; i++) ticks.push(roundTick(start + i * step, step));
