@@ -52,9 +52,9 @@ export const MODEL_VERSION = 'standard-human-1';
 /**
  * Derive a crew member's body (contract JSON) from profile inputs: the standard human model
  * (de Leva 1996 Table 4, scaled by stature and mass, measured lengths overriding), then the suit,
- * then the gear. Throws ProfileInputError (naming the field) on bad inputs; never returns a partial body.
+ * then the gear (`carryingAngleDeg` overrides the model's carrying angle, for comparisons). Throws ProfileInputError (naming the field) on bad inputs; never returns a partial body.
  */
-export function deriveBody(raw: ProfileInputsInput, options: { name?: string } = {}): Derivation {
+export function deriveBody(raw: ProfileInputsInput, options: { name?: string; carryingAngleDeg?: number } = {}): Derivation {
   const parsed = profileInputsSchema.safeParse(raw);
   if (!parsed.success) {
     const issue = parsed.error.issues[0];
@@ -68,7 +68,7 @@ export function deriveBody(raw: ProfileInputsInput, options: { name?: string } =
     const e = err as Error & { field?: string };
     throw new ProfileInputError(e.field ?? 'lengths', e.message.replace(/^[\w.]+: /, ''));
   }
-  let segments = standardHumanSegments(inputs, geometry);
+  let segments = standardHumanSegments(inputs, geometry, options.carryingAngleDeg);
   if (inputs.suit) segments = applySuit(segments, inputs.suit);
   segments = applyGear(segments, inputs.gear);
   const name = options.name ?? defaultBodyName(inputs);

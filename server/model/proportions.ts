@@ -39,3 +39,12 @@ export const HIP_JOINT_SPACING_PER_STATURE = 0.1;
  * centre (approximation).
  */
 export const HEEL_BEHIND_ANKLE_PER_FOOT_LENGTH = 0.2;
+
+/**
+ * Carrying angle: in the anatomical position (elbows straight, palms forward) the forearm and hand
+ * angle away from the body by this much relative to the upper arm, so the hands hang beside the
+ * hips rather than under the shoulders. Typical adult values of 10–15°, larger in women (anatomy
+ * texts, from memory): men 11°, women 14° here. This places forearm and hand mass further from the
+ * long axis, which brings the long-axis moment closer to measured subjects (tests/model/whole-body-inertia.test.ts).
+ */
+export const CARRYING_ANGLE_DEG: Record<Sex, number> = { male: 11, female: 14 };

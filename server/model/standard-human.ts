@@ -5,7 +5,8 @@ import type { ProfileInputs } from '../../shared/contracts/profile-inputs.ts';
 import { DE_LEVA_TABLE_4, type DeLevaSegment, type Sex } from './data/de-leva-1996-table4.ts';
 import { unsuitedDofs, type ModelDof } from './joints.ts';
 import { combineMassProperties, type MassProperties } from './mass-properties.ts';
-import { HEEL_BEHIND_ANKLE_PER_FOOT_LENGTH } from './proportions.ts';
+import { CARRYING_ANGLE_DEG, HEEL_BEHIND_ANKLE_PER_FOOT_LENGTH } from './proportions.ts';
+import { axisAngleMatrix, rotateTensor } from '../../shared/model/mat3.ts';
 import type { SegmentGeometry } from './segment-geometry.ts';
 import { deLevaPrincipalInertia, type LongAxis } from './segment-inertia.ts';
 
@@ -50,11 +51,12 @@ export function tableMassSum(sex: Sex): number {
  * - head_neck: origin at suprasternale (rigid neck); CoM on the midline at de Leva's fraction of
  *   VERT–MIDG below the vertex, the vertex at stature height.
  * - limbs: origin at the proximal joint centre, the long axis along −z, CoM on it at de Leva's
- *   fraction from the proximal joint. Shoulder joint centres at ± half the biacromial breadth, hip
+ *   fraction from the proximal joint; forearm and hand slant outward by the carrying angle
+ *   (proportions.ts), their inertia turned with them. Shoulder joint centres at ± half the biacromial breadth, hip
  *   joint centres at ± half the hip breadth. Feet lie along +x below the ankle.
  * All segment CoMs lie in the sagittal plane of their segment (x = 0) except the foot's.
  */
-export function standardHumanSegments(inputs: ProfileInputs, g: SegmentGeometry): ModelSegment[] {
+export function standardHumanSegments(inputs: ProfileInputs, g: SegmentGeometry, carryingAngleDeg: number = CARRYING_ANGLE_DEG[inputs.sex]): ModelSegment[] {
   const t = DE_LEVA_TABLE_4[inputs.sex];
   const L = g.lengths;
   // the published fractions keep their precision; their rounding residue is spread in proportion
@@ -85,6 +87,10 @@ export function standardHumanSegments(inputs: ProfileInputs, g: SegmentGeometry)
   for (const side of ['l', 'r'] as const) {
     const y = ((side === 'l' ? 1 : -1) * g.biacromialBreadth) / 2;
     const dof = (n: string) => `${side}_${n}` as DofName;
+    // forearm and hand slant outward by the carrying angle (frames stay parallel to the body's)
+    const slant = ((side === 'l' ? 1 : -1) * carryingAngleDeg * Math.PI) / 180;
+    const down = (d: number): Vec3 => [0, Math.sin(slant) * d, -Math.cos(slant) * d];
+    const slanted = (p: MassProperties): MassProperties => ({ ...p, inertia: rotateTensor(axisAngleMatrix([1, 0, 0], slant), p.inertia) });
     segments.push(
       {
         name: `${side}_upper_arm`,
@@ -95,14 +101,14 @@ export function standardHumanSegments(inputs: ProfileInputs, g: SegmentGeometry)
       {
         name: `${side}_forearm`,
         parent: `${side}_upper_arm`,
-        props: part('forearm', L.forearm, [0, 0, -t.forearm.com * L.forearm]),
+        props: slanted(part('forearm', L.forearm, down(t.forearm.com * L.forearm))),
         joint: { origin: [0, 0, -L.upperArm], dofs: unsuitedDofs([dof('elbow_flex')]) },
       },
       {
         name: `${side}_hand`,
         parent: `${side}_forearm`,
-        props: part('hand', L.hand, [0, 0, -t.hand.com * L.hand]),
-        joint: { origin: [0, 0, -L.forearm], dofs: [] },
+        props: slanted(part('hand', L.hand, down(t.hand.com * L.hand))),
+        joint: { origin: down(L.forearm), dofs: [] },
       },
     );
   }

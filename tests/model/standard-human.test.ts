@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 
 import { compileBody } from '../../shared/kinematics/body-model.ts';
+import { symmetricEigenvalues3 } from '../../shared/math/mat3.ts';
 import { createBodyPose, forwardKinematics } from '../../shared/kinematics/forward-kinematics.ts';
 import { SEGMENT_NAMES } from '../../shared/model/segment-names.ts';
 import { deriveBody, ProfileInputError, type DerivedBody, type DerivedSegment } from '../../server/model/derive-body.ts';
@@ -9,6 +10,9 @@ import { deLevaRow } from './reference-tables.ts';
 
 // Outside reference: de Leva P. (1996) Adjustments to Zatsiorsky-Seluyanov's segment inertia
 // parameters, J. Biomech. 29(9):1223-1230, Table 4 (shared transcription, read from CSV here).
+
+/** Carrying angle of the model's forearm and hand (server/model/proportions.ts; anatomy texts, from memory). */
+const CARRYING = { male: 11, female: 14 } as const;
 
 /** Mean statures of de Leva's reference samples (the transcription's header): lengths scale from them. */
 const REF_STATURE = { male: 1.741, female: 1.735 } as const;
@@ -67,12 +71,16 @@ describe('standard human model reproduces de Leva (1996) Table 4', () => {
       for (const side of ['l', 'r'])
         for (const [name, table, child] of chain) {
           const s = seg(body, `${side}_${name}`);
-          // CoM on the long axis (−z) at the table's fraction of length from the proximal joint
+          // CoM on the long axis at the table's fraction of length from the proximal joint; the long
+          // axis is −z, turned outward by the carrying angle for forearm and hand
+          const slant = ((name === 'forearm' || name === 'hand' ? CARRYING[sex] : 0) * Math.PI) / 180;
+          const out = side === 'l' ? 1 : -1;
+          const along = (d: number) => [0, out * Math.sin(slant) * d, -Math.cos(slant) * d];
           expect(s.com[0]).toBe(0);
-          expect(s.com[1]).toBe(0);
-          expect(-s.com[2] / L(table)).toBeCloseTo(deLevaRow(sex, table).com, 12);
-          // the distal joint sits one segment length down
-          if (child) expect(seg(body, `${side}_${child}`).joint?.origin).toEqual([0, 0, expect.closeTo(-L(table), 12)]);
+          expect(Math.hypot(...s.com) / L(table)).toBeCloseTo(deLevaRow(sex, table).com, 12);
+          along(deLevaRow(sex, table).com * L(table)).forEach((v, k) => expect(s.com[k] + 0).toBeCloseTo(v, 12));
+          // the distal joint sits one segment length down the long axis
+          if (child) along(L(table)).forEach((v, k) => expect(seg(body, `${side}_${child}`).joint!.origin[k] + 0).toBeCloseTo(v, 12));
         }
       const pelvis = seg(body, 'lower_trunk');
       expect(-pelvis.com[2] / L('lower_trunk')).toBeCloseTo(deLevaRow(sex, 'lower_trunk').com, 12);
@@ -83,9 +91,16 @@ describe('standard human model reproduces de Leva (1996) Table 4', () => {
       const check = (name: string, table: string, longAxis: 'x' | 'z') => {
         const s = seg(body, name);
         const r = deLevaRow(sex, table);
+        const expected = longAxis === 'z' ? [r.rg_sag, r.rg_trans, r.rg_long] : [r.rg_long, r.rg_trans, r.rg_sag];
+        if (/forearm|hand/.test(name)) {
+          // turned by the carrying angle: the principal moments are the table's
+          const [a, b, c, xy, xz, yz] = s.inertia.length === 6 ? s.inertia : [...s.inertia, 0, 0, 0];
+          const moments = symmetricEigenvalues3([a, xy, xz, xy, b, yz, xz, yz, c]).map((I) => Math.sqrt(I / s.mass) / L(table));
+          [...expected].sort((u, v) => u - v).forEach((v, i) => expect(moments[i], `${name}[${i}]`).toBeCloseTo(v, 10));
+          return;
+        }
         const k = s.inertia.map((I) => Math.sqrt(I / s.mass) / L(table));
         expect(s.inertia).toHaveLength(3);
-        const expected = longAxis === 'z' ? [r.rg_sag, r.rg_trans, r.rg_long] : [r.rg_long, r.rg_trans, r.rg_sag];
         k.forEach((v, i) => expect(v, `${name}[${i}]`).toBeCloseTo(expected[i], 12));
       };
       check('head_neck', 'head', 'z');
