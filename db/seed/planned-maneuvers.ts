@@ -27,7 +27,8 @@ export const PLANNED_DEMO_MANEUVERS: PlannedManeuverSpec[] = [
   { crew: 'moss', name: 'Quarter turn to the left', yprDeg: { yaw: 90, pitch: 0, roll: 0 } },
   { crew: 'reed', name: 'Half turn to face aft', yprDeg: { yaw: 180, pitch: 0, roll: 0 } },
   { crew: 'kettle', name: 'Pitch-over in the suit (forward 90°)', yprDeg: { yaw: 0, pitch: 90, roll: 0 } },
-  { crew: 'kettle', name: 'Quarter turn in the suit', yprDeg: { yaw: 90, pitch: 0, roll: 0 } },
+  { crew: 'kettle', name: 'Quarter turn to the left in the suit', yprDeg: { yaw: 90, pitch: 0, roll: 0 } },
+  { crew: 'moss', name: 'Roll 45° to the right', yprDeg: { yaw: 0, pitch: 0, roll: 45 } },
 ];
 
 /** Path of the committed plans. */

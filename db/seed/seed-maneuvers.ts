@@ -3,6 +3,8 @@
  * every status and reports really computed by the engine on the bound profile versions. Targets
  * are set to what the newest version reaches (rounded to whole degrees), as a planner would after
  * tuning the cycles. Everything here is invented demo data for the fictional "Lumen Ring" station.
+ * Names say what the newest version does on its body (axis, direction, size): +yaw turns to the
+ * left, +pitch forward (head down), +roll to the right (tests/planning/demo-names.test.ts checks them).
  */
 import { desc, eq } from 'drizzle-orm';
 
@@ -25,7 +27,7 @@ const PLANNER_2 = 'pim.sorrel@lumen.example.test';
 const REVIEWER = 'juno.brack@lumen.example.test';
 
 /** One demo version: its primitives, status, and (for decided ones) the review. */
-interface DemoVersion {
+export interface DemoVersion {
   primitives: Primitive[];
   status: VersionStatus;
   /** Profile version number it is bound to (default: the member's current one). */
@@ -36,7 +38,7 @@ interface DemoVersion {
 }
 
 /** One demo sequence. */
-interface DemoSequence {
+export interface DemoSequence {
   crew: string;
   name: string;
   versions: DemoVersion[];
@@ -59,7 +61,7 @@ const ARM_ORBITS: Primitive[] = [
  * The demo maneuvers. Reed's profile has two versions (v1 pre-flight, v2 current), so her drill
  * cleared on v1 is now `recheck`; every trainee has a cleared maneuver to rehearse.
  */
-const DEMO_SEQUENCES: DemoSequence[] = [
+export const DEMO_SEQUENCES: DemoSequence[] = [
   {
     crew: 'moss', name: 'Yaw to the right by hip swirls',
     versions: [
@@ -68,7 +70,7 @@ const DEMO_SEQUENCES: DemoSequence[] = [
     ],
   },
   {
-    crew: 'reed', name: 'Pitch recovery with arm orbits',
+    crew: 'reed', name: 'Forward pitch with arm orbits',
     versions: [
       {
         primitives: [{ ...ARM_ORBITS[0], halfAngleDeg: 35, periodS: 1 } as Primitive, ARM_ORBITS[1]], status: 'sent_back', note: 'Large fast orbits.',
@@ -78,7 +80,7 @@ const DEMO_SEQUENCES: DemoSequence[] = [
     ],
   },
   {
-    crew: 'reed', name: 'Roll trim with one-arm loops',
+    crew: 'reed', name: 'Yaw trim with right-arm loops',
     versions: [{ primitives: [{ kind: 'arm_loop', arms: 'right', plane: 'frontal', swingDeg: 30, elbowDeg: 30, bendOn: 'forward_swing', cycles: 3, periodS: 2 }], status: 'drafting', note: 'Work in progress.' }],
   },
   {
@@ -91,7 +93,7 @@ const DEMO_SEQUENCES: DemoSequence[] = [
     versions: [{ primitives: HIP_SWIRLS, status: 'cleared', note: 'Drill on the current profile.', review: { decision: 'clear', comment: 'Cleared for cabin practice.' } }],
   },
   {
-    crew: 'kettle', name: 'Spacewalk pitch-over with leg pedalling',
+    crew: 'kettle', name: 'Spacewalk pitch trim with leg pedalling',
     versions: [{
       primitives: [
         { kind: 'leg_pedal', legs: 'both', pattern: 'together', hipCentreDeg: 40, hipSwingDeg: 20, kneeCentreDeg: 50, kneeSwingDeg: 25, direction: 'forward', cycles: 4, periodS: 2 },
@@ -101,8 +103,8 @@ const DEMO_SEQUENCES: DemoSequence[] = [
     }],
   },
   {
-    crew: 'moss', name: 'Cabin yaw with arm loops',
-    versions: [{ primitives: [{ kind: 'arm_loop', arms: 'both', plane: 'horizontal', swingDeg: 25, elbowDeg: 30, bendOn: 'return_swing', cycles: 4, periodS: 2 }], status: 'drafting', note: 'First try.' }],
+    crew: 'moss', name: 'Cabin yaw to the left with left-arm loops',
+    versions: [{ primitives: [{ kind: 'arm_loop', arms: 'left', plane: 'sagittal', swingDeg: 25, elbowDeg: 30, bendOn: 'return_swing', cycles: 4, periodS: 2 }], status: 'drafting', note: 'First try.' }],
   },
 ];
 

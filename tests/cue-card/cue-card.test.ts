@@ -23,7 +23,7 @@ const BRAM = 'bram.kettle@lumen.example.test';
 const PLANNER = 'orrin.vale@lumen.example.test';
 
 let t: TestApp;
-/** Ids of seeded versions: Reed's cleared "Cabin yaw with hip swirls", her drafting "Roll trim…", Kettle's cleared one. */
+/** Ids of seeded versions: Reed's cleared "Cabin yaw with hip swirls", her drafting "Yaw trim…", Kettle's cleared one. */
 let cleared: string, drafting: string, kettles: string;
 
 /** The id of the seeded version of `name` in `status`. */
@@ -38,8 +38,8 @@ async function versionOf(name: string, status: 'cleared' | 'drafting'): Promise<
 beforeAll(async () => {
   t = await startTestApp();
   cleared = await versionOf('Cabin yaw with hip swirls', 'cleared');
-  drafting = await versionOf('Roll trim with one-arm loops', 'drafting');
-  kettles = await versionOf('Spacewalk pitch-over with leg pedalling', 'cleared');
+  drafting = await versionOf('Yaw trim with right-arm loops', 'drafting');
+  kettles = await versionOf('Spacewalk pitch trim with leg pedalling', 'cleared');
 }, 120_000);
 afterAll(async () => {
   await t?.close();
