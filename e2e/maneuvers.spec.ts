@@ -117,6 +117,12 @@ test.describe('maneuvers: compose, verify, review', () => {
     // Submit for review.
     await planner.getByRole('radio', { name: /^Steps/ }).click();
     await planner.getByTestId('submit-review').click();
+    // The confirmation names the version and its figures; a note goes with it (required if a check fails).
+    const submitSheet = planner.getByRole('dialog', { name: 'Submit version 1 for review?' });
+    await expect(submitSheet.getByTestId('key-error')).toBeVisible();
+    await submitSheet.getByTestId('submit-note').fill('Composed in the browser test; judge the arm loops.');
+    await submitSheet.getByTestId('submit-confirm').click();
+    await expect(submitSheet).toBeHidden();
     await expect(planner.getByText('Under review', { exact: true }).filter({ visible: true }).first()).toBeVisible();
     await expect(planner.getByTestId('submit-review')).toBeHidden();
 
@@ -138,6 +144,10 @@ test.describe('maneuvers: compose, verify, review', () => {
     await expect(detail.getByTestId('verification-report')).toBeVisible();
     await detail.getByRole('textbox', { name: 'Comment', exact: true }).fill('Margins to the shoulder limits look fine.');
     await detail.getByTestId('review-clear').click();
+    const clearSheet = reviewer.getByRole('dialog', { name: 'Clear version 1?' });
+    await expect(clearSheet.getByTestId('key-feedback-p95')).toBeVisible();
+    await clearSheet.getByTestId('review-clear-confirm').click();
+    await expect(clearSheet).toBeHidden();
     await expect(detail.getByText('Cleared', { exact: true }).filter({ visible: true }).first()).toBeVisible();
     await expect(detail.getByTestId('review-history')).toContainText('Margins to the shoulder limits look fine.');
 

@@ -42,7 +42,7 @@ async function clearedManeuver(request: APIRequestContext): Promise<string> {
   });
   expect(version.status(), await version.text()).toBe(201);
   const versionId = (await version.json()).id as string;
-  expect((await request.post(`/api/sequences/versions/${versionId}/submit`, { headers: planner, data: {} })).status()).toBeLessThan(300);
+  expect((await request.post(`/api/sequences/versions/${versionId}/submit`, { headers: planner, data: { acknowledgeFailures: true, note: 'rehearsal e2e: checks acknowledged' } })).status()).toBeLessThan(300);
   const cleared = await request.post(`/api/reviews/${versionId}/decision`, { headers: reviewer, data: { decision: 'clear' } });
   expect(cleared.status(), await cleared.text()).toBeLessThan(300);
   return versionId;

@@ -3,7 +3,7 @@ import { useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
 import { ApiError } from '@/components/api/client';
-import { useSaveVersionMutation, useSubmitVersionMutation } from '@/components/api/use-sequences';
+import { useSaveVersionMutation } from '@/components/api/use-sequences';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { ReviewHistory } from '@/components/reviews/ReviewHistory';
 import { colors, layout, radii, spacing } from '@/components/theme';
@@ -29,6 +29,8 @@ import { CompareVersions } from './versions/CompareVersions';
 import { VersionList } from './versions/VersionList';
 import { VersionStatusBadge } from './VersionStatusBadge';
 import { VersionStatusNotice } from './VersionStatusNotice';
+import { SubmitForReview } from './submit/SubmitForReview';
+import { useVersionChecks } from './submit/use-version-checks';
 
 /** The phone's three panels. */
 export type ComposerPanel = 'steps' | 'report' | 'versions';
@@ -65,7 +67,6 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   const [showCompiled, setShowCompiled] = useState(false);
   const [note, setNote] = useState('');
   const save = useSaveVersionMutation(sequence.id);
-  const submit = useSubmitVersionMutation();
 
   const editable = canCompose;
   const isLatest = !version || version.id === sequence.versions[0]?.id;
@@ -123,7 +124,6 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
       ) : (
         <ErrorBanner title="Could not save" error={save.error} />
       )}
-      <ErrorBanner title="Could not submit" error={submit.error} />
       {draft.dirty || !version ? <TextField label="What changed (optional)" value={note} onChangeText={setNote} placeholder="e.g. smaller circles to stay clear of the shoulder limit" /> : null}
       <View style={styles.buttonRow}>
         <Button
@@ -134,16 +134,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           onPress={doSave}
           testID="save-verify"
         />
-        {version?.allowed.submit && !draft.dirty ? (
-          <Button
-            label="Submit for review"
-            icon="send"
-            variant="secondary"
-            loading={submit.isPending}
-            onPress={() => submit.mutate({ versionId: version.id, request: {} })}
-            testID="submit-review"
-          />
-        ) : null}
+        {version?.allowed.submit && !draft.dirty ? <SubmitButton version={version} /> : null}
       </View>
       {save.isPending ? <Text variant="caption" tone="muted">The engine is verifying the new version on the current profile…</Text> : null}
     </View>
@@ -279,6 +270,12 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
       <StepEditorSheet editing={editing} onApply={applyStep} onClose={() => setEditing(null)} />
     </ScrollView>
   );
+}
+
+/** Submit with the version's checks (a hook per shown version). */
+function SubmitButton({ version }: { version: VersionDetail }) {
+  const checks = useVersionChecks(version);
+  return <SubmitForReview version={version} checks={checks} />;
 }
 
 const styles = StyleSheet.create({

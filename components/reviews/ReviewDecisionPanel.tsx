@@ -7,6 +7,10 @@ import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Text } from '@/components/ui/Text';
 import { TextField } from '@/components/ui/TextField';
+import { FailureList } from '@/components/maneuvers/submit/SubmitForReview';
+import { useVersionChecks } from '@/components/maneuvers/submit/use-version-checks';
+import { VersionKeyFigures } from '@/components/maneuvers/submit/VersionKeyFigures';
+import { Sheet } from '@/components/ui/Sheet';
 import type { VersionDetail } from '@/shared/contracts/maneuver';
 
 /** Props of {@link ReviewDecisionPanel}. */
@@ -27,6 +31,8 @@ export function ReviewDecisionPanel({ version, onDecided }: ReviewDecisionPanelP
   const addComment = useReviewCommentMutation();
   const busy = decide.isPending || addComment.isPending;
   const { allowed } = version;
+  const checks = useVersionChecks(version);
+  const [confirmClear, setConfirmClear] = useState(false);
 
   if (!allowed.decide && !allowed.comment) {
     return (
@@ -49,6 +55,7 @@ export function ReviewDecisionPanel({ version, onDecided }: ReviewDecisionPanelP
       {
         onSuccess: (v) => {
           setComment('');
+          setConfirmClear(false);
           onDecided?.(v);
         },
       },
@@ -66,7 +73,7 @@ export function ReviewDecisionPanel({ version, onDecided }: ReviewDecisionPanelP
       <ErrorBanner title="Not recorded" error={decide.error ?? addComment.error} />
       <TextField label="Comment" value={comment} onChangeText={setComment} multiline numberOfLines={3} error={commentError} placeholder="What you checked, or what must change" />
       <View style={styles.buttons}>
-        {allowed.decide ? <Button label="Clear version" icon="check-circle" loading={decide.isPending && decide.variables?.request.decision === 'clear'} disabled={busy} onPress={() => send('clear')} testID="review-clear" /> : null}
+        {allowed.decide ? <Button label="Clear version" icon="check-circle" loading={decide.isPending && decide.variables?.request.decision === 'clear'} disabled={busy} onPress={() => setConfirmClear(true)} testID="review-clear" /> : null}
         {allowed.decide ? <Button label="Send back" icon="corner-up-left" variant="danger" disabled={busy} onPress={() => send('send_back')} testID="review-send-back" /> : null}
         {allowed.comment ? (
           <Button
@@ -79,6 +86,28 @@ export function ReviewDecisionPanel({ version, onDecided }: ReviewDecisionPanelP
           />
         ) : null}
       </View>
+      <Sheet
+        visible={confirmClear}
+        onClose={() => setConfirmClear(false)}
+        title={`Clear version ${version.version}?`}
+        footer={
+          <View style={styles.footer}>
+            <Button label="Cancel" variant="ghost" onPress={() => setConfirmClear(false)} />
+            <Button label={`Clear version ${version.version}`} icon="check-circle" loading={decide.isPending} onPress={() => send('clear')} testID="review-clear-confirm" />
+          </View>
+        }
+      >
+        <View style={styles.sheet} testID="clear-sheet">
+          <Text>
+            {version.sequence.name}, version {version.version}, for {version.sequence.crewMemberName}: clearing binds to this version, profile v{version.profileVersion} and engine{' '}
+            {version.engineVersion ?? '—'}, and {version.sequence.crewMemberName} may rehearse it.
+          </Text>
+          <VersionKeyFigures report={version.report} robustness={checks.robustness} />
+          {checks.failures.length ? <FailureList failures={checks.failures} title="It fails these checks now" /> : null}
+          {version.submitNote ? <Text variant="caption">Submitter’s note: “{version.submitNote}”</Text> : null}
+          <ErrorBanner title="Not recorded" error={decide.error} />
+        </View>
+      </Sheet>
     </View>
   );
 }
@@ -86,4 +115,6 @@ export function ReviewDecisionPanel({ version, onDecided }: ReviewDecisionPanelP
 const styles = StyleSheet.create({
   panel: { gap: spacing.md, padding: spacing.lg, borderRadius: radii.lg, borderWidth: 1, borderColor: colors.accent, backgroundColor: colors.surface },
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
+  footer: { flexDirection: 'row', justifyContent: 'flex-end', gap: spacing.sm, flexWrap: 'wrap' },
+  sheet: { gap: spacing.md },
 });

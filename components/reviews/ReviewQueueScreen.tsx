@@ -14,6 +14,7 @@ import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
 import { Text } from '@/components/ui/Text';
 import type { ReviewQueueItem } from '@/shared/contracts/maneuver';
+import { CHECK_WORDS } from '@/shared/product/version-checks';
 import { ReviewDetail } from './ReviewDetail';
 
 /**
@@ -76,6 +77,11 @@ function QueueRow({ item, selected, onOpen }: { item: ReviewQueueItem; selected:
       <Text variant="caption" tone={v.summary?.withinTolerance === false ? 'danger' : 'default'}>
         {summaryLine(v)}
       </Text>
+      {v.acknowledgedFailures?.length ? (
+        <Text variant="caption" tone="danger" testID="queue-acknowledged">
+          Submitted although it fails {v.acknowledgedFailures.length} check{v.acknowledgedFailures.length === 1 ? '' : 's'} ({v.acknowledgedFailures.map((f) => CHECK_WORDS[f.check]).join(', ')}), with a note
+        </Text>
+      ) : null}
     </Pressable>
   );
 }

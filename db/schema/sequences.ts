@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { type AnyPgColumn, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 
 import { VERSION_STATUSES } from '../../shared/contracts/version-status.ts';
 import { crewMembers, profileVersions } from './crew.ts';
@@ -60,6 +60,11 @@ export const sequenceVersions = pgTable(
     clearedBy: uuid('cleared_by').references(() => users.id),
     clearedAt: timestamp('cleared_at', { withTimezone: true }),
     staleSince: timestamp('stale_since', { withTimezone: true }),
+    // Guarded submit: the submitter's note to the reviewer and the failed checks they acknowledged (CheckFailure[] JSON; null when none failed).
+    submitNote: text('submit_note'),
+    acknowledgedFailures: jsonb('acknowledged_failures'),
+    // A re-check version (saved by the re-verification after a profile change): the cleared version it re-checks.
+    recheckOfId: uuid('recheck_of_id').references((): AnyPgColumn => sequenceVersions.id),
   },
   (t) => [
     unique('sequence_versions_seq_version').on(t.sequenceId, t.version),
@@ -109,6 +114,8 @@ export const reverifications = pgTable(
   // Angle between the old and the recomputed final attitude, degrees.
   attitudeShiftDeg: doublePrecision('attitude_shift_deg'),
   report: jsonb('report'),
+  // The re-check version this re-verification saved (a once-cleared version's successor under review).
+  resultVersionId: uuid('result_version_id').references(() => sequenceVersions.id),
   error: text('error'),
   attempts: integer('attempts').notNull().default(0),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

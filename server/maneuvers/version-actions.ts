@@ -10,6 +10,7 @@ import type { Database } from '../../db/client.ts';
 import { auditEvents, crewMembers, reviews, sequences, sequenceVersions, users, type SequenceVersionRow } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { SequenceTarget, VerificationReport } from '../../shared/contracts/maneuver.ts';
+import type { RobustnessState } from '../../shared/contracts/robustness.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
@@ -18,7 +19,9 @@ import type { Body } from '../../shared/contracts/body.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { publicUrl } from '../config.ts';
-import { badRequest, conflict, forbidden, notFound } from '../http/http-error.ts';
+import { badRequest, conflict, forbidden, HttpError, notFound } from '../http/http-error.ts';
+import { latestVersionRun } from '../jobs/robustness/version-robustness.ts';
+import { failuresSentence, versionCheckFailures } from '../../shared/product/version-checks.ts';
 import { currentProfile } from './current-profile.ts';
 import { requireAuthor } from './maneuver-access.ts';
 import { decisionMail, submissionMail } from './review-mail.ts';
@@ -133,8 +136,20 @@ async function sendQuietly(ctx: AppContext, mail: { to: string; subject: string;
   }
 }
 
-/** drafting → under_review by the author (or an admin); e-mails every reviewer. */
-export async function submitVersion(ctx: AppContext, user: SessionUser, versionId: string, note?: string): Promise<void> {
+/** What a submission carries (POST …/submit). */
+export interface SubmitInput {
+  /** A note for the reviewer (required with acknowledgeFailures). */
+  note?: string;
+  /** The submitter knows the version fails checks and submits it anyway. */
+  acknowledgeFailures?: boolean;
+}
+
+/**
+ * drafting → under_review by the author (or an admin); e-mails every reviewer. A version that fails
+ * a check (shared/product/version-checks.ts) goes only with `acknowledgeFailures` and a note, both
+ * stored with it for the reviewer; otherwise 409 `checks_failed` naming every failure.
+ */
+export async function submitVersion(ctx: AppContext, user: SessionUser, versionId: string, input: SubmitInput = {}): Promise<void> {
   requireAuthor(user);
   const { db } = ctx;
   const row = await loadForAction(db, versionId);
@@ -146,9 +161,21 @@ export async function submitVersion(ctx: AppContext, user: SessionUser, versionI
     throw conflict(`${row.crewName}'s profile changed since this version was verified; save a new version to verify it on profile version ${profile.version}.`, 'profile_changed');
   }
   if (!row.v.report) throw conflict('This version has no verification report.', 'not_verified');
+  const run = await latestVersionRun(db, versionId);
+  const failures = versionCheckFailures(row.v.report as VerificationReport, run && { state: run.state as RobustnessState, progress: run.samples ? run.doneSamples / run.samples : 0, error: run.error });
+  const note = input.note?.trim() ?? '';
+  if (failures.length && !(input.acknowledgeFailures && note)) {
+    const how = input.acknowledgeFailures
+      ? 'Say in the note why it should be reviewed anyway.'
+      : 'Change the steps, or submit it with a note for the reviewer and acknowledgeFailures: true.';
+    throw new HttpError(409, 'checks_failed', `Version ${row.v.version}: ${failuresSentence(failures)} ${how}`, input.acknowledgeFailures ? 'note' : 'acknowledgeFailures');
+  }
   await db.transaction(async (tx) => {
-    await moveVersion(tx, row.v, 'submit', { submittedAt: new Date() });
-    await recordAudit(tx, { actorId: user.id, action: 'sequence_version.submit', objectType: 'sequence_version', objectId: versionId, detail: { sequenceId: row.s.id, version: row.v.version, note: note ?? '' } });
+    await moveVersion(tx, row.v, 'submit', { submittedAt: new Date(), submitNote: note || null, acknowledgedFailures: failures.length ? failures : null });
+    await recordAudit(tx, {
+      actorId: user.id, action: 'sequence_version.submit', objectType: 'sequence_version', objectId: versionId,
+      detail: { sequenceId: row.s.id, version: row.v.version, note, acknowledgedFailures: failures.map((f) => f.check) },
+    });
   });
   const reviewers = await db.select().from(users).where(and(eq(users.role, 'reviewer'), eq(users.disabled, false)));
   for (const r of reviewers) {

@@ -9,6 +9,7 @@ import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, reverifications, reviews, sequences, sequenceVersions, users, type ReverificationRow, type SequenceVersionRow } from '../../db/schema/index.ts';
 import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
+import type { CheckFailure } from '../../shared/product/version-checks.ts';
 
 const author = alias(users, 'author');
 const clearer = alias(users, 'clearer');
@@ -20,6 +21,7 @@ const versionListColumns = {
   createdAt: sequenceVersions.createdAt, submittedAt: sequenceVersions.submittedAt, clearedBy: sequenceVersions.clearedBy,
   clearedAt: sequenceVersions.clearedAt, staleSince: sequenceVersions.staleSince, engineVersion: sequenceVersions.engineVersion,
   inputsHash: sequenceVersions.inputsHash, reportSummary: sequenceVersions.reportSummary,
+  submitNote: sequenceVersions.submitNote, acknowledgedFailures: sequenceVersions.acknowledgedFailures, recheckOfId: sequenceVersions.recheckOfId,
 };
 
 /** A re-verification record without its report (only the target error read from it). */
@@ -110,6 +112,7 @@ export function toVersionSummary(row: VersionRowJoined): VersionSummary {
     staleSince: v.staleSince?.toISOString() ?? null, engineVersion: v.engineVersion, inputsHash: v.inputsHash,
     summary: (v.reportSummary as ReportSummary | null) ?? null,
     reverification: row.latestReverification ? toReverification(row.latestReverification) : null,
+    submitNote: v.submitNote, acknowledgedFailures: (v.acknowledgedFailures as CheckFailure[] | null) ?? null, recheckOfId: v.recheckOfId,
   };
 }
 

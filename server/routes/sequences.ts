@@ -122,7 +122,7 @@ export function sequencesRouter(ctx: AppContext): Router {
 
   router.post('/versions/:versionId/submit', validate({ params: versionParams, body: submitRequestSchema }), async (req, res) => {
     const { versionId } = res.locals.params as z.infer<typeof versionParams>;
-    await submitVersion(ctx, req.user!, versionId, (req.body as z.infer<typeof submitRequestSchema>).note);
+    await submitVersion(ctx, req.user!, versionId, req.body as z.infer<typeof submitRequestSchema>);
     res.json(await loadVersionDetail(db, req.user!, versionId));
   });
 

@@ -32,8 +32,15 @@
 import { z } from 'zod';
 
 import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
+import { CHECK_NAMES } from '../product/version-checks.ts';
 import { attitudeSchema, rangeViolationSchema } from './result.ts';
 import { versionStatusSchema } from './version-status.ts';
+
+/** A failed check (shared/product/version-checks.ts). */
+export const checkFailureSchema = z.object({
+  check: z.enum(CHECK_NAMES),
+  message: z.string(),
+});
 
 /**
  * Client routes the server links to in e-mails (the app must serve them):
@@ -275,6 +282,12 @@ export const versionSummarySchema = z.object({
   summary: reportSummarySchema.nullable(),
   /** The latest background recomputation, if any (shows how far a recheck version moved). */
   reverification: reverificationSchema.nullable(),
+  /** The submitter's note to the reviewer (null when submitted without one). */
+  submitNote: z.string().nullable(),
+  /** The failed checks the submitter acknowledged (null: it passed every check when submitted). */
+  acknowledgedFailures: z.array(checkFailureSchema).nullable(),
+  /** A re-check version: the cleared version it re-checks after a profile change (null otherwise). */
+  recheckOfId: z.uuid().nullable(),
 });
 export type VersionSummary = z.infer<typeof versionSummarySchema>;
 
@@ -337,8 +350,18 @@ export const sequenceDetailSchema = sequenceSummarySchema.extend({
 });
 export type SequenceDetail = z.infer<typeof sequenceDetailSchema>;
 
-/** POST /sequences/versions/:versionId/submit */
-export const submitRequestSchema = z.object({ note: z.string().max(2000).optional() });
+/**
+ * POST /sequences/versions/:versionId/submit. A version that fails a check (target, ranges, rate
+ * limit, time budget, robustness not computed: shared/product/version-checks.ts) is refused with 409
+ * `checks_failed` naming every failure, unless the request carries `acknowledgeFailures: true` and a
+ * note for the reviewer, who then sees both first.
+ */
+export const submitRequestSchema = z.object({
+  /** A note for the reviewer; required (non-blank) with `acknowledgeFailures`. */
+  note: z.string().trim().max(2000).optional(),
+  /** The submitter knows the version fails the checks the server names and submits it anyway. */
+  acknowledgeFailures: z.boolean().optional(),
+});
 export type SubmitRequest = z.input<typeof submitRequestSchema>;
 
 /** POST /reviews/:versionId/decision; `send_back` needs a comment. */
