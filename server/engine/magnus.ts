@@ -191,6 +191,46 @@ export function magnusLobatto(w: ArrayLike<number>, h: number, out: Float64Array
   );
 }
 
+/**
+ * The sixth-order Magnus rotation vector (rad) over a step of h seconds from ω at `count` nodes
+ * (`w`: node-major, 3 per node, rad/s) and each node's weights in the three moments
+ * ∫(τ/h − ½)ⁿ ω dτ / h (n = 0, 1, 2: `m0`, `m1`, `m2`) — any interpolatory rule exact to degree 5
+ * on the step serves, including one whose nodes lie outside it. Writes θ to out[0..2].
+ */
+export function magnusFromWeights(w: ArrayLike<number>, m0: ArrayLike<number>, m1: ArrayLike<number>, m2: ArrayLike<number>, count: number, h: number, out: Float64Array): void {
+  let p0x = 0, p0y = 0, p0z = 0, p1x = 0, p1y = 0, p1z = 0, p2x = 0, p2y = 0, p2z = 0;
+  for (let k = 0; k < count; k++) {
+    const a = m0[k], b = m1[k], c = m2[k];
+    const fx = w[3 * k], fy = w[3 * k + 1], fz = w[3 * k + 2];
+    p0x += a * fx; p0y += a * fy; p0z += a * fz;
+    p1x += b * fx; p1y += b * fy; p1z += b * fz;
+    p2x += c * fx; p2y += c * fy; p2z += c * fz;
+  }
+  magnusFromMoments(
+    h * (2.25 * p0x - 15 * p2x), h * (2.25 * p0y - 15 * p2y), h * (2.25 * p0z - 15 * p2z),
+    12 * h * p1x, 12 * h * p1y, 12 * h * p1z,
+    h * (180 * p2x - 15 * p0x), h * (180 * p2y - 15 * p0y), h * (180 * p2z - 15 * p0z),
+    out, 0,
+  );
+}
+
+/**
+ * Weights of the moments ∫ yⁿ p(y) dy over [a, b] (n = 0, 1, 2) of the polynomial p through values
+ * at `nodes` (any distinct points): solves Σₖ Wₖ⁽ⁿ⁾ yₖʲ = ∫ y^(n+j) dy, j = 0 … count − 1.
+ */
+export function momentWeights(nodes: readonly number[], a: number, b: number): [Float64Array, Float64Array, Float64Array] {
+  const N = nodes.length, W = N + 3, m = new Float64Array(N * W);
+  const integral = (k: number) => (Math.pow(b, k + 1) - Math.pow(a, k + 1)) / (k + 1);
+  for (let j = 0; j < N; j++) {
+    for (let k = 0; k < N; k++) m[W * j + k] = Math.pow(nodes[k], j);
+    m[W * j + N] = integral(j); m[W * j + N + 1] = integral(j + 1); m[W * j + N + 2] = integral(j + 2);
+  }
+  solveAugmented(m, N);
+  const out: [Float64Array, Float64Array, Float64Array] = [new Float64Array(N), new Float64Array(N), new Float64Array(N)];
+  for (let k = 0; k < N; k++) for (let n = 0; n < 3; n++) out[n][k] = m[W * k + N + n];
+  return out;
+}
+
 /** The degree-6 polynomial through ω at seven nodes, for attitudes inside a step without new evaluations. */
 export interface RatePolynomial {
   /** Centre and half-span of the nodes, s: u = (t − centre)/scale ∈ [−1, 1]. */

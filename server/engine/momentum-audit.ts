@@ -1,39 +1,32 @@
 /**
- * Momentum audit at one sample (track-audit.ts runs it over a track). It builds every segment's
- * world-frame pose on a 5-point time stencil — the prescribed joint angles through forward
- * kinematics, and the root attitude moved on from the sample's attitude at a given body rate
- * (q ⊗ exp(ω s/2), exact to first order, which is all a first derivative sees) — differences those
- * poses (for segments rigid relative to the root, or to a moving segment, over the step: through
- * that frame's differenced world pose), and sums the total angular momentum about the system CoM
- * in the world frame, H = Σ R J Rᵀ Ω + m (x − x_c) × (ẋ − ẋ_c), and the world locked inertia
- * from the same poses (so a caller can add what a different root rate would contribute).
- * None of the engine's I_lock / h / analytic-velocity code is used, so a wrong formula there shows
- * up as H ≠ 0; a correct rate gives ‖H‖ at the rounding/truncation floor (≈1e-11 relative).
+ * Momentum audit at one sample (track-audit.ts runs it over a track). It poses the body by forward
+ * kinematics from the prescribed joint angles at two or three instants a few microseconds apart,
+ * differences those segment poses, and sums the total angular momentum about the system CoM,
+ * H = Σ R J Rᵀ Ω + m (x − x_c) × (ẋ − ẋ_c), for a given rate of the root, together with the locked
+ * inertia from the same poses (so a caller can add what a different root rate would contribute).
+ *
+ * It works in the root frame: a segment's world pose is A(t)·P(t), with A the root attitude and P
+ * the segment's pose relative to the root, so its world rates are A([Ω]×P + Ṗ) with Ω the root's
+ * rate. The audit differences P and applies Ω as given, and H in the world frame is A·H_root: the
+ * same norm, without turning every segment by the attitude at every stencil point. The attitude
+ * enters through Ω (track-audit.ts: the rate the integrated attitudes actually have).
+ *
+ * None of the engine's I_lock / h / analytic-velocity code (locked-momentum.ts,
+ * segmentVelocities, the folding of still subtrees) is used, so a wrong formula there shows up as
+ * H ≠ 0; a correct rate gives ‖H‖ at the rounding/truncation floor (≈1e-11 relative).
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { type BodyPose, createBodyPose, forwardKinematics, segmentMotion } from '../../shared/kinematics/forward-kinematics.ts';
-import { quatToMatrix } from '../../shared/math/quaternion.ts';
 import { evalMoving, evalPiece, type MotionPiece } from './joint-motion.ts';
 
-/** Stencil spacing, s: δ⁴ truncation and rounding/δ both ≲ 1e-12 relative (common practice). */
-export const AUDIT_DELTA_S = 1e-3;
+/**
+ * Stencil spacing, s. The central difference's truncation (δ²/6·x⃛, x⃛ ≲ 1e2 m/s³ for limb motion)
+ * and rounding over δ (≈1e-15 m / 2δ) both stay near 1e-10 m/s (common practice: δ ≈ (ε/x⃛)^⅓).
+ */
+export const AUDIT_DELTA_S = 5e-6;
 
-/** Points per audit stencil. */
-export const STENCIL_POINTS = 5;
-
-/** Stencil offsets (in units of δ) and first-derivative weights (× 1/(12δ)); the evaluation point is offset 0. */
-export const STENCILS = {
-  central: { offsets: [-2, -1, 0, 1, 2], weights: [1, -8, 0, 8, -1] },
-  forward: { offsets: [0, 1, 2, 3, 4], weights: [-25, 48, -36, 16, -3] },
-  backward: { offsets: [-4, -3, -2, -1, 0], weights: [3, -16, 36, -48, 25] },
-} as const;
-
-/** Chooses a stencil for time t inside the step [t0, t1] and its spacing δ (s). */
-export function chooseStencil(t: number, t0: number, t1: number): { kind: keyof typeof STENCILS; delta: number } {
-  const delta = Math.min(AUDIT_DELTA_S, (t1 - t0) / 8);
-  if (t - 2 * delta >= t0 && t + 2 * delta <= t1) return { kind: 'central', delta };
-  return t - t0 < t1 - t ? { kind: 'forward', delta } : { kind: 'backward', delta };
-}
+/** Spacing of the one-sided stencil at a piece's ends, s (its rounding grows as 7ε/δ; truncation δ³/4·x⁗). */
+export const AUDIT_EDGE_DELTA_S = 1e-5;
 
 /** Preallocated audit buffers for one model. */
 export interface AuditWork {
@@ -41,34 +34,26 @@ export interface AuditWork {
   /** Joint angles (rad) and rates (rad/s, unused but written) at a stencil point. */
   q: Float64Array;
   qd: Float64Array;
-  /** World rotation (9 per segment), world CoM and world frame origin (3 per segment) at each stencil point. */
-  rotW: Float64Array[];
-  comW: Float64Array[];
-  posW: Float64Array[];
-  /** Stencil derivatives of each segment's world rotation (9 per segment, 1/s) and CoM (3, m/s). */
-  rotD: Float64Array;
-  vel: Float64Array;
-  /** Stencil derivative of each moving segment's world frame origin, m/s (3 per segment). */
-  posD: Float64Array;
-  /** Root world rotation at each stencil point (9 per point, row-major). */
-  rootW: Float64Array;
-  Rq: Float64Array;
-  att: Float64Array;
-  /** Stencil weights for the current spacing, 1/s. */
-  w: Float64Array;
-  /** The piece `pose` holds the segments at rest for (null: none yet); its moving, carried and resting segments. */
+  /** The piece `pose` holds the still segments for (null: none yet), and the segments that move relative to the root in it (tree order). */
   piece: MotionPiece | null;
-  moving: Int32Array;
-  resting: Int32Array;
-  carried: Int32Array;
-  host: Int32Array;
-  /** Per carried segment: rotation (9, row-major) and CoM (3, m) relative to its host's frame. */
-  carriedRot: Float64Array;
-  carriedCom: Float64Array;
-  /** Total angular momentum about the system CoM (world frame, kg·m²/s) at the last auditAt. */
+  movers: Int32Array;
+  /** The still segments summed once per piece: Σm, Σm x (m), Σ R J Rᵀ + m(|x|²E − x xᵀ) (root origin, kg·m², row-major). */
+  restMass: number;
+  restMoment: Float64Array;
+  restInertia: Float64Array;
+  /** Per mover: rotation (9 per segment) and CoM (3) at the sample, and their time derivatives, from the stencil. */
+  rot: Float64Array;
+  com: Float64Array;
+  rotD: Float64Array;
+  comD: Float64Array;
+  /** One-sided stencil weights (scratch). */
+  weights: Float64Array;
+  /** Total angular momentum about the system CoM at the last auditAt (root frame, kg·m²/s). */
   H: Float64Array;
-  /** Locked inertia about the system CoM in the world frame there (row-major, kg·m²), from the same world poses. */
-  lockW: Float64Array;
+  /** The shape part of it (the root still): H = shape + lock·ω (root frame, kg·m²/s). */
+  shape: Float64Array;
+  /** Locked inertia about the system CoM there (root frame, row-major, kg·m²), from the same poses. */
+  lock: Float64Array;
 }
 
 /** Allocates audit buffers. */
@@ -76,193 +61,165 @@ export function createAuditWork(model: BodyModel): AuditWork {
   const n = model.segmentCount;
   return {
     pose: createBodyPose(model), q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
-    rotW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(9 * n)),
-    comW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(3 * n)),
-    posW: Array.from({ length: STENCIL_POINTS }, () => new Float64Array(3 * n)),
-    rotD: new Float64Array(9 * n), vel: new Float64Array(3 * n), posD: new Float64Array(3 * n),
-    rootW: new Float64Array(9 * STENCIL_POINTS), Rq: new Float64Array(9), att: new Float64Array(4),
-    w: new Float64Array(STENCIL_POINTS), piece: null, moving: new Int32Array(0), resting: new Int32Array(0),
-    carried: new Int32Array(0), host: new Int32Array(n), carriedRot: new Float64Array(9 * n), carriedCom: new Float64Array(3 * n),
-    H: new Float64Array(3), lockW: new Float64Array(9),
+    piece: null, movers: new Int32Array(0), restMass: 0, restMoment: new Float64Array(3), restInertia: new Float64Array(9),
+    rot: new Float64Array(9 * n), com: new Float64Array(3 * n), rotD: new Float64Array(9 * n), comD: new Float64Array(3 * n), weights: new Float64Array(4),
+    H: new Float64Array(3), shape: new Float64Array(3), lock: new Float64Array(9),
   };
 }
 
-/**
- * ‖H‖ (kg·m²/s) at time t of a piece, from the attitude q [w,x,y,z] there and the root's
- * body-frame rate ω (rad/s); also leaves H and the world locked inertia in `work`. `centrePose`, if given, is the body's
- * root-frame pose (forwardKinematics) at exactly t, already computed by the caller: the stencil's
- * centre point reuses it instead of posing the body again (the same numbers either way).
- */
-export function auditAt(model: BodyModel, piece: MotionPiece, t: number, q: ArrayLike<number>, omega: ArrayLike<number>, work: AuditWork, centrePose?: BodyPose): number {
-  const { kind, delta } = chooseStencil(t, piece.t0, piece.t1);
-  const st = STENCILS[kind];
-  const n = model.segmentCount;
-  const { pose, rotW, comW, posW, rotD, vel, posD, rootW, Rq, att, w } = work;
-  // Segments at rest over the piece keep one root-frame pose: pose them once per piece, and
-  // recompute only the moving ones at each stencil point (the same forward kinematics, reused).
-  // A still subtree hanging from a moving segment keeps its pose relative to that host.
-  if (work.piece !== piece) {
-    // Angles of the dofs at rest (and zero rates) for evalMoving below.
-    evalPiece(piece, piece.t0, work.q, work.qd);
-    forwardKinematics(model, work.q, pose);
-    const sm = segmentMotion(model, piece.moving);
-    work.moving = sm.moving; work.resting = sm.still; work.carried = sm.carried; work.host = sm.host;
-    const { rot, pos, comPos } = pose;
-    for (let c = 0; c < sm.carried.length; c++) {
-      const i = sm.carried[c], h = sm.host[i], o = 9 * h;
-      // Rₕᵀ Rᵢ and Rₕᵀ(xᵢ − pₕ).
-      for (let r = 0; r < 3; r++) {
-        for (let cc = 0; cc < 3; cc++) work.carriedRot[9 * c + 3 * r + cc] = rot[o + r] * rot[9 * i + cc] + rot[o + 3 + r] * rot[9 * i + 3 + cc] + rot[o + 6 + r] * rot[9 * i + 6 + cc];
-        work.carriedCom[3 * c + r] = rot[o + r] * (comPos[3 * i] - pos[3 * h]) + rot[o + 3 + r] * (comPos[3 * i + 1] - pos[3 * h + 1]) + rot[o + 6 + r] * (comPos[3 * i + 2] - pos[3 * h + 2]);
-      }
-    }
-    work.piece = piece;
-  }
-  const { moving, resting, carried, host, carriedRot, carriedCom } = work;
-  const wn = Math.hypot(omega[0], omega[1], omega[2]);
-  let centre = 0;
-  for (let j = 0; j < STENCIL_POINTS; j++) {
-    const s = st.offsets[j] * delta;
-    if (s === 0) centre = j;
-    w[j] = st.weights[j] / (12 * delta);
-    // Root attitude q ⊗ exp(ω s / 2).
-    const half = (wn * s) / 2, k = wn > 0 ? Math.sin(half) / wn : s / 2, c = Math.cos(half);
-    const ex = omega[0] * k, ey = omega[1] * k, ez = omega[2] * k;
-    att[0] = q[0] * c - q[1] * ex - q[2] * ey - q[3] * ez;
-    att[1] = q[0] * ex + q[1] * c + q[2] * ez - q[3] * ey;
-    att[2] = q[0] * ey - q[1] * ez + q[2] * c + q[3] * ex;
-    att[3] = q[0] * ez + q[1] * ey - q[2] * ex + q[3] * c;
-    quatToMatrix(att, Rq);
-    const a0 = Rq[0], a1 = Rq[1], a2 = Rq[2], a3 = Rq[3], a4 = Rq[4], a5 = Rq[5], a6 = Rq[6], a7 = Rq[7], a8 = Rq[8];
-    const r = 9 * j;
-    rootW[r] = a0; rootW[r + 1] = a1; rootW[r + 2] = a2; rootW[r + 3] = a3; rootW[r + 4] = a4; rootW[r + 5] = a5; rootW[r + 6] = a6; rootW[r + 7] = a7; rootW[r + 8] = a8;
-    // Moving segments' poses from the prescribed joint angles, then to the world frame.
-    let from = pose;
-    if (s === 0 && centrePose) from = centrePose;
-    else { evalMoving(piece, t + s, work.q, work.qd); forwardKinematics(model, work.q, pose, moving); }
-    const { rot, pos, comPos } = from;
-    const R = rotW[j], X = comW[j], P = posW[j];
-    for (let m = 0; m < moving.length; m++) {
-      const i = moving[m], o = 9 * i, i3 = 3 * i;
-      const px = pos[i3], py = pos[i3 + 1], pz = pos[i3 + 2];
-      P[i3] = a0 * px + a1 * py + a2 * pz; P[i3 + 1] = a3 * px + a4 * py + a5 * pz; P[i3 + 2] = a6 * px + a7 * py + a8 * pz;
-      const b0 = rot[o], b1 = rot[o + 1], b2 = rot[o + 2], b3 = rot[o + 3], b4 = rot[o + 4], b5 = rot[o + 5], b6 = rot[o + 6], b7 = rot[o + 7], b8 = rot[o + 8];
-      R[o] = a0 * b0 + a1 * b3 + a2 * b6; R[o + 1] = a0 * b1 + a1 * b4 + a2 * b7; R[o + 2] = a0 * b2 + a1 * b5 + a2 * b8;
-      R[o + 3] = a3 * b0 + a4 * b3 + a5 * b6; R[o + 4] = a3 * b1 + a4 * b4 + a5 * b7; R[o + 5] = a3 * b2 + a4 * b5 + a5 * b8;
-      R[o + 6] = a6 * b0 + a7 * b3 + a8 * b6; R[o + 7] = a6 * b1 + a7 * b4 + a8 * b7; R[o + 8] = a6 * b2 + a7 * b5 + a8 * b8;
-      const x = comPos[i3], y = comPos[i3 + 1], z = comPos[i3 + 2];
-      X[i3] = a0 * x + a1 * y + a2 * z; X[i3 + 1] = a3 * x + a4 * y + a5 * z; X[i3 + 2] = a6 * x + a7 * y + a8 * z;
-    }
-  }
-  const w0 = w[0], w1 = w[1], w2 = w[2], w3 = w[3], w4 = w[4];
-  const P0 = rotW[0], P1 = rotW[1], P2 = rotW[2], P3 = rotW[3], P4 = rotW[4];
-  const C0 = comW[0], C1 = comW[1], C2 = comW[2], C3 = comW[3], C4 = comW[4];
-  const Q0 = posW[0], Q1 = posW[1], Q2 = posW[2], Q3 = posW[3], Q4 = posW[4];
-  const R0 = rotW[centre], X0 = comW[centre];
-  // Moving segments: difference their world poses on the stencil.
-  for (let m = 0; m < moving.length; m++) {
-    const i = moving[m];
-    for (let e = 9 * i; e < 9 * i + 9; e++) rotD[e] = w0 * P0[e] + w1 * P1[e] + w2 * P2[e] + w3 * P3[e] + w4 * P4[e];
-    for (let e = 3 * i; e < 3 * i + 3; e++) {
-      vel[e] = w0 * C0[e] + w1 * C1[e] + w2 * C2[e] + w3 * C3[e] + w4 * C4[e];
-      posD[e] = w0 * Q0[e] + w1 * Q1[e] + w2 * Q2[e] + w3 * Q3[e] + w4 * Q4[e];
-    }
-  }
-  // Segments carried rigidly by a moving host: their world pose is (host world pose)·(constant),
-  // so, the stencil being linear, R_w = R_wₕ·Rᵣ, Ṙ_w = Ṙ_wₕ·Rᵣ, x_w = p_wₕ + R_wₕ·cᵣ, ẋ_w = ṗ_wₕ + Ṙ_wₕ·cᵣ.
-  const Pc = posW[centre];
-  for (let m = 0; m < carried.length; m++) {
-    const i = carried[m], h = host[i], o = 9 * i, oh = 9 * h, i3 = 3 * i, h3 = 3 * h, cr = 9 * m, cc = 3 * m;
+/** Poses the still segments of a piece once and sums them (they keep that pose relative to the root throughout it). */
+function enterPiece(model: BodyModel, piece: MotionPiece, work: AuditWork): void {
+  const { pose, restMoment: mx, restInertia: L } = work;
+  evalPiece(piece, piece.t0, work.q, work.qd);
+  forwardKinematics(model, work.q, pose);
+  // Every segment not still relative to the root (moving or carried by a moving one), in tree order.
+  const moves = new Uint8Array(model.segmentCount).fill(1);
+  for (const i of segmentMotion(model, piece.moving).still) moves[i] = 0;
+  const movers = Int32Array.from(moves.keys()).filter((i) => moves[i] === 1);
+  const { rot, comPos } = pose, J = model.inertia;
+  let M = 0;
+  mx.fill(0); L.fill(0);
+  for (let i = 0; i < model.segmentCount; i++) {
+    if (moves[i]) continue;
+    const m = model.mass[i], o = 9 * i, x = comPos[3 * i], y = comPos[3 * i + 1], z = comPos[3 * i + 2];
+    M += m; mx[0] += m * x; mx[1] += m * y; mx[2] += m * z;
+    const x2 = x * x + y * y + z * z;
     for (let r = 0; r < 3; r++) {
-      const g0 = R0[oh + 3 * r], g1 = R0[oh + 3 * r + 1], g2 = R0[oh + 3 * r + 2];
-      const e0 = rotD[oh + 3 * r], e1 = rotD[oh + 3 * r + 1], e2 = rotD[oh + 3 * r + 2];
       for (let c = 0; c < 3; c++) {
-        const b0 = carriedRot[cr + c], b1 = carriedRot[cr + 3 + c], b2 = carriedRot[cr + 6 + c];
-        R0[o + 3 * r + c] = g0 * b0 + g1 * b1 + g2 * b2;
-        rotD[o + 3 * r + c] = e0 * b0 + e1 * b1 + e2 * b2;
+        let s = 0;
+        for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) s += rot[o + 3 * r + a] * J[o + 3 * a + b] * rot[o + 3 * c + b];
+        const xr = r === 0 ? x : r === 1 ? y : z, xc = c === 0 ? x : c === 1 ? y : z;
+        L[3 * r + c] += s + m * ((r === c ? x2 : 0) - xr * xc);
       }
-      const x = carriedCom[cc], y = carriedCom[cc + 1], z = carriedCom[cc + 2];
-      X0[i3 + r] = Pc[h3 + r] + g0 * x + g1 * y + g2 * z;
-      vel[i3 + r] = posD[h3 + r] + e0 * x + e1 * y + e2 * z;
     }
   }
-  // Segments at rest relative to the root: their world pose is (root world rotation)·(constant),
-  // so the stencil, being linear, differences the root's world rotation once and applies it to
-  // each: Ṙ_w = (Σ w_j Rq_j)·R, ẋ_w = (Σ w_j Rq_j)·x — the same differences, fewer products.
-  const c9 = 9 * centre;
-  const q0 = rootW[c9], q1 = rootW[c9 + 1], q2 = rootW[c9 + 2], q3 = rootW[c9 + 3], q4 = rootW[c9 + 4], q5 = rootW[c9 + 5], q6 = rootW[c9 + 6], q7 = rootW[c9 + 7], q8 = rootW[c9 + 8];
-  let e0 = 0, e1 = 0, e2 = 0, e3 = 0, e4 = 0, e5 = 0, e6 = 0, e7 = 0, e8 = 0;
-  for (let j = 0; j < STENCIL_POINTS; j++) {
-    const r = 9 * j, wj = w[j];
-    e0 += wj * rootW[r]; e1 += wj * rootW[r + 1]; e2 += wj * rootW[r + 2];
-    e3 += wj * rootW[r + 3]; e4 += wj * rootW[r + 4]; e5 += wj * rootW[r + 5];
-    e6 += wj * rootW[r + 6]; e7 += wj * rootW[r + 7]; e8 += wj * rootW[r + 8];
-  }
+  work.restMass = M;
+  work.movers = movers;
+  work.piece = piece;
+}
+
+/** Adds weight × (the movers' rotations and CoMs in `pose`) to the value and derivative accumulators. */
+function accumulate(work: AuditWork, valueWeight: number, rateWeight: number, first: boolean): void {
+  const { movers, pose, rot: R, com: X, rotD: RD, comD: XD } = work;
   const { rot, comPos } = pose;
-  for (let m = 0; m < resting.length; m++) {
-    const i = resting[m], o = 9 * i, i3 = 3 * i;
-    const b0 = rot[o], b1 = rot[o + 1], b2 = rot[o + 2], b3 = rot[o + 3], b4 = rot[o + 4], b5 = rot[o + 5], b6 = rot[o + 6], b7 = rot[o + 7], b8 = rot[o + 8];
-    R0[o] = q0 * b0 + q1 * b3 + q2 * b6; R0[o + 1] = q0 * b1 + q1 * b4 + q2 * b7; R0[o + 2] = q0 * b2 + q1 * b5 + q2 * b8;
-    R0[o + 3] = q3 * b0 + q4 * b3 + q5 * b6; R0[o + 4] = q3 * b1 + q4 * b4 + q5 * b7; R0[o + 5] = q3 * b2 + q4 * b5 + q5 * b8;
-    R0[o + 6] = q6 * b0 + q7 * b3 + q8 * b6; R0[o + 7] = q6 * b1 + q7 * b4 + q8 * b7; R0[o + 8] = q6 * b2 + q7 * b5 + q8 * b8;
-    rotD[o] = e0 * b0 + e1 * b3 + e2 * b6; rotD[o + 1] = e0 * b1 + e1 * b4 + e2 * b7; rotD[o + 2] = e0 * b2 + e1 * b5 + e2 * b8;
-    rotD[o + 3] = e3 * b0 + e4 * b3 + e5 * b6; rotD[o + 4] = e3 * b1 + e4 * b4 + e5 * b7; rotD[o + 5] = e3 * b2 + e4 * b5 + e5 * b8;
-    rotD[o + 6] = e6 * b0 + e7 * b3 + e8 * b6; rotD[o + 7] = e6 * b1 + e7 * b4 + e8 * b7; rotD[o + 8] = e6 * b2 + e7 * b5 + e8 * b8;
-    const x = comPos[i3], y = comPos[i3 + 1], z = comPos[i3 + 2];
-    X0[i3] = q0 * x + q1 * y + q2 * z; X0[i3 + 1] = q3 * x + q4 * y + q5 * z; X0[i3 + 2] = q6 * x + q7 * y + q8 * z;
-    vel[i3] = e0 * x + e1 * y + e2 * z; vel[i3 + 1] = e3 * x + e4 * y + e5 * z; vel[i3 + 2] = e6 * x + e7 * y + e8 * z;
+  for (let j = 0; j < movers.length; j++) {
+    const i = movers[j];
+    for (let e = 9 * i; e < 9 * i + 9; e++) {
+      const v = rot[e];
+      if (first) { R[e] = valueWeight * v; RD[e] = rateWeight * v; } else { R[e] += valueWeight * v; RD[e] += rateWeight * v; }
+    }
+    for (let e = 3 * i; e < 3 * i + 3; e++) {
+      const v = comPos[e];
+      if (first) { X[e] = valueWeight * v; XD[e] = rateWeight * v; } else { X[e] += valueWeight * v; XD[e] += rateWeight * v; }
+    }
   }
-  // System CoM position and velocity (world).
-  const M = model.totalMass;
-  let xcx = 0, xcy = 0, xcz = 0, vcx = 0, vcy = 0, vcz = 0;
-  for (let i = 0; i < n; i++) {
-    const m = model.mass[i] / M;
-    xcx += m * X0[3 * i]; xcy += m * X0[3 * i + 1]; xcz += m * X0[3 * i + 2];
-    vcx += m * vel[3 * i]; vcy += m * vel[3 * i + 1]; vcz += m * vel[3 * i + 2];
+}
+
+/** Poses the movers at time t of the current piece (the still segments keep their pose). */
+function poseAt(model: BodyModel, t: number, work: AuditWork): void {
+  evalMoving(work.piece as MotionPiece, t, work.q, work.qd);
+  forwardKinematics(model, work.q, work.pose, work.movers);
+}
+
+/**
+ * ‖H‖ (kg·m²/s) at time t of a piece for the root's body-frame rate ω (rad/s); also leaves H, its
+ * shape part and the locked inertia (root frame) in `work`.
+ */
+export function auditAt(model: BodyModel, piece: MotionPiece, t: number, omega: ArrayLike<number>, work: AuditWork): number {
+  if (work.piece !== piece) enterPiece(model, piece, work);
+  const span = piece.t1 - piece.t0;
+  const delta = Math.min(AUDIT_DELTA_S, span / 8);
+  // Offsets as the clock represents them (t ± δ rounds): the weights use the actual differences.
+  if (t - delta >= piece.t0 && t + delta <= piece.t1) {
+    // Central: value (s₊f₋ − s₋f₊)/(s₊ − s₋), derivative (f₊ − f₋)/(s₊ − s₋).
+    const tm = t - delta, tp = t + delta, sm = tm - t, sp = tp - t, width = tp - tm;
+    poseAt(model, tm, work);
+    accumulate(work, sp / width, -1 / width, true);
+    poseAt(model, tp, work);
+    accumulate(work, -sm / width, 1 / width, false);
+    return momentumFromStencil(model, omega, work, delta);
   }
-  let Hx = 0, Hy = 0, Hz = 0;
-  // World locked inertia (upper triangle): Σ R J Rᵀ + m(|d|²E − d dᵀ).
-  let L00 = 0, L01 = 0, L02 = 0, L11 = 0, L12 = 0, L22 = 0;
-  const J = model.inertia;
-  for (let i = 0; i < n; i++) {
-    const o = 9 * i;
-    // Ω = vee(skew part of Ṙ Rᵀ), A = Ṙ Rᵀ (only its off-diagonal entries are needed).
-    const d0 = rotD[o], d1 = rotD[o + 1], d2 = rotD[o + 2], d3 = rotD[o + 3], d4 = rotD[o + 4], d5 = rotD[o + 5], d6 = rotD[o + 6], d7 = rotD[o + 7], d8 = rotD[o + 8];
-    const r0 = R0[o], r1 = R0[o + 1], r2 = R0[o + 2], r3 = R0[o + 3], r4 = R0[o + 4], r5 = R0[o + 5], r6 = R0[o + 6], r7 = R0[o + 7], r8 = R0[o + 8];
-    // A(r, c) = Σ_k Ṙ[r][k] R[c][k].
+  // One-sided into the piece, four points 0, s₁, s₂, s₃ (third order: its rounding, ≈7ε/δ, needs a wider spacing).
+  const wide = Math.min(AUDIT_EDGE_DELTA_S, span / 8);
+  const dir = t - wide >= piece.t0 ? -1 : 1;
+  const s1 = t + dir * wide - t, s2 = t + 2 * dir * wide - t, s3 = t + 3 * dir * wide - t;
+  oneSidedWeights(s1, s2, s3, work.weights);
+  const wts = work.weights;
+  poseAt(model, t, work);
+  accumulate(work, 1, wts[0], true);
+  poseAt(model, t + s1, work);
+  accumulate(work, 0, wts[1], false);
+  poseAt(model, t + s2, work);
+  accumulate(work, 0, wts[2], false);
+  poseAt(model, t + s3, work);
+  accumulate(work, 0, wts[3], false);
+  return momentumFromStencil(model, omega, work, 0);
+}
+
+/** First-derivative weights at 0 of the cubic through 0, s₁, s₂, s₃ (Lagrange basis derivatives). */
+function oneSidedWeights(s1: number, s2: number, s3: number, out: Float64Array): void {
+  out[1] = (s2 * s3) / (s1 * (s1 - s2) * (s1 - s3));
+  out[2] = (s1 * s3) / (s2 * (s2 - s1) * (s2 - s3));
+  out[3] = (s1 * s2) / (s3 * (s3 - s1) * (s3 - s2));
+  out[0] = -(out[1] + out[2] + out[3]);
+}
+
+/** H = shape + lock·ω from the movers' differenced poses and the still segments' sums. */
+function momentumFromStencil(model: BodyModel, omega: ArrayLike<number>, work: AuditWork, centralDelta: number): number {
+  const { movers, rot: R, com: X, rotD: RD, comD: XD, restMoment, restInertia: L } = work;
+  const J = model.inertia, M = model.totalMass;
+  // Σm x, Σm ẋ; Σ R J Rᵀ Ω_rel + m x × ẋ; Σ R J Rᵀ + m(|x|²E − x xᵀ) (root origin; moved to the CoM below).
+  let mx = restMoment[0], my = restMoment[1], mz = restMoment[2], mvx = 0, mvy = 0, mvz = 0;
+  let hx = 0, hy = 0, hz = 0;
+  let L00 = L[0], L01 = L[1], L02 = L[2], L11 = L[4], L12 = L[5], L22 = L[8];
+  for (let j = 0; j < movers.length; j++) {
+    const i = movers[j], o = 9 * i, i3 = 3 * i, m = model.mass[i];
+    let r0 = R[o], r1 = R[o + 1], r2 = R[o + 2], r3 = R[o + 3], r4 = R[o + 4], r5 = R[o + 5], r6 = R[o + 6], r7 = R[o + 7], r8 = R[o + 8];
+    const d0 = RD[o], d1 = RD[o + 1], d2 = RD[o + 2], d3 = RD[o + 3], d4 = RD[o + 4], d5 = RD[o + 5], d6 = RD[o + 6], d7 = RD[o + 7], d8 = RD[o + 8];
+    // Ω_rel = vee of the skew part of Ṙ Rᵀ; A(r, c) = Σ_k Ṙ[r][k] R[c][k] (off-diagonal entries only).
     const A01 = d0 * r3 + d1 * r4 + d2 * r5, A02 = d0 * r6 + d1 * r7 + d2 * r8;
     const A10 = d3 * r0 + d4 * r1 + d5 * r2, A12 = d3 * r6 + d4 * r7 + d5 * r8;
     const A20 = d6 * r0 + d7 * r1 + d8 * r2, A21 = d6 * r3 + d7 * r4 + d8 * r5;
-    const Ox = (A21 - A12) / 2, Oy = (A02 - A20) / 2, Oz = (A10 - A01) / 2;
-    // Spin: R J Rᵀ Ω.
-    const bx = r0 * Ox + r3 * Oy + r6 * Oz;
-    const by = r1 * Ox + r4 * Oy + r7 * Oz;
-    const bz = r2 * Ox + r5 * Oy + r8 * Oz;
-    const jx = J[o] * bx + J[o + 1] * by + J[o + 2] * bz;
-    const jy = J[o + 3] * bx + J[o + 4] * by + J[o + 5] * bz;
-    const jz = J[o + 6] * bx + J[o + 7] * by + J[o + 8] * bz;
-    Hx += r0 * jx + r1 * jy + r2 * jz;
-    Hy += r3 * jx + r4 * jy + r5 * jz;
-    Hz += r6 * jx + r7 * jy + r8 * jz;
-    // Orbit: m (x − x_c) × (ẋ − ẋ_c).
-    const m = model.mass[i];
-    const dx = X0[3 * i] - xcx, dy = X0[3 * i + 1] - xcy, dz = X0[3 * i + 2] - xcz;
-    const ux = vel[3 * i] - vcx, uy = vel[3 * i + 1] - vcy, uz = vel[3 * i + 2] - vcz;
-    Hx += m * (dy * uz - dz * uy); Hy += m * (dz * ux - dx * uz); Hz += m * (dx * uy - dy * ux);
-    // R J Rᵀ: K = J Rᵀ column by column is what the spin term did for one vector; here all of it.
+    let ox = (A21 - A12) / 2, oy = (A02 - A20) / 2, oz = (A10 - A01) / 2;
+    if (centralDelta > 0) {
+      // For a steady turn at rate Ω the central difference reads sin(Ωδ)/δ and the mean of the two poses is
+      // R + (δ²/2)[Ω]²R, so Ṙ·meanᵀ reads Ω(1 − ⅔(Ωδ)²): undo that factor (series: Ωδ ≲ 1e-4).
+      const phi2 = (ox * ox + oy * oy + oz * oz) * centralDelta * centralDelta, k = 1 + (2 * phi2) / 3;
+      ox *= k; oy *= k; oz *= k;
+      // The mean of the poses at t ± δ is R + (δ²/2)[Ω]²R for a steady turn: take that out ([Ω]² = ΩΩᵀ − |Ω|²E).
+      const c = (centralDelta * centralDelta) / 2, w2 = ox * ox + oy * oy + oz * oz;
+      const u0 = ox * r0 + oy * r3 + oz * r6, u1 = ox * r1 + oy * r4 + oz * r7, u2 = ox * r2 + oy * r5 + oz * r8;
+      r0 -= c * (ox * u0 - w2 * r0); r1 -= c * (ox * u1 - w2 * r1); r2 -= c * (ox * u2 - w2 * r2);
+      r3 -= c * (oy * u0 - w2 * r3); r4 -= c * (oy * u1 - w2 * r4); r5 -= c * (oy * u2 - w2 * r5);
+      r6 -= c * (oz * u0 - w2 * r6); r7 -= c * (oz * u1 - w2 * r7); r8 -= c * (oz * u2 - w2 * r8);
+    }
+    // S = R J Rᵀ (symmetric): K = J Rᵀ, S = R K.
     const k00 = J[o] * r0 + J[o + 1] * r1 + J[o + 2] * r2, k01 = J[o] * r3 + J[o + 1] * r4 + J[o + 2] * r5, k02 = J[o] * r6 + J[o + 1] * r7 + J[o + 2] * r8;
     const k10 = J[o + 3] * r0 + J[o + 4] * r1 + J[o + 5] * r2, k11 = J[o + 3] * r3 + J[o + 4] * r4 + J[o + 5] * r5, k12 = J[o + 3] * r6 + J[o + 4] * r7 + J[o + 5] * r8;
     const k20 = J[o + 6] * r0 + J[o + 7] * r1 + J[o + 8] * r2, k21 = J[o + 6] * r3 + J[o + 7] * r4 + J[o + 8] * r5, k22 = J[o + 6] * r6 + J[o + 7] * r7 + J[o + 8] * r8;
-    const e2 = dx * dx + dy * dy + dz * dz;
-    L00 += r0 * k00 + r1 * k10 + r2 * k20 + m * (e2 - dx * dx);
-    L01 += r0 * k01 + r1 * k11 + r2 * k21 - m * dx * dy;
-    L02 += r0 * k02 + r1 * k12 + r2 * k22 - m * dx * dz;
-    L11 += r3 * k01 + r4 * k11 + r5 * k21 + m * (e2 - dy * dy);
-    L12 += r3 * k02 + r4 * k12 + r5 * k22 - m * dy * dz;
-    L22 += r6 * k02 + r7 * k12 + r8 * k22 + m * (e2 - dz * dz);
+    const s00 = r0 * k00 + r1 * k10 + r2 * k20, s01 = r0 * k01 + r1 * k11 + r2 * k21, s02 = r0 * k02 + r1 * k12 + r2 * k22;
+    const s11 = r3 * k01 + r4 * k11 + r5 * k21, s12 = r3 * k02 + r4 * k12 + r5 * k22, s22 = r6 * k02 + r7 * k12 + r8 * k22;
+    const x = X[i3], y = X[i3 + 1], z = X[i3 + 2], vx = XD[i3], vy = XD[i3 + 1], vz = XD[i3 + 2];
+    hx += s00 * ox + s01 * oy + s02 * oz + m * (y * vz - z * vy);
+    hy += s01 * ox + s11 * oy + s12 * oz + m * (z * vx - x * vz);
+    hz += s02 * ox + s12 * oy + s22 * oz + m * (x * vy - y * vx);
+    const x2 = x * x + y * y + z * z;
+    L00 += s00 + m * (x2 - x * x); L11 += s11 + m * (x2 - y * y); L22 += s22 + m * (x2 - z * z);
+    L01 += s01 - m * x * y; L02 += s02 - m * x * z; L12 += s12 - m * y * z;
+    mx += m * x; my += m * y; mz += m * z; mvx += m * vx; mvy += m * vy; mvz += m * vz;
   }
-  const { H, lockW } = work;
-  H[0] = Hx; H[1] = Hy; H[2] = Hz;
-  lockW[0] = L00; lockW[1] = L01; lockW[2] = L02; lockW[3] = L01; lockW[4] = L11; lockW[5] = L12; lockW[6] = L02; lockW[7] = L12; lockW[8] = L22;
-  return Math.hypot(Hx, Hy, Hz);
+  // About the system CoM: Σ m (x − x_c) × (ẋ − ẋ_c) = Σ m x × ẋ − M x_c × ẋ_c, and the parallel-axis shift.
+  const cx = mx / M, cy = my / M, cz = mz / M, vcx = mvx / M, vcy = mvy / M, vcz = mvz / M;
+  hx -= M * (cy * vcz - cz * vcy); hy -= M * (cz * vcx - cx * vcz); hz -= M * (cx * vcy - cy * vcx);
+  const c2 = cx * cx + cy * cy + cz * cz;
+  L00 -= M * (c2 - cx * cx); L11 -= M * (c2 - cy * cy); L22 -= M * (c2 - cz * cz);
+  L01 += M * cx * cy; L02 += M * cx * cz; L12 += M * cy * cz;
+  const { H, shape, lock } = work;
+  shape[0] = hx; shape[1] = hy; shape[2] = hz;
+  lock[0] = L00; lock[1] = L01; lock[2] = L02; lock[3] = L01; lock[4] = L11; lock[5] = L12; lock[6] = L02; lock[7] = L12; lock[8] = L22;
+  const wx = omega[0], wy = omega[1], wz = omega[2];
+  H[0] = hx + L00 * wx + L01 * wy + L02 * wz;
+  H[1] = hy + L01 * wx + L11 * wy + L12 * wz;
+  H[2] = hz + L02 * wx + L12 * wy + L22 * wz;
+  return Math.sqrt(H[0] * H[0] + H[1] * H[1] + H[2] * H[2]);
 }
