@@ -17,7 +17,7 @@ export interface IntegratorOptions {
   rtol: number;
   /** Absolute tolerance, rad (default = rtol). */
   atol: number;
-  /** Max accepted plus rejected steps per piece (default 100,000, as odex had). */
+  /** Max accepted plus rejected steps per piece (default 100,000). */
   maxSteps?: number;
 }
 

@@ -1,8 +1,8 @@
 import { HttpError } from './http-error.ts';
 
 /**
- * Recognises the engine's "the integrator could not finish" failure (odex gave up: too many steps,
- * or no convergence), by message rather than by class, so the mapping survives changes inside the
+ * Recognises the engine's "the integrator could not finish" failure (the Magnus integrator gave up:
+ * more steps than its limit, or a step size shrunk to nothing), by message rather than by class, so the mapping survives changes inside the
  * engine and errors that crossed a worker-thread boundary as text. Such a request is valid but
  * cannot be computed as asked: 422 naming the step, never a 500.
  */

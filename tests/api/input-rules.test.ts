@@ -116,7 +116,7 @@ describe('malformed multipart uploads', () => {
 });
 
 describe('a simulation the integrator cannot finish', () => {
-  it('answers 422 naming the step (odex stops at its step limit: an in-limit 595 s, 20 Hz sweep at rtol 1e-13)', async () => {
+  it('answers 422 naming the step (the integrator stops at its step limit: an in-limit 595 s, 20 Hz sweep at rtol 1e-13)', async () => {
     // Its own pool with a long budget: the integrator gives up after 100,000 steps (a few CPU seconds).
     const pool = new SimulationPool({ size: 1, timeoutMs: 120_000 });
     const app = express().use(express.json({ limit: '2mb' })).use('/api/simulate', createSimulateRouter({ pool })).use(errorHandler);
