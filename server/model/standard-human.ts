@@ -6,7 +6,8 @@ import { DE_LEVA_TABLE_4, type DeLevaSegment, type Sex } from './data/de-leva-19
 import { unsuitedDofs, type ModelDof } from './joints.ts';
 import { combineMassProperties, type MassProperties } from './mass-properties.ts';
 import { CARRYING_ANGLE_DEG, HEEL_BEHIND_ANKLE_PER_FOOT_LENGTH } from './proportions.ts';
-import { axisAngleMatrix, rotateTensor } from '../../shared/model/mat3.ts';
+import { rotateTensor } from '../../shared/math/inertia.ts';
+import { quatFromAxisAngle, quatToMatrix } from '../../shared/math/quaternion.ts';
 import type { SegmentGeometry } from './segment-geometry.ts';
 import { deLevaPrincipalInertia, type LongAxis } from './segment-inertia.ts';
 
@@ -90,7 +91,7 @@ export function standardHumanSegments(inputs: ProfileInputs, g: SegmentGeometry,
     // forearm and hand slant outward by the carrying angle (frames stay parallel to the body's)
     const slant = ((side === 'l' ? 1 : -1) * carryingAngleDeg * Math.PI) / 180;
     const down = (d: number): Vec3 => [0, Math.sin(slant) * d, -Math.cos(slant) * d];
-    const slanted = (p: MassProperties): MassProperties => ({ ...p, inertia: rotateTensor(axisAngleMatrix([1, 0, 0], slant), p.inertia) });
+    const slanted = (p: MassProperties): MassProperties => ({ ...p, inertia: rotateTensor(quatToMatrix(quatFromAxisAngle([1, 0, 0], slant)), p.inertia) });
     segments.push(
       {
         name: `${side}_upper_arm`,
