@@ -4,6 +4,7 @@ import type { Logger } from 'pino';
 import type { Database } from '../db/client.ts';
 import type { TokenService } from './auth/tokens.ts';
 import type { Config } from './config.ts';
+import type { SimulationPools } from './engine/pool/simulation-pools.ts';
 import type { Mailer } from './mail/mailer.ts';
 import type { ReceivedMail } from './mail/smtp-fake.ts';
 import type { ObjectStore } from './storage/object-store.ts';
@@ -15,6 +16,8 @@ export interface AppContext {
   tokens: TokenService;
   mailer: Mailer;
   storage: ObjectStore;
+  /** The engine's worker-thread pools: product work and ad-hoc POST /api/simulate. */
+  simulation: SimulationPools;
   logger: Logger;
   /** Messages of the local SMTP fake, when one runs in this process (development and tests). */
   devMailbox?: readonly ReceivedMail[];

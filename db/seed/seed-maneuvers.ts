@@ -135,7 +135,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
     // Target: what the newest version reaches, rounded to whole degrees.
     const first = compilePrimitives(demo.versions[demo.versions.length - 1].primitives, dofInfoFromBody(current.body as Body));
     const probeTarget = sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: 0, pitch: 0, roll: 0 } });
-    const probe = await verifySequence({ body: current.body as Body, sequence: first.sequence, target: probeTarget, profileVersionId: current.id });
+    const probe = await verifySequence({ body: current.body as Body, sequence: first.sequence, target: probeTarget, profileVersionId: current.id, pool: state.pool });
     const y = probe.final.yprDeg;
     const target: SequenceTarget = demo.yprDeg
       ? sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: demo.yprDeg, toleranceDeg: 2, rateLimitDegS: 180, timeBudgetS: 90 })
@@ -148,7 +148,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       const profile = pick(v.profileVersion);
       const body = profile.body as Body;
       const compiled = compilePrimitives(v.primitives, dofInfoFromBody(body));
-      const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id });
+      const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: state.pool });
       const stored: StoredCompiled = {
         sequence: compiled.sequence as StoredCompiled['sequence'],
         cues: compiled.stepMap.map((s) => (s.role === 'blend' ? leadInCue(v.primitives[s.primitive]) : cueFor(v.primitives[s.primitive]))),
@@ -177,7 +177,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       }
       // A recheck version: its recomputation on the current profile, done as the worker would.
       if (v.status === 'recheck' && profile.id !== current.id) {
-        const again = await verifySequence({ body: current.body as Body, sequence: compiled.sequence, target, profileVersionId: current.id });
+        const again = await verifySequence({ body: current.body as Body, sequence: compiled.sequence, target, profileVersionId: current.id, pool: state.pool });
         await db.insert(reverifications).values({
           sequenceVersionId: row.id, fromProfileVersionId: profile.id, toProfileVersionId: current.id, state: 'done', attempts: 1,
           attitudeShiftDeg: (quatAngleBetween(quatOf(report.final.attitude), quatOf(again.final.attitude)) * 180) / Math.PI,

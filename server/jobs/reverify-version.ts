@@ -61,7 +61,7 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
     const sequence = sequenceSchema.parse(storedCompiled(v.v.compiled).sequence);
     // The version's own target (a re-check verifies what was cleared, not the sequence's next default).
     const target = sequenceTargetSchema.parse(v.v.target);
-    const report = await verifySequence({ body: profile.body as Body, sequence, target, profileVersionId: profile.id });
+    const report = await verifySequence({ body: profile.body as Body, sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product });
     const old = v.v.report as VerificationReport | null;
     const shift = old
       ? quatAngleBetween([old.final.attitude.w, old.final.attitude.x, old.final.attitude.y, old.final.attitude.z],

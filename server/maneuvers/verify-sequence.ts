@@ -9,7 +9,6 @@ import { type Sequence, stepDuration } from '../../shared/contracts/sequence.ts'
 import { SIMULATE_LIMITS } from '../../shared/contracts/simulate-request.ts';
 import { dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import type { SimulationPool } from '../engine/pool/simulation-pool.ts';
-import { defaultSimulationPool } from '../routes/simulate.ts';
 import { HttpError, badRequest } from '../http/http-error.ts';
 import { buildReport } from './build-report.ts';
 import { inputsHash } from './inputs-hash.ts';
@@ -23,8 +22,8 @@ export interface VerifyInputs {
   sequence: Sequence;
   target: SequenceTarget;
   profileVersionId: string;
-  /** The pool to run on (default: the process-wide pool). */
-  pool?: SimulationPool;
+  /** The pool to run on: the app context's product pool (`ctx.simulation.product`). */
+  pool: SimulationPool;
 }
 
 /** Runs the engine and returns the report; contract problems become a 400 naming the step. */
@@ -35,7 +34,7 @@ export async function verifySequence({ body, sequence, target, profileVersionId,
   }
   let reply;
   try {
-    reply = await (pool ?? defaultSimulationPool()).run(body, sequence, { rateHz: REPORT_RATE_HZ });
+    reply = await pool.run(body, sequence, { rateHz: REPORT_RATE_HZ });
   } catch (err) {
     throw new HttpError(503, 'verification_failed', `verification could not run: ${err instanceof Error ? err.message : String(err)}`);
   }

@@ -5,8 +5,7 @@
 import type { MotionResponse } from '../../shared/contracts/motion.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
-import { SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
-import { defaultSimulationPool } from '../routes/simulate.ts';
+import { type SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
 import { HttpError } from '../http/http-error.ts';
 import { compiledParts } from './compiled-sequence.ts';
 import { primitiveCues, primitiveStepMap } from './primitive-cues.ts';
@@ -24,7 +23,7 @@ function unprocessable(what: string, message: string): HttpError {
  * The motion of one version at `rateHz` samples per second, simulated in the engine's worker pool.
  * Throws HttpError 422 on invalid stored data, 503 when the simulation exceeds its time budget.
  */
-export async function buildMotion(v: LoadedVersion, rateHz: number): Promise<MotionResponse> {
+export async function buildMotion(v: LoadedVersion, rateHz: number, pool: SimulationPool): Promise<MotionResponse> {
   const body = validateBody(v.body);
   if (!body.ok) throw unprocessable('profile body', body.issues[0].message);
   const parts = compiledParts(v.compiled);
@@ -32,7 +31,7 @@ export async function buildMotion(v: LoadedVersion, rateHz: number): Promise<Mot
   if (!sequence.ok) throw unprocessable('compiled sequence', sequence.issues[0].message);
   let reply;
   try {
-    reply = await defaultSimulationPool().run(body.value, sequence.value, { rateHz });
+    reply = await pool.run(body.value, sequence.value, { rateHz });
   } catch (err) {
     if (err instanceof SimulationTimeoutError) throw new HttpError(503, 'simulation_timeout', err.message);
     throw err;

@@ -14,14 +14,13 @@ import { validateBody } from '../../shared/contracts/body.ts';
 import { type Sequence, validateSequence } from '../../shared/contracts/sequence.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
-import { SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
+import { type SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
 import { HttpError } from '../http/http-error.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
 import { compiledParts } from '../motion/compiled-sequence.ts';
 import { stepTimeline } from '../motion/step-timeline.ts';
 import { targetAttitude } from '../motion/target-attitude.ts';
 import type { LoadedVersion } from '../motion/version-access.ts';
-import { defaultSimulationPool } from '../routes/simulate.ts';
 import { compareExecution, type RecordedTrack, recordingSequence } from './compare-execution.ts';
 
 /** Overlay sample rate, Hz. */
@@ -33,9 +32,9 @@ const yprDeg = (a: Attitude) => { const y = quatToYpr(q4(a)); return { yaw: y.ya
 const turnDeg = (a: Attitude) => 2 * Math.acos(Math.min(1, Math.abs(a.w))) * DEG;
 
 /** Simulates in the worker pool; a contract problem is a 422 naming the field. */
-async function run(body: unknown, sequence: Sequence, what: string): Promise<SimulationResult> {
+async function run(pool: SimulationPool, body: unknown, sequence: Sequence, what: string): Promise<SimulationResult> {
   try {
-    const reply = await defaultSimulationPool().run(body, sequence, { rateHz: OVERLAY_HZ });
+    const reply = await pool.run(body, sequence, { rateHz: OVERLAY_HZ });
     if (reply.kind === 'invalid') throw new HttpError(422, 'recording_invalid', `The ${what} cannot be simulated: ${reply.issues[0].message}`, 'file');
     return reply.result;
   } catch (err) {
@@ -46,7 +45,7 @@ async function run(body: unknown, sequence: Sequence, what: string): Promise<Sim
 
 /** Builds the capture for a recording of version `v` (the sign-off is added by the caller). */
 export async function buildCapture(
-  db: Database, v: LoadedVersion, rec: RecordedTrack, meta: { rehearsalId: string; uploadId: string; fileName: string; assumptions: string[]; createdAt: Date },
+  db: Database, pool: SimulationPool, v: LoadedVersion, rec: RecordedTrack, meta: { rehearsalId: string; uploadId: string; fileName: string; assumptions: string[]; createdAt: Date },
 ): Promise<Omit<RehearsalCapture, 'signedOff'>> {
   const body = validateBody(v.body);
   if (!body.ok) throw new HttpError(422, 'motion_invalid', `The plan's profile body cannot be simulated: ${body.issues[0].message}`);
@@ -58,7 +57,7 @@ export async function buildCapture(
   if (!checked.ok) throw new HttpError(422, 'recording_invalid', `The recording does not fit this body: ${checked.issues[0].message}`, 'file');
 
   // Like with like: the plan's profile version; then the current one when it differs.
-  const planResult = await run(body.value, plan.value, 'plan');
+  const planResult = await run(pool, body.value, plan.value, 'plan');
   const target = targetAttitude(v.target);
   const profiles: { id: string; version: number; body: unknown; role: CaptureOutcome['role'] }[] = [];
   const current = await currentProfile(db, v.crewMemberId).catch(() => null);
@@ -68,7 +67,7 @@ export async function buildCapture(
   const outcomes: CaptureOutcome[] = [];
   let executed: SimulationResult | null = null;
   for (const p of profiles) {
-    const r = await run(p.body, recSeq, p.role === 'plan' ? 'recording' : 'recording on the current profile');
+    const r = await run(pool, p.body, recSeq, p.role === 'plan' ? 'recording' : 'recording on the current profile');
     if (p.role === 'plan') executed = r;
     outcomes.push({
       profileVersionId: p.id, profileVersion: p.version, role: p.role, reached: r.final.attitude, reachedYprDeg: yprDeg(r.final.attitude),

@@ -12,7 +12,6 @@ import { recordingsRouter } from './recordings.ts';
 import { rehearsalsRouter } from './rehearsals.ts';
 import { reviewsRouter } from './reviews.ts';
 import { sequencesRouter } from './sequences.ts';
-import { adhocSimulationPool } from '../engine/pool/shared-pools.ts';
 import { createSimulateRouter, fairnessFromConfig } from './simulate.ts';
 import { teamRouter } from './team.ts';
 import { uploadsRouter } from './uploads.ts';
@@ -41,7 +40,7 @@ export const API_AREAS: ApiArea[] = [
   {
     area: 'simulate', path: '/simulate',
     router: (ctx) => createSimulateRouter({
-      pool: adhocSimulationPool({ size: ctx.config.SIMULATE_POOL_SIZE, timeoutMs: ctx.config.SIMULATION_TIMEOUT_MS }),
+      pool: ctx.simulation.adhoc,
       fairness: fairnessFromConfig(ctx.config),
     }),
   },

@@ -30,7 +30,7 @@ export function motionRouter(ctx: AppContext): Router {
     const json = await cache.get(key, async () => {
       const v = await loadVersion(db, versionId);
       if (!v) throw notFound('Sequence version');
-      const { status: _status, ...motion } = await buildMotion(v, rate);
+      const { status: _status, ...motion } = await buildMotion(v, rate, ctx.simulation.product);
       return JSON.stringify(motion);
     });
     // The status may have moved on (cleared → recheck): it is added to the cached text per request.

@@ -112,7 +112,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
     // Simulate before writing anything: a recording that does not fit the body is rejected whole.
     let capture;
     try {
-      capture = await buildCapture(db, v, track, { rehearsalId: id, uploadId: file.id, fileName: file.fileName, assumptions: track.assumptions, createdAt: new Date() });
+      capture = await buildCapture(db, ctx.simulation.product, v, track, { rehearsalId: id, uploadId: file.id, fileName: file.fileName, assumptions: track.assumptions, createdAt: new Date() });
     } catch (err) {
       if (err instanceof Error && 'status' in err && (err as { status: number }).status === 422) {
         return rejectUpload(ctx, res, file, rows.length, [{ row: 0, column: 'file', reason: err.message }], me.id);

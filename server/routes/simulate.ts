@@ -1,6 +1,6 @@
 /**
  * POST / (mounted at /api/simulate): `{ body, sequence, options? }` → the simulation result.
- * Checks the size limits and the contracts on the request thread (cheap), then runs the simulation
+ * Checks the envelope and size limits (the shared schema, through validate()) and the contracts on the request thread (cheap), then runs the simulation
  * in the worker pool under a time budget. Errors: `{ error: { code, message, field } }` (plus `issues`
  * listing every contract problem). Roles are enforced where the router is mounted.
  */
@@ -10,11 +10,9 @@ import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import { validateBody } from '../../shared/contracts/body.ts';
 import type { ContractIssue } from '../../shared/contracts/contract-issue.ts';
 import { stepDuration, validateSequence } from '../../shared/contracts/sequence.ts';
-import { formatPath } from '../../shared/contracts/contract-issue.ts';
 import { DEFAULT_RATE_HZ, SIMULATE_LIMITS, simulateRequestSchema } from '../../shared/contracts/simulate-request.ts';
 import type { Config } from '../config.ts';
 import { FairAdmission } from '../engine/pool/fair-admission.ts';
-import { adhocSimulationPool, productSimulationPool } from '../engine/pool/shared-pools.ts';
 import { type SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
 import { unfinishedSimulation } from '../http/unfinished-simulation.ts';
 import { validate } from '../http/validate.ts';
@@ -44,18 +42,10 @@ const DEFAULT_FAIRNESS: SimulateFairness = { perUser: 1, rateLimit: 30, rateWind
 
 /** Router settings. */
 export interface SimulateRouterOptions {
-  /** The pool to run on (default: the process's ad-hoc pool, separate from trainee motion). */
-  pool?: SimulationPool;
+  /** The pool to run on: the app context's ad-hoc pool (`ctx.simulation.adhoc`), never the one trainee motion uses. */
+  pool: SimulationPool;
   /** Fair-use limits (defaults as in server/config.ts). */
   fairness?: Partial<SimulateFairness>;
-}
-
-/**
- * The pool for product work: trainee motion and version verification. Ad-hoc simulations run on
- * their own pool (server/engine/pool/shared-pools.ts), so they never hold these up.
- */
-export function defaultSimulationPool(): SimulationPool {
-  return productSimulationPool();
 }
 
 function fail(res: Response, status: number, code: string, message: string, field?: string, issues?: ContractIssue[]) {
@@ -72,12 +62,11 @@ function contractFail(res: Response, which: 'body' | 'sequence', issues: Contrac
 const requester = (req: Request) => (req.user?.id ? `user:${req.user.id}` : `ip:${ipKeyGenerator(req.ip ?? '')}`);
 
 /** Builds the router (tests pass their own pool and limits). */
-export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
+export function createSimulateRouter(opts: SimulateRouterOptions): Router {
   const router = Router();
   const fair = { ...DEFAULT_FAIRNESS, ...opts.fairness };
-  const pool = () => opts.pool ?? adhocSimulationPool();
-  let admission: FairAdmission | null = null;
-  const admit = () => (admission ??= new FairAdmission(pool(), { perUser: fair.perUser, queueMax: fair.queueMax }));
+  const { pool } = opts;
+  const admission = new FairAdmission(pool, { perUser: fair.perUser, queueMax: fair.queueMax });
 
   const perUserRate = rateLimit({
     windowMs: fair.rateWindowMs,
@@ -91,31 +80,8 @@ export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
     },
   });
 
-  // validate() with no schema: only the shared text check (NUL, unpaired surrogates); the contracts are checked below.
-  router.post('/', validate({}), perUserRate, async (req: Request, res: Response) => {
-    // Envelope and options.
-    const env = simulateRequestSchema.safeParse(req.body);
-    if (!env.success) {
-      const issue = env.error.issues[0];
-      const field = formatPath(issue.path) || 'request';
-      return fail(res, 400, 'invalid_request', `${field}: ${issue.message}`, field);
-    }
-    const { body, sequence, options = {} } = env.data;
-    // Size limits first, so huge inputs are not validated in depth.
-    const segs = (body as { segments?: unknown }).segments;
-    if (Array.isArray(segs)) {
-      if (segs.length > SIMULATE_LIMITS.maxSegments) {
-        return fail(res, 400, 'limit_exceeded', `body has ${segs.length} segments; the limit is ${SIMULATE_LIMITS.maxSegments}`, 'body.segments');
-      }
-      const dofs = segs.reduce((n: number, s: { joint?: { dofs?: unknown } }) => n + (Array.isArray(s?.joint?.dofs) ? s.joint.dofs.length : 0), 0);
-      if (dofs > SIMULATE_LIMITS.maxDofs) {
-        return fail(res, 400, 'limit_exceeded', `body has ${dofs} dofs; the limit is ${SIMULATE_LIMITS.maxDofs}`, 'body.segments');
-      }
-    }
-    const steps = (sequence as { steps?: unknown }).steps;
-    if (Array.isArray(steps) && steps.length > SIMULATE_LIMITS.maxSteps) {
-      return fail(res, 400, 'limit_exceeded', `sequence has ${steps.length} steps; the limit is ${SIMULATE_LIMITS.maxSteps}`, 'sequence.steps');
-    }
+  router.post('/', validate({ body: simulateRequestSchema }, { bodyError: 'invalid_request' }), perUserRate, async (req, res) => {
+    const { body, sequence, options = {} } = req.body;
     // Contracts.
     const b = validateBody(body);
     if (!b.ok) return contractFail(res, 'body', b.issues);
@@ -138,7 +104,7 @@ export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
     }
     // Fair use: one person cannot fill the ad-hoc pool, and its queue stays short.
     const who = requester(req);
-    const refused = admit().enter(who);
+    const refused = admission.enter(who);
     if (refused) {
       res.set('Retry-After', String(refused.retryAfterS));
       return fail(res, 429, refused.reason === 'per_user' ? 'simulation_in_progress' : 'simulations_busy', refused.reason === 'per_user'
@@ -147,7 +113,7 @@ export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
     }
     // Simulate off the request thread.
     try {
-      const reply = await pool().run(b.value, s.value, options);
+      const reply = await pool.run(b.value, s.value, options);
       if (reply.kind === 'invalid') return contractFail(res, reply.which, reply.issues);
       res.json(reply.result);
     } catch (err) {
@@ -156,7 +122,7 @@ export function createSimulateRouter(opts: SimulateRouterOptions = {}): Router {
       if (unfinished) return fail(res, unfinished.status, unfinished.code, unfinished.message, unfinished.field);
       return fail(res, 500, 'simulation_failed', `simulation failed: ${err instanceof Error ? err.message : String(err)}`);
     } finally {
-      admit().leave(who);
+      admission.leave(who);
     }
   });
   return router;

@@ -18,7 +18,7 @@ export interface RunningServer {
 export async function serve(config: Config, opts: { seed: boolean; devMailbox?: readonly ReceivedMail[] }): Promise<RunningServer & { seeded: boolean }> {
   const ctx = createContext(config, opts.devMailbox);
   await runMigrations(ctx.db);
-  const seeded = opts.seed ? await seedDemo(ctx.db, config.BCRYPT_COST) : false;
+  const seeded = opts.seed ? await seedDemo(ctx.db, config.BCRYPT_COST, ctx.simulation.product) : false;
   // The API only sends jobs; worker processes (`npm run worker`, started by `npm start`) run them.
   const jobs = await startJobQueue(ctx, { worker: false });
   ctx.jobs = jobs;

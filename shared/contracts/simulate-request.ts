@@ -39,11 +39,35 @@ export const simulateOptionsSchema = z.object({
 /** Simulation options. */
 export type SimulateOptions = z.infer<typeof simulateOptionsSchema>;
 
-/** Envelope of the request; `body` and `sequence` are checked by validateBody / validateSequence. */
+const LIMIT = { code: 'limit_exceeded' } as const;
+const listOf = (v: unknown, key: string): unknown[] | null => {
+  const list = (v as Record<string, unknown>)[key];
+  return Array.isArray(list) ? list : null;
+};
+const dofCount = (segments: unknown[]) => segments.reduce<number>((n, s) => {
+  const dofs = typeof s === 'object' && s !== null ? (s as { joint?: { dofs?: unknown } }).joint?.dofs : undefined;
+  return n + (Array.isArray(dofs) ? dofs.length : 0);
+}, 0);
+
+/**
+ * Envelope of the request, with the size limits (issue code `limit_exceeded`) checked before any
+ * deep validation; `body` and `sequence` themselves are checked by validateBody / validateSequence.
+ */
 export const simulateRequestSchema = z.object({
-  body: z.unknown().refine((v) => typeof v === 'object' && v !== null, 'body is required (an object)'),
-  sequence: z.unknown().refine((v) => typeof v === 'object' && v !== null, 'sequence is required (an object)'),
+  body: z.record(z.string(), z.unknown(), { error: 'body is required (an object)' }),
+  sequence: z.record(z.string(), z.unknown(), { error: 'sequence is required (an object)' }),
   options: simulateOptionsSchema.optional(),
+}).superRefine(({ body, sequence }, ctx) => {
+  const segments = listOf(body, 'segments');
+  if (segments && segments.length > SIMULATE_LIMITS.maxSegments) {
+    ctx.addIssue({ code: 'custom', path: ['body', 'segments'], params: LIMIT, message: `body has ${segments.length} segments; the limit is ${SIMULATE_LIMITS.maxSegments}` });
+  } else if (segments && dofCount(segments) > SIMULATE_LIMITS.maxDofs) {
+    ctx.addIssue({ code: 'custom', path: ['body', 'segments'], params: LIMIT, message: `body has ${dofCount(segments)} dofs; the limit is ${SIMULATE_LIMITS.maxDofs}` });
+  }
+  const steps = listOf(sequence, 'steps');
+  if (steps && steps.length > SIMULATE_LIMITS.maxSteps) {
+    ctx.addIssue({ code: 'custom', path: ['sequence', 'steps'], params: LIMIT, message: `sequence has ${steps.length} steps; the limit is ${SIMULATE_LIMITS.maxSteps}` });
+  }
 });
 /** The request body. */
 export type SimulateRequest = z.infer<typeof simulateRequestSchema>;

@@ -7,7 +7,6 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
-import { closeSharedPools } from '../../server/engine/pool/shared-pools.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
 import { loadBody } from '../engine/fixtures.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
@@ -28,7 +27,6 @@ beforeAll(async () => {
   t = await startTestApp({ env: { SIMULATE_POOL_SIZE: '1', SIMULATE_QUEUE_MAX: '2', SIMULATE_RATE_LIMIT: '1000', SIMULATION_TIMEOUT_MS: '120000' } });
 }, 120_000);
 afterAll(async () => {
-  await closeSharedPools();
   await t?.close();
 });
 

@@ -23,7 +23,7 @@ import { createDatabase } from '../../db/client.ts';
 import { runMigrations } from '../../db/migrate.ts';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { seedDemo } from '../../db/seed/run-seed.ts';
-import { defaultSimulationPool } from '../../server/routes/simulate.ts';
+import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
 import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
 import { addGeneratedManeuvers } from './generated-maneuvers.ts';
 
@@ -101,13 +101,15 @@ async function main() {
   try {
     const { db, pool } = createDatabase(cluster.url, { max: 4 });
     await runMigrations(db);
-    await seedDemo(db, 12);
+    // The product pool the API's context would own (the server runs in its own process below).
+    const simulation = new SimulationPool({ timeoutMs: 20_000 });
+    await seedDemo(db, 12, simulation);
     const t0 = performance.now();
-    const versions = await addGeneratedManeuvers(db, GENERATED);
+    const versions = await addGeneratedManeuvers(db, GENERATED, simulation);
     log(`Data: demo seed + ${GENERATED} generated maneuvers (${versions} versions with engine reports), generated in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
     await pool.query('ANALYZE');
     await pool.end();
-    await defaultSimulationPool().close();
+    await simulation.close();
 
     // The product's server in its own process, production settings, logging as in production.
     child = fork(path.join(here, 'api-server.ts'), [], {

@@ -14,6 +14,7 @@ import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import type { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
 import type { StoredCompiled } from '../../server/maneuvers/stored-compiled.ts';
 import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
 
@@ -39,7 +40,7 @@ function statuses(count: number, k: number): VersionStatus[] {
 }
 
 /** Inserts `count` generated maneuvers; returns how many versions were written. */
-export async function addGeneratedManeuvers(db: Database, count: number): Promise<number> {
+export async function addGeneratedManeuvers(db: Database, count: number, pool: SimulationPool): Promise<number> {
   const members = await db.select().from(crewMembers).orderBy(crewMembers.name);
   const current = new Map<string, ProfileVersionRow>();
   for (const m of members) {
@@ -67,7 +68,7 @@ export async function addGeneratedManeuvers(db: Database, count: number): Promis
       if (!computed) {
         const primitives = FAMILIES[family](cycles);
         const c = compilePrimitives(primitives, dofInfoFromBody(profile.body as Body));
-        const report = await verifySequence({ body: profile.body as Body, sequence: c.sequence, target, profileVersionId: profile.id });
+        const report = await verifySequence({ body: profile.body as Body, sequence: c.sequence, target, profileVersionId: profile.id, pool });
         computed = {
           report,
           compiled: {

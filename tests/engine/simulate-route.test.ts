@@ -3,13 +3,14 @@ import express from 'express';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
 import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
+import { errorHandler } from '../../server/http/error-handler.ts';
 import { createSimulateRouter } from '../../server/routes/simulate.ts';
 import { apiErrorSchema } from '../../shared/contracts/api-error.ts';
 import { simulationResultSchema } from '../../shared/contracts/result.ts';
 import { loadBody, loadSequence } from './fixtures.ts';
 
 const pool = new SimulationPool({ size: 1, timeoutMs: 15_000 });
-const app = express().use(express.json({ limit: '5mb' })).use('/api/simulate', createSimulateRouter({ pool }));
+const app = express().use(express.json({ limit: '5mb' })).use('/api/simulate', createSimulateRouter({ pool })).use(errorHandler);
 afterAll(() => pool.close());
 
 const body = loadBody('arm-on-trunk');
@@ -48,7 +49,7 @@ describe('POST /api/simulate', () => {
 
   it('stops a simulation over its time budget with a clear 503, and the pool keeps serving', async () => {
     const tinyPool = new SimulationPool({ size: 1, timeoutMs: 300 });
-    const slowApp = express().use(express.json()).use('/api/simulate', createSimulateRouter({ pool: tinyPool }));
+    const slowApp = express().use(express.json()).use('/api/simulate', createSimulateRouter({ pool: tinyPool })).use(errorHandler);
     try {
       // 10 minutes of fast harmonic motion at a very tight tolerance, in twelve 50 s steps (each within
       // the integrator's step limit): over a second of work, several times the 300 ms budget.

@@ -56,7 +56,7 @@ export async function startTestApp(opts: { seed?: boolean; env?: Record<string, 
     ...opts.env,
   });
   const ctx = createContext(config, mail.messages, opts.logDestination);
-  if (opts.seed !== false) await seedDemo(ctx.db, TEST_BCRYPT_COST);
+  if (opts.seed !== false) await seedDemo(ctx.db, TEST_BCRYPT_COST, ctx.simulation.product);
   const app = createApp(ctx);
   const tokens = new Map<string, string>();
   const tokenForEmail = async (email: string) => {

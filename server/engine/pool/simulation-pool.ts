@@ -25,8 +25,8 @@ export class SimulationFailedError extends Error {
 export interface PoolOptions {
   /** Number of worker threads (default: min(2, CPU count)). */
   size?: number;
-  /** Time budget per job, ms (default 20 000). */
-  timeoutMs?: number;
+  /** Time budget per job, ms (SIMULATION_TIMEOUT_MS in the product). */
+  timeoutMs: number;
 }
 
 interface Job {
@@ -48,9 +48,9 @@ export class SimulationPool {
   private nextId = 1;
   private closed = false;
 
-  constructor(opts: PoolOptions = {}) {
+  constructor(opts: PoolOptions) {
     this.size = Math.max(1, opts.size ?? Math.min(2, cpus().length));
-    this.timeoutMs = opts.timeoutMs ?? 20_000;
+    this.timeoutMs = opts.timeoutMs;
   }
 
   /** Jobs waiting for a worker. */
