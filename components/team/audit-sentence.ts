@@ -15,9 +15,14 @@ const TEMPLATES: Record<string, string> = {
   'team.update_user': 'changed the role or access of {o}',
   'crew.create': 'added {o} to the crew',
   'crew.save_profile': 'saved {o}',
+  'crew.archive': 'archived {o}',
+  'crew.restore': 'restored {o} from the archive',
   'suit.update': 'edited the suit {o}',
   'sequence.create': 'created the maneuver {o}',
   'sequence.update': 'changed the maneuver {o}',
+  'sequence.archive': 'archived the maneuver {o}',
+  'sequence.restore': 'restored the maneuver {o} from the archive',
+  'sequence.delete': 'deleted the never-submitted maneuver {o}',
   'sequence_version.save': 'saved {o}',
   'sequence_version.submit': 'submitted {o}',
   'sequence_version.comment': 'commented on {o}',
@@ -57,6 +62,8 @@ function objectText(e: AuditEvent): string {
   if (e.objectLabel) return e.objectLabel;
   const d = detailObject(e);
   if (e.objectType === 'invitation' && typeof d.email === 'string') return d.email;
+  // A deleted object has no row to name it: its name is kept in the detail.
+  if (typeof d.name === 'string' && d.name) return `'${d.name}'`;
   return OBJECT_WORDS[e.objectType] ?? e.objectType.replace(/_/g, ' ');
 }
 

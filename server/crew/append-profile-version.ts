@@ -35,6 +35,7 @@ export interface NewProfileVersion {
 export async function appendProfileVersion(tx: Tx, v: NewProfileVersion): Promise<{ row: ProfileVersionRow; flagged: FlaggedVersions }> {
   const [member] = await tx.select().from(crewMembers).where(eq(crewMembers.id, v.crewMemberId)).for('update');
   if (!member) throw notFound('Crew member');
+  if (member.archivedAt) throw conflict(`${member.name} is archived. Restore them on Crew before saving a profile version.`, 'archived');
   const latest = member.currentVersion ?? 0;
   if (latest > 0) {
     const [prev] = await tx

@@ -1,4 +1,4 @@
-import { and, asc, eq, ilike, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, ilike, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, users, type CrewMemberRow, type ProfileVersionRow } from '../../db/schema/index.ts';
@@ -14,10 +14,10 @@ function likePattern(text: string): string {
 /**
  * Crew members the user may see, by name, each with a glimpse of its current version (mass and
  * suit, read in SQL: the version's body is not loaded). A trainee gets only their own member; `q`
- * searches name and call sign, case-insensitively.
+ * searches name and call sign, case-insensitively; `archived` lists the archived members instead of the active ones.
  */
-export async function listCrewMembers(db: Database, user: SessionUser, q?: string): Promise<{ member: CrewMemberRow; current: CurrentGlimpse | null }[]> {
-  const filters: SQL[] = [];
+export async function listCrewMembers(db: Database, user: SessionUser, q?: string, archived = false): Promise<{ member: CrewMemberRow; current: CurrentGlimpse | null }[]> {
+  const filters: SQL[] = [archived ? isNotNull(crewMembers.archivedAt) : isNull(crewMembers.archivedAt)];
   if (user.role === 'trainee') {
     if (!user.crewMemberId) return [];
     filters.push(eq(crewMembers.id, user.crewMemberId));
@@ -31,7 +31,7 @@ export async function listCrewMembers(db: Database, user: SessionUser, q?: strin
     })
     .from(crewMembers)
     .leftJoin(profileVersions, and(eq(profileVersions.crewMemberId, crewMembers.id), eq(profileVersions.version, crewMembers.currentVersion)))
-    .where(filters.length ? and(...filters) : undefined)
+    .where(and(...filters))
     .orderBy(asc(crewMembers.name));
   return rows.map(({ member, mass, suitName }) => ({ member, current: mass === null ? null : { mass, suitName } }));
 }

@@ -32,6 +32,7 @@ export function crewMemberView(row: CrewMemberRow, current: CurrentGlimpse | nul
     currentMass: current?.mass ?? null,
     currentSuit: current?.suitName ?? null,
     createdAt: row.createdAt.toISOString(),
+    archivedAt: row.archivedAt?.toISOString() ?? null,
   };
 }
 

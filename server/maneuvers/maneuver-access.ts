@@ -3,7 +3,7 @@
  * planners and admins author; trainees see only their own crew member's cleared versions
  * (and recheck ones that had been cleared, flagged); reviewers and admins decide.
  */
-import { and, eq, isNotNull, or, type SQL } from 'drizzle-orm';
+import { and, eq, isNotNull, isNull, or, type SQL } from 'drizzle-orm';
 
 import { sequences, sequenceVersions } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
@@ -27,8 +27,8 @@ export function requireAuthor(user: SessionUser): void {
 /** SQL condition on sequences for what the user may list (everything for staff). */
 export function visibleSequences(user: SessionUser): SQL | undefined {
   if (user.role !== 'trainee') return undefined;
-  // A trainee without a linked crew member sees nothing (a condition that never holds).
-  return eq(sequences.crewMemberId, user.crewMemberId ?? '00000000-0000-0000-0000-000000000000');
+  // A trainee without a linked crew member sees nothing (a condition that never holds); archived maneuvers are retired from rehearsal.
+  return and(eq(sequences.crewMemberId, user.crewMemberId ?? '00000000-0000-0000-0000-000000000000'), isNull(sequences.archivedAt));
 }
 
 /** SQL condition on versions for what the user may see. */
@@ -41,9 +41,9 @@ export function visibleVersions(user: SessionUser): SQL | undefined {
 }
 
 /** 404 unless the user may see this version (a trainee learns nothing about others' versions). */
-export function assertVersionVisible(user: SessionUser, v: { crewMemberId: string; status: string; clearedAt: Date | null }): void {
+export function assertVersionVisible(user: SessionUser, v: { crewMemberId: string; status: string; clearedAt: Date | null; archived: boolean }): void {
   if (user.role !== 'trainee') return;
-  const own = !!user.crewMemberId && user.crewMemberId === v.crewMemberId;
+  const own = !!user.crewMemberId && user.crewMemberId === v.crewMemberId && !v.archived;
   const shown = v.status === 'cleared' || (v.status === 'recheck' && v.clearedAt !== null);
   if (!own || !shown) throw notFound('Sequence version');
 }

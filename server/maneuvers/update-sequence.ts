@@ -13,6 +13,7 @@ import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, conflict, notFound } from '../http/http-error.ts';
+import { assertNotArchived } from './archive-sequence.ts';
 import { readTarget } from './version-views.ts';
 
 /** Statuses of a latest version whose target is under a reviewer's eyes or approved. */
@@ -24,6 +25,7 @@ export async function updateSequence(ctx: AppContext, user: SessionUser, sequenc
     // Lock the sequence: a concurrent version save must not slip between the check and the update.
     const [seq] = await tx.select().from(sequences).where(eq(sequences.id, sequenceId)).for('update');
     if (!seq) throw notFound('Sequence');
+    assertNotArchived(seq);
     const rename = input.name !== undefined && input.name !== seq.name;
     const retarget = input.target !== undefined && JSON.stringify(input.target) !== JSON.stringify(readTarget(seq.target));
     if (!rename && !retarget) throw badRequest('Nothing to change: the name and target are already as given.', input.target !== undefined ? 'target' : 'name');

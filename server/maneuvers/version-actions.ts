@@ -23,6 +23,7 @@ import { badRequest, conflict, forbidden, HttpError, notFound } from '../http/ht
 import { latestVersionRun } from '../jobs/robustness/version-robustness.ts';
 import { failuresSentence, versionCheckFailures } from '../../shared/product/version-checks.ts';
 import { currentProfile } from './current-profile.ts';
+import { assertNotArchived } from './archive-sequence.ts';
 import { requireAuthor } from './maneuver-access.ts';
 import { decisionMail, submissionMail } from './review-mail.ts';
 import { refusal, statusesAllowing, transition, type VersionEvent } from './status-machine.ts';
@@ -67,6 +68,7 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
   const { db } = ctx;
   const [seq] = await db.select().from(sequences).where(eq(sequences.id, sequenceId));
   if (!seq) throw notFound('Sequence');
+  assertNotArchived(seq);
   const latestNow = async (q: Pick<Database, 'select'>) =>
     (await q.select({ n: max(sequenceVersions.version) }).from(sequenceVersions).where(eq(sequenceVersions.sequenceId, sequenceId)))[0]?.n ?? 0;
   const staleCheck = (latest: number) => {
@@ -86,7 +88,8 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
 
   return db.transaction(async (tx) => {
     // Serialise saves of one sequence on its row, then re-check the base version.
-    await tx.select({ id: sequences.id }).from(sequences).where(eq(sequences.id, sequenceId)).for('update');
+    const [locked] = await tx.select({ name: sequences.name, archivedAt: sequences.archivedAt }).from(sequences).where(eq(sequences.id, sequenceId)).for('update');
+    assertNotArchived(locked);
     const latest = await latestNow(tx);
     staleCheck(latest);
     const [row] = await tx.insert(sequenceVersions).values({
@@ -155,6 +158,7 @@ export async function submitVersion(ctx: AppContext, user: SessionUser, versionI
   const row = await loadForAction(db, versionId);
   if (row.v.authorId !== user.id && user.role !== 'admin') throw forbidden('Only the author (or an admin) submits a version.');
   nextStatusOr409(row.v.status, 'submit');
+  assertNotArchived(row.s);
   // The bound profile must still be current: otherwise the report describes another body.
   const profile = await currentProfile(db, row.s.crewMemberId);
   if (profile.id !== row.v.profileVersionId) {

@@ -17,7 +17,7 @@ import { reviewEntries, selectReverifications, selectVersions, toReverification,
 export async function loadVersionDetail(db: Database, user: SessionUser, versionId: string): Promise<VersionDetail> {
   const [row] = await selectVersions(db, eq(sequenceVersions.id, versionId));
   if (!row) throw notFound('Sequence version');
-  assertVersionVisible(user, { crewMemberId: row.crewMemberId, status: row.v.status, clearedAt: row.v.clearedAt });
+  assertVersionVisible(user, { crewMemberId: row.crewMemberId, status: row.v.status, clearedAt: row.v.clearedAt, archived: row.sequence.archivedAt !== null });
   // The content (steps, report) and the histories, read side by side once the version is visible.
   const [[content], revs, reviews] = await Promise.all([
     db.select({ primitives: sequenceVersions.primitives, compiled: sequenceVersions.compiled, report: sequenceVersions.report })

@@ -40,7 +40,7 @@ export interface VersionRowJoined {
   v: { [K in keyof typeof versionListColumns]: SequenceVersionRow[K] };
   crewMemberId: string;
   crewMemberName: string;
-  sequence: { name: string; target: unknown; createdAt: Date };
+  sequence: { name: string; target: unknown; createdAt: Date; archivedAt: Date | null };
   profileVersion: number;
   currentProfileVersion: number | null;
   authorName: string | null;
@@ -61,7 +61,7 @@ export async function selectVersions(db: Database, where: SQL | undefined): Prom
       v: versionListColumns,
       crewMemberId: sequences.crewMemberId,
       crewMemberName: crewMembers.name,
-      sequence: { name: sequences.name, target: sequences.target, createdAt: sequences.createdAt },
+      sequence: { name: sequences.name, target: sequences.target, createdAt: sequences.createdAt, archivedAt: sequences.archivedAt },
       profileVersion: profileVersions.version,
       currentProfileVersion: crewMembers.currentVersion,
       authorName: author.name,
@@ -121,6 +121,7 @@ export function toSequenceHead(row: VersionRowJoined): SequenceHead {
   return {
     id: row.v.sequenceId, crewMemberId: row.crewMemberId, crewMemberName: row.crewMemberName, name: row.sequence.name,
     target: readTarget(row.sequence.target), createdAt: row.sequence.createdAt.toISOString(),
+    archivedAt: row.sequence.archivedAt?.toISOString() ?? null,
   };
 }
 
@@ -140,7 +141,7 @@ export async function sequenceHeads(db: Database, where: SQL | undefined): Promi
     .orderBy(asc(sequences.name));
   return rows.map(({ s, crewMemberName }) => ({
     id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name,
-    target: readTarget(s.target), createdAt: s.createdAt.toISOString(),
+    target: readTarget(s.target), createdAt: s.createdAt.toISOString(), archivedAt: s.archivedAt?.toISOString() ?? null,
   }));
 }
 
@@ -174,7 +175,7 @@ export async function sequenceListRows(db: Database, where: SQL | undefined, vis
     .where(where)
     .orderBy(asc(sequences.name));
   return rows.map(({ s, crewMemberName, versionCount, latestId, clearedId }) => ({
-    head: { id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name, target: readTarget(s.target), createdAt: s.createdAt.toISOString() },
+    head: { id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name, target: readTarget(s.target), createdAt: s.createdAt.toISOString(), archivedAt: s.archivedAt?.toISOString() ?? null },
     versionCount, latestId, clearedId,
   }));
 }

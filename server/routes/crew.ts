@@ -12,6 +12,7 @@ import {
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { appendProfileVersion } from '../crew/append-profile-version.ts';
+import { setMemberArchived } from '../crew/archive-member.ts';
 import { compareProfiles } from '../crew/compare-profiles.ts';
 import { readableMember, requireCrewEditor } from '../crew/crew-access.ts';
 import { getVersion, listCrewMembers, listVersions } from '../crew/crew-queries.ts';
@@ -41,8 +42,8 @@ export function crewRouter(ctx: AppContext): Router {
   const { db } = ctx;
 
   router.get('/', validate({ query: crewListQuerySchema }), async (req, res) => {
-    const { q } = res.locals.query as { q?: string };
-    const rows = await listCrewMembers(db, req.user!, q);
+    const { q, archived } = res.locals.query as z.infer<typeof crewListQuerySchema>;
+    const rows = await listCrewMembers(db, req.user!, q, archived);
     res.json({ members: rows.map(({ member, current }) => crewMemberView(member, current)) });
   });
 
@@ -55,6 +56,18 @@ export function crewRouter(ctx: AppContext): Router {
       return row;
     });
     res.status(201).json({ member: crewMemberView(member, null) });
+  });
+
+  router.post('/:id/archive', requireCrewEditor, validate({ params: idParams }), async (req, res) => {
+    const { id } = res.locals.params as { id: string };
+    await setMemberArchived(ctx, req.user!, id, true);
+    res.status(204).end();
+  });
+
+  router.post('/:id/restore', requireCrewEditor, validate({ params: idParams }), async (req, res) => {
+    const { id } = res.locals.params as { id: string };
+    await setMemberArchived(ctx, req.user!, id, false);
+    res.status(204).end();
   });
 
   router.get('/:id', validate({ params: idParams }), async (req, res) => {

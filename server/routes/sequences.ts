@@ -3,7 +3,7 @@
  * (shapes in shared/contracts/maneuver.ts). The area is open to every role; object-level rules are
  * in server/maneuvers/maneuver-access.ts.
  */
-import { eq, inArray } from 'drizzle-orm';
+import { and, eq, inArray, isNotNull, isNull, or, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
@@ -25,6 +25,7 @@ import { validate } from '../http/validate.ts';
 import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
 import { compareVersions } from '../maneuvers/compare-versions.ts';
 import { cueCardRouter } from './cue-card.ts';
+import { sequenceArchiveRouter } from './sequence-archive.ts';
 import { robustnessRouter } from './robustness.ts';
 import { queueRobustnessAfterSave } from '../jobs/robustness/version-robustness.ts';
 import { sequencePlansRouter } from './sequence-plans.ts';
@@ -39,7 +40,11 @@ const uuid = z.uuid('Not a valid id.');
 const sequenceParams = z.object({ sequenceId: uuid });
 const versionParams = z.object({ versionId: uuid });
 const compareParams = z.object({ versionId: uuid, otherVersionId: uuid });
-const listQuery = z.object({ crewMemberId: uuid.optional() });
+const listQuery = z.object({
+  crewMemberId: uuid.optional(),
+  /** `true` lists the archived maneuvers (and those of archived crew members) instead of the active ones. */
+  archived: z.enum(['true', 'false'], { error: 'archived: use true or false.' }).optional().transform((v) => v === 'true'),
+});
 
 /** The standard model's unsuited dof ranges (compile previews without a crew member). */
 const STANDARD_DOFS: DofInfo[] = DOF_NAMES.map((name) => ({ name, ...UNSUITED_DOF_RANGES[name] }));
@@ -47,6 +52,13 @@ const STANDARD_DOFS: DofInfo[] = DOF_NAMES.map((name) => ({ name, ...UNSUITED_DO
 /** The cleared version trainees rehearse: the newest cleared, or a once-cleared recheck one. */
 function rehearsable(versions: VersionSummary[]): VersionSummary | null {
   return versions.find((v) => v.status === 'cleared' || (v.status === 'recheck' && v.clearedAt !== null)) ?? null;
+}
+
+/** Archived maneuvers are those archived themselves or whose crew member is archived. */
+function archivedCondition(archived: boolean): SQL | undefined {
+  return archived
+    ? or(isNotNull(sequences.archivedAt), isNotNull(crewMembers.archivedAt))
+    : and(isNull(sequences.archivedAt), isNull(crewMembers.archivedAt));
 }
 
 /** Builds the router. */
@@ -58,10 +70,11 @@ export function sequencesRouter(ctx: AppContext): Router {
    * Sequence summaries matching a condition, by name: one query for the heads with their version
    * count and the ids of the newest and the rehearsable version, one for those versions' summaries.
    */
-  async function summaries(user: Express.Request['user'] & object, sequenceIds?: string[], crewMemberId?: string): Promise<SequenceSummary[]> {
+  async function summaries(user: Express.Request['user'] & object, sequenceIds?: string[], crewMemberId?: string, archived?: boolean): Promise<SequenceSummary[]> {
     const rows = await sequenceListRows(db, allOf(
       visibleSequences(user),
       crewMemberId ? eq(sequences.crewMemberId, crewMemberId) : undefined,
+      archived === undefined ? undefined : archivedCondition(archived),
       sequenceIds ? inArray(sequences.id, sequenceIds) : undefined,
     ), visibleVersions(user));
     const ids = [...new Set(rows.flatMap((r) => [r.latestId, r.clearedId]).filter((id): id is string => id !== null))];
@@ -85,16 +98,17 @@ export function sequencesRouter(ctx: AppContext): Router {
   }
 
   router.get('/', validate({ query: listQuery }), async (req, res) => {
-    const { crewMemberId } = res.locals.query as z.infer<typeof listQuery>;
-    res.json({ sequences: await summaries(req.user!, undefined, crewMemberId) });
+    const { crewMemberId, archived } = res.locals.query as z.infer<typeof listQuery>;
+    res.json({ sequences: await summaries(req.user!, undefined, crewMemberId, archived) });
   });
 
   router.post('/', validate({ body: createSequenceRequestSchema }), async (req, res) => {
     const user = req.user!;
     requireAuthor(user);
     const input = req.body as z.infer<typeof createSequenceRequestSchema>;
-    const [member] = await db.select({ id: crewMembers.id }).from(crewMembers).where(eq(crewMembers.id, input.crewMemberId));
+    const [member] = await db.select({ id: crewMembers.id, name: crewMembers.name, archivedAt: crewMembers.archivedAt }).from(crewMembers).where(eq(crewMembers.id, input.crewMemberId));
     if (!member) throw badRequest('crewMemberId: no such crew member.', 'crewMemberId');
+    if (member.archivedAt) throw badRequest(`crewMemberId: ${member.name} is archived; restore them on Crew first.`, 'crewMemberId');
     const id = await db.transaction(async (tx) => {
       const [row] = await tx.insert(sequences).values({ crewMemberId: input.crewMemberId, name: input.name, target: input.target, createdBy: user.id }).returning();
       await recordAudit(tx, { actorId: user.id, action: 'sequence.create', objectType: 'sequence', objectId: row.id, detail: { name: input.name, crewMemberId: input.crewMemberId, target: input.target } });
@@ -134,6 +148,7 @@ export function sequencesRouter(ctx: AppContext): Router {
   });
 
   router.use(cueCardRouter(ctx));
+  router.use(sequenceArchiveRouter(ctx));
   router.use(robustnessRouter(ctx));
   router.use('/:sequenceId/plans', sequencePlansRouter(ctx));
 

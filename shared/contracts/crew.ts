@@ -18,7 +18,11 @@ export type CreateCrewMemberRequest = z.infer<typeof createCrewMemberRequestSche
 export type CreateCrewMemberInput = z.input<typeof createCrewMemberRequestSchema>;
 
 /** GET /api/crew?q= — optional search in name and call sign. */
-export const crewListQuerySchema = z.object({ q: z.string().trim().max(120).optional() });
+export const crewListQuerySchema = z.object({
+  q: z.string().trim().max(120).optional(),
+  /** `true` lists the archived members instead of the active ones. */
+  archived: z.enum(['true', 'false'], { error: 'archived: use true or false.' }).optional().transform((v) => v === 'true'),
+});
 
 /**
  * The editable profile inputs: the shared profile-inputs schema with the suit chosen by the id of a
@@ -64,6 +68,8 @@ export interface CrewMemberView {
   /** Name of the suit in the current version, if any. */
   currentSuit: string | null;
   createdAt: string;
+  /** When the member was archived (out of default lists, no new profile versions); null when active. */
+  archivedAt: string | null;
 }
 
 /** A stored suit configuration as the API returns it (GET /api/suits). */

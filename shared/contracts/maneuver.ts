@@ -313,6 +313,8 @@ export const sequenceHeadSchema = z.object({
   name: z.string(),
   target: sequenceTargetSchema,
   createdAt: isoTime,
+  /** When the maneuver was archived (out of default lists, no new versions); null when active. */
+  archivedAt: isoTime.nullable(),
 });
 export type SequenceHead = z.infer<typeof sequenceHeadSchema>;
 

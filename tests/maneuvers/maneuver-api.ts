@@ -30,6 +30,7 @@ export function as(t: TestApp, email: string) {
     get: async (path: string) => request(t.app).get(`/api${path}`).set('Authorization', await auth()),
     post: async (path: string, body: object = {}) => request(t.app).post(`/api${path}`).set('Authorization', await auth()).send(body),
     patch: async (path: string, body: object = {}) => request(t.app).patch(`/api${path}`).set('Authorization', await auth()).send(body),
+    delete: async (path: string) => request(t.app).delete(`/api${path}`).set('Authorization', await auth()),
   };
 }
 

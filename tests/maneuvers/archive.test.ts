@@ -1,0 +1,132 @@
+/**
+ * Keeping lists to what is in use: maneuvers and crew members are archived and restored (nothing is
+ * lost; archived ones leave default lists, trainees' sight and editing), and a maneuver that never
+ * went to review can be deleted with its drafts in one transaction.
+ */
+import { eq, inArray } from 'drizzle-orm';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+
+import { auditEvents, crewMembers, robustnessRuns, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { PEOPLE, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+
+let t: TestApp;
+let crew: string;
+beforeAll(async () => {
+  t = await startTestApp();
+  crew = await crewOf(t, PEOPLE.trainee);
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+const names = (res: { body: { sequences: { name: string }[] } }) => res.body.sequences.map((s) => s.name);
+
+describe('archiving a maneuver', () => {
+  it('takes it out of the default list, out of the trainee\'s sight and out of editing; restoring brings all back', async () => {
+    const id = await createSequence(t, crew, 'Archive test A');
+    const v1 = await saveVersion(t, id, 0);
+    expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${v1.body.id}/submit`, { acknowledgeFailures: true, note: 'archive test' })).status).toBe(200);
+
+    // Pending review: archiving would hide a reviewer's work.
+    const pending = await as(t, PEOPLE.planner).post(`/sequences/${id}/archive`);
+    expect(pending.status).toBe(409);
+    expect(pending.body.error.code).toBe('under_review');
+    expect((await as(t, PEOPLE.reviewer).post(`/reviews/${v1.body.id}/decision`, { decision: 'clear', comment: 'ok' })).status).toBe(200);
+    expect(names(await as(t, PEOPLE.trainee).get('/sequences'))).toContain('Archive test A');
+
+    // Only authors archive.
+    expect((await as(t, PEOPLE.trainee).post(`/sequences/${id}/archive`)).status).toBe(403);
+    expect((await as(t, PEOPLE.planner).post(`/sequences/${id}/archive`)).status).toBe(204);
+    expect((await as(t, PEOPLE.planner).post(`/sequences/${id}/archive`)).body.error.code).toBe('already_archived');
+
+    expect(names(await as(t, PEOPLE.planner).get('/sequences'))).not.toContain('Archive test A');
+    const archivedList = await as(t, PEOPLE.planner).get('/sequences?archived=true');
+    expect(names(archivedList)).toContain('Archive test A');
+    expect(archivedList.body.sequences.find((s: { id: string }) => s.id === id).archivedAt).toEqual(expect.any(String));
+    expect(names(await as(t, PEOPLE.trainee).get('/sequences'))).not.toContain('Archive test A');
+    expect((await as(t, PEOPLE.trainee).get(`/sequences/versions/${v1.body.id}`)).status).toBe(404);
+
+    // Nothing changes while archived; the cleared version stays as it was.
+    const save = await saveVersion(t, id, 1);
+    expect(save.status).toBe(409);
+    expect(save.body.error.code).toBe('archived');
+    expect((await as(t, PEOPLE.planner).patch(`/sequences/${id}`, { name: 'Renamed' })).body.error.code).toBe('archived');
+    expect((await as(t, PEOPLE.planner).get(`/sequences/versions/${v1.body.id}`)).body.status).toBe('cleared');
+    expect((await as(t, PEOPLE.planner).delete(`/sequences/${id}`)).body.error.code).toBe('submitted');
+
+    expect((await as(t, PEOPLE.planner).post(`/sequences/${id}/restore`)).status).toBe(204);
+    expect(names(await as(t, PEOPLE.trainee).get('/sequences'))).toContain('Archive test A');
+    expect((await saveVersion(t, id, 1)).status).toBe(201);
+
+    const actions = (await t.ctx.db.select({ action: auditEvents.action }).from(auditEvents).where(eq(auditEvents.objectId, id))).map((e) => e.action);
+    expect(actions).toEqual(expect.arrayContaining(['sequence.archive', 'sequence.restore']));
+  }, 90_000);
+
+  it('rejects a bad archived filter by name', async () => {
+    const res = await as(t, PEOPLE.planner).get('/sequences?archived=maybe');
+    expect(res.status).toBe(400);
+    expect(JSON.stringify(res.body)).toContain('archived');
+  });
+});
+
+describe('deleting a maneuver', () => {
+  it('deletes one that never went to review with its drafts and robustness runs, in one go', async () => {
+    const id = await createSequence(t, crew, 'Delete test A');
+    const v1 = await saveVersion(t, id, 0);
+    const v2 = await saveVersion(t, id, 1);
+    expect(v2.status).toBe(201);
+    const versionIds = [v1.body.id as string, v2.body.id as string];
+
+    expect((await as(t, PEOPLE.trainee).delete(`/sequences/${id}`)).status).toBe(403);
+    expect((await as(t, PEOPLE.planner).delete(`/sequences/${id}`)).status).toBe(204);
+    expect((await as(t, PEOPLE.planner).get(`/sequences/${id}`)).status).toBe(404);
+    expect(await t.ctx.db.select().from(sequences).where(eq(sequences.id, id))).toHaveLength(0);
+    expect(await t.ctx.db.select().from(sequenceVersions).where(inArray(sequenceVersions.id, versionIds))).toHaveLength(0);
+    expect(await t.ctx.db.select().from(robustnessRuns).where(inArray(robustnessRuns.sequenceVersionId, versionIds))).toHaveLength(0);
+    const [audit] = await t.ctx.db.select().from(auditEvents).where(eq(auditEvents.objectId, id)).then((rows) => rows.filter((r) => r.action === 'sequence.delete'));
+    expect(audit.detail).toMatchObject({ name: 'Delete test A', versions: 2 });
+    expect((await as(t, PEOPLE.planner).delete(`/sequences/${id}`)).status).toBe(404);
+  }, 90_000);
+
+  it('keeps one that went to review (sent back counts) and leaves it whole', async () => {
+    const id = await createSequence(t, crew, 'Delete test B');
+    const v1 = await saveVersion(t, id, 0);
+    await as(t, PEOPLE.planner).post(`/sequences/versions/${v1.body.id}/submit`, { acknowledgeFailures: true, note: 'delete test' });
+    expect((await as(t, PEOPLE.reviewer).post(`/reviews/${v1.body.id}/decision`, { decision: 'send_back', comment: 'no' })).status).toBe(200);
+    await saveVersion(t, id, 1);
+    const res = await as(t, PEOPLE.planner).delete(`/sequences/${id}`);
+    expect(res.status).toBe(409);
+    expect(res.body.error.code).toBe('submitted');
+    expect(await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.sequenceId, id))).toHaveLength(2);
+  }, 90_000);
+});
+
+describe('archiving a crew member', () => {
+  it('takes the member and their maneuvers out of default lists and refuses new profiles and maneuvers until restored', async () => {
+    const created = await as(t, PEOPLE.planner).post('/crew', { name: 'Archive Testperson', callSign: 'ARCH' });
+    expect(created.status).toBe(201);
+    const memberId = created.body.member.id as string;
+    const seqId = await createSequence(t, crew, 'Crew archive neighbour');
+
+    expect((await as(t, PEOPLE.reviewer).post(`/crew/${memberId}/archive`)).status).toBe(403);
+    expect((await as(t, PEOPLE.planner).post(`/crew/${memberId}/archive`)).status).toBe(204);
+    const active = await as(t, PEOPLE.planner).get('/crew');
+    expect(active.body.members.map((m: { id: string }) => m.id)).not.toContain(memberId);
+    const archived = await as(t, PEOPLE.planner).get('/crew?archived=true');
+    expect(archived.body.members.find((m: { id: string }) => m.id === memberId).archivedAt).toEqual(expect.any(String));
+
+    const newSeq = await as(t, PEOPLE.planner).post('/sequences', { crewMemberId: memberId, name: 'Nope', target: { mode: 'ypr', yprDeg: { yaw: 90, pitch: 0, roll: 0 }, toleranceDeg: 3 } });
+    expect(newSeq.status).toBe(400);
+    expect(newSeq.body.error.field).toBe('crewMemberId');
+    const [row] = await t.ctx.db.select().from(crewMembers).where(eq(crewMembers.id, memberId));
+    expect(row.archivedBy).not.toBeNull();
+
+    // The demo trainee's maneuvers are untouched by someone else's archive.
+    expect(names(await as(t, PEOPLE.planner).get('/sequences'))).toContain('Crew archive neighbour');
+    expect(seqId).toBeTruthy();
+
+    expect((await as(t, PEOPLE.planner).post(`/crew/${memberId}/restore`)).status).toBe(204);
+    expect((await as(t, PEOPLE.planner).get('/crew')).body.members.map((m: { id: string }) => m.id)).toContain(memberId);
+  }, 60_000);
+});
