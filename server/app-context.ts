@@ -19,6 +19,8 @@ export interface AppContext {
   /** The engine's worker-thread pools: product work and ad-hoc POST /api/simulate. */
   simulation: SimulationPools;
   logger: Logger;
+  /** The engine version this process runs (ENGINE_VERSION; what new verifications record). */
+  engineVersion: string;
   /** Messages of the local SMTP fake, when one runs in this process (development and tests). */
   devMailbox?: readonly ReceivedMail[];
   /** Hands background work (re-verification, planning) to the job queue; set when a queue is running. */

@@ -6,6 +6,7 @@ import type { AppContext } from './app-context.ts';
 import { TokenService } from './auth/tokens.ts';
 import type { Config } from './config.ts';
 import { createSimulationPools } from './engine/pool/simulation-pools.ts';
+import { ENGINE_VERSION } from './engine/version.ts';
 import { createLogger } from './logging/logger.ts';
 import { createMailer } from './mail/mailer.ts';
 import type { ReceivedMail } from './mail/smtp-fake.ts';
@@ -30,6 +31,7 @@ export function createContext(config: Config, devMailbox?: readonly ReceivedMail
     storage: createObjectStore(config),
     simulation,
     logger,
+    engineVersion: ENGINE_VERSION,
     devMailbox,
     pool,
     close: async () => {

@@ -7,6 +7,7 @@ import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import { webPressState } from '@/components/ui/press-state';
 import type { RehearsableVersion } from '@/shared/contracts/rehearsal';
+import { shortEngineVersion } from '@/shared/product/engine-binding';
 
 /** Props of {@link RehearsableList}. */
 export interface RehearsableListProps {
@@ -49,7 +50,13 @@ export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
               <Fact label="Target" value={v.targetLabel} />
               <Fact label="Duration" value={`${v.duration.toFixed(1)} s`} />
               <Fact label="Steps" value={String(v.stepCount)} />
+              {v.engineVersion ? <Fact label="Verified by engine" value={shortEngineVersion(v.engineVersion)} /> : null}
             </View>
+            {v.verifiedByOtherEngine && v.engineVersion ? (
+              <Text variant="caption" tone="accent">
+                This server now runs another engine version; the player shows the result verified by engine {shortEngineVersion(v.engineVersion)}, which the approval binds to.
+              </Text>
+            ) : null}
             <Text variant="caption" tone={v.lastRehearsal ? 'default' : 'muted'}>
               {v.lastRehearsal
                 ? `Last rehearsed ${formatDateTime(v.lastRehearsal.performedAt)} · ${v.lastRehearsal.completedSteps}/${v.lastRehearsal.totalSteps} steps · rated ${v.lastRehearsal.selfRating}/5 · ${v.rehearsalCount} run${v.rehearsalCount === 1 ? '' : 's'}`

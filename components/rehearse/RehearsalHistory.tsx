@@ -6,6 +6,7 @@ import { Card } from '@/components/ui/Card';
 import { Text } from '@/components/ui/Text';
 import type { Rehearsal } from '@/shared/contracts/rehearsal';
 import { RehearsalCapturePanel } from './RehearsalCapturePanel';
+import { shortEngineVersion } from '@/shared/product/engine-binding';
 
 /** Props of {@link RehearsalHistory}. */
 export interface RehearsalHistoryProps {
@@ -36,6 +37,7 @@ export function RehearsalHistory({ rehearsals, showTrainee = false, canSignOff =
               <Text variant="caption" tone="muted">
                 {showTrainee ? `${r.traineeName} · ` : ''}
                 {r.completedSteps}/{r.totalSteps} steps · {r.playbackSpeed}× · v{r.version}
+                {r.engineVersion ? ` · verified by engine ${shortEngineVersion(r.engineVersion)}` : ''}
               </Text>
               {r.notes ? <Text variant="caption">{r.notes}</Text> : null}
               <RehearsalCapturePanel rehearsalId={r.id} canSignOff={canSignOff} />

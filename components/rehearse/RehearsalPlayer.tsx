@@ -13,6 +13,7 @@ import { buildSceneModel } from '@/scene/scene-model';
 import { scenePalette } from '@/scene/scene-palette';
 import type { MotionResponse } from '@/shared/contracts/motion';
 import { PLAYBACK_SPEEDS } from '@/shared/contracts/playback-speeds';
+import { engineBindingText } from '@/shared/product/engine-binding';
 import { ControlButton } from './ControlButton';
 import { CueCard } from './CueCard';
 import { StepTimeline } from './StepTimeline';
@@ -87,6 +88,9 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
             </Text>
             <Text variant="caption" tone="muted" numberOfLines={1}>
               {motion.crewMemberName} · {motion.duration.toFixed(1)} s · {snap.speed}×
+            </Text>
+            <Text variant="caption" tone={motion.verifiedByOtherEngine ? 'accent' : 'muted'} numberOfLines={motion.verifiedByOtherEngine ? 3 : 1} testID="player-engine">
+              {engineBindingText(motion.engineVersion, motion.runningEngineVersion)}
             </Text>
           </View>
           {onLog ? <Button label="Log run" icon="edit-3" size="sm" variant={snap.ended ? 'primary' : 'secondary'} onPress={() => onLog(run())} accessibilityLabel="Log rehearsal" /> : null}

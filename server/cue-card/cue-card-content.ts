@@ -6,6 +6,7 @@
 import type { SequenceTarget, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
+import { engineBindingText, shortEngineVersion } from '../../shared/product/engine-binding.ts';
 import { HttpError } from '../http/http-error.ts';
 import { stepTimeline } from '../motion/step-timeline.ts';
 import { CUE_CARD_CAUTIONS } from './cue-card-cautions.ts';
@@ -44,6 +45,8 @@ export interface CueCardContent {
   clearedAt: string | null;
   /** Engine version with its source hash cut to 8 characters ("1.4.0+ab12cd34"), or null. */
   engineVersionShort: string | null;
+  /** When the server now runs another engine than the one that verified this version: that, in words; else null. */
+  engineNote: string | null;
   /** First 12 hex digits of the inputs hash, or null. */
   inputsHashShort: string | null;
   /** The target in words, e.g. "yaw 90°, pitch 0°, roll 0°" or "60° about [0, 0, 1]". */
@@ -94,18 +97,12 @@ function compiledStepCues(v: VersionDetail): (string | undefined)[] {
   });
 }
 
-/** Engine version shortened for print: the semver plus the first 8 characters of the source hash. */
-function shortEngine(v: string | null): string | null {
-  if (!v) return null;
-  const [semver, hash] = v.split('+');
-  return hash ? `${semver}+${hash.slice(0, 8)}` : semver;
-}
 
 /**
  * The card for a cleared version. Throws HttpError 409 `not_cleared` for any other status and
  * 422 `cue_card_invalid` naming the step when a stored step cannot be timed.
  */
-export function cueCardContent(v: VersionDetail, crew: { callSign: string | null }): CueCardContent {
+export function cueCardContent(v: VersionDetail, crew: { callSign: string | null }, runningEngineVersion: string): CueCardContent {
   if (v.status !== 'cleared') {
     throw new HttpError(409, 'not_cleared', `Only cleared versions have a cue card; version ${v.version} is ${v.status.replace('_', ' ')}.`);
   }
@@ -114,6 +111,7 @@ export function cueCardContent(v: VersionDetail, crew: { callSign: string | null
   const timeline = stepTimeline(v.compiled as unknown as Sequence, compiledStepCues(v), { primitives: v.primitives, stepMap: v.stepMap });
   const r = v.report;
   const target = v.target;
+  const verifiedBy = v.engineVersion ?? r?.engineVersion ?? null;
   return {
     productMark: 'holonaut',
     title: 'Cue card',
@@ -125,7 +123,8 @@ export function cueCardContent(v: VersionDetail, crew: { callSign: string | null
     statusLabel: 'Cleared',
     clearedByName: v.clearedByName,
     clearedAt: v.clearedAt,
-    engineVersionShort: shortEngine(v.engineVersion ?? r?.engineVersion ?? null),
+    engineVersionShort: verifiedBy ? shortEngineVersion(verifiedBy) : null,
+    engineNote: verifiedBy && verifiedBy !== runningEngineVersion ? engineBindingText(verifiedBy, runningEngineVersion) : null,
     inputsHashShort: (v.inputsHash ?? r?.inputsHash)?.slice(0, 12) ?? null,
     targetText: targetWords(target),
     toleranceDeg: target.toleranceDeg,

@@ -95,6 +95,7 @@ export function renderCueCard(card: CueCardContent, opts: RenderCueCardOptions =
   } else {
     line('Verified run', 'no verification report on file');
   }
+  if (card.engineNote) line('Engine', card.engineNote);
   if (card.peakJointRate) {
     const p = card.peakJointRate;
     line('Peak joint rate', `${Math.round(p.maxDegS)}°/s${p.dofLabel ? ` (${p.dofLabel})` : ''} against a limit of ${Math.round(p.limitDegS)}°/s: ${p.withinLimit ? 'within' : 'above'} the limit`);

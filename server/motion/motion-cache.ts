@@ -1,20 +1,20 @@
 /**
- * In-memory cache of computed motions. Safe because what a motion depends on is frozen: a cleared
- * version's compiled steps and its profile version's body never change (database triggers), and the
- * key includes the engine version. Status is re-read on every request and patched into the copy.
+ * In-memory cache of built motions. Safe because what a motion is built from is frozen: a version's
+ * compiled steps and verification report, and its profile version's body, never change once the
+ * version is playable (database triggers); nothing in it depends on the engine running now.
+ * Status and the running engine are added per request.
  */
-import { ENGINE_VERSION } from '../engine/version.ts';
 
 /** A small least-recently-used cache of promises (concurrent requests for one key share one computation). */
 export class MotionCache<T> {
   private readonly entries = new Map<string, Promise<T>>();
 
-  /** @param capacity entries kept (default 32; a 30 s motion at 30 Hz is ≈150 KB). */
+  /** @param capacity entries kept (default 32; a 30 s motion at 20 Hz is ≈100 KB). */
   constructor(private readonly capacity = 32) {}
 
-  /** Key of a version's motion at a sample rate under the running engine. */
-  static key(versionId: string, profileVersionId: string, rateHz: number): string {
-    return `${versionId}|${profileVersionId}|${rateHz}|${ENGINE_VERSION}`;
+  /** Key of a version's motion at a sample rate (undefined: as verified). */
+  static key(versionId: string, rateHz: number | undefined): string {
+    return `${versionId}|${rateHz ?? 'verified'}`;
   }
 
   /** The cached value, or compute() once and keep it; a failed computation is not kept. */

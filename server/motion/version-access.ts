@@ -27,6 +27,10 @@ export interface LoadedVersion {
   profileVersionId: string;
   /** profile_versions.body jsonb (body contract). */
   body: unknown;
+  /** report jsonb as stored (the verification report; null before verification). */
+  report: unknown;
+  /** Engine version that verified it (null before verification). */
+  engineVersion: string | null;
   clearedAt: Date | null;
 }
 
@@ -46,7 +50,7 @@ export async function loadVersion(db: Database, versionId: string): Promise<Load
   return {
     id: row.v.id, sequenceId: row.s.id, sequenceName: row.s.name, version: row.v.version, status: row.v.status,
     crewMemberId: row.s.crewMemberId, crewMemberName: row.crewName, target: row.v.target, compiled: row.v.compiled, primitives: row.v.primitives,
-    profileVersionId: row.v.profileVersionId, body: row.body, clearedAt: row.v.clearedAt,
+    profileVersionId: row.v.profileVersionId, body: row.body, report: row.v.report, engineVersion: row.v.engineVersion, clearedAt: row.v.clearedAt,
   };
 }
 

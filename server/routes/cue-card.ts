@@ -27,7 +27,7 @@ export function cueCardRouter(ctx: AppContext): Router {
     const user = req.user!;
     const detail = await loadVersionDetail(db, user, versionId);
     const [crew] = await db.select({ callSign: crewMembers.callSign }).from(crewMembers).where(eq(crewMembers.id, detail.sequence.crewMemberId));
-    const card = cueCardContent(detail, { callSign: crew?.callSign ?? null });
+    const card = cueCardContent(detail, { callSign: crew?.callSign ?? null }, ctx.engineVersion);
     const pdf = await renderCueCard(card);
     await recordAudit(db, { actorId: user.id, action: 'cue_card.download', objectType: 'sequence_version', objectId: versionId, detail: { sequenceId: detail.sequenceId, version: detail.version } });
     res.set({

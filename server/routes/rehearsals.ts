@@ -15,13 +15,19 @@ import { targetLabel } from '../motion/target-attitude.ts';
 import { loadVersionFor } from '../motion/version-access.ts';
 import { mountRehearsalCaptures } from './rehearsal-captures.ts';
 
-type RehearsalJoin = { r: typeof rehearsals.$inferSelect; seqName: string; version: number; traineeName: string };
+type RehearsalJoin = { r: typeof rehearsals.$inferSelect; seqName: string; version: number; traineeName: string; engineVersion: string | null };
 
-function toRehearsal({ r, seqName, version, traineeName }: RehearsalJoin): Rehearsal {
+/** The verified run's duration from a stored report, s; null when there is none. */
+function verifiedDuration(report: unknown): number | null {
+  const d = (report as { durationS?: unknown } | null)?.durationS;
+  return typeof d === 'number' && Number.isFinite(d) ? d : null;
+}
+
+function toRehearsal({ r, seqName, version, traineeName, engineVersion }: RehearsalJoin): Rehearsal {
   return {
     id: r.id, sequenceVersionId: r.sequenceVersionId, sequenceName: seqName, version, traineeId: r.traineeId, traineeName,
     performedAt: r.performedAt.toISOString(), playbackSpeed: r.playbackSpeed, completedSteps: r.completedSteps,
-    totalSteps: r.totalSteps, selfRating: r.selfRating, notes: r.notes,
+    totalSteps: r.totalSteps, selfRating: r.selfRating, notes: r.notes, engineVersion,
   };
 }
 
@@ -35,7 +41,7 @@ export function rehearsalsRouter(ctx: AppContext): Router {
 
   const selectRehearsals = (where: SQL | undefined) =>
     db
-      .select({ r: rehearsals, seqName: sequences.name, version: sequenceVersions.version, traineeName: users.name })
+      .select({ r: rehearsals, seqName: sequences.name, version: sequenceVersions.version, traineeName: users.name, engineVersion: sequenceVersions.engineVersion })
       .from(rehearsals)
       .innerJoin(sequenceVersions, eq(sequenceVersions.id, rehearsals.sequenceVersionId))
       .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
@@ -77,7 +83,8 @@ export function rehearsalsRouter(ctx: AppContext): Router {
         return {
           versionId: v.id, sequenceId: s.id, sequenceName: s.name, version: v.version, status: v.status,
           crewMemberName: crewName, target: v.target, targetLabel: targetLabel(v.target),
-          duration: compiledDuration(v.compiled), stepCount: stepListCount(v.compiled),
+          duration: verifiedDuration(v.report) ?? compiledDuration(v.compiled), stepCount: stepListCount(v.compiled),
+          engineVersion: v.engineVersion, verifiedByOtherEngine: v.engineVersion !== null && v.engineVersion !== ctx.engineVersion,
           clearedAt: v.clearedAt?.toISOString() ?? null,
           lastRehearsal: last ? { performedAt: last.performedAt.toISOString(), selfRating: last.selfRating, completedSteps: last.completedSteps, totalSteps: last.totalSteps } : null,
           rehearsalCount: runs.length,
@@ -119,7 +126,7 @@ export function rehearsalsRouter(ctx: AppContext): Router {
       });
       return r;
     });
-    res.status(201).json({ rehearsal: toRehearsal({ r: row, seqName: v.sequenceName, version: v.version, traineeName: me.name }) });
+    res.status(201).json({ rehearsal: toRehearsal({ r: row, seqName: v.sequenceName, version: v.version, traineeName: me.name, engineVersion: v.engineVersion }) });
   });
 
   return router;

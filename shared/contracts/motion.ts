@@ -12,15 +12,18 @@ import type { Step } from './sequence.ts';
 import type { VersionStatus } from './version-status.ts';
 
 /** Sample-rate bounds of the motion endpoint, Hz (the view interpolates between samples). */
-export const MOTION_RATE = { min: 5, max: 120, default: 30 } as const;
+export const MOTION_RATE = { min: 5, max: 120 } as const;
 
 /** Query of GET /api/motion/:versionId. */
 export const motionQuerySchema = z.object({
-  /** Samples per second, Hz (5–120, default 30). */
+  /**
+   * Samples per second, Hz (5–120). Omitted: the verified samples exactly as stored with the version
+   * (the verification's rate); another rate is derived from them, never simulated again.
+   */
   rate: z.coerce.number().int('rate must be a whole number of samples per second')
     .min(MOTION_RATE.min, `rate must be at least ${MOTION_RATE.min} Hz`)
     .max(MOTION_RATE.max, `rate must be at most ${MOTION_RATE.max} Hz`)
-    .default(MOTION_RATE.default),
+    .optional(),
 });
 
 /**
@@ -58,11 +61,17 @@ export interface MotionResponse {
   crewMemberName: string;
   /** The body contract of the version's profile version (segment table the view draws). */
   body: Body;
-  /** Engine version that produced the samples. */
+  /** Engine version that verified the version and produced the samples (the one its approval binds to). */
   engineVersion: string;
+  /** When that verification ran (ISO-8601). */
+  verifiedAt: string;
+  /** Engine version this server runs now. */
+  runningEngineVersion: string;
+  /** True when the server now runs another engine version than the one that verified this version (the samples stay the verified ones). */
+  verifiedByOtherEngine: boolean;
   /** Total duration, seconds. */
   duration: number;
-  /** Engine samples (first at t = 0, last at `duration`); joint angles in the order of `dofs`. */
+  /** The verified samples (first at t = 0, last at `duration`); joint angles in the order of `dofs`. */
   samples: SimulationResult['samples'];
   /** Steps in order, covering [0, duration]. */
   steps: MotionStep[];
@@ -72,6 +81,6 @@ export interface MotionResponse {
   targetAttitude: Attitude;
   /** Where targetAttitude came from. */
   targetSource: 'target' | 'final';
-  /** The simulated end state. */
+  /** The verified end state. */
   final: SimulationResult['final'];
 }

@@ -52,6 +52,8 @@ export interface Rehearsal {
   /** 1–5. */
   selfRating: number;
   notes: string;
+  /** The engine version that verified the rehearsed version (what its approval binds to); null before verification. */
+  engineVersion: string | null;
 }
 
 /** A version the trainee may rehearse (cleared), or one they rehearsed that now needs a re-check. */
@@ -67,10 +69,14 @@ export interface RehearsableVersion {
   target: unknown;
   /** Target in words, e.g. "yaw 90°, pitch 0°, roll 0°". */
   targetLabel: string;
-  /** Total duration, seconds. */
+  /** Total duration of the verified run, seconds. */
   duration: number;
-  /** Number of compiled steps. */
+  /** Number of steps as the composer lists them (joining moves are lead-ins, not steps). */
   stepCount: number;
+  /** The engine version that verified this version (what its approval binds to); null before verification. */
+  engineVersion: string | null;
+  /** True when the server now runs another engine version (the player still shows the verified result). */
+  verifiedByOtherEngine: boolean;
   /** ISO 8601 time of clearance. */
   clearedAt: string | null;
   /** The trainee's latest rehearsal of this version, if any. */

@@ -61,7 +61,7 @@ const admin: SessionUser = { id: '00000000-0000-0000-0000-000000000001', role: '
 describe('cue card content (pure assembly from the version)', () => {
   it('lists every compiled step with its primitive’s cue, the target, the reached result and the cautions', async () => {
     const v = await loadVersionDetail(t.ctx.db, admin, cleared);
-    const card = cueCardContent(v, { callSign: 'HERON' });
+    const card = cueCardContent(v, { callSign: 'HERON' }, v.engineVersion!);
     expect(card.sequenceName).toBe('Cabin yaw with hip swirls');
     expect(card.crewMemberName).toBe('Tamsin Reed');
     expect(card.callSign).toBe('HERON');
@@ -94,11 +94,22 @@ describe('cue card content (pure assembly from the version)', () => {
     }
     expect(card.engineVersionShort).toBe(v.engineVersion!.split('+')[0] + '+' + v.engineVersion!.split('+')[1].slice(0, 8));
     expect(card.inputsHashShort).toBe(v.inputsHash!.slice(0, 12));
+    expect(card.engineNote).toBeNull();
+  });
+
+  it('says so when the server now runs another engine than the one that verified the version, keeping the verified figures', async () => {
+    const v = await loadVersionDetail(t.ctx.db, admin, cleared);
+    const same = cueCardContent(v, { callSign: null }, v.engineVersion!);
+    const card = cueCardContent(v, { callSign: null }, '99.0.0+0123456789abcdef');
+    expect(card.engineNote).toContain(`Verified by engine ${card.engineVersionShort}.`);
+    expect(card.engineNote).toContain('now runs engine 99.0.0+01234567');
+    expect(card.reached).toEqual(same.reached);
+    expect(card.steps).toEqual(same.steps);
   });
 
   it('refuses a version that is not cleared (409 not_cleared)', async () => {
     const v = await loadVersionDetail(t.ctx.db, admin, drafting);
-    expect(() => cueCardContent(v, { callSign: null })).toThrow(expect.objectContaining({ status: 409, code: 'not_cleared' }));
+    expect(() => cueCardContent(v, { callSign: null }, v.engineVersion!)).toThrow(expect.objectContaining({ status: 409, code: 'not_cleared' }));
   });
 
   it('names the file from the sequence name, with only letters, digits and hyphens', () => {

@@ -3,7 +3,9 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { profileVersions, sequenceVersions } from '../../db/schema/index.ts';
+import { sequenceTargetSchema, type VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { MotionResponse } from '../../shared/contracts/motion.ts';
+import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import { simulate } from '../../server/engine/simulate.ts';
@@ -24,7 +26,7 @@ beforeAll(async () => {
   const kettle = await crewMemberOf(t.ctx.db, BRAM);
   const pv = await insertProfileVersion(t.ctx.db, reed);
   const pvK = await insertProfileVersion(t.ctx.db, kettle);
-  cleared = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv, status: 'cleared', target: { yaw: 0, pitch: -20, roll: 0 } });
+  cleared = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv, status: 'cleared', target: sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: 0, pitch: -20, roll: 0 } }) });
   drafting = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv, status: 'drafting', name: 'Draft sweep' });
   recheck = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv, status: 'cleared', name: 'Old sweep' });
   await t.ctx.db.update(sequenceVersions).set({ status: 'recheck' }).where(eq(sequenceVersions.id, recheck));
@@ -34,21 +36,35 @@ afterAll(async () => {
   await t?.close();
 });
 
+const quat = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
 const get = async (email: string, path: string) => request(t.app).get(path).set('Authorization', `Bearer ${await t.tokenForEmail(email)}`);
 
 describe('GET /api/motion/:versionId', () => {
-  it('returns the engine samples at the requested rate, the body and step boundaries summing to the duration', async () => {
-    const res = await get(TAMSIN, `/api/motion/${cleared}?rate=20`);
+  it('returns the verified samples stored with the version, the body and step boundaries summing to the duration', async () => {
+    const res = await get(TAMSIN, `/api/motion/${cleared}`);
     expect(res.status).toBe(200);
     const m = res.body as MotionResponse;
-    // Same engine, same inputs: the samples equal a direct simulation (the route adds nothing to them).
+    // The stored verification was a 20 Hz engine run of these steps on this body; run it again directly
+    // and compare: the served samples are that run (attitudes kept as yaw/pitch/roll to 1e-6°).
     const body = validateBody(m.body);
     if (!body.ok) throw new Error('body');
     const seq = validateSequence(ARM_SWEEP, body.value);
     if (!seq.ok) throw new Error('sequence');
     const direct = simulate(body.value, seq.value, { rateHz: 20 });
-    expect(m.samples).toEqual(direct.samples);
     expect(m.samples.rateHz).toBe(20);
+    expect(m.samples.dofs).toEqual(direct.samples.dofs);
+    expect(m.samples.frames).toHaveLength(direct.samples.frames.length);
+    let worstAttitudeDeg = 0, worstJointDeg = 0;
+    m.samples.frames.forEach((f, k) => {
+      const d = direct.samples.frames[k];
+      expect(f.t).toBeCloseTo(d.t, 6);
+      worstAttitudeDeg = Math.max(worstAttitudeDeg, (quatAngleBetween(quat(f.attitude), quat(d.attitude)) * 180) / Math.PI);
+      f.jointsDeg.forEach((v, j) => (worstJointDeg = Math.max(worstJointDeg, Math.abs(v - d.jointsDeg[j]))));
+    });
+    expect(worstAttitudeDeg).toBeLessThan(1e-5);
+    expect(worstJointDeg).toBeLessThan(1e-5);
+    expect(m.engineVersion).toBe(direct.engineVersion);
+    expect(m.verifiedByOtherEngine).toBe(false);
     // 1 + 3·1.5 + 0.5 + 1 = 7 s (sum of the step durations in ARM_SWEEP).
     expect(m.duration).toBeCloseTo(7, 12);
     // the opening move only joins into the sweep: it is the sweep's lead-in, not a numbered step
@@ -61,13 +77,30 @@ describe('GET /api/motion/:versionId', () => {
     expect(m.samples.frames.at(-1)!.t).toBeCloseTo(7, 12);
   });
 
+  it('derives another rate from the verified samples (no new run): the verified ones where the times meet, close to the engine between', async () => {
+    const verified = (await get(TAMSIN, `/api/motion/${cleared}`)).body as MotionResponse;
+    const m = (await get(TAMSIN, `/api/motion/${cleared}?rate=60`)).body as MotionResponse;
+    expect(m.samples.rateHz).toBe(60);
+    expect(m.samples.frames).toHaveLength(7 * 60 + 1);
+    // every third 60 Hz sample is a 20 Hz verified sample, unchanged
+    verified.samples.frames.forEach((f, k) => expect(m.samples.frames[3 * k]).toEqual({ ...f, t: m.samples.frames[3 * k].t }));
+    const body = validateBody(m.body);
+    const seq = body.ok ? validateSequence(ARM_SWEEP, body.value) : null;
+    if (!body.ok || !seq?.ok) throw new Error('fixture');
+    const direct = simulate(body.value, seq.value, { rateHz: 60 });
+    // Between them, slerp of the 20 Hz attitudes stays within 0.05° of the engine's own 60 Hz samples
+    // (the interpolation error of a 50 ms chord; the view itself interpolates the same way).
+    const worst = Math.max(...m.samples.frames.map((f, k) => quatAngleBetween(quat(f.attitude), quat(direct.samples.frames[k].attitude)) * 180 / Math.PI));
+    expect(worst).toBeLessThan(0.05);
+  });
+
   it('reads a yaw/pitch/roll target as the ghost attitude: pitch −20° is a rotation of 20° about −y', async () => {
     const m = (await get(TAMSIN, `/api/motion/${cleared}`)).body as MotionResponse;
     expect(m.targetSource).toBe('target');
     // q = (cos 10°, 0, −sin 10°, 0) for a right-handed rotation of −20° about y (closed form).
     expect(m.targetAttitude.w).toBeCloseTo(Math.cos((10 * Math.PI) / 180), 12);
     expect(m.targetAttitude.y).toBeCloseTo(-Math.sin((10 * Math.PI) / 180), 12);
-    expect(m.samples.rateHz).toBe(30);
+    expect(m.samples.rateHz).toBe(20);
   });
 
   it('serves a second request from the cache with identical samples', async () => {
@@ -119,6 +152,37 @@ describe('GET /api/motion/:versionId', () => {
 
   it('answers 401 without a session', async () => {
     expect((await request(t.app).get(`/api/motion/${cleared}`)).status).toBe(401);
+  });
+});
+
+describe('the player plays what was approved', () => {
+  it('serves the verified samples of the cleared version, unchanged when the server runs another engine version, and says so', async () => {
+    const [row] = await t.ctx.db.select({ report: sequenceVersions.report, engineVersion: sequenceVersions.engineVersion }).from(sequenceVersions).where(eq(sequenceVersions.id, cleared));
+    const report = row.report as VerificationReport;
+    const first = await get(TAMSIN, `/api/motion/${cleared}`);
+    const before = first.body as MotionResponse;
+    const running = t.ctx.engineVersion;
+    t.ctx.engineVersion = '99.0.0+another-engine';
+    try {
+      const res = await get(TAMSIN, `/api/motion/${cleared}`);
+      expect(res.status).toBe(200);
+      const after = res.body as MotionResponse;
+      expect(after.samples).toEqual(before.samples);
+      expect(after.final).toEqual(report.final);
+      expect(after.engineVersion).toBe(row.engineVersion);
+      expect(after.engineVersion).toBe(report.engineVersion);
+      expect(after.runningEngineVersion).toBe('99.0.0+another-engine');
+      expect(after.verifiedByOtherEngine).toBe(true);
+      // the served samples are the stored report's: its yaw/pitch/roll and joint series, sample by sample
+      expect(after.samples.frames.map((f) => f.t)).toEqual(report.series.t);
+      const dof = Object.keys(report.series.jointsDeg)[0];
+      const k = after.samples.dofs.indexOf(dof);
+      expect(after.samples.frames.map((f) => f.jointsDeg[k])).toEqual(report.series.jointsDeg[dof]);
+      // a new ETag: the running engine is part of what the response says
+      expect(res.headers.etag).not.toBe(first.headers.etag);
+    } finally {
+      t.ctx.engineVersion = running;
+    }
   });
 });
 

@@ -1,13 +1,21 @@
 /**
  * Invented demo data for the rehearsal tests: a standard-human profile version for a crew member and
- * a sequence version in a chosen status, inserted straight into the tables (the maneuvers API that
- * normally creates them is tested on its own).
+ * a sequence version in a chosen status, inserted straight into the tables with the verification
+ * report the save path would store (the maneuvers API that normally creates them is tested on its own).
  */
 import { eq, max } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
+import { validateBody } from '../../shared/contracts/body.ts';
+import { sequenceTargetSchema, type SequenceTarget } from '../../shared/contracts/maneuver.ts';
+import { validateSequence } from '../../shared/contracts/sequence.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
+import { dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import { simulate } from '../../server/engine/simulate.ts';
+import { buildReport } from '../../server/maneuvers/build-report.ts';
+import { inputsHash } from '../../server/maneuvers/inputs-hash.ts';
+import { REPORT_RATE_HZ } from '../../server/maneuvers/verify-sequence.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
 
 /** An arm-sweep maneuver on the standard human model: position, 3 cone cycles, hold, return (invented). */
@@ -49,12 +57,19 @@ export async function insertProfileVersion(db: Database, crewMemberId: string): 
   return row.id;
 }
 
-/** Inserts a sequence with one version in `status`; returns the version id. */
+/** Inserts a sequence with one version in `status`, verified by the engine as a save would; returns the version id. */
 export async function insertVersion(
   db: Database,
-  opts: { crewMemberId: string; profileVersionId: string; status: VersionStatus; name?: string; compiled?: unknown; primitives?: unknown; target?: unknown },
+  opts: { crewMemberId: string; profileVersionId: string; status: VersionStatus; name?: string; compiled?: unknown; primitives?: unknown; target?: SequenceTarget },
 ): Promise<string> {
-  const target = opts.target ?? { yaw: 0, pitch: -20, roll: 0 };
+  const target = opts.target ?? sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: 0, pitch: -20, roll: 0 } });
+  const [pv] = await db.select({ body: profileVersions.body }).from(profileVersions).where(eq(profileVersions.id, opts.profileVersionId));
+  const body = validateBody(pv.body);
+  if (!body.ok) throw new Error(`fixture body: ${body.issues[0].message}`);
+  const sequence = validateSequence(opts.compiled ?? ARM_SWEEP, body.value);
+  if (!sequence.ok) throw new Error(`fixture sequence: ${sequence.issues[0].message}`);
+  const result = simulate(body.value, sequence.value, { rateHz: REPORT_RATE_HZ });
+  const report = buildReport({ result, target, profileVersionId: opts.profileVersionId, dofs: dofInfoFromBody(body.value), inputsHash: inputsHash(body.value, sequence.value) });
   const [seq] = await db
     .insert(sequences)
     .values({ crewMemberId: opts.crewMemberId, name: opts.name ?? 'Arm cone, both sides', target })
@@ -63,7 +78,7 @@ export async function insertVersion(
     .insert(sequenceVersions)
     .values({
       sequenceId: seq.id, version: 1, primitives: opts.primitives ?? [], target, compiled: opts.compiled ?? ARM_SWEEP,
-      profileVersionId: opts.profileVersionId, status: opts.status,
+      profileVersionId: opts.profileVersionId, status: opts.status, report, engineVersion: report.engineVersion, inputsHash: report.inputsHash,
       clearedAt: opts.status === 'cleared' ? new Date() : null,
     })
     .returning({ id: sequenceVersions.id });
