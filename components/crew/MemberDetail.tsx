@@ -14,6 +14,7 @@ import { Text } from '@/components/ui/Text';
 import { downloadUrl } from './download-file';
 import { ProfileEditor } from './ProfileEditor';
 import { ProfileOverview } from './ProfileOverview';
+import { ReverificationProgressCard } from './ReverificationProgressCard';
 import { VersionHistory } from './VersionHistory';
 
 /** The sections of a member page. */
@@ -60,6 +61,7 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
         </View>
         {current ? <Badge label={`v${current.version} current`} tone="success" /> : null}
       </View>
+      <ReverificationProgressCard crewMemberId={member.id} canStop={canEdit} />
       <SegmentedControl label="Member section" hideLabel options={views} value={shown} onChange={onView} />
 
       {shown === 'profile' && current ? (

@@ -18,7 +18,9 @@ import { readableMember, requireCrewEditor } from '../crew/crew-access.ts';
 import { getVersion, listCrewMembers, listVersions } from '../crew/crew-queries.ts';
 import { deriveProfile, suitSnapshot } from '../crew/derive-profile.ts';
 import { crewMemberView, glimpseOf, profileVersionHeader, profileVersionView } from '../crew/profile-views.ts';
+import { conflict } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
+import { cancelReverifications, reverificationProgress } from '../jobs/reverification-progress.ts';
 import { sendRecheckJobs } from '../maneuvers/flag-recheck.ts';
 
 const idParams = z.object({ id: z.string().uuid('Not a valid crew member id.') });
@@ -134,6 +136,24 @@ export function crewRouter(ctx: AppContext): Router {
         profileVersionView(rb.version, rb.authorName, member.currentVersion),
       ),
     });
+  });
+
+  // Re-verifying the member's maneuvers after their latest profile change: progress, and stop.
+  router.get('/:id/reverifications', validate({ params: idParams }), async (req, res) => {
+    const { id } = res.locals.params as { id: string };
+    await readableMember(db, req.user!, id);
+    res.json(await reverificationProgress(ctx, id));
+  });
+
+  router.post('/:id/reverifications/cancel', requireCrewEditor, validate({ params: idParams }), async (req, res) => {
+    const { id } = res.locals.params as { id: string };
+    const user = req.user!;
+    await readableMember(db, user, id);
+    const reason = `Cancelled by ${user.name}.`;
+    const cancelled = await cancelReverifications(ctx, id, reason);
+    if (!cancelled) throw conflict('Nothing is being re-verified for this crew member.', 'not_open');
+    await recordAudit(db, { actorId: user.id, action: 'reverification.cancel', objectType: 'crew_member', objectId: id, detail: { cancelled, reason } });
+    res.json(await reverificationProgress(ctx, id));
   });
 
   return router;

@@ -416,3 +416,30 @@ export const compareResponseSchema = z.object({
   }),
 });
 export type CompareResponse = z.infer<typeof compareResponseSchema>;
+
+/**
+ * GET /api/crew/:id/reverifications — the re-verification of a crew member's maneuvers after their
+ * latest profile change, as one piece of background work: counts by state, progress and each version.
+ */
+export interface ReverificationProgress {
+  /** The profile version the versions are recomputed on (null: nothing was ever re-verified). */
+  toProfileVersionId: string | null;
+  toProfileVersion: number | null;
+  total: number;
+  queued: number;
+  running: number;
+  done: number;
+  failed: number;
+  cancelled: number;
+  /** Ended share of the total, 0–1 (1 when there is nothing to do). */
+  progress: number;
+  items: {
+    id: string;
+    sequenceId: string;
+    sequenceName: string;
+    version: number;
+    state: Reverification['state'];
+    attitudeShiftDeg: number | null;
+    error: string | null;
+  }[];
+}
