@@ -1,4 +1,4 @@
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import type { NextFunction, Request, Response } from 'express';
 
 import type { Database } from '../../db/client.ts';
@@ -18,7 +18,8 @@ export function tokenFrom(req: Request): string | null {
 
 /**
  * The single access gate for /api: verifies the token, reloads the user (so disabling a user or
- * bumping their token version takes effect at once) and checks the role against `roles`.
+ * bumping their token version takes effect at once) and checks the role against `roles`; notes the
+ * database's data mark for cached reads.
  */
 export function guard(db: Database, tokens: TokenService, roles: readonly Role[]) {
   return async (req: Request, _res: Response, next: NextFunction) => {
@@ -26,7 +27,12 @@ export function guard(db: Database, tokens: TokenService, roles: readonly Role[]
     if (!token) return next(unauthorized());
     const claims = await tokens.verify(token);
     if (!claims) return next(unauthorized('Your session has expired or is invalid. Sign in again.'));
-    const [row] = await db.select().from(users).where(eq(users.id, claims.sub));
+    // The WAL insert position in the same round trip: the mark cached reads are checked against.
+    const [found] = await db
+      .select({ row: users, mark: sql<string | null>`CASE WHEN pg_is_in_recovery() THEN NULL ELSE pg_current_wal_insert_lsn()::text END` })
+      .from(users).where(eq(users.id, claims.sub));
+    const row = found?.row;
+    if (found?.mark) req.dataMark = found.mark;
     if (!row || row.disabled || row.tokenVersion !== claims.tv) {
       return next(unauthorized('Your session has ended. Sign in again.'));
     }

@@ -7,6 +7,8 @@ declare global {
     interface Request {
       /** Set by `authenticate` for every signed-in request. */
       user?: SessionUser;
+      /** The database's WAL insert position when the user was loaded (server/http/read-cache.ts); absent on a standby. */
+      dataMark?: string;
     }
   }
 }

@@ -19,6 +19,7 @@ import { getVersion, listCrewMembers, listVersions } from '../crew/crew-queries.
 import { deriveProfile, suitSnapshot } from '../crew/derive-profile.ts';
 import { crewMemberView, glimpseOf, profileVersionHeader, profileVersionView } from '../crew/profile-views.ts';
 import { conflict } from '../http/http-error.ts';
+import { ReadCache, sendCachedJson } from '../http/read-cache.ts';
 import { validate } from '../http/validate.ts';
 import { cancelReverifications, reverificationProgress } from '../jobs/reverification-progress.ts';
 import { sendRecheckJobs } from '../maneuvers/flag-recheck.ts';
@@ -42,11 +43,14 @@ function slug(text: string): string {
 export function crewRouter(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
+  const reads = new ReadCache();
 
   router.get('/', validate({ query: crewListQuerySchema }), async (req, res) => {
     const { q, archived } = res.locals.query as z.infer<typeof crewListQuerySchema>;
-    const rows = await listCrewMembers(db, req.user!, q, archived);
-    res.json({ members: rows.map(({ member, current }) => crewMemberView(member, current)) });
+    await sendCachedJson(reads, req, res, async () => {
+      const rows = await listCrewMembers(db, req.user!, q, archived);
+      return { members: rows.map(({ member, current }) => crewMemberView(member, current)) };
+    });
   });
 
   router.post('/', requireCrewEditor, validate({ body: createCrewMemberRequestSchema }), async (req, res) => {
@@ -74,11 +78,13 @@ export function crewRouter(ctx: AppContext): Router {
 
   router.get('/:id', validate({ params: idParams }), async (req, res) => {
     const { id } = res.locals.params as { id: string };
-    const member = await readableMember(db, req.user!, id);
-    const current = member.currentVersion ? await getVersion(db, id, member.currentVersion) : null;
-    res.json({
-      member: crewMemberView(member, current ? glimpseOf(current.version) : null),
-      current: current ? profileVersionView(current.version, current.authorName, member.currentVersion) : null,
+    await sendCachedJson(reads, req, res, async () => {
+      const member = await readableMember(db, req.user!, id);
+      const current = member.currentVersion ? await getVersion(db, id, member.currentVersion) : null;
+      return {
+        member: crewMemberView(member, current ? glimpseOf(current.version) : null),
+        current: current ? profileVersionView(current.version, current.authorName, member.currentVersion) : null,
+      };
     });
   });
 

@@ -9,6 +9,7 @@ import { z } from 'zod';
 import { sequenceVersions } from '../../db/schema/index.ts';
 import { reviewCommentRequestSchema, reviewDecisionRequestSchema, type ReviewQueueItem } from '../../shared/contracts/maneuver.ts';
 import type { AppContext } from '../app-context.ts';
+import { ReadCache, sendCachedJson } from '../http/read-cache.ts';
 import { validate } from '../http/validate.ts';
 import { commentVersion, decideVersion } from '../maneuvers/version-actions.ts';
 import { loadVersionDetail } from '../maneuvers/version-detail.ts';
@@ -20,14 +21,17 @@ const versionParams = z.object({ versionId: z.uuid('Not a valid id.') });
 export function reviewsRouter(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
+  const reads = new ReadCache();
 
-  router.get('/queue', async (_req, res) => {
-    // One query: the versions under review with their sequences joined in.
-    const rows = await selectVersions(db, eq(sequenceVersions.status, 'under_review'));
-    const items: ReviewQueueItem[] = rows
-      .map((row) => ({ version: toVersionSummary(row), sequence: toSequenceHead(row) }))
-      .sort((a, b) => (a.version.submittedAt ?? '').localeCompare(b.version.submittedAt ?? ''));
-    res.json({ items });
+  router.get('/queue', async (req, res) => {
+    await sendCachedJson(reads, req, res, async () => {
+      // One query: the versions under review with their sequences joined in.
+      const rows = await selectVersions(db, eq(sequenceVersions.status, 'under_review'));
+      const items: ReviewQueueItem[] = rows
+        .map((row) => ({ version: toVersionSummary(row), sequence: toSequenceHead(row) }))
+        .sort((a, b) => (a.version.submittedAt ?? '').localeCompare(b.version.submittedAt ?? ''));
+      return { items };
+    });
   });
 
   router.post('/:versionId/decision', validate({ params: versionParams, body: reviewDecisionRequestSchema }), async (req, res) => {

@@ -21,6 +21,7 @@ import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { readableMember } from '../crew/crew-access.ts';
 import { badRequest, notFound } from '../http/http-error.ts';
+import { ReadCache, sendCachedJson } from '../http/read-cache.ts';
 import { validate } from '../http/validate.ts';
 import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
 import { compareVersions } from '../maneuvers/compare-versions.ts';
@@ -65,6 +66,7 @@ function archivedCondition(archived: boolean): SQL | undefined {
 export function sequencesRouter(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
+  const reads = new ReadCache();
 
   /**
    * Sequence summaries matching a condition, by name: one query for the heads with their version
@@ -99,7 +101,7 @@ export function sequencesRouter(ctx: AppContext): Router {
 
   router.get('/', validate({ query: listQuery }), async (req, res) => {
     const { crewMemberId, archived } = res.locals.query as z.infer<typeof listQuery>;
-    res.json({ sequences: await summaries(req.user!, undefined, crewMemberId, archived) });
+    await sendCachedJson(reads, req, res, async () => ({ sequences: await summaries(req.user!, undefined, crewMemberId, archived) }));
   });
 
   router.post('/', validate({ body: createSequenceRequestSchema }), async (req, res) => {
@@ -131,7 +133,7 @@ export function sequencesRouter(ctx: AppContext): Router {
 
   router.get('/versions/:versionId', validate({ params: versionParams }), async (req, res) => {
     const { versionId } = res.locals.params as z.infer<typeof versionParams>;
-    res.json(await loadVersionDetail(db, req.user!, versionId));
+    await sendCachedJson(reads, req, res, () => loadVersionDetail(db, req.user!, versionId));
   });
 
   router.post('/versions/:versionId/submit', validate({ params: versionParams, body: submitRequestSchema }), async (req, res) => {
@@ -154,7 +156,7 @@ export function sequencesRouter(ctx: AppContext): Router {
 
   router.get('/:sequenceId', validate({ params: sequenceParams }), async (req, res) => {
     const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
-    res.json(await detail(req.user!, sequenceId));
+    await sendCachedJson(reads, req, res, () => detail(req.user!, sequenceId));
   });
 
   router.patch('/:sequenceId', validate({ params: sequenceParams, body: updateSequenceRequestSchema }), async (req, res) => {
