@@ -7,18 +7,18 @@ import { apiFetch, apiUrl } from './client';
 /** Query keys of the Crew area. */
 export const crewKeys = {
   all: ['crew'] as const,
-  list: (q: string) => [...crewKeys.all, 'list', q] as const,
+  list: (q: string, archived = false) => [...crewKeys.all, 'list', q, archived ? 'archived' : 'active'] as const,
   member: (id: string) => [...crewKeys.all, 'member', id] as const,
   versions: (id: string) => [...crewKeys.all, 'versions', id] as const,
   version: (id: string, version: number) => [...crewKeys.all, 'version', id, version] as const,
   compare: (id: string, a: number, b: number) => [...crewKeys.all, 'compare', id, a, b] as const,
 };
 
-/** GET /api/crew?q= — crew members the signed-in user may see (a trainee: only their own). */
-export function useCrewListQuery(q: string) {
+/** GET /api/crew?q=&archived= — active (or archived) crew members the signed-in user may see (a trainee: only their own). */
+export function useCrewListQuery(q: string, archived = false) {
   return useQuery({
-    queryKey: crewKeys.list(q),
-    queryFn: async ({ signal }) => (await apiFetch<{ members: CrewMemberView[] }>('/crew', { signal, query: { q } })).members,
+    queryKey: crewKeys.list(q, archived),
+    queryFn: async ({ signal }) => (await apiFetch<{ members: CrewMemberView[] }>('/crew', { signal, query: { q, archived: archived ? 'true' : undefined } })).members,
     placeholderData: (prev) => prev,
   });
 }
@@ -79,4 +79,16 @@ export function useSaveProfileMutation(id: string) {
 /** URL of a version's derived body as a contract JSON download (the session cookie authorises it). */
 export function bodyExportUrl(id: string, version: number): string {
   return apiUrl(`/crew/${encodeURIComponent(id)}/versions/${version}/body.json`);
+}
+
+/** POST /api/crew/:id/archive or /restore; refreshes the crew and the maneuver lists (an archived member's maneuvers move with them). */
+export function useMemberArchiveMutation(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (action: 'archive' | 'restore') => apiFetch<void>(`/crew/${encodeURIComponent(id)}/${action}`, { method: 'POST' }),
+    onSuccess: () => {
+      void qc.invalidateQueries({ queryKey: crewKeys.all });
+      void qc.invalidateQueries({ queryKey: ['sequences'] });
+    },
+  });
 }

@@ -19,7 +19,7 @@ import { apiFetch } from './client';
 export const sequenceKeys = {
   all: ['sequences'] as const,
   lists: () => [...sequenceKeys.all, 'list'] as const,
-  list: (crewMemberId: string | undefined) => [...sequenceKeys.lists(), crewMemberId ?? 'all'] as const,
+  list: (crewMemberId: string | undefined, archived = false) => [...sequenceKeys.lists(), crewMemberId ?? 'all', archived ? 'archived' : 'active'] as const,
   detail: (sequenceId: string) => [...sequenceKeys.all, 'detail', sequenceId] as const,
   version: (versionId: string) => [...sequenceKeys.all, 'version', versionId] as const,
   compare: (a: string, b: string) => [...sequenceKeys.all, 'compare', a, b] as const,
@@ -27,12 +27,28 @@ export const sequenceKeys = {
   crewOptions: () => [...sequenceKeys.all, 'crew-options'] as const,
 };
 
-/** GET /api/sequences — every sequence the caller may see, optionally for one crew member. */
-export function useSequencesQuery(crewMemberId?: string) {
+/** GET /api/sequences — every active (or, with `archived`, every archived) sequence the caller may see, optionally for one crew member. */
+export function useSequencesQuery(crewMemberId?: string, archived = false) {
   return useQuery({
-    queryKey: sequenceKeys.list(crewMemberId),
+    queryKey: sequenceKeys.list(crewMemberId, archived),
     queryFn: async ({ signal }) =>
-      (await apiFetch<{ sequences: SequenceSummary[] }>('/sequences', { query: { crewMemberId }, signal })).sequences,
+      (await apiFetch<{ sequences: SequenceSummary[] }>('/sequences', { query: { crewMemberId, archived: archived ? 'true' : undefined }, signal })).sequences,
+  });
+}
+
+/** POST /api/sequences/:id/archive or /restore, or DELETE /api/sequences/:id (never submitted); refreshes everything about maneuvers. */
+export function useSequenceLifecycleMutation(sequenceId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (action: 'archive' | 'restore' | 'delete') =>
+      action === 'delete'
+        ? apiFetch<void>(`/sequences/${encodeURIComponent(sequenceId)}`, { method: 'DELETE' })
+        : apiFetch<void>(`/sequences/${encodeURIComponent(sequenceId)}/${action}`, { method: 'POST' }),
+    onSuccess: (_data, action) => {
+      // A deleted sequence's detail would refetch into a 404: drop it instead.
+      if (action === 'delete') qc.removeQueries({ queryKey: sequenceKeys.detail(sequenceId) });
+      void qc.invalidateQueries({ queryKey: sequenceKeys.all });
+    },
   });
 }
 

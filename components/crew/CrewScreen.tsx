@@ -52,7 +52,7 @@ export function CrewScreen() {
         detailLabel="Crew member"
         list={
           <View style={{ gap: spacing.md }}>
-            <CrewList selectedId={selected} onSelect={(id) => select(id)} />
+            <CrewList selectedId={selected} onSelect={(id) => select(id)} showArchive={user?.role !== 'trainee'} />
             <Button label="Suit configurations" icon="layers" size="sm" variant="ghost" onPress={() => router.push('/crew/suits')} />
           </View>
         }

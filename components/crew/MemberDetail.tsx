@@ -12,6 +12,7 @@ import { LoadingState } from '@/components/ui/LoadingState';
 import { SegmentedControl, type SegmentOption } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
 import { downloadUrl } from './download-file';
+import { MemberArchive } from './MemberArchive';
 import { ProfileEditor } from './ProfileEditor';
 import { ProfileOverview } from './ProfileOverview';
 import { ReverificationProgressCard } from './ReverificationProgressCard';
@@ -41,12 +42,14 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
     return <ErrorBanner title="Could not load this crew member" error={q.error} onRetry={() => void q.refetch()} />;
   }
   const { member, current } = q.data;
+  // An archived member's profile is read-only until restored (the server refuses new versions too).
+  const editable = canEdit && member.archivedAt === null;
   const views: SegmentOption<MemberView>[] = [
     { value: 'profile', label: 'Profile' },
     { value: 'history', label: 'History' },
-    ...(canEdit ? [{ value: 'edit' as const, label: current ? 'Edit' : 'Create profile' }] : []),
+    ...(editable ? [{ value: 'edit' as const, label: current ? 'Edit' : 'Create profile' }] : []),
   ];
-  const shown: MemberView = view === 'edit' && !canEdit ? 'profile' : view;
+  const shown: MemberView = view === 'edit' && !editable ? 'profile' : view;
 
   return (
     <View style={styles.stack}>
@@ -59,9 +62,10 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
             {[member.callSign, current ? `profile version ${current.version}` : 'no profile yet'].filter(Boolean).join(' · ')}
           </Text>
         </View>
-        {current ? <Badge label={`v${current.version} current`} tone="success" /> : null}
+        {member.archivedAt ? <Badge label="Archived" /> : current ? <Badge label={`v${current.version} current`} tone="success" /> : null}
       </View>
       <ReverificationProgressCard crewMemberId={member.id} canStop={canEdit} />
+      {canEdit ? <MemberArchive member={member} /> : null}
       <SegmentedControl label="Member section" hideLabel options={views} value={shown} onChange={onView} />
 
       {shown === 'profile' && current ? (
@@ -74,8 +78,8 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
         <EmptyState
           icon="user"
           title="No profile yet"
-          body={canEdit ? 'Enter the body measurements, suit and gear to derive the first profile version.' : 'A planner has not entered this profile yet.'}
-          action={canEdit ? <Button label="Create profile" icon="edit-3" onPress={() => onView('edit')} /> : undefined}
+          body={editable ? 'Enter the body measurements, suit and gear to derive the first profile version.' : 'A planner has not entered this profile yet.'}
+          action={editable ? <Button label="Create profile" icon="edit-3" onPress={() => onView('edit')} /> : undefined}
         />
       ) : null}
       {shown === 'history' ? <VersionHistory crewMemberId={member.id} /> : null}

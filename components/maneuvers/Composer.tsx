@@ -27,6 +27,7 @@ import { VerificationReport } from './report/VerificationReport';
 import { targetText } from './target-text';
 import { CompareVersions } from './versions/CompareVersions';
 import { VersionList } from './versions/VersionList';
+import { SequenceLifecycle } from './SequenceLifecycle';
 import { VersionStatusBadge } from './VersionStatusBadge';
 import { VersionStatusNotice } from './VersionStatusNotice';
 import { SubmitForReview } from './submit/SubmitForReview';
@@ -68,7 +69,8 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   const [note, setNote] = useState('');
   const save = useSaveVersionMutation(sequence.id);
 
-  const editable = canCompose;
+  // An archived maneuver is read-only until restored (the server refuses changes too).
+  const editable = canCompose && sequence.archivedAt === null;
   const isLatest = !version || version.id === sequence.versions[0]?.id;
   const stale = save.error instanceof ApiError && save.error.status === 409;
 
@@ -103,6 +105,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           A new version will be verified for target {targetText(sequence.target)}.
         </Text>
       ) : null}
+      <SequenceLifecycle sequence={sequence} canCompose={canCompose} onDeleted={onBack} />
       {version ? (
         <Text variant="caption" tone="muted">
           Showing version {version.version} of {sequence.versionCount}

@@ -11,12 +11,20 @@ import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
+import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Select } from '@/components/ui/Select';
 import { TextField } from '@/components/ui/TextField';
 import { VERSION_STATUS_LABELS, VERSION_STATUSES, type VersionStatus } from '@/shared/contracts/version-status';
 import { CreateSequenceSheet } from './CreateSequenceSheet';
 import { ManeuverCautions } from './ManeuverCautions';
 import { SequenceRow } from './SequenceRow';
+
+/** Which list is shown: the maneuvers in use, or the archived ones. */
+type Shelf = 'active' | 'archived';
+const SHELVES = [
+  { value: 'active', label: 'In use' },
+  { value: 'archived', label: 'Archived' },
+] as const satisfies readonly { value: Shelf; label: string }[];
 
 /** The Maneuvers tab: every sequence with its latest status, search and filters, and "new maneuver". */
 export function ManeuversScreen() {
@@ -27,7 +35,8 @@ export function ManeuversScreen() {
   const [status, setStatus] = useState<VersionStatus | ''>('');
   const [search, setSearch] = useState('');
   const [creating, setCreating] = useState(false);
-  const sequences = useSequencesQuery(crewMemberId || undefined);
+  const [shelf, setShelf] = useState<Shelf>('active');
+  const sequences = useSequencesQuery(crewMemberId || undefined, shelf === 'archived');
   const crew = useCrewOptionsQuery();
   const canCompose = session.data?.role === 'planner' || session.data?.role === 'admin';
 
@@ -46,6 +55,9 @@ export function ManeuversScreen() {
       subtitle="Limb-sweep sequences, their verification and review"
       actions={canCompose ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : null}
     >
+      {session.data?.role !== 'trainee' ? (
+        <SegmentedControl label="Which maneuvers" hideLabel options={SHELVES} value={shelf} onChange={setShelf} />
+      ) : null}
       <View style={styles.filters}>
         <View style={[styles.filter, styles.search]}>
           <TextField label="Search" value={search} onChangeText={setSearch} placeholder="Name or crew member" autoCapitalize="none" />
@@ -68,13 +80,15 @@ export function ManeuversScreen() {
       {sequences.data && shown.length === 0 ? (
         <EmptyState
           icon="rotate-cw"
-          title={sequences.data.length ? 'No maneuver matches' : 'No maneuvers yet'}
+          title={sequences.data.length ? 'No maneuver matches' : shelf === 'archived' ? 'Nothing archived' : 'No maneuvers yet'}
           body={
             sequences.data.length
               ? 'Clear the search or the filters to see every maneuver.'
-              : 'A maneuver belongs to one crew member and has a target reorientation. Compose it from limb sweeps and let the engine verify it.'
+              : shelf === 'archived'
+                ? 'Archived maneuvers (and those of archived crew members) wait here, with every version and review, until restored.'
+                : 'A maneuver belongs to one crew member and has a target reorientation. Compose it from limb sweeps and let the engine verify it.'
           }
-          action={canCompose && !sequences.data.length ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : undefined}
+          action={canCompose && !sequences.data.length && shelf === 'active' ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : undefined}
         />
       ) : null}
       <View role="list" aria-label="Maneuvers" style={[styles.list, wide && styles.listWide]}>
