@@ -10,7 +10,7 @@ export const auditEvents = pgTable(
     action: text('action').notNull(),
     objectType: text('object_type').notNull(),
     objectId: text('object_id'),
-    detail: jsonb('detail').notNull().default({}),
+    detail: jsonb('detail').$type<Record<string, unknown>>().notNull().default({}),
   },
   (t) => [index('audit_events_at_idx').on(t.at), index('audit_events_object_idx').on(t.objectType, t.objectId)],
 );

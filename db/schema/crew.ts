@@ -1,5 +1,9 @@
 import { boolean, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 
+import type { Body } from '../../shared/contracts/body.ts';
+import type { ProfileSummary, StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
+import type { SuitConfig } from '../../shared/contracts/suit.ts';
+
 import { users } from './users.ts';
 
 /** A person an inertia profile describes. `currentVersion` names the current profile version. */
@@ -21,7 +25,7 @@ export const crewMembers = pgTable('crew_members', {
 export const suitConfigs = pgTable('suit_configs', {
   id: uuid('id').primaryKey().defaultRandom(),
   name: text('name').notNull().unique(),
-  config: jsonb('config').notNull(),
+  config: jsonb('config').$type<SuitConfig>().notNull(),
   illustrative: boolean('illustrative').notNull().default(true),
   // Optimistic lock: an edit names the version it started from (409 stale_version otherwise).
   version: integer('version').notNull().default(1),
@@ -43,9 +47,9 @@ export const profileVersions = pgTable(
       .references(() => crewMembers.id),
     version: integer('version').notNull(),
     source: text('source').notNull().default('regression'),
-    inputs: jsonb('inputs').notNull(),
-    body: jsonb('body').notNull(),
-    summary: jsonb('summary').notNull(),
+    inputs: jsonb('inputs').$type<StoredProfileInputs>().notNull(),
+    body: jsonb('body').$type<Body>().notNull(),
+    summary: jsonb('summary').$type<ProfileSummary>().notNull(),
     engineVersion: text('engine_version').notNull(),
     authorId: uuid('author_id').references(() => users.id),
     note: text('note').notNull().default(''),

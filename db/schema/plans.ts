@@ -1,5 +1,8 @@
 import { doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
+import type { SequenceTargetInput } from '../../shared/contracts/maneuver.ts';
+import type { PlanCandidate, PlanSettings } from '../../shared/contracts/plan.ts';
+
 import { profileVersions } from './crew.ts';
 import { sequences } from './sequences.ts';
 import { users } from './users.ts';
@@ -23,14 +26,14 @@ export const plans = pgTable(
   // queued | running | done | failed
   state: text('state').notNull().default('queued'),
   // The sequence target at request time (SequenceTarget JSON).
-  target: jsonb('target').notNull(),
+  target: jsonb('target').$type<SequenceTargetInput>().notNull(),
   // PlanSettings JSON.
-  settings: jsonb('settings').notNull(),
+  settings: jsonb('settings').$type<PlanSettings>().notNull(),
   // 0–1 while running.
   progress: doublePrecision('progress').notNull().default(0),
   progressNote: text('progress_note').notNull().default(''),
   // PlanCandidate[] JSON once done.
-  candidates: jsonb('candidates'),
+  candidates: jsonb('candidates').$type<PlanCandidate[]>(),
   error: text('error'),
   engineVersion: text('engine_version'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

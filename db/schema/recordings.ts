@@ -1,5 +1,7 @@
 import { doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
+import type { BvhMapping } from '../../shared/contracts/recording.ts';
+
 import { crewMembers } from './crew.ts';
 import { uploads } from './uploads.ts';
 import { users } from './users.ts';
@@ -19,10 +21,10 @@ export const recordings = pgTable(
     source: text('source').notNull(),
     crewMemberId: uuid('crew_member_id').references(() => crewMembers.id),
     rateHz: doublePrecision('rate_hz').notNull(),
-    dofs: jsonb('dofs').notNull(),
-    frames: jsonb('frames').notNull(),
-    assumptions: jsonb('assumptions').notNull().default([]),
-    mapping: jsonb('mapping'),
+    dofs: jsonb('dofs').$type<string[]>().notNull(),
+    frames: jsonb('frames').$type<number[][]>().notNull(),
+    assumptions: jsonb('assumptions').$type<string[]>().notNull().default([]),
+    mapping: jsonb('mapping').$type<BvhMapping>(),
     createdBy: uuid('created_by').notNull().references(() => users.id),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),

@@ -1,5 +1,7 @@
 import { doublePrecision, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
+import type { RehearsalCapture } from '../../shared/contracts/recording.ts';
+
 import { rehearsals } from './sequences.ts';
 import { uploads } from './uploads.ts';
 import { users } from './users.ts';
@@ -14,9 +16,9 @@ export const rehearsalCaptures = pgTable('rehearsal_captures', {
   rehearsalId: uuid('rehearsal_id').notNull().unique().references(() => rehearsals.id),
   uploadId: uuid('upload_id').notNull().references(() => uploads.id),
   rateHz: doublePrecision('rate_hz').notNull(),
-  dofs: jsonb('dofs').notNull(),
-  frames: jsonb('frames').notNull(),
-  capture: jsonb('capture').notNull(),
+  dofs: jsonb('dofs').$type<string[]>().notNull(),
+  frames: jsonb('frames').$type<number[][]>().notNull(),
+  capture: jsonb('capture').$type<Omit<RehearsalCapture, 'signedOff'>>().notNull(),
   signedOffBy: uuid('signed_off_by').references(() => users.id),
   signedOffAt: timestamp('signed_off_at', { withTimezone: true }),
   signOffNote: text('sign_off_note'),

@@ -1,5 +1,7 @@
 import { bigint, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
+import type { RobustnessModel } from '../../shared/contracts/robustness.ts';
+
 import { plans } from './plans.ts';
 import { sequenceVersions } from './sequences.ts';
 import { users } from './users.ts';
@@ -23,7 +25,7 @@ export const robustnessRuns = pgTable(
     chunkSize: integer('chunk_size').notNull(),
     seed: bigint('seed', { mode: 'number' }).notNull(),
     // RobustnessModel JSON.
-    model: jsonb('model').notNull(),
+    model: jsonb('model').$type<RobustnessModel>().notNull(),
     toleranceDeg: doublePrecision('tolerance_deg').notNull(),
     // { body, sequence, target } JSON (RobustnessInputs without seed, model and tolerance).
     inputs: jsonb('inputs').notNull(),

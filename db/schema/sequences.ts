@@ -1,7 +1,10 @@
 import { sql } from 'drizzle-orm';
 import { type AnyPgColumn, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
 
+import type { ReportSummary, SequenceTargetInput, VerificationReport } from '../../shared/contracts/maneuver.ts';
 import { VERSION_STATUSES } from '../../shared/contracts/version-status.ts';
+import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import type { CheckFailure } from '../../shared/product/version-checks.ts';
 import { crewMembers, profileVersions } from './crew.ts';
 import { users } from './users.ts';
 
@@ -16,7 +19,7 @@ export const sequences = pgTable(
       .notNull()
       .references(() => crewMembers.id),
     name: text('name').notNull(),
-    target: jsonb('target').notNull(),
+    target: jsonb('target').$type<SequenceTargetInput>().notNull(),
     createdBy: uuid('created_by').references(() => users.id),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     // Archived maneuvers leave every default list and take no new versions until restored.
@@ -40,17 +43,17 @@ export const sequenceVersions = pgTable(
       .notNull()
       .references(() => sequences.id),
     version: integer('version').notNull(),
-    primitives: jsonb('primitives').notNull(),
+    primitives: jsonb('primitives').$type<Primitive[]>().notNull(),
     // The target this version was composed and verified for (shared/contracts/maneuver.ts); the sequence's own target is the next version's default.
-    target: jsonb('target').notNull(),
+    target: jsonb('target').$type<SequenceTargetInput>().notNull(),
     compiled: jsonb('compiled').notNull(),
     profileVersionId: uuid('profile_version_id')
       .notNull()
       .references(() => profileVersions.id),
     status: versionStatusEnum('status').notNull().default('drafting'),
-    report: jsonb('report'),
+    report: jsonb('report').$type<VerificationReport>(),
     // The report's headline figures (ReportSummary), computed by PostgreSQL (migration 0004) for lists.
-    reportSummary: jsonb('report_summary').generatedAlwaysAs(sql`holonaut_report_summary(report)`),
+    reportSummary: jsonb('report_summary').$type<ReportSummary>().generatedAlwaysAs(sql`holonaut_report_summary(report)`),
     engineVersion: text('engine_version'),
     inputsHash: text('inputs_hash'),
     authorId: uuid('author_id').references(() => users.id),
@@ -62,7 +65,7 @@ export const sequenceVersions = pgTable(
     staleSince: timestamp('stale_since', { withTimezone: true }),
     // Guarded submit: the submitter's note to the reviewer and the failed checks they acknowledged (CheckFailure[] JSON; null when none failed).
     submitNote: text('submit_note'),
-    acknowledgedFailures: jsonb('acknowledged_failures'),
+    acknowledgedFailures: jsonb('acknowledged_failures').$type<CheckFailure[]>(),
     // A re-check version (saved by the re-verification after a profile change): the cleared version it re-checks.
     recheckOfId: uuid('recheck_of_id').references((): AnyPgColumn => sequenceVersions.id),
   },
@@ -113,7 +116,7 @@ export const reverifications = pgTable(
   state: text('state').notNull().default('queued'),
   // Angle between the old and the recomputed final attitude, degrees.
   attitudeShiftDeg: doublePrecision('attitude_shift_deg'),
-  report: jsonb('report'),
+  report: jsonb('report').$type<VerificationReport>(),
   // The re-check version this re-verification saved (a once-cleared version's successor under review).
   resultVersionId: uuid('result_version_id').references(() => sequenceVersions.id),
   error: text('error'),

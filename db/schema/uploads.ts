@@ -1,5 +1,7 @@
 import { integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
+import type { UploadRowError } from '../../shared/contracts/uploads.ts';
+
 import { users } from './users.ts';
 
 /** A stored file: the raw bytes live in object storage under `objectKey`; parsed rows below. */
@@ -15,7 +17,7 @@ export const uploads = pgTable('uploads', {
   // imported | rejected
   status: text('status').notNull(),
   rowCount: integer('row_count').notNull().default(0),
-  errors: jsonb('errors').notNull().default([]),
+  errors: jsonb('errors').$type<UploadRowError[]>().notNull().default([]),
   uploadedBy: uuid('uploaded_by').references(() => users.id),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });

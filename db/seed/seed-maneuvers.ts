@@ -8,7 +8,6 @@
  */
 import { desc, eq } from 'drizzle-orm';
 
-import type { Body } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema, type SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
@@ -133,9 +132,9 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
     const pick = (n?: number): ProfileVersionRow => all.find((p) => p.version === n) ?? current;
 
     // Target: what the newest version reaches, rounded to whole degrees.
-    const first = compilePrimitives(demo.versions[demo.versions.length - 1].primitives, dofInfoFromBody(current.body as Body));
+    const first = compilePrimitives(demo.versions[demo.versions.length - 1].primitives, dofInfoFromBody(current.body));
     const probeTarget = sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: 0, pitch: 0, roll: 0 } });
-    const probe = await verifySequence({ body: current.body as Body, sequence: first.sequence, target: probeTarget, profileVersionId: current.id, pool: state.pool });
+    const probe = await verifySequence({ body: current.body, sequence: first.sequence, target: probeTarget, profileVersionId: current.id, pool: state.pool });
     const y = probe.final.yprDeg;
     const target: SequenceTarget = demo.yprDeg
       ? sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: demo.yprDeg, toleranceDeg: 2, rateLimitDegS: 180, timeBudgetS: 90 })
@@ -146,7 +145,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
     const [seq] = await db.insert(sequences).values({ crewMemberId, name: demo.name, target, createdBy: userIds[PLANNER] }).returning();
     for (const [i, v] of demo.versions.entries()) {
       const profile = pick(v.profileVersion);
-      const body = profile.body as Body;
+      const body = profile.body;
       const compiled = compilePrimitives(v.primitives, dofInfoFromBody(body));
       const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: state.pool });
       const stored: StoredCompiled = {
@@ -177,7 +176,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       }
       // A recheck version: its recomputation on the current profile, done as the worker would.
       if (v.status === 'recheck' && profile.id !== current.id) {
-        const again = await verifySequence({ body: current.body as Body, sequence: compiled.sequence, target, profileVersionId: current.id, pool: state.pool });
+        const again = await verifySequence({ body: current.body, sequence: compiled.sequence, target, profileVersionId: current.id, pool: state.pool });
         await db.insert(reverifications).values({
           sequenceVersionId: row.id, fromProfileVersionId: profile.id, toProfileVersionId: current.id, state: 'done', attempts: 1,
           attitudeShiftDeg: (quatAngleBetween(quatOf(report.final.attitude), quatOf(again.final.attitude)) * 180) / Math.PI,

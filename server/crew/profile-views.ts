@@ -1,13 +1,6 @@
 import type { CrewMemberRow, ProfileVersionRow } from '../../db/schema/index.ts';
-import type { Body } from '../../shared/contracts/body.ts';
 import type { CrewMemberView } from '../../shared/contracts/crew.ts';
-import type {
-  ProfileSource,
-  ProfileSummary,
-  ProfileVersionHeader,
-  ProfileVersionView,
-  StoredProfileInputs,
-} from '../../shared/contracts/profile-version.ts';
+import type { ProfileSource, ProfileVersionHeader, ProfileVersionView } from '../../shared/contracts/profile-version.ts';
 
 /** What a crew member's list entry shows of the current profile version. */
 export interface CurrentGlimpse {
@@ -18,7 +11,7 @@ export interface CurrentGlimpse {
 
 /** The glimpse of a full version row. */
 export function glimpseOf(row: ProfileVersionRow): CurrentGlimpse {
-  return { mass: (row.summary as ProfileSummary).mass, suitName: (row.inputs as StoredProfileInputs).suit?.name ?? null };
+  return { mass: row.summary.mass, suitName: row.inputs.suit?.name ?? null };
 }
 
 /** A crew member for the API, with a glimpse of the current version (null before the first save). */
@@ -47,7 +40,7 @@ export function profileVersionHeader(row: ProfileVersionRow, authorName: string 
     engineVersion: row.engineVersion,
     authorName,
     createdAt: row.createdAt.toISOString(),
-    mass: (row.summary as ProfileSummary).mass,
+    mass: row.summary.mass,
     current: row.version === currentVersion,
   };
 }
@@ -56,8 +49,8 @@ export function profileVersionHeader(row: ProfileVersionRow, authorName: string 
 export function profileVersionView(row: ProfileVersionRow, authorName: string | null, currentVersion: number | null): ProfileVersionView {
   return {
     ...profileVersionHeader(row, authorName, currentVersion),
-    inputs: row.inputs as StoredProfileInputs,
-    body: row.body as Body,
-    summary: row.summary as ProfileSummary,
+    inputs: row.inputs,
+    body: row.body,
+    summary: row.summary,
   };
 }

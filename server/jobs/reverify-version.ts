@@ -8,8 +8,7 @@
 import { and, desc, eq, ne, notInArray } from 'drizzle-orm';
 
 import { profileVersions, reverifications, sequenceVersions } from '../../db/schema/index.ts';
-import type { Body } from '../../shared/contracts/body.ts';
-import { sequenceTargetSchema, type VerificationReport } from '../../shared/contracts/maneuver.ts';
+import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { sequenceSchema } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import type { AppContext } from '../app-context.ts';
@@ -61,8 +60,8 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
     const sequence = sequenceSchema.parse(storedCompiled(v.v.compiled).sequence);
     // The version's own target (a re-check verifies what was cleared, not the sequence's next default).
     const target = sequenceTargetSchema.parse(v.v.target);
-    const report = await verifySequence({ body: profile.body as Body, sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product });
-    const old = v.v.report as VerificationReport | null;
+    const report = await verifySequence({ body: profile.body, sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product });
+    const old = v.v.report;
     const shift = old
       ? quatAngleBetween([old.final.attitude.w, old.final.attitude.x, old.final.attitude.y, old.final.attitude.z],
         [report.final.attitude.w, report.final.attitude.x, report.final.attitude.y, report.final.attitude.z]) * DEG

@@ -10,7 +10,6 @@
 import { and, eq, inArray } from 'drizzle-orm';
 
 import { plans, profileVersions } from '../../db/schema/index.ts';
-import type { Body } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { planRequestSchema } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
@@ -63,7 +62,7 @@ export async function runPlan(ctx: AppContext, job: PlanJob, opts: { signal?: Ab
     const [profile] = await db.select().from(profileVersions).where(eq(profileVersions.id, plan.profileVersionId));
     if (!profile) throw new Error(`profile version ${plan.profileVersionId} not found`);
     const candidates = await runPlannerThread({
-      body: profile.body as Body,
+      body: profile.body,
       target: sequenceTargetSchema.parse(plan.target),
       settings: planRequestSchema.parse(plan.settings),
     }, onProgress, undefined, stop.signal);

@@ -9,7 +9,7 @@ import { and, eq, inArray, isNull, lt, max, ne, or } from 'drizzle-orm';
 import type { Database } from '../../db/client.ts';
 import { auditEvents, crewMembers, reviews, sequences, sequenceVersions, users, type SequenceVersionRow } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
-import type { SequenceTarget, VerificationReport } from '../../shared/contracts/maneuver.ts';
+import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { RobustnessState } from '../../shared/contracts/robustness.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
@@ -79,7 +79,7 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
   // Cheap checks first: no simulation for a stale editor.
   staleCheck(await latestNow(db));
   const profile = await currentProfile(db, seq.crewMemberId);
-  const body = profile.body as Body;
+  const body = profile.body;
   const compiled = compileFor(input.primitives, body);
   // The version's own target: the request's, else the sequence's default.
   const target = input.target ?? readTarget(seq.target);
@@ -166,7 +166,7 @@ export async function submitVersion(ctx: AppContext, user: SessionUser, versionI
   }
   if (!row.v.report) throw conflict('This version has no verification report.', 'not_verified');
   const run = await latestVersionRun(db, versionId);
-  const failures = versionCheckFailures(row.v.report as VerificationReport, run && { state: run.state as RobustnessState, progress: run.samples ? run.doneSamples / run.samples : 0, error: run.error });
+  const failures = versionCheckFailures(row.v.report, run && { state: run.state as RobustnessState, progress: run.samples ? run.doneSamples / run.samples : 0, error: run.error });
   const note = input.note?.trim() ?? '';
   if (failures.length && !(input.acknowledgeFailures && note)) {
     const how = input.acknowledgeFailures
@@ -201,7 +201,7 @@ export async function decideVersion(ctx: AppContext, user: SessionUser, versionI
   )).limit(1);
   if (submitted) throw forbidden('You submitted this version for review: another reviewer must decide on it.');
   nextStatusOr409(row.v.status, decision);
-  const report = row.v.report as VerificationReport | null;
+  const report = row.v.report;
   await db.transaction(async (tx) => {
     const now = new Date();
     if (decision === 'clear') {

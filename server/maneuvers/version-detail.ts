@@ -4,7 +4,7 @@ import { eq } from 'drizzle-orm';
 import type { Database } from '../../db/client.ts';
 import { sequenceVersions } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
-import type { VerificationReport, VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { primitiveListSchema } from '../../shared/primitives/primitive-schemas.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import { notFound } from '../http/http-error.ts';
@@ -35,7 +35,7 @@ export async function loadVersionDetail(db: Database, user: SessionUser, version
     cues: primitives.map(cueFor),
     compiled: compiled.sequence,
     stepMap: compiled.stepMap,
-    report: (content.report as VerificationReport | null) ?? null,
+    report: content.report ?? null,
     reviews,
     reverifications: revs.map(toReverification),
     allowed: {

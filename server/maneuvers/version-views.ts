@@ -7,9 +7,8 @@ import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, reverifications, reviews, sequences, sequenceVersions, users, type ReverificationRow, type SequenceVersionRow } from '../../db/schema/index.ts';
-import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionSummary } from '../../shared/contracts/maneuver.ts';
+import type { Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import type { CheckFailure } from '../../shared/product/version-checks.ts';
 
 const author = alias(users, 'author');
 const clearer = alias(users, 'clearer');
@@ -110,9 +109,9 @@ export function toVersionSummary(row: VersionRowJoined): VersionSummary {
     createdAt: v.createdAt.toISOString(), submittedAt: v.submittedAt?.toISOString() ?? null,
     clearedBy: v.clearedBy, clearedByName: row.clearedByName, clearedAt: v.clearedAt?.toISOString() ?? null,
     staleSince: v.staleSince?.toISOString() ?? null, engineVersion: v.engineVersion, inputsHash: v.inputsHash,
-    summary: (v.reportSummary as ReportSummary | null) ?? null,
+    summary: v.reportSummary ?? null,
     reverification: row.latestReverification ? toReverification(row.latestReverification) : null,
-    submitNote: v.submitNote, acknowledgedFailures: (v.acknowledgedFailures as CheckFailure[] | null) ?? null, recheckOfId: v.recheckOfId,
+    submitNote: v.submitNote, acknowledgedFailures: v.acknowledgedFailures ?? null, recheckOfId: v.recheckOfId,
   };
 }
 

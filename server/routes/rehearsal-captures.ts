@@ -42,7 +42,7 @@ async function captureOf(ctx: AppContext, rehearsalId: string): Promise<Rehearsa
   if (!row) return null;
   const c = row.c;
   const signedOff = c.signedOffBy && c.signedOffAt ? { by: c.signedOffBy, byName: row.signer ?? '', at: c.signedOffAt.toISOString(), note: c.signOffNote ?? '' } : null;
-  return { ...(c.capture as Omit<RehearsalCapture, 'signedOff'>), signedOff };
+  return { ...c.capture, signedOff };
 }
 
 /** Adds the capture routes to the rehearsals router. */

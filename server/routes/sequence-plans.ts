@@ -13,7 +13,7 @@ import { z } from 'zod';
 import { plans, sequences, type PlanRow } from '../../db/schema/index.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import {
-  planListQuerySchema, planRequestSchema, type Plan, type PlanCandidate, type PlanCreated, type PlanList,
+  planListQuerySchema, planRequestSchema, type Plan, type PlanCreated, type PlanList,
 } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
@@ -38,7 +38,7 @@ export function planView(row: PlanRow): Plan {
     progress: row.progress,
     progressNote: row.progressNote,
     settings: planRequestSchema.parse(row.settings),
-    candidates: (row.candidates as PlanCandidate[] | null) ?? [],
+    candidates: row.candidates ?? [],
     error: row.error,
     elapsedS: row.startedAt && row.finishedAt ? (row.finishedAt.getTime() - row.startedAt.getTime()) / 1000 : null,
     createdAt: row.createdAt.toISOString(),

@@ -3,7 +3,6 @@ import { Router } from 'express';
 import { z } from 'zod';
 
 import { crewMembers, uploadRows, uploads } from '../../db/schema/index.ts';
-import type { Body } from '../../shared/contracts/body.ts';
 import type { StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
 import type { ImportedRowResult, UploadResult } from '../../shared/contracts/uploads.ts';
 import type { AppContext } from '../app-context.ts';
@@ -114,7 +113,7 @@ export function uploadsRouter(ctx: AppContext): Router {
       throw new HttpError(409, 'no_profile', `${member.name} has no profile yet: a segment table CSV replaces the mass properties of an existing body. Save a profile first, or upload a complete contract JSON body.`, 'crewMemberId');
     }
     const file = await storeRawFile(ctx, isJson ? 'segment_table_json' : 'segment_table_csv', req.file!);
-    const measured = isJson ? measuredBodyFromJson(file.text) : measuredBodyFromCsv(file.text, current!.version.body as Body);
+    const measured = isJson ? measuredBodyFromJson(file.text) : measuredBodyFromCsv(file.text, current!.version.body);
     if (measured.errors.length || !measured.body) return rejectUpload(ctx, res, file, measured.rows.length, measured.errors, me.id);
 
     const previous = (current?.version.inputs ?? {}) as StoredProfileInputs;

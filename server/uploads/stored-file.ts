@@ -60,7 +60,7 @@ export function uploadView(row: UploadRow): UploadView {
     objectKey: row.objectKey,
     status: row.status as UploadView['status'],
     rowCount: row.rowCount,
-    errors: row.errors as UploadRowError[],
+    errors: row.errors,
     uploadedBy: row.uploadedBy,
     createdAt: row.createdAt.toISOString(),
   };

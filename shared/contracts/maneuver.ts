@@ -93,6 +93,8 @@ export const sequenceTargetSchema = z.discriminatedUnion('mode', [
 ]);
 /** A sequence target (output shape, defaults filled). */
 export type SequenceTarget = z.infer<typeof sequenceTargetSchema>;
+/** A sequence target as written (limits may be left to their defaults): what the `target` columns hold. */
+export type SequenceTargetInput = z.input<typeof sequenceTargetSchema>;
 
 /** POST /sequences */
 export const createSequenceRequestSchema = z.object({

@@ -8,7 +8,6 @@ import { and, eq } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, reviews, sequences, sequenceVersions, users, type ProfileVersionRow } from '../../db/schema/index.ts';
-import type { Body } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema, type VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
@@ -67,8 +66,8 @@ export async function addGeneratedManeuvers(db: Database, count: number, pool: S
       let computed = reports.get(key);
       if (!computed) {
         const primitives = FAMILIES[family](cycles);
-        const c = compilePrimitives(primitives, dofInfoFromBody(profile.body as Body));
-        const report = await verifySequence({ body: profile.body as Body, sequence: c.sequence, target, profileVersionId: profile.id, pool });
+        const c = compilePrimitives(primitives, dofInfoFromBody(profile.body));
+        const report = await verifySequence({ body: profile.body, sequence: c.sequence, target, profileVersionId: profile.id, pool });
         computed = {
           report,
           compiled: {

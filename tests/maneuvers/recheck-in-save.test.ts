@@ -13,8 +13,6 @@ import { crewMembers, profileVersions, reverifications, sequenceVersions } from 
 import type { JobQueue } from '../../server/app-context.ts';
 import { appendProfileVersion } from '../../server/crew/append-profile-version.ts';
 import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
-import type { Body } from '../../shared/contracts/body.ts';
-import type { ProfileSummary, StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { PEOPLE, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
 
@@ -121,8 +119,8 @@ describe('re-check flags commit with the profile save', () => {
     const [pv] = await t.ctx.db.select().from(profileVersions)
       .where(and(eq(profileVersions.crewMemberId, crew), eq(profileVersions.version, await currentVersion())));
     const { row, flagged } = await t.ctx.db.transaction((tx) => appendProfileVersion(tx, {
-      crewMemberId: crew, baseVersion: pv.version, source: 'regression', inputs: pv.inputs as StoredProfileInputs, body: pv.body as Body,
-      summary: pv.summary as ProfileSummary, note: 'same body, new version (test)', authorId: null,
+      crewMemberId: crew, baseVersion: pv.version, source: 'regression', inputs: pv.inputs, body: pv.body,
+      summary: pv.summary, note: 'same body, new version (test)', authorId: null,
     }));
     // Only the commit has happened: the flag, its record and its audit event are already there.
     expect(flagged.versionIds).toContain(v);

@@ -11,7 +11,6 @@ import { crewMembers, profileVersions, reverifications, sequences, sequenceVersi
 import { simulate } from '../../server/engine/simulate.ts';
 import { REVERIFY_RETRY_LIMIT, startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
 import { storedCompiled } from '../../server/maneuvers/stored-compiled.ts';
-import type { Body } from '../../shared/contracts/body.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
@@ -76,7 +75,7 @@ describe('re-verification after a profile change', () => {
     // The same compiled steps on the new body, run by the engine directly.
     const [pv] = await t.ctx.db.select().from(profileVersions).where(eq(profileVersions.id, done.toProfileVersionId));
     const [v] = await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.id, cleared));
-    const direct = simulate(pv.body as Body, storedCompiled(v.compiled).sequence as Sequence, { rateHz: 20 });
+    const direct = simulate(pv.body, storedCompiled(v.compiled).sequence as Sequence, { rateHz: 20 });
     const old = (v.report as { final: { attitude: { w: number; x: number; y: number; z: number } } }).final.attitude;
     const expectedShift = quatAngleBetween(quat(old), quat(direct.final.attitude)) * DEG;
     expect(done.attitudeShiftDeg).toBeCloseTo(expectedShift, 6);

@@ -12,6 +12,8 @@ import { sequenceTargetSchema, type SequenceTarget } from '../../shared/contract
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { summarizeBody } from '../../server/crew/profile-summary.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { buildReport } from '../../server/maneuvers/build-report.ts';
 import { inputsHash } from '../../server/maneuvers/inputs-hash.ts';
@@ -51,7 +53,7 @@ export async function insertProfileVersion(db: Database, crewMemberId: string): 
   const d = deriveBody({ sex: 'female', stature: 1.68, mass: 61 });
   const [row] = await db
     .insert(profileVersions)
-    .values({ crewMemberId, version, inputs: d.inputs, body: d.body, summary: {}, engineVersion: 'test' })
+    .values({ crewMemberId, version, inputs: d.inputs, body: d.body, summary: summarizeBody(d.body, 'test'), engineVersion: 'test' })
     .returning({ id: profileVersions.id });
   await db.update(crewMembers).set({ currentVersion: version }).where(eq(crewMembers.id, crewMemberId));
   return row.id;
@@ -60,7 +62,7 @@ export async function insertProfileVersion(db: Database, crewMemberId: string): 
 /** Inserts a sequence with one version in `status`, verified by the engine as a save would; returns the version id. */
 export async function insertVersion(
   db: Database,
-  opts: { crewMemberId: string; profileVersionId: string; status: VersionStatus; name?: string; compiled?: unknown; primitives?: unknown; target?: SequenceTarget },
+  opts: { crewMemberId: string; profileVersionId: string; status: VersionStatus; name?: string; compiled?: unknown; primitives?: Primitive[]; target?: SequenceTarget },
 ): Promise<string> {
   const target = opts.target ?? sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: 0, pitch: -20, roll: 0 } });
   const [pv] = await db.select({ body: profileVersions.body }).from(profileVersions).where(eq(profileVersions.id, opts.profileVersionId));
