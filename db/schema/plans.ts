@@ -35,6 +35,8 @@ export const plans = pgTable(
   // PlanCandidate[] JSON once done.
   candidates: jsonb('candidates').$type<PlanCandidate[]>(),
   error: text('error'),
+  // The planner's notes (string[] JSON): why a target cannot be reached (which axis, which limit), sweeps not used.
+  notes: jsonb('notes').$type<string[]>().notNull().default([]),
   engineVersion: text('engine_version'),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   startedAt: timestamp('started_at', { withTimezone: true }),

@@ -15,7 +15,7 @@ import { planRequestSchema } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { ENGINE_VERSION } from '../engine/version.ts';
-import { PlanStoppedError, runPlannerThread } from '../planning/run-planner-thread.ts';
+import { PlanStoppedError, PlanUnreachableError, runPlannerThread } from '../planning/run-planner-thread.ts';
 import { PLAN_QUEUE } from './queue-names.ts';
 
 /** Job payload. */
@@ -61,14 +61,14 @@ export async function runPlan(ctx: AppContext, job: PlanJob, opts: { signal?: Ab
   try {
     const [profile] = await db.select().from(profileVersions).where(eq(profileVersions.id, plan.profileVersionId));
     if (!profile) throw new Error(`profile version ${plan.profileVersionId} not found`);
-    const candidates = await runPlannerThread({
+    const { candidates, notes } = await runPlannerThread({
       body: profile.body,
       target: sequenceTargetSchema.parse(plan.target),
       settings: planRequestSchema.parse(plan.settings),
     }, onProgress, undefined, stop.signal);
     await pending;
     await db.transaction(async (tx) => {
-      const stored = await tx.update(plans).set({ state: 'done', progress: 1, progressNote: 'done', candidates, finishedAt: new Date() }).where(isOpen(plan.id)).returning({ id: plans.id });
+      const stored = await tx.update(plans).set({ state: 'done', progress: 1, progressNote: 'done', candidates, notes, finishedAt: new Date() }).where(isOpen(plan.id)).returning({ id: plans.id });
       if (!stored.length) return; // another attempt finished it first
       await recordAudit(tx, {
         actorId: null, action: 'plan.done', objectType: 'plan', objectId: plan.id,
@@ -84,7 +84,7 @@ export async function runPlan(ctx: AppContext, job: PlanJob, opts: { signal?: Ab
     }
     const message = err instanceof Error ? err.message : String(err);
     ctx.logger.warn({ err, job }, 'planning failed');
-    const stored = await db.update(plans).set({ state: 'failed', error: message, finishedAt: new Date() }).where(isOpen(plan.id)).returning({ id: plans.id });
+    const stored = await db.update(plans).set({ state: 'failed', error: message, notes: err instanceof PlanUnreachableError ? err.notes : [], finishedAt: new Date() }).where(isOpen(plan.id)).returning({ id: plans.id });
     if (stored.length) await recordAudit(db, { actorId: null, action: 'plan.failed', objectType: 'plan', objectId: plan.id, detail: { sequenceId: plan.sequenceId, error: message } });
   } finally {
     clearInterval(watch);

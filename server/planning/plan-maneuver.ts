@@ -20,7 +20,7 @@ import { perCycleRotation } from './per-cycle-rotation.ts';
 import { FAMILY_GROUPS, fitFamilies } from './plan-families.ts';
 import { familyTables, refineParts, searchSeeds, type RefinedParts, type SearchLimits, type SearchSeed } from './plan-search.ts';
 import { robustnessSamples, summariseRobustness } from './robustness.ts';
-import { quatAngle } from './rotation-vector.ts';
+import { quatAngle, quatChain, quatConj, quatLog } from './rotation-vector.ts';
 
 /** Seeds refined beyond the number of candidates asked for (some may miss a limit or turn out less robust). */
 const EXTRA_SEEDS = 4;
@@ -152,8 +152,32 @@ export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, s
   timings.searchS = (performance.now() - started) / 1000 - timings.robustnessS;
   progress(1, 'done');
   const candidates = rankCandidates(out);
-  if (!candidates.some(meetsLimits)) notes.push('No candidate meets every limit: see each candidate\'s figures.');
+  if (candidates.length && !candidates.some(meetsLimits)) notes.push(`No candidate meets every limit. The best one: ${missedLimits(candidates[0], target, goal).join('; ')}.`);
   return { candidates, notes, timings };
+}
+
+const AXIS_NAMES = ['roll (x)', 'pitch (y)', 'yaw (z)'] as const;
+
+/**
+ * Which limits a candidate misses, in words: the error and the body axis it mostly lies about (the
+ * residual rotation target⁻¹·final, in the body frame), the dofs that leave their ranges, the peak
+ * rate and the time budget.
+ */
+export function missedLimits(c: PlanCandidate, target: SequenceTarget, goal: Quat): string[] {
+  const out: string[] = [];
+  if (!c.withinTolerance) {
+    const a = c.final.attitude;
+    const residual = quatLog(quatChain(quatConj(goal), [a.w, a.x, a.y, a.z]));
+    const k = [0, 1, 2].reduce((m, i) => (Math.abs(residual[i]) > Math.abs(residual[m]) ? i : m), 0);
+    out.push(`misses the target by ${c.errorDeg.toFixed(1)}° (tolerance ${target.toleranceDeg}°), mostly about ${AXIS_NAMES[k]}`);
+  }
+  if (c.rangeViolationCount > 0) {
+    const dofs = [...new Set(c.rangeViolations.map((v) => `${v.dof} past its ${v.bound} ${v.limitDeg}°`))];
+    out.push(`leaves a joint range (${dofs.join(', ')})`);
+  }
+  if (!c.withinRateLimit) out.push(`peak joint rate ${Math.round(c.peakJointRateDegS)}°/s over the ${target.rateLimitDegS}°/s rate limit`);
+  if (!c.withinTimeBudget && target.timeBudgetS !== null) out.push(`takes ${c.durationS.toFixed(0)} s, over the ${target.timeBudgetS} s time budget`);
+  return out;
 }
 
 /** Full-accuracy verification, path and robustness of one candidate. */

@@ -13,5 +13,6 @@ export interface PlannerThreadInput {
 /** What the thread posts: progress notes, then the candidates or a failure. */
 export type PlannerThreadMessage =
   | { kind: 'progress'; fraction: number; note: string }
-  | { kind: 'done'; candidates: PlanCandidate[] }
-  | { kind: 'failed'; message: string };
+  | { kind: 'done'; candidates: PlanCandidate[]; notes: string[] }
+  /** `notes`: the planner's own reasons when it found no candidate (which axis, which limit). */
+  | { kind: 'failed'; message: string; notes?: string[] };

@@ -8,8 +8,8 @@ const post = (m: PlannerThreadMessage) => parentPort!.postMessage(m);
 try {
   const input = workerData as PlannerThreadInput;
   const { candidates, notes } = planManeuver({ ...input, onProgress: (fraction, note) => post({ kind: 'progress', fraction, note }) });
-  if (!candidates.length) post({ kind: 'failed', message: notes.join(' ') || 'the planner found no candidate' });
-  else post({ kind: 'done', candidates });
+  if (!candidates.length) post({ kind: 'failed', message: notes.join(' ') || 'the planner found no candidate', notes });
+  else post({ kind: 'done', candidates, notes });
 } catch (err) {
   post({ kind: 'failed', message: err instanceof Error ? err.message : String(err) });
 }

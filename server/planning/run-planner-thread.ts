@@ -14,16 +14,25 @@ const ENTRY = fileURLToPath(new URL('./planner-entry.mjs', import.meta.url).href
 /** Longest a plan may run, ms (10 min). */
 export const PLAN_TIME_BUDGET_MS = 10 * 60_000;
 
+/** Thrown when the planner found no candidate; `notes` say why (which axis, which limit). */
+export class PlanUnreachableError extends Error {
+  constructor(message: string, readonly notes: string[]) { super(message); this.name = 'PlanUnreachableError'; }
+}
+
+/** What a finished plan gives: ranked candidates and the planner's notes. */
+export interface PlannerThreadResult { candidates: PlanCandidate[]; notes: string[] }
+
 /** Thrown when a plan was stopped through its AbortSignal (cancelled). */
 export class PlanStoppedError extends Error {
   constructor() { super('planning stopped'); this.name = 'PlanStoppedError'; }
 }
 
 /**
- * Resolves with the ranked candidates; rejects on failure, when the time budget runs out, or with
+ * Resolves with the ranked candidates and notes; rejects on failure (PlanUnreachableError when the
+ * planner found no candidate), when the time budget runs out, or with
  * PlanStoppedError when `signal` aborts (the thread is terminated: the only way to stop synchronous code).
  */
-export function runPlannerThread(input: PlannerThreadInput, onProgress: PlanProgress, timeBudgetMs = PLAN_TIME_BUDGET_MS, signal?: AbortSignal): Promise<PlanCandidate[]> {
+export function runPlannerThread(input: PlannerThreadInput, onProgress: PlanProgress, timeBudgetMs = PLAN_TIME_BUDGET_MS, signal?: AbortSignal): Promise<PlannerThreadResult> {
   if (signal?.aborted) return Promise.reject(new PlanStoppedError());
   return new Promise((resolve, reject) => {
     const worker = new Worker(ENTRY, { workerData: input });
@@ -41,8 +50,8 @@ export function runPlannerThread(input: PlannerThreadInput, onProgress: PlanProg
     const timer = setTimeout(() => finish(() => reject(new Error(`planning exceeded its time budget of ${timeBudgetMs / 1000} s`))), timeBudgetMs);
     worker.on('message', (m: PlannerThreadMessage) => {
       if (m.kind === 'progress') onProgress(m.fraction, m.note);
-      else if (m.kind === 'done') finish(() => resolve(m.candidates));
-      else finish(() => reject(new Error(m.message)));
+      else if (m.kind === 'done') finish(() => resolve({ candidates: m.candidates, notes: m.notes }));
+      else finish(() => reject(m.notes?.length ? new PlanUnreachableError(m.message, m.notes) : new Error(m.message)));
     });
     worker.on('error', (err) => finish(() => reject(err)));
     worker.on('exit', (code) => finish(() => reject(new Error(`planner thread exited (code ${code}) without a result`))));

@@ -40,6 +40,7 @@ export function planView(row: PlanRow): Plan {
     settings: planRequestSchema.parse(row.settings),
     candidates: row.candidates ?? [],
     error: row.error,
+    notes: row.notes,
     elapsedS: row.startedAt && row.finishedAt ? (row.finishedAt.getTime() - row.startedAt.getTime()) / 1000 : null,
     createdAt: row.createdAt.toISOString(),
     startedAt: iso(row.startedAt),

@@ -148,6 +148,11 @@ export const planSchema = z.object({
   candidates: z.array(planCandidateSchema),
   /** Why the plan failed (null otherwise). */
   error: z.string().nullable(),
+  /**
+   * The planner's notes: when it finds no candidate, why (which axis, which limit); otherwise sweeps
+   * it could not use on this body, a time budget too short, or a best candidate that misses a limit.
+   */
+  notes: z.array(z.string()),
   /** Wall-clock time of the run, seconds (null until finished). */
   elapsedS: z.number().nullable(),
   createdAt: z.string(),

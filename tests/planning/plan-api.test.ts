@@ -41,6 +41,9 @@ describe('POST /api/sequences/:id/plans', () => {
     expect(plan.error).toBeNull();
     expect(plan.state).toBe('done');
     expect(plan.candidates.length).toBeGreaterThan(0);
+    // The planner's notes travel with the plan (empty or plain sentences).
+    expect(Array.isArray(plan.notes)).toBe(true);
+    for (const n of plan.notes as unknown[]) expect(typeof n).toBe('string');
     expect(plan.candidates.map((c: { rank: number }) => c.rank)).toEqual(plan.candidates.map((_: unknown, i: number) => i + 1));
     const best = plan.candidates[0];
     expect(best.withinTolerance).toBe(true);

@@ -6,9 +6,12 @@
  */
 import { describe, expect, it } from 'vitest';
 
-import { planManeuver } from '../../server/planning/plan-maneuver.ts';
+import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
+import { missedLimits, planManeuver } from '../../server/planning/plan-maneuver.ts';
+import { PlanUnreachableError, runPlannerThread } from '../../server/planning/run-planner-thread.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import { planRequestSchema } from '../../shared/contracts/plan.ts';
+import { planRequestSchema, type PlanCandidate } from '../../shared/contracts/plan.ts';
+import { quatMultiply } from '../../shared/math/quaternion.ts';
 import { checkBest, ypr } from './check-best.ts';
 import { demoBody } from './planner-bodies.ts';
 
@@ -31,14 +34,40 @@ describe('planner on a cabin-clothed demo crew member', () => {
 });
 
 describe('targets the planner cannot reach', () => {
+  // Hips and knees held within ±4°, shoulder abduction within 0…4°: no leg sweep and no arm circle fits.
+  const body = demoBody('reed', 1);
+  const narrowed = {
+    ...body,
+    segments: body.segments.map((s) => (s.joint ? { ...s, joint: { ...s.joint, dofs: s.joint.dofs.map((d) => (
+      /hip_|knee/.test(d.name) ? { ...d, min: -4, max: 4 } : /sh_abd/.test(d.name) ? { ...d, min: 0, max: 4 } : d)) } } : s)),
+  };
+
+  it('the planning thread (what the job runs) rejects with the same notes, which the job stores for the screen', async () => {
+    const err: unknown = await runPlannerThread({ body: narrowed, target: ypr(0, 60, 0), settings }, () => {}).catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(PlanUnreachableError);
+    const notes = (err as PlanUnreachableError).notes;
+    expect(notes.join(' ')).toMatch(/forward arm circles not used: .*sh_abd would go above 1°/);
+  }, 60_000);
+
+  it('names the limits the best candidate misses and the axis its error lies about', () => {
+    const target = ypr(30, 0, 0);
+    const goal = targetQuat(target);
+    // 5° short about roll: final = goal · (5° about x).
+    const h = (5 * Math.PI) / 360;
+    const [w, x, y, z] = quatMultiply(goal, [Math.cos(h), Math.sin(h), 0, 0], [0, 0, 0, 0]);
+    const c = {
+      final: { attitude: { w, x, y, z } }, errorDeg: 5, withinTolerance: false, rangeViolationCount: 1,
+      rangeViolations: [{ dof: 'r_sh_abd', step: 0, bound: 'max', limitDeg: 4 }], withinRateLimit: false, peakJointRateDegS: 200.4,
+      withinTimeBudget: false, durationS: 95,
+    } as unknown as PlanCandidate;
+    const words = missedLimits(c, { ...target, timeBudgetS: 60 }, goal).join('; ');
+    expect(words).toContain('misses the target by 5.0° (tolerance 2°), mostly about roll (x)');
+    expect(words).toContain('r_sh_abd past its max 4°');
+    expect(words).toContain('peak joint rate 200°/s over the 180°/s rate limit');
+    expect(words).toContain('takes 95 s, over the 60 s time budget');
+  });
+
   it('says which sweep breaks which joint range when none fits the body', () => {
-    // Hips and knees held within ±4°, shoulder abduction within 0…4°: no leg sweep and no arm circle fits.
-    const body = demoBody('reed', 1);
-    const narrowed = {
-      ...body,
-      segments: body.segments.map((s) => (s.joint ? { ...s, joint: { ...s.joint, dofs: s.joint.dofs.map((d) => (
-        /hip_|knee/.test(d.name) ? { ...d, min: -4, max: 4 } : /sh_abd/.test(d.name) ? { ...d, min: 0, max: 4 } : d)) } } : s)),
-    };
     const { candidates, notes } = planManeuver({ body: narrowed, target: ypr(0, 60, 0), settings, skipRobustness: true });
     expect(candidates).toEqual([]);
     const text = notes.join(' ');

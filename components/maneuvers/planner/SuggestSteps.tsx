@@ -9,6 +9,7 @@ import { Card } from '@/components/ui/Card';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
+import { PlannerNotes } from '@/components/maneuvers/planner/PlannerNotes';
 import type { PlanCandidate, DispersionSpreads } from '@/shared/contracts/plan';
 import type { Primitive } from '@/shared/primitives/primitive-schemas';
 
@@ -76,7 +77,8 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
       <ErrorBanner title="Could not stop the planner" error={cancel.error} />
       <ErrorBanner title="Could not look up earlier suggestions" error={startedPlanId === null ? latest.error : null} />
       <ErrorBanner title="Could not read the plan" error={plan.error} />
-      {state === 'failed' ? <ErrorBanner title="The planner failed" error={plan.data?.error ?? 'unknown error'} /> : null}
+      {state === 'failed' && plan.data?.notes.length ? <PlannerNotes kind="unreachable" notes={plan.data.notes} /> : null}
+      {state === 'failed' && !plan.data?.notes.length ? <ErrorBanner title="The planner failed" error={plan.data?.error ?? 'unknown error'} /> : null}
       {state === 'cancelled' ? (
         <Text tone="muted" role="status" testID="plan-cancelled">
           Planning stopped. {plan.data?.error ?? ''} Nothing was suggested; start it again when you are ready.
@@ -88,6 +90,7 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
             {plan.data.candidates.length} suggestion{plan.data.candidates.length === 1 ? '' : 's'} in {plan.data.elapsedS?.toFixed(1)} s, best first
             {startedPlanId === null ? ` (requested ${new Date(plan.data.createdAt).toLocaleString()})` : ''}.
           </Text>
+          <PlannerNotes kind="remarks" notes={plan.data.notes} />
           {plan.data.candidates.map((c) => (
             <CandidateCard key={c.rank} candidate={c} toleranceDeg={toleranceDeg} onUse={() => onUse(c.primitives)} />
           ))}

@@ -1,0 +1,1 @@
+ALTER TABLE "plans" ADD COLUMN "notes" jsonb DEFAULT '[]'::jsonb NOT NULL;
