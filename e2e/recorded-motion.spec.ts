@@ -21,12 +21,10 @@ test.describe('recorded motion', () => {
     await expect(detail).toBeVisible({ timeout: 30_000 });
     await expect(detail).toContainText('91 frames at 30 Hz');
     await expect(detail).toContainText('faces +Z');
-    // The mapping: leave the legs and the waist out (the demo bodies have no waist flexion), apply.
+    // The default mapping: trunk, arms and legs, waist rotation and flexion included.
     const mapping = detail.getByTestId('mapping-table');
     await expect(mapping.getByLabel('l upper arm')).toHaveValue('LeftArm');
-    for (const s of ['l thigh', 'l shank', 'r thigh', 'r shank', 'lower trunk']) await mapping.getByLabel(s).selectOption('');
-    await mapping.getByTestId('apply-mapping').click();
-    await expect(mapping.getByText(/Mapping applied: 8 dofs/)).toBeVisible();
+    await expect(mapping.getByLabel('lower trunk')).toHaveValue('Hips');
 
     // A new maneuver with the recording as its step.
     const name = `Recorded sweep drill ${Date.now()}`;
@@ -34,8 +32,10 @@ test.describe('recorded motion', () => {
     await page.getByRole('button', { name: 'New maneuver' }).first().click();
     const create = page.getByRole('dialog', { name: 'New maneuver' });
     const crewSelect = create.getByLabel('Crew member');
-    await expect(crewSelect.locator('option').nth(1)).toBeAttached();
-    await crewSelect.selectOption({ index: 1 });
+    // The suited crew member: the suit locks waist flexion, so that channel is left out of the step.
+    const suited = crewSelect.locator('option', { hasText: 'Kettle' }).first();
+    await expect(suited).toBeAttached();
+    await crewSelect.selectOption((await suited.getAttribute('value'))!);
     await create.getByRole('textbox', { name: 'Name', exact: true }).fill(name);
     await create.getByRole('textbox', { name: 'Tolerance', exact: true }).fill('5');
     await create.getByRole('button', { name: 'Create' }).click();
@@ -48,6 +48,14 @@ test.describe('recorded motion', () => {
     await picker.getByTestId('use-recording').click();
     const editor = page.getByTestId('step-editor').first();
     await expect(editor).toBeVisible();
+    // Dropped channels are named; the kept ones are plotted over the suit's ranges with their margins.
+    await expect(editor.getByTestId('dropped-channels')).toContainText('waist_flex');
+    await expect(editor.getByTestId('dropped-channels')).not.toContainText('waist_rot');
+    const margins = editor.getByTestId('range-margins');
+    await expect(margins).toContainText('Left shoulder abduction');
+    await expect(editor.getByTestId('tightest-margin')).toContainText('Closest to a limit');
+    await expect(editor.getByTestId('joint-plots')).toBeVisible();
+    await editor.screenshot({ path: 'test-results/recorded-sweep-editor-1280.png' });
     await editor.getByRole('textbox', { name: 'Repeat', exact: true }).fill('2');
     await page.getByRole('button', { name: 'Apply step' }).click();
     const steps = page.getByRole('list', { name: 'Steps' }).getByRole('listitem');

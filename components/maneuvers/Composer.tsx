@@ -1,10 +1,11 @@
-import { RecordedSweepPicker } from '@/components/recordings/RecordedSweepPicker';
 import { useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
 import { ApiError } from '@/components/api/client';
 import { useSaveVersionMutation } from '@/components/api/use-sequences';
 import { useIsWide } from '@/components/layout/use-is-wide';
+import { RecordedSweepPicker } from '@/components/recordings/RecordedSweepPicker';
+import { VersionRehearsals } from '@/components/rehearse/VersionRehearsals';
 import { ReviewHistory } from '@/components/reviews/ReviewHistory';
 import { colors, layout, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
@@ -65,6 +66,8 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   const [baseVersion] = useState(() => Math.max(sequence.versions[0]?.version ?? 0, version?.version ?? 0));
   const [panel, setPanel] = useState<ComposerPanel>(initialPanel ?? (version?.report ? 'report' : 'steps'));
   const [editing, setEditing] = useState<Editing>(null);
+  // Channels of the recording just picked that the body cannot take (shown while that new step is edited).
+  const [droppedChannels, setDroppedChannels] = useState<string[]>([]);
   const [showCompiled, setShowCompiled] = useState(false);
   const [note, setNote] = useState('');
   const save = useSaveVersionMutation(sequence.id);
@@ -153,7 +156,15 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           <Button label="Add step" icon="plus" variant="secondary" size="sm" onPress={() => setEditing({ index: draft.steps.length, step: defaultPrimitive('arm_orbit'), isNew: true })} />
         ) : null}
       </View>
-      {editable ? <RecordedSweepPicker onPick={(step) => setEditing({ index: draft.steps.length, step, isNew: true })} /> : null}
+      {editable ? (
+        <RecordedSweepPicker
+          crewMemberId={sequence.crewMemberId}
+          onPick={(step, dropped) => {
+            setDroppedChannels(dropped);
+            setEditing({ index: draft.steps.length, step, isNew: true });
+          }}
+        />
+      ) : null}
       <StepList
         steps={draft.steps}
         selected={wide ? editing?.index : null}
@@ -204,6 +215,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           <ReviewHistory reviews={version.reviews} />
         </View>
       ) : null}
+      {version && (version.status === 'cleared' || version.status === 'replaced' || version.status === 'recheck') ? <VersionRehearsals versionId={version.id} /> : null}
     </View>
   );
 
@@ -237,6 +249,8 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
                   initial={editing.step}
                   position={editing.index + 1}
                   inlineButtons
+                  crewMemberId={sequence.crewMemberId}
+                  droppedChannels={editing.isNew ? droppedChannels : undefined}
                   onApply={(s) => applyStep(editing.index, s)}
                   onCancel={() => setEditing(null)}
                 />
@@ -270,7 +284,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
       />
       {panel === 'steps' ? stepsPanel : panel === 'report' ? reportPanel : versionsPanel}
       {panel === 'steps' ? <ManeuverCautions compact /> : null}
-      <StepEditorSheet editing={editing} onApply={applyStep} onClose={() => setEditing(null)} />
+      <StepEditorSheet editing={editing} onApply={applyStep} onClose={() => setEditing(null)} crewMemberId={sequence.crewMemberId} droppedChannels={droppedChannels} />
     </ScrollView>
   );
 }

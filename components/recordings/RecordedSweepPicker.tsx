@@ -7,17 +7,27 @@ import { spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
+import type { CompileResponse } from '@/shared/contracts/maneuver';
 import type { RecordingView } from '@/shared/contracts/recording';
 import type { RecordedSweep } from '@/shared/primitives/primitive-schemas';
+import { fitChannelsToBody } from '@/shared/primitives/recorded-channels';
 
 /** Props of {@link RecordedSweepPicker}. */
 export interface RecordedSweepPickerProps {
-  /** Called with a new recorded-sweep step (whole recording, played once) to edit and add. */
-  onPick: (step: RecordedSweep) => void;
+  /** The maneuver's crew member: the step keeps only the channels their current body has. */
+  crewMemberId: string;
+  /**
+   * Called with a new recorded-sweep step (whole recording, played once) to edit and add, and the
+   * recording's channels that were left out because the body has no such dof (e.g. locked by the suit).
+   */
+  onPick: (step: RecordedSweep, dropped: string[]) => void;
 }
 
-/** Chooses an imported recording and turns it into a "recorded sweep" step (trim and repeat are edited next). */
-export function RecordedSweepPicker({ onPick }: RecordedSweepPickerProps) {
+/**
+ * Chooses an imported recording and turns it into a "recorded sweep" step (trim and repeat are
+ * edited next). Only the channels the crew member's body has are kept; the others are reported.
+ */
+export function RecordedSweepPicker({ crewMemberId, onPick }: RecordedSweepPickerProps) {
   const [open, setOpen] = useState(false);
   const [id, setId] = useState('');
   const [busy, setBusy] = useState(false);
@@ -29,10 +39,18 @@ export function RecordedSweepPicker({ onPick }: RecordedSweepPickerProps) {
     setError(null);
     try {
       const r = (await apiFetch<{ recording: RecordingView }>(`/recordings/${id}`)).recording;
-      onPick({
+      const step: RecordedSweep = {
         kind: 'recorded_sweep', recordingId: r.id, recordingName: r.name, rateHz: r.rateHz, dofs: r.dofs, frames: r.frames,
         trimStartS: 0, trimEndS: Math.floor(r.duration * 1000) / 1000, repeat: 1,
-      });
+      };
+      // The body's dofs (its current profile, suit included) decide which channels it can follow.
+      const { ranges } = await apiFetch<CompileResponse>('/sequences/compile', { method: 'POST', body: { primitives: [step], crewMemberId } });
+      const fitted = fitChannelsToBody(r, (d) => d in ranges);
+      if (!fitted.dofs.length) {
+        setError(`None of the recording's channels (${r.dofs.join(', ')}) is a joint of this crew member's body: check the recording's mapping.`);
+        return;
+      }
+      onPick({ ...step, dofs: fitted.dofs, frames: fitted.frames }, fitted.dropped);
       setOpen(false);
     } catch (err) {
       setError(errorMessage(err));

@@ -127,7 +127,9 @@ export function sequencesRouter(ctx: AppContext): Router {
     const dofs = input.crewMemberId ? dofInfoFromBody((await currentProfile(db, input.crewMemberId)).body as Body) : STANDARD_DOFS;
     const primitives = input.primitives as Primitive[];
     const c = compilePrimitives(primitives, dofs);
-    const out: CompileResponse = { compiled: c.sequence, stepMap: c.stepMap, cues: primitives.map(cueFor), durationS: c.durationS, errors: c.errors, warnings: c.warnings };
+    const out: CompileResponse = { compiled: c.sequence, stepMap: c.stepMap, cues: primitives.map(cueFor), durationS: c.durationS, errors: c.errors, warnings: c.warnings,
+      ranges: Object.fromEntries(dofs.map((d) => [d.name, { min: d.min, max: d.max }])),
+    };
     res.json(out);
   });
 

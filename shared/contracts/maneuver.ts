@@ -161,6 +161,8 @@ export const compileResponseSchema = z.object({
   durationS: z.number(),
   errors: z.array(primitiveIssueSchema),
   warnings: z.array(primitiveIssueSchema),
+  /** Every dof of the body compiled for, with its range in degrees (the crew member's current profile, suit included). */
+  ranges: z.record(z.string(), z.object({ min: z.number(), max: z.number() })),
 });
 export type CompileResponse = z.infer<typeof compileResponseSchema>;
 

@@ -2,6 +2,7 @@ import { useEffect } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
+import { RecordedSweepPreview } from '@/components/recordings/RecordedSweepPreview';
 import { colors, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Select } from '@/components/ui/Select';
@@ -29,13 +30,17 @@ export interface StepEditorProps {
   inlineButtons?: boolean;
   /** Register the form's submit so a sheet footer can call it. */
   submitRef?: { current: (() => void) | null };
+  /** The maneuver's crew member (a recorded sweep is plotted against their joint ranges). */
+  crewMemberId?: string;
+  /** A new recorded sweep's channels that were left out (the body has no such dof). */
+  droppedChannels?: readonly string[];
 }
 
 /**
  * Edits one step: its kind and the kind's fields (react-hook-form, validated by the shared primitive
  * schema), with a live preview of the trainee's cue.
  */
-export function StepEditor({ initial, position, onApply, onCancel, inlineButtons = false, submitRef }: StepEditorProps) {
+export function StepEditor({ initial, position, onApply, onCancel, inlineButtons = false, submitRef, crewMemberId, droppedChannels }: StepEditorProps) {
   const { control, handleSubmit, reset, formState } = useForm<StepFormValues, unknown, Primitive>({
     resolver: stepFormResolver,
     defaultValues: primitiveToForm(initial),
@@ -57,6 +62,9 @@ export function StepEditor({ initial, position, onApply, onCancel, inlineButtons
         onChange={(k) => k && k !== ('recorded_sweep' as string) && reset(primitiveToForm(defaultPrimitive(k)))}
       />
       <StepForm control={control} values={values} errors={formState.errors} />
+      {initial.kind === 'recorded_sweep' ? (
+        <RecordedSweepPreview step={preview?.kind === 'recorded_sweep' ? preview : initial} crewMemberId={crewMemberId} dropped={droppedChannels} />
+      ) : null}
       <View style={styles.cue} role="status" aria-live="polite" aria-label="Cue preview">
         <Text variant="overline" tone="muted">
           Cue the trainee reads

@@ -11,10 +11,14 @@ export interface StepEditorSheetProps {
   editing: { index: number; step: Primitive; isNew: boolean } | null;
   onApply: (index: number, step: Primitive) => void;
   onClose: () => void;
+  /** The maneuver's crew member (joint ranges for a recorded sweep's plot). */
+  crewMemberId?: string;
+  /** A new recorded sweep's channels that were left out. */
+  droppedChannels?: readonly string[];
 }
 
 /** The phone's step editor: a sheet with the step's form and Apply / Cancel in its footer. */
-export function StepEditorSheet({ editing, onApply, onClose }: StepEditorSheetProps) {
+export function StepEditorSheet({ editing, onApply, onClose, crewMemberId, droppedChannels }: StepEditorSheetProps) {
   const submit = useRef<(() => void) | null>(null);
   return (
     <Sheet
@@ -34,6 +38,8 @@ export function StepEditorSheet({ editing, onApply, onClose }: StepEditorSheetPr
           initial={editing.step}
           position={editing.index + 1}
           submitRef={submit}
+          crewMemberId={crewMemberId}
+          droppedChannels={editing.isNew ? droppedChannels : undefined}
           onApply={(step) => onApply(editing.index, step)}
           onCancel={onClose}
         />
