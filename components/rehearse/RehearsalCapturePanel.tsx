@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { errorMessage } from '@/components/api/client';
 import { useAttachRecordingMutation, useRehearsalCaptureQuery, useSignOffCaptureMutation } from '@/components/api/use-rehearsal-captures';
+import { dofLabel } from '@/components/charts/JointAnglePlots';
 import { LinePlot } from '@/components/charts/LinePlot';
 import { plotColors } from '@/components/charts/plot-colors';
 import { FilePicker } from '@/components/crew/FilePicker';
@@ -79,7 +80,7 @@ function CaptureView({ capture: c, canSignOff, onSignOff, signing }: { capture: 
       {c.steps.length === 0 ? <Text tone="muted">No sweep step of the plan was covered by the recording.</Text> : null}
       {c.steps.map((s) => (
         <Text key={s.step} variant="caption" testID={`capture-step-${s.step}`}>
-          {`${s.cue}: ${s.phaseLagS >= 0 ? 'late' : 'early'} ${f2(Math.abs(s.phaseLagS))} s · period ×${f2(s.periodRatio)} · amplitude ×${f2(s.amplitudeRatio)}`}
+          {`Step ${s.step}, ${s.cue}: ${s.phaseLagS >= 0 ? 'late' : 'early'} ${f2(Math.abs(s.phaseLagS))} s · period ×${f2(s.periodRatio)} · amplitude ×${f2(s.amplitudeRatio)}`}
         </Text>
       ))}
       <LinePlot
@@ -97,8 +98,8 @@ function CaptureView({ capture: c, canSignOff, onSignOff, signing }: { capture: 
       {dofs.slice(0, 4).map((d) => (
         <LinePlot
           key={d}
-          title={`${d}, planned and executed`}
-          summary={`Joint angle ${d} over time, planned (dashed) and recorded.`}
+          title={`${dofLabel(d)}, planned and executed`}
+          summary={`${dofLabel(d)} over time, planned (dashed) and recorded.`}
           x={c.overlay.t}
           yUnit="°"
           height={120}

@@ -15,12 +15,14 @@ export interface RehearsalHistoryProps {
   showTrainee?: boolean;
   /** Offer the reviewer's sign-off on attached recordings; default false. */
   canSignOff?: boolean;
+  /** Card title; default "History". */
+  title?: string;
 }
 
 /** Logged rehearsals, newest first: when, steps, speed, rating, notes. */
-export function RehearsalHistory({ rehearsals, showTrainee = false, canSignOff = false }: RehearsalHistoryProps) {
+export function RehearsalHistory({ rehearsals, showTrainee = false, canSignOff = false, title = 'History' }: RehearsalHistoryProps) {
   return (
-    <Card title="History" subtitle={rehearsals.length ? `${rehearsals.length} logged` : undefined}>
+    <Card title={title} subtitle={rehearsals.length ? `${rehearsals.length} logged` : undefined}>
       {rehearsals.length === 0 ? (
         <Text tone="muted">No rehearsals logged yet.</Text>
       ) : (

@@ -12,6 +12,7 @@ import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
 import { Text } from '@/components/ui/Text';
 import { CueCardButton } from '@/components/maneuvers/CueCardButton';
+import { CaptureTrend } from './CaptureTrend';
 import { LazyPlayer } from './LazyPlayer';
 import { RehearsalHistory } from './RehearsalHistory';
 import { RehearsalLogForm } from './RehearsalLogForm';
@@ -71,6 +72,7 @@ export function RehearsalSession({ versionId }: RehearsalSessionProps) {
           <RehearsalLogForm key={run?.n ?? 0} versionId={versionId} totalSteps={version.stepCount} run={run?.summary ?? null} />
         )}
         {history.isPending ? <LoadingState /> : history.isError ? <ErrorBanner error={history.error} /> : <RehearsalHistory rehearsals={history.data} />}
+        <CaptureTrend />
         <Button label="All maneuvers" icon="arrow-left" variant="ghost" onPress={() => router.replace('/rehearse')} />
       </View>
       <Modal visible={playing && !stale} animationType="fade" onRequestClose={() => setPlaying(false)}>

@@ -17,7 +17,9 @@ import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { type SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
 import { HttpError } from '../http/http-error.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
+import { storedCompiled } from '../maneuvers/stored-compiled.ts';
 import { compiledParts } from '../motion/compiled-sequence.ts';
+import { primitiveCues, primitiveStepMap } from '../motion/primitive-cues.ts';
 import { stepTimeline } from '../motion/step-timeline.ts';
 import { targetAttitude } from '../motion/target-attitude.ts';
 import type { LoadedVersion } from '../motion/version-access.ts';
@@ -76,9 +78,17 @@ export async function buildCapture(
     });
   }
 
-  // Step timing, with the steps' cues.
-  const timeline = stepTimeline(plan.value, parts.cues);
-  const steps = compareExecution(plan.value, rec).map((s) => ({ ...s, cue: timeline[s.step]?.cue ?? `Step ${s.step + 1}` }));
+  // Step timing per composer step (DECISIONS.md "Steps": numbered and worded as the player and the
+  // composer list them): a compared sweep (a compiled step) belongs to the listed step whose span holds its start.
+  const storedStepMap = storedCompiled(v.compiled).stepMap;
+  const timeline = stepTimeline(plan.value, parts.cues.length ? parts.cues : primitiveCues(v.primitives, body.value, plan.value), {
+    primitives: v.primitives,
+    stepMap: storedStepMap.length ? storedStepMap : (primitiveStepMap(v.primitives, body.value, plan.value) ?? []),
+  });
+  const steps = compareExecution(plan.value, rec).map((s) => {
+    const listed = timeline.find((e) => s.startS >= e.start - 1e-9 && s.startS < e.end - 1e-9);
+    return { ...s, step: listed ? listed.index + 1 : s.step + 1, cue: listed?.cue ?? `Step ${s.step + 1}` };
+  });
 
   // Overlay: both at OVERLAY_HZ from t = 0, over the shorter of the two.
   const n = Math.min(planResult.samples.frames.length, executed!.samples.frames.length);

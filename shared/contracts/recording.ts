@@ -93,6 +93,7 @@ export interface CaptureOutcome {
 
 /** Per plan sweep step, the recorded timing and amplitude (see server/recordings/compare-execution.ts). */
 export interface CaptureStepTiming {
+  /** The step's number as the composer, player and rehearsal log list it (1-based). */
   step: number;
   cue: string;
   startS: number;
