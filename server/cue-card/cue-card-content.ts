@@ -3,7 +3,9 @@
  * no PDF). The steps are the compiled steps the rehearsal player counts, each with the cue of the
  * primitive it came from, so the card's step numbers match the player's.
  */
-import type { SequenceTarget, VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import type { SequenceTarget, VerificationReport, VersionDetail } from '../../shared/contracts/maneuver.ts';
+import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
 import { engineBindingText, shortEngineVersion } from '../../shared/product/engine-binding.ts';
@@ -11,6 +13,7 @@ import { HttpError } from '../http/http-error.ts';
 import { stepTimeline } from '../motion/step-timeline.ts';
 import { CUE_CARD_CAUTIONS } from './cue-card-cautions.ts';
 import { cueCardFileName } from './cue-card-file-name.ts';
+import { type StepPictogram, stepPictograms } from './step-pictograms.ts';
 
 /** One printed step. */
 export interface CueCardStep {
@@ -64,6 +67,10 @@ export interface CueCardContent {
   /** Peak joint rate against the sequence's limit; null without a report. */
   peakJointRate: { maxDegS: number; dofLabel: string | null; limitDegS: number; withinLimit: boolean } | null;
   steps: CueCardStep[];
+  /** One stick-figure pictogram per step (same order), or null without the body or a report. */
+  pictograms: StepPictogram[] | null;
+  /** The verified attitude over time (unwrapped yaw/pitch/roll, degrees) with the target's, or null without a report. */
+  attitude: { t: number[]; yaw: number[]; pitch: number[]; roll: number[]; target: { yaw: number; pitch: number; roll: number } } | null;
   cautions: readonly string[];
   /** Download name (sanitised). */
   fileName: string;
@@ -75,6 +82,16 @@ const deg = (v: number, digits = 0) => `${Number(v.toFixed(digits))}°`;
 export function targetWords(t: SequenceTarget): string {
   if (t.mode === 'ypr') return `yaw ${deg(t.yprDeg.yaw)}, pitch ${deg(t.yprDeg.pitch)}, roll ${deg(t.yprDeg.roll)}`;
   return `${deg(t.axisAngle.angleDeg)} about [${t.axisAngle.axis.map((a) => Number(a.toFixed(2))).join(', ')}]`;
+}
+
+/** The report's attitude series and the target as yaw/pitch/roll in degrees, for the card's small plot. */
+function attitudeSeries(r: VerificationReport, target: SequenceTarget): CueCardContent['attitude'] {
+  const ypr = target.mode === 'ypr' ? target.yprDeg : (() => {
+    const a = quatToYpr([r.target.attitude.w, r.target.attitude.x, r.target.attitude.y, r.target.attitude.z]);
+    const d = 180 / Math.PI;
+    return { yaw: a.yaw * d, pitch: a.pitch * d, roll: a.roll * d };
+  })();
+  return { t: r.series.t, yaw: r.series.yawDeg, pitch: r.series.pitchDeg, roll: r.series.rollDeg, target: ypr };
 }
 
 /** Whether a stored step has the fields the timeline reads (kind and finite times). */
@@ -102,7 +119,7 @@ function compiledStepCues(v: VersionDetail): (string | undefined)[] {
  * The card for a cleared version. Throws HttpError 409 `not_cleared` for any other status and
  * 422 `cue_card_invalid` naming the step when a stored step cannot be timed.
  */
-export function cueCardContent(v: VersionDetail, crew: { callSign: string | null }, runningEngineVersion: string): CueCardContent {
+export function cueCardContent(v: VersionDetail, crew: { callSign: string | null }, runningEngineVersion: string, body: Body | null = null): CueCardContent {
   if (v.status !== 'cleared') {
     throw new HttpError(409, 'not_cleared', `Only cleared versions have a cue card; version ${v.version} is ${v.status.replace('_', ' ')}.`);
   }
@@ -111,6 +128,10 @@ export function cueCardContent(v: VersionDetail, crew: { callSign: string | null
   const timeline = stepTimeline(v.compiled as unknown as Sequence, compiledStepCues(v), { primitives: v.primitives, stepMap: v.stepMap });
   const r = v.report;
   const target = v.target;
+  const steps: CueCardStep[] = timeline.map((s) => ({
+    number: s.index + 1, startS: s.start, durationS: s.end - s.start, cue: s.cue,
+    leadIn: s.leadIn ? `${s.leadIn.cue} (${Number((s.leadIn.end - s.start).toFixed(1))} s)` : null,
+  }));
   const verifiedBy = v.engineVersion ?? r?.engineVersion ?? null;
   return {
     productMark: 'holonaut',
@@ -140,10 +161,9 @@ export function cueCardContent(v: VersionDetail, crew: { callSign: string | null
       limitDegS: r.peakJointRate.limitDegS,
       withinLimit: r.peakJointRate.withinLimit,
     } : null,
-    steps: timeline.map((s) => ({
-      number: s.index + 1, startS: s.start, durationS: s.end - s.start, cue: s.cue,
-      leadIn: s.leadIn ? `${s.leadIn.cue} (${Number((s.leadIn.end - s.start).toFixed(1))} s)` : null,
-    })),
+    steps,
+    pictograms: body && r ? stepPictograms(body, r, steps) : null,
+    attitude: r ? attitudeSeries(r, target) : null,
     cautions: CUE_CARD_CAUTIONS,
     fileName: cueCardFileName(v.sequence.name, v.version),
   };

@@ -1,10 +1,12 @@
 /**
  * Renders a cue card to PDF with pdfkit: A4 portrait, one page for the usual few steps (more steps
  * continue on further pages with the step table's header repeated). Black on white for print, a
- * thin amber rule as the product's accent, a tick box per step for the trainee's pen.
+ * thin amber rule as the product's accent, a tick box per step for the trainee's pen, a stick-figure
+ * pictogram per step and a small plot of the verified attitude.
  */
 import PDFDocument from 'pdfkit';
 
+import { drawAttitudePlot, drawPictogram } from './cue-card-figures.ts';
 import { cueCardFonts } from './cue-card-fonts.ts';
 import type { CueCardContent } from './cue-card-content.ts';
 
@@ -102,13 +104,16 @@ export function renderCueCard(card: CueCardContent, opts: RenderCueCardOptions =
   }
   y += 6;
 
-  // Step table: tick box, number, time, cue.
-  const col = { box: left, num: left + 22, time: left + 46, cue: left + 124 };
+  // Step table: tick box, number, time, pictogram (when drawn), cue.
+  const PIC = 46;
+  const pics = card.pictograms;
+  const col = { box: left, num: left + 22, time: left + 46, pic: left + 118, cue: left + (pics ? 124 + PIC + 8 : 124) };
   const cueW = left + width - col.cue;
   const tableHeader = () => {
     doc.font('regular').fontSize(7.5).fillColor(MUTED);
     doc.text('STEP', col.num, y, { lineBreak: false });
     doc.text('FROM – TO', col.time, y, { lineBreak: false });
+    if (pics) doc.text('POSE', col.pic, y, { width: PIC, align: 'center', lineBreak: false });
     doc.text('CUE', col.cue, y, { lineBreak: false });
     y += 12;
     rule(y, INK, 0.8);
@@ -121,7 +126,7 @@ export function renderCueCard(card: CueCardContent, opts: RenderCueCardOptions =
     doc.font('regular').fontSize(9);
     const leadH = s.leadIn ? doc.heightOfString(s.leadIn, { width: cueW }) + 2 : 0;
     doc.font('regular').fontSize(10.5);
-    const h = Math.max(doc.heightOfString(s.cue, { width: cueW }) + leadH, 14) + 10;
+    const h = Math.max(doc.heightOfString(s.cue, { width: cueW }) + leadH, pics ? PIC : 14) + 10;
     if (y + h > bottom() - 20) {
       doc.addPage();
       y = MARGIN;
@@ -129,13 +134,28 @@ export function renderCueCard(card: CueCardContent, opts: RenderCueCardOptions =
     }
     doc.save().rect(col.box, y, 11, 11).lineWidth(0.9).strokeColor(INK).stroke().restore();
     doc.font('semibold').fontSize(10.5).fillColor(INK).text(String(s.number), col.num, y, { lineBreak: false });
-    doc.font('regular').fontSize(9).fillColor(MUTED).text(`${Number(s.startS.toFixed(1))} – ${secs(s.startS + s.durationS)}`, col.time, y + 1, { width: col.cue - col.time - 6, lineBreak: false });
+    doc.font('regular').fontSize(9).fillColor(MUTED).text(`${Number(s.startS.toFixed(1))} – ${secs(s.startS + s.durationS)}`, col.time, y + 1, { width: (pics ? col.pic : col.cue) - col.time - 6, lineBreak: false });
+    const pic = pics?.[s.number - 1];
+    if (pic) drawPictogram(doc, pic, col.pic, y - 2, PIC, PIC);
     if (s.leadIn) doc.font('regular').fontSize(9).fillColor(MUTED).text(s.leadIn, col.cue, y + 1, { width: cueW });
     doc.font('regular').fontSize(10.5).fillColor(INK).text(s.cue, col.cue, y + leadH, { width: cueW });
     y += h;
     rule(y - 5);
   }
   y += 8;
+
+  // The verified attitude over time, kept on one page.
+  if (card.attitude) {
+    const plotH = 120;
+    if (y + plotH + 24 > bottom() - 20) {
+      doc.addPage();
+      y = MARGIN;
+    }
+    doc.font('semibold').fontSize(12).fillColor(INK).text('Attitude during the verified run', left, y);
+    y = doc.y + 6;
+    drawAttitudePlot(doc, card.attitude, left, y, width, plotH);
+    y += plotH + 14;
+  }
 
   // Cautions, kept together on one page, with an amber bar beside them.
   doc.font('regular').fontSize(8.5);

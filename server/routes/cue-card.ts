@@ -7,7 +7,8 @@ import { eq } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
-import { crewMembers } from '../../db/schema/index.ts';
+import { crewMembers, profileVersions } from '../../db/schema/index.ts';
+import { bodySchema } from '../../shared/contracts/body.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { cueCardContent } from '../cue-card/cue-card-content.ts';
@@ -27,7 +28,10 @@ export function cueCardRouter(ctx: AppContext): Router {
     const user = req.user!;
     const detail = await loadVersionDetail(db, user, versionId);
     const [crew] = await db.select({ callSign: crewMembers.callSign }).from(crewMembers).where(eq(crewMembers.id, detail.sequence.crewMemberId));
-    const card = cueCardContent(detail, { callSign: crew?.callSign ?? null }, ctx.engineVersion);
+    // The body the version was verified for draws the step pictograms.
+    const [profile] = await db.select({ body: profileVersions.body }).from(profileVersions).where(eq(profileVersions.id, detail.profileVersionId));
+    const body = profile ? bodySchema.safeParse(profile.body) : null;
+    const card = cueCardContent(detail, { callSign: crew?.callSign ?? null }, ctx.engineVersion, body?.success ? body.data : null);
     const pdf = await renderCueCard(card);
     await recordAudit(db, { actorId: user.id, action: 'cue_card.download', objectType: 'sequence_version', objectId: versionId, detail: { sequenceId: detail.sequenceId, version: detail.version } });
     res.set({

@@ -4,12 +4,15 @@
  * poppler's pdftotext (Debian package poppler-utils), a general-purpose PDF reader outside the project.
  */
 import { execFileSync } from 'node:child_process';
+import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
 
 import { and, eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { auditEvents, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { auditEvents, profileVersions, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import { bodySchema } from '../../shared/contracts/body.ts';
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { cueCardContent } from '../../server/cue-card/cue-card-content.ts';
 import { cueCardFileName } from '../../server/cue-card/cue-card-file-name.ts';
@@ -136,6 +139,28 @@ describe('GET /api/sequences/versions/:versionId/cue-card.pdf', () => {
     expect(text).toContain('injury risk');
     const audits = await t.ctx.db.select().from(auditEvents).where(and(eq(auditEvents.action, 'cue_card.download'), eq(auditEvents.objectId, cleared)));
     expect(audits.length).toBeGreaterThanOrEqual(1);
+  });
+
+  it('draws a pose pictogram beside every step and the verified attitude plot, kept as a picture of the first page', async () => {
+    const res = await download(TAMSIN, cleared);
+    const pdf = res.body as Buffer;
+    const text = pdfText(pdf).replace(/\s+/g, ' ');
+    expect(text).toContain('POSE');
+    expect(text).toContain('Attitude during the verified run');
+    expect(text).toContain('dashed: target');
+    // The figures are vector strokes: the first page as pixels (poppler's pdftoppm) has far more ink than text alone gives.
+    const dir = path.join('test-results', 'cue-card');
+    mkdirSync(dir, { recursive: true });
+    writeFileSync(path.join(dir, 'cleared-cue-card.pdf'), pdf);
+    execFileSync('pdftoppm', ['-png', '-r', '60', '-f', '1', '-l', '1', path.join(dir, 'cleared-cue-card.pdf'), path.join(dir, 'cleared-cue-card')]);
+    expect(readdirSync(dir).some((f) => /^cleared-cue-card-0*1\.png$/.test(f))).toBe(true);
+    const v = await loadVersionDetail(t.ctx.db, admin, cleared);
+    const [profile] = await t.ctx.db.select({ body: profileVersions.body }).from(profileVersions).where(eq(profileVersions.id, v.profileVersionId));
+    const card = cueCardContent(v, { callSign: null }, v.engineVersion!, bodySchema.parse(profile.body));
+    expect(card.pictograms).toHaveLength(card.steps.length);
+    // A moving step is drawn at both ends of its swing; the attitude plot ends where the verified run ends.
+    expect(card.pictograms!.some((p) => p.poses.length === 2)).toBe(true);
+    expect(card.attitude!.yaw.at(-1)).toBeCloseTo(v.report!.series.yawDeg.at(-1)!, 12);
   });
 
   it('gives a planner the card too, and 409 not_cleared for a drafting version', async () => {
