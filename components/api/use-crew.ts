@@ -1,7 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { CreateCrewMemberInput, CrewMemberView, SaveProfileInput } from '@/shared/contracts/crew';
-import type { ProfileComparison, ProfileVersionHeader, ProfileVersionView } from '@/shared/contracts/profile-version';
+import type { ProfileComparison, ProfileVersionHeader, ProfileVersionView, SaveProfileResponse } from '@/shared/contracts/profile-version';
 import { apiFetch, apiUrl } from './client';
 
 /** Query keys of the Crew area. */
@@ -71,8 +71,12 @@ export function useCreateCrewMemberMutation() {
 export function useSaveProfileMutation(id: string) {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: SaveProfileInput) => apiFetch<{ version: ProfileVersionView }>(`/crew/${encodeURIComponent(id)}/versions`, { method: 'POST', body: input }),
-    onSuccess: () => void qc.invalidateQueries({ queryKey: crewKeys.all }),
+    mutationFn: (input: SaveProfileInput) => apiFetch<SaveProfileResponse>(`/crew/${encodeURIComponent(id)}/versions`, { method: 'POST', body: input }),
+    onSuccess: () => {
+      void qc.invalidateQueries({ queryKey: crewKeys.all });
+      // Its maneuvers may have gone stale: their lists and versions change with the save.
+      void qc.invalidateQueries({ queryKey: ['sequences'] });
+    },
   });
 }
 

@@ -16,6 +16,8 @@ import { MemberArchive } from './MemberArchive';
 import { ProfileEditor } from './ProfileEditor';
 import { ProfileOverview } from './ProfileOverview';
 import { ReverificationProgressCard } from './ReverificationProgressCard';
+import { StaleAfterSave } from './StaleAfterSave';
+import type { StaleVersion } from '@/shared/contracts/profile-version';
 import { VersionHistory } from './VersionHistory';
 
 /** The sections of a member page. */
@@ -35,6 +37,8 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
   const q = useCrewMemberQuery(crewMemberId);
   // Bumped by "load the newest version" after a 409; a background refresh alone never restarts the editor.
   const [editorRound, setEditorRound] = useState(0);
+  // What the last save made stale, shown until the next save or until dismissed.
+  const [lastSave, setLastSave] = useState<{ version: number; stale: StaleVersion[] } | null>(null);
   if (q.isPending) return <LoadingState label="Loading the profile…" />;
   if (q.isError) {
     // A stale or mistyped link: retrying cannot help, so say what is missing instead.
@@ -67,6 +71,7 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
       <ReverificationProgressCard crewMemberId={member.id} canStop={canEdit} />
       {canEdit ? <MemberArchive member={member} /> : null}
       <SegmentedControl label="Member section" hideLabel options={views} value={shown} onChange={onView} />
+      {lastSave ? <StaleAfterSave version={lastSave.version} stale={lastSave.stale} onDismiss={() => setLastSave(null)} /> : null}
 
       {shown === 'profile' && current ? (
         <>
@@ -88,7 +93,10 @@ export function MemberDetail({ crewMemberId, view, onView, canEdit }: MemberDeta
           key={`${member.id}-${editorRound}`}
           crewMemberId={member.id}
           current={current}
-          onSaved={() => onView('profile')}
+          onSaved={(version, stale) => {
+            setLastSave({ version, stale });
+            onView('profile');
+          }}
           onCancel={() => onView('profile')}
           onReload={() => void q.refetch().then(() => setEditorRound((n) => n + 1))}
         />

@@ -15,7 +15,7 @@ import { LoadingState } from '@/components/ui/LoadingState';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
-import type { ProfileVersionView } from '@/shared/contracts/profile-version';
+import type { ProfileVersionView, StaleVersion } from '@/shared/contracts/profile-version';
 import type { SuitView } from '@/shared/contracts/crew';
 import { GearFields } from './GearFields';
 import { NumberField } from './NumberField';
@@ -26,7 +26,8 @@ export interface ProfileEditorProps {
   crewMemberId: string;
   /** The version the editor starts from (null: the member has none yet). Saved with `baseVersion`. */
   current: ProfileVersionView | null;
-  onSaved: (version: number) => void;
+  /** After a save: the new version number and the maneuver versions it made stale. */
+  onSaved: (version: number, staleVersions: StaleVersion[]) => void;
   onCancel: () => void;
   /** Reloads the member after a 409, so the editor restarts from the newest version. */
   onReload: () => void;
@@ -68,7 +69,7 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
     save.mutate(
       { baseVersion, ...values },
       {
-        onSuccess: ({ version }) => onSaved(version.version),
+        onSuccess: ({ version, staleVersions }) => onSaved(version.version, staleVersions),
         onError: (err) => {
           if (err instanceof ApiError && err.field?.startsWith('inputs.')) {
             setError(err.field as 'inputs.stature', { type: 'server', message: err.message.replace(/^[\w.]+: /, '') }, { shouldFocus: true });

@@ -4,11 +4,12 @@ import { colors, radii, spacing } from '@/components/theme';
 import { Icon, type IconName } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import type { VersionDetail } from '@/shared/contracts/maneuver';
+import { recheckMessage } from '@/shared/product/recheck-status';
 import type { CheckFailure } from '@/shared/product/version-checks';
 import { CueCardButton } from './CueCardButton';
 import { FailureList } from './submit/SubmitForReview';
 import { useVersionChecks } from './submit/use-version-checks';
-import { fmtDeg, fmtWhen } from './report/format';
+import { fmtWhen } from './report/format';
 
 /** Props of {@link VersionStatusNotice}. */
 export interface VersionStatusNoticeProps {
@@ -44,6 +45,10 @@ export function VersionStatusNotice({ version: v, forReviewer = false }: Version
     case 'under_review':
       icon = 'clock';
       color = colors.accent;
+      if (v.recheckOfId) {
+        text = `Automatic re-check after a profile change: the steps of a cleared version, re-verified on profile v${v.profileVersion}. The crew member cannot rehearse the maneuver until a reviewer re-clears it or sends it back.`;
+        break;
+      }
       text = `Submitted ${fmtWhen(v.submittedAt)}; waiting for a reviewer.${forReviewer ? '' : ' Saving changes makes a new version.'}`;
       if (v.acknowledgedFailures?.length) {
         color = colors.danger;
@@ -68,9 +73,7 @@ export function VersionStatusNotice({ version: v, forReviewer = false }: Version
     case 'recheck': {
       icon = 'alert-triangle';
       color = colors.danger;
-      const r = v.reverification;
-      const moved = r?.state === 'done' ? ` Recomputed on the new profile: the final attitude moved ${fmtDeg(r.attitudeShiftDeg ?? 0, 2)}, error to target now ${fmtDeg(r.targetErrorDeg ?? 0, 2)}.` : r ? ` Recomputation ${r.state === 'cancelled' ? 'stopped' : r.state}.` : '';
-      text = `The crew member's profile changed since this version was verified (it used v${v.profileVersion}).${moved} Save a new version to verify it on the current profile and submit it again.`;
+      text = `The crew member's profile changed since this version was verified (it used v${v.profileVersion}). ${v.recheck ? recheckMessage(v.recheck, 'staff') : ''}`;
       break;
     }
   }

@@ -8,6 +8,7 @@ import { Text } from '@/components/ui/Text';
 import { webPressState } from '@/components/ui/press-state';
 import type { RehearsableVersion } from '@/shared/contracts/rehearsal';
 import { shortEngineVersion } from '@/shared/product/engine-binding';
+import { recheckMessage } from '@/shared/product/recheck-status';
 
 /** Props of {@link RehearsableList}. */
 export interface RehearsableListProps {
@@ -44,7 +45,7 @@ export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
                   {v.clearedAt ? ` · cleared ${formatDate(v.clearedAt)}` : ''}
                 </Text>
               </View>
-              {stale ? <Badge label="Re-check needed" tone="danger" icon="alert-triangle" /> : <Icon name="play-circle" size={26} color={colors.accent} />}
+              {stale ? <Badge label={v.recheck?.successor?.status === 'under_review' ? 'With the reviewer' : 'Re-check needed'} tone="danger" icon="alert-triangle" /> : <Icon name="play-circle" size={26} color={colors.accent} />}
             </View>
             <View style={styles.facts}>
               <Fact label="Target" value={v.targetLabel} />
@@ -63,8 +64,8 @@ export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
                 : 'Not rehearsed yet'}
             </Text>
             {stale ? (
-              <Text variant="caption" tone="danger">
-                The inertia profile behind this maneuver changed. It is being re-verified and can be rehearsed again once it is cleared.
+              <Text variant="caption" tone="danger" testID="recheck-message">
+                {v.recheck ? recheckMessage(v.recheck) : 'Your profile changed since this maneuver was cleared; it cannot be rehearsed until a reviewer clears it again.'}
               </Text>
             ) : null}
           </Pressable>

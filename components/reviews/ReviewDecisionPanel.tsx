@@ -73,7 +73,7 @@ export function ReviewDecisionPanel({ version, onDecided }: ReviewDecisionPanelP
       <ErrorBanner title="Not recorded" error={decide.error ?? addComment.error} />
       <TextField label="Comment" value={comment} onChangeText={setComment} multiline numberOfLines={3} error={commentError} placeholder="What you checked, or what must change" />
       <View style={styles.buttons}>
-        {allowed.decide ? <Button label="Clear version" icon="check-circle" loading={decide.isPending && decide.variables?.request.decision === 'clear'} disabled={busy} onPress={() => setConfirmClear(true)} testID="review-clear" /> : null}
+        {allowed.decide ? <Button label={version.recheckOfId ? 'Re-clear version' : 'Clear version'} icon="check-circle" loading={decide.isPending && decide.variables?.request.decision === 'clear'} disabled={busy} onPress={() => setConfirmClear(true)} testID="review-clear" /> : null}
         {allowed.decide ? <Button label="Send back" icon="corner-up-left" variant="danger" disabled={busy} onPress={() => send('send_back')} testID="review-send-back" /> : null}
         {allowed.comment ? (
           <Button
@@ -89,11 +89,11 @@ export function ReviewDecisionPanel({ version, onDecided }: ReviewDecisionPanelP
       <Sheet
         visible={confirmClear}
         onClose={() => setConfirmClear(false)}
-        title={`Clear version ${version.version}?`}
+        title={`${version.recheckOfId ? 'Re-clear' : 'Clear'} version ${version.version}?`}
         footer={
           <View style={styles.footer}>
             <Button label="Cancel" variant="ghost" onPress={() => setConfirmClear(false)} />
-            <Button label={`Clear version ${version.version}`} icon="check-circle" loading={decide.isPending} onPress={() => send('clear')} testID="review-clear-confirm" />
+            <Button label={`${version.recheckOfId ? 'Re-clear' : 'Clear'} version ${version.version}`} icon="check-circle" loading={decide.isPending} onPress={() => send('clear')} testID="review-clear-confirm" />
           </View>
         }
       >

@@ -15,6 +15,7 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
 import { ReviewDecisionPanel } from './ReviewDecisionPanel';
+import { RecheckChanges } from './RecheckChanges';
 import { ReviewHistory } from './ReviewHistory';
 
 /** Props of {@link ReviewDetail}. */
@@ -50,13 +51,14 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
           {v.sequence.crewMemberName} · target {targetText(v.target)}
         </Text>
         <Text variant="caption" tone="muted">
-          By {v.authorName ?? 'unknown'} · saved {fmtWhen(v.createdAt)}
+          By {v.authorName ?? (v.recheckOfId ? 'the automatic re-check' : 'unknown')} · saved {fmtWhen(v.createdAt)}
           {v.submittedAt ? ` · submitted ${fmtWhen(v.submittedAt)}` : ''} · profile v{v.profileVersion}
           {v.profileIsCurrent ? '' : ' (no longer current)'}
         </Text>
         {v.note ? <Text variant="caption">“{v.note}”</Text> : null}
       </View>
       <VersionStatusNotice version={v} forReviewer />
+      {v.recheckOfId ? <RecheckChanges version={v} /> : null}
       {wide ? panel : null}
       <Text variant="heading" role="heading" aria-level={2}>
         Steps

@@ -72,8 +72,13 @@ function QueueRow({ item, selected, onOpen }: { item: ReviewQueueItem; selected:
         {s.name} · v{v.version}
       </Text>
       <Text variant="caption" tone="muted">
-        {s.crewMemberName} · by {v.authorName ?? 'unknown'} · submitted {fmtWhen(v.submittedAt)}
+        {s.crewMemberName} · by {v.authorName ?? (v.recheckOfId ? 'the automatic re-check' : 'unknown')} · submitted {fmtWhen(v.submittedAt)}
       </Text>
+      {v.recheckOfId ? (
+        <Text variant="caption" tone="accent" testID="queue-recheck">
+          Re-check after a profile change: decide again on a cleared maneuver (profile v{v.profileVersion})
+        </Text>
+      ) : null}
       <Text variant="caption" tone={v.summary?.withinTolerance === false ? 'danger' : 'default'}>
         {summaryLine(v)}
       </Text>

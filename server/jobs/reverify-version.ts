@@ -1,7 +1,8 @@
 /**
  * The re-verification job: recomputes one sequence version's compiled steps on a newer profile
  * version's body and records how far the final attitude moved (`attitudeShiftDeg`) in
- * `reverifications`. The version itself is frozen (it may be cleared); only the record changes.
+ * `reverifications`. The version itself is frozen (it may be cleared); only the record changes, and a
+ * once-cleared version gets its re-check version for the reviewer (server/maneuvers/recheck-version.ts).
  * Throws on failure so the queue retries; the last attempt marks the record `failed`. A record
  * cancelled meanwhile (Team → Jobs) keeps `cancelled`.
  */
@@ -13,6 +14,7 @@ import { sequenceSchema } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
+import { afterRecheckSaved, saveRecheckVersion } from '../maneuvers/recheck-version.ts';
 import { storedCompiled } from '../maneuvers/stored-compiled.ts';
 import { verifySequence } from '../maneuvers/verify-sequence.ts';
 
@@ -66,17 +68,20 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
       ? quatAngleBetween([old.final.attitude.w, old.final.attitude.x, old.final.attitude.y, old.final.attitude.z],
         [report.final.attitude.w, report.final.attitude.x, report.final.attitude.y, report.final.attitude.z]) * DEG
       : null;
-    await db.transaction(async (tx) => {
+    const saved = await db.transaction(async (tx) => {
       // Only while still open: a retried or duplicated job stores one result.
       const stored = await tx.update(reverifications)
         .set({ state: 'done', attitudeShiftDeg: shift, report, finishedAt: new Date(), error: null })
         .where(and(eq(reverifications.id, record.id), notIn(['done', 'cancelled']))).returning({ id: reverifications.id });
-      if (!stored.length) return;
+      if (!stored.length) return null;
       await recordAudit(tx, {
         actorId: null, action: 'sequence_version.reverified', objectType: 'sequence_version', objectId: v.v.id,
         detail: { toProfileVersionId: profile.id, attitudeShiftDeg: shift, targetErrorDeg: report.target.errorDeg },
       });
+      // A once-cleared version gets its successor for the reviewer in the same commit as the result.
+      return saveRecheckVersion(tx, { stale: v.v, profile, report, reverificationId: record.id, attitudeShiftDeg: shift });
     });
+    if (saved) await afterRecheckSaved(ctx, saved, shift);
   } catch (err) {
     const message = err instanceof Error ? err.message : String(err);
     const last = opts.attempt >= opts.retryLimit;

@@ -43,3 +43,22 @@ export function decisionMail(a: { to: string; authorName: string; reviewerName: 
     ].join('\n'),
   };
 }
+
+/** Tells a reviewer an automatic re-check version waits for their decision. */
+export function recheckMail(a: { to: string; reviewerName: string; sequenceName: string; version: number; crewMemberName: string; attitudeShiftDeg: number | null; versionId: string; baseUrl: string }): ReviewMail {
+  const link = `${a.baseUrl}${CLIENT_ROUTES.review(a.versionId)}`;
+  const moved = a.attitudeShiftDeg === null ? '' : ` The final attitude moved ${a.attitudeShiftDeg.toFixed(2)}°.`;
+  return {
+    to: a.to,
+    subject: `Re-check: ${a.sequenceName} v${a.version} (${a.crewMemberName})`,
+    text: [
+      `Hello ${a.reviewerName},`,
+      '',
+      `${a.crewMemberName}'s inertia profile changed, so the cleared maneuver "${a.sequenceName}" was re-verified on the new profile and saved as version ${a.version}.${moved}`,
+      `${a.crewMemberName} cannot rehearse it until a reviewer clears it again. See what changed and decide:`,
+      link,
+      '',
+      'Holonaut is a planning and training aid; flight rules and certified procedures take precedence.',
+    ].join('\n'),
+  };
+}

@@ -87,28 +87,18 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
   const stored: StoredCompiled = { sequence: compiled.sequence as StoredCompiled['sequence'], cues: stepCues(input.primitives, compiled.stepMap), stepMap: compiled.stepMap };
 
   return db.transaction(async (tx) => {
-    // Serialise saves of one sequence on its row, then re-check the base version.
-    const [locked] = await tx.select({ name: sequences.name, archivedAt: sequences.archivedAt }).from(sequences).where(eq(sequences.id, sequenceId)).for('update');
-    assertNotArchived(locked);
-    const latest = await latestNow(tx);
-    staleCheck(latest);
-    const [row] = await tx.insert(sequenceVersions).values({
-      sequenceId, version: latest + 1, primitives: input.primitives, target, compiled: stored, profileVersionId: profile.id,
-      status: 'drafting', report, engineVersion: report.engineVersion, inputsHash: report.inputsHash, authorId: user.id, note: input.note,
-    }).returning();
+    const row = await appendVersion(tx, sequenceId, user.id, (latest, locked) => {
+      // Serialised on the sequence row: re-check archiving and the base version under the lock.
+      assertNotArchived(locked);
+      staleCheck(latest);
+      return {
+        primitives: input.primitives, target, compiled: stored, profileVersionId: profile.id,
+        status: 'drafting', report, engineVersion: report.engineVersion, inputsHash: report.inputsHash, authorId: user.id, note: input.note,
+      };
+    });
     // A new target becomes the default for the next version.
     if (input.target && JSON.stringify(input.target) !== JSON.stringify(readTarget(seq.target))) {
       await tx.update(sequences).set({ target: input.target }).where(eq(sequences.id, sequenceId));
-    }
-    // Older versions the save supersedes (a once-cleared recheck version stays until its successor is cleared).
-    const older = await tx.select().from(sequenceVersions).where(and(
-      eq(sequenceVersions.sequenceId, sequenceId), lt(sequenceVersions.version, row.version),
-      inArray(sequenceVersions.status, statusesAllowing('supersede_by_save')),
-      or(ne(sequenceVersions.status, 'recheck'), isNull(sequenceVersions.clearedAt)),
-    ));
-    for (const o of older) {
-      await moveVersion(tx, o, 'supersede_by_save');
-      await recordAudit(tx, { actorId: user.id, action: 'sequence_version.replace', objectType: 'sequence_version', objectId: o.id, detail: { from: o.status, byVersion: row.version } });
     }
     await recordAudit(tx, {
       actorId: user.id, action: 'sequence_version.save', objectType: 'sequence_version', objectId: row.id,
@@ -116,6 +106,33 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
     });
     return row.id;
   });
+}
+
+/** The content of a new version (its sequence and number are appendVersion's). */
+export type NewVersionValues = Omit<typeof sequenceVersions.$inferInsert, 'sequenceId' | 'version'>;
+
+/**
+ * Inside `tx`: locks the sequence row (saves of one sequence serialise), inserts version latest + 1
+ * with the values `make` returns for that latest number and the locked row (it may throw: a stale
+ * editor, an archived maneuver), and
+ * replaces the older versions a save supersedes — a once-cleared recheck version stays until its
+ * successor is cleared. Used by a planner's save and by the re-check's automatic save.
+ */
+export async function appendVersion(tx: Tx, sequenceId: string, actorId: string | null, make: (latest: number, locked: { name: string; archivedAt: Date | null }) => NewVersionValues): Promise<SequenceVersionRow> {
+  const [locked] = await tx.select({ name: sequences.name, archivedAt: sequences.archivedAt }).from(sequences).where(eq(sequences.id, sequenceId)).for('update');
+  if (!locked) throw notFound('Sequence');
+  const latest = (await tx.select({ n: max(sequenceVersions.version) }).from(sequenceVersions).where(eq(sequenceVersions.sequenceId, sequenceId)))[0]?.n ?? 0;
+  const [row] = await tx.insert(sequenceVersions).values({ ...make(latest, locked), sequenceId, version: latest + 1 }).returning();
+  const older = await tx.select().from(sequenceVersions).where(and(
+    eq(sequenceVersions.sequenceId, sequenceId), lt(sequenceVersions.version, row.version),
+    inArray(sequenceVersions.status, statusesAllowing('supersede_by_save')),
+    or(ne(sequenceVersions.status, 'recheck'), isNull(sequenceVersions.clearedAt)),
+  ));
+  for (const o of older) {
+    await moveVersion(tx, o, 'supersede_by_save');
+    await recordAudit(tx, { actorId, action: 'sequence_version.replace', objectType: 'sequence_version', objectId: o.id, detail: { from: o.status, byVersion: row.version } });
+  }
+  return row;
 }
 
 /** Loads a version with its sequence and crew member; 404 when missing. */

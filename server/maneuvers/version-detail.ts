@@ -7,7 +7,9 @@ import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { primitiveListSchema } from '../../shared/primitives/primitive-schemas.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import type { RecheckInfo } from '../../shared/product/recheck-status.ts';
 import { notFound } from '../http/http-error.ts';
+import { recheckInfos } from './recheck-info.ts';
 import { assertVersionVisible, canAuthor, canReview } from './maneuver-access.ts';
 import { transition } from './status-machine.ts';
 import { storedCompiled } from './stored-compiled.ts';
@@ -19,11 +21,12 @@ export async function loadVersionDetail(db: Database, user: SessionUser, version
   if (!row) throw notFound('Sequence version');
   assertVersionVisible(user, { crewMemberId: row.crewMemberId, status: row.v.status, clearedAt: row.v.clearedAt, archived: row.sequence.archivedAt !== null });
   // The content (steps, report) and the histories, read side by side once the version is visible.
-  const [[content], revs, reviews] = await Promise.all([
+  const [[content], revs, reviews, rechecks] = await Promise.all([
     db.select({ primitives: sequenceVersions.primitives, compiled: sequenceVersions.compiled, report: sequenceVersions.report })
       .from(sequenceVersions).where(eq(sequenceVersions.id, versionId)),
     selectReverifications(db, [row.v.id]),
     reviewEntries(db, row.v.id),
+    row.v.status === 'recheck' ? recheckInfos(db, [row.v]) : Promise.resolve(new Map<string, RecheckInfo>()),
   ]);
   const primitives = primitiveListSchema.parse(content.primitives);
   const compiled = storedCompiled(content.compiled);
@@ -43,5 +46,6 @@ export async function loadVersionDetail(db: Database, user: SessionUser, version
       decide: canReview(user) && !isAuthor && transition(row.v.status, 'clear') !== null,
       comment: canReview(user),
     },
+    recheck: rechecks.get(row.v.id) ?? null,
   };
 }

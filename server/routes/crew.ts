@@ -22,7 +22,8 @@ import { conflict } from '../http/http-error.ts';
 import { ReadCache, sendCachedJson } from '../http/read-cache.ts';
 import { validate } from '../http/validate.ts';
 import { cancelReverifications, reverificationProgress } from '../jobs/reverification-progress.ts';
-import { sendRecheckJobs } from '../maneuvers/flag-recheck.ts';
+import { sendRecheckJobs, staleVersionsOf } from '../maneuvers/flag-recheck.ts';
+import type { SaveProfileResponse } from '../../shared/contracts/profile-version.ts';
 
 const idParams = z.object({ id: z.string().uuid('Not a valid crew member id.') });
 const versionParams = idParams.extend({ version: z.coerce.number().int('Not a version number.').min(1, 'Versions start at 1.') });
@@ -112,7 +113,8 @@ export function crewRouter(ctx: AppContext): Router {
       return out;
     });
     await sendRecheckJobs(ctx, [flagged]);
-    res.status(201).json({ version: profileVersionView(row, me.name, row.version) });
+    const out: SaveProfileResponse = { version: profileVersionView(row, me.name, row.version), staleVersions: await staleVersionsOf(db, [flagged]) };
+    res.status(201).json(out);
   });
 
   router.get('/:id/versions/:version', validate({ params: versionParams }), async (req, res) => {

@@ -12,6 +12,7 @@ import { badRequest, forbidden } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
 import { compiledDuration, stepListCount } from '../motion/compiled-sequence.ts';
 import { targetLabel } from '../motion/target-attitude.ts';
+import { recheckInfos } from '../maneuvers/recheck-info.ts';
 import { loadVersionFor } from '../motion/version-access.ts';
 import { mountRehearsalCaptures } from './rehearsal-captures.ts';
 
@@ -74,9 +75,10 @@ export function rehearsalsRouter(ctx: AppContext): Router {
           me.role === 'trainee' ? eq(rehearsals.traineeId, me.id) : undefined,
         ))
       : [];
-    const versions: RehearsableVersion[] = rows
-      // Re-check versions show when they had been cleared (or were rehearsed), so the notice explains why they went away.
-      .filter(({ v }) => v.status === 'cleared' || v.clearedAt !== null || mine.some((m) => m.r.sequenceVersionId === v.id))
+    // Re-check versions show when they had been cleared (or were rehearsed), so the notice explains why they went away.
+    const shown = rows.filter(({ v }) => v.status === 'cleared' || v.clearedAt !== null || mine.some((m) => m.r.sequenceVersionId === v.id));
+    const rechecks = await recheckInfos(db, shown.filter(({ v }) => v.status === 'recheck').map(({ v }) => v));
+    const versions: RehearsableVersion[] = shown
       .map(({ v, s, crewName }) => {
         const runs = mine.filter((m) => m.r.sequenceVersionId === v.id);
         const last = runs[0]?.r;
@@ -88,6 +90,7 @@ export function rehearsalsRouter(ctx: AppContext): Router {
           clearedAt: v.clearedAt?.toISOString() ?? null,
           lastRehearsal: last ? { performedAt: last.performedAt.toISOString(), selfRating: last.selfRating, completedSteps: last.completedSteps, totalSteps: last.totalSteps } : null,
           rehearsalCount: runs.length,
+          recheck: rechecks.get(v.id) ?? null,
         };
       });
     res.json({ versions });

@@ -13,7 +13,7 @@ import { getVersion } from '../crew/crew-queries.ts';
 import { summarizeBody } from '../crew/profile-summary.ts';
 import { HttpError, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
-import { type FlaggedVersions, sendRecheckJobs } from '../maneuvers/flag-recheck.ts';
+import { type FlaggedVersions, sendRecheckJobs, staleVersionsOf } from '../maneuvers/flag-recheck.ts';
 import { planMeasurementImport } from '../uploads/measurement-rows.ts';
 import { receiveFile } from '../uploads/receive-file.ts';
 import { recordRejectedUpload, rejectUpload } from '../uploads/reject-upload.ts';
@@ -99,7 +99,7 @@ export function uploadsRouter(ctx: AppContext): Router {
       throw err;
     }
     await sendRecheckJobs(ctx, result.evs);
-    const body: UploadResult = { upload: uploadView(result.upload), imported: result.out };
+    const body: UploadResult = { upload: uploadView(result.upload), imported: result.out, staleVersions: await staleVersionsOf(db, result.evs) };
     res.status(201).json(body);
   });
 
@@ -140,7 +140,7 @@ export function uploadsRouter(ctx: AppContext): Router {
     }
     await sendRecheckJobs(ctx, [result.appended.flagged]);
     const imported: ImportedRowResult[] = [{ row: 0, crewMemberId: member.id, name: member.name, action: 'updated', version: result.appended.row.version }];
-    res.status(201).json({ upload: uploadView(result.upload), imported } satisfies UploadResult);
+    res.status(201).json({ upload: uploadView(result.upload), imported, staleVersions: await staleVersionsOf(db, [result.appended.flagged]) } satisfies UploadResult);
   });
 
   return router;

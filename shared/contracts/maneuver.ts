@@ -32,6 +32,7 @@
 import { z } from 'zod';
 
 import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
+import type { RecheckInfo } from '../product/recheck-status.ts';
 import { CHECK_NAMES } from '../product/version-checks.ts';
 import { attitudeSchema, rangeViolationSchema } from './result.ts';
 import { versionStatusSchema } from './version-status.ts';
@@ -259,6 +260,17 @@ export const reverificationSchema = z.object({
 });
 export type Reverification = z.infer<typeof reverificationSchema>;
 
+/** What a stale version's re-check waits for (shared/product/recheck-status.ts RecheckInfo). */
+export const recheckInfoSchema = z.object({
+  staleSince: isoTime.nullable(),
+  reverification: z.object({
+    state: z.enum(['queued', 'running', 'done', 'failed', 'cancelled']),
+    attitudeShiftDeg: z.number().nullable(),
+    error: z.string().nullable(),
+  }).nullable(),
+  successor: z.object({ version: z.number().int(), status: versionStatusSchema, automatic: z.boolean() }).nullable(),
+}) satisfies z.ZodType<RecheckInfo>;
+
 /** One version in lists. */
 export const versionSummarySchema = z.object({
   id: z.uuid(),
@@ -336,6 +348,8 @@ export const versionDetailSchema = versionSummarySchema.extend({
   reverifications: z.array(reverificationSchema),
   /** Actions the caller may take now. */
   allowed: z.object({ submit: z.boolean(), decide: z.boolean(), comment: z.boolean() }),
+  /** A `recheck` version: what its re-check waits for now (shared/product/recheck-status.ts); null otherwise. */
+  recheck: recheckInfoSchema.nullable(),
 });
 export type VersionDetail = z.infer<typeof versionDetailSchema>;
 

@@ -100,3 +100,25 @@ export interface ProfileComparison {
   /** Number of changed rows over all three groups. */
   changedCount: number;
 }
+
+/**
+ * A sequence version that a profile save made stale (DECISIONS.md "Re-check creates the next
+ * version"): listed in the save's response so the planner sees at once what must be re-checked.
+ */
+export interface StaleVersion {
+  versionId: string;
+  sequenceId: string;
+  sequenceName: string;
+  version: number;
+  /** What it was before the save: `cleared` (trainees rehearsed it) or `under_review`; `recheck` when it was already waiting. */
+  was: 'cleared' | 'under_review' | 'recheck';
+  /** True when it had been cleared: the re-verification saves its re-check version for the reviewer. */
+  onceCleared: boolean;
+}
+
+/** Response of POST /api/crew/:id/versions. */
+export interface SaveProfileResponse {
+  version: ProfileVersionView;
+  /** Versions flagged for a re-check by this save, by maneuver name (empty when none). */
+  staleVersions: StaleVersion[];
+}

@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 
+import type { RecheckInfo } from '../product/recheck-status.ts';
 import type { VersionStatus } from './version-status.ts';
 
 import { PLAYBACK_SPEED_RANGE, PLAYBACK_SPEEDS } from './playback-speeds.ts';
@@ -83,4 +84,6 @@ export interface RehearsableVersion {
   lastRehearsal: { performedAt: string; selfRating: number; completedSteps: number; totalSteps: number } | null;
   /** Number of logged rehearsals of this version by this trainee. */
   rehearsalCount: number;
+  /** A `recheck` version: what its re-check waits for (message: shared/product/recheck-status.ts); null otherwise. */
+  recheck: RecheckInfo | null;
 }

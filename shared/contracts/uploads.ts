@@ -1,4 +1,5 @@
 import type { SegmentLengthKey } from './profile-inputs.ts';
+import type { StaleVersion } from './profile-version.ts';
 
 /** Largest accepted upload, bytes (1 MiB): a measurement table for a whole crew is a few KB. */
 export const UPLOAD_MAX_BYTES = 1024 * 1024;
@@ -47,6 +48,8 @@ export interface ImportedRowResult {
 export interface UploadResult {
   upload: UploadView;
   imported: ImportedRowResult[];
+  /** Versions the imported profiles made stale (present for imports that save profiles). */
+  staleVersions?: StaleVersion[];
 }
 
 /**
