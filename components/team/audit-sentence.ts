@@ -30,6 +30,7 @@ const TEMPLATES: Record<string, string> = {
   'sequence_version.send_back': 'sent back {o}',
   'sequence_version.recheck': 'flagged {o} for a re-check',
   'sequence_version.reverified': 're-verified {o}',
+  'sequence_version.recheck_saved': 'saved {o} as a re-check for the reviewer',
   'sequence_version.replace': 'replaced {o}',
   'upload.import': 'imported {o}',
   'upload.reject': 'uploaded {o}; nothing was imported',
