@@ -8,6 +8,7 @@ import type {
   CreateSequenceRequest,
   SaveVersionRequest,
   SequenceDetail,
+  SequenceListItem,
   SequenceSummary,
   SubmitRequest,
   UpdateSequenceRequest,
@@ -32,7 +33,7 @@ export function useSequencesQuery(crewMemberId?: string, archived = false) {
   return useQuery({
     queryKey: sequenceKeys.list(crewMemberId, archived),
     queryFn: async ({ signal }) =>
-      (await apiFetch<{ sequences: SequenceSummary[] }>('/sequences', { query: { crewMemberId, archived: archived ? 'true' : undefined }, signal })).sequences,
+      (await apiFetch<{ sequences: SequenceListItem[] }>('/sequences', { query: { crewMemberId, archived: archived ? 'true' : undefined }, signal })).sequences,
   });
 }
 

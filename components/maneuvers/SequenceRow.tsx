@@ -3,14 +3,14 @@ import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
 import { colors, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Text } from '@/components/ui/Text';
-import type { SequenceSummary } from '@/shared/contracts/maneuver';
+import type { SequenceListItem } from '@/shared/contracts/maneuver';
 import { targetText } from './target-text';
 import { VersionStatusBadge } from './VersionStatusBadge';
 import { summaryLine } from './versions/VersionList';
 
 /** Props of {@link SequenceRow}. */
 export interface SequenceRowProps {
-  sequence: SequenceSummary;
+  sequence: SequenceListItem;
   onOpen: () => void;
 }
 

@@ -7,7 +7,7 @@ import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, reverifications, reviews, sequences, sequenceVersions, users, type ReverificationRow, type SequenceVersionRow } from '../../db/schema/index.ts';
-import type { Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionSummary } from '../../shared/contracts/maneuver.ts';
+import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 
 const author = alias(users, 'author');
@@ -148,34 +148,49 @@ export async function sequenceHeads(db: Database, where: SQL | undefined): Promi
 export interface SequenceListRow {
   head: SequenceHead;
   versionCount: number;
-  latestId: string | null;
-  clearedId: string | null;
+  latest: VersionBrief | null;
+  cleared: VersionBrief | null;
+}
+
+/** The list's brief of a version from its lateral look-up (null: none). */
+function toBrief(v: { id: string | null; version: number | null; status: string | null; summary: unknown }): VersionBrief | null {
+  if (!v.id || v.version === null || !v.status) return null;
+  const s = v.summary as ReportSummary | null;
+  return {
+    id: v.id, version: v.version, status: v.status as VersionBrief['status'],
+    summary: s ? { durationS: s.durationS, targetErrorDeg: s.targetErrorDeg, withinTolerance: s.withinTolerance, rangeViolationCount: s.rangeViolationCount } : null,
+  };
 }
 
 /**
- * Sequence heads matching `where`, by name, each with its visible version count, newest visible
- * version id and rehearsable version id (newest cleared, or a once-cleared recheck one), in one
- * query (index-backed lateral look-ups, whatever the number of versions).
+ * Sequence heads matching `where`, by name, each with its visible version count and briefs of the
+ * newest visible version and of the rehearsable one (newest cleared, or a once-cleared recheck
+ * one), in one query (index-backed lateral look-ups, whatever the number of versions).
  */
 export async function sequenceListRows(db: Database, where: SQL | undefined, visible: SQL | undefined): Promise<SequenceListRow[]> {
   const ofSequence = eq(sequenceVersions.sequenceId, sequences.id);
-  const latest = db.select({ id: sequenceVersions.id }).from(sequenceVersions)
+  const brief = { id: sequenceVersions.id, version: sequenceVersions.version, status: sequenceVersions.status, summary: sequenceVersions.reportSummary };
+  const latest = db.select(brief).from(sequenceVersions)
     .where(allOf(ofSequence, visible)).orderBy(desc(sequenceVersions.version)).limit(1).as('latest');
-  const cleared = db.select({ id: sequenceVersions.id }).from(sequenceVersions)
+  const cleared = db.select(brief).from(sequenceVersions)
     .where(allOf(ofSequence, visible, or(eq(sequenceVersions.status, 'cleared'), and(eq(sequenceVersions.status, 'recheck'), isNotNull(sequenceVersions.clearedAt)))))
     .orderBy(desc(sequenceVersions.version)).limit(1).as('cleared');
   const count = sql<number>`(SELECT count(*)::int FROM ${sequenceVersions} WHERE ${allOf(ofSequence, visible)})`;
   const rows = await db
-    .select({ s: sequences, crewMemberName: crewMembers.name, versionCount: count, latestId: latest.id, clearedId: cleared.id })
+    .select({
+      s: sequences, crewMemberName: crewMembers.name, versionCount: count,
+      latest: { id: latest.id, version: latest.version, status: latest.status, summary: latest.summary },
+      cleared: { id: cleared.id, version: cleared.version, status: cleared.status, summary: cleared.summary },
+    })
     .from(sequences)
     .innerJoin(crewMembers, eq(crewMembers.id, sequences.crewMemberId))
     .leftJoinLateral(latest, sql`true`)
     .leftJoinLateral(cleared, sql`true`)
     .where(where)
     .orderBy(asc(sequences.name));
-  return rows.map(({ s, crewMemberName, versionCount, latestId, clearedId }) => ({
+  return rows.map(({ s, crewMemberName, versionCount, latest: l, cleared: c }) => ({
     head: { id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name, target: readTarget(s.target), createdAt: s.createdAt.toISOString(), archivedAt: s.archivedAt?.toISOString() ?? null },
-    versionCount, latestId, clearedId,
+    versionCount, latest: l ? toBrief(l) : null, cleared: c ? toBrief(c) : null,
   }));
 }
 

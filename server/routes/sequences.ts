@@ -10,7 +10,7 @@ import { z } from 'zod';
 import { crewMembers, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import {
   compileRequestSchema, createSequenceRequestSchema, saveVersionRequestSchema, submitRequestSchema, updateSequenceRequestSchema,
-  type CompileResponse, type SequenceDetail, type SequenceSummary, type VersionSummary,
+  type CompileResponse, type SequenceDetail, type SequenceListItem, type SequenceSummary, type VersionSummary,
 } from '../../shared/contracts/maneuver.ts';
 import { compilePrimitives, type DofInfo, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
@@ -68,23 +68,35 @@ export function sequencesRouter(ctx: AppContext): Router {
   const { db } = ctx;
   const reads = new ReadCache();
 
-  /**
-   * Sequence summaries matching a condition, by name: one query for the heads with their version
-   * count and the ids of the newest and the rehearsable version, one for those versions' summaries.
-   */
-  async function summaries(user: Express.Request['user'] & object, sequenceIds?: string[], crewMemberId?: string, archived?: boolean): Promise<SequenceSummary[]> {
-    const rows = await sequenceListRows(db, allOf(
+  /** The list's rows (heads, version counts, briefs of the newest and rehearsable versions) in one query, by name. */
+  function listRows(user: Express.Request['user'] & object, sequenceIds?: string[], crewMemberId?: string, archived?: boolean) {
+    return sequenceListRows(db, allOf(
       visibleSequences(user),
       crewMemberId ? eq(sequences.crewMemberId, crewMemberId) : undefined,
       archived === undefined ? undefined : archivedCondition(archived),
       sequenceIds ? inArray(sequences.id, sequenceIds) : undefined,
     ), visibleVersions(user));
-    const ids = [...new Set(rows.flatMap((r) => [r.latestId, r.clearedId]).filter((id): id is string => id !== null))];
+  }
+
+  /** GET /sequences: the lean list, one query (a trainee sees only sequences with something to rehearse). */
+  async function listItems(user: Express.Request['user'] & object, crewMemberId?: string, archived?: boolean): Promise<SequenceListItem[]> {
+    const rows = await listRows(user, undefined, crewMemberId, archived);
+    const out = rows.map((r) => ({ ...r.head, versionCount: r.versionCount, latest: r.latest, cleared: r.cleared }));
+    return user.role === 'trainee' ? out.filter((s) => s.versionCount > 0) : out;
+  }
+
+  /**
+   * Full sequence summaries (what creating or renaming one answers): the list's query, then one for
+   * the full summaries of its newest and rehearsable versions.
+   */
+  async function summaries(user: Express.Request['user'] & object, sequenceIds?: string[]): Promise<SequenceSummary[]> {
+    const rows = await listRows(user, sequenceIds);
+    const ids = [...new Set(rows.flatMap((r) => [r.latest?.id, r.cleared?.id]).filter((id) => id !== undefined))];
     const versions = ids.length ? (await versionSummaries(db, inArray(sequenceVersions.id, ids))).summaries : [];
     const byId = new Map(versions.map((v) => [v.id, v]));
     const out = rows.map((r) => ({
       ...r.head, versionCount: r.versionCount,
-      latest: (r.latestId && byId.get(r.latestId)) || null, cleared: (r.clearedId && byId.get(r.clearedId)) || null,
+      latest: (r.latest && byId.get(r.latest.id)) || null, cleared: (r.cleared && byId.get(r.cleared.id)) || null,
     }));
     // A trainee sees only sequences with something to rehearse.
     return user.role === 'trainee' ? out.filter((s) => s.versionCount > 0) : out;
@@ -101,7 +113,7 @@ export function sequencesRouter(ctx: AppContext): Router {
 
   router.get('/', validate({ query: listQuery }), async (req, res) => {
     const { crewMemberId, archived } = res.locals.query as z.infer<typeof listQuery>;
-    await sendCachedJson(reads, req, res, async () => ({ sequences: await summaries(req.user!, undefined, crewMemberId, archived) }));
+    await sendCachedJson(reads, req, res, async () => ({ sequences: await listItems(req.user!, crewMemberId, archived) }));
   });
 
   router.post('/', validate({ body: createSequenceRequestSchema }), async (req, res) => {

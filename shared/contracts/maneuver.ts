@@ -363,6 +363,29 @@ export const sequenceSummarySchema = sequenceHeadSchema.extend({
 });
 export type SequenceSummary = z.infer<typeof sequenceSummarySchema>;
 
+/** The headline figures maneuver lists show of a version's report. */
+export const reportBriefSchema = reportSummarySchema.pick({ durationS: true, targetErrorDeg: true, withinTolerance: true, rangeViolationCount: true });
+export type ReportBrief = z.infer<typeof reportBriefSchema>;
+
+/** A version as maneuver lists show it: which one, its status and headline figures (the rest on opening it). */
+export const versionBriefSchema = z.object({
+  id: z.uuid(),
+  version: z.number().int(),
+  status: versionStatusSchema,
+  summary: reportBriefSchema.nullable(),
+});
+export type VersionBrief = z.infer<typeof versionBriefSchema>;
+
+/** GET /sequences: a maneuver in the list (lean: the newest and the rehearsable version as briefs). */
+export const sequenceListItemSchema = sequenceHeadSchema.extend({
+  versionCount: z.number().int(),
+  /** The newest version the caller may see. */
+  latest: versionBriefSchema.nullable(),
+  /** The cleared (or recheck, once cleared) version trainees rehearse, if any. */
+  cleared: versionBriefSchema.nullable(),
+});
+export type SequenceListItem = z.infer<typeof sequenceListItemSchema>;
+
 /** GET /sequences/:sequenceId */
 export const sequenceDetailSchema = sequenceSummarySchema.extend({
   /** Versions the caller may see, newest first. */

@@ -1,14 +1,15 @@
 /**
  * Lean list reads: the report summary PostgreSQL computes for lists (generated column
- * `report_summary`, migration 0004) agrees with summarizeReport() on every seeded report, and the
- * sequence list gives each sequence its newest and rehearsable versions as the detail does.
+ * `report_summary`, migration 0004) agrees with summarizeReport() on every seeded report; the
+ * sequence list gives each sequence briefs of its newest and rehearsable versions that agree with the
+ * detail; and a cached read never outlives a write (server/http/read-cache.ts).
  */
-import { isNotNull } from 'drizzle-orm';
+import { eq, isNotNull } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { sequenceVersions } from '../../db/schema/index.ts';
+import { sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { summarizeReport } from '../../server/maneuvers/build-report.ts';
-import type { SequenceDetail, SequenceSummary, VerificationReport } from '../../shared/contracts/maneuver.ts';
+import { sequenceListItemSchema, type SequenceDetail, type SequenceListItem, type VerificationReport, type VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { PEOPLE, as } from './maneuver-api.ts';
 
@@ -35,17 +36,43 @@ describe('report summary column', () => {
   });
 });
 
+/** The list's brief of a full version summary. */
+function brief(v: VersionSummary | null) {
+  if (!v) return null;
+  const m = v.summary;
+  return {
+    id: v.id, version: v.version, status: v.status,
+    summary: m ? { durationS: m.durationS, targetErrorDeg: m.targetErrorDeg, withinTolerance: m.withinTolerance, rangeViolationCount: m.rangeViolationCount } : null,
+  };
+}
+
 describe('sequence list', () => {
-  it('gives every sequence the same count, newest and rehearsable version as its detail, for staff and a trainee', async () => {
+  it('gives every sequence the same count and briefs of the newest and rehearsable version as its detail, for staff and a trainee', async () => {
     for (const who of [PEOPLE.planner, PEOPLE.trainee]) {
-      const list = (await as(t, who).get('/sequences')).body.sequences as SequenceSummary[];
+      const list = (await as(t, who).get('/sequences')).body.sequences as SequenceListItem[];
       expect(list.length).toBeGreaterThan(0);
       for (const s of list) {
+        // Lean: nothing beyond the list contract (no full summaries, reports or samples).
+        expect(() => sequenceListItemSchema.strict().parse(s)).not.toThrow();
+        for (const v of [s.latest, s.cleared]) if (v) expect(Object.keys(v).sort()).toEqual(['id', 'status', 'summary', 'version']);
         const d = (await as(t, who).get(`/sequences/${s.id}`)).body as SequenceDetail;
-        const { versions, ...head } = d;
-        expect(head).toEqual(s);
+        const { versions, latest, cleared, ...head } = d;
+        expect({ ...head, latest: brief(latest), cleared: brief(cleared) }).toEqual(s);
         expect(s.versionCount).toBe(versions.length);
       }
     }
+  });
+
+  it('a cached list shows a write made on another connection (as a job worker would) at the next read', async () => {
+    const first = (await as(t, PEOPLE.planner).get('/sequences')).body.sequences as SequenceListItem[];
+    const again = await as(t, PEOPLE.planner).get('/sequences');
+    expect(again.body.sequences).toEqual(first);
+    const target = first[0];
+    await t.pool.query('UPDATE sequences SET name = $1 WHERE id = $2', [`${target.name} (renamed elsewhere)`, target.id]);
+    const after = (await as(t, PEOPLE.planner).get('/sequences')).body.sequences as SequenceListItem[];
+    expect(after.find((s) => s.id === target.id)?.name).toBe(`${target.name} (renamed elsewhere)`);
+    await t.ctx.db.update(sequences).set({ name: target.name }).where(eq(sequences.id, target.id));
+    const restored = (await as(t, PEOPLE.planner).get('/sequences')).body.sequences as SequenceListItem[];
+    expect(restored.find((s) => s.id === target.id)?.name).toBe(target.name);
   });
 });

@@ -2,7 +2,7 @@ import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
-import type { VersionSummary } from '@/shared/contracts/maneuver';
+import type { ReportBrief, VersionSummary } from '@/shared/contracts/maneuver';
 import { fmtDeg, fmtSeconds, fmtWhen } from '../report/format';
 import { VersionStatusBadge } from '../VersionStatusBadge';
 
@@ -15,7 +15,7 @@ export interface VersionListProps {
 }
 
 /** One line of a report summary: "error 0.8° · 9.5 s · no range violations". */
-export function summaryLine(v: VersionSummary): string {
+export function summaryLine(v: { summary: ReportBrief | null }): string {
   const s = v.summary;
   if (!s) return 'not verified';
   const viol = s.rangeViolationCount === 0 ? 'no range violations' : `${s.rangeViolationCount} range violation${s.rangeViolationCount > 1 ? 's' : ''}`;
