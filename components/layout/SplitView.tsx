@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 
 import { colors, layout, radii, spacing } from '@/components/theme';
+import { useCollapseOnScroll } from '@/components/shell/header-collapse';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import { useIsWide } from './use-is-wide';
@@ -31,6 +32,7 @@ export interface SplitViewProps {
  */
 export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholder, listLabel = 'List', detailLabel = 'Details' }: SplitViewProps) {
   const wide = useIsWide();
+  const collapse = useCollapseOnScroll();
   if (wide) {
     return (
       <View style={styles.row}>
@@ -57,14 +59,14 @@ export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholde
             {detailTitle ?? 'Back'}
           </Text>
         </Pressable>
-        <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={detailLabel} role="region">
+        <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={detailLabel} role="region" {...collapse}>
           {detail}
         </ScrollView>
       </View>
     );
   }
   return (
-    <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={listLabel} role="region">
+    <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={listLabel} role="region" {...collapse}>
       {list}
     </ScrollView>
   );

@@ -1,6 +1,8 @@
 import type { ReactNode } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
+import { useIsWide } from '@/components/layout/use-is-wide';
+import { useCollapseOnScroll, useHeaderCollapsed } from '@/components/shell/header-collapse';
 import { colors, layout, spacing } from '@/components/theme';
 import { Text } from './Text';
 
@@ -19,8 +21,12 @@ export interface ScreenProps {
 
 /** The body of a tab screen: title row, consistent padding, max width, optional scrolling. */
 export function Screen({ title, subtitle, actions, children, scroll = true }: ScreenProps) {
+  const wide = useIsWide();
+  const collapse = useCollapseOnScroll();
+  // A screen that scrolls inside (SplitView) keeps its title outside the scroll: fold it with the header on phones.
+  const folded = useHeaderCollapsed() && !wide && !scroll;
   const head =
-    title || actions ? (
+    !folded && (title || actions) ? (
       <View style={styles.head}>
         <View style={styles.titles}>
           {title ? (
@@ -44,7 +50,7 @@ export function Screen({ title, subtitle, actions, children, scroll = true }: Sc
     );
   }
   return (
-    <ScrollView style={styles.root} contentContainerStyle={styles.scrollContent}>
+    <ScrollView style={styles.root} contentContainerStyle={styles.scrollContent} {...collapse}>
       <View style={styles.inner}>
         {head}
         {children}
