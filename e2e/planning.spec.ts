@@ -71,3 +71,31 @@ test('a planner asks for suggested steps, finds them again after a reload, uses 
   expect(degrees(shown.replace(/tolerance.*$/, ''))).toBeLessThanOrEqual(toleranceDeg);
   await ctx.close();
 });
+
+test('the planner says which limit a target misses (a 10 s time budget for a half turn), on a phone and a wide screen', async ({ browser, baseURL }) => {
+  test.setTimeout(300_000);
+  for (const viewport of [{ width: 375, height: 812 }, { width: 1280, height: 800 }]) {
+    const ctx = await browser.newContext({ baseURL, viewport });
+    const page = await ctx.newPage();
+    await signIn(page, DEMO_BY_ROLE.planner.email);
+    const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; name: string; currentVersion: number | null }[] };
+    const member = members.find((m) => m.currentVersion != null);
+    const created = await page.request.post('/api/sequences', {
+      headers: { Origin: baseURL! },
+      data: { crewMemberId: member!.id, name: `Half turn in 10 s ${viewport.width} ${Date.now()}`, target: { mode: 'ypr', yprDeg: { yaw: 180, pitch: 0, roll: 0 }, toleranceDeg: 2, timeBudgetS: 10 } },
+    });
+    expect(created.status()).toBe(201);
+    const sequence = (await created.json()) as { id: string };
+    await page.goto(`/maneuvers/${sequence.id}`);
+    const panel = page.getByTestId('suggest-steps');
+    await panel.getByRole('button', { name: 'Suggest steps' }).click();
+    // The notes name the limit (the time budget) beside the candidates, none of which is within limits.
+    const notes = panel.getByTestId('planner-notes-remarks');
+    await expect(notes).toBeVisible({ timeout: 180_000 });
+    await expect(notes).toContainText('over the 10 s time budget');
+    await expect(panel.getByText('Misses a limit').first()).toBeVisible();
+    await notes.scrollIntoViewIfNeeded();
+    await page.screenshot({ path: test.info().outputPath(`planner-notes-${viewport.width}.png`) });
+    await ctx.close();
+  }
+});
