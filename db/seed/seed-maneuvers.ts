@@ -9,6 +9,7 @@
 import { desc, eq } from 'drizzle-orm';
 
 import { sequenceTargetSchema, type SequenceTarget } from '../../shared/contracts/maneuver.ts';
+import { sequenceSchema } from '../../shared/contracts/sequence.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
@@ -16,8 +17,10 @@ import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { recordAudit } from '../../server/audit/record-audit.ts';
 import type { StoredCompiled } from '../../server/maneuvers/stored-compiled.ts';
+import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
 import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
 import { profileVersions, reverifications, reviews, sequences, sequenceVersions, type ProfileVersionRow } from '../schema/index.ts';
+import { seedVersionRobustness } from './demo-robustness.ts';
 import { loadPlannedManeuvers } from './planned-maneuvers.ts';
 import type { SeedState } from './run-seed.ts';
 
@@ -147,7 +150,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       const profile = pick(v.profileVersion);
       const body = profile.body;
       const compiled = compilePrimitives(v.primitives, dofInfoFromBody(body));
-      const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: state.pool });
+      const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: state.pool, stepMap: compiled.stepMap });
       const stored: StoredCompiled = {
         sequence: compiled.sequence as StoredCompiled['sequence'],
         cues: compiled.stepMap.map((s) => (s.role === 'blend' ? leadInCue(v.primitives[s.primitive]) : cueFor(v.primitives[s.primitive]))),
@@ -167,6 +170,10 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
         staleSince: v.status === 'recheck' ? minutesAgo(30) : null,
       }).returning();
       await recordAudit(db, { actorId: author, action: 'sequence_version.save', objectType: 'sequence_version', objectId: row.id, detail: { sequenceId: seq.id, version: row.version, seed: true } });
+      // Its robustness run, as the save queued it (computed ahead: db/seed/demo-robustness.ts).
+      await seedVersionRobustness(db, row.id, {
+        body, sequence: sequenceSchema.parse(stored.sequence), target: targetQuat(target), toleranceDeg: target.toleranceDeg,
+      }, author, minutesAgo(99 - i * 20));
       if (v.review) {
         await db.insert(reviews).values({
           sequenceVersionId: row.id, reviewerId: userIds[REVIEWER], decision: v.review.decision, comment: v.review.comment,
@@ -176,7 +183,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       }
       // A recheck version: its recomputation on the current profile, done as the worker would.
       if (v.status === 'recheck' && profile.id !== current.id) {
-        const again = await verifySequence({ body: current.body, sequence: compiled.sequence, target, profileVersionId: current.id, pool: state.pool });
+        const again = await verifySequence({ body: current.body, sequence: compiled.sequence, target, profileVersionId: current.id, pool: state.pool, stepMap: compiled.stepMap });
         await db.insert(reverifications).values({
           sequenceVersionId: row.id, fromProfileVersionId: profile.id, toProfileVersionId: current.id, state: 'done', attempts: 1,
           attitudeShiftDeg: (quatAngleBetween(quatOf(report.final.attitude), quatOf(again.final.attitude)) * 180) / Math.PI,

@@ -59,10 +59,11 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
   if (!claimed.length) return;
 
   try {
-    const sequence = sequenceSchema.parse(storedCompiled(v.v.compiled).sequence);
+    const compiled = storedCompiled(v.v.compiled);
+    const sequence = sequenceSchema.parse(compiled.sequence);
     // The version's own target (a re-check verifies what was cleared, not the sequence's next default).
     const target = sequenceTargetSchema.parse(v.v.target);
-    const report = await verifySequence({ body: profile.body, sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product });
+    const report = await verifySequence({ body: profile.body, sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product, stepMap: compiled.stepMap });
     const old = v.v.report;
     const shift = old
       ? quatAngleBetween([old.final.attitude.w, old.final.attitude.x, old.final.attitude.y, old.final.attitude.z],

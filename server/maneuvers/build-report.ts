@@ -4,7 +4,7 @@
  * series (attitude and joint angles vs time).
  */
 import type { DofInfo } from '../../shared/primitives/compile-primitives.ts';
-import type { ReportSummary, SequenceTarget, VerificationReport } from '../../shared/contracts/maneuver.ts';
+import type { ReportSummary, SequenceTarget, StepRotation, VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { SimulationResult } from '../../shared/contracts/result.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
@@ -39,11 +39,13 @@ export interface ReportInputs {
   /** Dof ranges of the body that was simulated. */
   dofs: readonly DofInfo[];
   inputsHash: string;
+  /** Rotation of each composer step (server/maneuvers/step-rotations.ts); omitted when unknown. */
+  stepRotations?: StepRotation[];
   computedAt?: Date;
 }
 
 /** The verification report of one engine result. */
-export function buildReport({ result, target, profileVersionId, dofs, inputsHash, computedAt = new Date() }: ReportInputs): VerificationReport {
+export function buildReport({ result, target, profileVersionId, dofs, inputsHash, stepRotations, computedAt = new Date() }: ReportInputs): VerificationReport {
   const fa = result.final.attitude;
   const finalQ = [fa.w, fa.x, fa.y, fa.z];
   const tq = targetQuat(target);
@@ -83,6 +85,7 @@ export function buildReport({ result, target, profileVersionId, dofs, inputsHash
       peakShapeMomentum: result.momentumResidual.peakShapeMomentum,
       atTime: result.momentumResidual.atTime,
     },
+    ...(stepRotations ? { stepRotations } : {}),
     rangeViolations: result.rangeViolations,
     peakJointRate: {
       maxDegS: peak.max,

@@ -83,7 +83,7 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
   const compiled = compileFor(input.primitives, body);
   // The version's own target: the request's, else the sequence's default.
   const target = input.target ?? readTarget(seq.target);
-  const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product });
+  const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product, stepMap: compiled.stepMap });
   const stored: StoredCompiled = { sequence: compiled.sequence as StoredCompiled['sequence'], cues: stepCues(input.primitives, compiled.stepMap), stepMap: compiled.stepMap };
 
   return db.transaction(async (tx) => {

@@ -9,6 +9,7 @@ import { primitiveListSchema } from '../../shared/primitives/primitive-schemas.t
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import type { RecheckInfo } from '../../shared/product/recheck-status.ts';
 import { notFound } from '../http/http-error.ts';
+import { versionRobustness } from '../jobs/robustness/version-robustness.ts';
 import { recheckInfos } from './recheck-info.ts';
 import { assertVersionVisible, canAuthor, canReview } from './maneuver-access.ts';
 import { transition } from './status-machine.ts';
@@ -21,13 +22,15 @@ export async function loadVersionDetail(db: Database, user: SessionUser, version
   if (!row) throw notFound('Sequence version');
   assertVersionVisible(user, { crewMemberId: row.crewMemberId, status: row.v.status, clearedAt: row.v.clearedAt, archived: row.sequence.archivedAt !== null });
   // The content (steps, report) and the histories, read side by side once the version is visible.
-  const [[content], revs, reviews, rechecks] = await Promise.all([
+  const [[content], revs, reviews, rechecks, robustness] = await Promise.all([
     db.select({ primitives: sequenceVersions.primitives, compiled: sequenceVersions.compiled, report: sequenceVersions.report })
       .from(sequenceVersions).where(eq(sequenceVersions.id, versionId)),
     selectReverifications(db, [row.v.id]),
     reviewEntries(db, row.v.id),
     row.v.status === 'recheck' ? recheckInfos(db, [row.v]) : Promise.resolve(new Map<string, RecheckInfo>()),
+    versionRobustness(db, row.v.id),
   ]);
+  const report = content.report ?? null;
   const primitives = primitiveListSchema.parse(content.primitives);
   const compiled = storedCompiled(content.compiled);
   const isAuthor = row.v.authorId === user.id;
@@ -38,7 +41,8 @@ export async function loadVersionDetail(db: Database, user: SessionUser, version
     cues: primitives.map(cueFor),
     compiled: compiled.sequence,
     stepMap: compiled.stepMap,
-    report: content.report ?? null,
+    // The stored report is frozen with the version; its robustness is the newest run, read live.
+    report: report ? { ...report, robustness } : null,
     reviews,
     reverifications: revs.map(toReverification),
     allowed: {

@@ -6,9 +6,10 @@ import { and, asc, desc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizz
 import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, profileVersions, reverifications, reviews, sequences, sequenceVersions, users, type ReverificationRow, type SequenceVersionRow } from '../../db/schema/index.ts';
+import { crewMembers, profileVersions, reverifications, reviews, robustnessRuns, sequences, sequenceVersions, users, type ReverificationRow, type SequenceVersionRow } from '../../db/schema/index.ts';
 import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
+import { levelOf, type RobustnessBrief, type RobustnessState } from '../../shared/contracts/robustness.ts';
 
 const author = alias(users, 'author');
 const clearer = alias(users, 'clearer');
@@ -45,6 +46,24 @@ export interface VersionRowJoined {
   authorName: string | null;
   clearedByName: string | null;
   latestReverification: ReverificationListRow | null;
+  latestRobustness: RobustnessListRow | null;
+}
+
+/** The newest robustness run of a version as lists read it (no samples, no inputs). */
+const robustnessColumns = {
+  id: robustnessRuns.id, state: robustnessRuns.state, samples: robustnessRuns.samples, doneSamples: robustnessRuns.doneSamples,
+  toleranceDeg: robustnessRuns.toleranceDeg,
+  feedbackP95Deg: sql<number | null>`(${robustnessRuns.figures}->>'feedbackP95Deg')::float8`.as('feedback_p95_deg'),
+};
+interface RobustnessListRow { id: string; state: string; samples: number; doneSamples: number; toleranceDeg: number; feedbackP95Deg: number | null }
+
+/** The list view of a run: state, progress, feedback p95 and its level. */
+export function toRobustnessBrief(r: RobustnessListRow): RobustnessBrief {
+  const feedbackP95Deg = r.state === 'done' ? r.feedbackP95Deg : null;
+  return {
+    state: r.state as RobustnessState, progress: r.state === 'done' ? 1 : r.doneSamples / Math.max(1, r.samples),
+    feedbackP95Deg, toleranceDeg: r.toleranceDeg, level: levelOf(feedbackP95Deg, r.toleranceDeg),
+  };
 }
 
 /**
@@ -55,6 +74,9 @@ export async function selectVersions(db: Database, where: SQL | undefined): Prom
   const rev = db.select(reverificationColumns).from(reverifications)
     .where(eq(reverifications.sequenceVersionId, sequenceVersions.id))
     .orderBy(desc(reverifications.createdAt)).limit(1).as('latest_reverification');
+  const run = db.select(robustnessColumns).from(robustnessRuns)
+    .where(eq(robustnessRuns.sequenceVersionId, sequenceVersions.id))
+    .orderBy(desc(robustnessRuns.createdAt)).limit(1).as('latest_robustness');
   const rows = await db
     .select({
       v: versionListColumns,
@@ -70,6 +92,7 @@ export async function selectVersions(db: Database, where: SQL | undefined): Prom
         state: rev.state, attitudeShiftDeg: rev.attitudeShiftDeg, targetErrorDeg: rev.targetErrorDeg, error: rev.error, attempts: rev.attempts,
         createdAt: rev.createdAt, finishedAt: rev.finishedAt,
       },
+      run: { id: run.id, state: run.state, samples: run.samples, doneSamples: run.doneSamples, toleranceDeg: run.toleranceDeg, feedbackP95Deg: run.feedbackP95Deg },
     })
     .from(sequenceVersions)
     .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
@@ -78,9 +101,14 @@ export async function selectVersions(db: Database, where: SQL | undefined): Prom
     .leftJoin(author, eq(author.id, sequenceVersions.authorId))
     .leftJoin(clearer, eq(clearer.id, sequenceVersions.clearedBy))
     .leftJoinLateral(rev, sql`true`)
+    .leftJoinLateral(run, sql`true`)
     .where(where)
     .orderBy(desc(sequenceVersions.version));
-  return rows.map(({ rev: r, ...row }) => ({ ...row, latestReverification: r && r.id ? (r as ReverificationListRow) : null }));
+  return rows.map(({ rev: r, run: rr, ...row }) => ({
+    ...row,
+    latestReverification: r && r.id ? (r as ReverificationListRow) : null,
+    latestRobustness: rr && rr.id ? (rr as RobustnessListRow) : null,
+  }));
 }
 
 /** Re-verification records of the given versions, newest first (reports not read). */
@@ -112,6 +140,7 @@ export function toVersionSummary(row: VersionRowJoined): VersionSummary {
     summary: v.reportSummary ?? null,
     reverification: row.latestReverification ? toReverification(row.latestReverification) : null,
     submitNote: v.submitNote, acknowledgedFailures: v.acknowledgedFailures ?? null, recheckOfId: v.recheckOfId,
+    robustness: row.latestRobustness ? toRobustnessBrief(row.latestRobustness) : null,
   };
 }
 

@@ -35,6 +35,7 @@ import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
 import type { RecheckInfo } from '../product/recheck-status.ts';
 import { CHECK_NAMES } from '../product/version-checks.ts';
 import { attitudeSchema, rangeViolationSchema } from './result.ts';
+import { robustnessBriefSchema, versionRobustnessSchema } from './robustness.ts';
 import { versionStatusSchema } from './version-status.ts';
 
 /** A failed check (shared/product/version-checks.ts). */
@@ -182,6 +183,45 @@ export const reportSeriesSchema = z.object({
   ranges: z.record(z.string(), z.object({ min: z.number(), max: z.number() })),
 });
 
+/** A rotation relative to the body's attitude at its start, about the body's axes there (degrees). */
+export const relativeRotationSchema = z.object({
+  /** {w,x,y,z}, w ≥ 0: composes by quaternion product, earlier steps on the left. */
+  quat: attitudeSchema,
+  angleDeg: z.number(),
+  /** Unit axis in the body frame at the start (x anterior, y left, z head); [1,0,0] for no rotation. */
+  axis: z.tuple([z.number(), z.number(), z.number()]),
+  /** The same rotation as yaw/pitch/roll (z-y′-x″), degrees. */
+  yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+});
+export type RelativeRotation = z.infer<typeof relativeRotationSchema>;
+
+/** One sweep of whole cycles inside a composer step: the rotation of one of its cycles. */
+export const sweepRotationSchema = z.object({
+  /** Index of the compiled step (engine sequence). */
+  compiledStep: z.number().int(),
+  cycles: z.number(),
+  periodS: z.number(),
+  /** Rotation of one cycle from the sweep's starting posture; n cycles rotate by its n-th power. */
+  perCycle: relativeRotationSchema,
+});
+
+/**
+ * Where the rotation comes from: one entry per composer step (its lead-in included). The attitude
+ * after the sequence is the product of the steps' rotations in order (zero momentum: a step's
+ * rotation depends only on its own shape path and posture at the start).
+ */
+export const stepRotationSchema = z.object({
+  /** Composer step index, 0-based (the composer, player and cue card number it index + 1). */
+  step: z.number().int(),
+  startS: z.number(),
+  endS: z.number(),
+  rotation: relativeRotationSchema,
+  /** Rotation travelled during the step, ∫|ω| dt from the report's samples, degrees. */
+  pathDeg: z.number(),
+  sweeps: z.array(sweepRotationSchema),
+});
+export type StepRotation = z.infer<typeof stepRotationSchema>;
+
 /** The stored verification report of a version. */
 export const verificationReportSchema = z.object({
   /** Engine version (semver+source hash) that computed the report. */
@@ -212,6 +252,8 @@ export const verificationReportSchema = z.object({
   }),
   /** The engine's momentum audit (kg·m²/s). */
   momentum: z.object({ maxAbs: z.number(), relative: z.number(), peakShapeMomentum: z.number(), atTime: z.number() }),
+  /** Rotation of each composer step (absent in reports made before it was added). */
+  stepRotations: z.array(stepRotationSchema).optional(),
   rangeViolations: z.array(rangeViolationSchema),
   peakJointRate: z.object({
     maxDegS: z.number(),
@@ -228,6 +270,10 @@ export const verificationReportSchema = z.object({
   computedAt: isoTime,
 });
 export type VerificationReport = z.infer<typeof verificationReportSchema>;
+
+/** The report as GET /sequences/versions/:id returns it: the stored report plus the version's robustness (its newest run, read live; null when none). */
+export const versionReportSchema = verificationReportSchema.extend({ robustness: versionRobustnessSchema.nullable() });
+export type VersionReport = z.infer<typeof versionReportSchema>;
 
 /** The headline figures of a report, for lists. */
 export const reportSummarySchema = z.object({
@@ -304,6 +350,8 @@ export const versionSummarySchema = z.object({
   acknowledgedFailures: z.array(checkFailureSchema).nullable(),
   /** A re-check version: the cleared version it re-checks after a profile change (null otherwise). */
   recheckOfId: z.uuid().nullable(),
+  /** The newest robustness run (state, feedback p95, level); null when none was ever queued. */
+  robustness: robustnessBriefSchema.nullable(),
 });
 export type VersionSummary = z.infer<typeof versionSummarySchema>;
 
@@ -343,7 +391,7 @@ export const versionDetailSchema = versionSummarySchema.extend({
   /** Engine sequence contract { start, steps }. */
   compiled: z.object({ start: z.record(z.string(), z.number()), steps: z.array(z.unknown()) }),
   stepMap: z.array(stepOriginSchema),
-  report: verificationReportSchema.nullable(),
+  report: versionReportSchema.nullable(),
   reviews: z.array(reviewEntrySchema),
   reverifications: z.array(reverificationSchema),
   /** Actions the caller may take now. */

@@ -58,3 +58,34 @@ export function robustnessLevel(feedbackP95Deg: number, toleranceDeg: number): R
   if (feedbackP95Deg <= 3 * toleranceDeg) return 'marginal';
   return 'not_robust';
 }
+
+/** Level of a finished run's figures, null while it has none. */
+export function levelOf(feedbackP95Deg: number | null, toleranceDeg: number): RobustnessLevel | null {
+  return feedbackP95Deg === null ? null : robustnessLevel(feedbackP95Deg, toleranceDeg);
+}
+
+/**
+ * A version's robustness as `report.robustness` of GET /sequences/versions/:id shows it: the one
+ * record (its newest run) plus the tolerance it was judged against and its level.
+ */
+export const versionRobustnessSchema = robustnessSchema.extend({
+  runId: z.uuid(),
+  /** The version's tolerance, degrees (the histogram marks it). */
+  toleranceDeg: z.number(),
+  /** robust / marginal / not_robust once done; null before. */
+  level: z.enum(ROBUSTNESS_LEVELS).nullable(),
+  /** Why the run failed or was cancelled; null otherwise. */
+  error: z.string().nullable(),
+});
+export type VersionRobustness = z.infer<typeof versionRobustnessSchema>;
+
+/** The robustness lists show beside a version (its newest run): enough for the level and a caution. */
+export const robustnessBriefSchema = z.object({
+  state: z.enum(ROBUSTNESS_STATES),
+  /** 0–1. */
+  progress: z.number(),
+  feedbackP95Deg: z.number().nullable(),
+  toleranceDeg: z.number(),
+  level: z.enum(ROBUSTNESS_LEVELS).nullable(),
+});
+export type RobustnessBrief = z.infer<typeof robustnessBriefSchema>;

@@ -7,7 +7,8 @@ export interface PoolRequest {
   id: number;
   body: unknown;
   sequence: unknown;
-  options: { rateHz?: number; rtol?: number };
+  /** `finalOnly`: search mode (final attitude and checks, no samples or audit). */
+  options: { rateHz?: number; rtol?: number; finalOnly?: boolean };
 }
 
 /** The worker's answer. */

@@ -6,9 +6,11 @@ import { and, desc, eq, inArray } from 'drizzle-orm';
 
 import type { Database } from '../../../db/client.ts';
 import { robustnessRuns, type RobustnessRunRow } from '../../../db/schema/index.ts';
+import { levelOf, robustnessModelSchema, type RobustnessState, type VersionRobustness } from '../../../shared/contracts/robustness.ts';
 import type { AppContext } from '../../app-context.ts';
 import { recordAudit } from '../../audit/record-audit.ts';
 import { loadVersion } from '../../motion/version-access.ts';
+import type { RobustnessFigures } from '../../planning/robustness.ts';
 import { createRobustnessRun, OPEN_STATES, versionRunInputs } from './robustness-runs.ts';
 
 /** The newest run of a version, or null. */
@@ -16,6 +18,29 @@ export async function latestVersionRun(db: Database, versionId: string): Promise
   const [run] = await db.select().from(robustnessRuns).where(eq(robustnessRuns.sequenceVersionId, versionId))
     .orderBy(desc(robustnessRuns.createdAt)).limit(1);
   return run ?? null;
+}
+
+/** The newest run of a version as its report shows it (`report.robustness`), or null when none was ever queued. */
+export async function versionRobustness(db: Database, versionId: string): Promise<VersionRobustness | null> {
+  const run = await latestVersionRun(db, versionId);
+  if (!run) return null;
+  const f = run.state === 'done' ? (run.figures as RobustnessFigures | null) : null;
+  const feedbackP95Deg = f?.feedbackP95Deg ?? null;
+  return {
+    runId: run.id,
+    state: run.state as RobustnessState,
+    progress: run.state === 'done' ? 1 : run.doneSamples / Math.max(1, run.samples),
+    openLoopP95Deg: f?.openLoopP95Deg ?? null,
+    feedbackP95Deg,
+    p50Deg: f?.p50Deg ?? null,
+    withinToleranceShare: f?.withinToleranceShare ?? null,
+    samples: run.samples,
+    seed: run.seed,
+    model: robustnessModelSchema.parse(run.model),
+    toleranceDeg: run.toleranceDeg,
+    level: levelOf(feedbackP95Deg, run.toleranceDeg),
+    error: run.error,
+  };
 }
 
 /** The version's open run, or null. */
