@@ -24,7 +24,7 @@ test.describe('background work', () => {
     await expect(panel.getByText(/Queued|Running|Computed/).first()).toBeVisible();
     await expect(panel.getByText('Computed')).toBeVisible({ timeout: 150_000 });
     await expect(panel.getByText('95th pct. with feedback')).toBeVisible();
-    await expect(panel.getByText(/^(Robust|Marginal|Not robust):/)).toBeVisible();
+    await expect(panel.getByText(/^(Robust|Caution, marginal|Caution, not robust):/)).toBeVisible();
     await plannerCtx.close();
 
     const adminCtx = await browser.newContext({ baseURL, viewport: { width: 1280, height: 800 } });

@@ -203,7 +203,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
     <View style={styles.panel}>
       {version ? <VersionStatusNotice version={version} /> : null}
       {version?.report ? (
-        <VerificationReport report={version.report} versionId={version.id} profileVersion={version.profileVersion} />
+        <VerificationReport report={version.report} cues={version.cues} versionId={version.id} profileVersion={version.profileVersion} />
       ) : (
         <EmptyState icon="cpu" title="No verification report yet" body={editable ? 'Add steps, then Save and verify: the engine computes the report on the crew member’s current profile.' : 'This version has no report.'} />
       )}

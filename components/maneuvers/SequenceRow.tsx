@@ -5,6 +5,7 @@ import { Badge } from '@/components/ui/Badge';
 import { Text } from '@/components/ui/Text';
 import type { SequenceListItem } from '@/shared/contracts/maneuver';
 import { targetText } from './target-text';
+import { RobustnessBadge } from './robustness/RobustnessCaution';
 import { VersionStatusBadge } from './VersionStatusBadge';
 import { summaryLine } from './versions/VersionList';
 
@@ -34,9 +35,12 @@ export function SequenceRow({ sequence: s, onOpen }: SequenceRowProps) {
         {s.crewMemberName} · target {targetText(s.target)}
       </Text>
       {s.latest ? (
-        <Text variant="caption">
-          v{s.latest.version} · {summaryLine(s.latest)}
-        </Text>
+        <View style={styles.line}>
+          <Text variant="caption">
+            v{s.latest.version} · {summaryLine(s.latest)}
+          </Text>
+          <RobustnessBadge robustness={s.latest.robustness} />
+        </View>
       ) : null}
       {s.cleared && s.cleared.id !== s.latest?.id ? (
         <Text variant="caption" tone={s.cleared.status === 'recheck' ? 'danger' : 'success'}>
@@ -48,6 +52,7 @@ export function SequenceRow({ sequence: s, onOpen }: SequenceRowProps) {
 }
 
 const styles = StyleSheet.create({
+  line: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
   row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: spacing.xs },
   pressed: { backgroundColor: colors.raised },
   focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,

@@ -4,6 +4,7 @@ import { useVersionQuery } from '@/components/api/use-sequences';
 import { StepList } from '@/components/maneuvers/composer/StepList';
 import { fmtWhen } from '@/components/maneuvers/report/format';
 import { VerificationReport } from '@/components/maneuvers/report/VerificationReport';
+import { RobustnessSummary } from '@/components/maneuvers/robustness/RobustnessSummary';
 import { targetText } from '@/components/maneuvers/target-text';
 import { VersionStatusBadge } from '@/components/maneuvers/VersionStatusBadge';
 import { VersionStatusNotice } from '@/components/maneuvers/VersionStatusNotice';
@@ -37,7 +38,13 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
   }
   const v = q.data;
   // on a phone the decision follows what it decides on; on a wide screen it stays in view at the top
-  const panel = <ReviewDecisionPanel version={v} />;
+  // the robustness comes right before the decision buttons in both layouts
+  const panel = (
+    <>
+      <RobustnessSummary versionId={v.id} initial={v.report?.robustness ?? null} />
+      <ReviewDecisionPanel version={v} />
+    </>
+  );
   return (
     <View style={styles.wrap} testID="review-detail">
       <View style={styles.head}>
@@ -67,7 +74,7 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
       <Text variant="heading" role="heading" aria-level={2}>
         Verification report
       </Text>
-      {v.report ? <VerificationReport report={v.report} versionId={v.id} profileVersion={v.profileVersion} /> : <Text tone="danger">This version has no verification report.</Text>}
+      {v.report ? <VerificationReport report={v.report} cues={v.cues} versionId={v.id} profileVersion={v.profileVersion} /> : <Text tone="danger">This version has no verification report.</Text>}
       {wide ? null : panel}
       <Text variant="heading" role="heading" aria-level={2}>
         Review history

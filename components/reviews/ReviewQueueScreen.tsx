@@ -6,6 +6,7 @@ import { useReviewQueueQuery } from '@/components/api/use-reviews';
 import { SplitView } from '@/components/layout/SplitView';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { fmtWhen } from '@/components/maneuvers/report/format';
+import { RobustnessBadge } from '@/components/maneuvers/robustness/RobustnessCaution';
 import { summaryLine } from '@/components/maneuvers/versions/VersionList';
 import { colors, radii, spacing } from '@/components/theme';
 import { EmptyState } from '@/components/ui/EmptyState';
@@ -87,11 +88,15 @@ function QueueRow({ item, selected, onOpen }: { item: ReviewQueueItem; selected:
           Submitted although it fails {v.acknowledgedFailures.length} check{v.acknowledgedFailures.length === 1 ? '' : 's'} ({v.acknowledgedFailures.map((f) => CHECK_WORDS[f.check]).join(', ')}), with a note
         </Text>
       ) : null}
+      <View style={styles.badges}>
+        <RobustnessBadge robustness={v.robustness} />
+      </View>
     </Pressable>
   );
 }
 
 const styles = StyleSheet.create({
+  badges: { flexDirection: 'row' },
   list: { gap: spacing.sm },
   detail: { padding: spacing.lg },
   row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: 2 },

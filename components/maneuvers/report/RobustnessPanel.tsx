@@ -1,6 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { errorMessage } from '@/components/api/client';
+import { ErrorHistogram } from '@/components/charts/ErrorHistogram';
 import { useSessionQuery } from '@/components/api/use-session';
 import { useRobustnessActions, useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import { spacing } from '@/components/theme';
@@ -11,6 +12,7 @@ import { LoadingState } from '@/components/ui/LoadingState';
 import { ProgressBar } from '@/components/ui/ProgressBar';
 import { Text } from '@/components/ui/Text';
 import { robustnessLevel, type RobustnessLevel, type RobustnessState } from '@/shared/contracts/robustness';
+import { RobustnessCaution } from '../robustness/RobustnessCaution';
 import { fmtDeg } from './format';
 import { StatGrid } from './StatGrid';
 
@@ -22,11 +24,7 @@ const STATE_BADGE: Record<RobustnessState, { label: string; tone: BadgeTone }> =
   cancelled: { label: 'Cancelled', tone: 'accent' },
 };
 
-const LEVEL_TEXT: Record<RobustnessLevel, { text: string; tone: 'success' | 'accent' | 'danger' }> = {
-  robust: { text: 'Robust: with feedback, 95 % of executions end within the tolerance.', tone: 'success' },
-  marginal: { text: 'Marginal: with feedback, the 95th-percentile error is beyond the tolerance (up to 3×). Rehearse with care and expect to trim.', tone: 'accent' },
-  not_robust: { text: 'Not robust: with feedback, the 95th-percentile error is more than 3× the tolerance. A small execution error spoils this maneuver.', tone: 'danger' },
-};
+const LEVEL_TONE: Record<RobustnessLevel, 'success' | 'accent' | 'danger'> = { robust: 'success', marginal: 'accent', not_robust: 'danger' };
 
 /**
  * The version's robustness run (a background job split across worker processes): progress while it
@@ -56,12 +54,16 @@ export function RobustnessPanel({ versionId }: { versionId: string }) {
   const badge = STATE_BADGE[r.state];
   const open = r.state === 'queued' || r.state === 'running';
   const level = r.feedbackP95Deg !== null ? robustnessLevel(r.feedbackP95Deg, r.toleranceDeg) : null;
+  const sp = r.model.spreads;
   return (
     <View style={styles.stack} testID="robustness-panel">
       <View style={styles.row}>
         <Badge label={badge.label} tone={badge.tone} />
-        <Text variant="caption" tone="muted">{`${r.samples.toLocaleString('en-US')} samples · seed ${r.seed} · perception error ${r.model.perceptionErrorDeg}° · reaction delay ${r.model.reactionDelayS} s`}</Text>
+        <Text variant="caption" tone="muted" testID="robustness-model">{`${r.samples.toLocaleString('en-US')} samples · seed ${r.seed}`}</Text>
       </View>
+      <Text variant="caption" tone="muted">
+        {`Model: segment mass ±${sp.massPct} %, length ±${sp.lengthPct} %; amplitude ±${sp.amplitudePct} %, period ±${sp.periodPct} %, phase ±${sp.phaseDeg}° (uniform); with feedback: perception error ${r.model.perceptionErrorDeg}° (1σ per axis), reaction delay ${r.model.reactionDelayS} s (assumptions).`}
+      </Text>
       {open ? (
         <View style={styles.row}>
           <View style={styles.grow}><ProgressBar value={r.progress} label="Robustness run progress" /></View>
@@ -73,13 +75,14 @@ export function RobustnessPanel({ versionId }: { versionId: string }) {
         <>
           <StatGrid
             stats={[
-              { label: '95th pct. with feedback', value: fmtDeg(r.feedbackP95Deg, 1), note: `tolerance ${fmtDeg(r.toleranceDeg, 1)}`, tone: level ? LEVEL_TEXT[level].tone : 'default', testID: 'stat-feedback-p95' },
+              { label: '95th pct. with feedback', value: fmtDeg(r.feedbackP95Deg, 1), note: `tolerance ${fmtDeg(r.toleranceDeg, 1)}`, tone: level ? LEVEL_TONE[level] : 'default', testID: 'stat-feedback-p95' },
               { label: '95th pct. open-loop', value: fmtDeg(r.openLoopP95Deg ?? NaN, 1) },
               { label: 'Median with feedback', value: fmtDeg(r.p50Deg ?? NaN, 1) },
               { label: 'Within tolerance', value: `${Math.round((r.withinToleranceShare ?? 0) * 100)} %`, note: 'of executions, with feedback' },
             ]}
           />
-          {level ? <Text tone={LEVEL_TEXT[level].tone}>{LEVEL_TEXT[level].text}</Text> : null}
+          {r.feedbackErrorsDeg ? <ErrorHistogram errorsDeg={r.feedbackErrorsDeg} toleranceDeg={r.toleranceDeg} p50Deg={r.p50Deg} p95Deg={r.feedbackP95Deg} /> : null}
+          {level ? <RobustnessCaution robustness={{ state: r.state, progress: r.progress, feedbackP95Deg: r.feedbackP95Deg, toleranceDeg: r.toleranceDeg, level }} testID="robustness-level" /> : null}
         </>
       ) : null}
       <View style={styles.row}>

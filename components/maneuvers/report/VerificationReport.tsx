@@ -7,18 +7,24 @@ import { colors, radii, spacing } from '@/components/theme';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import type { VerificationReport as Report } from '@/shared/contracts/maneuver';
+import type { VersionRobustness } from '@/shared/contracts/robustness';
 import { quatToYpr } from '@/shared/math/euler-zyx';
 import { ManeuverCautions } from '../ManeuverCautions';
 import { Preview3DSlot } from '../Preview3DSlot';
+import { LiveRobustnessCaution } from '../robustness/RobustnessCaution';
 import { fmtDeg, fmtNum, fmtRate, fmtSci, fmtSeconds, fmtWhen, shortHash } from './format';
 import { PeakRatesTable } from './PeakRatesTable';
 import { RangeViolationsTable } from './RangeViolationsTable';
 import { RobustnessPanel } from './RobustnessPanel';
+import { StepRotationsTable } from './StepRotationsTable';
 import { StatGrid } from './StatGrid';
 
 /** Props of {@link VerificationReport}. */
 export interface VerificationReportProps {
-  report: Report;
+  /** The stored report; with the version's robustness when read from GET /sequences/versions/:id. */
+  report: Report & { robustness?: VersionRobustness | null };
+  /** The composer's cue of each step, for the per-step rotation table; default none. */
+  cues?: readonly string[];
   /** The version the report belongs to (for the 3D preview). */
   versionId: string;
   /** Number of the profile version the report was computed for. */
@@ -33,7 +39,7 @@ const DEG = 180 / Math.PI;
  * The engine's verification of one version: verdict, key figures, plots, range violations, joint
  * rates and what it takes to reproduce the computation.
  */
-export function VerificationReport({ report, versionId, profileVersion, hidePlots = false }: VerificationReportProps) {
+export function VerificationReport({ report, cues = [], versionId, profileVersion, hidePlots = false }: VerificationReportProps) {
   const { target, final, momentum, peakJointRate, timeBudget, series } = report;
   const q = target.attitude;
   const targetYpr = quatToYpr([q.w, q.x, q.y, q.z]);
@@ -41,6 +47,7 @@ export function VerificationReport({ report, versionId, profileVersion, hidePlot
   return (
     <View style={styles.wrap} testID="verification-report">
       <Verdict ok={ok} report={report} />
+      <LiveRobustnessCaution versionId={versionId} initial={report.robustness ?? null} testID="report-robustness-caution" />
       <StatGrid
         stats={[
           {
@@ -57,6 +64,12 @@ export function VerificationReport({ report, versionId, profileVersion, hidePlot
             label: 'Final rotation',
             value: fmtDeg(final.rotation.angleDeg),
             note: `about [${final.rotation.axis.map((a) => fmtNum(a, 2)).join(', ')}]`,
+          },
+          {
+            label: 'Path travelled',
+            value: report.pathDeg === undefined ? '—' : fmtDeg(report.pathDeg, 0),
+            note: '∫|ω| dt, to-and-fro included',
+            testID: 'stat-path',
           },
           {
             label: 'Duration',
@@ -85,6 +98,16 @@ export function VerificationReport({ report, versionId, profileVersion, hidePlot
       />
       <Section title="Robustness">
         <RobustnessPanel versionId={versionId} />
+      </Section>
+      <Section title="Where the rotation comes from">
+        {report.stepRotations?.length ? (
+          <>
+            <Text variant="caption" tone="muted">Each step’s rotation about the body’s axes at the step’s start (lead-in included); the steps’ rotations in order make the final attitude. Per cycle: the rotation of one cycle of each sweep.</Text>
+            <StepRotationsTable steps={report.stepRotations} cues={cues} />
+          </>
+        ) : (
+          <Text tone="muted">This report was computed before per-step rotations were recorded; save the steps again to see them.</Text>
+        )}
       </Section>
       {hidePlots ? null : (
         <Section title="Plots">

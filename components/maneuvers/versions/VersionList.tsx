@@ -4,6 +4,7 @@ import { colors, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { ReportBrief, VersionSummary } from '@/shared/contracts/maneuver';
 import { fmtDeg, fmtSeconds, fmtWhen } from '../report/format';
+import { RobustnessBadge } from '../robustness/RobustnessCaution';
 import { VersionStatusBadge } from '../VersionStatusBadge';
 
 /** Props of {@link VersionList}. */
@@ -49,9 +50,12 @@ export function VersionList({ versions, selectedId, onOpen }: VersionListProps) 
             {v.authorName ?? 'unknown author'} · {fmtWhen(v.createdAt)} · profile v{v.profileVersion}
             {v.profileIsCurrent ? '' : ' (no longer current)'}
           </Text>
-          <Text variant="caption" tone={v.summary?.withinTolerance === false ? 'danger' : 'default'}>
-            {summaryLine(v)}
-          </Text>
+          <View style={styles.line}>
+            <Text variant="caption" tone={v.summary?.withinTolerance === false ? 'danger' : 'default'}>
+              {summaryLine(v)}
+            </Text>
+            <RobustnessBadge robustness={v.robustness} />
+          </View>
           {v.clearedByName ? (
             <Text variant="caption" tone="success">
               Cleared by {v.clearedByName} · {fmtWhen(v.clearedAt)}
@@ -75,6 +79,7 @@ export function VersionList({ versions, selectedId, onOpen }: VersionListProps) 
 }
 
 const styles = StyleSheet.create({
+  line: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
   list: { gap: spacing.sm },
   row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: 2 },
   selected: { borderColor: colors.accent },

@@ -1,0 +1,29 @@
+/**
+ * How robustness reads wherever a version is shown (report, review, lists, player, cue card on
+ * screen and in the PDF): one wording per level (DECISIONS.md "Robustness"), so every place says
+ * the same thing. Zod-free, so the player and the PDF renderer can import it.
+ */
+import type { RobustnessLevel } from '../contracts/robustness.ts';
+
+/** Short label of a level. */
+export const LEVEL_LABEL: Record<RobustnessLevel, string> = {
+  robust: 'Robust',
+  marginal: 'Marginal',
+  not_robust: 'Not robust',
+};
+
+const deg = (v: number) => `${v.toFixed(1)}°`;
+
+/**
+ * The sentence for a finished run: what the 95th percentile with feedback means against the
+ * tolerance, and for marginal and not robust the caution that goes with it.
+ */
+export function levelSentence(level: RobustnessLevel, feedbackP95Deg: number, toleranceDeg: number): string {
+  if (level === 'robust') {
+    return `Robust: with feedback, 95 % of simulated executions end within the ${deg(toleranceDeg)} tolerance (95th percentile ${deg(feedbackP95Deg)}).`;
+  }
+  if (level === 'marginal') {
+    return `Caution, marginal: with feedback, 1 in 20 simulated executions ends more than ${deg(feedbackP95Deg)} off, beyond the ${deg(toleranceDeg)} tolerance (up to 3×). Rehearse with care and expect to trim with extra cycles.`;
+  }
+  return `Caution, not robust: with feedback, 1 in 20 simulated executions ends more than ${deg(feedbackP95Deg)} off, over 3× the ${deg(toleranceDeg)} tolerance. A small execution error spoils this maneuver; do not rely on it without re-planning.`;
+}
