@@ -6,9 +6,11 @@
 import type { Body } from '../../shared/contracts/body.ts';
 import type { SequenceTarget, VerificationReport, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
+import type { RobustnessLevel, VersionRobustness } from '../../shared/contracts/robustness.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
 import { engineBindingText, shortEngineVersion } from '../../shared/product/engine-binding.ts';
+import { robustnessSentence } from '../../shared/product/robustness-wording.ts';
 import { HttpError } from '../http/http-error.ts';
 import { stepTimeline } from '../motion/step-timeline.ts';
 import { CUE_CARD_CAUTIONS } from './cue-card-cautions.ts';
@@ -66,6 +68,16 @@ export interface CueCardContent {
   } | null;
   /** Peak joint rate against the sequence's limit; null without a report. */
   peakJointRate: { maxDegS: number; dofLabel: string | null; limitDegS: number; withinLimit: boolean } | null;
+  /**
+   * The robustness run's verdict, printed before the steps: the level's sentence (a caution for
+   * marginal and not robust), the percentiles and the run's seed; `level` null while not done.
+   */
+  robustness: {
+    level: RobustnessLevel | null;
+    sentence: string;
+    /** "95th pct. with feedback 4.1°, open-loop 12.0°; median 1.3°; 62 % within tolerance (1,000 samples, seed 1)", or null while not done. */
+    figures: string | null;
+  };
   steps: CueCardStep[];
   /** One stick-figure pictogram per step (same order), or null without the body or a report. */
   pictograms: StepPictogram[] | null;
@@ -114,6 +126,17 @@ function compiledStepCues(v: VersionDetail): (string | undefined)[] {
   });
 }
 
+/** The card's robustness lines from the version's newest run. */
+function robustnessLines(rb: VersionRobustness | null): CueCardContent['robustness'] {
+  const done = rb?.state === 'done' && rb.feedbackP95Deg !== null;
+  return {
+    level: done ? rb.level : null,
+    sentence: robustnessSentence(rb),
+    figures: done
+      ? `95th percentile with feedback ${deg(rb.feedbackP95Deg ?? 0, 1)}, open-loop ${deg(rb.openLoopP95Deg ?? 0, 1)}; median ${deg(rb.p50Deg ?? 0, 1)}; ${Math.round((rb.withinToleranceShare ?? 0) * 100)} % within tolerance (${rb.samples.toLocaleString('en-US')} samples, seed ${rb.seed})`
+      : null,
+  };
+}
 
 /**
  * The card for a cleared version. Throws HttpError 409 `not_cleared` for any other status and
@@ -161,6 +184,7 @@ export function cueCardContent(v: VersionDetail, crew: { callSign: string | null
       limitDegS: r.peakJointRate.limitDegS,
       withinLimit: r.peakJointRate.withinLimit,
     } : null,
+    robustness: robustnessLines(r?.robustness ?? null),
     steps,
     pictograms: body && r ? stepPictograms(body, r, steps) : null,
     attitude: r ? attitudeSeries(r, target) : null,

@@ -22,6 +22,8 @@ const INK = '#1B1F24';
 const MUTED = '#5B6470';
 const LINE = '#D5DAE1';
 const ACCENT = '#FFB454';
+/** Print red for a robustness caution (readable on white, kept apart from the amber rule). */
+const DANGER = '#B3261E';
 const MARGIN = 48;
 
 /** "2025-03-04 09:15 UTC" from an ISO time (the card is read away from any screen's time zone). */
@@ -102,7 +104,22 @@ export function renderCueCard(card: CueCardContent, opts: RenderCueCardOptions =
     const p = card.peakJointRate;
     line('Peak joint rate', `${Math.round(p.maxDegS)}°/s${p.dofLabel ? ` (${p.dofLabel})` : ''} against a limit of ${Math.round(p.limitDegS)}°/s: ${p.withinLimit ? 'within' : 'above'} the limit`);
   }
-  y += 6;
+  // Robustness: the level's sentence, boxed and tinted when it is a caution, then the figures.
+  const rb = card.robustness;
+  const caution = rb.level !== 'robust';
+  doc.font('semibold').fontSize(10);
+  const sentH = doc.heightOfString(rb.sentence, { width: width - 14 });
+  doc.font('regular').fontSize(9);
+  const figH = rb.figures ? doc.heightOfString(rb.figures, { width: width - 14 }) + 3 : 0;
+  y += 4;
+  doc.save().rect(left, y - 2, 2.5, sentH + figH + 4).fill(caution ? DANGER : LINE).restore();
+  doc.font('semibold').fontSize(10).fillColor(caution ? DANGER : INK).text(rb.sentence, left + 12, y, { width: width - 14 });
+  y = doc.y + 3;
+  if (rb.figures) {
+    doc.font('regular').fontSize(9).fillColor(MUTED).text(rb.figures, left + 12, y, { width: width - 14 });
+    y = doc.y;
+  }
+  y += 12;
 
   // Step table: tick box, number, time, pictogram (when drawn), cue.
   const PIC = 46;

@@ -95,6 +95,13 @@ describe('cue card content (pure assembly from the version)', () => {
     for (const words of ['planning and training aid', 'flight rules', 'tethering rules', 'certified procedures', 'injury risk', 'uncertainty']) {
       expect(cautions).toContain(words);
     }
+    // The deciding figure is on the card: the level's sentence and the run's percentiles and seed.
+    const rb = v.report!.robustness!;
+    expect(rb.state).toBe('done');
+    expect(card.robustness.level).toBe(rb.level);
+    expect(card.robustness.sentence).toContain(`${rb.feedbackP95Deg!.toFixed(1)}°`);
+    if (rb.level !== 'robust') expect(card.robustness.sentence).toMatch(/^Caution, (marginal|not robust):/);
+    expect(card.robustness.figures).toContain(`seed ${rb.seed}`);
     expect(card.engineVersionShort).toBe(v.engineVersion!.split('+')[0] + '+' + v.engineVersion!.split('+')[1].slice(0, 8));
     expect(card.inputsHashShort).toBe(v.inputsHash!.slice(0, 12));
     expect(card.engineNote).toBeNull();
@@ -137,6 +144,8 @@ describe('GET /api/sequences/versions/:versionId/cue-card.pdf', () => {
     expect(text).toContain('HERON');
     expect(text).toMatch(/legs together and straight, small hip circles/i);
     expect(text).toContain('injury risk');
+    expect(text).toMatch(/(Robust|Caution, marginal|Caution, not robust): with feedback/);
+    expect(text).toMatch(/95th percentile with feedback \d+(\.\d)?°/);
     const audits = await t.ctx.db.select().from(auditEvents).where(and(eq(auditEvents.action, 'cue_card.download'), eq(auditEvents.objectId, cleared)));
     expect(audits.length).toBeGreaterThanOrEqual(1);
   });

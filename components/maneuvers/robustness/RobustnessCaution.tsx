@@ -7,7 +7,7 @@ import { Text } from '@/components/ui/Text';
 import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import { levelOf, type RobustnessBrief, type RobustnessLevel } from '@/shared/contracts/robustness';
 import type { RobustnessRun } from '@/shared/contracts/robustness-run';
-import { LEVEL_LABEL, levelSentence } from '@/shared/product/robustness-wording';
+import { LEVEL_LABEL, robustnessSentence } from '@/shared/product/robustness-wording';
 
 /** What the caution needs: a list brief or a full record (both carry these fields). */
 export type RobustnessLike = Pick<RobustnessBrief, 'state' | 'progress' | 'feedbackP95Deg' | 'toleranceDeg' | 'level'>;
@@ -17,15 +17,6 @@ const LEVEL_LOOK: Record<RobustnessLevel, { tone: 'success' | 'accent' | 'danger
   marginal: { tone: 'accent', icon: 'alert-triangle', bg: colors.accentTint, edge: 'rgba(255, 180, 84, 0.5)' },
   not_robust: { tone: 'danger', icon: 'alert-octagon', bg: colors.dangerTint, edge: 'rgba(255, 107, 107, 0.5)' },
 };
-
-/** The sentence for a version's robustness in any state (null: never computed). */
-export function robustnessText(r: RobustnessLike | null): string {
-  if (!r) return 'Robustness not computed for this version: how reliably a person lands it is unknown.';
-  if (r.state === 'done' && r.level && r.feedbackP95Deg !== null) return levelSentence(r.level, r.feedbackP95Deg, r.toleranceDeg);
-  if (r.state === 'queued') return 'Robustness run queued: how reliably a person lands this version is not known yet.';
-  if (r.state === 'running') return `Robustness run in progress (${Math.round(r.progress * 100)} %): how reliably a person lands this version is not known yet.`;
-  return `Robustness run ${r.state}: how reliably a person lands this version is unknown until it is run again.`;
-}
 
 /**
  * A version's robustness as one banner: the level's sentence (robust / marginal / not robust), or
@@ -38,7 +29,7 @@ export function RobustnessCaution({ robustness, testID = 'robustness-caution' }:
   return (
     <View style={[styles.banner, { backgroundColor: look.bg, borderColor: look.edge }]} role={level && level !== 'robust' ? 'alert' : 'status'} testID={testID}>
       <Icon name={look.icon} size={18} color={iconColor} />
-      <Text style={styles.flex} tone={level ? look.tone : 'default'}>{robustnessText(robustness)}</Text>
+      <Text style={styles.flex} tone={level ? look.tone : 'default'}>{robustnessSentence(robustness)}</Text>
     </View>
   );
 }
