@@ -17,10 +17,12 @@ export interface CueCardProps {
   nextCue?: string;
   /** True while the step's lead-in (the joining move into its start posture) plays. */
   inLeadIn?: boolean;
+  /** The version's robustness caution (marginal or not robust), shown at the card's foot; default none. */
+  caution?: string | null;
 }
 
 /** The overlay over the 3D view: step number, cue, "cycle 2 of 4" and a beat lamp that flashes each cycle. */
-export function CueCard({ step, stepCount, cycle, beats, nextCue, inLeadIn = false }: CueCardProps) {
+export function CueCard({ step, stepCount, cycle, beats, nextCue, inLeadIn = false, caution = null }: CueCardProps) {
   const [flash] = useState(() => new Animated.Value(0));
   useEffect(() => {
     if (beats === 0) return;
@@ -64,6 +66,11 @@ export function CueCard({ step, stepCount, cycle, beats, nextCue, inLeadIn = fal
       {nextCue && !inLeadIn ? (
         <Text variant="caption" tone="muted" numberOfLines={1}>
           Next: {nextCue}
+        </Text>
+      ) : null}
+      {caution ? (
+        <Text variant="caption" tone="accent" numberOfLines={2} testID="cue-robustness">
+          {caution}
         </Text>
       ) : null}
     </View>

@@ -37,6 +37,8 @@ export interface RehearsalPlayerProps {
   onLog?: (run: RunSummary) => void;
   /** Embedded preview inside a report: smaller controls, no title bar. Default false. */
   compact?: boolean;
+  /** The version's robustness caution, shown on the cue card (marginal or not robust); default none. */
+  caution?: string | null;
 }
 
 const SPEED_OPTIONS = PLAYBACK_SPEEDS.map((s) => ({ value: String(s), label: `${s}×` }));
@@ -55,7 +57,7 @@ const PRESETS: { value: ViewPreset; label: string }[] = [
  * beat, a step timeline to scrub, transport (previous/next step, play/pause, loop a step, tick sound),
  * speed 0.25×–2×, observer or body-fixed camera with preset views.
  */
-export default function RehearsalPlayer({ motion, onClose, onLog, compact = false }: RehearsalPlayerProps) {
+export default function RehearsalPlayer({ motion, onClose, onLog, compact = false, caution = null }: RehearsalPlayerProps) {
   const built = useMemo(() => {
     try {
       return { scene: buildSceneModel(motion), error: null };
@@ -117,6 +119,7 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
             beats={snap.beats}
             nextCue={motion.steps[snap.step + 1]?.cue}
             inLeadIn={!!step?.leadIn && snap.time < step.leadIn.end - 1e-6}
+            caution={caution}
           />
           <View style={styles.legend} pointerEvents="none">
             <LegendDot color={scenePalette.left} label="Left" />

@@ -11,7 +11,11 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
 import { Text } from '@/components/ui/Text';
+import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import { CueCardButton } from '@/components/maneuvers/CueCardButton';
+import { RobustnessCaution } from '@/components/maneuvers/robustness/RobustnessCaution';
+import { levelOf } from '@/shared/contracts/robustness';
+import { LEVEL_LABEL } from '@/shared/product/robustness-wording';
 import { CaptureTrend } from './CaptureTrend';
 import { LazyPlayer } from './LazyPlayer';
 import { RehearsalHistory } from './RehearsalHistory';
@@ -33,7 +37,14 @@ export function RehearsalSession({ versionId }: RehearsalSessionProps) {
   const history = useRehearsalHistoryQuery(versionId);
   const [playing, setPlaying] = useState(true);
   const [run, setRun] = useState<{ summary: RunSummary; n: number } | null>(null);
+  const robustness = useVersionRobustnessQuery(versionId);
   const version = versions.data?.find((v) => v.versionId === versionId);
+  const rb = robustness.data;
+  const level = rb ? levelOf(rb.feedbackP95Deg, rb.toleranceDeg) : null;
+  // Short form for the cue card over the 3D view (the full sentence is on the session screen).
+  const cueCaution = rb && level && level !== 'robust' && rb.feedbackP95Deg !== null
+    ? `${LEVEL_LABEL[level]}: 1 in 20 executions ends over ${rb.feedbackP95Deg.toFixed(1)}° off (tolerance ${rb.toleranceDeg.toFixed(1)}°); trim with care.`
+    : null;
   const stale = version?.status === 'recheck';
   const finish = (r: RunSummary) => {
     setRun((prev) => ({ summary: r, n: (prev?.n ?? 0) + 1 }));
@@ -62,6 +73,9 @@ export function RehearsalSession({ versionId }: RehearsalSessionProps) {
       ) : undefined}
     >
       <View style={styles.col}>
+        {robustness.isPending ? null : (
+          <RobustnessCaution robustness={rb ? { state: rb.state, progress: rb.progress, feedbackP95Deg: rb.feedbackP95Deg, toleranceDeg: rb.toleranceDeg, level } : null} testID="session-robustness-caution" />
+        )}
         {stale ? (
           <Card title="Re-check needed">
             <Text tone="danger">
@@ -77,7 +91,7 @@ export function RehearsalSession({ versionId }: RehearsalSessionProps) {
       </View>
       <Modal visible={playing && !stale} animationType="fade" onRequestClose={() => setPlaying(false)}>
         <View style={styles.player}>
-          <LazyPlayer versionId={versionId} onClose={finish} onLog={finish} />
+          <LazyPlayer versionId={versionId} onClose={finish} onLog={finish} caution={cueCaution} />
         </View>
       </Modal>
     </Screen>
