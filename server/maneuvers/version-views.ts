@@ -182,12 +182,13 @@ export interface SequenceListRow {
 }
 
 /** The list's brief of a version from its lateral look-up (null: none). */
-function toBrief(v: { id: string | null; version: number | null; status: string | null; summary: unknown }): VersionBrief | null {
+function toBrief(v: { id: string | null; version: number | null; status: string | null; summary: unknown; robustness: RobustnessListRow | null }): VersionBrief | null {
   if (!v.id || v.version === null || !v.status) return null;
   const s = v.summary as ReportSummary | null;
   return {
     id: v.id, version: v.version, status: v.status as VersionBrief['status'],
     summary: s ? { durationS: s.durationS, targetErrorDeg: s.targetErrorDeg, withinTolerance: s.withinTolerance, rangeViolationCount: s.rangeViolationCount } : null,
+    robustness: v.robustness ? toRobustnessBrief(v.robustness) : null,
   };
 }
 
@@ -198,7 +199,11 @@ function toBrief(v: { id: string | null; version: number | null; status: string 
  */
 export async function sequenceListRows(db: Database, where: SQL | undefined, visible: SQL | undefined): Promise<SequenceListRow[]> {
   const ofSequence = eq(sequenceVersions.sequenceId, sequences.id);
-  const brief = { id: sequenceVersions.id, version: sequenceVersions.version, status: sequenceVersions.status, summary: sequenceVersions.reportSummary };
+  // The newest robustness run of the version, as one JSON value (state, progress, feedback p95 and tolerance).
+  const run = sql<RobustnessListRow | null>`(SELECT jsonb_build_object('id', r.id, 'state', r.state, 'samples', r.samples, 'doneSamples', r.done_samples,
+    'toleranceDeg', r.tolerance_deg, 'feedbackP95Deg', (r.figures->>'feedbackP95Deg')::float8)
+    FROM ${robustnessRuns} r WHERE r.sequence_version_id = ${sequenceVersions.id} ORDER BY r.created_at DESC LIMIT 1)`;
+  const brief = { id: sequenceVersions.id, version: sequenceVersions.version, status: sequenceVersions.status, summary: sequenceVersions.reportSummary, robustness: run.as('robustness') };
   const latest = db.select(brief).from(sequenceVersions)
     .where(allOf(ofSequence, visible)).orderBy(desc(sequenceVersions.version)).limit(1).as('latest');
   const cleared = db.select(brief).from(sequenceVersions)
@@ -208,8 +213,8 @@ export async function sequenceListRows(db: Database, where: SQL | undefined, vis
   const rows = await db
     .select({
       s: sequences, crewMemberName: crewMembers.name, versionCount: count,
-      latest: { id: latest.id, version: latest.version, status: latest.status, summary: latest.summary },
-      cleared: { id: cleared.id, version: cleared.version, status: cleared.status, summary: cleared.summary },
+      latest: { id: latest.id, version: latest.version, status: latest.status, summary: latest.summary, robustness: latest.robustness },
+      cleared: { id: cleared.id, version: cleared.version, status: cleared.status, summary: cleared.summary, robustness: cleared.robustness },
     })
     .from(sequences)
     .innerJoin(crewMembers, eq(crewMembers.id, sequences.crewMemberId))

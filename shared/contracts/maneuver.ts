@@ -421,6 +421,8 @@ export const versionBriefSchema = z.object({
   version: z.number().int(),
   status: versionStatusSchema,
   summary: reportBriefSchema.nullable(),
+  /** The newest robustness run's state and level (null: never queued). */
+  robustness: robustnessBriefSchema.nullable(),
 });
 export type VersionBrief = z.infer<typeof versionBriefSchema>;
 
