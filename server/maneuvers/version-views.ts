@@ -202,7 +202,7 @@ export async function sequenceListRows(db: Database, where: SQL | undefined, vis
   // The newest robustness run of the version, as one JSON value (state, progress, feedback p95 and tolerance).
   const run = sql<RobustnessListRow | null>`(SELECT jsonb_build_object('id', r.id, 'state', r.state, 'samples', r.samples, 'doneSamples', r.done_samples,
     'toleranceDeg', r.tolerance_deg, 'feedbackP95Deg', (r.figures->>'feedbackP95Deg')::float8)
-    FROM ${robustnessRuns} r WHERE r.sequence_version_id = ${sequenceVersions.id} ORDER BY r.created_at DESC LIMIT 1)`;
+    FROM robustness_runs r WHERE r.sequence_version_id = sequence_versions.id ORDER BY r.created_at DESC LIMIT 1)`;
   const brief = { id: sequenceVersions.id, version: sequenceVersions.version, status: sequenceVersions.status, summary: sequenceVersions.reportSummary, robustness: run.as('robustness') };
   const latest = db.select(brief).from(sequenceVersions)
     .where(allOf(ofSequence, visible)).orderBy(desc(sequenceVersions.version)).limit(1).as('latest');
@@ -213,8 +213,8 @@ export async function sequenceListRows(db: Database, where: SQL | undefined, vis
   const rows = await db
     .select({
       s: sequences, crewMemberName: crewMembers.name, versionCount: count,
-      latest: { id: latest.id, version: latest.version, status: latest.status, summary: latest.summary, robustness: latest.robustness },
-      cleared: { id: cleared.id, version: cleared.version, status: cleared.status, summary: cleared.summary, robustness: cleared.robustness },
+      latest: { id: latest.id, version: latest.version, status: latest.status, summary: latest.summary, robustness: sql<RobustnessListRow | null>`"latest"."robustness"` },
+      cleared: { id: cleared.id, version: cleared.version, status: cleared.status, summary: cleared.summary, robustness: sql<RobustnessListRow | null>`"cleared"."robustness"` },
     })
     .from(sequences)
     .innerJoin(crewMembers, eq(crewMembers.id, sequences.crewMemberId))

@@ -43,6 +43,7 @@ function brief(v: VersionSummary | null) {
   return {
     id: v.id, version: v.version, status: v.status,
     summary: m ? { durationS: m.durationS, targetErrorDeg: m.targetErrorDeg, withinTolerance: m.withinTolerance, rangeViolationCount: m.rangeViolationCount } : null,
+    robustness: v.robustness,
   };
 }
 
@@ -54,7 +55,7 @@ describe('sequence list', () => {
       for (const s of list) {
         // Lean: nothing beyond the list contract (no full summaries, reports or samples).
         expect(() => sequenceListItemSchema.strict().parse(s)).not.toThrow();
-        for (const v of [s.latest, s.cleared]) if (v) expect(Object.keys(v).sort()).toEqual(['id', 'status', 'summary', 'version']);
+        for (const v of [s.latest, s.cleared]) if (v) expect(Object.keys(v).sort()).toEqual(['id', 'robustness', 'status', 'summary', 'version']);
         const d = (await as(t, who).get(`/sequences/${s.id}`)).body as SequenceDetail;
         const { versions, latest, cleared, ...head } = d;
         expect({ ...head, latest: brief(latest), cleared: brief(cleared) }).toEqual(s);
