@@ -3,6 +3,8 @@ import path from 'node:path';
 
 import { defineConfig, devices } from '@playwright/test';
 
+import { envVar } from './server/config.ts';
+
 /**
  * E2E against the real product: `npm start`'s own script on a free port with a throwaway data
  * folder (PostgreSQL, SMTP and S3 fakes included), in Debian's Chromium with software WebGL.
@@ -11,8 +13,8 @@ import { defineConfig, devices } from '@playwright/test';
 // Chosen once in the runner process; its test workers inherit it through the environment.
 process.env.E2E_PORT ??= String(20000 + Math.floor(Math.random() * 20000));
 const port = Number(process.env.E2E_PORT);
-process.env.E2E_DATA_DIR ??= path.join(os.tmpdir(), `hn-e2e-${port}`);
-const dataDir = process.env.E2E_DATA_DIR;
+const dataDir = envVar('E2E_DATA_DIR') ?? path.join(os.tmpdir(), `hn-e2e-${port}`);
+process.env.E2E_DATA_DIR = dataDir;
 
 // Headless Chromium without a GPU: WebGL 2 through SwiftShader; no background network calls.
 export const CHROMIUM_ARGS = [

@@ -44,7 +44,9 @@ export function createDatabase(url: string, opts: DatabaseOptions = {}): { db: D
   const connect = pool.connect.bind(pool) as (cb?: (err: Error | undefined, client?: pg.PoolClient, done?: (release?: unknown) => void) => void) => Promise<pg.PoolClient> | void;
   pool.connect = ((cb?: (err: Error | undefined, client?: pg.PoolClient, done?: (release?: unknown) => void) => void) => {
     if (cb) return connect((err, client, done) => cb(err ? (markConnectError(err) as Error) : undefined, client, done));
-    return (connect() as Promise<pg.PoolClient>).catch((err: unknown) => Promise.reject(markConnectError(err)));
+    return (connect() as Promise<pg.PoolClient>).catch((err: unknown) => {
+      throw markConnectError(err);
+    });
   }) as typeof pool.connect;
   const db = drizzle(pool, { schema });
   return { db, pool };

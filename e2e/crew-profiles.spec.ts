@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 
-import { expect, test, type Page } from '@playwright/test';
+import { expect, type Page, test } from '@playwright/test';
 
 import { DEMO_PEOPLE } from '../db/seed/demo-people.ts';
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';

@@ -1,4 +1,4 @@
-import { expect, test, type APIRequestContext } from '@playwright/test';
+import { type APIRequestContext, expect, test } from '@playwright/test';
 
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
 import { signIn } from './support/sign-in.ts';

@@ -1,7 +1,7 @@
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { type APIRequestContext, expect, type Page, test } from '@playwright/test';
 
 import { DEMO_BY_ROLE, DEMO_PASSWORD } from './support/demo-accounts.ts';
 import { signIn } from './support/sign-in.ts';

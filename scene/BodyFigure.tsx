@@ -3,7 +3,7 @@ import { type ThreeElements } from '@react-three/fiber';
 import { useLayoutEffect, useMemo, useRef } from 'react';
 import { CapsuleGeometry, MeshStandardMaterial, type Object3D, SphereGeometry } from 'three';
 
-import type { SegmentShape, BodySide } from './pose/segment-shapes';
+import type { BodySide, SegmentShape } from './pose/segment-shapes';
 import type { WorldPose } from './pose/world-pose';
 import { scenePalette } from './scene-palette';
 

@@ -3,8 +3,8 @@ import { OrbitControls } from '@react-three/drei/core/OrbitControls';
 import { type RootState, useFrame, useThree } from '@react-three/fiber';
 import { type RefObject, useEffect, useLayoutEffect, useMemo, useRef } from 'react';
 import {
-  BufferGeometry, type Camera, Float32BufferAttribute, PerspectiveCamera, Line, LineBasicMaterial, Matrix4, type Mesh, MeshBasicMaterial,
-  type Object3D, Quaternion, RingGeometry, SphereGeometry, Vector3,
+  BufferGeometry, type Camera, Float32BufferAttribute, Line, LineBasicMaterial, Matrix4, type Mesh, MeshBasicMaterial,
+  type Object3D, PerspectiveCamera, Quaternion, RingGeometry, SphereGeometry, Vector3,
 } from 'three';
 import type { OrbitControls as OrbitControlsImpl } from 'three-stdlib';
 
@@ -163,7 +163,7 @@ export function RehearsalScene({ scene, clock, cameraMode = 'observer', preset =
     ringMat: new MeshBasicMaterial({ color: scenePalette.beat, transparent: true, opacity: 0, depthWrite: false }),
   }), []);
   useEffect(() => () => {
-    trail.geometry.dispose(); (trail.material as LineBasicMaterial).dispose();
+    trail.geometry.dispose(); (trail.material).dispose();
     marks.target.dispose(); marks.targetMat.dispose(); marks.ring.dispose(); marks.ringMat.dispose();
   }, [trail, marks]);
 

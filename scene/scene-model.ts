@@ -3,12 +3,13 @@
  * body, drawing shapes and sides, the sample track, the target ghost's pose and the head-axis path.
  */
 import type { MotionResponse } from '@/shared/contracts/motion';
-import { bodyCamera } from './camera-presets';
 import { type BodyModel, compileBody } from '@/shared/kinematics/body-model';
 import { createBodyPose, forwardKinematics } from '@/shared/kinematics/forward-kinematics';
+
+import { bodyCamera } from './camera-presets';
 import { trackStateAt } from './pose/interpolate';
 import { createMotionTrack, type MotionTrack } from './pose/motion-track';
-import { type BodySide, segmentShapes, segmentSide, type SegmentShape } from './pose/segment-shapes';
+import { type BodySide, type SegmentShape, segmentShapes, segmentSide } from './pose/segment-shapes';
 import { computeWorldPose, createWorldPose, type WorldPose } from './pose/world-pose';
 
 /** Radius of the sphere the head-axis trail is drawn on, m. */

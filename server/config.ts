@@ -100,6 +100,12 @@ export const configSchema = z.object({
 
 export type Config = z.infer<typeof configSchema>;
 
+/** One environment variable as Node gives it (Expo's global types widen `process.env` entries to `any`). */
+export function envVar(name: string): string | undefined {
+  const value: unknown = process.env[name];
+  return typeof value === 'string' ? value : undefined;
+}
+
 /** Parses the environment; throws one message listing every bad setting. */
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = configSchema.safeParse(env);

@@ -1,6 +1,7 @@
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 
 import type { AuditEvent } from '@/shared/contracts/team';
+
 import { apiFetch } from './client';
 
 /** Filters of the audit log view; times are ISO 8601 date-times, empty strings mean "any". */

@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { BackgroundWork, WorkFilter, WorkKind } from '@/shared/contracts/background-work';
+
 import { apiFetch } from './client';
 
 /** Query keys of the admin's background-work view. */

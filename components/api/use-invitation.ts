@@ -2,6 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { SignInResponse } from '@/shared/contracts/auth';
 import type { AcceptInvitationRequest, InvitationPreview } from '@/shared/contracts/team';
+
 import { apiFetch } from './client';
 import { sessionKeys } from './session-keys';
 

@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { Plan, PlanCreated, PlanList, PlanRequest } from '@/shared/contracts/plan';
+
 import { apiFetch } from './client';
 
 /** Query keys of maneuver plans ("Suggest steps"). */

@@ -2,6 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { BvhMapping, RecordingView } from '@/shared/contracts/recording';
 import type { UploadResult } from '@/shared/contracts/uploads';
+
 import { apiFetch } from './client';
 import { postFile } from './use-uploads';
 

@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { LogRehearsalRequest, RehearsableVersion, Rehearsal } from '@/shared/contracts/rehearsal';
+
 import { apiFetch } from './client';
 
 /** Query keys of rehearsals. */

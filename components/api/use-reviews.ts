@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { ReviewCommentRequest, ReviewDecisionRequest, ReviewQueueItem, VersionDetail } from '@/shared/contracts/maneuver';
+
 import { apiFetch } from './client';
 import { sequenceKeys } from './use-sequences';
 

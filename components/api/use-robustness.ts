@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { RobustnessRun, StartRobustnessRequest } from '@/shared/contracts/robustness-run';
+
 import { apiFetch, isApiStatus } from './client';
 
 /** Query keys of version robustness runs. */

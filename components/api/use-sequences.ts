@@ -14,6 +14,7 @@ import type {
   UpdateSequenceRequest,
   VersionDetail,
 } from '@/shared/contracts/maneuver';
+
 import { apiFetch } from './client';
 
 /** Query keys of the Maneuvers area (sequences, their versions, comparisons). */

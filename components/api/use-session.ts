@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { ChangePasswordRequest, SessionUser, SignInRequest, SignInResponse } from '@/shared/contracts/auth';
+
 import { apiFetch, isApiStatus } from './client';
 import { sessionKeys } from './session-keys';
 

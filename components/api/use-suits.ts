@@ -2,6 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { SuitView } from '@/shared/contracts/crew';
 import type { SuitConfigInput } from '@/shared/contracts/suit';
+
 import { ApiError, apiFetch } from './client';
 
 /** Query keys of the suit configurations. */

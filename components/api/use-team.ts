@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { Invitation, InviteRequest, TeamMember, UpdateUserRequest } from '@/shared/contracts/team';
+
 import { apiFetch } from './client';
 
 /** Query keys of the Team area (admin). */

@@ -1,7 +1,8 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 
-import type { UploadResult } from '@/shared/contracts/uploads';
 import { apiErrorSchema } from '@/shared/contracts/api-error';
+import type { UploadResult } from '@/shared/contracts/uploads';
+
 import { ApiError, apiUrl } from './client';
 import { crewKeys } from './use-crew';
 

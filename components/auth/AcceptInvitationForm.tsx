@@ -11,6 +11,7 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
 import type { SessionUser } from '@/shared/contracts/auth';
 import { PASSWORD_MIN_LENGTH } from '@/shared/contracts/auth';
+
 import { acceptInvitationFormSchema } from './password-confirmation';
 
 /** Props of {@link AcceptInvitationForm}. */

@@ -10,6 +10,7 @@ import { FormTextField } from '@/components/ui/FormTextField';
 import { Sheet } from '@/components/ui/Sheet';
 import { Text } from '@/components/ui/Text';
 import { PASSWORD_MIN_LENGTH } from '@/shared/contracts/auth';
+
 import { changePasswordFormSchema } from './password-confirmation';
 
 /** Props of {@link ChangePasswordSheet}. */

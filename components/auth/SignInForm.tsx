@@ -9,6 +9,7 @@ import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
 import type { SessionUser, SignInRequest } from '@/shared/contracts/auth';
+
 import { signInResolver } from './sign-in-check';
 
 /** Props of {@link SignInForm}. */

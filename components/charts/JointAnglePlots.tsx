@@ -5,6 +5,7 @@ import { spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { RangeViolation } from '@/shared/contracts/result';
 import { DOF_LABELS, isDofName } from '@/shared/model/dof-names';
+
 import { LinePlot } from './LinePlot';
 import { plotColors } from './plot-colors';
 

@@ -11,6 +11,7 @@ import { ListRow } from '@/components/ui/ListRow';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { TextField } from '@/components/ui/TextField';
+
 import { fixed } from './format-values';
 
 /** Props of {@link CrewList}. */

@@ -9,6 +9,7 @@ import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { Screen } from '@/components/ui/Screen';
 import { Sheet } from '@/components/ui/Sheet';
+
 import { CrewList } from './CrewList';
 import { MemberDetail, type MemberView } from './MemberDetail';
 import { NewMemberForm } from './NewMemberForm';

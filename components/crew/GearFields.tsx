@@ -1,4 +1,4 @@
-import { Controller, useFieldArray, type Control } from 'react-hook-form';
+import { type Control, Controller, useFieldArray } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
@@ -7,6 +7,7 @@ import { FormTextField } from '@/components/ui/FormTextField';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
 import { SEGMENT_LABELS, SEGMENT_NAMES } from '@/shared/model/segment-names';
+
 import { NumberField } from './NumberField';
 import type { ProfileFormValues } from './profile-form';
 

@@ -11,6 +11,7 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { SegmentedControl, type SegmentOption } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
+
 import { downloadUrl } from './download-file';
 import { MemberArchive } from './MemberArchive';
 import { ProfileEditor } from './ProfileEditor';

@@ -1,4 +1,5 @@
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { View } from 'react-native';
 
@@ -8,8 +9,7 @@ import { spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
-import { createCrewMemberRequestSchema, type CreateCrewMemberInput, type CreateCrewMemberRequest } from '@/shared/contracts/crew';
-import { useState } from 'react';
+import { type CreateCrewMemberInput, type CreateCrewMemberRequest, createCrewMemberRequestSchema } from '@/shared/contracts/crew';
 
 /** Adds a crew member (name, call sign); the profile is entered next, in the editor. */
 export function NewMemberForm({ onCreated }: { onCreated: (id: string) => void }) {

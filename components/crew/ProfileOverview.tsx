@@ -4,11 +4,12 @@ import { formatDateTime } from '@/components/format/date-time';
 import { colors, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Card } from '@/components/ui/Card';
+import { type DataColumn, DataTable } from '@/components/ui/DataTable';
 import { Text } from '@/components/ui/Text';
 import type { ProfileVersionView, SegmentSummary } from '@/shared/contracts/profile-version';
 import { SEGMENT_LABELS, type SegmentName } from '@/shared/model/segment-names';
+
 import { fixed, moment, vector } from './format-values';
-import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 
 const LENGTH_LABELS: Record<string, string> = {
   head: 'Head', upperTrunk: 'Upper trunk', middleTrunk: 'Middle trunk', lowerTrunk: 'Lower trunk', upperArm: 'Upper arm',
@@ -74,14 +75,14 @@ export function ProfileOverview({ version }: { version: ProfileVersionView }) {
         </View>
         {lengths.length ? (
           <Text variant="caption" tone="muted">
-            Measured lengths: {lengths.map(([k, v]) => `${LENGTH_LABELS[k] ?? k} ${fixed(v as number, 3)} m`).join(' · ')}
+            Measured lengths: {lengths.map(([k, v]) => `${LENGTH_LABELS[k] ?? k} ${fixed(v, 3)} m`).join(' · ')}
           </Text>
         ) : (
           <Text variant="caption" tone="muted">Segment lengths scaled from stature (no measured lengths).</Text>
         )}
         {i.gear?.length ? (
           <Text variant="caption" tone="muted">
-            Gear: {i.gear.map((g) => `${g.name}, ${g.mass} kg on ${SEGMENT_LABELS[g.segment as SegmentName] ?? g.segment}`).join(' · ')}
+            Gear: {i.gear.map((g) => `${g.name}, ${g.mass} kg on ${SEGMENT_LABELS[g.segment] ?? g.segment}`).join(' · ')}
           </Text>
         ) : null}
         {i.measuredTable ? (

@@ -8,14 +8,15 @@ import { colors, fonts, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
+import { DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Text } from '@/components/ui/Text';
 import type { SuitView } from '@/shared/contracts/crew';
 import { suitConfigSchema } from '@/shared/contracts/suit';
-import { DOF_LABELS, DOF_NAMES, type DofName } from '@/shared/model/dof-names';
-import { SEGMENT_LABELS, SEGMENT_NAMES, type SegmentName } from '@/shared/model/segment-names';
+import { DOF_LABELS, DOF_NAMES } from '@/shared/model/dof-names';
+import { SEGMENT_LABELS, SEGMENT_NAMES } from '@/shared/model/segment-names';
+
 import { fixed } from './format-values';
-import { DataTable } from '@/components/ui/DataTable';
 
 /** "segments.l_thigh.mass: …" from a zod issue path and message. */
 function issueText(path: readonly PropertyKey[], message: string): string {
@@ -81,7 +82,7 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
           <DataTable
             label={`${c.name}: added mass`}
             columns={[
-              { header: 'Segment', cell: (r) => <Text variant="label">{SEGMENT_LABELS[r.seg as SegmentName] ?? r.seg}</Text>, minWidth: 150 },
+              { header: 'Segment', cell: (r) => <Text variant="label">{SEGMENT_LABELS[r.seg] ?? r.seg}</Text>, minWidth: 150 },
               { header: 'Added mass (kg)', cell: (r) => fixed(r.mass, 2), numeric: true, minWidth: 110 },
             ]}
             rows={added}
@@ -92,7 +93,7 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
           <DataTable
             label={`${c.name}: suited ranges`}
             columns={[
-              { header: 'Joint (suited range)', cell: (r) => <Text variant="label">{DOF_LABELS[r.dof as DofName] ?? r.dof}</Text>, minWidth: 200 },
+              { header: 'Joint (suited range)', cell: (r) => <Text variant="label">{DOF_LABELS[r.dof] ?? r.dof}</Text>, minWidth: 200 },
               { header: 'Min (°)', cell: (r) => fixed(r.min, 0), numeric: true, minWidth: 70 },
               { header: 'Max (°)', cell: (r) => fixed(r.max, 0), numeric: true, minWidth: 70 },
             ]}

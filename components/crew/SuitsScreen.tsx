@@ -8,6 +8,7 @@ import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
+
 import { SuitCard } from './SuitCard';
 
 /** The suit configurations (everyone reads; planners and admins edit). */

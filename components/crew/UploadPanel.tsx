@@ -10,6 +10,7 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
 import { MEASUREMENT_COLUMNS, MEASUREMENT_REQUIRED, SEGMENT_TABLE_COLUMNS, UPLOAD_MAX_BYTES } from '@/shared/contracts/uploads';
+
 import { FilePicker } from './FilePicker';
 import { UploadResultView } from './UploadResultView';
 

@@ -3,10 +3,10 @@ import { View } from 'react-native';
 import type { UploadOutcome } from '@/components/api/use-uploads';
 import { spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
+import { type DataColumn, DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Text } from '@/components/ui/Text';
 import type { ImportedRowResult, UploadRowError } from '@/shared/contracts/uploads';
-import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 
 const ERROR_COLUMNS: DataColumn<UploadRowError>[] = [
   { header: 'Row', cell: (e) => (e.row > 0 ? String(e.row) : 'file'), numeric: true, minWidth: 50, flex: 0 },

@@ -1,10 +1,11 @@
 import { useRouter } from 'expo-router';
 
 import { useSessionQuery } from '@/components/api/use-session';
+import { RecordingUploadPanel } from '@/components/recordings/RecordingUploadPanel';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { Screen } from '@/components/ui/Screen';
-import { RecordingUploadPanel } from '@/components/recordings/RecordingUploadPanel';
+
 import { UploadPanel } from './UploadPanel';
 
 /** The Crew tab's upload page (planners and admins). */

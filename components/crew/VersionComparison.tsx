@@ -5,13 +5,14 @@ import { useProfileComparisonQuery } from '@/components/api/use-crew';
 import { spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Card } from '@/components/ui/Card';
+import { type DataColumn, DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
 import type { ComparisonRow } from '@/shared/contracts/profile-version';
+
 import { comparisonValue } from './format-values';
-import { DataTable, type DataColumn } from '@/components/ui/DataTable';
 
 /** Props of {@link VersionComparison}. */
 export interface VersionComparisonProps {

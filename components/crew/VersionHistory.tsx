@@ -11,6 +11,7 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { ListRow } from '@/components/ui/ListRow';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Select } from '@/components/ui/Select';
+
 import { fixed } from './format-values';
 import { ProfileOverview } from './ProfileOverview';
 import { VersionComparison } from './VersionComparison';

@@ -5,6 +5,7 @@ import { colors, layout, radii, spacing } from '@/components/theme';
 import { useCollapseOnScroll } from '@/components/shell/header-collapse';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
+
 import { useIsWide } from './use-is-wide';
 
 /** Props of {@link SplitView}. */

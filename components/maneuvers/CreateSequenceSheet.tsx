@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm, useWatch, type Control } from 'react-hook-form';
+import { type Control, Controller, useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { useCreateSequenceMutation, useCrewOptionsQuery } from '@/components/api/use-sequences';
@@ -13,12 +13,13 @@ import { Select } from '@/components/ui/Select';
 import { Sheet } from '@/components/ui/Sheet';
 import { Text } from '@/components/ui/Text';
 import type { SequenceSummary } from '@/shared/contracts/maneuver';
+
 import {
+  type CreateSequenceFormInput,
+  type CreateSequenceFormOutput,
   createSequenceFormSchema,
   EMPTY_CREATE_SEQUENCE_FORM,
   toCreateSequenceRequest,
-  type CreateSequenceFormInput,
-  type CreateSequenceFormOutput,
 } from './create-sequence-form';
 
 /** Props of {@link CreateSequenceSheet}. */

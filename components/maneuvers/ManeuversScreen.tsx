@@ -2,7 +2,7 @@ import { useRouter } from 'expo-router';
 import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { useSequencesQuery, useCrewOptionsQuery } from '@/components/api/use-sequences';
+import { useCrewOptionsQuery, useSequencesQuery } from '@/components/api/use-sequences';
 import { useSessionQuery } from '@/components/api/use-session';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { spacing } from '@/components/theme';
@@ -15,6 +15,7 @@ import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Select } from '@/components/ui/Select';
 import { TextField } from '@/components/ui/TextField';
 import { VERSION_STATUS_LABELS, VERSION_STATUSES, type VersionStatus } from '@/shared/contracts/version-status';
+
 import { CreateSequenceSheet } from './CreateSequenceSheet';
 import { ManeuverCautions } from './ManeuverCautions';
 import { SequenceRow } from './SequenceRow';

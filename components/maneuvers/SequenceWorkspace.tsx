@@ -5,11 +5,12 @@ import { isApiStatus } from '@/components/api/client';
 import { useSequenceQuery, useVersionQuery } from '@/components/api/use-sequences';
 import { useSessionQuery } from '@/components/api/use-session';
 import { spacing } from '@/components/theme';
+import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
-import { Button } from '@/components/ui/Button';
+
 import { Composer, type ComposerPanel } from './Composer';
 
 /** Props of {@link SequenceWorkspace}. */

@@ -1,4 +1,5 @@
 import type { SequenceTarget } from '@/shared/contracts/maneuver';
+
 import { fmtDeg, fmtNum } from './report/format';
 
 /** The target in words: "yaw 90°, pitch 0°, roll 0° (±2°)" or "60° about [0, 0, 1] (±2°)". */

@@ -9,6 +9,7 @@ import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
+
 import { RecordingDetail } from './RecordingDetail';
 
 /** Upload a joint-angle CSV or a BVH recording, then review it (and its mapping) before using it in the composer. */

@@ -4,6 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import { useMotionQuery } from '@/components/api/use-motion';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
+
 import type { RehearsalPlayerProps } from './RehearsalPlayer';
 
 // three, fiber and drei load only when a player is shown (a separate chunk on web).

@@ -5,6 +5,7 @@ import { colors, spacing } from '@/components/theme';
 import { Card } from '@/components/ui/Card';
 import { Text } from '@/components/ui/Text';
 import type { Rehearsal } from '@/shared/contracts/rehearsal';
+
 import { RehearsalCapturePanel } from './RehearsalCapturePanel';
 import { shortEngineVersion } from '@/shared/product/engine-binding';
 

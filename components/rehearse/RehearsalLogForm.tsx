@@ -10,6 +10,7 @@ import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
 import { TextField } from '@/components/ui/TextField';
 import { PLAYBACK_SPEEDS } from '@/shared/contracts/rehearsal';
+
 import type { RunSummary } from './RehearsalPlayer';
 
 /** Props of {@link RehearsalLogForm}. */

@@ -1,11 +1,12 @@
 import { useRouter } from 'expo-router';
 
 import { useRehearsableVersionsQuery } from '@/components/api/use-rehearsals';
-import { RehearsableList } from './RehearsableList';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
+
+import { RehearsableList } from './RehearsableList';
 
 /** Rehearse tab: the trainee's cleared maneuvers with target, duration and last rehearsal. */
 export function RehearseScreen() {

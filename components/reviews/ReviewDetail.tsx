@@ -1,6 +1,8 @@
 import { StyleSheet, View } from 'react-native';
 
+import { isApiStatus } from '@/components/api/client';
 import { useVersionQuery } from '@/components/api/use-sequences';
+import { useIsWide } from '@/components/layout/use-is-wide';
 import { StepList } from '@/components/maneuvers/composer/StepList';
 import { fmtWhen } from '@/components/maneuvers/report/format';
 import { VerificationReport } from '@/components/maneuvers/report/VerificationReport';
@@ -8,13 +10,12 @@ import { RobustnessSummary } from '@/components/maneuvers/robustness/RobustnessS
 import { targetText } from '@/components/maneuvers/target-text';
 import { VersionStatusBadge } from '@/components/maneuvers/VersionStatusBadge';
 import { VersionStatusNotice } from '@/components/maneuvers/VersionStatusNotice';
-import { isApiStatus } from '@/components/api/client';
-import { useIsWide } from '@/components/layout/use-is-wide';
 import { spacing } from '@/components/theme';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
+
 import { ReviewDecisionPanel } from './ReviewDecisionPanel';
 import { RecheckChanges } from './RecheckChanges';
 import { ReviewHistory } from './ReviewHistory';

@@ -2,6 +2,7 @@ import { useRouter } from 'expo-router';
 
 import { Button } from '@/components/ui/Button';
 import { Screen } from '@/components/ui/Screen';
+
 import { ReviewDetail } from './ReviewDetail';
 
 /** Props of {@link ReviewScreen}. */

@@ -3,6 +3,7 @@ import { StyleSheet, View } from 'react-native';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { colors, spacing } from '@/components/theme';
 import type { SessionUser } from '@/shared/contracts/auth';
+
 import { CautionLine } from './CautionLine';
 import { useHeaderCollapsed } from './header-collapse';
 import { ProductMark } from './ProductMark';

@@ -4,10 +4,10 @@ import { Modal, Pressable, StyleSheet, View } from 'react-native';
 import { colors, radii, spacing } from '@/components/theme';
 import { Avatar } from '@/components/ui/Avatar';
 import { Icon, type IconName } from '@/components/ui/Icon';
-import { Text } from '@/components/ui/Text';
-import { ROLE_LABELS } from '@/shared/contracts/role-labels';
-import type { SessionUser } from '@/shared/contracts/auth';
 import { webPressState } from '@/components/ui/press-state';
+import { Text } from '@/components/ui/Text';
+import type { SessionUser } from '@/shared/contracts/auth';
+import { ROLE_LABELS } from '@/shared/contracts/role-labels';
 
 /** Props of {@link UserMenu}. */
 export interface UserMenuProps {

@@ -4,6 +4,7 @@ import { formatDateTime } from '@/components/format/date-time';
 import { colors, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { AuditEvent } from '@/shared/contracts/team';
+
 import { auditActionLabel } from './audit-action-labels';
 import { auditDetailLines, auditSentence } from './audit-sentence';
 

@@ -10,6 +10,7 @@ import { ListRow } from '@/components/ui/ListRow';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
 import type { AuditEvent } from '@/shared/contracts/team';
+
 import { auditSentence } from './audit-sentence';
 
 /** Props of {@link AuditEventList}. */

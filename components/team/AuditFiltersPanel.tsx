@@ -10,8 +10,9 @@ import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { FormTextField } from '@/components/ui/FormTextField';
 import { Select } from '@/components/ui/Select';
+
+import { type AuditFilterForm, auditFilterFormSchema, countActiveFilters, EMPTY_AUDIT_FILTER_FORM } from './audit-filter-form';
 import { AUDIT_ACTION_OPTIONS, AUDIT_DATE_PRESETS, presetDays } from './audit-sentence';
-import { auditFilterFormSchema, countActiveFilters, EMPTY_AUDIT_FILTER_FORM, type AuditFilterForm } from './audit-filter-form';
 
 /** Props of {@link AuditFiltersPanel}. */
 export interface AuditFiltersPanelProps {

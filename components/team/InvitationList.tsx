@@ -14,6 +14,7 @@ import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
 import { ROLE_LABELS } from '@/shared/contracts/roles';
 import type { Invitation } from '@/shared/contracts/team';
+
 import { INVITATION_STATE_BADGE, invitationState, MAIL_STATE_BADGE } from './invitation-state';
 
 /** What the admin reads about the e-mail of an open invitation. */

@@ -11,8 +11,9 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
-import { ROLE_LABELS, type Role } from '@/shared/contracts/roles';
+import { type Role, ROLE_LABELS } from '@/shared/contracts/roles';
 import { inviteRequestSchema } from '@/shared/contracts/team';
+
 import { CrewMemberPicker } from './CrewMemberPicker';
 import { ROLE_OPTIONS } from './role-options';
 

@@ -15,7 +15,8 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Sheet } from '@/components/ui/Sheet';
 import { Text } from '@/components/ui/Text';
-import { ROLE_LABELS, type Role } from '@/shared/contracts/roles';
+import { type Role, ROLE_LABELS } from '@/shared/contracts/roles';
+
 import { CrewMemberPicker } from './CrewMemberPicker';
 import { ROLE_OPTIONS } from './role-options';
 

@@ -9,11 +9,12 @@ import { EmptyState } from '@/components/ui/EmptyState';
 import { Screen } from '@/components/ui/Screen';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import type { AuditEvent } from '@/shared/contracts/team';
+
+import { type AuditFilterForm, EMPTY_AUDIT_FILTER_FORM, toAuditFilters } from './audit-filter-form';
 import { AuditEventDetail } from './AuditEventDetail';
 import { AuditEventList } from './AuditEventList';
 import { AuditFiltersPanel } from './AuditFiltersPanel';
 import { BackgroundWorkList } from './BackgroundWorkList';
-import { EMPTY_AUDIT_FILTER_FORM, toAuditFilters, type AuditFilterForm } from './audit-filter-form';
 import { InvitationList } from './InvitationList';
 import { InviteForm } from './InviteForm';
 import { PeopleList } from './PeopleList';

@@ -1,4 +1,4 @@
 /** The design tokens in one import: `import { colors, spacing, radii, fonts, typeScale, layout } from '@/components/theme'`. */
-export { colors, type ColorName } from './colors';
+export { type ColorName, colors } from './colors';
 export { layout, radii, spacing } from './spacing';
 export { fonts, typeScale, type TypeVariant } from './typography';

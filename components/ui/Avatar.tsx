@@ -1,6 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { colors } from '@/components/theme';
+
 import { Text } from './Text';
 
 /** Props of {@link Avatar}. */

@@ -1,6 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
+
 import { Icon, type IconName } from './Icon';
 import { Text } from './Text';
 

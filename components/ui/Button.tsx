@@ -1,9 +1,10 @@
-import { ActivityIndicator, Pressable, StyleSheet, View, type StyleProp, type ViewStyle } from 'react-native';
+import { ActivityIndicator, Pressable, type StyleProp, StyleSheet, View, type ViewStyle } from 'react-native';
 
 import { colors, layout, radii, spacing } from '@/components/theme';
+
 import { Icon, type IconName } from './Icon';
-import { Text } from './Text';
 import { webPressState } from './press-state';
+import { Text } from './Text';
 
 /** Visual weight of a button. */
 export type ButtonVariant = 'primary' | 'secondary' | 'ghost' | 'danger';

@@ -1,7 +1,8 @@
 import type { ReactNode } from 'react';
-import { StyleSheet, View, type StyleProp, type ViewStyle } from 'react-native';
+import { type StyleProp, StyleSheet, View, type ViewStyle } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
+
 import { Text } from './Text';
 
 /** Props of {@link Card}. */

@@ -1,5 +1,5 @@
-import { useState, type ReactNode } from 'react';
-import { ScrollView, StyleSheet, View, type NativeScrollEvent, type NativeSyntheticEvent, type ViewStyle } from 'react-native';
+import { type ReactNode, useState } from 'react';
+import { type NativeScrollEvent, type NativeSyntheticEvent, ScrollView, StyleSheet, View, type ViewStyle } from 'react-native';
 
 import { colors, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';

@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
+
 import { Icon, type IconName } from './Icon';
 import { Text } from './Text';
 

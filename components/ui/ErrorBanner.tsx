@@ -2,6 +2,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { errorMessage } from '@/components/api/client';
 import { colors, radii, spacing } from '@/components/theme';
+
 import { Button } from './Button';
 import { Icon } from './Icon';
 import { Text } from './Text';

@@ -1,4 +1,4 @@
-import { Controller, type Control, type FieldPath, type FieldValues } from 'react-hook-form';
+import { type Control, Controller, type FieldPath, type FieldValues } from 'react-hook-form';
 
 import { TextField, type TextFieldProps } from './TextField';
 

@@ -2,9 +2,10 @@ import type { ReactNode } from 'react';
 import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
+
 import { Icon } from './Icon';
-import { Text } from './Text';
 import { webPressState } from './press-state';
+import { Text } from './Text';
 
 /** Props of {@link ListRow}. */
 export interface ListRowProps {

@@ -1,6 +1,7 @@
 import { ActivityIndicator, StyleSheet, View } from 'react-native';
 
 import { colors, spacing } from '@/components/theme';
+
 import { Text } from './Text';
 
 /** Props of {@link LoadingState}. */

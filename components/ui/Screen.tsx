@@ -4,6 +4,7 @@ import { ScrollView, StyleSheet, View } from 'react-native';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { useCollapseOnScroll, useHeaderCollapsed } from '@/components/shell/header-collapse';
 import { colors, layout, spacing } from '@/components/theme';
+
 import { Text } from './Text';
 
 /** Props of {@link Screen}. */

@@ -1,9 +1,10 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
+
 import { FieldMessage } from './FieldMessage';
-import { Text } from './Text';
 import { webPressState } from './press-state';
+import { Text } from './Text';
 
 /** One choice of a {@link SegmentedControl}. */
 export interface SegmentOption<V extends string> {

@@ -1,6 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { colors, fonts, layout, radii, spacing } from '@/components/theme';
+
 import { FieldMessage } from './FieldMessage';
 import { Text } from './Text';
 

@@ -3,6 +3,7 @@ import { Modal, Pressable, ScrollView, StyleSheet, View } from 'react-native';
 
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { colors, layout, radii, spacing } from '@/components/theme';
+
 import { Icon } from './Icon';
 import { Text } from './Text';
 

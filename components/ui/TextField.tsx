@@ -1,7 +1,8 @@
 import { useState } from 'react';
-import { StyleSheet, TextInput, View, type TextInputProps } from 'react-native';
+import { StyleSheet, TextInput, type TextInputProps, View } from 'react-native';
 
 import { colors, fonts, layout, radii, spacing } from '@/components/theme';
+
 import { FieldMessage } from './FieldMessage';
 import { Text } from './Text';
 
@@ -82,7 +83,8 @@ const styles = StyleSheet.create({
     fontFamily: fonts.regular,
     fontSize: 15,
     paddingVertical: spacing.sm + 2,
-    outlineStyle: 'none',
-  } as object,
+    // No browser focus ring inside the box: the box itself shows focus.
+    outlineWidth: 0,
+  },
   unit: { marginLeft: spacing.sm },
 });

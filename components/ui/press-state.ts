@@ -5,5 +5,5 @@ export type WebPressState = PressableStateCallbackType & { hovered?: boolean; fo
 
 /** Reads the web-only hover and focus flags from Pressable's style-callback state. */
 export function webPressState(state: PressableStateCallbackType): WebPressState {
-  return state as WebPressState;
+  return state;
 }

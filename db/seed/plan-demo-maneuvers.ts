@@ -12,8 +12,8 @@ import { planManeuver } from '../../server/planning/plan-maneuver.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { planRequestSchema } from '../../shared/contracts/plan.ts';
+import { PLANNED_DEMO_MANEUVERS, type PlannedManeuver, plannedManeuversFile } from './planned-maneuvers.ts';
 import { DEMO_PROFILES } from './seed-crew-profiles.ts';
-import { PLANNED_DEMO_MANEUVERS, plannedManeuversFile, type PlannedManeuver } from './planned-maneuvers.ts';
 
 /** The body of a demo crew member's current (newest) profile version. */
 export function demoCurrentBody(crew: keyof typeof DEMO_PROFILES): Body {

@@ -1,11 +1,11 @@
-import type { ProfileInputsInput } from '../../shared/contracts/profile-inputs.ts';
-import type { SuitConfig } from '../../shared/contracts/suit.ts';
 import { appendProfileVersion } from '../../server/crew/append-profile-version.ts';
 import { deriveProfile } from '../../server/crew/derive-profile.ts';
 import { BUILT_IN_SUITS } from '../../server/model/suits/index.ts';
-import type { SeedState } from './run-seed.ts';
-import { DEMO_CREW } from './demo-people.ts';
+import type { ProfileInputsInput } from '../../shared/contracts/profile-inputs.ts';
+import type { SuitConfig } from '../../shared/contracts/suit.ts';
 import { suitConfigs } from '../schema/index.ts';
+import { DEMO_CREW } from './demo-people.ts';
+import type { SeedState } from './run-seed.ts';
 
 /** A demo profile version: the inputs without the suit, the suit's id, and the history note. */
 interface DemoVersion {

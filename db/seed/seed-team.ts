@@ -1,6 +1,6 @@
+import { hashPassword } from '../../server/auth/passwords.ts';
 import type { Database } from '../client.ts';
 import { crewMembers, users } from '../schema/index.ts';
-import { hashPassword } from '../../server/auth/passwords.ts';
 import { DEMO_CREW, DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people.ts';
 
 /** Inserts the demo people and their crew members; returns ids by e-mail and crew key. */

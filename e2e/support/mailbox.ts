@@ -1,4 +1,4 @@
-import { expect, type APIRequestContext } from '@playwright/test';
+import { type APIRequestContext, expect } from '@playwright/test';
 
 /** One message as the development mailbox lists it at /dev/mail.json. */
 interface DevMail {

@@ -3,7 +3,7 @@
  * controls subscribe to a snapshot that changes only on discrete events (step, cycle, play state,
  * speed, loop) or every TIME_TICK_S of playback, so the overlay re-renders a few times a second.
  */
-import { cycleAt, cycleNumberAt, type StepSpan, stepIndexAt } from './step-position';
+import { cycleAt, cycleNumberAt, stepIndexAt, type StepSpan } from './step-position';
 
 /** What the overlay shows; a new object only when something in it changed. */
 export interface ClockSnapshot {

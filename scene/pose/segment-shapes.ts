@@ -27,7 +27,7 @@ export function segmentShapes(model: BodyModel): SegmentShape[] {
   for (let s = 0; s < model.segmentCount; s++) {
     const m = model.mass[s];
     const I = [model.inertia[9 * s], model.inertia[9 * s + 4], model.inertia[9 * s + 8]];
-    const k = (I[0] <= I[1] && I[0] <= I[2] ? 0 : I[1] <= I[2] ? 1 : 2) as 0 | 1 | 2;
+    const k = (I[0] <= I[1] && I[0] <= I[2] ? 0 : I[1] <= I[2] ? 1 : 2);
     const i = (k + 1) % 3, j = (k + 2) % 3;
     const L2 = Math.max(0, (6 * (I[i] + I[j] - I[k])) / m);
     const rj2 = Math.max(0, 4 * (I[i] / m - L2 / 12));

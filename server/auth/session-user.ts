@@ -1,15 +1,12 @@
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { UserRow } from '../../db/schema/index.ts';
 
-declare global {
-   
-  namespace Express {
-    interface Request {
-      /** Set by `authenticate` for every signed-in request. */
-      user?: SessionUser;
-      /** The database's WAL insert position when the user was loaded (server/http/read-cache.ts); absent on a standby. */
-      dataMark?: string;
-    }
+declare module 'express-serve-static-core' {
+  interface Request {
+    /** Set by `authenticate` for every signed-in request. */
+    user?: SessionUser;
+    /** The database's WAL insert position when the user was loaded (server/http/read-cache.ts); absent on a standby. */
+    dataMark?: string;
   }
 }
 

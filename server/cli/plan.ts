@@ -46,7 +46,7 @@ const FLAG_OF: Record<string, string> = {
 };
 
 function main(): void {
-  let parsed;
+  let parsed: { values: Record<string, string | boolean | undefined>; positionals: string[] };
   try {
     parsed = parseArgs({
       allowPositionals: true,
@@ -55,7 +55,7 @@ function main(): void {
   } catch (err) {
     die(2, `${(err as Error).message}\n\n${HELP}`);
   }
-  const v = parsed.values as Record<string, string | boolean | undefined>;
+  const v = parsed.values;
   if (v.help) { process.stdout.write(`${HELP}\n`); return; }
   if (parsed.positionals.length !== 1) die(2, `expected one BODY.json (got ${parsed.positionals.length} file arguments)\n\n${HELP}`);
   const num = (name: string): number | undefined => {

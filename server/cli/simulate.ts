@@ -4,6 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { parseArgs } from 'node:util';
+
 import { SIMULATE_LIMITS, simulateOptionsSchema } from '../../shared/contracts/simulate-request.ts';
 import { simulateJson } from '../engine/simulate.ts';
 

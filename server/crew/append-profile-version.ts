@@ -1,7 +1,7 @@
 import { desc, eq } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, profileVersions, users, type ProfileVersionRow } from '../../db/schema/index.ts';
+import { crewMembers, type ProfileVersionRow, profileVersions, users } from '../../db/schema/index.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import type { ProfileSource, ProfileSummary, StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
 import { ENGINE_VERSION } from '../engine/version.ts';

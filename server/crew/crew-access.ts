@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import type { NextFunction, Request, Response } from 'express';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, type CrewMemberRow } from '../../db/schema/index.ts';
+import { type CrewMemberRow, crewMembers } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { Role } from '../../shared/contracts/roles.ts';
 import { forbidden, notFound } from '../http/http-error.ts';

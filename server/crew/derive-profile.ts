@@ -2,11 +2,11 @@ import { eq } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { suitConfigs } from '../../db/schema/index.ts';
-import { validateBody, type Body } from '../../shared/contracts/body.ts';
+import { type Body, validateBody } from '../../shared/contracts/body.ts';
 import type { ProfileFormInputs } from '../../shared/contracts/crew.ts';
 import type { ProfileInputs } from '../../shared/contracts/profile-inputs.ts';
 import type { ProfileSummary } from '../../shared/contracts/profile-version.ts';
-import { suitConfigSchema, type SuitConfig } from '../../shared/contracts/suit.ts';
+import { type SuitConfig, suitConfigSchema } from '../../shared/contracts/suit.ts';
 import { badRequest } from '../http/http-error.ts';
 import { deriveBody, MODEL_VERSION, ProfileInputError } from '../model/derive-body.ts';
 import { summarizeBody } from './profile-summary.ts';

@@ -4,11 +4,11 @@
  * integration step straddles a step boundary), with attitudes at requested times.
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
-import { bodyRate, createMomentumWork, type MomentumWork, restrictToPiece } from './locked-momentum.ts';
 import { evalMoving, evalPiece, type MotionPiece, type MotionPlan } from './joint-motion.ts';
+import { bodyRate, createMomentumWork, type MomentumWork, restrictToPiece } from './locked-momentum.ts';
 import {
-  createEstimateWork, createRatePolynomial, ESTIMATE_NODES, type EstimateWork, fitRatePolynomial, GAUSS_NODES, localErrorEstimate, polynomialTheta,
-  type RatePolynomial, magnusTheta, quatLogBetween, quatTimesExp } from './magnus.ts';
+  createEstimateWork, createRatePolynomial, ESTIMATE_NODES, type EstimateWork, fitRatePolynomial, GAUSS_NODES, localErrorEstimate, magnusTheta, polynomialTheta,
+quatLogBetween, quatTimesExp,  type RatePolynomial } from './magnus.ts';
 import { mergeRigidSegments } from './rigid-merge.ts';
 
 /** Integrator settings. */

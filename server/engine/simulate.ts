@@ -83,7 +83,7 @@ export function simulateModel(model: BodyModel, plan: MotionPlan, options: Engin
 
   // Samples: the integrated attitude and the prescribed joint angles.
   const q = new Float64Array(nd);
-  const frames: SimulationResult['samples']['frames'] = new Array(times.length);
+  const frames = new Array<SimulationResult['samples']['frames'][number]>(times.length);
   const o = track.outputs;
   for (let s = 0; s < times.length; s++) {
     const t = times[s];

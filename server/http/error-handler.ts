@@ -9,23 +9,26 @@ import { zodToHttpError } from './validate.ts';
 /** The PostgreSQL error behind an error (drizzle wraps driver errors in DrizzleQueryError with `cause`). */
 function pgError(err: unknown): { code?: string; message?: string } | undefined {
   for (let e = err, depth = 0; e && typeof e === 'object' && depth < 5; e = (e as { cause?: unknown }).cause, depth++) {
-    if (typeof (e as { code?: unknown }).code === 'string') return e as { code: string; message?: string };
+    if (typeof (e as { code?: unknown }).code === 'string') return e;
   }
   return undefined;
 }
 
 /** Maps every error to the JSON error body; never leaks a stack trace. */
-export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+export const errorHandler: ErrorRequestHandler = (thrown, req, res, _next) => {
+  const err: unknown = thrown;
+  // body-parser marks its own errors with a `type`.
+  const parserType = err && typeof err === 'object' && 'type' in err ? err.type : undefined;
   let httpError: HttpError;
   if (err instanceof HttpError) httpError = err;
   else if (err instanceof ZodError) httpError = zodToHttpError(err, 'body');
-  else if (err?.type === 'entity.parse.failed') httpError = new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');
-  else if (err?.type === 'entity.too.large') httpError = new HttpError(413, 'too_large', 'The request body is too large.');
+  else if (parserType === 'entity.parse.failed') httpError = new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');
+  else if (parserType === 'entity.too.large') httpError = new HttpError(413, 'too_large', 'The request body is too large.');
   else if (pgError(err)?.code === 'P0001') httpError = new HttpError(409, 'immutable', String(pgError(err)?.message));
   else if (pgError(err)?.code === '23505') httpError = new HttpError(409, 'duplicate', 'That record already exists.');
   else if (unfinishedSimulation(err)) httpError = unfinishedSimulation(err)!;
   else if (isDatabaseUnavailable(err)) {
-    req.log?.warn({ err: { message: err?.message, code: pgError(err)?.code } }, 'database unavailable');
+    req.log?.warn({ err: { message: err instanceof Error ? err.message : undefined, code: pgError(err)?.code } }, 'database unavailable');
     res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_S));
     httpError = new HttpError(503, 'database_unavailable', `The database is unavailable for a moment. Try again in ${DATABASE_RETRY_AFTER_S} seconds.`);
   } else {

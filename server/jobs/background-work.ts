@@ -5,11 +5,11 @@
  * `cancelled` with "Cancelled by …" as its reason, and stops: a plan's thread is terminated, a
  * robustness run's chunks stop, a queued re-verification's job is cancelled.
  */
-import { and, desc, eq, inArray, sql, type SQL } from 'drizzle-orm';
+import { and, desc, eq, inArray, type SQL, sql } from 'drizzle-orm';
 
 import { plans, reverifications, robustnessChunks, robustnessRuns, sequences, sequenceVersions } from '../../db/schema/index.ts';
-import type { BackgroundWork, QueueCounts, WorkFilter, WorkItem, WorkKind, WorkState } from '../../shared/contracts/background-work.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
+import type { BackgroundWork, QueueCounts, WorkFilter, WorkItem, WorkKind, WorkState } from '../../shared/contracts/background-work.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { conflict, HttpError, notFound } from '../http/http-error.ts';

@@ -10,22 +10,22 @@
  * job fills (plans, re-verifications, robustness runs) are reconciled with their jobs on start and
  * then periodically (reconcile-work.ts), so none stays `queued` or `running` without a job behind it.
  */
-import { PgBoss, type Job } from 'pg-boss';
+import { type Job, PgBoss } from 'pg-boss';
 
 import type { AppContext, JobQueue } from '../app-context.ts';
-import {
-  ALL_QUEUES, CHUNK_RETRY_LIMIT, INVITATION_MAIL_QUEUE, INVITATION_MAIL_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT,
-  ROBUSTNESS_CHUNK_QUEUE, type QueueName,
-} from './queue-names.ts';
 import { deliverInvitation, type InvitationMailJob } from '../team/deliver-invitation.ts';
+import {
+  ALL_QUEUES, CHUNK_RETRY_LIMIT, INVITATION_MAIL_QUEUE, INVITATION_MAIL_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, type QueueName,
+REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT,
+  ROBUSTNESS_CHUNK_QUEUE, } from './queue-names.ts';
 import { reconcileWork } from './reconcile-work.ts';
-import { reverifyVersion, type ReverifyJob } from './reverify-version.ts';
+import { type ReverifyJob, reverifyVersion } from './reverify-version.ts';
 import { ChunkPool } from './robustness/chunk-pool.ts';
-import { cancelRobustnessRun, enqueueRobustnessChunks, runRobustnessChunk, type RobustnessChunkJob } from './robustness/robustness-runs.ts';
-import { runPlan, type PlanJob } from './run-plan.ts';
+import { cancelRobustnessRun, enqueueRobustnessChunks, type RobustnessChunkJob, runRobustnessChunk } from './robustness/robustness-runs.ts';
+import { type PlanJob, runPlan } from './run-plan.ts';
 import { Semaphore } from './semaphore.ts';
 
-export { ALL_QUEUES, CHUNK_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT, ROBUSTNESS_CHUNK_QUEUE, type QueueName } from './queue-names.ts';
+export { ALL_QUEUES, CHUNK_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, type QueueName, REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT, ROBUSTNESS_CHUNK_QUEUE } from './queue-names.ts';
 
 /** A running queue: the JobQueue the routes use, plus shutdown. */
 export interface RunningJobQueue extends JobQueue {

@@ -1,4 +1,4 @@
-import { pino, stdSerializers, type DestinationStream, type Logger } from 'pino';
+import { type DestinationStream, type Logger, pino, stdSerializers } from 'pino';
 
 /**
  * Secrets that must never reach a log line: credentials in headers and cookies, passwords and
@@ -32,7 +32,7 @@ export function redactText(text: string): string {
 function serializeError(err: unknown): Record<string, unknown> {
   const out = (err instanceof Error ? stdSerializers.err(err) : { ...(err as object) }) as Record<string, unknown>;
   for (const key of ['message', 'stack'] as const) {
-    if (typeof out[key] === 'string') out[key] = redactText(out[key] as string);
+    if (typeof out[key] === 'string') out[key] = redactText(out[key]);
   }
   // Query errors carry their bound parameters (hashes, e-mails): the message names the query already.
   delete out.params;

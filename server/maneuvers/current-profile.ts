@@ -2,7 +2,7 @@
 import { and, eq } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, profileVersions, type ProfileVersionRow } from '../../db/schema/index.ts';
+import { crewMembers, type ProfileVersionRow, profileVersions } from '../../db/schema/index.ts';
 import { conflict, notFound } from '../http/http-error.ts';
 
 /** The current profile version row; 404 for an unknown crew member, 409 when they have no profile yet. */

@@ -1,7 +1,7 @@
 /** The target reorientation of a sequence as a unit quaternion [w,x,y,z] (body at t = 0 → target). */
 import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import { yprToQuat } from '../../shared/math/euler-zyx.ts';
-import { quatCanonical, quatFromAxisAngle, type Quat } from '../../shared/math/quaternion.ts';
+import { type Quat, quatCanonical, quatFromAxisAngle } from '../../shared/math/quaternion.ts';
 
 const RAD = Math.PI / 180;
 

@@ -7,7 +7,7 @@ import type { MotionStep } from '../../shared/contracts/motion.ts';
 import { type Sequence, type Step, stepDuration } from '../../shared/contracts/sequence.ts';
 import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
-import { primitiveListSchema, type Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { type Primitive, primitiveListSchema } from '../../shared/primitives/primitive-schemas.ts';
 
 /** A dof in words ("Right shoulder flexion"), or its raw name for custom bodies. */
 function dofLabel(name: string): string {

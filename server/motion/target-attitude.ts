@@ -21,13 +21,13 @@ export function targetAttitude(target: unknown): Attitude | null {
   if (!isObj(target)) return null;
   const ypr = isObj(target.yprDeg) ? target.yprDeg : target;
   if (isNum(ypr.yaw) || isNum(ypr.pitch) || isNum(ypr.roll)) {
-    const get = (k: string) => (isNum(ypr[k]) ? (ypr[k] as number) : 0);
+    const get = (k: string) => (isNum(ypr[k]) ? (ypr[k]) : 0);
     return toAttitude(yprToQuat({ yaw: get('yaw') * DEG, pitch: get('pitch') * DEG, roll: get('roll') * DEG }));
   }
   const aa = isObj(target.axisAngle) ? target.axisAngle : target;
   const axis = aa.axis;
-  if (Array.isArray(axis) && axis.length === 3 && axis.every(isNum) && isNum(aa.angleDeg) && Math.hypot(...(axis as number[])) > 0) {
-    return toAttitude(quatFromAxisAngle(axis as number[], (aa.angleDeg as number) * DEG));
+  if (Array.isArray(axis) && axis.length === 3 && axis.every(isNum) && isNum(aa.angleDeg) && Math.hypot(...(axis)) > 0) {
+    return toAttitude(quatFromAxisAngle(axis, (aa.angleDeg) * DEG));
   }
   if (isNum(target.w) && isNum(target.x) && isNum(target.y) && isNum(target.z)) {
     const n = Math.hypot(target.w, target.x, target.y, target.z);
@@ -41,7 +41,7 @@ export function targetLabel(target: unknown): string {
   if (!isObj(target)) return '—';
   const ypr = isObj(target.yprDeg) ? target.yprDeg : target;
   if (isNum(ypr.yaw) || isNum(ypr.pitch) || isNum(ypr.roll)) {
-    const f = (k: string) => `${k} ${Math.round((isNum(ypr[k]) ? (ypr[k] as number) : 0) * 10) / 10}°`;
+    const f = (k: string) => `${k} ${Math.round((isNum(ypr[k]) ? (ypr[k]) : 0) * 10) / 10}°`;
     return [f('yaw'), f('pitch'), f('roll')].join(', ');
   }
   const aa = isObj(target.axisAngle) ? target.axisAngle : target;

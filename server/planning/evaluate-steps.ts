@@ -3,12 +3,12 @@
  * optimises: the final attitude error to the target, range violations and the peak joint rate.
  */
 import type { Body } from '../../shared/contracts/body.ts';
-import type { Sequence } from '../../shared/contracts/sequence.ts';
 import type { SimulationResult } from '../../shared/contracts/result.ts';
+import type { Sequence } from '../../shared/contracts/sequence.ts';
+import { type Quat, quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
-import { quatAngleBetween, type Quat } from '../../shared/math/quaternion.ts';
-import { simulate, simulateFinal, type EngineOptions } from '../engine/simulate.ts';
+import { type EngineOptions, simulate, simulateFinal } from '../engine/simulate.ts';
 
 const DEG = 180 / Math.PI;
 

@@ -16,7 +16,7 @@
  */
 import type { Body } from '../../shared/contracts/body.ts';
 import { primitiveMotion } from '../../shared/primitives/primitive-motion.ts';
-import { primitiveSchema, type Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { type Primitive, primitiveSchema } from '../../shared/primitives/primitive-schemas.ts';
 
 /** Smallest distance a moving dof keeps from either end of its range, degrees. */
 export const RANGE_MARGIN_DEG = 3;

@@ -9,16 +9,16 @@
 import type { Body } from '../../shared/contracts/body.ts';
 import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { PlanCandidate, PlanSettings } from '../../shared/contracts/plan.ts';
+import { ROBUSTNESS_LEVELS, robustnessLevel, type RobustnessModel } from '../../shared/contracts/robustness.ts';
+import { pathDegFromSamples } from '../../shared/math/path-travelled.ts';
 import type { Quat } from '../../shared/math/quaternion.ts';
-import { robustnessLevel, ROBUSTNESS_LEVELS, type RobustnessModel } from '../../shared/contracts/robustness.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import { targetQuat } from '../maneuvers/target-attitude.ts';
-import { candidatePrimitives, type CandidatePart } from './candidate-steps.ts';
+import { type CandidatePart, candidatePrimitives } from './candidate-steps.ts';
 import { compileForBody, evaluateSequence } from './evaluate-steps.ts';
-import { pathDegFromSamples } from '../../shared/math/path-travelled.ts';
 import { perCycleRotation } from './per-cycle-rotation.ts';
 import { FAMILY_GROUPS, fitFamilies } from './plan-families.ts';
-import { familyTables, refineParts, searchSeeds, type RefinedParts, type SearchLimits, type SearchSeed } from './plan-search.ts';
+import { familyTables, type RefinedParts, refineParts, type SearchLimits, type SearchSeed, searchSeeds } from './plan-search.ts';
 import { robustnessSamples, summariseRobustness } from './robustness.ts';
 import { quatAngle, quatChain, quatConj, quatLog } from './rotation-vector.ts';
 

@@ -16,8 +16,8 @@
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 
 import type { Body } from '../../shared/contracts/body.ts';
-import { quatAngleBetween, type Quat } from '../../shared/math/quaternion.ts';
-import { phaseDurationS, type CandidatePart } from './candidate-steps.ts';
+import { type Quat, quatAngleBetween } from '../../shared/math/quaternion.ts';
+import { type CandidatePart, phaseDurationS } from './candidate-steps.ts';
 import { perCycleRotation } from './per-cycle-rotation.ts';
 import type { PlanFamily } from './plan-families.ts';
 import { quatChain, quatConj, quatExp, quatIntPower, quatLog, type RotVec } from './rotation-vector.ts';

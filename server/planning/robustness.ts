@@ -28,12 +28,12 @@
 import type { Body } from '../../shared/contracts/body.ts';
 import type { RobustnessModel } from '../../shared/contracts/robustness.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
-import { quatAngleBetween, quatMultiply, type Quat } from '../../shared/math/quaternion.ts';
+import { type Quat, quatAngleBetween, quatMultiply } from '../../shared/math/quaternion.ts';
 import { seededRandom, symmetricUnit } from '../../shared/math/seeded-random.ts';
-import { quantile } from './quantile.ts';
-import { executionPieces, type ExecutionPiece } from './execution-pieces.ts';
+import { type ExecutionPiece, executionPieces } from './execution-pieces.ts';
 import { perturbBody } from './perturb-body.ts';
 import { perturbSequence } from './perturb-sequence.ts';
+import { quantile } from './quantile.ts';
 import { quatChain, quatConj, quatExp, quatIntPower } from './rotation-vector.ts';
 
 /** What one robustness run needs. */
@@ -123,7 +123,7 @@ export function feedbackWindow(n: number): { first: number; last: number } {
  */
 export function feedbackAttitude(actual: readonly ExecutionPiece[], nominal: readonly ExecutionPiece[], target: Quat, model: RobustnessModel, random: () => number): Quat {
   // What the rest of the plan is expected to do after each piece.
-  const restAfter: Quat[] = new Array(nominal.length);
+  const restAfter = new Array<Quat>(nominal.length);
   let rest: Quat = [1, 0, 0, 0];
   for (let k = nominal.length - 1; k >= 0; k--) {
     restAfter[k] = rest;

@@ -2,7 +2,7 @@
  * Rotation vectors (axis × angle, radians) and the quaternion algebra the planner composes with:
  * log/exp maps, conjugate, products and real powers of unit quaternions [w,x,y,z].
  */
-import { quatMultiply, type Quat } from '../../shared/math/quaternion.ts';
+import { type Quat, quatMultiply } from '../../shared/math/quaternion.ts';
 
 /** A rotation vector: axis × angle, radians. */
 export type RotVec = [number, number, number];

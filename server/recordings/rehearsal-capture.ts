@@ -8,9 +8,9 @@ import { eq } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { profileVersions } from '../../db/schema/index.ts';
+import { validateBody } from '../../shared/contracts/body.ts';
 import type { CaptureOutcome, CaptureOverlay, RehearsalCapture } from '../../shared/contracts/recording.ts';
 import type { Attitude, SimulationResult } from '../../shared/contracts/result.ts';
-import { validateBody } from '../../shared/contracts/body.ts';
 import { type Sequence, validateSequence } from '../../shared/contracts/sequence.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';

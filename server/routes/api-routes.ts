@@ -2,17 +2,18 @@ import type { Router } from 'express';
 
 import type { AppContext } from '../app-context.ts';
 import type { AccessArea } from '../auth/access-policy.ts';
+import { adhocSimulationPool } from '../engine/pool/shared-pools.ts';
 import { auditRouter } from './audit.ts';
-import { jobsRouter } from './jobs.ts';
 import { meRouter } from './auth.ts';
 import { crewRouter } from './crew.ts';
-import { suitsRouter } from './suits.ts';
+import { jobsRouter } from './jobs.ts';
 import { motionRouter } from './motion.ts';
 import { recordingsRouter } from './recordings.ts';
 import { rehearsalsRouter } from './rehearsals.ts';
 import { reviewsRouter } from './reviews.ts';
 import { sequencesRouter } from './sequences.ts';
 import { createSimulateRouter, fairnessFromConfig } from './simulate.ts';
+import { suitsRouter } from './suits.ts';
 import { teamRouter } from './team.ts';
 import { uploadsRouter } from './uploads.ts';
 

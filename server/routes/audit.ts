@@ -2,10 +2,10 @@ import { and, desc, eq, gte, lte, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
 
 import { auditEvents, users } from '../../db/schema/index.ts';
-import { auditQuerySchema, type AuditQuery } from '../../shared/contracts/team.ts';
+import { type AuditQuery, auditQuerySchema } from '../../shared/contracts/team.ts';
 import type { AppContext } from '../app-context.ts';
-import { validate } from '../http/validate.ts';
 import { auditObjectLabels } from '../audit/audit-labels.ts';
+import { validate } from '../http/validate.ts';
 
 /** Admin: read the audit log, newest first, filtered by actor, action, object and time. */
 export function auditRouter(ctx: AppContext): Router {

@@ -3,11 +3,11 @@ import { z } from 'zod';
 
 import { crewMembers } from '../../db/schema/index.ts';
 import {
+  type CreateCrewMemberRequest,
   createCrewMemberRequestSchema,
   crewListQuerySchema,
-  saveProfileRequestSchema,
-  type CreateCrewMemberRequest,
   type SaveProfileRequest,
+  saveProfileRequestSchema,
 } from '../../shared/contracts/crew.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';

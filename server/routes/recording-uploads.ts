@@ -19,7 +19,7 @@ import { readJointAngleCsv } from '../recordings/joint-angle-csv.ts';
 import { recordingView } from '../recordings/recording-view.ts';
 import { receiveFile } from '../uploads/receive-file.ts';
 import { rejectUpload } from '../uploads/reject-upload.ts';
-import { storeRawFile, uploadValues, uploadView, type StoredFile } from '../uploads/stored-file.ts';
+import { type StoredFile, storeRawFile, uploadValues, uploadView } from '../uploads/stored-file.ts';
 
 type Fields = { name?: string; rateHz?: number; crewMemberId?: string };
 

@@ -1,11 +1,11 @@
 import { and, desc, eq, inArray, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
+import type { z } from 'zod';
 
 import { crewMembers, rehearsals, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
 import {
-  logRehearsalSchema, rehearsalListQuerySchema, type RehearsableVersion, type Rehearsal,
-} from '../../shared/contracts/rehearsal.ts';
-import type { z } from 'zod';
+  logRehearsalSchema, type RehearsableVersion, type Rehearsal,
+rehearsalListQuerySchema, } from '../../shared/contracts/rehearsal.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, forbidden } from '../http/http-error.ts';

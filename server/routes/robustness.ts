@@ -11,10 +11,10 @@ import { z } from 'zod';
 
 import { robustnessRuns, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
-import { startRobustnessRequestSchema, type StartRobustnessRequest } from '../../shared/contracts/robustness-run.ts';
+import { type StartRobustnessRequest, startRobustnessRequestSchema } from '../../shared/contracts/robustness-run.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
-import { HttpError, conflict, notFound } from '../http/http-error.ts';
+import { conflict, HttpError, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
 import { cancelRobustnessRun, robustnessRunView } from '../jobs/robustness/robustness-runs.ts';
 import { latestVersionRun, openVersionRun, queueVersionRobustness } from '../jobs/robustness/version-robustness.ts';

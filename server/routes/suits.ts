@@ -2,7 +2,7 @@ import { and, asc, eq, sql } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
-import { suitConfigs, users, type SuitConfigRow } from '../../db/schema/index.ts';
+import { type SuitConfigRow, suitConfigs, users } from '../../db/schema/index.ts';
 import type { SuitView } from '../../shared/contracts/crew.ts';
 import { suitConfigSchema, updateSuitRequestSchema } from '../../shared/contracts/suit.ts';
 import type { AppContext } from '../app-context.ts';

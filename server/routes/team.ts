@@ -2,8 +2,8 @@ import { and, desc, eq, isNull, lte } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
-import { crewMembers, invitations, users, type InvitationRow } from '../../db/schema/index.ts';
-import { inviteRequestSchema, updateUserRequestSchema, type Invitation, type InviteRequest, type UpdateUserRequest } from '../../shared/contracts/team.ts';
+import { crewMembers, type InvitationRow, invitations, users } from '../../db/schema/index.ts';
+import { type Invitation, type InviteRequest, inviteRequestSchema, type UpdateUserRequest, updateUserRequestSchema } from '../../shared/contracts/team.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, conflict, notFound } from '../http/http-error.ts';

@@ -2,9 +2,10 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
-import { startSmtpFake, type SmtpFake } from '../mail/smtp-fake.ts';
-import { startS3Fake, type S3Fake } from '../storage/s3-fake.ts';
-import { startLocalCluster, type LocalCluster } from './postgres-cluster.ts';
+import { type SmtpFake, startSmtpFake } from '../mail/smtp-fake.ts';
+import { type S3Fake, startS3Fake } from '../storage/s3-fake.ts';
+import { envVar } from '../config.ts';
+import { type LocalCluster, startLocalCluster } from './postgres-cluster.ts';
 
 /** The local services the product needs on a fresh machine, started under one data folder. */
 export interface LocalServices {
@@ -23,8 +24,9 @@ export async function startLocalServices(dataDir: string, opts: { throwaway?: bo
   const env: Record<string, string> = {};
 
   let cluster: LocalCluster | null = null;
-  if (process.env.DATABASE_URL) {
-    env.DATABASE_URL = process.env.DATABASE_URL;
+  const databaseUrl = envVar('DATABASE_URL');
+  if (databaseUrl) {
+    env.DATABASE_URL = databaseUrl;
     log('Using DATABASE_URL from the environment.');
   } else {
     cluster = await startLocalCluster({ dir: path.join(dataDir, 'postgres'), database: 'holonaut', throwaway: opts.throwaway, log });

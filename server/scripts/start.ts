@@ -9,15 +9,15 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
-import { loadConfig } from '../config.ts';
 import { ROLE_LABELS } from '../../shared/contracts/roles.ts';
+import { envVar, loadConfig } from '../config.ts';
 import { serve } from './serve.ts';
 import { startLocalServices } from './services.ts';
 import { ensureWebBuild } from './web-build.ts';
 import { startWorkerProcess, type WorkerProcess } from './worker-process.ts';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
-const dataDir = process.env.HOLONAUT_DATA_DIR ?? path.join(root, '.data');
+const dataDir = envVar('HOLONAUT_DATA_DIR') ?? path.join(root, '.data');
 const log = (s: string) => console.log(`[holonaut] ${s}`);
 
 async function main() {

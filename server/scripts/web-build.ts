@@ -3,7 +3,7 @@ import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 
 const SOURCE_DIRS = ['app', 'components', 'scene', 'shared', 'assets'];
-const SOURCE_FILES = ['app.json', 'metro.config.cjs', 'package-lock.json'];
+const SOURCE_FILES = ['app.json', 'metro.config.mjs', 'package-lock.json'];
 
 function newestMtime(root: string, entries: string[]): number {
   let newest = 0;

@@ -3,7 +3,7 @@
  * when it dies unexpectedly (a worker killed outright loses nothing: its jobs are retried), and
  * stopped with SIGTERM when the product stops.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import { type ChildProcess, spawn } from 'node:child_process';
 import path from 'node:path';
 
 /** A supervised worker child. */

@@ -8,12 +8,12 @@
  * a worker killed outright loses nothing (its jobs are retried once their heartbeat stops).
  */
 import { migrationsApplied, runMigrations } from '../../db/migrate.ts';
-import { loadConfig } from '../config.ts';
+import { envVar, loadConfig } from '../config.ts';
 import { createContext } from '../context.ts';
-import { startJobQueue, type RunningJobQueue } from '../jobs/job-queue.ts';
+import { type RunningJobQueue, startJobQueue } from '../jobs/job-queue.ts';
 import { ALL_QUEUES } from '../jobs/queue-names.ts';
 
-const name = process.env.WORKER_NAME ?? `worker ${process.pid}`;
+const name = envVar('WORKER_NAME') ?? `worker ${process.pid}`;
 const log = (s: string) => console.log(`[${name}] ${s}`);
 
 async function main() {

@@ -1,4 +1,4 @@
-import { ROLE_LABELS, type Role } from '../../shared/contracts/roles.ts';
+import { type Role, ROLE_LABELS } from '../../shared/contracts/roles.ts';
 import type { OutgoingMail } from '../mail/mailer.ts';
 
 /** The invitation e-mail: plain text with the one link to follow. */

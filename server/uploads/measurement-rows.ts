@@ -3,16 +3,16 @@ import { sql } from 'drizzle-orm';
 import type { Database } from '../../db/client.ts';
 import { crewMembers, suitConfigs } from '../../db/schema/index.ts';
 import { profileInputsSchema, type SegmentLengths } from '../../shared/contracts/profile-inputs.ts';
-import { suitConfigSchema, type SuitConfig } from '../../shared/contracts/suit.ts';
+import { type SuitConfig, suitConfigSchema } from '../../shared/contracts/suit.ts';
 import {
   MEASUREMENT_COLUMNS,
   MEASUREMENT_LENGTH_COLUMNS,
   MEASUREMENT_REQUIRED,
   type UploadRowError,
 } from '../../shared/contracts/uploads.ts';
-import { deriveProfile, type DerivedProfile } from '../crew/derive-profile.ts';
+import { type DerivedProfile, deriveProfile } from '../crew/derive-profile.ts';
 import { HttpError } from '../http/http-error.ts';
-import { numberCell, readCsvTable, type CsvRow } from './csv-table.ts';
+import { type CsvRow, numberCell, readCsvTable } from './csv-table.ts';
 
 /** One checked row of a measurements CSV, ready to import. */
 export interface MeasurementPlan {

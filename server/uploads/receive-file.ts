@@ -49,7 +49,7 @@ export function receiveFile(accept: readonly AcceptedExtension[]) {
       }
       // Anything else the multipart parser throws is about the request itself: a missing boundary,
       // a body cut off before its closing boundary, malformed part headers.
-      const why = err instanceof Error ? err.message : String(err);
+      const why = err instanceof Error ? err.message : typeof err === 'string' ? err : 'unreadable form data';
       next(new HttpError(400, 'malformed_upload', `The upload is not a complete multipart form (${why}). Send the file again as multipart/form-data with the field "file".`, 'file'));
     });
   };

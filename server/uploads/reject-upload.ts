@@ -4,7 +4,7 @@ import { uploads } from '../../db/schema/index.ts';
 import type { UploadRowError, UploadView } from '../../shared/contracts/uploads.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
-import { uploadValues, uploadView, type StoredFile } from './stored-file.ts';
+import { type StoredFile, uploadValues, uploadView } from './stored-file.ts';
 
 /** "row 3, column mass_kg: reason" — one error as a phrase. */
 export function describeRowError(e: UploadRowError): string {

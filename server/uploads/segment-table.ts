@@ -1,4 +1,4 @@
-import { validateBody, type Body } from '../../shared/contracts/body.ts';
+import { type Body, validateBody } from '../../shared/contracts/body.ts';
 import { SEGMENT_TABLE_COLUMNS, type UploadRowError } from '../../shared/contracts/uploads.ts';
 import { numberCell, readCsvTable } from './csv-table.ts';
 
@@ -23,7 +23,7 @@ const REQUIRED = ['segment', 'mass_kg', 'com_x_m', 'com_y_m', 'com_z_m', 'ixx_kg
 export function measuredBodyFromCsv(text: string, current: Body): MeasuredBody {
   const table = readCsvTable(text, SEGMENT_TABLE_COLUMNS, REQUIRED);
   const errors = [...table.errors];
-  const rows = table.rows.map((r) => ({ row: r.row, data: r.cells as Record<string, unknown> }));
+  const rows = table.rows.map((r) => ({ row: r.row, data: r.cells }));
   if (errors.some((e) => e.row <= 1)) return { body: null, segments: [], errors, rows };
 
   const segments = current.segments.map((s) => ({ ...s }));
@@ -84,6 +84,6 @@ export function measuredBodyFromJson(text: string): MeasuredBody {
     body,
     segments: body.segments.map((s) => s.name),
     errors: [],
-    rows: body.segments.map((s, k) => ({ row: k + 1, data: s as unknown as Record<string, unknown> })),
+    rows: body.segments.map((s, k) => ({ row: k + 1, data: s })),
   };
 }

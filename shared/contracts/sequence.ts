@@ -4,6 +4,7 @@
  * `track` recorded joint angles followed by a natural cubic spline.
  */
 import { z } from 'zod';
+
 import { type Body, bodyDofNames } from './body.ts';
 import { type ContractIssue, type ContractResult, zodIssuesToContract } from './contract-issue.ts';
 

@@ -3,7 +3,7 @@
  * Yaw about z (toward the head), pitch about y (to the left), roll about x (out of the chest).
  */
 import type { Mat3 } from './mat3.ts';
-import { quatToMatrix, type Quat } from './quaternion.ts';
+import { type Quat, quatToMatrix } from './quaternion.ts';
 
 /** Yaw, pitch, roll in radians; pitch in [−π/2, π/2]. */
 export interface YawPitchRoll { yaw: number; pitch: number; roll: number }

@@ -5,10 +5,10 @@
  * for previews and by the server before verification.
  */
 import type { Body } from '../contracts/body.ts';
-import { type Sequence, type Step, harmonicAngleDeg } from '../contracts/sequence.ts';
+import { harmonicAngleDeg, type Sequence, type Step } from '../contracts/sequence.ts';
+import { type PrimitiveMotion, primitiveMotion } from './primitive-motion.ts';
 import type { Primitive } from './primitive-schemas.ts';
 import { PRIMITIVE_LABELS } from './primitive-schemas.ts';
-import { type PrimitiveMotion, primitiveMotion } from './primitive-motion.ts';
 
 /** One dof of the body the steps are compiled for: name and range, degrees. */
 export interface DofInfo {

@@ -2,8 +2,8 @@
  * Plain-language cues a trainee reads while rehearsing, generated from a primitive's parameters,
  * e.g. "both arms forward, small circles outward, 4 times, 1.5 s each".
  */
-import type { Primitive } from './primitive-schemas.ts';
 import { POSTURE_LABELS } from './named-postures.ts';
+import type { Primitive } from './primitive-schemas.ts';
 
 /** Seconds as short text: 1.5 → "1.5 s", 2 → "2 s". */
 export function secondsText(s: number): string {

@@ -3,8 +3,8 @@
  * (one harmonic step, with dofs held at fixed angles during it) or a blend to target angles, or a
  * pause. Angles in degrees on the standard human model's dofs, times in seconds.
  */
-import { type ArmLoop, type ArmOrbit, type HipSwirl, type LegPedal, type Primitive, trimmedFrameRange } from './primitive-schemas.ts';
 import { NAMED_POSTURES } from './named-postures.ts';
+import { type ArmLoop, type ArmOrbit, type HipSwirl, type LegPedal, type Primitive, trimmedFrameRange } from './primitive-schemas.ts';
 
 /** One dof's sinusoid: θ(t) = offset + amplitude·sin(2πt/period + phase), degrees. */
 export interface DofWave {

@@ -12,7 +12,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
 import { errorHandler } from '../../server/http/error-handler.ts';
 import { createSimulateRouter } from '../../server/routes/simulate.ts';
-import { PEOPLE, as, crewOf, createSequence } from '../maneuvers/maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;

@@ -7,10 +7,10 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import type { Invitation } from '../../shared/contracts/team.ts';
+import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { INVITATION_MAIL_RETRY_LIMIT } from '../../server/jobs/queue-names.ts';
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
-import { startSmtpFake, type SmtpFake } from '../../server/mail/smtp-fake.ts';
+import { type SmtpFake, startSmtpFake } from '../../server/mail/smtp-fake.ts';
+import type { Invitation } from '../../shared/contracts/team.ts';
 import { eventually } from '../support/eventually.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
@@ -32,7 +32,7 @@ beforeAll(async () => {
 afterAll(async () => {
   await jobs?.stop();
   if (mail && mail !== t.mail) await mail.stop();
-  if (mail !== t.mail) t.mail.stop = async () => undefined; // already stopped by the test
+  if (mail !== t.mail) t.mail.stop = () => Promise.resolve(); // already stopped by the test
   await t?.close();
 });
 

@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { contextGuesses } from '../../server/auth/password-strength.ts';
 import { loadConfig } from '../../server/config.ts';
-import { THREE_STEPS, PEOPLE, crewOf } from '../maneuvers/maneuver-api.ts';
+import { crewOf, PEOPLE, THREE_STEPS } from '../maneuvers/maneuver-api.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;

@@ -77,7 +77,7 @@ function drive(url: string, token: string | null, amount: number, connections: n
     let last = 0;
     const inst = autocannon({ url, connections, amount, timeout: 30, headers: token ? { authorization: `Bearer ${token}` } : {} }, (err) => {
       clearTimeout(cap);
-      if (err) reject(err);
+      if (err) reject(err instanceof Error ? err : new Error(String(err)));
       else resolve({ times, non2xx, errors, bytes, seconds: (last - first) / 1000 });
     });
     const cap = setTimeout(() => inst.stop(), CAP_S * 1000);

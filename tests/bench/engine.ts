@@ -7,18 +7,19 @@
  * with --json, one JSON object as the last line.
  */
 import os from 'node:os';
+
+import { attitudeRhs, integrateAttitude } from '../../server/engine/integrate-attitude.ts';
+import { compileMotion, evalPiece } from '../../server/engine/joint-motion.ts';
+import { bodyRate, createMomentumWork } from '../../server/engine/locked-momentum.ts';
+import { mergeRigidSegments } from '../../server/engine/rigid-merge.ts';
+import { sampleTimes, simulateModel } from '../../server/engine/simulate.ts';
+import { auditTrack } from '../../server/engine/track-audit.ts';
+import { deriveBody } from '../../server/model/derive-body.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
-import { compileMotion, evalPiece } from '../../server/engine/joint-motion.ts';
-import { bodyRate, createMomentumWork } from '../../server/engine/locked-momentum.ts';
-import { mergeRigidSegments } from '../../server/engine/rigid-merge.ts';
-import { attitudeRhs, integrateAttitude } from '../../server/engine/integrate-attitude.ts';
-import { sampleTimes, simulateModel } from '../../server/engine/simulate.ts';
-import { auditTrack } from '../../server/engine/track-audit.ts';
-import { deriveBody } from '../../server/model/derive-body.ts';
 import { runMujoco } from '../engine/mujoco-run.ts';
 import { odexFinalAttitude } from '../engine/odex-reference.ts';
 
@@ -28,7 +29,7 @@ const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.len
 const q4 = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
 
 // The standard human model (server/model), a fictional 1.75 m, 75 kg crew member, unsuited.
-const derived = deriveBody({ sex: 'male', stature: 1.75, mass: 75 } as Parameters<typeof deriveBody>[0], { name: 'bench crew member' }).body;
+const derived = deriveBody({ sex: 'male', stature: 1.75, mass: 75 }, { name: 'bench crew member' }).body;
 const bv = validateBody(derived);
 if (!bv.ok) throw new Error(`standard body invalid: ${bv.issues.map((i) => i.message).join('; ')}`);
 const body: Body = bv.value;

@@ -7,7 +7,7 @@
  * load average before and after, since the machine may be shared. With --json the last line is
  * {"oneWorkerS": …, "twoWorkersS": …, "ratio": …, …}.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import { type ChildProcess, spawn } from 'node:child_process';
 import { mkdtempSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -18,8 +18,8 @@ import { eq } from 'drizzle-orm';
 
 import { createDatabase } from '../../db/client.ts';
 import { runMigrations } from '../../db/migrate.ts';
-import { DEMO_PROFILES } from '../../db/seed/seed-crew-profiles.ts';
 import { robustnessRuns } from '../../db/schema/index.ts';
+import { DEMO_PROFILES } from '../../db/seed/seed-crew-profiles.ts';
 import type { AppContext } from '../../server/app-context.ts';
 import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
@@ -29,8 +29,8 @@ import { createRobustnessRun } from '../../server/jobs/robustness/robustness-run
 import { BUILT_IN_SUITS } from '../../server/model/suits/index.ts';
 import { compileForBody, evaluateSequence } from '../../server/planning/evaluate-steps.ts';
 import { robustnessSamples } from '../../server/planning/robustness.ts';
-import { DEFAULT_ROBUSTNESS_MODEL } from '../../shared/contracts/robustness.ts';
 import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
+import { DEFAULT_ROBUSTNESS_MODEL } from '../../shared/contracts/robustness.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
@@ -61,8 +61,8 @@ function startWorker(env: NodeJS.ProcessEnv, name: string): Promise<ChildProcess
       const ran = /\[[^\]]+\] Jobs run: [^\n]*/.exec(d.toString());
       if (ran) log(`  ${ran[0]}`);
     };
-    child.stdout!.on("data", onData);
-    child.stderr!.on('data', onData);
+    child.stdout.on("data", onData);
+    child.stderr.on('data', onData);
     child.on('exit', (code) => reject(new Error(`${name} exited (${code}): ${out}`)));
   });
 }

@@ -24,7 +24,7 @@ const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); cons
 
 function body(sex: 'male' | 'female', stature: number, mass: number, suitId: string, name: string): Body {
   const suit = BUILT_IN_SUITS.find((s) => s.id === suitId) ?? null;
-  return deriveProfile({ sex, stature, mass, lengths: {}, gear: [] } as Parameters<typeof deriveProfile>[0], suit, name).body;
+  return deriveProfile({ sex, stature, mass, lengths: {}, gear: [] }, suit, name).body;
 }
 const kettle = DEMO_PROFILES.kettle[0];
 const bodies: Record<string, Body> = {

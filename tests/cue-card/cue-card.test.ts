@@ -79,7 +79,7 @@ describe('cue card content (pure assembly from the version)', () => {
       expect(card.steps[i].cue.toLowerCase()).toBe(cueFor(p).toLowerCase());
       expect(card.steps[i].startS).toBeCloseTo(first.startS, 9);
       expect(card.steps[i].leadIn !== null).toBe(first.role === 'blend');
-      if (card.steps[i].leadIn) expect(card.steps[i].leadIn!.toLowerCase()).toContain(leadInCue(p));
+      if (card.steps[i].leadIn) expect(card.steps[i].leadIn.toLowerCase()).toContain(leadInCue(p));
     });
     expect(v.stepMap.length).toBeGreaterThan(v.primitives.length); // the seed's version does have joining blends
     // Step times add up to the engine's duration in the stored report.

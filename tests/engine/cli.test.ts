@@ -4,9 +4,11 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+
 import { describe, expect, it } from 'vitest';
-import { simulationResultSchema } from '../../shared/contracts/result.ts';
+
 import { simulate } from '../../server/engine/simulate.ts';
+import { simulationResultSchema } from '../../shared/contracts/result.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { fixturePath, loadBody, loadSequence, quatOf } from './fixtures.ts';
 

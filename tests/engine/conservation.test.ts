@@ -2,6 +2,7 @@
  * Reference checks of the zero-momentum engine against results from outside the project.
  */
 import { describe, expect, it } from 'vitest';
+
 import { simulate } from '../../server/engine/simulate.ts';
 import { quatAngleBetween, quatToAxisAngle } from '../../shared/math/quaternion.ts';
 import { loadBody, loadSequence, mustSequence, quatOf } from './fixtures.ts';

@@ -2,6 +2,7 @@
  * Bad bodies and sequences: each gets an issue naming the segment/step, the field and the reason.
  */
 import { describe, expect, it } from 'vitest';
+
 import { type Body, validateBody } from '../../shared/contracts/body.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import { loadBody } from './fixtures.ts';

@@ -1,6 +1,7 @@
 /** Loads the engine's test fixtures (bodies and sequences written to the contract). */
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+
 import { type Body, validateBody } from '../../shared/contracts/body.ts';
 import { type Sequence, validateSequence } from '../../shared/contracts/sequence.ts';
 

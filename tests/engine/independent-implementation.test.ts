@@ -10,9 +10,10 @@
  *   Gram–Schmidt re-orthonormalisation, with steps aligned to the step boundaries.
  */
 import { describe, expect, it } from 'vitest';
+
+import { simulate } from '../../server/engine/simulate.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
-import { simulate } from '../../server/engine/simulate.ts';
 import { quatAngleBetween, quatToMatrix } from '../../shared/math/quaternion.ts';
 import { type ReferenceSpline, referenceSpline } from '../support/reference-spline.ts';
 import { loadBody, loadSequence, mustSequence, quatOf } from './fixtures.ts';

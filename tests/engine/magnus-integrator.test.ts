@@ -5,17 +5,18 @@
  * convergence; closed-form rotations; and the accounting of ω evaluations.
  */
 import { describe, expect, it } from 'vitest';
-import type { Body } from '../../shared/contracts/body.ts';
-import { validateBody } from '../../shared/contracts/body.ts';
-import { compileBody } from '../../shared/kinematics/body-model.ts';
-import { quatAngleBetween } from '../../shared/math/quaternion.ts';
+
 import { integrateAttitude, PlanRate, type RateSource } from '../../server/engine/integrate-attitude.ts';
 import { compileMotion, type MotionPiece, type MotionPlan } from '../../server/engine/joint-motion.ts';
 import { GAUSS_NODES, magnusTheta, quatTimesExp } from '../../server/engine/magnus.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import { validateBody } from '../../shared/contracts/body.ts';
+import { compileBody } from '../../shared/kinematics/body-model.ts';
+import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { loadBody, loadSequence, mustSequence } from './fixtures.ts';
-import { odex } from './odex-solver.ts';
 import { odexAttitudesAt, odexFinalAttitude } from './odex-reference.ts';
+import { odex } from './odex-solver.ts';
 
 /** Final attitude agreement with odex at 1e-13, at the default rtol 1e-10, rad (issue 11: the result tolerances stay). */
 const AGREEMENT_RAD = 1e-9;
@@ -101,7 +102,7 @@ describe('adaptive Magnus integration of a prescribed rate', () => {
 
 /** The benchmark's standard maneuver on the standard human model (tests/bench/engine.ts). */
 function standardManeuver(): { model: ReturnType<typeof compileBody>; plan: MotionPlan } {
-  const derived = deriveBody({ sex: 'male', stature: 1.75, mass: 75 } as Parameters<typeof deriveBody>[0], { name: 'test crew member' }).body;
+  const derived = deriveBody({ sex: 'male', stature: 1.75, mass: 75 }, { name: 'test crew member' }).body;
   const v = validateBody(derived);
   if (!v.ok) throw new Error('standard body invalid');
   const body = v.value;

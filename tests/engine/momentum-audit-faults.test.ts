@@ -5,9 +5,7 @@
  * only the integrator's output (server/engine/track-audit.ts).
  */
 import { describe, expect, it } from 'vitest';
-import { validateBody } from '../../shared/contracts/body.ts';
-import { compileBody } from '../../shared/kinematics/body-model.ts';
-import { quatAngleBetween } from '../../shared/math/quaternion.ts';
+
 import { integrateAttitude, PlanRate, type RateSource } from '../../server/engine/integrate-attitude.ts';
 import { compileMotion, type MotionPiece, type MotionPlan } from '../../server/engine/joint-motion.ts';
 import { quatTimesExp } from '../../server/engine/magnus.ts';
@@ -15,6 +13,9 @@ import { sampleTimes, simulate, simulateFinal, simulateModel } from '../../serve
 import { auditTrack } from '../../server/engine/track-audit.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
 import { evaluateSequence } from '../../server/planning/evaluate-steps.ts';
+import { validateBody } from '../../shared/contracts/body.ts';
+import { compileBody } from '../../shared/kinematics/body-model.ts';
+import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { loadBody, loadSequence, mustSequence, quatOf } from './fixtures.ts';
 
 /** DECISIONS.md: a healthy run stays below this (relative to the peak shape momentum). */
@@ -24,7 +25,7 @@ const FAULT = 1e-7;
 
 /** The standard human model through the benchmark's 10 s maneuver. */
 function standard(): { model: ReturnType<typeof compileBody>; plan: MotionPlan; body: ReturnType<typeof loadBody>; sequence: ReturnType<typeof mustSequence> } {
-  const v = validateBody(deriveBody({ sex: 'female', stature: 1.65, mass: 60 } as Parameters<typeof deriveBody>[0], { name: 'audit test crew member' }).body);
+  const v = validateBody(deriveBody({ sex: 'female', stature: 1.65, mass: 60 }, { name: 'audit test crew member' }).body);
   if (!v.ok) throw new Error('standard body invalid');
   const body = v.value;
   const sequence = mustSequence({ start: {}, steps: [

@@ -9,6 +9,7 @@
  * halves (first-order convergence towards the engine), which a modelling error would not do.
  */
 import { describe, expect, it } from 'vitest';
+
 import { simulate } from '../../server/engine/simulate.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { loadBody, loadSequence, quatOf } from './fixtures.ts';

@@ -6,10 +6,11 @@
  * velocity feed-forward (ctrl = θ_ref + (kv/kp)·θ̇_ref, so the servo force is kp·e + kv·ė).
  */
 import loadMujoco from 'mujoco-js';
-import type { Body } from '../../shared/contracts/body.ts';
-import { compileBody } from '../../shared/kinematics/body-model.ts';
+
 import { compileMotion, evalPiece, pieceAt } from '../../server/engine/joint-motion.ts';
+import type { Body } from '../../shared/contracts/body.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
+import { compileBody } from '../../shared/kinematics/body-model.ts';
 
 /** Servo gains: stiffness N·m/rad and damping N·m·s/rad (implicit in MuJoCo's implicitfast integrator). */
 export const SERVO_KP = 2e5;

@@ -4,11 +4,11 @@
  * ODEX ported to JavaScript), piece by piece, renormalised between pieces. It shares only ω(t)
  * with the engine, not the Magnus stepping, error control or interpolation.
  */
-import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { attitudeRhs } from '../../server/engine/integrate-attitude.ts';
 import type { MotionPlan } from '../../server/engine/joint-motion.ts';
 import { createMomentumWork } from '../../server/engine/locked-momentum.ts';
 import { mergeRigidSegments } from '../../server/engine/rigid-merge.ts';
+import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { odex } from './odex-solver.ts';
 
 /** Final attitude [w,x,y,z] (unit) and odex's evaluation count, at relative and absolute tolerance `tol`. */

@@ -5,6 +5,7 @@
  * composite Simpson quadrature of a connection written out independently, with no ODE solver.
  */
 import { describe, expect, it } from 'vitest';
+
 import { simulate } from '../../server/engine/simulate.ts';
 import { loadBody, mustSequence } from './fixtures.ts';
 

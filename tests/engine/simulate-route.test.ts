@@ -2,6 +2,7 @@
 import express from 'express';
 import request from 'supertest';
 import { afterAll, describe, expect, it } from 'vitest';
+
 import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
 import { errorHandler } from '../../server/http/error-handler.ts';
 import { createSimulateRouter } from '../../server/routes/simulate.ts';

@@ -8,7 +8,9 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
+
 import { describe, expect, it } from 'vitest';
+
 import { simulate } from '../../server/engine/simulate.ts';
 import { harmonicAngleDeg, validateSequence } from '../../shared/contracts/sequence.ts';
 import { naturalCubicSpline, splineCurvature, splineSlope, splineValue } from '../../shared/math/natural-cubic-spline.ts';

@@ -16,8 +16,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { loadConfig } from '../../server/config.ts';
-import { startLocalCluster, type LocalCluster } from '../../server/scripts/postgres-cluster.ts';
-import { serve, type RunningServer } from '../../server/scripts/serve.ts';
+import { type LocalCluster, startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
+import { type RunningServer, serve } from '../../server/scripts/serve.ts';
 import { TEST_BCRYPT_COST } from '../support/test-app.ts';
 
 // Upper bound for "serves again within seconds of the database returning" (the figure itself is printed).

@@ -10,7 +10,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { startS3Fake, type S3Fake } from '../../server/storage/s3-fake.ts';
+import { type S3Fake, startS3Fake } from '../../server/storage/s3-fake.ts';
 import { appTables, changedTables, snapshot } from '../fuzz/db-snapshot.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 

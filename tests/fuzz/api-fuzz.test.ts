@@ -14,10 +14,10 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { sequences, sequenceVersions, users } from '../../db/schema/index.ts';
-import { PEOPLE, THREE_STEPS, as, createSequence, crewOf, saveVersion } from '../maneuvers/maneuver-api.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from '../maneuvers/maneuver-api.ts';
 import { writeBvh } from '../recordings/bvh-writer.ts';
-import { appTables, changedTables, rowCount, snapshot, type DbSnapshot } from './db-snapshot.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { appTables, changedTables, type DbSnapshot, rowCount, snapshot } from './db-snapshot.ts';
 import { malformedBodies, malformedQueries, type Payload } from './malformed.ts';
 import { brokenCsv, malformedUploads, type RawUpload } from './multipart.ts';
 
@@ -162,7 +162,7 @@ describe('fuzzing every JSON and upload route', () => {
     const started = Date.now();
     for (const [i, route] of routes.entries()) {
       const arb = route.kind === 'json' ? malformedBodies(route.valid) : route.kind === 'query' ? malformedQueries(route.valid) : route.inputs;
-      const inputs = fc.sample<Payload | string | RawUpload>(arb as fc.Arbitrary<Payload | string | RawUpload>, { seed: SEED + i, numRuns: PER_ROUTE });
+      const inputs = fc.sample<Payload | string | RawUpload>(arb, { seed: SEED + i, numRuns: PER_ROUTE });
       const label = `${route.kind === 'json' ? route.method.toUpperCase() : route.kind === 'query' ? 'GET' : 'POST'} ${route.path}`;
       // Query-string routes are extra coverage (a search for odd text may rightly succeed): only 5xx and writes are checked there.
       if (route.kind !== 'query') refusedPerRoute[label] = 0;

@@ -7,10 +7,10 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { robustnessChunks } from '../../db/schema/index.ts';
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
+import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import type { BackgroundWork } from '../../shared/contracts/background-work.ts';
-import { PEOPLE, as, createSequence, crewOf, saveVersion } from '../maneuvers/maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;

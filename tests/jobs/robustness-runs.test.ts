@@ -8,13 +8,13 @@ import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
+import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import { robustnessRunView, versionRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
 import { loadVersion } from '../../server/motion/version-access.ts';
 import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
 import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
-import { PEOPLE, as, createSequence, crewOf, saveVersion } from '../maneuvers/maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 

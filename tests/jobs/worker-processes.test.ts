@@ -4,7 +4,7 @@
  * stays `running`; a plan whose retries ran out is failed with a reason by the reconciliation.
  * Heartbeat 10 s (pg-boss's minimum), supervisor every second, polling every half second.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import { type ChildProcess, spawn } from 'node:child_process';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -12,12 +12,12 @@ import { and, eq } from 'drizzle-orm';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, plans, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
+import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { PLAN_QUEUE, ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
 import { queueVersionRobustness } from '../../server/jobs/robustness/version-robustness.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { createQuarterTurnSequence } from '../planning/quarter-turn-sequence.ts';
-import { PEOPLE, as, createSequence, crewOf, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
@@ -53,8 +53,8 @@ async function startWorker(name: string): Promise<ChildProcess> {
       out += d.toString();
       if (out.includes('Ready:')) { clearTimeout(timer); resolve(); }
     };
-    child.stdout!.on('data', onData);
-    child.stderr!.on('data', onData);
+    child.stdout.on('data', onData);
+    child.stderr.on('data', onData);
     child.on('exit', (code) => { clearTimeout(timer); reject(new Error(`${name} exited (${code}): ${out}`)); });
   });
   return child;

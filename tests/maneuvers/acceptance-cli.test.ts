@@ -18,7 +18,7 @@ import { canonicalJson } from '../../server/maneuvers/inputs-hash.ts';
 import { simulationResultSchema } from '../../shared/contracts/result.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { PEOPLE, THREE_STEPS, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from './maneuver-api.ts';
 
 const root = fileURLToPath(new URL('../../', import.meta.url).href);
 let t: TestApp;

@@ -11,7 +11,7 @@ import { sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { summarizeReport } from '../../server/maneuvers/build-report.ts';
 import { sequenceListItemSchema, type SequenceDetail, type SequenceListItem, type VerificationReport, type VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { PEOPLE, as } from './maneuver-api.ts';
+import { as, PEOPLE } from './maneuver-api.ts';
 
 let t: TestApp;
 beforeAll(async () => {

@@ -9,13 +9,13 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, profileVersions, reverifications, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { simulate } from '../../server/engine/simulate.ts';
-import { REVERIFY_RETRY_LIMIT, startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
+import { REVERIFY_RETRY_LIMIT, type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { storedCompiled } from '../../server/maneuvers/stored-compiled.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { eventually } from '../support/eventually.ts';
-import { PEOPLE, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
 
 let t: TestApp;
 let jobs: RunningJobQueue;

@@ -5,8 +5,8 @@
  */
 import { describe, expect, it } from 'vitest';
 
-import { VERSION_STATUSES, type VersionStatus } from '../../shared/contracts/version-status.ts';
 import { refusal, transition, type VersionEvent } from '../../server/maneuvers/status-machine.ts';
+import { VERSION_STATUSES, type VersionStatus } from '../../shared/contracts/version-status.ts';
 
 const EVENTS: VersionEvent[] = ['submit', 'clear', 'send_back', 'supersede_by_save', 'supersede_by_clear', 'profile_changed'];
 

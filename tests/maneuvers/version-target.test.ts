@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { PEOPLE, THREE_STEPS, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from './maneuver-api.ts';
 
 let t: TestApp;
 let crew: string;

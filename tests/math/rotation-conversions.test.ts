@@ -5,6 +5,7 @@
 import { glMatrix, mat3, quat } from 'gl-matrix';
 import { Euler, Matrix4, Quaternion } from 'three';
 import { beforeAll, describe, expect, it } from 'vitest';
+
 import { matrixToYpr, quatToYpr, yprToMatrix, yprToQuat } from '../../shared/math/euler-zyx.ts';
 import { matrixToQuat, quatAngleBetween, quatFromAxisAngle, quatMultiply, quatToAxisAngle, quatToMatrix } from '../../shared/math/quaternion.ts';
 
@@ -107,7 +108,7 @@ describe('axis-angle and products', () => {
     for (const [axis, angle] of [[[1, 2, 3], 0.5], [[0, 0, 1], Math.PI - 1e-9], [[-1, 0.5, 0], 1e-8], [[0.2, -0.9, 0.1], 2.5]] as const) {
       const n = Math.hypot(...axis), unit = axis.map((v) => v / n);
       const ours = quatFromAxisAngle(axis, angle);
-      const g = quat.setAxisAngle(quat.create(), unit as [number, number, number], angle);
+      const g = quat.setAxisAngle(quat.create(), unit, angle);
       for (const [i, j] of [[0, 3], [1, 0], [2, 1], [3, 2]]) expect(Math.abs(ours[i] - g[j])).toBeLessThan(TOL);
       const back = quatToAxisAngle(ours);
       expect(Math.abs(back.angle - angle)).toBeLessThan(1e-15 + angle * 1e-12);

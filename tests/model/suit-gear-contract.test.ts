@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 
+import { deriveBody } from '../../server/model/derive-body.ts';
+import { BUILT_IN_SUITS, findBuiltInSuit } from '../../server/model/suits/index.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { suitConfigSchema } from '../../shared/contracts/suit.ts';
 import { wholeBodyInertia } from '../../shared/model/whole-body.ts';
-import { deriveBody } from '../../server/model/derive-body.ts';
-import { BUILT_IN_SUITS, findBuiltInSuit } from '../../server/model/suits/index.ts';
 import { PEOPLE, who } from './people.ts';
 
 const totalMass = (body: { segments: { mass: number }[] }) => body.segments.reduce((s, x) => s + x.mass, 0);
@@ -55,7 +55,7 @@ describe('suits', () => {
     const dofs = body.segments.flatMap((s) => s.joint?.dofs ?? []);
     expect(dofs.map((d) => d.name)).not.toContain('waist_flex');
     for (const [name, range] of Object.entries(suit.ranges)) {
-      expect(dofs.find((d) => d.name === name), name).toMatchObject(range!);
+      expect(dofs.find((d) => d.name === name), name).toMatchObject(range);
     }
   });
 

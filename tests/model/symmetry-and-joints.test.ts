@@ -1,11 +1,11 @@
 import { describe, expect, it } from 'vitest';
 
+import { deriveBody, type DerivedBody } from '../../server/model/derive-body.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { createBodyPose, forwardKinematics } from '../../shared/kinematics/forward-kinematics.ts';
 import { DOF_NAMES } from '../../shared/model/dof-names.ts';
-import { mirrorSegmentName, type SegmentName } from '../../shared/model/segment-names.ts';
+import { mirrorSegmentName } from '../../shared/model/segment-names.ts';
 import { wholeBodyInertia } from '../../shared/model/whole-body.ts';
-import { deriveBody, type DerivedBody } from '../../server/model/derive-body.ts';
 import { PEOPLE, who } from './people.ts';
 import { jointRangeRows } from './reference-tables.ts';
 
@@ -27,7 +27,7 @@ describe('left/right symmetry', () => {
     const { body } = deriveBody(person);
     it(`${who(person)}: mirrored segments have mirrored CoM, joint origin and axes, equal mass, inertia and ranges`, () => {
       for (const s of body.segments) {
-        const m = body.segments.find((x) => x.name === mirrorSegmentName(s.name as SegmentName))!;
+        const m = body.segments.find((x) => x.name === mirrorSegmentName(s.name))!;
         expect(m.mass).toBe(s.mass);
         expect(m.com).toEqual([s.com[0], -s.com[1] + 0, s.com[2]]);
         // mirrored in the sagittal plane: the products of inertia with y (Ixy, Iyz) change sign

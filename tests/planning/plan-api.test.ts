@@ -7,11 +7,11 @@ import { and, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents } from '../../db/schema/index.ts';
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
+import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
+import { as, PEOPLE } from '../maneuvers/maneuver-api.ts';
+import { eventually } from '../support/eventually.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { createQuarterTurnSequence } from './quarter-turn-sequence.ts';
-import { eventually } from '../support/eventually.ts';
-import { PEOPLE, as } from '../maneuvers/maneuver-api.ts';
 
 let t: TestApp;
 let jobs: RunningJobQueue;

@@ -5,12 +5,12 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
+import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import type { Plan, PlanList } from '../../shared/contracts/plan.ts';
+import { as, PEOPLE } from '../maneuvers/maneuver-api.ts';
+import { eventually } from '../support/eventually.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { createQuarterTurnSequence } from './quarter-turn-sequence.ts';
-import { eventually } from '../support/eventually.ts';
-import { PEOPLE, as } from '../maneuvers/maneuver-api.ts';
 
 let t: TestApp;
 let jobs: RunningJobQueue | undefined;

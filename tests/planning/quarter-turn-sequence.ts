@@ -1,7 +1,7 @@
 import { expect } from 'vitest';
 
+import { as, crewOf, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import type { TestApp } from '../support/test-app.ts';
-import { PEOPLE, as, crewOf } from '../maneuvers/maneuver-api.ts';
 
 /** Creates, as the demo planner, a sequence for the demo trainee's crew member targeting yaw 90° within 2°; returns its id. */
 export async function createQuarterTurnSequence(t: TestApp, name: string): Promise<string> {

@@ -42,7 +42,7 @@ describe('robustness run', () => {
   it('composes each open-loop sample from pieces as simulating the perturbed sample whole does (within 1e-5°)', () => {
     for (const i of [0, 7]) {
       const c = perturbedCase(inputs, i);
-      const whole = evaluateSequence(c.body, c.sequence, target as [number, number, number, number], { rtol: 1e-10, rateHz: 1, skipAudit: true }).errorDeg;
+      const whole = evaluateSequence(c.body, c.sequence, target, { rtol: 1e-10, rateHz: 1, skipAudit: true }).errorDeg;
       expect(all[i].openLoopErrorDeg).toBeCloseTo(whole, 5);
     }
   }, 120_000);

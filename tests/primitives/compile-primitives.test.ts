@@ -6,15 +6,15 @@
 import { glMatrix, quat, vec3 } from 'gl-matrix';
 import { describe, expect, it } from 'vitest';
 
+import { simulate } from '../../server/engine/simulate.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
 import { DOF_AXES } from '../../server/model/joints.ts';
-import { simulate } from '../../server/engine/simulate.ts';
 import type { Body } from '../../shared/contracts/body.ts';
-import { harmonicAngleDeg, stepDuration, validateSequence, type HarmonicStep, type Step } from '../../shared/contracts/sequence.ts';
+import { harmonicAngleDeg, type HarmonicStep, type Step, stepDuration, validateSequence } from '../../shared/contracts/sequence.ts';
 import type { DofName } from '../../shared/model/dof-names.ts';
 import { BLEND_SPEED_DEG_S, compilePrimitives, dofInfoFromBody, MIN_BLEND_S } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
-import { defaultPrimitive, primitiveSchema, type Primitive, type PrimitiveKind, type RecordedSweep } from '../../shared/primitives/primitive-schemas.ts';
+import { defaultPrimitive, type Primitive, type PrimitiveKind, primitiveSchema, type RecordedSweep } from '../../shared/primitives/primitive-schemas.ts';
 
 glMatrix.setMatrixArrayType(Array);
 
@@ -39,7 +39,7 @@ function limbDirection(dofs: DofName[], anglesDeg: number[]): vec3 {
   const r = quat.create();
   dofs.forEach((d, i) => {
     // Each axis is in the frame left by the previous rotations: compose on the right.
-    const q = quat.setAxisAngle(quat.create(), DOF_AXES[d] as unknown as vec3, (anglesDeg[i] * Math.PI) / 180);
+    const q = quat.setAxisAngle(quat.create(), DOF_AXES[d], (anglesDeg[i] * Math.PI) / 180);
     quat.multiply(r, r, q);
   });
   return vec3.transformQuat(vec3.create(), vec3.fromValues(0, 0, -1), r);

@@ -3,6 +3,7 @@
  * amplitude and tempo: the figures it reports are the perturbations that were applied.
  */
 import { describe, expect, it } from 'vitest';
+
 import { anglesAt, compileMotion } from '../../server/engine/joint-motion.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { compareExecution, recordingSequence } from '../../server/recordings/compare-execution.ts';

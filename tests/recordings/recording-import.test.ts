@@ -5,6 +5,7 @@
  */
 import { Euler, Quaternion, Vector3 } from 'three';
 import { describe, expect, it } from 'vitest';
+
 import { checkBvh, readBvh } from '../../server/recordings/bvh-file.ts';
 import { defaultBvhMapping } from '../../server/recordings/bvh-mapping.ts';
 import { bvhTrack } from '../../server/recordings/bvh-track.ts';

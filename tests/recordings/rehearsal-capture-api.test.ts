@@ -4,15 +4,15 @@
  * version and on the trainee's newer current profile, reports the reached attitude, the step timing
  * and the overlay; a reviewer signs it off; the trend lists it.
  */
-import { validateBody } from '../../shared/contracts/body.ts';
-import { validateSequence } from '../../shared/contracts/sequence.ts';
-import { compileBody } from '../../shared/kinematics/body-model.ts';
-import { anglesAt, compileMotion } from '../../server/engine/joint-motion.ts';
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { profileVersions, rehearsalCaptures } from '../../db/schema/index.ts';
+import { anglesAt, compileMotion } from '../../server/engine/joint-motion.ts';
+import { validateBody } from '../../shared/contracts/body.ts';
+import { validateSequence } from '../../shared/contracts/sequence.ts';
+import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from '../rehearse/rehearsal-fixture.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 

@@ -5,9 +5,9 @@
 import { glMatrix, quat } from 'gl-matrix';
 import { describe, expect, it } from 'vitest';
 
-import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { sampleIndexAt, slerpInto, trackStateAt } from '../../scene/pose/interpolate.ts';
 import { createMotionTrack } from '../../scene/pose/motion-track.ts';
+import { compileBody } from '../../shared/kinematics/body-model.ts';
 
 glMatrix.setMatrixArrayType(Float64Array as unknown as ArrayConstructor);
 

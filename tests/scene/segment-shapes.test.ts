@@ -1,8 +1,8 @@
 /** Drawing sizes from inertia: the elliptic-cylinder inversion recovers known solids. */
 import { describe, expect, it } from 'vitest';
 
-import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { segmentShapes, segmentSide } from '../../scene/pose/segment-shapes.ts';
+import { compileBody } from '../../shared/kinematics/body-model.ts';
 
 describe('segment shapes', () => {
   it('recovers a solid circular cylinder (r = 0.05 m, L = 0.4 m, 2 kg) from I = mr²/2 and m(3r²+L²)/12 (standard table of moments of inertia)', () => {

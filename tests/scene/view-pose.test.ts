@@ -6,7 +6,10 @@
 import { Object3D, Quaternion, Vector3 } from 'three';
 import { beforeAll, describe, expect, it } from 'vitest';
 
-import { compileMotion, anglesAt } from '../../server/engine/joint-motion.ts';
+import { trackStateAt } from '../../scene/pose/interpolate.ts';
+import { createMotionTrack, type MotionTrack } from '../../scene/pose/motion-track.ts';
+import { computeWorldPose, createWorldPose, segmentPointToWorld } from '../../scene/pose/world-pose.ts';
+import { anglesAt, compileMotion } from '../../server/engine/joint-motion.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
 import { type Body, validateBody } from '../../shared/contracts/body.ts';
@@ -15,9 +18,6 @@ import { type Sequence, validateSequence } from '../../shared/contracts/sequence
 import { type BodyModel, compileBody } from '../../shared/kinematics/body-model.ts';
 import { createBodyPose, forwardKinematics } from '../../shared/kinematics/forward-kinematics.ts';
 import { quatToMatrix } from '../../shared/math/quaternion.ts';
-import { trackStateAt } from '../../scene/pose/interpolate.ts';
-import { createMotionTrack, type MotionTrack } from '../../scene/pose/motion-track.ts';
-import { computeWorldPose, createWorldPose, segmentPointToWorld } from '../../scene/pose/world-pose.ts';
 import { ARM_SWEEP } from '../rehearse/rehearsal-fixture.ts';
 
 /** Agreement of two computations of the same pose in double precision, m and unitless. */

@@ -7,14 +7,14 @@ import type pg from 'pg';
 import type { DestinationStream } from 'pino';
 import request from 'supertest';
 
-import { seedDemo } from '../../db/seed/run-seed.ts';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
-import type { AppContext } from '../../server/app-context.ts';
+import { seedDemo } from '../../db/seed/run-seed.ts';
 import { createApp } from '../../server/app.ts';
+import type { AppContext } from '../../server/app-context.ts';
 import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
-import { startSmtpFake, type SmtpFake } from '../../server/mail/smtp-fake.ts';
-import { startS3Fake, type S3Fake } from '../../server/storage/s3-fake.ts';
+import { type SmtpFake, startSmtpFake } from '../../server/mail/smtp-fake.ts';
+import { type S3Fake, startS3Fake } from '../../server/storage/s3-fake.ts';
 import type { Role } from '../../shared/contracts/roles.ts';
 import { createTestDatabase } from './test-database.ts';
 

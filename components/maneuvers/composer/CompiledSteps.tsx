@@ -3,13 +3,14 @@ import { StyleSheet, View } from 'react-native';
 import { useCompileQuery } from '@/components/api/use-sequences';
 import { dofLabel } from '@/components/charts/JointAnglePlots';
 import { spacing } from '@/components/theme';
+import { DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
 import type { Step } from '@/shared/contracts/sequence';
 import type { Primitive } from '@/shared/primitives/primitive-schemas';
+
 import { fmtSeconds } from '../report/format';
-import { DataTable } from '@/components/ui/DataTable';
 
 /** Props of {@link CompiledSteps}. */
 export interface CompiledStepsProps {

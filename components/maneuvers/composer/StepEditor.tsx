@@ -8,10 +8,11 @@ import { Button } from '@/components/ui/Button';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
 import { cueFor } from '@/shared/primitives/primitive-cues';
-import { PRIMITIVE_LABELS, defaultPrimitive, type Primitive, type PrimitiveKind } from '@/shared/primitives/primitive-schemas';
+import { defaultPrimitive, type Primitive, PRIMITIVE_LABELS, type PrimitiveKind } from '@/shared/primitives/primitive-schemas';
+
 import { primitiveToForm, type StepFormValues } from './primitive-fields';
-import { StepForm } from './StepForm';
 import { stepFormResolver, tryParseStep } from './step-form-resolver';
+import { StepForm } from './StepForm';
 
 /** Kinds made from scratch here (a recorded sweep comes from an imported recording). */
 type FormKind = Exclude<PrimitiveKind, 'recorded_sweep'>;

@@ -3,6 +3,7 @@ import { useRef } from 'react';
 import { Button } from '@/components/ui/Button';
 import { Sheet } from '@/components/ui/Sheet';
 import type { Primitive } from '@/shared/primitives/primitive-schemas';
+
 import { StepEditor } from './StepEditor';
 
 /** Props of {@link StepEditorSheet}. */

@@ -1,4 +1,4 @@
-import { Controller, useFieldArray, type Control, type FieldPath, type FieldErrors } from 'react-hook-form';
+import { type Control, Controller, type FieldErrors, useFieldArray } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { spacing } from '@/components/theme';
@@ -10,7 +10,8 @@ import { Text } from '@/components/ui/Text';
 import { TextField } from '@/components/ui/TextField';
 import { DOF_LABELS, DOF_NAMES } from '@/shared/model/dof-names';
 import type { Primitive } from '@/shared/primitives/primitive-schemas';
-import { PRIMITIVE_FIELDS, type CustomAngleRow, type FieldSpec, type StepFormValues } from './primitive-fields';
+
+import { type CustomAngleRow, type FieldSpec, PRIMITIVE_FIELDS, type StepFormValues } from './primitive-fields';
 
 /** Props of {@link StepForm}. */
 export interface StepFormProps {
@@ -36,7 +37,7 @@ export function StepForm({ control, values, errors }: StepFormProps) {
 }
 
 function StepField({ spec, control }: { spec: FieldSpec; control: StepFormProps['control'] }) {
-  const name = spec.name as FieldPath<StepFormValues>;
+  const name = spec.name;
   if (spec.type === 'number') {
     return <FormTextField control={control as never} name={name} label={spec.label} unit={spec.unit} hint={spec.hint} inputMode="decimal" />;
   }
@@ -63,7 +64,7 @@ function CustomAngles({ control, errors }: { control: StepFormProps['control']; 
   const messages: string[] = [];
   if (customError) {
     if (typeof customError.message === 'string') messages.push(customError.message);
-    else for (const [dof, e] of Object.entries(customError)) if (e && typeof e === 'object' && 'message' in e && e.message) messages.push(`${dof}: ${e.message}`);
+    else for (const [dof, e] of Object.entries(customError)) if (typeof e?.message === 'string' && e.message) messages.push(`${dof}: ${e.message}`);
   }
   return (
     <View style={styles.custom}>

@@ -1,11 +1,11 @@
-import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { Text } from '@/components/ui/Text';
 import { cueFor } from '@/shared/primitives/primitive-cues';
-import { PRIMITIVE_LABELS, type Primitive } from '@/shared/primitives/primitive-schemas';
+import { type Primitive, PRIMITIVE_LABELS } from '@/shared/primitives/primitive-schemas';
 
 /** Props of {@link StepList}. */
 export interface StepListProps {
@@ -77,7 +77,7 @@ const styles = StyleSheet.create({
   rowSelected: { borderColor: colors.accent },
   main: { flexDirection: 'row', gap: spacing.md, alignItems: 'flex-start', borderRadius: radii.sm, padding: spacing.xs },
   pressed: { backgroundColor: colors.raised },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
+  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' },
   index: { width: 28, height: 28, borderRadius: radii.pill, backgroundColor: colors.accentTint, alignItems: 'center', justifyContent: 'center' },
   texts: { flex: 1, gap: 2 },
   actions: { flexDirection: 'row', flexWrap: 'wrap', justifyContent: 'flex-end' },

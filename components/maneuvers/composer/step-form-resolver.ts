@@ -2,7 +2,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { Resolver } from 'react-hook-form';
 import { z } from 'zod';
 
-import { primitiveSchema, type Primitive } from '@/shared/primitives/primitive-schemas';
+import { type Primitive, primitiveSchema } from '@/shared/primitives/primitive-schemas';
+
 import { formToPrimitiveInput, type StepFormValues } from './primitive-fields';
 
 /**

@@ -1,5 +1,6 @@
 import { dofLabel } from '@/components/charts/JointAnglePlots';
 import { DataTable } from '@/components/ui/DataTable';
+
 import { fmtRate } from './format';
 
 /** Props of {@link PeakRatesTable}. */

@@ -1,7 +1,8 @@
 import { dofLabel } from '@/components/charts/JointAnglePlots';
+import { DataTable } from '@/components/ui/DataTable';
 import { Text } from '@/components/ui/Text';
 import type { RangeViolation } from '@/shared/contracts/result';
-import { DataTable } from '@/components/ui/DataTable';
+
 import { fmtDeg, fmtSeconds } from './format';
 
 /** Props of {@link RangeViolationsTable}. */

@@ -9,6 +9,7 @@ import { Text } from '@/components/ui/Text';
 import type { VerificationReport as Report } from '@/shared/contracts/maneuver';
 import type { VersionRobustness } from '@/shared/contracts/robustness';
 import { quatToYpr } from '@/shared/math/euler-zyx';
+
 import { ManeuverCautions } from '../ManeuverCautions';
 import { Preview3DSlot } from '../Preview3DSlot';
 import { LiveRobustnessCaution } from '../robustness/RobustnessCaution';

@@ -3,13 +3,14 @@ import { StyleSheet, View } from 'react-native';
 
 import { useCompareQuery } from '@/components/api/use-sequences';
 import { colors, radii, spacing } from '@/components/theme';
+import { DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
 import type { CompareResponse, VersionSummary } from '@/shared/contracts/maneuver';
+
 import { fmtNum } from '../report/format';
-import { DataTable } from '@/components/ui/DataTable';
 
 /** Props of {@link CompareVersions}. */
 export interface CompareVersionsProps {

@@ -6,6 +6,7 @@
 import { cpus } from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
+
 import type { PoolReply, PoolRequest, WorkerReady } from './messages.ts';
 
 /** Thrown when a simulation exceeds its time budget. */

@@ -12,19 +12,19 @@ import { and, asc, eq, inArray, notInArray, sql } from 'drizzle-orm';
 import type { PgBoss } from 'pg-boss';
 
 import type { Database } from '../../../db/client.ts';
-import { robustnessChunks, robustnessRuns, type RobustnessRunRow } from '../../../db/schema/index.ts';
+import { robustnessChunks, type RobustnessRunRow, robustnessRuns } from '../../../db/schema/index.ts';
 import type { Body } from '../../../shared/contracts/body.ts';
 import { sequenceTargetSchema } from '../../../shared/contracts/maneuver.ts';
-import { DEFAULT_ROBUSTNESS_MODEL, robustnessModelSchema, type RobustnessModel, type RobustnessState } from '../../../shared/contracts/robustness.ts';
+import { DEFAULT_ROBUSTNESS_MODEL, type RobustnessModel, robustnessModelSchema, type RobustnessState } from '../../../shared/contracts/robustness.ts';
 import type { RobustnessRun } from '../../../shared/contracts/robustness-run.ts';
-import { sequenceSchema, type Sequence } from '../../../shared/contracts/sequence.ts';
+import { type Sequence, sequenceSchema } from '../../../shared/contracts/sequence.ts';
 import type { Quat } from '../../../shared/math/quaternion.ts';
 import type { AppContext } from '../../app-context.ts';
 import { recordAudit } from '../../audit/record-audit.ts';
 import { storedCompiled } from '../../maneuvers/stored-compiled.ts';
 import { targetQuat } from '../../maneuvers/target-attitude.ts';
 import type { LoadedVersion } from '../../motion/version-access.ts';
-import { summariseRobustness, type RobustnessFigures, type RobustnessInputs, type RobustnessSample } from '../../planning/robustness.ts';
+import { type RobustnessFigures, type RobustnessInputs, type RobustnessSample, summariseRobustness } from '../../planning/robustness.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../queue-names.ts';
 import { ChunkAbortedError, type ChunkPool } from './chunk-pool.ts';
 

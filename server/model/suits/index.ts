@@ -1,4 +1,4 @@
-import { suitConfigSchema, type SuitConfig } from '../../../shared/contracts/suit.ts';
+import { type SuitConfig, suitConfigSchema } from '../../../shared/contracts/suit.ts';
 import { CABIN_CLOTHING } from './cabin-clothing.ts';
 import { PRESSURISED_SUIT } from './pressurised-suit.ts';
 
