@@ -4,11 +4,15 @@ import path from 'node:path';
 import { expect, type Page, test } from '@playwright/test';
 
 import { DEMO_PEOPLE } from '../db/seed/demo-people.ts';
+import { envVar } from '../server/config.ts';
+import type { CrewMemberView } from '../shared/contracts/crew.ts';
+import type { ProfileVersionHeader } from '../shared/contracts/profile-version.ts';
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
+import { jsonOf } from './support/response-json.ts';
 import { signIn } from './support/sign-in.ts';
 
 // Screenshots for people to look at, only when CREW_SCREENS_DIR names a folder (not part of the check).
-const SCREENS = process.env.CREW_SCREENS_DIR;
+const SCREENS = envVar('CREW_SCREENS_DIR');
 async function shot(page: Page, name: string) {
   if (!SCREENS) return;
   mkdirSync(SCREENS, { recursive: true });
@@ -87,7 +91,7 @@ test('a planner creates a crew member, saves and edits a profile, compares versi
   await expect(errorRow).toContainText('mass_kg');
   await expect(errorRow).toContainText('"fifty" is not a number');
   await shot(page, 'crew-upload-rejected-wide');
-  const none = await (await page.request.get('/api/crew?q=Elio')).json();
+  const none = await jsonOf<{ members: CrewMemberView[] }>(await page.request.get('/api/crew?q=Elio'));
   expect(none.members).toEqual([]);
 
   await page.getByLabel('Measurements file').setInputFiles({ name: 'crew-week-12.csv', mimeType: 'text/csv', buffer: Buffer.from(FIXED) });
@@ -116,7 +120,7 @@ test('a stale save shows the conflict and saves nothing', async ({ page, baseURL
   await expect(page.getByText('Someone saved a newer version')).toBeVisible();
   await expect(page.getByText(/you started from version 1, but version 2 was saved by Orrin Vale/)).toBeVisible();
   await shot(page, 'crew-conflict-wide');
-  const versions = await (await page.request.get(`/api/crew/${id}/versions`)).json();
+  const versions = await jsonOf<{ versions: ProfileVersionHeader[] }>(await page.request.get(`/api/crew/${id}/versions`));
   expect(versions.versions.map((v: { version: number }) => v.version)).toEqual([2, 1]);
   await page.getByRole('button', { name: /Load the newest version/ }).click();
   await expect(page.getByRole('button', { name: 'Save version 3' })).toBeVisible();
@@ -137,7 +141,7 @@ test('a trainee sees only their own profile, read-only', async ({ page }) => {
   const rows = page.getByRole('list', { name: 'Crew members' }).getByRole('button');
   await expect(rows).toHaveCount(1);
   await expect(rows.first()).toHaveAccessibleName(/^Tamsin Reed/);
-  const listed = await (await page.request.get('/api/crew')).json();
+  const listed = await jsonOf<{ members: CrewMemberView[] }>(await page.request.get('/api/crew'));
   expect(listed.members.map((m: { name: string }) => m.name)).toEqual(['Tamsin Reed']);
 });
 
@@ -173,7 +177,7 @@ test('a planner edits a suit configuration; a bad value is named before anything
   await expect(card).toContainText('Upper trunk');
   await page.getByRole('button', { name: 'Edit as JSON' }).first().click();
   const editor = page.getByRole('textbox', { name: /configuration JSON/ });
-  const json = JSON.parse(await editor.inputValue());
+  const json = JSON.parse(await editor.inputValue()) as { segments: Record<string, unknown> };
   await editor.fill(JSON.stringify({ ...json, segments: { ...json.segments, upper_trunk: { mass: -2 } } }, null, 2));
   await page.getByRole('button', { name: 'Save suit' }).click();
   await expect(page.getByText('segments.upper_trunk.mass: added mass must not be negative')).toBeVisible();

@@ -3,33 +3,38 @@ import path from 'node:path';
 
 import { type APIRequestContext, expect, type Page, test } from '@playwright/test';
 
+import { envVar } from '../server/config.ts';
+import type { SignInResponse } from '../shared/contracts/auth.ts';
+import type { CrewMemberView } from '../shared/contracts/crew.ts';
+import type { SequenceSummary, VersionDetail } from '../shared/contracts/maneuver.ts';
 import { DEMO_BY_ROLE, DEMO_PASSWORD } from './support/demo-accounts.ts';
+import { jsonOf } from './support/response-json.ts';
 import { signIn } from './support/sign-in.ts';
 
 const TRAINEE = 'tamsin.reed@lumen.example.test';
 // Screenshots for people to look at, only when REHEARSE_SCREENS_DIR names a folder (not part of the check).
-const SCREENS = process.env.REHEARSE_SCREENS_DIR;
+const SCREENS = envVar('REHEARSE_SCREENS_DIR');
 
 async function token(request: APIRequestContext, email: string): Promise<string> {
   // the context may already hold a session cookie from an earlier sign-in: say where the request comes from
   const res = await request.post('/api/auth/sign-in', { data: { email, password: DEMO_PASSWORD }, headers: { Origin: `http://127.0.0.1:${process.env.E2E_PORT}` } });
   expect(res.status()).toBe(200);
-  return (await res.json()).token as string;
+  return (await jsonOf<SignInResponse>(res)).token;
 }
 
 /** A planner composes a maneuver for Tamsin Reed through the API and a reviewer clears it; returns the version id. */
 async function clearedManeuver(request: APIRequestContext): Promise<string> {
   const planner = { Authorization: `Bearer ${await token(request, DEMO_BY_ROLE.planner.email)}` };
   const reviewer = { Authorization: `Bearer ${await token(request, DEMO_BY_ROLE.reviewer.email)}` };
-  const crew = await (await request.get('/api/crew', { headers: planner })).json();
-  const reed = crew.members.find((m: { name: string }) => m.name === 'Tamsin Reed');
-  expect(reed).toBeTruthy();
+  const crew = await jsonOf<{ members: CrewMemberView[] }>(await request.get('/api/crew', { headers: planner }));
+  const reed = crew.members.find((m) => m.name === 'Tamsin Reed');
+  if (!reed) throw new Error('the demo crew has no Tamsin Reed');
   const seq = await request.post('/api/sequences', {
     headers: planner,
     data: { crewMemberId: reed.id, name: 'E2E pitch-down arm orbit', target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: -8, roll: 0 } } },
   });
   expect(seq.status()).toBe(201);
-  const sequenceId = (await seq.json()).id as string;
+  const sequenceId = (await jsonOf<SequenceSummary>(seq)).id;
   const version = await request.post(`/api/sequences/${sequenceId}/versions`, {
     headers: planner,
     data: {
@@ -41,7 +46,7 @@ async function clearedManeuver(request: APIRequestContext): Promise<string> {
     },
   });
   expect(version.status(), await version.text()).toBe(201);
-  const versionId = (await version.json()).id as string;
+  const versionId = (await jsonOf<VersionDetail>(version)).id;
   expect((await request.post(`/api/sequences/versions/${versionId}/submit`, { headers: planner, data: { acknowledgeFailures: true, note: 'rehearsal e2e: checks acknowledged' } })).status()).toBeLessThan(300);
   const cleared = await request.post(`/api/reviews/${versionId}/decision`, { headers: reviewer, data: { decision: 'clear' } });
   expect(cleared.status(), await cleared.text()).toBeLessThan(300);

@@ -3,8 +3,8 @@ import { OrbitControls } from '@react-three/drei/core/OrbitControls';
 import { type RootState, useFrame, useThree } from '@react-three/fiber';
 import { type RefObject, useEffect, useLayoutEffect, useMemo, useRef } from 'react';
 import {
-  BufferGeometry, type Camera, Float32BufferAttribute, Line, LineBasicMaterial, Matrix4, type Mesh, MeshBasicMaterial,
-  type Object3D, PerspectiveCamera, Quaternion, RingGeometry, SphereGeometry, Vector3,
+  BufferGeometry, type Camera, Float32BufferAttribute, Line, LineBasicMaterial, Matrix4, type Mesh, MeshBasicMaterial, type Object3D,
+  PerspectiveCamera, Quaternion, RingGeometry, SphereGeometry, Vector3,
 } from 'three';
 import type { OrbitControls as OrbitControlsImpl } from 'three-stdlib';
 

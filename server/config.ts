@@ -101,8 +101,8 @@ export const configSchema = z.object({
 export type Config = z.infer<typeof configSchema>;
 
 /** One environment variable as Node gives it (Expo's global types widen `process.env` entries to `any`). */
-export function envVar(name: string): string | undefined {
-  const value: unknown = process.env[name];
+export function envVar(name: string, env: NodeJS.ProcessEnv = process.env): string | undefined {
+  const value: unknown = env[name];
   return typeof value === 'string' ? value : undefined;
 }
 

@@ -15,11 +15,7 @@ import { Text } from '@/components/ui/Text';
 import type { SequenceSummary } from '@/shared/contracts/maneuver';
 
 import {
-  type CreateSequenceFormInput,
-  type CreateSequenceFormOutput,
-  createSequenceFormSchema,
-  EMPTY_CREATE_SEQUENCE_FORM,
-  toCreateSequenceRequest,
+  type CreateSequenceFormInput, type CreateSequenceFormOutput, createSequenceFormSchema, EMPTY_CREATE_SEQUENCE_FORM, toCreateSequenceRequest,
 } from './create-sequence-form';
 
 /** Props of {@link CreateSequenceSheet}. */

@@ -5,7 +5,7 @@
  * Errors go to stderr naming the flag or field, with a non-zero exit.
  */
 import { readFileSync } from 'node:fs';
-import { parseArgs } from 'node:util';
+import { parseArgs, type ParseArgsConfig } from 'node:util';
 
 import { validateBody } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
@@ -45,17 +45,23 @@ const FLAG_OF: Record<string, string> = {
   rateLimitDegS: '--rate-limit', timeBudgetS: '--time-budget', maxCandidates: '--candidates', samples: '--samples', seed: '--seed',
 };
 
+const options: NonNullable<ParseArgsConfig['options']> = {
+  ...Object.fromEntries(['yaw', 'pitch', 'roll', 'axis', 'angle', 'tolerance', 'rate-limit', 'time-budget', 'candidates', 'samples', 'seed'].map((k): [string, { type: 'string' }] => [k, { type: 'string' }])),
+  help: { type: 'boolean', short: 'h' },
+};
+
 function main(): void {
-  let parsed: { values: Record<string, string | boolean | undefined>; positionals: string[] };
+  let parsed: { values: Record<string, string | boolean | (string | boolean)[] | undefined>; positionals: string[] };
   try {
     parsed = parseArgs({
       allowPositionals: true,
-      options: Object.fromEntries([...['yaw', 'pitch', 'roll', 'axis', 'angle', 'tolerance', 'rate-limit', 'time-budget', 'candidates', 'samples', 'seed'].map((k) => [k, { type: 'string' as const }]), ['help', { type: 'boolean' as const, short: 'h' }]]),
+      options,
     });
   } catch (err) {
     die(2, `${(err as Error).message}\n\n${HELP}`);
   }
-  const v = parsed.values;
+  // No option is `multiple`: every value is one string or boolean.
+  const v = parsed.values as Record<string, string | boolean | undefined>;
   if (v.help) { process.stdout.write(`${HELP}\n`); return; }
   if (parsed.positionals.length !== 1) die(2, `expected one BODY.json (got ${parsed.positionals.length} file arguments)\n\n${HELP}`);
   const num = (name: string): number | undefined => {

@@ -7,8 +7,9 @@ import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { evalMoving, evalPiece, type MotionPiece, type MotionPlan } from './joint-motion.ts';
 import { bodyRate, createMomentumWork, type MomentumWork, restrictToPiece } from './locked-momentum.ts';
 import {
-  createEstimateWork, createRatePolynomial, ESTIMATE_NODES, type EstimateWork, fitRatePolynomial, GAUSS_NODES, localErrorEstimate, magnusTheta, polynomialTheta,
-quatLogBetween, quatTimesExp,  type RatePolynomial } from './magnus.ts';
+  createEstimateWork, createRatePolynomial, ESTIMATE_NODES, type EstimateWork, fitRatePolynomial, GAUSS_NODES, localErrorEstimate, magnusTheta,
+  polynomialTheta, quatLogBetween, quatTimesExp, type RatePolynomial,
+} from './magnus.ts';
 import { mergeRigidSegments } from './rigid-merge.ts';
 
 /** Integrator settings. */

@@ -15,9 +15,9 @@ import { type Job, PgBoss } from 'pg-boss';
 import type { AppContext, JobQueue } from '../app-context.ts';
 import { deliverInvitation, type InvitationMailJob } from '../team/deliver-invitation.ts';
 import {
-  ALL_QUEUES, CHUNK_RETRY_LIMIT, INVITATION_MAIL_QUEUE, INVITATION_MAIL_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, type QueueName,
-REVERIFY_QUEUE, REVERIFY_RETRY_LIMIT,
-  ROBUSTNESS_CHUNK_QUEUE, } from './queue-names.ts';
+  ALL_QUEUES, CHUNK_RETRY_LIMIT, INVITATION_MAIL_QUEUE, INVITATION_MAIL_RETRY_LIMIT, PLAN_QUEUE, PLAN_RETRY_LIMIT, type QueueName, REVERIFY_QUEUE,
+  REVERIFY_RETRY_LIMIT, ROBUSTNESS_CHUNK_QUEUE,
+} from './queue-names.ts';
 import { reconcileWork } from './reconcile-work.ts';
 import { type ReverifyJob, reverifyVersion } from './reverify-version.ts';
 import { ChunkPool } from './robustness/chunk-pool.ts';

@@ -1,11 +1,6 @@
 import type { ProfileInputs, SegmentLengthKey } from '../../shared/contracts/profile-inputs.ts';
 import { DE_LEVA_REFERENCE_STATURE_M, DE_LEVA_TABLE_4, type DeLevaSegment } from './data/de-leva-1996-table4.ts';
-import {
-  ANKLE_HEIGHT_PER_STATURE,
-  BIACROMIAL_PER_STATURE,
-  HIP_JOINT_SPACING_PER_STATURE,
-  SHOULDER_DROP_PER_STATURE,
-} from './proportions.ts';
+import { ANKLE_HEIGHT_PER_STATURE, BIACROMIAL_PER_STATURE, HIP_JOINT_SPACING_PER_STATURE, SHOULDER_DROP_PER_STATURE } from './proportions.ts';
 
 /** Every length the model places segments with, m. */
 export interface SegmentGeometry {

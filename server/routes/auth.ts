@@ -50,8 +50,8 @@ export function authRouter(ctx: AppContext): Router {
     keyGenerator: (req) => {
       // Runs before the body is validated: an absent or odd e-mail counts under its text form.
       const body: unknown = req.body;
-      const email = body && typeof body === 'object' && 'email' in body ? (body.email ?? '') : '';
-      return `account:${String(email).trim().toLowerCase()}`;
+      const email = body && typeof body === 'object' && 'email' in body && typeof body.email === 'string' ? body.email : '';
+      return `account:${email.trim().toLowerCase()}`;
     },
     handler: limited('Too many failed sign-in attempts for this e-mail. Wait a few minutes and try again, or ask your administrator.'),
   });

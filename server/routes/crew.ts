@@ -3,11 +3,7 @@ import { z } from 'zod';
 
 import { crewMembers } from '../../db/schema/index.ts';
 import {
-  type CreateCrewMemberRequest,
-  createCrewMemberRequestSchema,
-  crewListQuerySchema,
-  type SaveProfileRequest,
-  saveProfileRequestSchema,
+  type CreateCrewMemberRequest, createCrewMemberRequestSchema, crewListQuerySchema, type SaveProfileRequest, saveProfileRequestSchema,
 } from '../../shared/contracts/crew.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';

@@ -3,9 +3,7 @@ import { Router } from 'express';
 import type { z } from 'zod';
 
 import { crewMembers, rehearsals, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
-import {
-  logRehearsalSchema, type RehearsableVersion, type Rehearsal,
-rehearsalListQuerySchema, } from '../../shared/contracts/rehearsal.ts';
+import { logRehearsalSchema, type RehearsableVersion, type Rehearsal, rehearsalListQuerySchema } from '../../shared/contracts/rehearsal.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, forbidden } from '../http/http-error.ts';

@@ -2,9 +2,9 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
+import { envVar } from '../config.ts';
 import { type SmtpFake, startSmtpFake } from '../mail/smtp-fake.ts';
 import { type S3Fake, startS3Fake } from '../storage/s3-fake.ts';
-import { envVar } from '../config.ts';
 import { type LocalCluster, startLocalCluster } from './postgres-cluster.ts';
 
 /** The local services the product needs on a fresh machine, started under one data folder. */

@@ -4,12 +4,7 @@ import type { Database } from '../../db/client.ts';
 import { crewMembers, suitConfigs } from '../../db/schema/index.ts';
 import { profileInputsSchema, type SegmentLengths } from '../../shared/contracts/profile-inputs.ts';
 import { type SuitConfig, suitConfigSchema } from '../../shared/contracts/suit.ts';
-import {
-  MEASUREMENT_COLUMNS,
-  MEASUREMENT_LENGTH_COLUMNS,
-  MEASUREMENT_REQUIRED,
-  type UploadRowError,
-} from '../../shared/contracts/uploads.ts';
+import { MEASUREMENT_COLUMNS, MEASUREMENT_LENGTH_COLUMNS, MEASUREMENT_REQUIRED, type UploadRowError } from '../../shared/contracts/uploads.ts';
 import { type DerivedProfile, deriveProfile } from '../crew/derive-profile.ts';
 import { HttpError } from '../http/http-error.ts';
 import { type CsvRow, numberCell, readCsvTable } from './csv-table.ts';

@@ -1,12 +1,6 @@
 import { z } from 'zod';
 
-import {
-  addedInertiaSchema,
-  dofNameSchema,
-  dofRangeSchema,
-  segmentNameSchema,
-  vec3Schema,
-} from '../model/model-schemas.ts';
+import { addedInertiaSchema, dofNameSchema, dofRangeSchema, segmentNameSchema, vec3Schema } from '../model/model-schemas.ts';
 
 /**
  * What a suit adds to one segment: a rigid mass fixed to it. Combined with the segment by the

@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ACCESS_POLICY } from '../../server/auth/access-policy.ts';
 import { API_AREAS } from '../../server/routes/api-routes.ts';
 import { ROLES } from '../../shared/contracts/roles.ts';
+import { apiError } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -18,7 +19,7 @@ describe('the API guard', () => {
   it.each(API_AREAS.map((a) => a.path))('rejects %s without a token (401)', async (mount) => {
     const res = await request(t.app).get(`/api${mount}`);
     expect(res.status).toBe(401);
-    expect(res.body.error.code).toBe('unauthorized');
+    expect(apiError(res).code).toBe('unauthorized');
   });
 
   it.each(API_AREAS.map((a) => a.path))('rejects %s with a garbage token (401)', async (mount) => {
@@ -39,12 +40,12 @@ describe('the API guard', () => {
   it('a trainee gets 403 from the admin-only team route', async () => {
     const res = await request(t.app).get('/api/team/users').set('Authorization', `Bearer ${await t.tokenFor('trainee')}`);
     expect(res.status).toBe(403);
-    expect(res.body.error.code).toBe('forbidden');
+    expect(apiError(res).code).toBe('forbidden');
   });
 
   it('an unknown API path is a JSON 404', async () => {
     const res = await request(t.app).get('/api/nothing-here');
     expect(res.status).toBe(404);
-    expect(res.body.error.code).toBe('not_found');
+    expect(apiError(res).code).toBe('not_found');
   });
 });

@@ -2,7 +2,13 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
+import type { ApiErrorBody } from '../../shared/contracts/api-error.ts';
+import type { SessionUser, SignInResponse } from '../../shared/contracts/auth.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+// Response bodies as the web client reads them.
+type UserBody = { user: SessionUser };
 
 let t: TestApp;
 beforeAll(async () => {
@@ -18,9 +24,9 @@ describe('sign-in', () => {
   it('returns the user, a bearer token and an httpOnly SameSite=Strict cookie', async () => {
     const res = await request(t.app).post('/api/auth/sign-in').send({ email: planner.email, password: DEMO_PASSWORD });
     expect(res.status).toBe(200);
-    expect(res.body.user).toMatchObject({ email: planner.email, role: 'planner', name: planner.name });
-    expect(res.body.user.passwordHash).toBeUndefined();
-    expect(typeof res.body.token).toBe('string');
+    expect(bodyOf<UserBody>(res).user).toMatchObject({ email: planner.email, role: 'planner', name: planner.name });
+    expect(bodyOf<UserBody>(res).user).not.toHaveProperty('passwordHash');
+    expect(typeof bodyOf<SignInResponse>(res).token).toBe('string');
     const cookie = String(res.headers['set-cookie']);
     expect(cookie).toMatch(/holonaut_session=/);
     expect(cookie).toMatch(/HttpOnly/);
@@ -35,25 +41,25 @@ describe('sign-in', () => {
   it('refuses a wrong password with 401 and a clear message', async () => {
     const res = await request(t.app).post('/api/auth/sign-in').send({ email: planner.email, password: 'wrong-password' });
     expect(res.status).toBe(401);
-    expect(res.body.error).toEqual({ code: 'unauthorized', message: 'E-mail or password is not right.' });
+    expect(bodyOf<ApiErrorBody>(res).error).toEqual({ code: 'unauthorized', message: 'E-mail or password is not right.' });
   });
 
   it('refuses an unknown e-mail with the same message as a wrong password', async () => {
     const res = await request(t.app).post('/api/auth/sign-in').send({ email: 'nobody@lumen.example.test', password: 'whatever' });
     expect(res.status).toBe(401);
-    expect(res.body.error.message).toBe('E-mail or password is not right.');
+    expect(apiError(res).message).toBe('E-mail or password is not right.');
   });
 
   it('names the field of a malformed body (400)', async () => {
     const res = await request(t.app).post('/api/auth/sign-in').send({ email: 'not-an-email', password: 'x' });
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('email');
+    expect(apiError(res).field).toBe('email');
   });
 
   it('answers invalid JSON with 400 malformed_json', async () => {
     const res = await request(t.app).post('/api/auth/sign-in').set('content-type', 'application/json').send('{"email":');
     expect(res.status).toBe(400);
-    expect(res.body.error.code).toBe('malformed_json');
+    expect(apiError(res).code).toBe('malformed_json');
   });
 });
 
@@ -63,7 +69,7 @@ describe('sessions', () => {
     const cookie = String(signIn.headers['set-cookie']).split(';')[0];
     const res = await request(t.app).get('/api/me').set('Cookie', cookie);
     expect(res.status).toBe(200);
-    expect(res.body.user.email).toBe(planner.email);
+    expect(bodyOf<UserBody>(res).user.email).toBe(planner.email);
   });
 
   it('rejects a tampered token with 401', async () => {
@@ -74,18 +80,18 @@ describe('sessions', () => {
 
   it('sign-out revokes every token issued before it', async () => {
     const trainee = DEMO_PEOPLE.find((p) => p.role === 'trainee')!;
-    const first = (await request(t.app).post('/api/auth/sign-in').send({ email: trainee.email, password: DEMO_PASSWORD })).body.token;
-    const second = (await request(t.app).post('/api/auth/sign-in').send({ email: trainee.email, password: DEMO_PASSWORD })).body.token;
+    const first = bodyOf<SignInResponse>(await request(t.app).post('/api/auth/sign-in').send({ email: trainee.email, password: DEMO_PASSWORD })).token;
+    const second = bodyOf<SignInResponse>(await request(t.app).post('/api/auth/sign-in').send({ email: trainee.email, password: DEMO_PASSWORD })).token;
     expect((await request(t.app).post('/api/me/sign-out').set('Authorization', `Bearer ${first}`)).status).toBe(204);
     expect((await request(t.app).get('/api/me').set('Authorization', `Bearer ${second}`)).status).toBe(401);
   });
 
   it('a password change revokes old tokens and the new password works', async () => {
     const other = DEMO_PEOPLE.filter((p) => p.role === 'trainee')[1];
-    const token = (await request(t.app).post('/api/auth/sign-in').send({ email: other.email, password: DEMO_PASSWORD })).body.token;
+    const token = bodyOf<SignInResponse>(await request(t.app).post('/api/auth/sign-in').send({ email: other.email, password: DEMO_PASSWORD })).token;
     const wrong = await request(t.app).post('/api/me/password').set('Authorization', `Bearer ${token}`).send({ currentPassword: 'nope', newPassword: 'a-new-password-1' });
     expect(wrong.status).toBe(400);
-    expect(wrong.body.error.field).toBe('currentPassword');
+    expect(apiError(wrong).field).toBe('currentPassword');
     const ok = await request(t.app).post('/api/me/password').set('Authorization', `Bearer ${token}`).send({ currentPassword: DEMO_PASSWORD, newPassword: 'a-new-password-1' });
     expect(ok.status).toBe(204);
     expect((await request(t.app).get('/api/me').set('Authorization', `Bearer ${token}`)).status).toBe(401);

@@ -12,7 +12,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
 import { errorHandler } from '../../server/http/error-handler.ts';
 import { createSimulateRouter } from '../../server/routes/simulate.ts';
+import type { TeamMember } from '../../shared/contracts/team.ts';
 import { as, createSequence, crewOf, PEOPLE } from '../maneuvers/maneuver-api.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -29,28 +31,28 @@ describe('NUL and unpaired surrogates in text', () => {
   it('a NUL in a crew member name is a 400 naming "name"', async () => {
     const res = await as(t, PEOPLE.planner).post('/crew', { name: 'Ada\u0000Quill' });
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('name');
-    expect(res.body.error.message).toMatch(/NUL/);
+    expect(apiError(res).field).toBe('name');
+    expect(apiError(res).message).toMatch(/NUL/);
   });
 
   it('GET /api/crew?q=%00 is a 400 naming "q"', async () => {
     const res = await request(t.app).get('/api/crew?q=%00').set('Authorization', `Bearer ${await t.tokenFor('planner')}`);
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('q');
+    expect(apiError(res).field).toBe('q');
   });
 
   it('a lone surrogate in a nested JSON field is a 400 naming its path', async () => {
     const crew = await crewOf(t, PEOPLE.trainee);
     const res = await as(t, PEOPLE.planner).post('/sequences', { crewMemberId: crew, name: `turn ${LONE_HIGH}`, target: { mode: 'ypr', yprDeg: { yaw: 1, pitch: 0, roll: 0 } } });
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('name');
-    expect(res.body.error.message).toMatch(/surrogate/);
+    expect(apiError(res).field).toBe('name');
+    expect(apiError(res).message).toMatch(/surrogate/);
   });
 
   it('a NUL in an object key is refused too (keys reach jsonb)', async () => {
     const res = await as(t, PEOPLE.planner).post('/sequences/compile', { primitives: [{ kind: 'pause', durationS: 1, ['x\u0000']: 1 }] });
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toMatch(/^primitives\.0\./);
+    expect(apiError(res).field).toMatch(/^primitives\.0\./);
   });
 
   it('a well-formed surrogate pair (an emoji) is fine', async () => {
@@ -63,7 +65,7 @@ describe('NUL and unpaired surrogates in text', () => {
     const res = await request(t.app).post('/api/uploads/segment-table').set('Authorization', `Bearer ${await t.tokenFor('planner')}`)
       .field('crewMemberId', crew).field('baseVersion', '1').field('note', 'a\u0000b').attach('file', Buffer.from('{}'), 'body.json');
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('note');
+    expect(apiError(res).field).toBe('note');
   });
 });
 
@@ -74,17 +76,17 @@ describe('empty and no-op patches', () => {
     expect(res.status).toBe(400);
     const same = await as(t, PEOPLE.planner).patch(`/sequences/${id}`, { name: 'Patch me' });
     expect(same.status).toBe(400);
-    expect(same.body.error.field).toBe('name');
+    expect(apiError(same).field).toBe('name');
     expect((await as(t, PEOPLE.planner).patch(`/sequences/${id}`, { name: 'Patched' })).status).toBe(200);
   });
 
   it('PATCH /api/team/users/:id that changes nothing is a 400', async () => {
-    const users = (await as(t, PEOPLE.admin).get('/team/users')).body.users as { id: string; email: string; role: string }[];
+    const { users } = bodyOf<{ users: TeamMember[] }>(await as(t, PEOPLE.admin).get('/team/users'));
     const reviewer = users.find((u) => u.email === PEOPLE.reviewer)!;
     expect((await as(t, PEOPLE.admin).patch(`/team/users/${reviewer.id}`, {})).status).toBe(400);
     const same = await as(t, PEOPLE.admin).patch(`/team/users/${reviewer.id}`, { role: reviewer.role });
     expect(same.status).toBe(400);
-    expect(same.body.error.field).toBe('role');
+    expect(apiError(same).field).toBe('role');
   });
 });
 
@@ -99,13 +101,13 @@ describe('malformed multipart uploads', () => {
     const res = await post().set('Content-Type', 'multipart/form-data; boundary=XyZ')
       .send('--XyZ\r\nContent-Disposition: form-data; name="file"; filename="a.csv"\r\nContent-Type: text/csv\r\n\r\nname,sex\r\nA,fem');
     expect(res.status).toBe(400);
-    expect(res.body.error.code).toBe('malformed_upload');
+    expect(apiError(res).code).toBe('malformed_upload');
   });
 
   it('multipart without a boundary is a 400', async () => {
     const res = await post().set('Content-Type', 'multipart/form-data').send('name,sex\r\n');
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('file');
+    expect(apiError(res).field).toBe('file');
   });
 
   it('garbage part headers are a 400', async () => {
@@ -120,7 +122,7 @@ describe('a simulation the integrator cannot finish', () => {
     // Its own pool with a long budget: the integrator gives up after 100,000 steps (a few CPU seconds).
     const pool = new SimulationPool({ size: 1, timeoutMs: 120_000 });
     const app = express().use(express.json({ limit: '2mb' })).use('/api/simulate', createSimulateRouter({ pool })).use(errorHandler);
-    const body = JSON.parse(readFileSync('tests/fixtures/bodies/arm-on-trunk.json', 'utf8'));
+    const body: unknown = JSON.parse(readFileSync('tests/fixtures/bodies/arm-on-trunk.json', 'utf8'));
     const sequence = {
       start: { r_sh_flex: 60, r_sh_abd: 30 },
       steps: [
@@ -131,8 +133,8 @@ describe('a simulation the integrator cannot finish', () => {
     const res = await request(app).post('/api/simulate').send({ body, sequence, options: { rtol: 1e-13, rateHz: 1 } });
     await pool.close();
     expect(res.status).toBe(422);
-    expect(res.body.error.code).toBe('simulation_unfinished');
-    expect(res.body.error.field).toBe('sequence.steps.1');
-    expect(res.body.error.message).toMatch(/step 1/);
+    expect(apiError(res).code).toBe('simulation_unfinished');
+    expect(apiError(res).field).toBe('sequence.steps.1');
+    expect(apiError(res).message).toMatch(/step 1/);
   }, 120_000);
 });

@@ -10,9 +10,15 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { INVITATION_MAIL_RETRY_LIMIT } from '../../server/jobs/queue-names.ts';
 import { type SmtpFake, startSmtpFake } from '../../server/mail/smtp-fake.ts';
-import type { Invitation } from '../../shared/contracts/team.ts';
+import type { AuditEvent, Invitation } from '../../shared/contracts/team.ts';
 import { eventually } from '../support/eventually.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+// Response bodies as the web client reads them.
+type InvitationsBody = { invitations: Invitation[] };
+type InvitationBody = { invitation: Invitation };
+type EventsBody = { events: AuditEvent[] };
 
 let t: TestApp;
 let jobs: RunningJobQueue;
@@ -45,7 +51,7 @@ const mailUp = async () => {
 };
 const invitation = async (email: string): Promise<Invitation> => {
   const res = await request(t.app).get('/api/team/invitations').set('Authorization', admin);
-  return (res.body.invitations as Invitation[]).find((i) => i.email === email && !i.revokedAt)!;
+  return (bodyOf<InvitationsBody>(res).invitations).find((i) => i.email === email && !i.revokedAt)!;
 };
 const invite = (email: string, name = 'Lark Fenwick') => request(t.app).post('/api/team/invitations').set('Authorization', admin).send({ email, name, role: 'reviewer' });
 const linkIn = (text: string) => /\/invite\/([A-Za-z0-9_-]+)/.exec(text)![1];
@@ -56,7 +62,7 @@ describe('invitation outbox', () => {
     const email = 'lark.fenwick@lumen.example.test';
     const res = await invite(email);
     expect(res.status).toBe(201);
-    expect(res.body.invitation.mailState).toBe('sending');
+    expect(bodyOf<InvitationBody>(res).invitation.mailState).toBe('sending');
     const retried = await eventually(async () => {
       const inv = await invitation(email);
       return inv.mailAttempts >= 2 ? inv : undefined;
@@ -77,7 +83,7 @@ describe('invitation outbox', () => {
     const accepted = await request(t.app).post(`/api/invitations/${token}/accept`).send({ password: 'Granite-Willow-Sextant-19' });
     expect(accepted.status).toBe(201);
     // An accepted invitation can be neither resent nor revoked.
-    const done = (await request(t.app).get('/api/team/invitations').set('Authorization', admin)).body.invitations.find((i: Invitation) => i.email === email);
+    const done = bodyOf<InvitationsBody>(await request(t.app).get('/api/team/invitations').set('Authorization', admin)).invitations.find((i: Invitation) => i.email === email)!;
     expect((await request(t.app).post(`/api/team/invitations/${done.id}/revoke`).set('Authorization', admin)).status).toBe(409);
   }, 90_000);
 
@@ -95,14 +101,14 @@ describe('invitation outbox', () => {
     // One open invitation per address: inviting again is refused with a pointer to resend or revoke.
     const again = await invite(email, 'Moth Arden');
     expect(again.status).toBe(409);
-    expect(again.body.error.code).toBe('already_invited');
-    expect(again.body.error.message).toMatch(/resend or revoke/);
+    expect(apiError(again).code).toBe('already_invited');
+    expect(apiError(again).message).toMatch(/resend or revoke/);
 
     await mailUp();
     const waiting = mail!.waitFor(email, undefined, 30_000);
     const resent = await request(t.app).post(`/api/team/invitations/${failed.id}/resend`).set('Authorization', admin);
     expect(resent.status).toBe(200);
-    expect(resent.body.invitation.mailState).toBe('sending');
+    expect(bodyOf<InvitationBody>(resent).invitation.mailState).toBe('sending');
     await eventually(async () => ((await invitation(email)).mailState === 'sent' ? true : undefined), 30_000);
     const token = linkIn((await waiting).text);
     expect((await request(t.app).get(`/api/invitations/${token}`)).status).toBe(200);
@@ -110,7 +116,7 @@ describe('invitation outbox', () => {
     // Revoking kills the link and frees the address.
     const revoked = await request(t.app).post(`/api/team/invitations/${failed.id}/revoke`).set('Authorization', admin);
     expect(revoked.status).toBe(200);
-    expect(revoked.body.invitation.revokedAt).not.toBeNull();
+    expect(bodyOf<InvitationBody>(revoked).invitation.revokedAt).not.toBeNull();
     expect((await request(t.app).get(`/api/invitations/${token}`)).status).toBe(404);
     expect((await request(t.app).post(`/api/invitations/${token}/accept`).send({ password: 'Granite-Willow-Sextant-19' })).status).toBe(404);
     expect((await request(t.app).post(`/api/team/invitations/${failed.id}/resend`).set('Authorization', admin)).status).toBe(409);
@@ -118,14 +124,14 @@ describe('invitation outbox', () => {
     expect(fresh.status).toBe(201);
     // Every step is in the audit log.
     const audit = await request(t.app).get('/api/audit?action=team.revoke_invitation').set('Authorization', admin);
-    expect(audit.body.events.length).toBeGreaterThanOrEqual(1);
+    expect(bodyOf<EventsBody>(audit).events.length).toBeGreaterThanOrEqual(1);
   }, 120_000);
 
   it('two admins inviting the same address at once: exactly one invitation is made', async () => {
     const email = 'pell.quarry@lumen.example.test';
     const [a, b] = await Promise.all([invite(email, 'Pell Quarry'), invite(email, 'Pell Quarry')]);
     expect([a.status, b.status].sort()).toEqual([201, 409]);
-    const all = (await request(t.app).get('/api/team/invitations').set('Authorization', admin)).body.invitations.filter((i: Invitation) => i.email === email);
+    const all = bodyOf<InvitationsBody>(await request(t.app).get('/api/team/invitations').set('Authorization', admin)).invitations.filter((i: Invitation) => i.email === email);
     expect(all).toHaveLength(1);
   });
 });

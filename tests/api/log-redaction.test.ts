@@ -5,6 +5,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { redactText } from '../../server/logging/logger.ts';
+import type { SignInResponse } from '../../shared/contracts/auth.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 // Every line the server logs during the run below, as written.
@@ -30,7 +32,7 @@ describe('the log of a run of requests holds no secret', () => {
     const adminEmail = DEMO_PEOPLE.find((p) => p.role === 'admin')!.email;
     const signIn = await request(t.app).post('/api/auth/sign-in').send({ email: adminEmail, password: DEMO_PASSWORD });
     expect(signIn.status).toBe(200);
-    const adminToken = signIn.body.token as string;
+    const adminToken = bodyOf<SignInResponse>(signIn).token;
     const cookie = signIn.headers['set-cookie'] as unknown as string[];
     secrets.push(adminToken);
 
@@ -50,7 +52,7 @@ describe('the log of a run of requests holds no secret', () => {
     secrets.push(newPassword);
     const accepted = await request(t.app).post(`/api/invitations/${invitationToken}/accept`).send({ password: newPassword });
     expect(accepted.status).toBe(201);
-    const inviteeToken = accepted.body.token as string;
+    const inviteeToken = bodyOf<SignInResponse>(accepted).token;
     secrets.push(inviteeToken);
 
     // A password change (both passwords in the body) and a wrong sign-in with a password-like value.

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import { createApp } from '../../server/app.ts';
 import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
+import { apiError } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -34,7 +35,7 @@ describe('GET /healthz and /readyz', () => {
     const res = await request(other.app).get('/readyz');
     await other.close();
     expect(res.status).toBe(503);
-    expect(res.body.error.code).toBe('migrations_pending');
+    expect(apiError(res).code).toBe('migrations_pending');
     expect(res.headers['retry-after']).toBe('5');
   });
 
@@ -47,9 +48,9 @@ describe('GET /healthz and /readyz', () => {
     await other.close();
     expect(live.status).toBe(200);
     expect(ready.status).toBe(503);
-    expect(ready.body.error.code).toBe('database_unavailable');
+    expect(apiError(ready).code).toBe('database_unavailable');
     expect(api.status).toBe(503);
-    expect(api.body.error.code).toBe('database_unavailable');
+    expect(apiError(api).code).toBe('database_unavailable');
     expect(api.headers['retry-after']).toBe('5');
   });
 });

@@ -8,8 +8,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
+import type { SequenceSummary } from '../../shared/contracts/maneuver.ts';
+import type { SimulationResult } from '../../shared/contracts/result.ts';
 import { loadBody } from '../engine/fixtures.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+// Response bodies as the web client reads them.
+type SequencesBody = { sequences: SequenceSummary[] };
 
 let t: TestApp;
 const staff = (role: string, i = 0) => DEMO_PEOPLE.filter((p) => p.role === role)[i].email;
@@ -37,15 +43,15 @@ describe('response-size cap', () => {
     const token = await auth(staff('planner'));
     const big = await request(t.app).post('/api/simulate').set('Authorization', token).send({ body: human, sequence, options: { rateHz: 240 } });
     expect(big.status).toBe(422);
-    expect(big.body.error.code).toBe('too_many_samples');
-    expect(big.body.error.field).toBe('options.rateHz');
+    expect(apiError(big).code).toBe('too_many_samples');
+    expect(apiError(big).field).toBe('options.rateHz');
     // 600 s × 240 Hz + 1 = 144,001 samples × 18 dofs; the default limit is 1,000,000 values.
-    expect(big.body.error.message).toContain('144,001 samples × 18 dofs = 2,592,018 values; the limit is 1,000,000');
-    const hz = Number(/at most (\d+) Hz/.exec(big.body.error.message)![1]);
+    expect(apiError(big).message).toContain('144,001 samples × 18 dofs = 2,592,018 values; the limit is 1,000,000');
+    const hz = Number(/at most (\d+) Hz/.exec(apiError(big).message)![1]);
     expect(hz).toBe(Math.floor((1_000_000 / 18 - 1) / 600));
     const fits = await request(t.app).post('/api/simulate').set('Authorization', token).send({ body: human, sequence, options: { rateHz: hz } });
     expect(fits.status).toBe(200);
-    expect(fits.body.samples.frames.length * fits.body.samples.dofs.length).toBeLessThanOrEqual(1_000_000);
+    expect(bodyOf<SimulationResult>(fits).samples.frames.length * bodyOf<SimulationResult>(fits).samples.dofs.length).toBeLessThanOrEqual(1_000_000);
     // ≈ 12 bytes of JSON per value, so the cap holds a response near 12 MB.
     expect(JSON.stringify(fits.body).length).toBeLessThan(14e6);
   }, 120_000);
@@ -57,7 +63,7 @@ describe('fair use of the ad-hoc pool', () => {
     const trainee = DEMO_PEOPLE.find((p) => p.role === 'trainee')!.email;
     const traineeToken = await auth(trainee);
     const list = await request(t.app).get('/api/sequences').set('Authorization', traineeToken);
-    const version = (list.body.sequences as { cleared: { id: string } | null }[]).find((s) => s.cleared)!.cleared!.id;
+    const version = (bodyOf<SequencesBody>(list).sequences as { cleared: { id: string } | null }[]).find((s) => s.cleared)!.cleared!.id;
 
     // The trainee's motion on an idle server (a rate nobody asked for yet, so nothing is cached).
     let t0 = performance.now();
@@ -76,11 +82,11 @@ describe('fair use of the ad-hoc pool', () => {
 
     const busy = await request(t.app).post('/api/simulate').set('Authorization', reviewer).send(QUICK);
     expect(busy.status).toBe(429);
-    expect(busy.body.error.code).toBe('simulations_busy');
+    expect(apiError(busy).code).toBe('simulations_busy');
     expect(Number(busy.headers['retry-after'])).toBeGreaterThan(0);
     const twice = await request(t.app).post('/api/simulate').set('Authorization', planner).send(QUICK);
     expect(twice.status).toBe(429);
-    expect(twice.body.error.code).toBe('simulation_in_progress');
+    expect(apiError(twice).code).toBe('simulation_in_progress');
     expect(Number(twice.headers['retry-after'])).toBeGreaterThan(0);
 
     // The trainee's motion (another uncached rate) does not wait behind them.
@@ -112,7 +118,7 @@ describe('per-user rate limit', () => {
       for (let i = 0; i < 3; i++) statuses.push((await request(limited.app).post('/api/simulate').set('Authorization', token).send(QUICK)).status);
       expect(statuses).toEqual([200, 200, 429]);
       const res = await request(limited.app).post('/api/simulate').set('Authorization', token).send(QUICK);
-      expect(res.body.error.code).toBe('rate_limited');
+      expect(apiError(res).code).toBe('rate_limited');
       expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
       // Another person is unaffected.
       expect((await request(limited.app).post('/api/simulate').set('Authorization', other).send(QUICK)).status).toBe(200);

@@ -9,7 +9,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { contextGuesses } from '../../server/auth/password-strength.ts';
 import { loadConfig } from '../../server/config.ts';
+import type { SignInResponse } from '../../shared/contracts/auth.ts';
 import { crewOf, PEOPLE, THREE_STEPS } from '../maneuvers/maneuver-api.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -23,7 +25,7 @@ beforeAll(async () => {
   t = await startTestApp();
   const signIn = await request(t.app).post('/api/auth/sign-in').send({ email: PEOPLE.planner, password: DEMO_PASSWORD });
   cookie = String(signIn.headers['set-cookie']).split(';')[0];
-  bearer = `Bearer ${signIn.body.token}`;
+  bearer = `Bearer ${bodyOf<SignInResponse>(signIn).token}`;
 });
 afterAll(async () => {
   await t?.close();
@@ -35,7 +37,7 @@ describe('cross-site request forgery', () => {
   it('refuses a cookie-authenticated change from another origin or with no origin at all (403 cross_origin)', async () => {
     const foreign = await request(t.app).post('/api/sequences/compile').set('Cookie', cookie).set('Origin', EVIL).send({ primitives: THREE_STEPS });
     expect(foreign.status).toBe(403);
-    expect(foreign.body.error.code).toBe('cross_origin');
+    expect(apiError(foreign).code).toBe('cross_origin');
     const viaReferer = await request(t.app).post('/api/sequences/compile').set('Cookie', cookie).set('Referer', `${EVIL}/win`).send({ primitives: THREE_STEPS });
     expect(viaReferer.status).toBe(403);
     const bare = await request(t.app).post('/api/sequences/compile').set('Cookie', cookie).send({ primitives: THREE_STEPS });
@@ -163,8 +165,8 @@ describe('password strength (zxcvbn-ts)', () => {
     for (const weak of ['aaaaaaaaaaaa', 'password1234', 'qwertyuiop12', 'quill.marrow@lumen.example.test', 'QuillMarrow2026', 'holonaut-holonaut']) {
       const res = await request(t.app).post(`/api/invitations/${token}/accept`).send({ password: weak });
       expect(res.status, weak).toBe(400);
-      expect(res.body.error).toMatchObject({ code: 'weak_password', field: 'password' });
-      expect(res.body.error.message).toMatch(/^This password is too easy to guess\./);
+      expect(apiError(res)).toMatchObject({ code: 'weak_password', field: 'password' });
+      expect(apiError(res).message).toMatch(/^This password is too easy to guess\./);
     }
     const ok = await request(t.app).post(`/api/invitations/${token}/accept`).send({ password: 'Tidal-Quorum-Lichen-58' });
     expect(ok.status).toBe(201);
@@ -176,7 +178,7 @@ describe('password strength (zxcvbn-ts)', () => {
     const [first] = trainee.name.split(' ');
     const weak = await request(t.app).post('/api/me/password').set('Authorization', token).send({ currentPassword: DEMO_PASSWORD, newPassword: `${first}${first}1234` });
     expect(weak.status).toBe(400);
-    expect(weak.body.error).toMatchObject({ code: 'weak_password', field: 'newPassword' });
+    expect(apiError(weak)).toMatchObject({ code: 'weak_password', field: 'newPassword' });
     // The demo password still signs in (demo accounts are seeded, not set through this check).
     expect((await request(t.app).post('/api/auth/sign-in').send({ email: trainee.email, password: DEMO_PASSWORD })).status).toBe(200);
   });

@@ -19,6 +19,7 @@ import { cueCardFileName } from '../../server/cue-card/cue-card-file-name.ts';
 import { loadVersionDetail } from '../../server/maneuvers/version-detail.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
+import { apiError } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 const TAMSIN = 'tamsin.reed@lumen.example.test';
@@ -176,7 +177,7 @@ describe('GET /api/sequences/versions/:versionId/cue-card.pdf', () => {
     expect((await download(PLANNER, cleared)).status).toBe(200);
     const res = await request(t.app).get(`/api/sequences/versions/${drafting}/cue-card.pdf`).set('Authorization', `Bearer ${await t.tokenForEmail(PLANNER)}`);
     expect(res.status).toBe(409);
-    expect(res.body.error.code).toBe('not_cleared');
+    expect(apiError(res).code).toBe('not_cleared');
   });
 
   it('hides another crew member’s version from a trainee (404) and refuses anyone signed out (401)', async () => {

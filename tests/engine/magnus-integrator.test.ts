@@ -57,7 +57,7 @@ describe('Magnus step (three Gauss–Legendre nodes)', () => {
   it('a constant rate gives the exact rotation exp(hω) in one step', () => {
     const w = Float64Array.of(0.3, -1.2, 2, 0.3, -1.2, 2, 0.3, -1.2, 2), th = new Float64Array(3);
     magnusTheta(w, 0, 0.7, th);
-    expect(Array.from(th).map((v) => v / 0.7)).toEqual([0.3, -1.2, 2].map((v) => expect.closeTo(v, 14)));
+    expect(Array.from(th).map((v) => v / 0.7)).toEqual([0.3, -1.2, 2].map((v): unknown => expect.closeTo(v, 14)));
   });
 
   it('converges at sixth order on a non-commuting rate (error ratio ≈ 2⁶ per halving)', () => {

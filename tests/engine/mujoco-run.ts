@@ -61,6 +61,12 @@ export function bodyToMjcf(body: Body, timestep: number): { xml: string; dofOrde
 }
 
 /** Runs the maneuver with a fixed time step (s). */
+/** MuJoCo's state arrays are typed `any` by mujoco-js; they are views of doubles (mjtNum). */
+function doubles(view: unknown): Float64Array {
+  if (!(view instanceof Float64Array)) throw new Error('mujoco-js: expected a Float64Array view of the state');
+  return view;
+}
+
 export async function runMujoco(body: Body, seq: Sequence, timestep: number): Promise<MujocoRun> {
   const mj = await mujoco();
   const model = compileBody(body);
@@ -79,36 +85,36 @@ export async function runMujoco(body: Body, seq: Sequence, timestep: number): Pr
       if (p) evalPiece(p, t, q, qd); else { q.set(plan.start); qd.fill(0); }
     };
     setRef(0);
-    { const qpos = d.qpos; idx.forEach((k, j) => { qpos[7 + j] = q[k]; }); }
-    { const qvel = d.qvel; idx.forEach((k, j) => { qvel[6 + j] = qd[k]; }); }
+    { const qpos = doubles(d.qpos); idx.forEach((k, j) => { qpos[7 + j] = q[k]; }); }
+    { const qvel = doubles(d.qvel); idx.forEach((k, j) => { qvel[6 + j] = qd[k]; }); }
     // Zero total momentum at the start: solve the root's velocity with MuJoCo's own momentum, by linearity.
     mj.mj_forward(m, d);
-    const momentum = () => { mj.mj_subtreeVel(m, d); const a = d.subtree_angmom; return [a[3], a[4], a[5]]; };
+    const momentum = () => { mj.mj_subtreeVel(m, d); const a = doubles(d.subtree_angmom); return [a[3], a[4], a[5]]; };
     const base = momentum();
     const cols: number[][] = [];
     for (let c = 0; c < 3; c++) {
-      const v = d.qvel; v[3] = c === 0 ? 1 : 0; v[4] = c === 1 ? 1 : 0; v[5] = c === 2 ? 1 : 0;
+      const v = doubles(d.qvel); v[3] = c === 0 ? 1 : 0; v[4] = c === 1 ? 1 : 0; v[5] = c === 2 ? 1 : 0;
       mj.mj_forward(m, d);
       const h = momentum();
       cols.push(h.map((x, i) => x - base[i]));
     }
     const w = solve3(cols, base.map((x) => -x));
-    { const v = d.qvel; v[3] = w[0]; v[4] = w[1]; v[5] = w[2]; }
+    { const v = doubles(d.qvel); v[3] = w[0]; v[4] = w[1]; v[5] = w[2]; }
     mj.mj_forward(m, d);
     const n = Math.round(plan.duration / timestep);
     let maxErr = 0, maxH = 0;
     for (let s = 0; s < n; s++) {
       const t = s * timestep;
       setRef(t);
-      const ctrl = d.ctrl;
+      const ctrl = doubles(d.ctrl);
       idx.forEach((k, j) => { ctrl[j] = q[k] + (SERVO_KV / SERVO_KP) * qd[k]; });
       mj.mj_step(m, d);
       setRef((s + 1) * timestep);
-      const qpos = d.qpos;
+      const qpos = doubles(d.qpos);
       idx.forEach((k, j) => { maxErr = Math.max(maxErr, Math.abs(qpos[7 + j] - q[k])); });
       if (s % 50 === 0) { const h = momentum(); maxH = Math.max(maxH, Math.hypot(h[0], h[1], h[2])); }
     }
-    const xq = d.xquat;
+    const xq = doubles(d.xquat);
     const att = [xq[4], xq[5], xq[6], xq[7]];
     return { attitude: att, maxTrackingError: maxErr, maxMomentum: maxH, steps: n };
   } finally {

@@ -8,6 +8,7 @@ import { errorHandler } from '../../server/http/error-handler.ts';
 import { createSimulateRouter } from '../../server/routes/simulate.ts';
 import { apiErrorSchema } from '../../shared/contracts/api-error.ts';
 import { simulationResultSchema } from '../../shared/contracts/result.ts';
+import { apiError } from '../support/response-body.ts';
 import { loadBody, loadSequence } from './fixtures.ts';
 
 const pool = new SimulationPool({ size: 1, timeoutMs: 15_000 });
@@ -58,8 +59,8 @@ describe('POST /api/simulate', () => {
       const slow = { steps: Array.from({ length: 12 }, () => circles) };
       const res = await request(slowApp).post('/api/simulate').send({ body, sequence: slow, options: { rtol: 1e-13 } });
       expect(res.status).toBe(503);
-      expect(res.body.error.code).toBe('simulation_timeout');
-      expect(res.body.error.message).toMatch(/exceeded its time budget of 300 ms/);
+      expect(apiError(res).code).toBe('simulation_timeout');
+      expect(apiError(res).message).toMatch(/exceeded its time budget of 300 ms/);
       const ok = await request(slowApp).post('/api/simulate').send({ body, sequence: { steps: [{ kind: 'hold', duration: 0.1 }] } });
       expect(ok.status).toBe(200);
     } finally {

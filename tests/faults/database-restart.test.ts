@@ -18,7 +18,15 @@ import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { loadConfig } from '../../server/config.ts';
 import { type LocalCluster, startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
 import { type RunningServer, serve } from '../../server/scripts/serve.ts';
+import type { CrewMemberView } from '../../shared/contracts/crew.ts';
+import type { SequenceSummary } from '../../shared/contracts/maneuver.ts';
+import type { Plan, PlanCreated } from '../../shared/contracts/plan.ts';
+import { bodyOf, errorCode } from '../support/response-body.ts';
 import { TEST_BCRYPT_COST } from '../support/test-app.ts';
+
+// Response bodies as the web client reads them.
+type MemberBody = { member?: CrewMemberView };
+type MembersBody = { members: CrewMemberView[] };
 
 // Upper bound for "serves again within seconds of the database returning" (the figure itself is printed).
 const RECOVERY_LIMIT_MS = 10_000;
@@ -39,7 +47,8 @@ async function api(method: string, route: string, body?: unknown): Promise<{ sta
     body: body ? JSON.stringify(body) : undefined,
   });
   const text = await res.text();
-  return { status: res.status, retryAfter: res.headers.get('retry-after'), body: text ? JSON.parse(text) : {} };
+  const json: unknown = text ? JSON.parse(text) : {};
+  return { status: res.status, retryAfter: res.headers.get('retry-after'), body: json as { error?: { code: string } } & Record<string, unknown> };
 }
 
 /** Polls until `route` answers `status`; returns the ms it took. */
@@ -117,8 +126,8 @@ describe('PostgreSQL restart while the server runs', () => {
         const name = `Load ${k}-${i}`;
         try {
           const r = i % 2 ? await api('GET', '/api/crew') : await api('POST', '/api/crew', { name });
-          const member = r.body.member as { id: string } | undefined;
-          results.push({ status: r.status, code: r.body.error?.code, retryAfter: r.retryAfter, createdId: member?.id, name: i % 2 ? undefined : name });
+          const member = bodyOf<MemberBody>(r).member as { id: string } | undefined;
+          results.push({ status: r.status, code: errorCode(r), retryAfter: r.retryAfter, createdId: member?.id, name: i % 2 ? undefined : name });
         } catch (err) {
           networkErrors.push(err);
         }
@@ -132,17 +141,17 @@ describe('PostgreSQL restart while the server runs', () => {
     cluster.stopServer();
     const heldRes = await held;
     expect(heldRes.status).toBe(503);
-    expect(heldRes.body.error?.code).toBe('database_unavailable');
+    expect(errorCode(heldRes)).toBe('database_unavailable');
     expect(Number(heldRes.retryAfter)).toBeGreaterThan(0);
     await new Promise((r) => setTimeout(r, 1500));
     const down = await api('GET', '/api/crew');
     expect(down.status).toBe(503);
-    expect(down.body.error?.code).toBe('database_unavailable');
+    expect(errorCode(down)).toBe('database_unavailable');
     expect(Number(down.retryAfter)).toBeGreaterThan(0);
     expect((await api('GET', '/healthz')).status).toBe(200);
     const notReady = await api('GET', '/readyz');
     expect(notReady.status).toBe(503);
-    expect(notReady.body.error?.code).toBe('database_unavailable');
+    expect(errorCode(notReady)).toBe('database_unavailable');
 
     // The database returns: how long until the same process serves again.
     cluster.startServer();
@@ -183,16 +192,16 @@ describe('PostgreSQL restart while the server runs', () => {
 
   it('the worker process runs background jobs again after the restart (pg-boss reconnects)', async () => {
     const crew = await api('GET', '/api/crew');
-    const memberId = (crew.body.members as { id: string; currentVersion: unknown }[]).find((m) => m.currentVersion)!.id;
+    const memberId = (bodyOf<MembersBody>(crew).members as { id: string; currentVersion: unknown }[]).find((m) => m.currentVersion)!.id;
     const seq = await api('POST', '/api/sequences', { crewMemberId: memberId, name: 'After the restart', target: { mode: 'ypr', yprDeg: { yaw: 90, pitch: 0, roll: 0 }, toleranceDeg: 2 } });
     expect(seq.status).toBe(201);
-    const plan = await api('POST', `/api/sequences/${seq.body.id as string}/plans`, { samples: 20, maxCandidates: 2 });
+    const plan = await api('POST', `/api/sequences/${bodyOf<SequenceSummary>(seq).id}/plans`, { samples: 20, maxCandidates: 2 });
     expect(plan.status).toBe(202);
     const t0 = Date.now();
     let state = 'queued';
     while (Date.now() - t0 < 90_000 && (state === 'queued' || state === 'running')) {
       await new Promise((r) => setTimeout(r, 500));
-      state = String((await api('GET', `/api/sequences/${seq.body.id as string}/plans/${plan.body.planId as string}`)).body.state);
+      state = String(bodyOf<Plan>(await api('GET', `/api/sequences/${bodyOf<SequenceSummary>(seq).id}/plans/${bodyOf<PlanCreated>(plan).planId}`)).state);
     }
     expect(state).toBe('done');
     // The same worker process did it: it never exited.

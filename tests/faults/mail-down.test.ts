@@ -10,8 +10,13 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, invitations } from '../../db/schema/index.ts';
 import { startSmtpFake } from '../../server/mail/smtp-fake.ts';
+import type { Invitation } from '../../shared/contracts/team.ts';
 import { appTables, changedTables, snapshot } from '../fuzz/db-snapshot.ts';
+import { apiError, bodyOf, errorCode } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+// Response bodies as the web client reads them.
+type InvitationsBody = { invitations: Invitation[] };
 
 let t: TestApp;
 let tables: string[];
@@ -40,10 +45,10 @@ describe('mail service down during an invitation', () => {
     const res = await request(t.app).post('/api/team/invitations').set('Authorization', auth).send({ email, name: 'Rowan Pike', role: 'reviewer' });
     // Never a 500 or a database error: either refused with a reason, or accepted for sending later.
     expect(res.status).not.toBe(500);
-    expect(res.body.error?.code).not.toBe('database_unavailable');
+    expect(errorCode(res)).not.toBe('database_unavailable');
     const rows = await t.ctx.db.select().from(invitations).where(eq(invitations.email, email));
     if (res.status >= 400) {
-      expect(res.body.error.message.length).toBeGreaterThan(10);
+      expect(apiError(res).message.length).toBeGreaterThan(10);
       expect(changedTables(before, await snapshot(t.pool, tables))).toEqual([]);
     } else {
       // Accepted: the invitation and its audit event are stored together, and the admin sees it listed.
@@ -51,7 +56,7 @@ describe('mail service down during an invitation', () => {
       const audit = await t.ctx.db.select().from(auditEvents).where(eq(auditEvents.objectId, rows[0].id));
       expect(audit.length).toBeGreaterThan(0);
       const listed = await request(t.app).get('/api/team/invitations').set('Authorization', auth);
-      expect(listed.body.invitations.some((i: { email: string }) => i.email === email)).toBe(true);
+      expect(bodyOf<InvitationsBody>(listed).invitations.some((i: { email: string }) => i.email === email)).toBe(true);
     }
     expect((await request(t.app).get('/api/team/users').set('Authorization', auth)).status).toBe(200);
     const again = await startSmtpFake(port);

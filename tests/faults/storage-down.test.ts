@@ -11,7 +11,9 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { type S3Fake, startS3Fake } from '../../server/storage/s3-fake.ts';
+import type { UploadResult } from '../../shared/contracts/uploads.ts';
 import { appTables, changedTables, snapshot } from '../fuzz/db-snapshot.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -44,8 +46,8 @@ describe('object storage down during an upload', () => {
     await t.s3.stop();
     const down = await request(t.app).post('/api/uploads/measurements').set('Authorization', auth).attach('file', Buffer.from(CSV), 'wren.csv');
     expect(down.status).toBe(503);
-    expect(down.body.error.code).toBe('storage_unavailable');
-    expect(down.body.error.message).toMatch(/nothing was saved/);
+    expect(apiError(down).code).toBe('storage_unavailable');
+    expect(apiError(down).message).toMatch(/nothing was saved/);
     expect(changedTables(before, await snapshot(t.pool, tables))).toEqual([]);
     // The API still serves everything that does not need storage.
     expect((await request(t.app).get('/api/crew').set('Authorization', auth)).status).toBe(200);
@@ -57,8 +59,8 @@ describe('object storage down during an upload', () => {
     try {
       const ok = await request(t.app).post('/api/uploads/measurements').set('Authorization', auth).attach('file', Buffer.from(CSV), 'wren.csv');
       expect(ok.status).toBe(201);
-      expect(ok.body.imported).toEqual([expect.objectContaining({ name: 'Wren Talbot', action: 'created', version: 1 })]);
-      const raw = await request(t.app).get(`/api/uploads/${ok.body.upload.id}/raw`).set('Authorization', auth);
+      expect(bodyOf<UploadResult>(ok).imported).toEqual([expect.objectContaining({ name: 'Wren Talbot', action: 'created', version: 1 })]);
+      const raw = await request(t.app).get(`/api/uploads/${bodyOf<UploadResult>(ok).upload.id}/raw`).set('Authorization', auth);
       expect(raw.text).toBe(CSV);
     } finally {
       // Hand the test app a running fake again for its own close().

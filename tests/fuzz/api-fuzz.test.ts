@@ -14,12 +14,21 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { sequences, sequenceVersions, users } from '../../db/schema/index.ts';
+import type { SuitView } from '../../shared/contracts/crew.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { RecordingView } from '../../shared/contracts/recording.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from '../maneuvers/maneuver-api.ts';
 import { writeBvh } from '../recordings/bvh-writer.ts';
+import { bodyOf, errorCode } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { appTables, changedTables, type DbSnapshot, rowCount, snapshot } from './db-snapshot.ts';
 import { malformedBodies, malformedQueries, type Payload } from './malformed.ts';
 import { brokenCsv, malformedUploads, type RawUpload } from './multipart.ts';
+
+// Response bodies as the web client reads them.
+type SuitsBody = { suits: SuitView[] };
+type SuitBody = { suit: SuitView };
+type RecordingBody = { recording: RecordingView };
 
 /** Fixed seed: the same requests every run (change it to explore, then keep a failing one as a test). */
 const SEED = 20_261_202;
@@ -43,20 +52,20 @@ beforeAll(async () => {
   tables = await appTables(t.pool);
   const crew = await crewOf(t, PEOPLE.trainee);
   const member = (await as(t, PEOPLE.planner).get(`/crew/${crew}`)).body as { member: { currentVersion: number } };
-  const suits = (await as(t, PEOPLE.planner).get('/suits')).body.suits as { id: string }[];
-  const suit = (await as(t, PEOPLE.planner).get(`/suits/${suits[0].id}`)).body;
+  const suits = bodyOf<SuitsBody>(await as(t, PEOPLE.planner).get('/suits')).suits as { id: string }[];
+  const suit = bodyOf<SuitBody>(await as(t, PEOPLE.planner).get(`/suits/${suits[0].id}`));
   const seqId = await createSequence(t, crew, 'Fuzz target');
-  const draft = (await saveVersion(t, seqId, 0)).body.id as string;
+  const draft = bodyOf<VersionDetail>(await saveVersion(t, seqId, 0)).id;
   // A version under review, for the reviewer's routes.
   const reviewSeq = await createSequence(t, crew, 'Fuzz review');
-  const review = (await saveVersion(t, reviewSeq, 0)).body.id as string;
+  const review = bodyOf<VersionDetail>(await saveVersion(t, reviewSeq, 0)).id;
   expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${review}/submit`, { acknowledgeFailures: true, note: 'fuzz' })).status).toBe(200);
   const [cleared] = await t.ctx.db.select({ id: sequenceVersions.id }).from(sequenceVersions).innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
     .where(and(eq(sequences.crewMemberId, crew), eq(sequenceVersions.status, 'cleared')));
   const [bystander] = await t.ctx.db.select({ id: users.id }).from(users).where(eq(users.email, PEOPLE.otherTrainee));
   const target = { mode: 'ypr', yprDeg: { yaw: 30, pitch: 0, roll: 0 }, toleranceDeg: 2 };
-  const body = JSON.parse(readFileSync('tests/fixtures/bodies/arm-on-trunk.json', 'utf8'));
-  const sequence = JSON.parse(readFileSync('tests/fixtures/sequences/arm-cone.json', 'utf8'));
+  const body = JSON.parse(readFileSync('tests/fixtures/bodies/arm-on-trunk.json', 'utf8')) as Record<string, unknown>;
+  const sequence: unknown = JSON.parse(readFileSync('tests/fixtures/sequences/arm-cone.json', 'utf8'));
   const measurementsCsv = 'name,call_sign,sex,stature_m,mass_kg,suit,thigh_m\nFuzz Person,FZ,female,1.64,58.2,cabin-clothing,\nFuzz Other,,male,1.79,80.5,,0.45\n';
   const recordingCsv = 'time_s,r_sh_flex,r_sh_abd\n0,0,0\n0.1,2,1\n0.2,4,2\n0.3,6,3\n';
   const segmentCsv = 'segment,mass_kg,com_x_m,com_y_m,com_z_m,ixx_kgm2,iyy_kgm2,izz_kgm2\nhead_neck,4.6,0,0,0.12,0.024,0.026,0.017\nl_hand,0.4,0,0,-0.07,0.0006,0.0005,0.0002\n';
@@ -64,7 +73,7 @@ beforeAll(async () => {
   const bvhText = writeBvh(Array.from({ length: 8 }, (_, k) => ({ LeftArm: [0, -(20 + 10 * Math.sin(k / 2)), 0] as [number, number, number] })), 1 / 30);
   const bvhUpload = await request(t.app).post('/api/uploads/bvh').set('Authorization', `Bearer ${await t.tokenForEmail(PEOPLE.planner)}`).attach('file', Buffer.from(bvhText), 'fuzz.bvh');
   expect(bvhUpload.status, JSON.stringify(bvhUpload.body)).toBe(201);
-  const bvhRecording = bvhUpload.body.recording as { id: string; mapping: Record<string, unknown> };
+  const bvhRecording = bodyOf<RecordingBody>(bvhUpload).recording as { id: string; mapping: Record<string, unknown> };
   const json = (method: JsonRoute['method'], path: string, who: string | null, valid: Record<string, unknown>): JsonRoute => ({ kind: 'json', method, path, as: who, valid });
   routes.push(
     json('post', '/api/auth/sign-in', null, { email: PEOPLE.planner, password: 'not-the-password' }),
@@ -74,7 +83,7 @@ beforeAll(async () => {
     json('patch', `/api/team/users/${bystander.id}`, PEOPLE.admin, { role: 'trainee', disabled: false, crewMemberId: null }),
     json('post', '/api/crew', PEOPLE.planner, { name: 'Fuzz Member', callSign: 'FZ', notes: 'fuzz' }),
     json('post', `/api/crew/${crew}/versions`, PEOPLE.planner, { baseVersion: member.member.currentVersion, note: 'fuzz', inputs: { sex: 'female', stature: 1.65, mass: 60, lengths: {}, suitId: null, gear: [] } }),
-    json('put', `/api/suits/${suits[0].id}`, PEOPLE.planner, suit.suit ?? suit),
+    json('put', `/api/suits/${suits[0].id}`, PEOPLE.planner, { ...suit.suit }),
     json('post', '/api/rehearsals', PEOPLE.trainee, { sequenceVersionId: cleared.id, playbackSpeed: 1, completedSteps: 1, selfRating: 4, notes: 'fuzz' }),
     json('post', `/api/reviews/${review}/decision`, PEOPLE.reviewer, { decision: 'send_back', comment: 'fuzz' }),
     json('post', `/api/reviews/${review}/comments`, PEOPLE.reviewer, { comment: 'fuzz comment' }),
@@ -138,7 +147,7 @@ async function send(route: Route, input: Payload | string | RawUpload): Promise<
   }
   if (auth) req = req.set('Authorization', auth);
   const res = await req;
-  return { status: res.status, code: res.body?.error?.code };
+  return { status: res.status, code: errorCode(res) };
 }
 
 /** Snapshots every 200 ms until two in a row agree (at most 5 s): the state background work leaves. */
@@ -178,7 +187,7 @@ describe('fuzzing every JSON and upload route', () => {
           // A refused upload is recorded on purpose: one `rejected` uploads row and its audit event, nothing else.
           const recordedRejection = route.kind === 'upload' && changed.every((x) => x === 'uploads' || x === 'audit_events')
             && rowCount(after, 'uploads') === rowCount(before, 'uploads') + 1 && rowCount(after, 'audit_events') === rowCount(before, 'audit_events') + 1
-            && (await t.pool.query(`SELECT status FROM uploads ORDER BY created_at DESC LIMIT 1`)).rows[0]?.status === 'rejected';
+            && (await t.pool.query<{ status: string }>(`SELECT status FROM uploads ORDER BY created_at DESC LIMIT 1`)).rows[0]?.status === 'rejected';
           if (changed.length && !recordedRejection) failures.push(`${label} → ${status} ${code ?? ''} changed ${changed.join(', ')} for ${shown}`);
         }
         // An accepted request may start background work (the invitation outbox sends its mail): wait until the tables settle.

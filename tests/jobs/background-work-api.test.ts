@@ -10,7 +10,10 @@ import { robustnessChunks } from '../../db/schema/index.ts';
 import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import type { BackgroundWork } from '../../shared/contracts/background-work.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { RobustnessRun } from '../../shared/contracts/robustness-run.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -21,7 +24,7 @@ beforeAll(async () => {
   jobs = await startJobQueue(t.ctx, { worker: false, reconcile: false });
   t.ctx.jobs = jobs;
   const sequenceId = await createSequence(t, await crewOf(t, PEOPLE.trainee), 'Admin view test');
-  versionId = (await saveVersion(t, sequenceId, 0)).body.id as string;
+  versionId = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
 }, 120_000);
 afterAll(async () => {
   await jobs?.stop();
@@ -42,7 +45,7 @@ describe('GET/POST /api/jobs', () => {
     expect(run!.label).toMatch(/^Robustness of Admin view test v1 \(30 samples, seed 1\)$/);
     expect(open.queues.find((q) => q.queue === ROBUSTNESS_CHUNK_QUEUE)!.queued).toBe(3);
 
-    expect((await as(t, PEOPLE.admin).post(`/jobs/robustness/${run!.id}/retry`)).body.error.code).toBe('not_failed');
+    expect(apiError(await as(t, PEOPLE.admin).post(`/jobs/robustness/${run!.id}/retry`)).code).toBe('not_failed');
     expect((await as(t, PEOPLE.admin).post(`/jobs/robustness/${run!.id}/cancel`)).status).toBe(200);
     const failed = await list('failed');
     const cancelled = failed.items.find((i) => i.id === run!.id);
@@ -57,7 +60,7 @@ describe('GET/POST /api/jobs', () => {
     expect(chunks.map((c) => c.state)).toEqual(['queued', 'queued', 'queued']);
     expect((await list('open')).queues.find((q) => q.queue === ROBUSTNESS_CHUNK_QUEUE)!.queued).toBe(3);
     // The version's own robustness endpoint agrees.
-    expect((await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}/robustness`)).body.state).toBe('queued');
+    expect(bodyOf<RobustnessRun>(await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}/robustness`)).state).toBe('queued');
   });
 
   it('is for admins only and names bad parameters', async () => {

@@ -13,9 +13,12 @@ import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import { robustnessRunView, versionRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
 import { loadVersion } from '../../server/motion/version-access.ts';
 import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
+import type { RobustnessRun } from '../../shared/contracts/robustness-run.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -30,7 +33,7 @@ beforeAll(async () => {
   const sequenceId = await createSequence(t, await crewOf(t, PEOPLE.trainee), 'Robustness run test');
   const saved = await saveVersion(t, sequenceId, 0);
   expect(saved.status).toBe(201);
-  versionId = saved.body.id as string;
+  versionId = bodyOf<VersionDetail>(saved).id;
 }, 120_000);
 afterAll(async () => {
   await jobs?.stop();
@@ -42,9 +45,10 @@ describe('robustness run of a saved version', () => {
     const run = await eventually(async () => {
       const r = await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}/robustness`);
       expect(r.status).toBe(200);
-      expect(r.body.progress).toBeGreaterThanOrEqual(0);
-      expect(r.body.progress).toBeLessThanOrEqual(1);
-      return ['done', 'failed', 'cancelled'].includes(r.body.state) ? r.body : undefined;
+      const body = bodyOf<RobustnessRun>(r);
+      expect(body.progress).toBeGreaterThanOrEqual(0);
+      expect(body.progress).toBeLessThanOrEqual(1);
+      return ['done', 'failed', 'cancelled'].includes(body.state) ? body : undefined;
     }, 90_000);
     expect(run).toMatchObject({ state: 'done', progress: 1, samples: 40, seed: 1, chunks: 6, chunksDone: 6, error: null });
 
@@ -82,23 +86,23 @@ describe('robustness run of a saved version', () => {
     const started = await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness`, { samples: 2000, seed: 7 });
     expect(started.status).toBe(202);
     expect(started.body).toMatchObject({ state: 'queued', samples: 2000, seed: 7 });
-    const runId = started.body.id as string;
+    const runId = bodyOf<RobustnessRun>(started).id;
     // A second start while it runs is refused.
     const twice = await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness`, {});
     expect(twice.status).toBe(409);
-    expect(twice.body.error.code).toBe('run_open');
+    expect(apiError(twice).code).toBe('run_open');
 
     await eventually(async () => {
       const r = await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}/robustness`);
-      return r.body.id === runId && r.body.progress > 0 ? true : undefined;
+      return bodyOf<RobustnessRun>(r).id === runId && bodyOf<RobustnessRun>(r).progress > 0 ? true : undefined;
     }, 60_000, 100);
     // Trainees and reviewers may not cancel.
     expect((await as(t, PEOPLE.reviewer).post(`/sequences/versions/${versionId}/robustness/cancel`)).status).toBe(403);
     const cancelled = await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness/cancel`);
     expect(cancelled.status).toBe(200);
-    expect(cancelled.body.state).toBe('cancelled');
-    expect(cancelled.body.error).toMatch(/Cancelled by/);
-    const doneAtCancel = cancelled.body.chunksDone as number;
+    expect(bodyOf<RobustnessRun>(cancelled).state).toBe('cancelled');
+    expect(bodyOf<RobustnessRun>(cancelled).error).toMatch(/Cancelled by/);
+    const doneAtCancel = bodyOf<RobustnessRun>(cancelled).chunksDone;
     expect(doneAtCancel).toBeLessThan(400);
 
     // Give running chunks time to notice (they check every second), then nothing more completes.
@@ -114,7 +118,7 @@ describe('robustness run of a saved version', () => {
     expect(row.figures).toBeNull();
 
     // Cancelling again: nothing open.
-    expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness/cancel`)).body.error.code).toBe('no_open_run');
+    expect(apiError(await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness/cancel`)).code).toBe('no_open_run');
   }, 120_000);
 
   it('refuses bad requests naming the field', async () => {

@@ -16,9 +16,12 @@ import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue
 import { PLAN_QUEUE, ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
 import { queueVersionRobustness } from '../../server/jobs/robustness/version-robustness.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { Plan } from '../../shared/contracts/plan.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { createQuarterTurnSequence } from '../planning/quarter-turn-sequence.ts';
 import { eventually } from '../support/eventually.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
@@ -76,7 +79,7 @@ beforeAll(async () => {
   const sequenceId = await createSequence(t, await crewOf(t, PEOPLE.trainee), 'Worker kill test');
   const saved = await saveVersion(t, sequenceId, 0);
   expect(saved.status).toBe(201);
-  versionId = saved.body.id as string;
+  versionId = bodyOf<VersionDetail>(saved).id;
 }, 120_000);
 afterEach(async () => {
   await Promise.all(children.splice(0).map(kill));
@@ -167,7 +170,7 @@ describe('worker processes', () => {
     expect(plan.error).toMatch(/Planning did not finish: the worker running it stopped or failed once \(heartbeat lost\)/);
     // The API shows the reason.
     const shown = await as(t, PEOPLE.planner).get(`/sequences/${sequenceId}/plans/${planId}`);
-    expect(shown.body.state).toBe('failed');
-    expect(shown.body.error).toBe(plan.error);
+    expect(bodyOf<Plan>(shown).state).toBe('failed');
+    expect(bodyOf<Plan>(shown).error).toBe(plan.error);
   }, 60_000);
 });

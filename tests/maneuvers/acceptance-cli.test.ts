@@ -15,8 +15,10 @@ import { afterAll, beforeAll, expect, it } from 'vitest';
 
 import { profileVersions } from '../../db/schema/index.ts';
 import { canonicalJson } from '../../server/maneuvers/inputs-hash.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { simulationResultSchema } from '../../shared/contracts/result.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from './maneuver-api.ts';
 
@@ -35,7 +37,8 @@ it('the API report and the simulate CLI agree on the final attitude (≤ 1e-9 ra
   const primitives = [...THREE_STEPS, { kind: 'hip_swirl' as const, halfAngleDeg: 12, centreFlexDeg: 20, turn: 'to_right' as const, cycles: 2, periodS: 2 }];
   const saved = await saveVersion(t, sequenceId, 0, PEOPLE.planner, primitives);
   expect(saved.status).toBe(201);
-  const v = (await as(t, PEOPLE.planner).get(`/sequences/versions/${saved.body.id}`)).body;
+  const v = bodyOf<VersionDetail>(await as(t, PEOPLE.planner).get(`/sequences/versions/${bodyOf<VersionDetail>(saved).id}`));
+  const report = v.report!;
   const [pv] = await t.ctx.db.select().from(profileVersions).where(eq(profileVersions.id, v.profileVersionId));
 
   const dir = mkdtempSync(join(tmpdir(), 'hn-accept-'));
@@ -47,15 +50,15 @@ it('the API report and the simulate CLI agree on the final attitude (≤ 1e-9 ra
   const result = simulationResultSchema.parse(JSON.parse(cli.stdout));
 
   const q = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
-  expect(quatAngleBetween(q(result.final.attitude), q(v.report.final.attitude))).toBeLessThan(1e-9);
-  expect(result.final.yprDeg.yaw).toBeCloseTo(v.report.final.yprDeg.yaw, 6);
-  expect(result.duration).toBeCloseTo(v.report.durationS, 9);
+  expect(quatAngleBetween(q(result.final.attitude), q(report.final.attitude))).toBeLessThan(1e-9);
+  expect(result.final.yprDeg.yaw).toBeCloseTo(report.final.yprDeg.yaw, 6);
+  expect(result.duration).toBeCloseTo(report.durationS, 9);
   expect(result.engineVersion).toBe(v.engineVersion);
   // The maneuver really turns the body (the comparison is not between two identities).
-  expect(v.report.final.rotation.angleDeg).toBeGreaterThan(1);
+  expect(report.final.rotation.angleDeg).toBeGreaterThan(1);
 
   // sha256 (node:crypto) of the canonical JSON of exactly these inputs is the stored hash.
-  const body = JSON.parse(readFileSync(join(dir, 'body.json'), 'utf8'));
-  const sequence = JSON.parse(readFileSync(join(dir, 'sequence.json'), 'utf8'));
+  const body: unknown = JSON.parse(readFileSync(join(dir, 'body.json'), 'utf8'));
+  const sequence: unknown = JSON.parse(readFileSync(join(dir, 'sequence.json'), 'utf8'));
   expect(createHash('sha256').update(canonicalJson({ body, sequence })).digest('hex')).toBe(v.inputsHash);
 }, 120_000);

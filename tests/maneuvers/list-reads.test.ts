@@ -10,8 +10,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { summarizeReport } from '../../server/maneuvers/build-report.ts';
 import { sequenceListItemSchema, type SequenceDetail, type SequenceListItem, type VerificationReport, type VersionSummary } from '../../shared/contracts/maneuver.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { as, PEOPLE } from './maneuver-api.ts';
+
+// Response bodies as the web client reads them.
+type SequencesBody = { sequences: SequenceListItem[] };
 
 let t: TestApp;
 beforeAll(async () => {
@@ -29,7 +33,7 @@ describe('report summary column', () => {
   });
 
   it('is null for a version without a report and counts a malformed report as no range violations', async () => {
-    const { rows } = await t.pool.query(`SELECT holonaut_report_summary(NULL) AS a, holonaut_report_summary('"x"'::jsonb) AS b, holonaut_report_summary('{"durationS": 2}'::jsonb) AS c`);
+    const { rows } = await t.pool.query<{ a: unknown; b: unknown; c: unknown }>(`SELECT holonaut_report_summary(NULL) AS a, holonaut_report_summary('"x"'::jsonb) AS b, holonaut_report_summary('{"durationS": 2}'::jsonb) AS c`);
     expect(rows[0].a).toBeNull();
     expect(rows[0].b).toBeNull();
     expect(rows[0].c).toMatchObject({ durationS: 2, rangeViolationCount: 0 });
@@ -50,7 +54,7 @@ function brief(v: VersionSummary | null) {
 describe('sequence list', () => {
   it('gives every sequence the same count and briefs of the newest and rehearsable version as its detail, for staff and a trainee', async () => {
     for (const who of [PEOPLE.planner, PEOPLE.trainee]) {
-      const list = (await as(t, who).get('/sequences')).body.sequences as SequenceListItem[];
+      const list = bodyOf<SequencesBody>(await as(t, who).get('/sequences')).sequences;
       expect(list.length).toBeGreaterThan(0);
       for (const s of list) {
         // Lean: nothing beyond the list contract (no full summaries, reports or samples).

@@ -3,7 +3,9 @@ import { eq } from 'drizzle-orm';
 import request from 'supertest';
 
 import { users } from '../../db/schema/index.ts';
+import type { SequenceSummary } from '../../shared/contracts/maneuver.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { bodyOf } from '../support/response-body.ts';
 import type { TestApp } from '../support/test-app.ts';
 
 /** Demo people by their part in the tests. */
@@ -45,7 +47,7 @@ export async function crewOf(t: TestApp, email: string): Promise<string> {
 export async function createSequence(t: TestApp, crewMemberId: string, name = 'Pitch trim', by: string = PEOPLE.planner): Promise<string> {
   const res = await as(t, by).post('/sequences', { crewMemberId, name, target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: 5, roll: 0 }, toleranceDeg: 3 } });
   if (res.status !== 201) throw new Error(`create sequence: ${res.status} ${JSON.stringify(res.body)}`);
-  return res.body.id as string;
+  return bodyOf<SequenceSummary>(res).id;
 }
 
 /** Saves a version; returns the response. */

@@ -11,9 +11,12 @@ import { crewMembers, profileVersions, reverifications, sequences, sequenceVersi
 import { simulate } from '../../server/engine/simulate.ts';
 import { REVERIFY_RETRY_LIMIT, type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { storedCompiled } from '../../server/maneuvers/stored-compiled.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { eventually } from '../support/eventually.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
 
@@ -37,7 +40,7 @@ const quat = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a
 
 async function versionIn(status: 'cleared' | 'under_review' | 'drafting'): Promise<string> {
   const sequenceId = await createSequence(t, crew, `Recheck ${status}`);
-  const v = (await saveVersion(t, sequenceId, 0)).body.id as string;
+  const v = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
   if (status === 'drafting') return v;
   await as(t, PEOPLE.planner).post(`/sequences/versions/${v}/submit`, { acknowledgeFailures: true, note: 're-check test' });
   if (status === 'cleared') await as(t, PEOPLE.reviewer).post(`/reviews/${v}/decision`, { decision: 'clear', comment: '' });
@@ -84,16 +87,16 @@ describe('re-verification after a profile change', () => {
 
     // The API shows the difference; a recheck version cannot be submitted again.
     const detail = await as(t, PEOPLE.planner).get(`/sequences/versions/${cleared}`);
-    expect(detail.body.status).toBe('recheck');
-    expect(detail.body.profileIsCurrent).toBe(false);
-    expect(detail.body.reverification).toMatchObject({ state: 'done' });
-    expect(detail.body.reverification.attitudeShiftDeg).toBeCloseTo(expectedShift, 6);
+    expect(bodyOf<VersionDetail>(detail).status).toBe('recheck');
+    expect(bodyOf<VersionDetail>(detail).profileIsCurrent).toBe(false);
+    expect(bodyOf<VersionDetail>(detail).reverification).toMatchObject({ state: 'done' });
+    expect(bodyOf<VersionDetail>(detail).reverification!.attitudeShiftDeg).toBeCloseTo(expectedShift, 6);
     expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${reviewing}/submit`)).status).toBe(409);
 
     // The trainee still sees the once-cleared version, flagged.
     const trainee = await as(t, PEOPLE.trainee).get(`/sequences/versions/${cleared}`);
     expect(trainee.status).toBe(200);
-    expect(trainee.body.status).toBe('recheck');
+    expect(bodyOf<VersionDetail>(trainee).status).toBe('recheck');
   }, 90_000);
 
   it('retries a failing recomputation and marks it failed after the last attempt', async () => {

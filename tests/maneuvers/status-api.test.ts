@@ -8,8 +8,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, reviews, sequenceVersions } from '../../db/schema/index.ts';
 import { ENGINE_VERSION } from '../../server/engine/version.ts';
+import type { CompareResponse, ReviewQueueItem, SequenceDetail, SequenceSummary, VersionDetail } from '../../shared/contracts/maneuver.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from './maneuver-api.ts';
+
+// Response bodies as the web client reads them.
+type ItemsBody = { items: ReviewQueueItem[] };
+type SequencesBody = { sequences: SequenceSummary[] };
 
 let t: TestApp;
 let crew: string;
@@ -26,7 +32,7 @@ async function drafted(by: string = PEOPLE.planner) {
   const sequenceId = await createSequence(t, crew, `Trim ${Math.random().toString(36).slice(2, 7)}`, by);
   const res = await saveVersion(t, sequenceId, 0, by);
   expect(res.status).toBe(201);
-  return { sequenceId, versionId: res.body.id as string };
+  return { sequenceId, versionId: bodyOf<VersionDetail>(res).id };
 }
 
 // The status machine, not the checks, is under test here: every submission acknowledges whatever the
@@ -49,20 +55,20 @@ describe('saving versions', () => {
     const { versionId } = await drafted();
     const res = await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}`);
     expect(res.status).toBe(200);
-    expect(res.body.status).toBe('drafting');
-    expect(res.body.profileIsCurrent).toBe(true);
-    expect(res.body.engineVersion).toBe(ENGINE_VERSION);
-    expect(res.body.inputsHash).toMatch(/^[0-9a-f]{64}$/);
-    expect(res.body.report.inputsHash).toBe(res.body.inputsHash);
-    expect(res.body.cues).toHaveLength(THREE_STEPS.length);
-    expect(res.body.allowed).toEqual({ submit: true, decide: false, comment: false });
+    expect(bodyOf<VersionDetail>(res).status).toBe('drafting');
+    expect(bodyOf<VersionDetail>(res).profileIsCurrent).toBe(true);
+    expect(bodyOf<VersionDetail>(res).engineVersion).toBe(ENGINE_VERSION);
+    expect(bodyOf<VersionDetail>(res).inputsHash).toMatch(/^[0-9a-f]{64}$/);
+    expect(bodyOf<VersionDetail>(res).report!.inputsHash).toBe(bodyOf<VersionDetail>(res).inputsHash);
+    expect(bodyOf<VersionDetail>(res).cues).toHaveLength(THREE_STEPS.length);
+    expect(bodyOf<VersionDetail>(res).allowed).toEqual({ submit: true, decide: false, comment: false });
   });
 
   it('a save from an outdated base version gets 409 stale_version and writes nothing', async () => {
     const { sequenceId } = await drafted();
     const res = await saveVersion(t, sequenceId, 0);
     expect(res.status).toBe(409);
-    expect(res.body.error.code).toBe('stale_version');
+    expect(apiError(res).code).toBe('stale_version');
     const rows = await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.sequenceId, sequenceId));
     expect(rows).toHaveLength(1);
   });
@@ -73,7 +79,7 @@ describe('saving versions', () => {
       baseVersion: 0, primitives: [{ kind: 'arm_orbit', arms: 'both', centre: 'forward', halfAngleDeg: 90, travel: 'outward', cycles: 2, periodS: 1 }],
     });
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('primitives.0.halfAngleDeg');
+    expect(apiError(res).field).toBe('primitives.0.halfAngleDeg');
   });
 
   it('a custom posture naming a dof the body lacks is a 400 naming that dof', async () => {
@@ -82,14 +88,14 @@ describe('saving versions', () => {
       baseVersion: 0, primitives: [{ kind: 'pose_shift', posture: 'custom', custom: { l_wrist_flex: 20 }, durationS: 1 }],
     });
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('primitives[0].custom.l_wrist_flex');
+    expect(apiError(res).field).toBe('primitives[0].custom.l_wrist_flex');
   });
 });
 
 describe('transitions from drafting', () => {
   it('cannot be cleared or sent back before submission (409 invalid_transition)', async () => {
     const { versionId } = await drafted();
-    expect((await decide(versionId, 'clear')).body.error.code).toBe('invalid_transition');
+    expect(apiError(await decide(versionId, 'clear')).code).toBe('invalid_transition');
     expect((await decide(versionId, 'send_back', 'no')).status).toBe(409);
     expect(await statusOf(versionId)).toBe('drafting');
   });
@@ -107,13 +113,13 @@ describe('transitions from drafting', () => {
     const mailed = t.mail.waitFor(PEOPLE.reviewer, (m) => m.text.includes(versionId));
     const res = await submit(versionId);
     expect(res.status).toBe(200);
-    expect(res.body.status).toBe('under_review');
-    expect(res.body.submittedAt).not.toBeNull();
+    expect(bodyOf<VersionDetail>(res).status).toBe('under_review');
+    expect(bodyOf<VersionDetail>(res).submittedAt).not.toBeNull();
     const mail = await mailed;
     expect(mail.text).toContain(`/reviews/${versionId}`);
-    expect((await submit(versionId)).body.error.code).toBe('invalid_transition');
+    expect(apiError(await submit(versionId)).code).toBe('invalid_transition');
     const queue = await as(t, PEOPLE.reviewer).get('/reviews/queue');
-    expect(queue.body.items.map((i: { version: { id: string } }) => i.version.id)).toContain(versionId);
+    expect(bodyOf<ItemsBody>(queue).items.map((i: { version: { id: string } }) => i.version.id)).toContain(versionId);
   });
 
   it('the review queue is closed to planners and trainees (403)', async () => {
@@ -128,12 +134,12 @@ describe('decisions on a version under review', () => {
     await submit(versionId);
     const empty = await decide(versionId, 'send_back', '');
     expect(empty.status).toBe(400);
-    expect(empty.body.error.field).toBe('comment');
+    expect(apiError(empty).field).toBe('comment');
     const mailed = t.mail.waitFor(PEOPLE.planner, (m) => m.text.includes(versionId));
     const res = await decide(versionId, 'send_back', 'Shoulder rates too high in step 2.');
     expect(res.status).toBe(200);
-    expect(res.body.status).toBe('sent_back');
-    expect(res.body.reviews.at(-1)).toMatchObject({ decision: 'send_back', comment: 'Shoulder rates too high in step 2.' });
+    expect(bodyOf<VersionDetail>(res).status).toBe('sent_back');
+    expect(bodyOf<VersionDetail>(res).reviews.at(-1)).toMatchObject({ decision: 'send_back', comment: 'Shoulder rates too high in step 2.' });
     const mail = await mailed;
     expect(mail.text).toContain('Shoulder rates too high');
     expect(mail.subject).toContain('sent back');
@@ -146,11 +152,11 @@ describe('decisions on a version under review', () => {
     await submit(versionId);
     const res = await decide(versionId, 'clear', 'Looks good.');
     expect(res.status).toBe(200);
-    expect(res.body.status).toBe('cleared');
-    expect(res.body.clearedByName).toBe('Dr. Juno Brack');
-    expect(res.body.clearedAt).not.toBeNull();
+    expect(bodyOf<VersionDetail>(res).status).toBe('cleared');
+    expect(bodyOf<VersionDetail>(res).clearedByName).toBe('Dr. Juno Brack');
+    expect(bodyOf<VersionDetail>(res).clearedAt).not.toBeNull();
     const [review] = await t.ctx.db.select().from(reviews).where(eq(reviews.sequenceVersionId, versionId));
-    expect(review).toMatchObject({ decision: 'clear', profileVersionId: res.body.profileVersionId, engineVersion: ENGINE_VERSION });
+    expect(review).toMatchObject({ decision: 'clear', profileVersionId: bodyOf<VersionDetail>(res).profileVersionId, engineVersion: ENGINE_VERSION });
   });
 
   it('a reviewing admin cannot clear a version they authored (403); another reviewer can', async () => {
@@ -158,7 +164,7 @@ describe('decisions on a version under review', () => {
     expect((await submit(versionId, PEOPLE.admin)).status).toBe(200);
     const own = await decide(versionId, 'clear', '', PEOPLE.admin);
     expect(own.status).toBe(403);
-    expect(own.body.error.message).toMatch(/authored/);
+    expect(apiError(own).message).toMatch(/authored/);
     expect(await statusOf(versionId)).toBe('under_review');
     expect((await decide(versionId, 'clear', '', PEOPLE.reviewer)).status).toBe(200);
   });
@@ -168,7 +174,7 @@ describe('decisions on a version under review', () => {
     expect((await submit(versionId, PEOPLE.admin)).status).toBe(200);
     const own = await decide(versionId, 'clear', '', PEOPLE.admin);
     expect(own.status).toBe(403);
-    expect(own.body.error.message).toMatch(/submitted/);
+    expect(apiError(own).message).toMatch(/submitted/);
     expect(await statusOf(versionId)).toBe('under_review');
     expect((await decide(versionId, 'clear', '', PEOPLE.reviewer)).status).toBe(200);
   });
@@ -184,10 +190,10 @@ describe('decisions on a version under review', () => {
 describe('superseding', () => {
   it('a new save replaces drafting, under-review and sent-back versions', async () => {
     const { sequenceId, versionId: v1 } = await drafted();
-    const v2 = (await saveVersion(t, sequenceId, 1)).body.id;
+    const v2 = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 1)).id;
     expect(await statusOf(v1)).toBe('replaced');
     await submit(v2);
-    const v3 = (await saveVersion(t, sequenceId, 2)).body.id;
+    const v3 = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 2)).id;
     expect(await statusOf(v2)).toBe('replaced');
     await submit(v3);
     await decide(v3, 'send_back', 'redo');
@@ -202,7 +208,7 @@ describe('superseding', () => {
     const { sequenceId, versionId: v1 } = await drafted();
     await submit(v1);
     await decide(v1, 'clear');
-    const v2 = (await saveVersion(t, sequenceId, 1)).body.id;
+    const v2 = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 1)).id;
     expect(await statusOf(v1)).toBe('cleared');
     await submit(v2);
     await decide(v2, 'clear');
@@ -216,8 +222,8 @@ describe('a cleared version is immutable', () => {
     const { versionId } = await drafted();
     await submit(versionId);
     await decide(versionId, 'clear');
-    expect((await submit(versionId)).body.error.code).toBe('invalid_transition');
-    expect((await decide(versionId, 'send_back', 'late change')).body.error.code).toBe('invalid_transition');
+    expect(apiError(await submit(versionId)).code).toBe('invalid_transition');
+    expect(apiError(await decide(versionId, 'send_back', 'late change')).code).toBe('invalid_transition');
     expect(await statusOf(versionId)).toBe('cleared');
   });
 
@@ -245,15 +251,15 @@ describe('trainee visibility', () => {
     const { sequenceId, versionId: cleared } = await drafted();
     await submit(cleared);
     await decide(cleared, 'clear');
-    const draft = (await saveVersion(t, sequenceId, 1)).body.id;
+    const draft = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 1)).id;
     const me = as(t, PEOPLE.trainee);
     expect((await me.get(`/sequences/versions/${cleared}`)).status).toBe(200);
     expect((await me.get(`/sequences/versions/${draft}`)).status).toBe(404);
     const detail = await me.get(`/sequences/${sequenceId}`);
-    expect(detail.body.versions.map((v: { id: string }) => v.id)).toEqual([cleared]);
+    expect(bodyOf<SequenceDetail>(detail).versions.map((v: { id: string }) => v.id)).toEqual([cleared]);
     expect((await as(t, PEOPLE.otherTrainee).get(`/sequences/versions/${cleared}`)).status).toBe(404);
     const list = await as(t, PEOPLE.otherTrainee).get('/sequences');
-    expect(list.body.sequences.map((s: { id: string }) => s.id)).not.toContain(sequenceId);
+    expect(bodyOf<SequencesBody>(list).sequences.map((s: { id: string }) => s.id)).not.toContain(sequenceId);
   });
 });
 
@@ -261,13 +267,13 @@ describe('comparison and audit', () => {
   it('compares two versions step by step and by result', async () => {
     const { sequenceId, versionId: v1 } = await drafted();
     const changed = [...THREE_STEPS.slice(0, 2), { kind: 'pause' as const, durationS: 2 }];
-    const v2 = (await saveVersion(t, sequenceId, 1, PEOPLE.planner, changed)).body.id;
+    const v2 = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 1, PEOPLE.planner, changed)).id;
     const res = await as(t, PEOPLE.planner).get(`/sequences/versions/${v1}/compare/${v2}`);
     expect(res.status).toBe(200);
-    expect(res.body.primitives.map((p: { change: string }) => p.change)).toEqual(['same', 'same', 'changed']);
-    expect(res.body.result.durationS.delta).toBeCloseTo(1.5, 9);
+    expect(bodyOf<CompareResponse>(res).primitives.map((p: { change: string }) => p.change)).toEqual(['same', 'same', 'changed']);
+    expect(bodyOf<CompareResponse>(res).result.durationS.delta).toBeCloseTo(1.5, 9);
     // Only a pause changed after the motion, so the final attitude is the same.
-    expect(res.body.result.finalAttitudeShiftDeg).toBeLessThan(1e-9);
+    expect(bodyOf<CompareResponse>(res).result.finalAttitudeShiftDeg).toBeLessThan(1e-9);
   });
 
   it('every action writes an audit event', async () => {

@@ -6,7 +6,7 @@ import { fileURLToPath } from 'node:url';
 
 import { describe, expect, it } from 'vitest';
 
-import { validateBody } from '../../shared/contracts/body.ts';
+import { type Body, validateBody } from '../../shared/contracts/body.ts';
 import { deLevaRow } from './reference-tables.ts';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
@@ -17,16 +17,22 @@ function body(...args: string[]) {
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
+/** The CLI's output, checked against the body contract. */
+function validBody(stdout: string): Body {
+  const checked = validateBody(JSON.parse(stdout));
+  if (!checked.ok) throw new Error(`not a valid body: ${JSON.stringify(checked.issues)}`);
+  return checked.value;
+}
+
 describe('npm run body', () => {
   it('prints only contract JSON that validates, with de Leva (1996) Table 4 mass fractions', () => {
     const r = body('--sex', 'female', '--stature', '1.68', '--mass', '61');
     expect(r.code).toBe(0);
-    const json = JSON.parse(r.stdout);
-    expect(validateBody(json).ok).toBe(true);
-    const thigh = json.segments.find((s: { name: string }) => s.name === 'l_thigh');
+    const json = validBody(r.stdout);
+    const thigh = json.segments.find((s) => s.name === 'l_thigh')!;
     // the published female fractions sum to 0.9999: each is divided by that sum (residue in proportion)
     expect(thigh.mass / 61).toBeCloseTo(deLevaRow('female', 'thigh').mass / 0.9999, 12);
-    const total = json.segments.reduce((sum: number, s: { mass: number }) => sum + s.mass, 0);
+    const total = json.segments.reduce((sum, s) => sum + s.mass, 0);
     expect(Math.abs(total / 61 - 1)).toBeLessThanOrEqual(1e-9);
   });
 
@@ -36,9 +42,9 @@ describe('npm run body', () => {
     writeFileSync(file, JSON.stringify({ shank: 0.45 }));
     const r = body('--sex', 'male', '--stature', '1.8', '--mass', '80', '--suit', 'pressurised-suit', '--lengths', file);
     expect(r.code).toBe(0);
-    const json = JSON.parse(r.stdout);
+    const json = validBody(r.stdout);
     expect(json.name).toMatch(/Pressurised suit/);
-    expect(json.segments.find((s: { name: string }) => s.name === 'r_foot').joint.origin[2]).toBeCloseTo(-0.45, 12);
+    expect(json.segments.find((s) => s.name === 'r_foot')?.joint?.origin[2]).toBeCloseTo(-0.45, 12);
   });
 
   it('--help prints usage and exits 0', () => {

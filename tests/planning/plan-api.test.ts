@@ -8,8 +8,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents } from '../../db/schema/index.ts';
 import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
+import type { Plan } from '../../shared/contracts/plan.ts';
 import { as, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { createQuarterTurnSequence } from './quarter-turn-sequence.ts';
 
@@ -36,7 +38,8 @@ describe('POST /api/sequences/:id/plans', () => {
     const plan = await eventually(async () => {
       const r = await as(t, PEOPLE.planner).get(`/sequences/${sequenceId}/plans/${planId}`);
       expect(r.status).toBe(200);
-      return r.body.state === 'done' || r.body.state === 'failed' ? r.body : undefined;
+      const body = bodyOf<Plan>(r);
+      return body.state === 'done' || body.state === 'failed' ? body : undefined;
     });
     expect(plan.error).toBeNull();
     expect(plan.state).toBe('done');
@@ -66,13 +69,13 @@ describe('POST /api/sequences/:id/plans', () => {
   it('refuses bad settings naming the field, other roles, and unknown sequences', async () => {
     const bad = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { samples: 5 });
     expect(bad.status).toBe(400);
-    expect(bad.body.error.field).toBe('samples');
+    expect(apiError(bad).field).toBe('samples');
     const perception = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { perceptionErrorDeg: 1 });
     expect(perception.status).toBe(400);
-    expect(perception.body.error.field).toBe('perceptionErrorDeg');
+    expect(apiError(perception).field).toBe('perceptionErrorDeg');
     const spread = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { spreads: { massPct: -1 } });
     expect(spread.status).toBe(400);
-    expect(spread.body.error.field).toBe('spreads.massPct');
+    expect(apiError(spread).field).toBe('spreads.massPct');
     expect((await as(t, PEOPLE.reviewer).post(`/sequences/${sequenceId}/plans`, {})).status).toBe(403);
     expect((await as(t, PEOPLE.trainee).post(`/sequences/${sequenceId}/plans`, {})).status).toBe(403);
     const missing = await as(t, PEOPLE.planner).post('/sequences/00000000-0000-4000-8000-000000000000/plans', {});

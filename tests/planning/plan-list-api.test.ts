@@ -6,9 +6,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
-import type { Plan, PlanList } from '../../shared/contracts/plan.ts';
+import type { Plan, PlanCreated, PlanList } from '../../shared/contracts/plan.ts';
 import { as, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { createQuarterTurnSequence } from './quarter-turn-sequence.ts';
 
@@ -38,7 +39,7 @@ describe('GET /api/sequences/:id/plans', () => {
 
     const first = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { samples: 10, maxCandidates: 2 });
     expect(first.status).toBe(202);
-    const firstId = first.body.planId as string;
+    const firstId = bodyOf<PlanCreated>(first).planId;
     const queued = (await list()).plans;
     expect(queued).toHaveLength(1);
     expect(queued[0]).toMatchObject({ id: firstId, state: 'queued', progress: 0, candidateCount: 0, bestErrorDeg: null });
@@ -57,7 +58,7 @@ describe('GET /api/sequences/:id/plans', () => {
     // A second request while no queue is attached to the API stays queued: it is the newest.
     const second = await as(t, PEOPLE.admin).post(`/sequences/${sequenceId}/plans`, { samples: 10 });
     expect(second.status).toBe(202);
-    const secondId = second.body.planId as string;
+    const secondId = bodyOf<PlanCreated>(second).planId;
 
     const both = (await list()).plans;
     expect(both.map((p) => p.id)).toEqual([secondId, firstId]);
@@ -78,11 +79,11 @@ describe('GET /api/sequences/:id/plans', () => {
     for (const limit of ['0', '101', '1.5', 'many']) {
       const bad = await as(t, PEOPLE.planner).get(`/sequences/${sequenceId}/plans?limit=${limit}`);
       expect(bad.status, `limit=${limit}`).toBe(400);
-      expect(bad.body.error.field).toBe('limit');
+      expect(apiError(bad).field).toBe('limit');
     }
     const badId = await as(t, PEOPLE.planner).get('/sequences/not-an-id/plans');
     expect(badId.status).toBe(400);
-    expect(badId.body.error.field).toBe('sequenceId');
+    expect(apiError(badId).field).toBe('sequenceId');
     expect((await as(t, PEOPLE.planner).get('/sequences/00000000-0000-4000-8000-000000000000/plans')).status).toBe(404);
   });
 });

@@ -11,10 +11,19 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { profileVersions, rehearsalCaptures } from '../../db/schema/index.ts';
 import { anglesAt, compileMotion } from '../../server/engine/joint-motion.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
+import type { CaptureTrendPoint, RehearsalCapture } from '../../shared/contracts/recording.ts';
+import type { Rehearsal } from '../../shared/contracts/rehearsal.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
+import type { UploadResult } from '../../shared/contracts/uploads.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from '../rehearse/rehearsal-fixture.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
+
+// Response bodies as the web client reads them.
+type RehearsalBody = { rehearsal: Rehearsal };
+type CaptureBody = { capture: RehearsalCapture };
+type PointsBody = { points: CaptureTrendPoint[] };
 
 const TAMSIN = 'tamsin.reed@lumen.example.test';
 let t: TestApp;
@@ -52,7 +61,7 @@ const logRehearsal = async () => {
   const res = await request(t.app).post('/api/rehearsals').set('Authorization', await as(TAMSIN))
     .send({ sequenceVersionId: version, playbackSpeed: 1, completedSteps: 1, selfRating: 3, notes: 'with sensors' });
   expect(res.status).toBe(201);
-  return res.body.rehearsal.id as string;
+  return bodyOf<RehearsalBody>(res).rehearsal.id;
 };
 
 describe('rehearsal capture', () => {
@@ -60,11 +69,11 @@ describe('rehearsal capture', () => {
     const id = await logRehearsal();
     const res = await request(t.app).post(`/api/rehearsals/${id}/recording`).set('Authorization', await as(TAMSIN)).attach('file', Buffer.from(csv), 'run-1.csv');
     expect(res.status, JSON.stringify(res.body).slice(0, 500)).toBe(201);
-    const c = res.body.capture;
+    const c = bodyOf<CaptureBody>(res).capture;
     expect(c.outcomes).toHaveLength(1);
     expect(c.outcomes[0].role).toBe('plan');
     expect(c.outcomes[0].errorToPlanDeg).toBeGreaterThan(0.01);
-    expect(c.targetYprDeg.pitch).toBeCloseTo(-20, 6);
+    expect(c.targetYprDeg!.pitch).toBeCloseTo(-20, 6);
     expect(c.steps).toHaveLength(1);
     expect(c.steps[0]).toMatchObject({ step: 1 });
     expect(c.steps[0].phaseLagS).toBeCloseTo(0.1, 2);
@@ -74,14 +83,14 @@ describe('rehearsal capture', () => {
     expect(Object.keys(c.overlay.planned)).toEqual(['r_sh_flex', 'r_sh_abd', 'l_sh_flex', 'l_sh_abd']);
     expect(c.signedOff).toBeNull();
     const again = await request(t.app).get(`/api/rehearsals/${id}/recording`).set('Authorization', await as(TAMSIN));
-    expect(again.body.capture.steps[0].phaseLagS).toBeCloseTo(c.steps[0].phaseLagS, 12);
+    expect(bodyOf<CaptureBody>(again).capture.steps[0].phaseLagS).toBeCloseTo(c.steps[0].phaseLagS, 12);
 
     // Sign-off: not by the trainee; by a reviewer.
     const no = await request(t.app).post(`/api/rehearsals/${id}/recording/sign-off`).set('Authorization', await as(TAMSIN)).send({ note: 'mine' });
     expect(no.status).toBe(403);
     const ok = await request(t.app).post(`/api/rehearsals/${id}/recording/sign-off`).set('Authorization', `Bearer ${await t.tokenFor('reviewer')}`).send({ note: 'Lag acceptable' });
     expect(ok.status).toBe(200);
-    expect(ok.body.capture.signedOff).toMatchObject({ note: 'Lag acceptable' });
+    expect(bodyOf<CaptureBody>(ok).capture.signedOff).toMatchObject({ note: 'Lag acceptable' });
   });
 
   it('after a profile change the recording is simulated on both the plan\'s and the current profile version', async () => {
@@ -90,11 +99,11 @@ describe('rehearsal capture', () => {
     const id = await logRehearsal();
     const res = await request(t.app).post(`/api/rehearsals/${id}/recording`).set('Authorization', await as(TAMSIN)).attach('file', Buffer.from(csv), 'run-2.csv');
     expect(res.status).toBe(201);
-    expect(res.body.capture.outcomes.map((o: { role: string }) => o.role)).toEqual(['plan', 'current']);
+    expect(bodyOf<CaptureBody>(res).capture.outcomes.map((o: { role: string }) => o.role)).toEqual(['plan', 'current']);
     const trend = await request(t.app).get('/api/rehearsals/captures/trend').set('Authorization', await as(TAMSIN));
-    expect(trend.body.points).toHaveLength(2);
-    expect(trend.body.points.map((p: { signedOff: boolean }) => p.signedOff).sort()).toEqual([false, true]);
-    expect(trend.body.points[0].meanPhaseLagS).toBeCloseTo(0.1, 2);
+    expect(bodyOf<PointsBody>(trend).points).toHaveLength(2);
+    expect(bodyOf<PointsBody>(trend).points.map((p: { signedOff: boolean }) => p.signedOff).sort()).toEqual([false, true]);
+    expect(bodyOf<PointsBody>(trend).points[0].meanPhaseLagS).toBeCloseTo(0.1, 2);
   });
 
   it('a recording with a bad row is rejected by row and column and stores no capture', async () => {
@@ -102,7 +111,7 @@ describe('rehearsal capture', () => {
     const bad = csv.replace(/\n0\.05,[^\n]*/, '\n0.05,1,2,x,4');
     const res = await request(t.app).post(`/api/rehearsals/${id}/recording`).set('Authorization', await as(TAMSIN)).attach('file', Buffer.from(bad), 'bad.csv');
     expect(res.status).toBe(422);
-    expect(res.body.upload.errors[0]).toMatchObject({ row: 7, column: 'l_sh_flex' });
+    expect(bodyOf<UploadResult>(res).upload.errors[0]).toMatchObject({ row: 7, column: 'l_sh_flex' });
     expect(await t.ctx.db.select().from(rehearsalCaptures).where(eq(rehearsalCaptures.rehearsalId, id))).toEqual([]);
   });
 

@@ -7,13 +7,20 @@ import { sequenceTargetSchema, type VerificationReport } from '../../shared/cont
 import type { MotionResponse } from '../../shared/contracts/motion.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
+import type { RehearsableVersion, Rehearsal } from '../../shared/contracts/rehearsal.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import { defaultPrimitive } from '../../shared/primitives/primitive-schemas.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from './rehearsal-fixture.ts';
+
+// Response bodies as the web client reads them.
+type VersionsBody = { versions: RehearsableVersion[] };
+type RehearsalBody = { rehearsal: Rehearsal };
+type RehearsalsBody = { rehearsals: Rehearsal[] };
 
 const TAMSIN = 'tamsin.reed@lumen.example.test';
 const BRAM = 'bram.kettle@lumen.example.test';
@@ -117,7 +124,7 @@ describe('GET /api/motion/:versionId', () => {
     expect((await get(TAMSIN, `/api/motion/${drafting}`)).status).toBe(403);
     const res = await get(TAMSIN, `/api/motion/${recheck}`);
     expect(res.status).toBe(403);
-    expect(res.body.error.message).toMatch(/re-check/);
+    expect(apiError(res).message).toMatch(/re-check/);
   });
 
   it('words each step with its primitive’s cue when the version was composed from primitives', async () => {
@@ -147,7 +154,7 @@ describe('GET /api/motion/:versionId', () => {
   it('names the bad query field: rate above 120 Hz (400)', async () => {
     const res = await get(TAMSIN, `/api/motion/${cleared}?rate=500`);
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('rate');
+    expect(apiError(res).field).toBe('rate');
   });
 
   it('answers 401 without a session', async () => {
@@ -190,14 +197,14 @@ describe('rehearsals', () => {
   it('lists the trainee’s cleared versions with duration and step count, and a formerly cleared one in re-check', async () => {
     const res = await get(TAMSIN, '/api/rehearsals/available');
     expect(res.status).toBe(200);
-    const names = res.body.versions.map((v: { sequenceName: string }) => v.sequenceName);
+    const names = bodyOf<VersionsBody>(res).versions.map((v: { sequenceName: string }) => v.sequenceName);
     // Her own crew member's cleared versions, plus the formerly cleared one now in re-check; no draft, nothing of Bram's.
     // (The demo seed adds Tamsin's own maneuvers too.)
     expect(names).toEqual(expect.arrayContaining(['Arm cone, both sides', 'Composed', 'Old sweep']));
     expect(names).not.toContain('Draft sweep');
     expect(names).not.toContain('Kettle sweep');
-    expect(res.body.versions.find((v: { sequenceName: string }) => v.sequenceName === 'Old sweep').status).toBe('recheck');
-    expect(res.body.versions.find((v: { sequenceName: string }) => v.sequenceName === 'Arm cone, both sides')).toMatchObject({ duration: 7, stepCount: 3, lastRehearsal: null, rehearsalCount: 0, targetLabel: 'yaw 0°, pitch -20°, roll 0°' });
+    expect(bodyOf<VersionsBody>(res).versions.find((v: { sequenceName: string }) => v.sequenceName === 'Old sweep')?.status).toBe('recheck');
+    expect(bodyOf<VersionsBody>(res).versions.find((v: { sequenceName: string }) => v.sequenceName === 'Arm cone, both sides')).toMatchObject({ duration: 7, stepCount: 3, lastRehearsal: null, rehearsalCount: 0, targetLabel: 'yaw 0°, pitch -20°, roll 0°' });
   });
 
   it('logs a rehearsal, shows it in the history and as the last rehearsal, and audits it', async () => {
@@ -205,11 +212,11 @@ describe('rehearsals', () => {
     const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${token}`)
       .send({ sequenceVersionId: cleared, playbackSpeed: 0.5, completedSteps: 3, selfRating: 4, notes: 'Smooth cones' });
     expect(res.status).toBe(201);
-    expect(res.body.rehearsal).toMatchObject({ completedSteps: 3, totalSteps: 3, playbackSpeed: 0.5, selfRating: 4, notes: 'Smooth cones', traineeName: 'Tamsin Reed' });
+    expect(bodyOf<RehearsalBody>(res).rehearsal).toMatchObject({ completedSteps: 3, totalSteps: 3, playbackSpeed: 0.5, selfRating: 4, notes: 'Smooth cones', traineeName: 'Tamsin Reed' });
     const list = await get(TAMSIN, `/api/rehearsals?versionId=${cleared}`);
-    expect(list.body.rehearsals).toHaveLength(1);
+    expect(bodyOf<RehearsalsBody>(list).rehearsals).toHaveLength(1);
     const avail = await get(TAMSIN, '/api/rehearsals/available');
-    expect(avail.body.versions.find((v: { versionId: string }) => v.versionId === cleared).lastRehearsal).toMatchObject({ selfRating: 4, completedSteps: 3 });
+    expect(bodyOf<VersionsBody>(avail).versions.find((v: { versionId: string }) => v.versionId === cleared)?.lastRehearsal).toMatchObject({ selfRating: 4, completedSteps: 3 });
     const audit = await get('ada.quill@lumen.example.test', '/api/audit');
     expect(JSON.stringify(audit.body)).toContain('rehearsal.log');
   });
@@ -221,7 +228,7 @@ describe('rehearsals', () => {
       .send({ sequenceVersionId: extra, playbackSpeed: 1, completedSteps: 2, selfRating: 3 });
     await t.ctx.db.update(sequenceVersions).set({ status: 'recheck' }).where(eq(sequenceVersions.id, extra));
     const avail = await get(TAMSIN, '/api/rehearsals/available');
-    const leg = avail.body.versions.find((v: { versionId: string }) => v.versionId === extra);
+    const leg = bodyOf<VersionsBody>(avail).versions.find((v: { versionId: string }) => v.versionId === extra);
     expect(leg).toMatchObject({ status: 'recheck', rehearsalCount: 1 });
   });
 
@@ -229,14 +236,14 @@ describe('rehearsals', () => {
     const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${await t.tokenForEmail(TAMSIN)}`)
       .send({ sequenceVersionId: cleared, playbackSpeed: 1, completedSteps: 4, selfRating: 3 });
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('completedSteps');
+    expect(apiError(res).field).toBe('completedSteps');
   });
 
   it('names the field: playbackSpeed 3× is above the 2× limit (400)', async () => {
     const res = await request(t.app).post('/api/rehearsals').set('Authorization', `Bearer ${await t.tokenForEmail(TAMSIN)}`)
       .send({ sequenceVersionId: cleared, playbackSpeed: 3, completedSteps: 1, selfRating: 3 });
     expect(res.status).toBe(400);
-    expect(res.body.error.field).toBe('playbackSpeed');
+    expect(apiError(res).field).toBe('playbackSpeed');
   });
 
   it('refuses a log for another crew member’s version (404) and from a planner (403)', async () => {
@@ -250,9 +257,9 @@ describe('rehearsals', () => {
 
   it('lets a reviewer read every trainee’s history, and another trainee none of Tamsin’s', async () => {
     const staff = await get('juno.brack@lumen.example.test', `/api/rehearsals?versionId=${cleared}`);
-    expect(staff.body.rehearsals.length).toBeGreaterThanOrEqual(1);
+    expect(bodyOf<RehearsalsBody>(staff).rehearsals.length).toBeGreaterThanOrEqual(1);
     const bram = await get(BRAM, '/api/rehearsals');
     expect(bram.status).toBe(200);
-    expect(bram.body.rehearsals.filter((r: { traineeName: string }) => r.traineeName !== 'Bram Kettle')).toEqual([]);
+    expect(bodyOf<RehearsalsBody>(bram).rehearsals.filter((r: { traineeName: string }) => r.traineeName !== 'Bram Kettle')).toEqual([]);
   });
 });

@@ -15,6 +15,7 @@ import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
 import { type SmtpFake, startSmtpFake } from '../../server/mail/smtp-fake.ts';
 import { type S3Fake, startS3Fake } from '../../server/storage/s3-fake.ts';
+import { signInResponseSchema } from '../../shared/contracts/auth.ts';
 import type { Role } from '../../shared/contracts/roles.ts';
 import { createTestDatabase } from './test-database.ts';
 
@@ -64,8 +65,9 @@ export async function startTestApp(opts: { seed?: boolean; env?: Record<string, 
     if (cached) return cached;
     const res = await request(app).post('/api/auth/sign-in').send({ email, password: DEMO_PASSWORD });
     if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
-    tokens.set(email, res.body.token);
-    return res.body.token as string;
+    const { token } = signInResponseSchema.parse(res.body);
+    tokens.set(email, token);
+    return token;
   };
   return {
     app,

@@ -64,7 +64,7 @@ function CustomAngles({ control, errors }: { control: StepFormProps['control']; 
   const messages: string[] = [];
   if (customError) {
     if (typeof customError.message === 'string') messages.push(customError.message);
-    else for (const [dof, e] of Object.entries(customError)) if (typeof e?.message === 'string' && e.message) messages.push(`${dof}: ${e.message}`);
+    else for (const [dof, e] of Object.entries(customError as Record<string, { message?: string } | undefined>)) if (e?.message) messages.push(`${dof}: ${e.message}`);
   }
   return (
     <View style={styles.custom}>

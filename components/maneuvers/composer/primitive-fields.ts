@@ -3,13 +3,7 @@
  * labels, units and choices. Validation itself is the shared primitive schema (shared/primitives);
  * this file only says how to show and convert the fields (form strings ↔ numbers).
  */
-import {
-  ARM_LOOP_PLANES,
-  ARM_ORBIT_CENTRES,
-  POSTURE_NAMES,
-  type Primitive,
-  type PrimitiveKind,
-} from '@/shared/primitives/primitive-schemas';
+import { ARM_LOOP_PLANES, ARM_ORBIT_CENTRES, POSTURE_NAMES, type Primitive, type PrimitiveKind } from '@/shared/primitives/primitive-schemas';
 
 /** One choice of a choice field. */
 export interface FieldChoice {
