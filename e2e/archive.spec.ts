@@ -1,4 +1,4 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, type Page,test } from '@playwright/test';
 
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
 import { signIn } from './support/sign-in.ts';

@@ -1,6 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 
 import type { MotionResponse } from '@/shared/contracts/motion';
+
 import { apiFetch } from './client';
 
 /** Query keys of the 3D view's motion. */

@@ -1,6 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { ReverificationProgress } from '@/shared/contracts/maneuver';
+
 import { apiFetch } from './client';
 import { crewKeys } from './use-crew';
 

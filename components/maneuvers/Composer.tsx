@@ -25,14 +25,14 @@ import { useComposerDraft } from './composer/use-composer-draft';
 import { ManeuverCautions } from './ManeuverCautions';
 import { SuggestSteps } from './planner/SuggestSteps';
 import { VerificationReport } from './report/VerificationReport';
+import { SequenceLifecycle } from './SequenceLifecycle';
+import { SubmitForReview } from './submit/SubmitForReview';
+import { useVersionChecks } from './submit/use-version-checks';
 import { targetText } from './target-text';
 import { CompareVersions } from './versions/CompareVersions';
 import { VersionList } from './versions/VersionList';
-import { SequenceLifecycle } from './SequenceLifecycle';
 import { VersionStatusBadge } from './VersionStatusBadge';
 import { VersionStatusNotice } from './VersionStatusNotice';
-import { SubmitForReview } from './submit/SubmitForReview';
-import { useVersionChecks } from './submit/use-version-checks';
 
 /** The phone's three panels. */
 export type ComposerPanel = 'steps' | 'report' | 'versions';

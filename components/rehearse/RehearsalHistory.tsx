@@ -5,9 +5,9 @@ import { colors, spacing } from '@/components/theme';
 import { Card } from '@/components/ui/Card';
 import { Text } from '@/components/ui/Text';
 import type { Rehearsal } from '@/shared/contracts/rehearsal';
+import { shortEngineVersion } from '@/shared/product/engine-binding';
 
 import { RehearsalCapturePanel } from './RehearsalCapturePanel';
-import { shortEngineVersion } from '@/shared/product/engine-binding';
 
 /** Props of {@link RehearsalHistory}. */
 export interface RehearsalHistoryProps {

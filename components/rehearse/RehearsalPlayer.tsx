@@ -14,6 +14,7 @@ import { scenePalette } from '@/scene/scene-palette';
 import type { MotionResponse } from '@/shared/contracts/motion';
 import { PLAYBACK_SPEEDS } from '@/shared/contracts/playback-speeds';
 import { engineBindingText } from '@/shared/product/engine-binding';
+
 import { ControlButton } from './ControlButton';
 import { CueCard } from './CueCard';
 import { StepTimeline } from './StepTimeline';

@@ -2,15 +2,15 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { useReviewCommentMutation, useReviewDecisionMutation } from '@/components/api/use-reviews';
-import { colors, radii, spacing } from '@/components/theme';
-import { Button } from '@/components/ui/Button';
-import { ErrorBanner } from '@/components/ui/ErrorBanner';
-import { Text } from '@/components/ui/Text';
-import { TextField } from '@/components/ui/TextField';
 import { FailureList } from '@/components/maneuvers/submit/SubmitForReview';
 import { useVersionChecks } from '@/components/maneuvers/submit/use-version-checks';
 import { VersionKeyFigures } from '@/components/maneuvers/submit/VersionKeyFigures';
+import { colors, radii, spacing } from '@/components/theme';
+import { Button } from '@/components/ui/Button';
+import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Sheet } from '@/components/ui/Sheet';
+import { Text } from '@/components/ui/Text';
+import { TextField } from '@/components/ui/TextField';
 import type { VersionDetail } from '@/shared/contracts/maneuver';
 
 /** Props of {@link ReviewDecisionPanel}. */

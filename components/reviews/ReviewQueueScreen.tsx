@@ -1,6 +1,6 @@
 import { useRouter } from 'expo-router';
 import { useState } from 'react';
-import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 
 import { useReviewQueueQuery } from '@/components/api/use-reviews';
 import { SplitView } from '@/components/layout/SplitView';
@@ -16,6 +16,7 @@ import { Screen } from '@/components/ui/Screen';
 import { Text } from '@/components/ui/Text';
 import type { ReviewQueueItem } from '@/shared/contracts/maneuver';
 import { CHECK_WORDS } from '@/shared/product/version-checks';
+
 import { ReviewDetail } from './ReviewDetail';
 
 /**
@@ -102,5 +103,5 @@ const styles = StyleSheet.create({
   row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: 2 },
   selected: { borderColor: colors.accent },
   pressed: { backgroundColor: colors.raised },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
+  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' },
 });

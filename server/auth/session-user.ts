@@ -1,5 +1,5 @@
-import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { UserRow } from '../../db/schema/index.ts';
+import type { SessionUser } from '../../shared/contracts/auth.ts';
 
 declare module 'express-serve-static-core' {
   interface Request {

@@ -1,10 +1,10 @@
-import { and, asc, eq, ilike, isNotNull, isNull, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, ilike, isNotNull, isNull, or, type SQL,sql } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, profileVersions, users, type CrewMemberRow, type ProfileVersionRow } from '../../db/schema/index.ts';
-import type { CurrentGlimpse } from './profile-views.ts';
+import { type CrewMemberRow, crewMembers, type ProfileVersionRow,profileVersions, users } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import { notFound } from '../http/http-error.ts';
+import type { CurrentGlimpse } from './profile-views.ts';
 
 /** Escapes LIKE wildcards so a search for "50%" finds that text literally. */
 function likePattern(text: string): string {

@@ -10,7 +10,7 @@ import { SIMULATE_LIMITS } from '../../shared/contracts/simulate-request.ts';
 import type { Quat } from '../../shared/math/quaternion.ts';
 import { dofInfoFromBody, type StepOrigin } from '../../shared/primitives/compile-primitives.ts';
 import type { SimulationPool } from '../engine/pool/simulation-pool.ts';
-import { HttpError, badRequest } from '../http/http-error.ts';
+import { badRequest,HttpError } from '../http/http-error.ts';
 import { buildReport } from './build-report.ts';
 import { inputsHash } from './inputs-hash.ts';
 import { stepRotations } from './step-rotations.ts';

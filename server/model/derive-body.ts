@@ -1,12 +1,12 @@
+import { type ProfileInputs, type ProfileInputsInput,profileInputsSchema } from '../../shared/contracts/profile-inputs.ts';
+import { type InertiaList,inertiaList } from '../../shared/math/inertia.ts';
 import type { Vec3 } from '../../shared/math/vec3.ts';
 import type { DofName } from '../../shared/model/dof-names.ts';
 import type { SegmentName } from '../../shared/model/segment-names.ts';
-import { profileInputsSchema, type ProfileInputs, type ProfileInputsInput } from '../../shared/contracts/profile-inputs.ts';
 import { applyGear } from './apply-gear.ts';
 import { applySuit } from './apply-suit.ts';
-import { inertiaList, type InertiaList } from '../../shared/math/inertia.ts';
-import { segmentGeometry, type SegmentGeometry } from './segment-geometry.ts';
-import { standardHumanSegments, type ModelSegment } from './standard-human.ts';
+import { type SegmentGeometry,segmentGeometry } from './segment-geometry.ts';
+import { type ModelSegment,standardHumanSegments } from './standard-human.ts';
 
 /** A segment of the derived body, in the body contract's shape (DESIGN.md, "Body contract"). */
 export interface DerivedSegment {

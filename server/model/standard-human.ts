@@ -1,13 +1,13 @@
+import type { ProfileInputs } from '../../shared/contracts/profile-inputs.ts';
+import { rotateTensor } from '../../shared/math/inertia.ts';
+import { quatFromAxisAngle, quatToMatrix } from '../../shared/math/quaternion.ts';
 import type { Vec3 } from '../../shared/math/vec3.ts';
 import type { DofName } from '../../shared/model/dof-names.ts';
 import type { SegmentName } from '../../shared/model/segment-names.ts';
-import type { ProfileInputs } from '../../shared/contracts/profile-inputs.ts';
 import { DE_LEVA_TABLE_4, type DeLevaSegment, type Sex } from './data/de-leva-1996-table4.ts';
-import { unsuitedDofs, type ModelDof } from './joints.ts';
+import { type ModelDof,unsuitedDofs } from './joints.ts';
 import { combineMassProperties, type MassProperties } from './mass-properties.ts';
 import { CARRYING_ANGLE_DEG, HEEL_BEHIND_ANKLE_PER_FOOT_LENGTH } from './proportions.ts';
-import { rotateTensor } from '../../shared/math/inertia.ts';
-import { quatFromAxisAngle, quatToMatrix } from '../../shared/math/quaternion.ts';
 import type { SegmentGeometry } from './segment-geometry.ts';
 import { deLevaPrincipalInertia, type LongAxis } from './segment-inertia.ts';
 

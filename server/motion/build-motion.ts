@@ -3,9 +3,9 @@
  * report's samples (no new simulation, so a later engine cannot change what trainees rehearse), the
  * bound profile version's body, the step timeline, cues and target.
  */
-import type { MotionResponse } from '../../shared/contracts/motion.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { verificationReportSchema } from '../../shared/contracts/maneuver.ts';
+import type { MotionResponse } from '../../shared/contracts/motion.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
 import { dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { HttpError } from '../http/http-error.ts';

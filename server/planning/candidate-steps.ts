@@ -7,12 +7,12 @@
  * Blends are slow enough for the rate limit; the lead-in is written out as a pose shift only when
  * the compiler's own blend would be too fast for it.
  */
+import { harmonicAngleDeg } from '../../shared/contracts/sequence.ts';
+import { MINIMUM_JERK_PEAK_SLOPE } from '../../shared/math/minimum-jerk.ts';
 import { BLEND_SPEED_DEG_S, blendDurationS } from '../../shared/primitives/compile-primitives.ts';
 import { primitiveMotion } from '../../shared/primitives/primitive-motion.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
-import { harmonicAngleDeg } from '../../shared/contracts/sequence.ts';
-import { MINIMUM_JERK_PEAK_SLOPE } from '../../shared/math/minimum-jerk.ts';
-import { RATE_MARGIN, type PlanFamily } from './plan-families.ts';
+import { type PlanFamily,RATE_MARGIN } from './plan-families.ts';
 
 /** One phase of a candidate. */
 export interface CandidatePart {

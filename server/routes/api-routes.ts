@@ -2,7 +2,6 @@ import type { Router } from 'express';
 
 import type { AppContext } from '../app-context.ts';
 import type { AccessArea } from '../auth/access-policy.ts';
-import { adhocSimulationPool } from '../engine/pool/shared-pools.ts';
 import { auditRouter } from './audit.ts';
 import { meRouter } from './auth.ts';
 import { crewRouter } from './crew.ts';

@@ -2,7 +2,7 @@ import { and, desc, eq, gte, lte, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
 
 import { auditEvents, users } from '../../db/schema/index.ts';
-import { type AuditQuery, auditQuerySchema } from '../../shared/contracts/team.ts';
+import { auditQuerySchema } from '../../shared/contracts/team.ts';
 import type { AppContext } from '../app-context.ts';
 import { auditObjectLabels } from '../audit/audit-labels.ts';
 import { validate } from '../http/validate.ts';
@@ -11,7 +11,7 @@ import { validate } from '../http/validate.ts';
 export function auditRouter(ctx: AppContext): Router {
   const router = Router();
   router.get('/', validate({ query: auditQuerySchema }), async (_req, res) => {
-    const q = res.locals.query as AuditQuery;
+    const q = res.locals.query;
     const where: SQL[] = [];
     if (q.actorId) where.push(eq(auditEvents.actorId, q.actorId));
     if (q.action) where.push(eq(auditEvents.action, q.action));

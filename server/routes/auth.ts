@@ -57,7 +57,7 @@ export function authRouter(ctx: AppContext): Router {
   });
 
   router.post('/sign-in', perAddress, perAccount, validate({ body: signInRequestSchema }), async (req, res) => {
-    const { email, password } = req.body as { email: string; password: string };
+    const { email, password } = req.body;
     const [row] = await db.select().from(users).where(eq(users.email, email));
     const ok = await verifyPassword(password, row?.passwordHash ?? (await dummyHash));
     if (!row || !ok) throw unauthorized('E-mail or password is not right.');
@@ -91,7 +91,7 @@ export function meRouter(ctx: AppContext): Router {
 
   router.post('/password', validate({ body: changePasswordRequestSchema }), async (req, res) => {
     const me = req.user!;
-    const { currentPassword, newPassword } = req.body as { currentPassword: string; newPassword: string };
+    const { currentPassword, newPassword } = req.body;
     const [row] = await db.select().from(users).where(eq(users.id, me.id));
     if (!(await verifyPassword(currentPassword, row.passwordHash))) {
       res.status(400).json({ error: { code: 'wrong_password', message: 'The current password is not right.', field: 'currentPassword' } });

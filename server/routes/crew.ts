@@ -3,7 +3,7 @@ import { z } from 'zod';
 
 import { crewMembers } from '../../db/schema/index.ts';
 import {
-  type CreateCrewMemberRequest, createCrewMemberRequestSchema, crewListQuerySchema, type SaveProfileRequest, saveProfileRequestSchema,
+  createCrewMemberRequestSchema, crewListQuerySchema, saveProfileRequestSchema,
 } from '../../shared/contracts/crew.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
@@ -43,7 +43,7 @@ export function crewRouter(ctx: AppContext): Router {
   const reads = new ReadCache();
 
   router.get('/', validate({ query: crewListQuerySchema }), async (req, res) => {
-    const { q, archived } = res.locals.query as z.infer<typeof crewListQuerySchema>;
+    const { q, archived } = res.locals.query;
     await sendCachedJson(reads, req, res, async () => {
       const rows = await listCrewMembers(db, req.user!, q, archived);
       return { members: rows.map(({ member, current }) => crewMemberView(member, current)) };
@@ -52,7 +52,7 @@ export function crewRouter(ctx: AppContext): Router {
 
   router.post('/', requireCrewEditor, validate({ body: createCrewMemberRequestSchema }), async (req, res) => {
     const me = req.user!;
-    const input = req.body as CreateCrewMemberRequest;
+    const input = req.body;
     const member = await db.transaction(async (tx) => {
       const [row] = await tx.insert(crewMembers).values({ name: input.name, callSign: input.callSign || null, notes: input.notes, createdBy: me.id }).returning();
       await recordAudit(tx, { actorId: me.id, action: 'crew.create', objectType: 'crew_member', objectId: row.id, detail: { name: row.name } });
@@ -62,19 +62,19 @@ export function crewRouter(ctx: AppContext): Router {
   });
 
   router.post('/:id/archive', requireCrewEditor, validate({ params: idParams }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     await setMemberArchived(ctx, req.user!, id, true);
     res.status(204).end();
   });
 
   router.post('/:id/restore', requireCrewEditor, validate({ params: idParams }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     await setMemberArchived(ctx, req.user!, id, false);
     res.status(204).end();
   });
 
   router.get('/:id', validate({ params: idParams }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     await sendCachedJson(reads, req, res, async () => {
       const member = await readableMember(db, req.user!, id);
       const current = member.currentVersion ? await getVersion(db, id, member.currentVersion) : null;
@@ -86,7 +86,7 @@ export function crewRouter(ctx: AppContext): Router {
   });
 
   router.get('/:id/versions', validate({ params: idParams }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const member = await readableMember(db, req.user!, id);
     const rows = await listVersions(db, id);
     res.json({ versions: rows.map((r) => profileVersionHeader(r.version, r.authorName, member.currentVersion)) });
@@ -94,8 +94,8 @@ export function crewRouter(ctx: AppContext): Router {
 
   router.post('/:id/versions', requireCrewEditor, validate({ params: idParams, body: saveProfileRequestSchema }), async (req, res) => {
     const me = req.user!;
-    const { id } = res.locals.params as { id: string };
-    const input = req.body as SaveProfileRequest;
+    const { id } = res.locals.params;
+    const input = req.body;
     const member = await readableMember(db, me, id);
     const { suitId, ...form } = input.inputs;
     const suit = suitId ? await suitSnapshot(db, suitId, 'inputs.suitId') : null;
@@ -114,7 +114,7 @@ export function crewRouter(ctx: AppContext): Router {
   });
 
   router.get('/:id/versions/:version', validate({ params: versionParams }), async (req, res) => {
-    const { id, version } = res.locals.params as { id: string; version: number };
+    const { id, version } = res.locals.params;
     const member = await readableMember(db, req.user!, id);
     const row = await getVersion(db, id, version);
     res.json({ version: profileVersionView(row.version, row.authorName, member.currentVersion) });
@@ -122,7 +122,7 @@ export function crewRouter(ctx: AppContext): Router {
 
   // The derived body as contract JSON, as a download.
   router.get('/:id/versions/:version/body.json', validate({ params: versionParams }), async (req, res) => {
-    const { id, version } = res.locals.params as { id: string; version: number };
+    const { id, version } = res.locals.params;
     const member = await readableMember(db, req.user!, id);
     const row = await getVersion(db, id, version);
     res.attachment(`${slug(member.name)}-profile-v${version}-body.json`);
@@ -130,8 +130,8 @@ export function crewRouter(ctx: AppContext): Router {
   });
 
   router.get('/:id/compare', validate({ params: idParams, query: compareQuery }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
-    const { a, b } = res.locals.query as { a: number; b: number };
+    const { id } = res.locals.params;
+    const { a, b } = res.locals.query;
     const member = await readableMember(db, req.user!, id);
     const [ra, rb] = await Promise.all([getVersion(db, id, a), getVersion(db, id, b)]);
     res.json({
@@ -144,13 +144,13 @@ export function crewRouter(ctx: AppContext): Router {
 
   // Re-verifying the member's maneuvers after their latest profile change: progress, and stop.
   router.get('/:id/reverifications', validate({ params: idParams }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     await readableMember(db, req.user!, id);
     res.json(await reverificationProgress(ctx, id));
   });
 
   router.post('/:id/reverifications/cancel', requireCrewEditor, validate({ params: idParams }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const user = req.user!;
     await readableMember(db, user, id);
     const reason = `Cancelled by ${user.name}.`;

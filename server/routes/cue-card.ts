@@ -24,7 +24,7 @@ export function cueCardRouter(ctx: AppContext): Router {
   const { db } = ctx;
 
   router.get('/versions/:versionId/cue-card.pdf', validate({ params: versionParams }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
+    const { versionId } = res.locals.params;
     const user = req.user!;
     const detail = await loadVersionDetail(db, user, versionId);
     const [crew] = await db.select({ callSign: crewMembers.callSign }).from(crewMembers).where(eq(crewMembers.id, detail.sequence.crewMemberId));

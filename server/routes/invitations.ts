@@ -32,15 +32,15 @@ export function invitationsRouter(ctx: AppContext): Router {
   };
 
   router.get('/:token', validate({ params: tokenParams }), async (_req, res) => {
-    const inv = await openInvitation((res.locals.params as { token: string }).token);
+    const inv = await openInvitation((res.locals.params).token);
     if (!inv) throw invalid();
     res.json({ email: inv.email, name: inv.name, role: inv.role });
   });
 
   router.post('/:token/accept', validate({ params: tokenParams, body: acceptInvitationRequestSchema }), async (req, res) => {
-    const inv = await openInvitation((res.locals.params as { token: string }).token);
+    const inv = await openInvitation((res.locals.params).token);
     if (!inv) throw invalid();
-    const { password } = req.body as { password: string };
+    const { password } = req.body;
     assertStrongPassword(password, inv);
     const passwordHash = await hashPassword(password, ctx.config.BCRYPT_COST);
     const user = await db.transaction(async (tx) => {

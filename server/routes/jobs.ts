@@ -22,18 +22,18 @@ export function jobsRouter(ctx: AppContext): Router {
   const router = Router();
 
   router.get('/', validate({ query: workListQuerySchema }), async (_req, res) => {
-    const { filter } = res.locals.query as z.infer<typeof workListQuerySchema>;
+    const { filter } = res.locals.query;
     res.json(await listBackgroundWork(ctx, filter));
   });
 
   router.post('/:kind/:id/retry', validate({ params: itemParams }), async (req, res) => {
-    const { kind, id } = res.locals.params as z.infer<typeof itemParams>;
+    const { kind, id } = res.locals.params;
     await retryBackgroundWork(ctx, kind, id, req.user!);
     res.status(202).json({ ok: true });
   });
 
   router.post('/:kind/:id/cancel', validate({ params: itemParams }), async (req, res) => {
-    const { kind, id } = res.locals.params as z.infer<typeof itemParams>;
+    const { kind, id } = res.locals.params;
     await cancelBackgroundWork(ctx, kind, id, req.user!);
     res.json({ ok: true });
   });

@@ -23,8 +23,8 @@ export function motionRouter(ctx: AppContext): Router {
   const cache = new MotionCache<{ json: string; engineVersion: string }>();
 
   router.get('/:versionId', validate({ params, query: motionQuerySchema }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof params>;
-    const { rate } = res.locals.query as z.infer<typeof motionQuerySchema>;
+    const { versionId } = res.locals.params;
+    const { rate } = res.locals.query;
     const access = await versionAccessFor(db, req.user!, versionId);
     const key = MotionCache.key(access.id, rate);
     const motion = await cache.get(key, async () => {

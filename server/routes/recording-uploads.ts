@@ -47,7 +47,7 @@ async function saveRecording(
 export function mountRecordingUploads(router: Router, ctx: AppContext): void {
   router.post('/joint-angles', receiveFile(['.csv']), validate({ body: recordingUploadFieldsSchema }), async (req, res) => {
     const me = req.user!;
-    const fields = req.body as Fields;
+    const fields = req.body;
     if (fields.crewMemberId) await readableMember(ctx.db, me, fields.crewMemberId);
     const file = await storeRawFile(ctx, 'joint_angles_csv', req.file!);
     const t = readJointAngleCsv(file.text, fields.rateHz);
@@ -58,7 +58,7 @@ export function mountRecordingUploads(router: Router, ctx: AppContext): void {
 
   router.post('/bvh', receiveFile(['.bvh']), validate({ body: recordingUploadFieldsSchema }), async (req, res) => {
     const me = req.user!;
-    const fields = req.body as Fields;
+    const fields = req.body;
     if (fields.crewMemberId) await readableMember(ctx.db, me, fields.crewMemberId);
     const file = await storeRawFile(ctx, 'bvh', req.file!);
     const read = readBvh(file.text);

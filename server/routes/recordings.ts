@@ -44,15 +44,15 @@ export function recordingsRouter(ctx: AppContext): Router {
   });
 
   router.get('/:id', validate({ params: idParams }), async (_req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const r = await load(id);
     const joints = r.rec.source === 'bvh' ? readBvh((await ctx.storage.get(r.objectKey)).toString('utf8')).motion?.joints ?? null : null;
     res.json({ recording: recordingView(r.rec, r.fileName, joints) });
   });
 
   router.put('/:id/mapping', validate({ params: idParams, body: mappingBody }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
-    const { mapping, rateHz } = req.body as z.infer<typeof mappingBody>;
+    const { id } = res.locals.params;
+    const { mapping, rateHz } = req.body;
     const r = await load(id);
     if (r.rec.source !== 'bvh') throw new HttpError(409, 'not_bvh', 'Only a BVH recording has a joint mapping.', 'mapping');
     const read = readBvh((await ctx.storage.get(r.objectKey)).toString('utf8'));

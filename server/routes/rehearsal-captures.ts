@@ -51,7 +51,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
 
   router.get('/captures/trend', validate({ query: trendQuery }), async (req, res) => {
     const me = req.user!;
-    const { traineeId } = res.locals.query as z.infer<typeof trendQuery>;
+    const { traineeId } = res.locals.query;
     const who = me.role === 'trainee' ? me.id : traineeId;
     const rows = await db.select({ c: rehearsalCaptures, r: rehearsals, name: sequences.name, version: sequenceVersions.version })
       .from(rehearsalCaptures)
@@ -74,7 +74,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
   });
 
   router.get('/:id/recording', validate({ params: idParams }), async (req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     await visibleRehearsal(ctx, req.user!, id);
     const capture = await captureOf(ctx, id);
     if (!capture) throw notFound('Recording for this rehearsal');
@@ -83,7 +83,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
 
   router.post('/:id/recording', receiveFile(['.csv', '.bvh']), validate({ params: idParams }), async (req, res) => {
     const me = req.user!;
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const r = await visibleRehearsal(ctx, me, id);
     const [existing] = await db.select({ id: rehearsalCaptures.id }).from(rehearsalCaptures).where(eq(rehearsalCaptures.rehearsalId, id));
     if (existing) throw conflict('This rehearsal already has a recording; log a new rehearsal for another run.', 'recording_exists');
@@ -133,8 +133,8 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
   router.post('/:id/recording/sign-off', validate({ params: idParams, body: captureSignOffSchema }), async (req, res) => {
     const me = req.user!;
     if (me.role !== 'reviewer' && me.role !== 'admin') throw forbidden('Only reviewers sign off rehearsal recordings.');
-    const { id } = res.locals.params as { id: string };
-    const { note } = req.body as z.infer<typeof captureSignOffSchema>;
+    const { id } = res.locals.params;
+    const { note } = req.body;
     await db.transaction(async (tx) => {
       const updated = await tx.update(rehearsalCaptures).set({ signedOffBy: me.id, signedOffAt: new Date(), signOffNote: note })
         .where(and(eq(rehearsalCaptures.rehearsalId, id))).returning({ id: rehearsalCaptures.id });

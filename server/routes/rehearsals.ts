@@ -1,6 +1,5 @@
 import { and, desc, eq, inArray, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
-import type { z } from 'zod';
 
 import { crewMembers, rehearsals, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
 import { logRehearsalSchema, type RehearsableVersion, type Rehearsal, rehearsalListQuerySchema } from '../../shared/contracts/rehearsal.ts';
@@ -96,7 +95,7 @@ export function rehearsalsRouter(ctx: AppContext): Router {
 
   router.get('/', validate({ query: rehearsalListQuerySchema }), async (req, res) => {
     const me = req.user!;
-    const { versionId } = res.locals.query as z.infer<typeof rehearsalListQuerySchema>;
+    const { versionId } = res.locals.query;
     const rows = await selectRehearsals(and(
       me.role === 'trainee' ? eq(rehearsals.traineeId, me.id) : undefined,
       versionId ? eq(rehearsals.sequenceVersionId, versionId) : undefined,
@@ -107,7 +106,7 @@ export function rehearsalsRouter(ctx: AppContext): Router {
   router.post('/', validate({ body: logRehearsalSchema }), async (req, res) => {
     const me = req.user!;
     if (me.role !== 'trainee') throw forbidden('Only crew trainees log rehearsals.');
-    const input = req.body as z.infer<typeof logRehearsalSchema>;
+    const input = req.body;
     const v = await loadVersionFor(db, me, input.sequenceVersionId);
     const totalSteps = stepListCount(v.compiled);
     if (input.completedSteps > totalSteps) {

@@ -35,15 +35,15 @@ export function reviewsRouter(ctx: AppContext): Router {
   });
 
   router.post('/:versionId/decision', validate({ params: versionParams, body: reviewDecisionRequestSchema }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
-    const input = req.body as z.infer<typeof reviewDecisionRequestSchema>;
+    const { versionId } = res.locals.params;
+    const input = req.body;
     await decideVersion(ctx, req.user!, versionId, input.decision, input.comment);
     res.json(await loadVersionDetail(db, req.user!, versionId));
   });
 
   router.post('/:versionId/comments', validate({ params: versionParams, body: reviewCommentRequestSchema }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
-    await commentVersion(ctx, req.user!, versionId, (req.body as z.infer<typeof reviewCommentRequestSchema>).comment);
+    const { versionId } = res.locals.params;
+    await commentVersion(ctx, req.user!, versionId, (req.body).comment);
     res.json(await loadVersionDetail(db, req.user!, versionId));
   });
 

@@ -11,7 +11,7 @@ import { z } from 'zod';
 
 import { robustnessRuns, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
-import { type StartRobustnessRequest, startRobustnessRequestSchema } from '../../shared/contracts/robustness-run.ts';
+import { startRobustnessRequestSchema } from '../../shared/contracts/robustness-run.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { conflict, HttpError, notFound } from '../http/http-error.ts';
@@ -35,7 +35,7 @@ export function robustnessRouter(ctx: AppContext): Router {
   }
 
   router.get('/versions/:versionId/robustness', validate({ params: versionParams }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
+    const { versionId } = res.locals.params;
     await requireVisible(req.user!, versionId);
     const run = await latestVersionRun(db, versionId);
     if (!run) throw new HttpError(404, 'no_run', 'No robustness run for this version yet.');
@@ -43,8 +43,8 @@ export function robustnessRouter(ctx: AppContext): Router {
   });
 
   router.post('/versions/:versionId/robustness', validate({ params: versionParams, body: startRobustnessRequestSchema }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
-    const input = req.body as StartRobustnessRequest;
+    const { versionId } = res.locals.params;
+    const input = req.body;
     const user = req.user!;
     requireAuthor(user);
     await requireVisible(user, versionId);
@@ -55,7 +55,7 @@ export function robustnessRouter(ctx: AppContext): Router {
   });
 
   router.post('/versions/:versionId/robustness/cancel', validate({ params: versionParams }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
+    const { versionId } = res.locals.params;
     const user = req.user!;
     requireAuthor(user);
     await requireVisible(user, versionId);

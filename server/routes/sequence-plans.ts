@@ -56,8 +56,8 @@ export function sequencePlansRouter(ctx: AppContext): Router {
   router.post('/', validate({ params: sequenceParams, body: planRequestSchema }), async (req, res) => {
     const user = req.user!;
     requireAuthor(user);
-    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
-    const settings = req.body as z.infer<typeof planRequestSchema>;
+    const { sequenceId } = res.locals.params;
+    const settings = req.body;
     const [sequence] = await db.select().from(sequences).where(eq(sequences.id, sequenceId));
     if (!sequence) throw notFound('Sequence');
     const profile = await currentProfile(db, sequence.crewMemberId);
@@ -74,8 +74,8 @@ export function sequencePlansRouter(ctx: AppContext): Router {
 
   router.get('/', validate({ params: sequenceParams, query: planListQuerySchema }), async (req, res) => {
     requireAuthor(req.user!);
-    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
-    const { limit } = res.locals.query as z.infer<typeof planListQuerySchema>;
+    const { sequenceId } = res.locals.params;
+    const { limit } = res.locals.query;
     const [sequence] = await db.select({ id: sequences.id }).from(sequences).where(eq(sequences.id, sequenceId));
     if (!sequence) throw notFound('Sequence');
     // Counted in SQL so the list does not carry every candidate's step list.
@@ -101,7 +101,7 @@ export function sequencePlansRouter(ctx: AppContext): Router {
   });
 
   router.get('/:planId', validate({ params: planParams }), async (req, res) => {
-    const { sequenceId, planId } = res.locals.params as z.infer<typeof planParams>;
+    const { sequenceId, planId } = res.locals.params;
     if (req.user!.role === 'trainee') throw forbidden('Plans are for planners, reviewers and admins.');
     const [row] = await db.select({ plan: plans }).from(plans)
       .innerJoin(sequences, eq(sequences.id, plans.sequenceId))
@@ -113,7 +113,7 @@ export function sequencePlansRouter(ctx: AppContext): Router {
   router.post('/:planId/cancel', validate({ params: planParams }), async (req, res) => {
     const user = req.user!;
     requireAuthor(user);
-    const { sequenceId, planId } = res.locals.params as z.infer<typeof planParams>;
+    const { sequenceId, planId } = res.locals.params;
     const [row] = await db.select({ id: plans.id }).from(plans).where(and(eq(plans.id, planId), eq(plans.sequenceId, sequenceId)));
     if (!row) throw notFound('Plan');
     const reason = `Cancelled by ${user.name}.`;

@@ -35,7 +35,7 @@ export function suitsRouter(ctx: AppContext): Router {
   });
 
   router.get('/:id', validate({ params: idParams }), async (_req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const [row] = await db.select({ suit: suitConfigs, by: users.name }).from(suitConfigs).leftJoin(users, eq(users.id, suitConfigs.updatedBy)).where(eq(suitConfigs.id, id));
     if (!row) throw notFound('Suit configuration');
     res.json({ suit: suitView(row.suit, row.by) });
@@ -43,8 +43,8 @@ export function suitsRouter(ctx: AppContext): Router {
 
   router.put('/:id', requireCrewEditor, validate({ params: idParams, body: updateSuitRequestSchema }), async (req, res) => {
     const me = req.user!;
-    const { id } = res.locals.params as { id: string };
-    const { baseVersion, ...config } = req.body as z.infer<typeof updateSuitRequestSchema>;
+    const { id } = res.locals.params;
+    const { baseVersion, ...config } = req.body;
     const [existing] = await db.select().from(suitConfigs).where(eq(suitConfigs.id, id));
     if (!existing) throw notFound('Suit configuration');
     const before = suitConfigSchema.parse(existing.config);

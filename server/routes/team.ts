@@ -3,7 +3,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 
 import { crewMembers, type InvitationRow, invitations, users } from '../../db/schema/index.ts';
-import { type Invitation, type InviteRequest, inviteRequestSchema, type UpdateUserRequest, updateUserRequestSchema } from '../../shared/contracts/team.ts';
+import { type Invitation, inviteRequestSchema, updateUserRequestSchema } from '../../shared/contracts/team.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, conflict, notFound } from '../http/http-error.ts';
@@ -49,7 +49,7 @@ export function teamRouter(ctx: AppContext): Router {
 
   router.post('/invitations', validate({ body: inviteRequestSchema }), async (req, res) => {
     const me = req.user!;
-    const input = req.body as InviteRequest;
+    const input = req.body;
     const [existing] = await db.select({ id: users.id }).from(users).where(eq(users.email, input.email));
     if (existing) throw conflict('Someone with that e-mail already has an account.', 'email_taken');
     if (input.crewMemberId) {
@@ -85,7 +85,7 @@ export function teamRouter(ctx: AppContext): Router {
   /** Sends the invitation again with a fresh link and a fresh 7-day validity (sending, sent or failed alike). */
   router.post('/invitations/:id/resend', validate({ params: idParams }), async (req, res) => {
     const me = req.user!;
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const [inv] = await db.transaction(async (tx) => {
       const updated = await tx.update(invitations)
         .set({ mailState: 'sending', mailError: null, expiresAt: new Date(Date.now() + INVITATION_TTL_MS) })
@@ -102,7 +102,7 @@ export function teamRouter(ctx: AppContext): Router {
   /** Withdraws an invitation: its link stops working and the address may be invited again. */
   router.post('/invitations/:id/revoke', validate({ params: idParams }), async (req, res) => {
     const me = req.user!;
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const [inv] = await db.transaction(async (tx) => {
       const updated = await tx.update(invitations)
         .set({ revokedAt: new Date(), revokedBy: me.id, tokenHash: newInvitationToken().hash })
@@ -129,8 +129,8 @@ export function teamRouter(ctx: AppContext): Router {
 
   router.patch('/users/:id', validate({ params: idParams, body: updateUserRequestSchema }), async (req, res) => {
     const me = req.user!;
-    const { id } = res.locals.params as { id: string };
-    const change = req.body as UpdateUserRequest;
+    const { id } = res.locals.params;
+    const change = req.body;
     if (id === me.id && (change.disabled === true || (change.role && change.role !== 'admin'))) {
       throw badRequest('You cannot disable yourself or remove your own admin role.', change.disabled ? 'disabled' : 'role');
     }

@@ -44,7 +44,7 @@ export function uploadsRouter(ctx: AppContext): Router {
   });
 
   router.get('/:id', validate({ params: idParams }), async (_req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const [row] = await db.select().from(uploads).where(eq(uploads.id, id));
     if (!row) throw notFound('Upload');
     const rows = await db.select({ row: uploadRows.rowNumber, data: uploadRows.data }).from(uploadRows).where(eq(uploadRows.uploadId, id)).orderBy(uploadRows.rowNumber);
@@ -53,7 +53,7 @@ export function uploadsRouter(ctx: AppContext): Router {
 
   // The raw file as uploaded, from object storage.
   router.get('/:id/raw', validate({ params: idParams }), async (_req, res) => {
-    const { id } = res.locals.params as { id: string };
+    const { id } = res.locals.params;
     const [row] = await db.select().from(uploads).where(eq(uploads.id, id));
     if (!row) throw notFound('Upload');
     const bytes = await ctx.storage.get(row.objectKey);
@@ -105,7 +105,7 @@ export function uploadsRouter(ctx: AppContext): Router {
 
   router.post('/segment-table', receiveFile(['.csv', '.json']), validate({ body: segmentTableFields }), async (req, res) => {
     const me = req.user!;
-    const fields = req.body as z.infer<typeof segmentTableFields>;
+    const fields = req.body;
     const member = await readableMember(db, me, fields.crewMemberId);
     const isJson = req.file!.originalname.toLowerCase().endsWith('.json');
     const current = member.currentVersion ? await getVersion(db, member.id, member.currentVersion) : null;

@@ -3,6 +3,7 @@
  * limits in degrees. Frame convention: x anterior, y to the person's left, z toward the head.
  */
 import { z } from 'zod';
+
 import { checkInertia } from '../math/inertia.ts';
 import { type ContractIssue, type ContractResult, zodIssuesToContract } from './contract-issue.ts';
 

@@ -2,8 +2,8 @@
  * The compiled, read-only body model: flat typed arrays in tree order (parents before children),
  * radians inside. Built once from a validated body contract; shared by the engine and the 3D view.
  */
-import { inertiaTensor } from '../math/inertia.ts';
 import type { Body } from '../contracts/body.ts';
+import { inertiaTensor } from '../math/inertia.ts';
 
 /** Read-only compiled body. Indices: segment i in contract order, dof k in listing order. */
 export interface BodyModel {

@@ -1,8 +1,8 @@
 import { z } from 'zod';
 
+import { checkInertia } from '../math/inertia.ts';
 import { DOF_NAMES } from './dof-names.ts';
 import { SEGMENT_NAMES } from './segment-names.ts';
-import { checkInertia } from '../math/inertia.ts';
 
 /** A segment name of the standard human model. */
 export const segmentNameSchema = z.enum(SEGMENT_NAMES);

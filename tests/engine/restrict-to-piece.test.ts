@@ -8,8 +8,8 @@
  */
 import { describe, expect, it } from 'vitest';
 
-import { bodyRate, createMomentumWork, restrictToPiece } from '../../server/engine/locked-momentum.ts';
 import { compileMotion, evalPiece, type MotionPiece } from '../../server/engine/joint-motion.ts';
+import { bodyRate, createMomentumWork, restrictToPiece } from '../../server/engine/locked-momentum.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { wholeBodyInertia } from '../../shared/model/whole-body.ts';

@@ -10,9 +10,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { auditEvents, crewMembers, plans, reverifications } from '../../db/schema/index.ts';
 import { reverifyVersion } from '../../server/jobs/reverify-version.ts';
 import { runPlan } from '../../server/jobs/run-plan.ts';
-import { PEOPLE, as, crewOf, createSequence, saveVersion } from '../maneuvers/maneuver-api.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { Plan } from '../../shared/contracts/plan.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { createQuarterTurnSequence } from '../planning/quarter-turn-sequence.ts';
 import { eventually } from '../support/eventually.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -40,7 +43,7 @@ describe('cancelling background work', () => {
     const cancel = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans/${planId}/cancel`);
     expect(cancel.status).toBe(200);
     expect(cancel.body).toMatchObject({ state: 'cancelled', candidates: [] });
-    expect(cancel.body.error).toMatch(/^Cancelled by /);
+    expect(bodyOf<Plan>(cancel).error).toMatch(/^Cancelled by /);
     const cancelledAt = Date.now();
     await job;
     const stoppedAfterMs = Date.now() - cancelledAt;
@@ -55,7 +58,7 @@ describe('cancelling background work', () => {
     // A second cancel: nothing open.
     const again = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans/${planId}/cancel`);
     expect(again.status).toBe(409);
-    expect(again.body.error.code).toBe('not_open');
+    expect(apiError(again).code).toBe('not_open');
     // A retried job of a cancelled plan does nothing.
     await runPlan(t.ctx, { planId });
     const [still] = await t.ctx.db.select({ state: plans.state }).from(plans).where(eq(plans.id, planId));
@@ -76,7 +79,7 @@ describe('cancelling background work', () => {
   it('a cancelled re-verification stays cancelled when its job runs', async () => {
     const crew = await crewOf(t, PEOPLE.trainee);
     const sequenceId = await createSequence(t, crew, 'Re-verification cancel');
-    const versionId = (await saveVersion(t, sequenceId, 0)).body.id as string;
+    const versionId = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
     const [m] = await t.ctx.db.select().from(crewMembers).where(eq(crewMembers.id, crew));
     const changed = await as(t, PEOPLE.planner).post(`/crew/${crew}/versions`, {
       baseVersion: m.currentVersion, note: 'mass drift (test)', inputs: { sex: 'female', stature: 1.67, mass: 61, suitId: null },
@@ -85,7 +88,7 @@ describe('cancelling background work', () => {
     // A draft is not re-verified; make the record a cleared version would get, then cancel it as the admin.
     const toProfileVersionId = (changed.body as { version: { id: string } }).version.id;
     const [record] = await t.ctx.db.insert(reverifications).values({
-      sequenceVersionId: versionId, fromProfileVersionId: (await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}`)).body.profileVersionId as string, toProfileVersionId,
+      sequenceVersionId: versionId, fromProfileVersionId: bodyOf<VersionDetail>(await as(t, PEOPLE.planner).get(`/sequences/versions/${versionId}`)).profileVersionId, toProfileVersionId,
     }).returning();
     expect((await as(t, PEOPLE.admin).post(`/jobs/reverification/${record.id}/cancel`)).status).toBe(200);
     await reverifyVersion(t.ctx, { sequenceVersionId: versionId, toProfileVersionId }, { attempt: 0, retryLimit: 3 });

@@ -9,8 +9,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, reverifications } from '../../db/schema/index.ts';
 import { reverifyVersion } from '../../server/jobs/reverify-version.ts';
-import type { ReverificationProgress } from '../../shared/contracts/maneuver.ts';
-import { PEOPLE, as, createSequence, crewOf, saveVersion } from '../maneuvers/maneuver-api.ts';
+import type { ReverificationProgress , VersionDetail } from '../../shared/contracts/maneuver.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -25,7 +26,7 @@ afterAll(async () => {
 
 async function clearedVersion(name: string): Promise<string> {
   const sequenceId = await createSequence(t, crew, name);
-  const v = (await saveVersion(t, sequenceId, 0)).body.id as string;
+  const v = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
   expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${v}/submit`, { acknowledgeFailures: true, note: 'progress test' })).status).toBe(200);
   expect((await as(t, PEOPLE.reviewer).post(`/reviews/${v}/decision`, { decision: 'clear', comment: '' })).status).toBeLessThan(300);
   return v;
@@ -79,6 +80,6 @@ describe('re-verification progress and stop', () => {
     // Nothing left to stop.
     const again = await as(t, PEOPLE.planner).post(`/crew/${crew}/reverifications/cancel`);
     expect(again.status).toBe(409);
-    expect(again.body.error.code).toBe('not_open');
+    expect(apiError(again).code).toBe('not_open');
   }, 120_000);
 });

@@ -7,8 +7,16 @@ import { eq, inArray } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, crewMembers, robustnessRuns, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import type { CrewMemberView } from '../../shared/contracts/crew.ts';
+import type { SequenceSummary, VersionDetail } from '../../shared/contracts/maneuver.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { PEOPLE, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
+
+// Response bodies as the web client reads them.
+type SequencesBody = { sequences: SequenceSummary[] };
+type MemberBody = { member: CrewMemberView };
+type MembersBody = { members: CrewMemberView[] };
 
 let t: TestApp;
 let crew: string;
@@ -20,40 +28,40 @@ afterAll(async () => {
   await t?.close();
 });
 
-const names = (res: { body: { sequences: { name: string }[] } }) => res.body.sequences.map((s) => s.name);
+const names = (res: { body: unknown }) => bodyOf<SequencesBody>(res).sequences.map((s) => s.name);
 
 describe('archiving a maneuver', () => {
   it('takes it out of the default list, out of the trainee\'s sight and out of editing; restoring brings all back', async () => {
     const id = await createSequence(t, crew, 'Archive test A');
     const v1 = await saveVersion(t, id, 0);
-    expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${v1.body.id}/submit`, { acknowledgeFailures: true, note: 'archive test' })).status).toBe(200);
+    expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${bodyOf<VersionDetail>(v1).id}/submit`, { acknowledgeFailures: true, note: 'archive test' })).status).toBe(200);
 
     // Pending review: archiving would hide a reviewer's work.
     const pending = await as(t, PEOPLE.planner).post(`/sequences/${id}/archive`);
     expect(pending.status).toBe(409);
-    expect(pending.body.error.code).toBe('under_review');
-    expect((await as(t, PEOPLE.reviewer).post(`/reviews/${v1.body.id}/decision`, { decision: 'clear', comment: 'ok' })).status).toBe(200);
+    expect(apiError(pending).code).toBe('under_review');
+    expect((await as(t, PEOPLE.reviewer).post(`/reviews/${bodyOf<VersionDetail>(v1).id}/decision`, { decision: 'clear', comment: 'ok' })).status).toBe(200);
     expect(names(await as(t, PEOPLE.trainee).get('/sequences'))).toContain('Archive test A');
 
     // Only authors archive.
     expect((await as(t, PEOPLE.trainee).post(`/sequences/${id}/archive`)).status).toBe(403);
     expect((await as(t, PEOPLE.planner).post(`/sequences/${id}/archive`)).status).toBe(204);
-    expect((await as(t, PEOPLE.planner).post(`/sequences/${id}/archive`)).body.error.code).toBe('already_archived');
+    expect(apiError(await as(t, PEOPLE.planner).post(`/sequences/${id}/archive`)).code).toBe('already_archived');
 
     expect(names(await as(t, PEOPLE.planner).get('/sequences'))).not.toContain('Archive test A');
     const archivedList = await as(t, PEOPLE.planner).get('/sequences?archived=true');
     expect(names(archivedList)).toContain('Archive test A');
-    expect(archivedList.body.sequences.find((s: { id: string }) => s.id === id).archivedAt).toEqual(expect.any(String));
+    expect(bodyOf<SequencesBody>(archivedList).sequences.find((s) => s.id === id)?.archivedAt).toEqual(expect.any(String));
     expect(names(await as(t, PEOPLE.trainee).get('/sequences'))).not.toContain('Archive test A');
-    expect((await as(t, PEOPLE.trainee).get(`/sequences/versions/${v1.body.id}`)).status).toBe(404);
+    expect((await as(t, PEOPLE.trainee).get(`/sequences/versions/${bodyOf<VersionDetail>(v1).id}`)).status).toBe(404);
 
     // Nothing changes while archived; the cleared version stays as it was.
     const save = await saveVersion(t, id, 1);
     expect(save.status).toBe(409);
-    expect(save.body.error.code).toBe('archived');
-    expect((await as(t, PEOPLE.planner).patch(`/sequences/${id}`, { name: 'Renamed' })).body.error.code).toBe('archived');
-    expect((await as(t, PEOPLE.planner).get(`/sequences/versions/${v1.body.id}`)).body.status).toBe('cleared');
-    expect((await as(t, PEOPLE.planner).delete(`/sequences/${id}`)).body.error.code).toBe('submitted');
+    expect(apiError(save).code).toBe('archived');
+    expect(apiError(await as(t, PEOPLE.planner).patch(`/sequences/${id}`, { name: 'Renamed' })).code).toBe('archived');
+    expect(bodyOf<VersionDetail>(await as(t, PEOPLE.planner).get(`/sequences/versions/${bodyOf<VersionDetail>(v1).id}`)).status).toBe('cleared');
+    expect(apiError(await as(t, PEOPLE.planner).delete(`/sequences/${id}`)).code).toBe('submitted');
 
     expect((await as(t, PEOPLE.planner).post(`/sequences/${id}/restore`)).status).toBe(204);
     expect(names(await as(t, PEOPLE.trainee).get('/sequences'))).toContain('Archive test A');
@@ -76,7 +84,7 @@ describe('deleting a maneuver', () => {
     const v1 = await saveVersion(t, id, 0);
     const v2 = await saveVersion(t, id, 1);
     expect(v2.status).toBe(201);
-    const versionIds = [v1.body.id as string, v2.body.id as string];
+    const versionIds = [bodyOf<VersionDetail>(v1).id, bodyOf<VersionDetail>(v2).id];
 
     expect((await as(t, PEOPLE.trainee).delete(`/sequences/${id}`)).status).toBe(403);
     expect((await as(t, PEOPLE.planner).delete(`/sequences/${id}`)).status).toBe(204);
@@ -92,12 +100,12 @@ describe('deleting a maneuver', () => {
   it('keeps one that went to review (sent back counts) and leaves it whole', async () => {
     const id = await createSequence(t, crew, 'Delete test B');
     const v1 = await saveVersion(t, id, 0);
-    await as(t, PEOPLE.planner).post(`/sequences/versions/${v1.body.id}/submit`, { acknowledgeFailures: true, note: 'delete test' });
-    expect((await as(t, PEOPLE.reviewer).post(`/reviews/${v1.body.id}/decision`, { decision: 'send_back', comment: 'no' })).status).toBe(200);
+    await as(t, PEOPLE.planner).post(`/sequences/versions/${bodyOf<VersionDetail>(v1).id}/submit`, { acknowledgeFailures: true, note: 'delete test' });
+    expect((await as(t, PEOPLE.reviewer).post(`/reviews/${bodyOf<VersionDetail>(v1).id}/decision`, { decision: 'send_back', comment: 'no' })).status).toBe(200);
     await saveVersion(t, id, 1);
     const res = await as(t, PEOPLE.planner).delete(`/sequences/${id}`);
     expect(res.status).toBe(409);
-    expect(res.body.error.code).toBe('submitted');
+    expect(apiError(res).code).toBe('submitted');
     expect(await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.sequenceId, id))).toHaveLength(2);
   }, 90_000);
 });
@@ -106,19 +114,19 @@ describe('archiving a crew member', () => {
   it('takes the member and their maneuvers out of default lists and refuses new profiles and maneuvers until restored', async () => {
     const created = await as(t, PEOPLE.planner).post('/crew', { name: 'Archive Testperson', callSign: 'ARCH' });
     expect(created.status).toBe(201);
-    const memberId = created.body.member.id as string;
+    const memberId = bodyOf<MemberBody>(created).member.id;
     const seqId = await createSequence(t, crew, 'Crew archive neighbour');
 
     expect((await as(t, PEOPLE.reviewer).post(`/crew/${memberId}/archive`)).status).toBe(403);
     expect((await as(t, PEOPLE.planner).post(`/crew/${memberId}/archive`)).status).toBe(204);
     const active = await as(t, PEOPLE.planner).get('/crew');
-    expect(active.body.members.map((m: { id: string }) => m.id)).not.toContain(memberId);
+    expect(bodyOf<MembersBody>(active).members.map((m: { id: string }) => m.id)).not.toContain(memberId);
     const archived = await as(t, PEOPLE.planner).get('/crew?archived=true');
-    expect(archived.body.members.find((m: { id: string }) => m.id === memberId).archivedAt).toEqual(expect.any(String));
+    expect(bodyOf<MembersBody>(archived).members.find((m) => m.id === memberId)?.archivedAt).toEqual(expect.any(String));
 
     const newSeq = await as(t, PEOPLE.planner).post('/sequences', { crewMemberId: memberId, name: 'Nope', target: { mode: 'ypr', yprDeg: { yaw: 90, pitch: 0, roll: 0 }, toleranceDeg: 3 } });
     expect(newSeq.status).toBe(400);
-    expect(newSeq.body.error.field).toBe('crewMemberId');
+    expect(apiError(newSeq).field).toBe('crewMemberId');
     const [row] = await t.ctx.db.select().from(crewMembers).where(eq(crewMembers.id, memberId));
     expect(row.archivedBy).not.toBeNull();
 
@@ -127,6 +135,6 @@ describe('archiving a crew member', () => {
     expect(seqId).toBeTruthy();
 
     expect((await as(t, PEOPLE.planner).post(`/crew/${memberId}/restore`)).status).toBe(204);
-    expect((await as(t, PEOPLE.planner).get('/crew')).body.members.map((m: { id: string }) => m.id)).toContain(memberId);
+    expect(bodyOf<MembersBody>(await as(t, PEOPLE.planner).get('/crew')).members.map((m: { id: string }) => m.id)).toContain(memberId);
   }, 60_000);
 });

@@ -8,12 +8,17 @@ import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, sequenceVersions } from '../../db/schema/index.ts';
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
-import type { VerificationReport } from '../../shared/contracts/maneuver.ts';
-import { failuresSentence, versionCheckFailures, type ReportForChecks } from '../../shared/product/version-checks.ts';
+import { type RunningJobQueue,startJobQueue } from '../../server/jobs/job-queue.ts';
+import type { ReviewQueueItem, VerificationReport, VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { RobustnessRun } from '../../shared/contracts/robustness-run.ts';
+import { failuresSentence, type ReportForChecks,versionCheckFailures } from '../../shared/product/version-checks.ts';
 import { eventually } from '../support/eventually.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { PEOPLE, THREE_STEPS, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion,THREE_STEPS } from './maneuver-api.ts';
+
+// Response bodies as the web client reads them.
+type ItemsBody = { items: ReviewQueueItem[] };
 
 /** A report that passes every check (figures invented for the unit tests). */
 const passing: ReportForChecks = {
@@ -87,32 +92,32 @@ describe('POST …/submit', () => {
       primitives: THREE_STEPS, baseVersion: 0, target: { mode: 'ypr', yprDeg: { yaw: 180, pitch: 0, roll: 0 }, toleranceDeg: 2 },
     });
     expect(saved.status).toBe(201);
-    const id = saved.body.id as string;
-    const report = saved.body.report as VerificationReport;
+    const id = bodyOf<VersionDetail>(saved).id;
+    const report = bodyOf<VersionDetail>(saved).report as VerificationReport;
     expect(report.target.withinTolerance).toBe(false);
 
     const bare = await submit(id);
     expect(bare.status).toBe(409);
-    expect(bare.body.error.code).toBe('checks_failed');
-    expect(bare.body.error.field).toBe('acknowledgeFailures');
-    expect(bare.body.error.message).toContain(`misses its target by ${report.target.errorDeg.toFixed(1)}°`);
-    expect(bare.body.error.message).toMatch(/robustness is not computed yet/);
+    expect(apiError(bare).code).toBe('checks_failed');
+    expect(apiError(bare).field).toBe('acknowledgeFailures');
+    expect(apiError(bare).message).toContain(`misses its target by ${report.target.errorDeg.toFixed(1)}°`);
+    expect(apiError(bare).message).toMatch(/robustness is not computed yet/);
     expect((await submit(id, { note: 'please look' })).status).toBe(409);
     const noNote = await submit(id, { acknowledgeFailures: true, note: '   ' });
     expect(noNote.status).toBe(409);
-    expect(noNote.body.error.field).toBe('note');
+    expect(apiError(noNote).field).toBe('note');
     // Nothing moved on a refusal.
     const [still] = await t.ctx.db.select({ s: sequenceVersions.status }).from(sequenceVersions).where(eq(sequenceVersions.id, id));
     expect(still.s).toBe('drafting');
 
     const ok = await submit(id, { acknowledgeFailures: true, note: 'Target is a placeholder; judge the arm loops.' });
     expect(ok.status).toBe(200);
-    expect(ok.body.status).toBe('under_review');
+    expect(bodyOf<VersionDetail>(ok).status).toBe('under_review');
     const seen = await as(t, PEOPLE.reviewer).get(`/sequences/versions/${id}`);
-    expect(seen.body.submitNote).toBe('Target is a placeholder; judge the arm loops.');
-    expect(seen.body.acknowledgedFailures.map((f: { check: string }) => f.check)).toEqual(['target', 'robustness']);
+    expect(bodyOf<VersionDetail>(seen).submitNote).toBe('Target is a placeholder; judge the arm loops.');
+    expect(bodyOf<VersionDetail>(seen).acknowledgedFailures?.map((f) => f.check)).toEqual(['target', 'robustness']);
     const queue = await as(t, PEOPLE.reviewer).get('/reviews/queue');
-    const item = queue.body.items.find((i: { version: { id: string } }) => i.version.id === id);
+    const item = bodyOf<ItemsBody>(queue).items.find((i) => i.version.id === id)!;
     expect(item.version.acknowledgedFailures).toHaveLength(2);
     const audit = await t.ctx.db.select().from(auditEvents).where(eq(auditEvents.objectId, id));
     expect(audit.find((a) => a.action === 'sequence_version.submit')?.detail).toMatchObject({ acknowledgedFailures: ['target', 'robustness'] });
@@ -121,31 +126,31 @@ describe('POST …/submit', () => {
   it('a version on target goes only once its robustness run is done, then without a note', async () => {
     const sequenceId = await createSequence(t, crew, 'Guarded pass');
     const first = await saveVersion(t, sequenceId, 0);
-    const reached = (first.body.report as VerificationReport).final.yprDeg;
+    const reached = (bodyOf<VersionDetail>(first).report as VerificationReport).final.yprDeg;
     // The same steps for the attitude they reach: version 2 meets its own target.
     const second = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/versions`, {
-      primitives: first.body.primitives, baseVersion: 1, target: { mode: 'ypr', yprDeg: reached, toleranceDeg: 1 },
+      primitives: bodyOf<VersionDetail>(first).primitives, baseVersion: 1, target: { mode: 'ypr', yprDeg: reached, toleranceDeg: 1 },
     });
     expect(second.status).toBe(201);
-    const id = second.body.id as string;
-    expect(second.body.report.target.withinTolerance).toBe(true);
-    expect(second.body.report.peakJointRate.withinLimit).toBe(true);
-    expect(second.body.report.rangeViolations).toEqual([]);
+    const id = bodyOf<VersionDetail>(second).id;
+    expect(bodyOf<VersionDetail>(second).report!.target.withinTolerance).toBe(true);
+    expect(bodyOf<VersionDetail>(second).report!.peakJointRate.withinLimit).toBe(true);
+    expect(bodyOf<VersionDetail>(second).report!.rangeViolations).toEqual([]);
 
     // No worker yet: the run waits, and the submit says so and nothing else.
     const waiting = await submit(id);
     expect(waiting.status).toBe(409);
-    expect(waiting.body.error.message).toMatch(/^Version 2: Fails 1 check: its robustness is not computed yet \(run queued, 0 %\)\./);
+    expect(apiError(waiting).message).toMatch(/^Version 2: Fails 1 check: its robustness is not computed yet \(run queued, 0 %\)\./);
 
     jobs = await startJobQueue(t.ctx, { pollingIntervalS: 0.5, superviseS: 1 });
     t.ctx.jobs = jobs;
     await eventually(async () => {
       const r = await as(t, PEOPLE.planner).get(`/sequences/versions/${id}/robustness`);
-      return r.body?.state === 'done' ? true : undefined;
+      return bodyOf<RobustnessRun>(r).state === 'done' ? true : undefined;
     }, 90_000);
     const ok = await submit(id);
     expect(ok.status).toBe(200);
-    expect(ok.body.acknowledgedFailures).toBeNull();
-    expect(ok.body.submitNote).toBeNull();
+    expect(bodyOf<VersionDetail>(ok).acknowledgedFailures).toBeNull();
+    expect(bodyOf<VersionDetail>(ok).submitNote).toBeNull();
   }, 120_000);
 });

@@ -13,8 +13,14 @@ import { crewMembers, profileVersions, reverifications, sequenceVersions } from 
 import type { JobQueue } from '../../server/app-context.ts';
 import { appendProfileVersion } from '../../server/crew/append-profile-version.ts';
 import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
+import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { ProfileVersionView } from '../../shared/contracts/profile-version.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { PEOPLE, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
+
+// Response bodies as the web client reads them.
+type VersionBody = { version: ProfileVersionView };
 
 let t: TestApp;
 let crew: string;
@@ -28,7 +34,7 @@ afterAll(async () => {
 
 async function clearedVersion(name: string): Promise<string> {
   const sequenceId = await createSequence(t, crew, name);
-  const v = (await saveVersion(t, sequenceId, 0)).body.id as string;
+  const v = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
   expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${v}/submit`, { acknowledgeFailures: true, note: 're-check test: checks acknowledged' })).status).toBe(200);
   expect((await as(t, PEOPLE.reviewer).post(`/reviews/${v}/decision`, { decision: 'clear', comment: '' })).status).toBe(200);
   return v;
@@ -97,7 +103,7 @@ describe('re-check flags commit with the profile save', () => {
     const s = await stateOf(v);
     expect(s.status).toBe('recheck');
     expect(s.staleSince).not.toBeNull();
-    expect(s.records.map((r) => [r.state, r.toProfileVersionId])).toEqual([['queued', res.body.version.id]]);
+    expect(s.records.map((r) => [r.state, r.toProfileVersionId])).toEqual([['queued', bodyOf<VersionBody>(res).version.id]]);
 
     // The reconcile pass finds the record without a job (past its grace period) and sends it.
     await t.ctx.db.update(reverifications).set({ createdAt: new Date(Date.now() - 60_000) }).where(eq(reverifications.sequenceVersionId, v));
@@ -111,7 +117,7 @@ describe('re-check flags commit with the profile save', () => {
       },
     });
     expect(out.requeued).toBeGreaterThanOrEqual(1);
-    expect(sent).toContainEqual([[v], res.body.version.id]);
+    expect(sent).toContainEqual([[v], bodyOf<VersionBody>(res).version.id]);
   });
 
   it('the profile save\'s own transaction flags: nothing after its commit (listener, job) is needed', async () => {
@@ -136,7 +142,7 @@ describe('re-check flags commit with the profile save', () => {
     const s = await stateOf(v);
     expect(s.status).toBe('recheck');
     const [record] = await t.ctx.db.select().from(reverifications)
-      .where(and(eq(reverifications.sequenceVersionId, v), eq(reverifications.toProfileVersionId, res.body.version.id)));
+      .where(and(eq(reverifications.sequenceVersionId, v), eq(reverifications.toProfileVersionId, bodyOf<VersionBody>(res).version.id)));
     expect(record.state).toBe('queued');
   });
 });

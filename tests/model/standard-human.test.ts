@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 
 import { deriveBody, type DerivedBody, type DerivedSegment, ProfileInputError } from '../../server/model/derive-body.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
-import { symmetricEigen3 } from '../../shared/math/symmetric-eigen.ts';
 import { createBodyPose, forwardKinematics } from '../../shared/kinematics/forward-kinematics.ts';
+import { symmetricEigen3 } from '../../shared/math/symmetric-eigen.ts';
 import { SEGMENT_NAMES } from '../../shared/model/segment-names.ts';
 import { PEOPLE, who } from './people.ts';
 import { deLevaRow } from './reference-tables.ts';

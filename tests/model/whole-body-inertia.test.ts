@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 
+import { deriveBody } from '../../server/model/derive-body.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { createBodyPose, forwardKinematics } from '../../shared/kinematics/forward-kinematics.ts';
 import { ARMS_OVERHEAD_POSTURE, TUCKED_POSTURE } from '../../shared/model/reference-posture.ts';
 import { wholeBodyInertia } from '../../shared/model/whole-body.ts';
-import { deriveBody } from '../../server/model/derive-body.ts';
 
 // Outside reference: Santschi W.R., DuBois J., Omoto C. (1963) Moments of inertia and centers of
 // gravity of the living human body, AMRL-TDR-63-36: 66 men, eight positions; mean moments span about

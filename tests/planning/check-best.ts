@@ -12,12 +12,12 @@ import { compileMotion } from '../../server/engine/joint-motion.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
 import { planManeuver } from '../../server/planning/plan-maneuver.ts';
-import { sequenceTargetSchema, type SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { Body } from '../../shared/contracts/body.ts';
+import { type SequenceTarget,sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { planRequestSchema } from '../../shared/contracts/plan.ts';
+import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { primitiveListSchema } from '../../shared/primitives/primitive-schemas.ts';
 import { odexFinalAttitude } from '../engine/odex-reference.ts';
 

@@ -7,8 +7,8 @@
  */
 import { describe, expect, it } from 'vitest';
 
-import { DEMO_PROFILES } from '../../db/seed/seed-crew-profiles.ts';
 import { loadPlannedManeuvers } from '../../db/seed/planned-maneuvers.ts';
+import { DEMO_PROFILES } from '../../db/seed/seed-crew-profiles.ts';
 import { DEMO_SEQUENCES } from '../../db/seed/seed-maneuvers.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';

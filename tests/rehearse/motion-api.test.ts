@@ -3,13 +3,13 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { profileVersions, sequenceVersions } from '../../db/schema/index.ts';
+import { simulate } from '../../server/engine/simulate.ts';
+import { validateBody } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema, type VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { MotionResponse } from '../../shared/contracts/motion.ts';
-import { quatAngleBetween } from '../../shared/math/quaternion.ts';
-import { validateBody } from '../../shared/contracts/body.ts';
 import type { RehearsableVersion, Rehearsal } from '../../shared/contracts/rehearsal.ts';
 import { validateSequence } from '../../shared/contracts/sequence.ts';
-import { simulate } from '../../server/engine/simulate.ts';
+import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import { defaultPrimitive } from '../../shared/primitives/primitive-schemas.ts';

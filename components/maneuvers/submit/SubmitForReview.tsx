@@ -11,6 +11,7 @@ import { Text } from '@/components/ui/Text';
 import { TextField } from '@/components/ui/TextField';
 import type { VersionDetail } from '@/shared/contracts/maneuver';
 import type { CheckFailure } from '@/shared/product/version-checks';
+
 import type { VersionChecks } from './use-version-checks';
 import { VersionKeyFigures } from './VersionKeyFigures';
 

@@ -1,5 +1,5 @@
 import { fmtDeg, fmtRate, fmtSeconds } from '@/components/maneuvers/report/format';
-import { StatGrid, type Stat } from '@/components/maneuvers/report/StatGrid';
+import { type Stat,StatGrid } from '@/components/maneuvers/report/StatGrid';
 import type { VerificationReport } from '@/shared/contracts/maneuver';
 import type { RobustnessRun } from '@/shared/contracts/robustness-run';
 

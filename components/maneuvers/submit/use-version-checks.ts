@@ -1,7 +1,7 @@
 import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import type { VersionDetail } from '@/shared/contracts/maneuver';
 import type { RobustnessRun } from '@/shared/contracts/robustness-run';
-import { versionCheckFailures, type CheckFailure } from '@/shared/product/version-checks';
+import { type CheckFailure,versionCheckFailures } from '@/shared/product/version-checks';
 
 /** The checks of a version as the server applies them at submit (its report and its newest robustness run). */
 export interface VersionChecks {
