@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, reverifications } from '../../db/schema/index.ts';
 import { reverifyVersion } from '../../server/jobs/reverify-version.ts';
-import type { ReverificationProgress , VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { ReverificationProgress, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
