@@ -1,6 +1,12 @@
-import { expect, test, type APIRequestContext } from '@playwright/test';
+import { type APIRequestContext,expect, test } from '@playwright/test';
 
+import type { SignInResponse } from '../shared/contracts/auth.ts';
+import type { CrewMemberView } from '../shared/contracts/crew.ts';
+import type { SequenceSummary, VersionDetail } from '../shared/contracts/maneuver.ts';
+import type { MotionResponse } from '../shared/contracts/motion.ts';
+import type { Rehearsal } from '../shared/contracts/rehearsal.ts';
 import { DEMO_BY_ROLE, DEMO_PASSWORD } from './support/demo-accounts.ts';
+import { jsonOf } from './support/response-json.ts';
 import { signIn } from './support/sign-in.ts';
 
 const TRAINEE = 'tamsin.reed@lumen.example.test';
@@ -11,7 +17,7 @@ const RATE_HZ = 50;
 async function bearer(request: APIRequestContext, email: string): Promise<Record<string, string>> {
   const res = await request.post('/api/auth/sign-in', { data: { email, password: DEMO_PASSWORD }, headers: { Origin: `http://127.0.0.1:${process.env.E2E_PORT}` } });
   expect(res.status()).toBe(200);
-  return { Authorization: `Bearer ${(await res.json()).token as string}` };
+  return { Authorization: `Bearer ${(await jsonOf<SignInResponse>(res)).token}` };
 }
 
 /**
@@ -23,30 +29,31 @@ async function rehearsalWithRecording(request: APIRequestContext): Promise<{ seq
   const planner = await bearer(request, DEMO_BY_ROLE.planner.email);
   const reviewer = await bearer(request, DEMO_BY_ROLE.reviewer.email);
   const trainee = await bearer(request, TRAINEE);
-  const crew = await (await request.get('/api/crew', { headers: planner })).json();
-  const reed = crew.members.find((m: { name: string }) => m.name === 'Tamsin Reed');
+  const crew = await jsonOf<{ members: CrewMemberView[] }>(await request.get('/api/crew', { headers: planner }));
+  const reed = crew.members.find((m) => m.name === 'Tamsin Reed');
+  if (!reed) throw new Error('the demo crew has no Tamsin Reed');
   const seq = await request.post('/api/sequences', {
     headers: planner,
     data: { crewMemberId: reed.id, name: `E2E captured arm orbit ${Date.now()}`, target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: -8, roll: 0 } } },
   });
   expect(seq.status()).toBe(201);
-  const sequenceId = (await seq.json()).id as string;
+  const sequenceId = (await jsonOf<SequenceSummary>(seq)).id;
   const version = await request.post(`/api/sequences/${sequenceId}/versions`, {
     headers: planner,
     data: { baseVersion: 0, primitives: [{ kind: 'arm_orbit', arms: 'both', centre: 'forward', halfAngleDeg: 25, travel: 'outward', cycles: 3, periodS: 1.5 }, { kind: 'pause', durationS: 1 }] },
   });
   expect(version.status(), await version.text()).toBe(201);
-  const versionId = (await version.json()).id as string;
+  const versionId = (await jsonOf<VersionDetail>(version)).id;
   expect((await request.post(`/api/sequences/versions/${versionId}/submit`, { headers: planner, data: { acknowledgeFailures: true, note: 'E2E capture' } })).status()).toBeLessThan(300);
   expect((await request.post(`/api/reviews/${versionId}/decision`, { headers: reviewer, data: { decision: 'clear' } })).status()).toBeLessThan(300);
   const logged = await request.post('/api/rehearsals', {
     headers: trainee, data: { sequenceVersionId: versionId, playbackSpeed: 1, completedSteps: 2, selfRating: 3, notes: 'Wore the sleeve sensors.' },
   });
   expect(logged.status(), await logged.text()).toBe(201);
-  const rehearsalId = (await logged.json()).rehearsal.id as string;
+  const rehearsalId = (await jsonOf<{ rehearsal: Rehearsal }>(logged)).rehearsal.id;
 
-  const motion = await (await request.get(`/api/motion/${versionId}?rate=${RATE_HZ}`, { headers: trainee })).json();
-  const { dofs, frames } = motion.samples as { dofs: string[]; frames: { t: number; jointsDeg: number[] }[] };
+  const motion = await jsonOf<MotionResponse>(await request.get(`/api/motion/${versionId}?rate=${RATE_HZ}`, { headers: trainee }));
+  const { dofs, frames } = motion.samples;
   const moving = dofs.map((d, j) => ({ d, j })).filter(({ j }) => {
     const v = frames.map((f) => f.jointsDeg[j]);
     return Math.max(...v) - Math.min(...v) > 1;

@@ -2,6 +2,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { CreateCrewMemberInput, CrewMemberView, SaveProfileInput } from '@/shared/contracts/crew';
 import type { ProfileComparison, ProfileVersionHeader, ProfileVersionView, SaveProfileResponse } from '@/shared/contracts/profile-version';
+
 import { apiFetch, apiUrl } from './client';
 
 /** Query keys of the Crew area. */

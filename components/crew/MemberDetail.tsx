@@ -11,6 +11,7 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { SegmentedControl, type SegmentOption } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
+import type { StaleVersion } from '@/shared/contracts/profile-version';
 
 import { downloadUrl } from './download-file';
 import { MemberArchive } from './MemberArchive';
@@ -18,7 +19,6 @@ import { ProfileEditor } from './ProfileEditor';
 import { ProfileOverview } from './ProfileOverview';
 import { ReverificationProgressCard } from './ReverificationProgressCard';
 import { StaleAfterSave } from './StaleAfterSave';
-import type { StaleVersion } from '@/shared/contracts/profile-version';
 import { VersionHistory } from './VersionHistory';
 
 /** The sections of a member page. */

@@ -15,11 +15,12 @@ import { LoadingState } from '@/components/ui/LoadingState';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
-import type { ProfileVersionView, StaleVersion } from '@/shared/contracts/profile-version';
 import type { SuitView } from '@/shared/contracts/crew';
+import type { ProfileVersionView, StaleVersion } from '@/shared/contracts/profile-version';
+
 import { GearFields } from './GearFields';
 import { NumberField } from './NumberField';
-import { formValuesFrom, LENGTH_FIELDS, profileFormSchema, type ProfileFormOutput, type ProfileFormValues } from './profile-form';
+import { formValuesFrom, LENGTH_FIELDS, type ProfileFormOutput, profileFormSchema, type ProfileFormValues } from './profile-form';
 
 /** Props of {@link ProfileEditor}. */
 export interface ProfileEditorProps {

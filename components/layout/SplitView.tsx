@@ -1,8 +1,8 @@
 import type { ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 
-import { colors, layout, radii, spacing } from '@/components/theme';
 import { useCollapseOnScroll } from '@/components/shell/header-collapse';
+import { colors, layout, radii, spacing } from '@/components/theme';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 

@@ -17,6 +17,7 @@ import { Text } from '@/components/ui/Text';
 import { TextField } from '@/components/ui/TextField';
 import type { SequenceDetail, VersionDetail } from '@/shared/contracts/maneuver';
 import { defaultPrimitive, type Primitive } from '@/shared/primitives/primitive-schemas';
+
 import { CompiledSteps } from './composer/CompiledSteps';
 import { StepEditor } from './composer/StepEditor';
 import { StepEditorSheet } from './composer/StepEditorSheet';

@@ -6,10 +6,11 @@ import { Text } from '@/components/ui/Text';
 import type { VersionDetail } from '@/shared/contracts/maneuver';
 import { recheckMessage } from '@/shared/product/recheck-status';
 import type { CheckFailure } from '@/shared/product/version-checks';
+
 import { CueCardButton } from './CueCardButton';
+import { fmtWhen } from './report/format';
 import { FailureList } from './submit/SubmitForReview';
 import { useVersionChecks } from './submit/use-version-checks';
-import { fmtWhen } from './report/format';
 
 /** Props of {@link VersionStatusNotice}. */
 export interface VersionStatusNoticeProps {

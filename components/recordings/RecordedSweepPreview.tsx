@@ -7,8 +7,8 @@ import { DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
-import { trimmedFrameRange, type RecordedSweep } from '@/shared/primitives/primitive-schemas';
-import { channelMargins, type ChannelMargin } from '@/shared/primitives/recorded-channels';
+import { type RecordedSweep,trimmedFrameRange } from '@/shared/primitives/primitive-schemas';
+import { type ChannelMargin,channelMargins } from '@/shared/primitives/recorded-channels';
 
 /** Props of {@link RecordedSweepPreview}. */
 export interface RecordedSweepPreviewProps {

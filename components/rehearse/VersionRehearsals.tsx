@@ -5,6 +5,7 @@ import { useSessionQuery } from '@/components/api/use-session';
 import { spacing } from '@/components/theme';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
+
 import { RehearsalHistory } from './RehearsalHistory';
 
 /** Props of {@link VersionRehearsals}. */

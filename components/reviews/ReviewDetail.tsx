@@ -16,8 +16,8 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Text } from '@/components/ui/Text';
 
-import { ReviewDecisionPanel } from './ReviewDecisionPanel';
 import { RecheckChanges } from './RecheckChanges';
+import { ReviewDecisionPanel } from './ReviewDecisionPanel';
 import { ReviewHistory } from './ReviewHistory';
 
 /** Props of {@link ReviewDetail}. */

@@ -1,5 +1,5 @@
 import { usePathname } from 'expo-router';
-import { createContext, useCallback, useContext, useMemo, useRef, useState, type ReactNode } from 'react';
+import { createContext, type ReactNode,useCallback, useContext, useMemo, useRef, useState } from 'react';
 import type { NativeScrollEvent, NativeSyntheticEvent } from 'react-native';
 
 /** Scrolled this far down, the phone header folds away; scrolling back up this far (or to the top) brings it back. */

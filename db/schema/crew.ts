@@ -3,7 +3,6 @@ import { boolean, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 
 import type { Body } from '../../shared/contracts/body.ts';
 import type { ProfileSummary, StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
 import type { SuitConfig } from '../../shared/contracts/suit.ts';
-
 import { users } from './users.ts';
 
 /** A person an inertia profile describes. `currentVersion` names the current profile version. */

@@ -2,7 +2,6 @@ import { doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'd
 
 import type { SequenceTargetInput } from '../../shared/contracts/maneuver.ts';
 import type { PlanCandidate, PlanSettings } from '../../shared/contracts/plan.ts';
-
 import { profileVersions } from './crew.ts';
 import { sequences } from './sequences.ts';
 import { users } from './users.ts';

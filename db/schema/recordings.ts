@@ -1,7 +1,6 @@
 import { doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 import type { BvhMapping } from '../../shared/contracts/recording.ts';
-
 import { crewMembers } from './crew.ts';
 import { uploads } from './uploads.ts';
 import { users } from './users.ts';

@@ -1,7 +1,6 @@
 import { doublePrecision, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 import type { RehearsalCapture } from '../../shared/contracts/recording.ts';
-
 import { rehearsals } from './sequences.ts';
 import { uploads } from './uploads.ts';
 import { users } from './users.ts';

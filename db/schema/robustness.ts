@@ -1,7 +1,6 @@
 import { bigint, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 import type { RobustnessModel } from '../../shared/contracts/robustness.ts';
-
 import { plans } from './plans.ts';
 import { sequenceVersions } from './sequences.ts';
 import { users } from './users.ts';

@@ -1,7 +1,6 @@
 import { integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 import type { UploadRowError } from '../../shared/contracts/uploads.ts';
-
 import { users } from './users.ts';
 
 /** A stored file: the raw bytes live in object storage under `objectKey`; parsed rows below. */

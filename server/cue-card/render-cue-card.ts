@@ -6,9 +6,9 @@
  */
 import PDFDocument from 'pdfkit';
 
+import type { CueCardContent } from './cue-card-content.ts';
 import { drawAttitudePlot, drawPictogram } from './cue-card-figures.ts';
 import { cueCardFonts } from './cue-card-fonts.ts';
-import type { CueCardContent } from './cue-card-content.ts';
 
 /** Options of {@link renderCueCard}. */
 export interface RenderCueCardOptions {

@@ -9,7 +9,7 @@
 import { and, eq } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, profileVersions, reverifications, sequences, sequenceVersions, users, type ProfileVersionRow, type SequenceVersionRow } from '../../db/schema/index.ts';
+import { crewMembers, type ProfileVersionRow, profileVersions, reverifications, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
 import type { VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';

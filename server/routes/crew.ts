@@ -5,6 +5,7 @@ import { crewMembers } from '../../db/schema/index.ts';
 import {
   createCrewMemberRequestSchema, crewListQuerySchema, saveProfileRequestSchema,
 } from '../../shared/contracts/crew.ts';
+import type { SaveProfileResponse } from '../../shared/contracts/profile-version.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { appendProfileVersion } from '../crew/append-profile-version.ts';
@@ -19,7 +20,6 @@ import { ReadCache, sendCachedJson } from '../http/read-cache.ts';
 import { validate } from '../http/validate.ts';
 import { cancelReverifications, reverificationProgress } from '../jobs/reverification-progress.ts';
 import { sendRecheckJobs, staleVersionsOf } from '../maneuvers/flag-recheck.ts';
-import type { SaveProfileResponse } from '../../shared/contracts/profile-version.ts';
 
 const idParams = z.object({ id: z.string().uuid('Not a valid crew member id.') });
 const versionParams = idParams.extend({ version: z.coerce.number().int('Not a version number.').min(1, 'Versions start at 1.') });

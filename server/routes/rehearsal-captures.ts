@@ -62,7 +62,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
       .orderBy(desc(rehearsals.performedAt)).limit(200);
     const mean = (xs: number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
     const points: CaptureTrendPoint[] = rows.map(({ c, r, name, version }) => {
-      const cap = c.capture as Omit<RehearsalCapture, 'signedOff'>;
+      const cap = c.capture;
       return {
         rehearsalId: r.id, performedAt: r.performedAt.toISOString(), sequenceName: name, version,
         errorToTargetDeg: cap.outcomes.find((o) => o.role === 'plan')?.errorToTargetDeg ?? NaN,

@@ -7,9 +7,9 @@ import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, forbidden } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
+import { recheckInfos } from '../maneuvers/recheck-info.ts';
 import { compiledDuration, stepListCount } from '../motion/compiled-sequence.ts';
 import { targetLabel } from '../motion/target-attitude.ts';
-import { recheckInfos } from '../maneuvers/recheck-info.ts';
 import { loadVersionFor } from '../motion/version-access.ts';
 import { mountRehearsalCaptures } from './rehearsal-captures.ts';
 

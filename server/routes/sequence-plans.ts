@@ -10,11 +10,11 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
-import { plans, sequences, type PlanRow } from '../../db/schema/index.ts';
+import { type PlanRow,plans, sequences } from '../../db/schema/index.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import {
-  planListQuerySchema, planRequestSchema, type Plan, type PlanCreated, type PlanList,
-} from '../../shared/contracts/plan.ts';
+type Plan, type PlanCreated, type PlanList,
+  planListQuerySchema, planRequestSchema, } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { conflict, forbidden, notFound } from '../http/http-error.ts';

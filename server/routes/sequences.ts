@@ -8,34 +8,33 @@ import { Router } from 'express';
 import { z } from 'zod';
 
 import { crewMembers, sequences, sequenceVersions } from '../../db/schema/index.ts';
+import type { SessionUser } from '../../shared/contracts/auth.ts';
 import {
-  compileRequestSchema, createSequenceRequestSchema, saveVersionRequestSchema, submitRequestSchema, updateSequenceRequestSchema,
-  type CompileResponse, type SequenceDetail, type SequenceListItem, type SequenceSummary, type VersionSummary,
+  compileRequestSchema,   type CompileResponse, createSequenceRequestSchema, saveVersionRequestSchema, type SequenceDetail, type SequenceListItem, type SequenceSummary, submitRequestSchema, updateSequenceRequestSchema,
+type VersionSummary,
 } from '../../shared/contracts/maneuver.ts';
+import { DOF_NAMES } from '../../shared/model/dof-names.ts';
 import { compilePrimitives, type DofInfo, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
-import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
-import { DOF_NAMES } from '../../shared/model/dof-names.ts';
-import type { Body } from '../../shared/contracts/body.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { readableMember } from '../crew/crew-access.ts';
 import { badRequest, notFound } from '../http/http-error.ts';
 import { ReadCache, sendCachedJson } from '../http/read-cache.ts';
 import { validate } from '../http/validate.ts';
-import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
-import { compareVersions } from '../maneuvers/compare-versions.ts';
-import { cueCardRouter } from './cue-card.ts';
-import { sequenceArchiveRouter } from './sequence-archive.ts';
-import { robustnessRouter } from './robustness.ts';
 import { queueRobustnessAfterSave } from '../jobs/robustness/version-robustness.ts';
-import { sequencePlansRouter } from './sequence-plans.ts';
+import { compareVersions } from '../maneuvers/compare-versions.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
 import { requireAuthor, visibleSequences, visibleVersions } from '../maneuvers/maneuver-access.ts';
 import { updateSequence } from '../maneuvers/update-sequence.ts';
 import { saveVersion, submitVersion } from '../maneuvers/version-actions.ts';
 import { loadVersionDetail } from '../maneuvers/version-detail.ts';
 import { allOf, sequenceHeads, sequenceListRows, versionSummaries } from '../maneuvers/version-views.ts';
+import { UNSUITED_DOF_RANGES } from '../model/data/joint-ranges-unsuited.ts';
+import { cueCardRouter } from './cue-card.ts';
+import { robustnessRouter } from './robustness.ts';
+import { sequenceArchiveRouter } from './sequence-archive.ts';
+import { sequencePlansRouter } from './sequence-plans.ts';
 
 const uuid = z.uuid('Not a valid id.');
 const sequenceParams = z.object({ sequenceId: uuid });
@@ -69,7 +68,7 @@ export function sequencesRouter(ctx: AppContext): Router {
   const reads = new ReadCache();
 
   /** The list's rows (heads, version counts, briefs of the newest and rehearsable versions) in one query, by name. */
-  function listRows(user: Express.Request['user'] & object, sequenceIds?: string[], crewMemberId?: string, archived?: boolean) {
+  function listRows(user: SessionUser, sequenceIds?: string[], crewMemberId?: string, archived?: boolean) {
     return sequenceListRows(db, allOf(
       visibleSequences(user),
       crewMemberId ? eq(sequences.crewMemberId, crewMemberId) : undefined,
@@ -79,7 +78,7 @@ export function sequencesRouter(ctx: AppContext): Router {
   }
 
   /** GET /sequences: the lean list, one query (a trainee sees only sequences with something to rehearse). */
-  async function listItems(user: Express.Request['user'] & object, crewMemberId?: string, archived?: boolean): Promise<SequenceListItem[]> {
+  async function listItems(user: SessionUser, crewMemberId?: string, archived?: boolean): Promise<SequenceListItem[]> {
     const rows = await listRows(user, undefined, crewMemberId, archived);
     const out = rows.map((r) => ({ ...r.head, versionCount: r.versionCount, latest: r.latest, cleared: r.cleared }));
     return user.role === 'trainee' ? out.filter((s) => s.versionCount > 0) : out;
@@ -89,7 +88,7 @@ export function sequencesRouter(ctx: AppContext): Router {
    * Full sequence summaries (what creating or renaming one answers): the list's query, then one for
    * the full summaries of its newest and rehearsable versions.
    */
-  async function summaries(user: Express.Request['user'] & object, sequenceIds?: string[]): Promise<SequenceSummary[]> {
+  async function summaries(user: SessionUser, sequenceIds?: string[]): Promise<SequenceSummary[]> {
     const rows = await listRows(user, sequenceIds);
     const ids = [...new Set(rows.flatMap((r) => [r.latest?.id, r.cleared?.id]).filter((id) => id !== undefined))];
     const versions = ids.length ? (await versionSummaries(db, inArray(sequenceVersions.id, ids))).summaries : [];
@@ -103,7 +102,7 @@ export function sequencesRouter(ctx: AppContext): Router {
   }
 
   /** One sequence with every version the user may see, newest first; 404 when hidden or missing. */
-  async function detail(user: Express.Request['user'] & object, sequenceId: string): Promise<SequenceDetail> {
+  async function detail(user: SessionUser, sequenceId: string): Promise<SequenceDetail> {
     const [head] = await sequenceHeads(db, allOf(visibleSequences(user), eq(sequences.id, sequenceId)));
     if (!head) throw notFound('Sequence');
     const { summaries: versions } = await versionSummaries(db, allOf(visibleVersions(user), eq(sequenceVersions.sequenceId, sequenceId)));
@@ -112,14 +111,14 @@ export function sequencesRouter(ctx: AppContext): Router {
   }
 
   router.get('/', validate({ query: listQuery }), async (req, res) => {
-    const { crewMemberId, archived } = res.locals.query as z.infer<typeof listQuery>;
+    const { crewMemberId, archived } = res.locals.query;
     await sendCachedJson(reads, req, res, async () => ({ sequences: await listItems(req.user!, crewMemberId, archived) }));
   });
 
   router.post('/', validate({ body: createSequenceRequestSchema }), async (req, res) => {
     const user = req.user!;
     requireAuthor(user);
-    const input = req.body as z.infer<typeof createSequenceRequestSchema>;
+    const input = req.body;
     const [member] = await db.select({ id: crewMembers.id, name: crewMembers.name, archivedAt: crewMembers.archivedAt }).from(crewMembers).where(eq(crewMembers.id, input.crewMemberId));
     if (!member) throw badRequest('crewMemberId: no such crew member.', 'crewMemberId');
     if (member.archivedAt) throw badRequest(`crewMemberId: ${member.name} is archived; restore them on Crew first.`, 'crewMemberId');
@@ -133,11 +132,11 @@ export function sequencesRouter(ctx: AppContext): Router {
   });
 
   router.post('/compile', validate({ body: compileRequestSchema }), async (req, res) => {
-    const input = req.body as z.infer<typeof compileRequestSchema>;
+    const input = req.body;
     // Compiling against a member's profile reads that profile: the same rule as reading it (a trainee only their own).
     if (input.crewMemberId) await readableMember(db, req.user!, input.crewMemberId);
-    const dofs = input.crewMemberId ? dofInfoFromBody((await currentProfile(db, input.crewMemberId)).body as Body) : STANDARD_DOFS;
-    const primitives = input.primitives as Primitive[];
+    const dofs = input.crewMemberId ? dofInfoFromBody((await currentProfile(db, input.crewMemberId)).body) : STANDARD_DOFS;
+    const primitives = input.primitives;
     const c = compilePrimitives(primitives, dofs);
     const out: CompileResponse = { compiled: c.sequence, stepMap: c.stepMap, cues: primitives.map(cueFor), durationS: c.durationS, errors: c.errors, warnings: c.warnings,
       ranges: Object.fromEntries(dofs.map((d) => [d.name, { min: d.min, max: d.max }])),
@@ -146,18 +145,18 @@ export function sequencesRouter(ctx: AppContext): Router {
   });
 
   router.get('/versions/:versionId', validate({ params: versionParams }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
+    const { versionId } = res.locals.params;
     await sendCachedJson(reads, req, res, () => loadVersionDetail(db, req.user!, versionId));
   });
 
   router.post('/versions/:versionId/submit', validate({ params: versionParams, body: submitRequestSchema }), async (req, res) => {
-    const { versionId } = res.locals.params as z.infer<typeof versionParams>;
-    await submitVersion(ctx, req.user!, versionId, req.body as z.infer<typeof submitRequestSchema>);
+    const { versionId } = res.locals.params;
+    await submitVersion(ctx, req.user!, versionId, req.body);
     res.json(await loadVersionDetail(db, req.user!, versionId));
   });
 
   router.get('/versions/:versionId/compare/:otherVersionId', validate({ params: compareParams }), async (req, res) => {
-    const { versionId, otherVersionId } = res.locals.params as z.infer<typeof compareParams>;
+    const { versionId, otherVersionId } = res.locals.params;
     const a = await loadVersionDetail(db, req.user!, versionId);
     const b = await loadVersionDetail(db, req.user!, otherVersionId);
     res.json(compareVersions(a, b));
@@ -169,23 +168,23 @@ export function sequencesRouter(ctx: AppContext): Router {
   router.use('/:sequenceId/plans', sequencePlansRouter(ctx));
 
   router.get('/:sequenceId', validate({ params: sequenceParams }), async (req, res) => {
-    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
+    const { sequenceId } = res.locals.params;
     await sendCachedJson(reads, req, res, () => detail(req.user!, sequenceId));
   });
 
   router.patch('/:sequenceId', validate({ params: sequenceParams, body: updateSequenceRequestSchema }), async (req, res) => {
     const user = req.user!;
     requireAuthor(user);
-    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
-    await updateSequence(ctx, user, sequenceId, req.body as z.infer<typeof updateSequenceRequestSchema>);
+    const { sequenceId } = res.locals.params;
+    await updateSequence(ctx, user, sequenceId, req.body);
     const [summary] = await summaries(user, [sequenceId]);
     res.json(summary);
   });
 
   router.post('/:sequenceId/versions', validate({ params: sequenceParams, body: saveVersionRequestSchema }), async (req, res) => {
-    const { sequenceId } = res.locals.params as z.infer<typeof sequenceParams>;
-    const input = req.body as z.infer<typeof saveVersionRequestSchema>;
-    const id = await saveVersion(ctx, req.user!, sequenceId, { primitives: input.primitives as Primitive[], baseVersion: input.baseVersion, note: input.note, target: input.target });
+    const { sequenceId } = res.locals.params;
+    const input = req.body;
+    const id = await saveVersion(ctx, req.user!, sequenceId, { primitives: input.primitives, baseVersion: input.baseVersion, note: input.note, target: input.target });
     await queueRobustnessAfterSave(ctx, id, req.user!.id);
     res.status(201).json(await loadVersionDetail(db, req.user!, id));
   });

@@ -116,7 +116,7 @@ export function uploadsRouter(ctx: AppContext): Router {
     const measured = isJson ? measuredBodyFromJson(file.text) : measuredBodyFromCsv(file.text, current!.version.body);
     if (measured.errors.length || !measured.body) return rejectUpload(ctx, res, file, measured.rows.length, measured.errors, me.id);
 
-    const previous = (current?.version.inputs ?? {}) as StoredProfileInputs;
+    const previous = (current?.version.inputs ?? {});
     const inputs: StoredProfileInputs = { ...previous, measuredTable: { uploadId: file.id, fileName: file.fileName, segments: measured.segments } };
     const body = { ...measured.body, name: measured.body.name || member.name };
     let result;

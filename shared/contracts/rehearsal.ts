@@ -5,9 +5,8 @@
 import { z } from 'zod';
 
 import type { RecheckInfo } from '../product/recheck-status.ts';
-import type { VersionStatus } from './version-status.ts';
-
 import { PLAYBACK_SPEED_RANGE, PLAYBACK_SPEEDS } from './playback-speeds.ts';
+import type { VersionStatus } from './version-status.ts';
 
 export { PLAYBACK_SPEED_RANGE, PLAYBACK_SPEEDS };
 

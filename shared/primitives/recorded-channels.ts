@@ -3,7 +3,7 @@
  * dof, e.g. waist flexion), and how close each kept channel comes to its joint's range limits over
  * the trimmed frames. Used when a recording becomes a composer step and to plot it there.
  */
-import { trimmedFrameRange, type RecordedSweep } from './primitive-schemas.ts';
+import { type RecordedSweep,trimmedFrameRange } from './primitive-schemas.ts';
 
 /** A joint's allowed range, degrees. */
 export interface ChannelRange {

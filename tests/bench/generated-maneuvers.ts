@@ -7,15 +7,15 @@
 import { and, eq } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, profileVersions, reviews, sequences, sequenceVersions, users, type ProfileVersionRow } from '../../db/schema/index.ts';
+import { crewMembers, type ProfileVersionRow,profileVersions, reviews, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
+import type { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
+import type { StoredCompiled } from '../../server/maneuvers/stored-compiled.ts';
+import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
 import { sequenceTargetSchema, type VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
-import type { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
-import type { StoredCompiled } from '../../server/maneuvers/stored-compiled.ts';
-import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
 
 /** Step lists the generator cycles through (cycle counts vary per maneuver). */
 const FAMILIES: ((cycles: number) => Primitive[])[] = [
@@ -71,7 +71,7 @@ export async function addGeneratedManeuvers(db: Database, count: number, pool: S
         computed = {
           report,
           compiled: {
-            sequence: c.sequence as StoredCompiled['sequence'],
+            sequence: c.sequence,
             cues: c.stepMap.map((s) => (s.role === 'blend' ? 'get ready: ' : '') + cueFor(primitives[s.primitive])),
             stepMap: c.stepMap,
           },

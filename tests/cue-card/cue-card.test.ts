@@ -12,12 +12,12 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, profileVersions, sequences, sequenceVersions } from '../../db/schema/index.ts';
-import { bodySchema } from '../../shared/contracts/body.ts';
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { cueCardContent } from '../../server/cue-card/cue-card-content.ts';
 import { cueCardFileName } from '../../server/cue-card/cue-card-file-name.ts';
 import { loadVersionDetail } from '../../server/maneuvers/version-detail.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
+import { bodySchema } from '../../shared/contracts/body.ts';
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import { apiError } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';

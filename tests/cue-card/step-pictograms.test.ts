@@ -14,7 +14,7 @@ import type { Body } from '../../shared/contracts/body.ts';
 import type { VerificationReport } from '../../shared/contracts/maneuver.ts';
 
 const body: Body = deriveProfile(
-  { sex: 'female', stature: 1.68, mass: 61, lengths: {}, gear: [] } as Parameters<typeof deriveProfile>[0],
+  { sex: 'female', stature: 1.68, mass: 61, lengths: {}, gear: [] },
   BUILT_IN_SUITS.find((s) => s.id === 'cabin-clothing') ?? null,
   'pictogram test',
 ).body;
@@ -36,7 +36,7 @@ describe('step pictograms', () => {
     expect(pic.poses).toHaveLength(2);
     // The upper arm line: from the shoulder joint to the elbow joint; its length is |origin| of the forearm segment.
     const forearm = body.segments.find((s) => s.parent === body.segments.find((p) => p.joint?.dofs.some((d) => d.name === 'r_sh_flex'))!.name)!;
-    const upperArmLength = Math.hypot(...(forearm.joint!.origin as [number, number, number]));
+    const upperArmLength = Math.hypot(...(forearm.joint!.origin));
     const matches = (pose: number[][]) => pose.filter((l) => Math.abs(length(l) - upperArmLength) < 1e-9);
     // In the side view (x ahead, z up): hanging, the elbow is straight below the shoulder; flexed 90°, straight ahead of it.
     const hanging = matches(pic.poses[0]).find((l) => Math.abs(l[0] - l[2]) < 0.02 && l[3] < l[1]);
@@ -49,7 +49,7 @@ describe('step pictograms', () => {
     // A line (dx, dy, dz) is (dy, dz) from the front, (dx, dz) from the side and (dy, dx) from above: the squares sum to twice its 3-D length squared.
     const angles = { l_hip_flex: 60, r_sh_flex: 120, r_sh_abd: 30, l_elbow_flex: 90, waist_flex: 20 };
     const [front, side, above] = (['front', 'side', 'above'] as const).map((v) => projectedFigure(body, angles, v));
-    const offsets = body.segments.filter((s) => s.parent !== undefined).map((s) => Math.hypot(...(s.joint!.origin as [number, number, number])));
+    const offsets = body.segments.filter((s) => s.parent !== undefined).map((s) => Math.hypot(...(s.joint!.origin)));
     expect(offsets.length).toBeGreaterThan(10);
     offsets.forEach((o, i) => {
       const sumSq = length(front[i]) ** 2 + length(side[i]) ** 2 + length(above[i]) ** 2;

@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { summarizeReport } from '../../server/maneuvers/build-report.ts';
-import { sequenceListItemSchema, type SequenceDetail, type SequenceListItem, type VerificationReport, type VersionSummary } from '../../shared/contracts/maneuver.ts';
+import { type SequenceDetail, type SequenceListItem, sequenceListItemSchema, type VerificationReport, type VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { as, PEOPLE } from './maneuver-api.ts';
@@ -69,15 +69,15 @@ describe('sequence list', () => {
   });
 
   it('a cached list shows a write made on another connection (as a job worker would) at the next read', async () => {
-    const first = (await as(t, PEOPLE.planner).get('/sequences')).body.sequences as SequenceListItem[];
+    const first = bodyOf<SequencesBody>(await as(t, PEOPLE.planner).get('/sequences')).sequences;
     const again = await as(t, PEOPLE.planner).get('/sequences');
-    expect(again.body.sequences).toEqual(first);
+    expect(bodyOf<SequencesBody>(again).sequences).toEqual(first);
     const target = first[0];
     await t.pool.query('UPDATE sequences SET name = $1 WHERE id = $2', [`${target.name} (renamed elsewhere)`, target.id]);
-    const after = (await as(t, PEOPLE.planner).get('/sequences')).body.sequences as SequenceListItem[];
+    const after = bodyOf<SequencesBody>(await as(t, PEOPLE.planner).get('/sequences')).sequences;
     expect(after.find((s) => s.id === target.id)?.name).toBe(`${target.name} (renamed elsewhere)`);
     await t.ctx.db.update(sequences).set({ name: target.name }).where(eq(sequences.id, target.id));
-    const restored = (await as(t, PEOPLE.planner).get('/sequences')).body.sequences as SequenceListItem[];
+    const restored = bodyOf<SequencesBody>(await as(t, PEOPLE.planner).get('/sequences')).sequences;
     expect(restored.find((s) => s.id === target.id)?.name).toBe(target.name);
   });
 });

@@ -8,13 +8,15 @@ import { and, desc, eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, reverifications, sequenceVersions } from '../../db/schema/index.ts';
-import { startJobQueue, type RunningJobQueue } from '../../server/jobs/job-queue.ts';
-import type { RehearsableVersion } from '../../shared/contracts/rehearsal.ts';
+import { type RunningJobQueue,startJobQueue } from '../../server/jobs/job-queue.ts';
+import type { ReviewQueueItem, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { SaveProfileResponse } from '../../shared/contracts/profile-version.ts';
-import { recheckMessage, type RecheckInfo } from '../../shared/product/recheck-status.ts';
+import type { RehearsableVersion } from '../../shared/contracts/rehearsal.ts';
+import { type RecheckInfo,recheckMessage } from '../../shared/product/recheck-status.ts';
 import { eventually } from '../support/eventually.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { PEOPLE, as, createSequence, crewOf, saveVersion } from './maneuver-api.ts';
+import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
 
 describe('what the trainee reads (pure)', () => {
   const base: RecheckInfo = { staleSince: '2031-03-03T10:00:00Z', reverification: { state: 'queued', attitudeShiftDeg: null, error: null }, successor: null };
@@ -47,7 +49,7 @@ afterAll(async () => {
 
 async function clearedVersion(name: string): Promise<{ sequenceId: string; id: string }> {
   const sequenceId = await createSequence(t, crew, name);
-  const id = (await saveVersion(t, sequenceId, 0)).body.id as string;
+  const id = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
   expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${id}/submit`, { acknowledgeFailures: true, note: 're-check test' })).status).toBe(200);
   expect((await as(t, PEOPLE.reviewer).post(`/reviews/${id}/decision`, { decision: 'clear', comment: '' })).status).toBe(200);
   return { sequenceId, id };
@@ -60,7 +62,7 @@ async function changeProfile(massKg: number) {
   });
 }
 
-const available = async () => (await as(t, PEOPLE.trainee).get('/rehearsals/available')).body.versions as RehearsableVersion[];
+const available = async () => bodyOf<{ versions: RehearsableVersion[] }>(await as(t, PEOPLE.trainee).get('/rehearsals/available')).versions;
 
 describe('a profile change on cleared maneuvers', () => {
   it('lists the stale versions at save time; two quick changes give one re-check version on the newest profile; the reviewer re-clears or sends back; the trainee reads the truth and rehearses again', async () => {
@@ -114,7 +116,7 @@ describe('a profile change on cleared maneuvers', () => {
 
     // The reviewer's queue holds it as a re-check; the trainee reads that it waits for the reviewer.
     const queue = await as(t, PEOPLE.reviewer).get('/reviews/queue');
-    const item = queue.body.items.find((i: { version: { id: string } }) => i.version.id === nextA.id);
+    const item = bodyOf<{ items: ReviewQueueItem[] }>(queue).items.find((i) => i.version.id === nextA.id)!;
     expect(item.version.recheckOfId).toBe(a.id);
     listed = (await available()).find((v) => v.versionId === a.id)!;
     expect(listed.recheck!.successor).toEqual({ version: 2, status: 'under_review', automatic: true });

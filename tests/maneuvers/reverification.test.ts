@@ -11,7 +11,6 @@ import { crewMembers, profileVersions, reverifications, sequences, sequenceVersi
 import { simulate } from '../../server/engine/simulate.ts';
 import { REVERIFY_RETRY_LIMIT, type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { storedCompiled } from '../../server/maneuvers/stored-compiled.ts';
-import type { Body } from '../../shared/contracts/body.ts';
 import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';

@@ -10,7 +10,7 @@ import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
 import { missedLimits, planManeuver } from '../../server/planning/plan-maneuver.ts';
 import { PlanUnreachableError, runPlannerThread } from '../../server/planning/run-planner-thread.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import { planRequestSchema, type PlanCandidate } from '../../shared/contracts/plan.ts';
+import { type PlanCandidate,planRequestSchema } from '../../shared/contracts/plan.ts';
 import { quatMultiply } from '../../shared/math/quaternion.ts';
 import { checkBest, ypr } from './check-best.ts';
 import { demoBody } from './planner-bodies.ts';

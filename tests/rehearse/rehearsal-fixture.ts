@@ -7,18 +7,18 @@ import { eq, max } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
-import { validateBody } from '../../shared/contracts/body.ts';
-import { sequenceTargetSchema, type SequenceTarget } from '../../shared/contracts/maneuver.ts';
-import { validateSequence } from '../../shared/contracts/sequence.ts';
-import type { VersionStatus } from '../../shared/contracts/version-status.ts';
-import { dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { summarizeBody } from '../../server/crew/profile-summary.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { buildReport } from '../../server/maneuvers/build-report.ts';
 import { inputsHash } from '../../server/maneuvers/inputs-hash.ts';
 import { REPORT_RATE_HZ } from '../../server/maneuvers/verify-sequence.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
+import { validateBody } from '../../shared/contracts/body.ts';
+import { type SequenceTarget,sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
+import { validateSequence } from '../../shared/contracts/sequence.ts';
+import type { VersionStatus } from '../../shared/contracts/version-status.ts';
+import { dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 
 /** An arm-sweep maneuver on the standard human model: position, 3 cone cycles, hold, return (invented). */
 export const ARM_SWEEP = {

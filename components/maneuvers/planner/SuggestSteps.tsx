@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { planEnded, useCancelPlanMutation, useLatestPlanQuery, usePlanQuery, useStartPlanMutation } from '@/components/api/use-plans';
+import { PlannerNotes } from '@/components/maneuvers/planner/PlannerNotes';
 import { colors, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
@@ -9,8 +10,7 @@ import { Card } from '@/components/ui/Card';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
-import { PlannerNotes } from '@/components/maneuvers/planner/PlannerNotes';
-import type { PlanCandidate, DispersionSpreads } from '@/shared/contracts/plan';
+import type { DispersionSpreads,PlanCandidate } from '@/shared/contracts/plan';
 import type { Primitive } from '@/shared/primitives/primitive-schemas';
 
 /** Props of {@link SuggestSteps}. */
@@ -97,7 +97,7 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
           <View style={styles.note} role="note">
             <Icon name="alert-circle" size={16} color={colors.accent} />
             <Text variant="caption" style={styles.flex}>
-              The robustness spreads are illustrative, not measured: {spreadsText(plan.data.settings.spreads as DispersionSpreads)}. “With feedback” assumes the
+              The robustness spreads are illustrative, not measured: {spreadsText(plan.data.settings.spreads)}. “With feedback” assumes the
               crew member stops or adds cycles from the attitude they see (perception error {plan.data.settings.perceptionErrorDeg ?? 2}° per axis, reaction delay{' '}
               {plan.data.settings.reactionDelayS ?? 0.3} s: assumptions). A planning and training aid: verify the steps on the crew member’s profile, judge the
               95th-percentile errors, and follow flight rules and certified procedures.

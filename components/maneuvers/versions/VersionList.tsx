@@ -1,8 +1,9 @@
-import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { ReportBrief, VersionSummary } from '@/shared/contracts/maneuver';
+
 import { fmtDeg, fmtSeconds, fmtWhen } from '../report/format';
 import { RobustnessBadge } from '../robustness/RobustnessCaution';
 import { VersionStatusBadge } from '../VersionStatusBadge';
@@ -84,6 +85,6 @@ const styles = StyleSheet.create({
   row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: 2 },
   selected: { borderColor: colors.accent },
   pressed: { backgroundColor: colors.raised },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
+  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' },
   head: { flexDirection: 'row', alignItems: 'center', justifyContent: 'space-between', gap: spacing.sm, flexWrap: 'wrap' },
 });
