@@ -1,4 +1,4 @@
-import { expect, test, type Page, type TestInfo } from '@playwright/test';
+import { expect, type Page, test, type TestInfo } from '@playwright/test';
 
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
 import { signIn } from './support/sign-in.ts';

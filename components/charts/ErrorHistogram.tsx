@@ -1,8 +1,9 @@
 import { useState } from 'react';
-import { StyleSheet, View, type LayoutChangeEvent } from 'react-native';
+import { type LayoutChangeEvent,StyleSheet, View } from 'react-native';
 
 import { colors, fonts, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
+
 import { histogramBins } from './histogram-bins';
 import { plotColors } from './plot-colors';
 import { formatTick, linearScale, niceDomain } from './plot-scale';

@@ -1,13 +1,14 @@
-import { Pressable, StyleSheet, View, type ViewStyle } from 'react-native';
+import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Text } from '@/components/ui/Text';
 import type { SequenceListItem } from '@/shared/contracts/maneuver';
-import { targetText } from './target-text';
+
 import { RobustnessBadge } from './robustness/RobustnessCaution';
-import { VersionStatusBadge } from './VersionStatusBadge';
+import { targetText } from './target-text';
 import { summaryLine } from './versions/VersionList';
+import { VersionStatusBadge } from './VersionStatusBadge';
 
 /** Props of {@link SequenceRow}. */
 export interface SequenceRowProps {
@@ -55,7 +56,7 @@ const styles = StyleSheet.create({
   line: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
   row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: spacing.xs },
   pressed: { backgroundColor: colors.raised },
-  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' } as ViewStyle,
+  focused: { outlineColor: colors.accent, outlineWidth: 2, outlineStyle: 'solid' },
   head: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
   name: { flex: 1, minWidth: 140 },
 });

@@ -3,6 +3,9 @@ import { useState } from 'react';
 import { Modal, StyleSheet, View } from 'react-native';
 
 import { useRehearsableVersionsQuery, useRehearsalHistoryQuery } from '@/components/api/use-rehearsals';
+import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
+import { CueCardButton } from '@/components/maneuvers/CueCardButton';
+import { RobustnessCaution } from '@/components/maneuvers/robustness/RobustnessCaution';
 import { spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
@@ -11,11 +14,9 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { Screen } from '@/components/ui/Screen';
 import { Text } from '@/components/ui/Text';
-import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
-import { CueCardButton } from '@/components/maneuvers/CueCardButton';
-import { RobustnessCaution } from '@/components/maneuvers/robustness/RobustnessCaution';
 import { levelOf } from '@/shared/contracts/robustness';
 import { LEVEL_LABEL } from '@/shared/product/robustness-wording';
+
 import { CaptureTrend } from './CaptureTrend';
 import { LazyPlayer } from './LazyPlayer';
 import { RehearsalHistory } from './RehearsalHistory';

@@ -11,12 +11,12 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
-import type { Database } from '../client.ts';
 import { recordAudit } from '../../server/audit/record-audit.ts';
 import { createRobustnessRun, DEFAULT_CHUNK_SIZE, DEFAULT_ROBUSTNESS_SAMPLES, DEFAULT_ROBUSTNESS_SEED, type NewRun } from '../../server/jobs/robustness/robustness-runs.ts';
 import { canonicalJson } from '../../server/maneuvers/inputs-hash.ts';
-import { summariseRobustness, type RobustnessSample } from '../../server/planning/robustness.ts';
+import { type RobustnessSample,summariseRobustness } from '../../server/planning/robustness.ts';
 import { DEFAULT_ROBUSTNESS_MODEL, type RobustnessModel } from '../../shared/contracts/robustness.ts';
+import type { Database } from '../client.ts';
 import { robustnessChunks, robustnessRuns } from '../schema/index.ts';
 
 /** Everything a run's figures depend on (besides the code). */

@@ -8,17 +8,17 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 
+import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
+import { robustnessSamples } from '../../server/planning/robustness.ts';
+import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
+import { sequenceSchema } from '../../shared/contracts/sequence.ts';
+import type { Quat } from '../../shared/math/quaternion.ts';
 import { createDatabase } from '../client.ts';
 import { runMigrations } from '../migrate.ts';
 import { robustnessRuns } from '../schema/index.ts';
-import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
-import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
-import { robustnessSamples } from '../../server/planning/robustness.ts';
-import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
-import { sequenceSchema } from '../../shared/contracts/sequence.ts';
-import type { Body } from '../../shared/contracts/body.ts';
-import type { Quat } from '../../shared/math/quaternion.ts';
-import { DEMO_ERROR_DIGITS, demoRobustnessFile, demoRunKey, loadDemoRobustness, type DemoRobustnessFile, type DemoRunInputs } from './demo-robustness.ts';
+import { DEMO_ERROR_DIGITS, type DemoRobustnessFile, demoRobustnessFile, type DemoRunInputs,demoRunKey, loadDemoRobustness } from './demo-robustness.ts';
 import { seedDemo } from './run-seed.ts';
 
 const round = (x: number) => Number(x.toFixed(DEMO_ERROR_DIGITS));
@@ -51,5 +51,5 @@ try {
   process.stderr.write(`${Object.keys(out).length} runs in ${demoRobustnessFile}\n`);
   await pool.end();
 } finally {
-  await cluster.stop();
+  cluster.stop();
 }

@@ -8,18 +8,18 @@
  */
 import { desc, eq } from 'drizzle-orm';
 
-import { sequenceTargetSchema, type SequenceTarget } from '../../shared/contracts/maneuver.ts';
-import { sequenceSchema } from '../../shared/contracts/sequence.ts';
-import type { VersionStatus } from '../../shared/contracts/version-status.ts';
-import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
-import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
-import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { recordAudit } from '../../server/audit/record-audit.ts';
 import type { StoredCompiled } from '../../server/maneuvers/stored-compiled.ts';
 import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
 import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
-import { profileVersions, reverifications, reviews, sequences, sequenceVersions, type ProfileVersionRow } from '../schema/index.ts';
+import { type SequenceTarget,sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
+import { sequenceSchema } from '../../shared/contracts/sequence.ts';
+import type { VersionStatus } from '../../shared/contracts/version-status.ts';
+import { quatAngleBetween } from '../../shared/math/quaternion.ts';
+import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
+import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
+import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { type ProfileVersionRow,profileVersions, reverifications, reviews, sequences, sequenceVersions } from '../schema/index.ts';
 import { seedVersionRobustness } from './demo-robustness.ts';
 import { loadPlannedManeuvers } from './planned-maneuvers.ts';
 import type { SeedState } from './run-seed.ts';
@@ -152,7 +152,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       const compiled = compilePrimitives(v.primitives, dofInfoFromBody(body));
       const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: state.pool, stepMap: compiled.stepMap });
       const stored: StoredCompiled = {
-        sequence: compiled.sequence as StoredCompiled['sequence'],
+        sequence: compiled.sequence,
         cues: compiled.stepMap.map((s) => (s.role === 'blend' ? leadInCue(v.primitives[s.primitive]) : cueFor(v.primitives[s.primitive]))),
         stepMap: compiled.stepMap,
       };

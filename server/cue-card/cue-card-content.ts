@@ -5,9 +5,9 @@
  */
 import type { Body } from '../../shared/contracts/body.ts';
 import type { SequenceTarget, VerificationReport, VersionDetail } from '../../shared/contracts/maneuver.ts';
-import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import type { RobustnessLevel, VersionRobustness } from '../../shared/contracts/robustness.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
+import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
 import { engineBindingText, shortEngineVersion } from '../../shared/product/engine-binding.ts';
 import { robustnessSentence } from '../../shared/product/robustness-wording.ts';

@@ -3,11 +3,11 @@
  * error to the target, the checks against the sequence's rate limit and time budget, and plot
  * series (attitude and joint angles vs time).
  */
-import type { DofInfo } from '../../shared/primitives/compile-primitives.ts';
 import type { ReportSummary, SequenceTarget, StepRotation, VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { SimulationResult } from '../../shared/contracts/result.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
+import type { DofInfo } from '../../shared/primitives/compile-primitives.ts';
 import { targetQuat } from './target-attitude.ts';
 
 const DEG = 180 / Math.PI;

@@ -11,7 +11,7 @@
 import type { RelativeRotation, StepRotation } from '../../shared/contracts/maneuver.ts';
 import type { Sequence, Step } from '../../shared/contracts/sequence.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
-import { quatAngleBetween, quatCanonical, quatToAxisAngle, type Quat } from '../../shared/math/quaternion.ts';
+import { type Quat,quatAngleBetween, quatCanonical, quatToAxisAngle } from '../../shared/math/quaternion.ts';
 import type { StepOrigin } from '../../shared/primitives/compile-primitives.ts';
 import { anglesAfter } from '../planning/execution-pieces.ts';
 

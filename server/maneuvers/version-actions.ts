@@ -7,23 +7,23 @@
 import { and, eq, inArray, isNull, lt, max, ne, or } from 'drizzle-orm';
 
 import type { Database } from '../../db/client.ts';
-import { auditEvents, crewMembers, reviews, sequences, sequenceVersions, users, type SequenceVersionRow } from '../../db/schema/index.ts';
+import { auditEvents, crewMembers, reviews, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
+import type { Body } from '../../shared/contracts/body.ts';
 import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { RobustnessState } from '../../shared/contracts/robustness.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
-import type { Body } from '../../shared/contracts/body.ts';
+import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { failuresSentence, versionCheckFailures } from '../../shared/product/version-checks.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { publicUrl } from '../config.ts';
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../http/http-error.ts';
 import { latestVersionRun } from '../jobs/robustness/version-robustness.ts';
-import { failuresSentence, versionCheckFailures } from '../../shared/product/version-checks.ts';
-import { currentProfile } from './current-profile.ts';
 import { assertNotArchived } from './archive-sequence.ts';
+import { currentProfile } from './current-profile.ts';
 import { requireAuthor } from './maneuver-access.ts';
 import { decisionMail, submissionMail } from './review-mail.ts';
 import { refusal, statusesAllowing, transition, type VersionEvent } from './status-machine.ts';
@@ -84,7 +84,7 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
   // The version's own target: the request's, else the sequence's default.
   const target = input.target ?? readTarget(seq.target);
   const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product, stepMap: compiled.stepMap });
-  const stored: StoredCompiled = { sequence: compiled.sequence as StoredCompiled['sequence'], cues: stepCues(input.primitives, compiled.stepMap), stepMap: compiled.stepMap };
+  const stored: StoredCompiled = { sequence: compiled.sequence, cues: stepCues(input.primitives, compiled.stepMap), stepMap: compiled.stepMap };
 
   return db.transaction(async (tx) => {
     const row = await appendVersion(tx, sequenceId, user.id, (latest, locked) => {

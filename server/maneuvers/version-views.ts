@@ -2,11 +2,11 @@
  * Reads versions and sequences as the API shows them (shared/contracts/maneuver.ts), with the
  * names, profile version numbers and latest re-verification joined in.
  */
-import { and, asc, desc, eq, inArray, isNotNull, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, or, type SQL,sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
-import { crewMembers, profileVersions, reverifications, reviews, robustnessRuns, sequences, sequenceVersions, users, type ReverificationRow, type SequenceVersionRow } from '../../db/schema/index.ts';
+import { crewMembers, profileVersions, type ReverificationRow, reverifications, reviews, robustnessRuns, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
 import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { levelOf, type RobustnessBrief, type RobustnessState } from '../../shared/contracts/robustness.ts';
@@ -106,8 +106,8 @@ export async function selectVersions(db: Database, where: SQL | undefined): Prom
     .orderBy(desc(sequenceVersions.version));
   return rows.map(({ rev: r, run: rr, ...row }) => ({
     ...row,
-    latestReverification: r && r.id ? (r as ReverificationListRow) : null,
-    latestRobustness: rr && rr.id ? (rr as RobustnessListRow) : null,
+    latestReverification: r && r.id ? (r) : null,
+    latestRobustness: rr && rr.id ? (rr) : null,
   }));
 }
 
@@ -236,7 +236,7 @@ export function readTarget(json: unknown): SequenceTarget {
   const parsed = sequenceTargetSchema.safeParse(json);
   if (parsed.success) return parsed.data;
   const o = (json ?? {}) as Record<string, unknown>;
-  const num = (k: string) => (typeof o[k] === 'number' && Number.isFinite(o[k]) ? (o[k] as number) : 0);
+  const num = (k: string) => (typeof o[k] === 'number' && Number.isFinite(o[k]) ? (o[k]) : 0);
   return sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: num('yaw'), pitch: num('pitch'), roll: num('roll') } });
 }
 

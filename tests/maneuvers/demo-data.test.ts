@@ -11,14 +11,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { robustnessChunks, robustnessRuns, sequenceVersions } from '../../db/schema/index.ts';
 import { DEMO_ERROR_DIGITS } from '../../db/seed/demo-robustness.ts';
-import { robustnessSamples, summariseRobustness, type RobustnessSample } from '../../server/planning/robustness.ts';
+import { type RobustnessSample,robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
 import { sequenceSchema } from '../../shared/contracts/sequence.ts';
 import type { Quat } from '../../shared/math/quaternion.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { PEOPLE, as } from './maneuver-api.ts';
+import { as,PEOPLE } from './maneuver-api.ts';
 
 /** The stored errors are rounded to 1e-6°. */
 const STORED_TOL_DEG = 10 ** -DEMO_ERROR_DIGITS;

@@ -18,7 +18,6 @@ import { simulate } from '../../server/engine/simulate.ts';
 import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
 import { anglesAfter } from '../../server/planning/execution-pieces.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 
@@ -35,7 +34,7 @@ const primitives: Primitive[] = [
   { kind: 'pose_shift', posture: 'reference', durationS: 1.2 },
 ];
 const compiled = compilePrimitives(primitives, dofInfoFromBody(body));
-const sequence = compiled.sequence as Sequence;
+const sequence = compiled.sequence;
 const target = sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: 0, pitch: 0, roll: 0 } });
 const pool = new SimulationPool({ size: 1, timeoutMs: 120_000 });
 afterAll(() => pool.close());

@@ -1,9 +1,9 @@
 import { StyleSheet, View } from 'react-native';
 
 import { errorMessage } from '@/components/api/client';
-import { ErrorHistogram } from '@/components/charts/ErrorHistogram';
-import { useSessionQuery } from '@/components/api/use-session';
 import { useRobustnessActions, useVersionRobustnessQuery } from '@/components/api/use-robustness';
+import { useSessionQuery } from '@/components/api/use-session';
+import { ErrorHistogram } from '@/components/charts/ErrorHistogram';
 import { spacing } from '@/components/theme';
 import { Badge, type BadgeTone } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
@@ -11,7 +11,8 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { ProgressBar } from '@/components/ui/ProgressBar';
 import { Text } from '@/components/ui/Text';
-import { robustnessLevel, type RobustnessLevel, type RobustnessState } from '@/shared/contracts/robustness';
+import { type RobustnessLevel, robustnessLevel, type RobustnessState } from '@/shared/contracts/robustness';
+
 import { RobustnessCaution } from '../robustness/RobustnessCaution';
 import { fmtDeg } from './format';
 import { StatGrid } from './StatGrid';

@@ -1,5 +1,6 @@
 import { DataTable } from '@/components/ui/DataTable';
 import type { StepRotation } from '@/shared/contracts/maneuver';
+
 import { fmtDeg, fmtNum } from './format';
 
 /** Props of {@link StepRotationsTable}. */

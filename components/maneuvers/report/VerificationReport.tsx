@@ -17,8 +17,8 @@ import { fmtDeg, fmtNum, fmtRate, fmtSci, fmtSeconds, fmtWhen, shortHash } from 
 import { PeakRatesTable } from './PeakRatesTable';
 import { RangeViolationsTable } from './RangeViolationsTable';
 import { RobustnessPanel } from './RobustnessPanel';
-import { StepRotationsTable } from './StepRotationsTable';
 import { StatGrid } from './StatGrid';
+import { StepRotationsTable } from './StepRotationsTable';
 
 /** Props of {@link VerificationReport}. */
 export interface VerificationReportProps {

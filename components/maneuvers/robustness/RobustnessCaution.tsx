@@ -1,10 +1,10 @@
 import { StyleSheet, View } from 'react-native';
 
+import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import { colors, radii, spacing } from '@/components/theme';
 import { Badge, type BadgeTone } from '@/components/ui/Badge';
 import { Icon, type IconName } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
-import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import { levelOf, type RobustnessBrief, type RobustnessLevel } from '@/shared/contracts/robustness';
 import type { RobustnessRun } from '@/shared/contracts/robustness-run';
 import { LEVEL_LABEL, robustnessSentence } from '@/shared/product/robustness-wording';

@@ -6,6 +6,7 @@ import { StatGrid } from '@/components/maneuvers/report/StatGrid';
 import { spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { VersionRobustness } from '@/shared/contracts/robustness';
+
 import { LiveRobustnessCaution } from './RobustnessCaution';
 
 /**

@@ -5,7 +5,7 @@
 import { and, desc, eq, inArray } from 'drizzle-orm';
 
 import type { Database } from '../../../db/client.ts';
-import { robustnessRuns, type RobustnessRunRow } from '../../../db/schema/index.ts';
+import { type RobustnessRunRow,robustnessRuns } from '../../../db/schema/index.ts';
 import { levelOf, robustnessModelSchema, type RobustnessState, type VersionRobustness } from '../../../shared/contracts/robustness.ts';
 import type { AppContext } from '../../app-context.ts';
 import { recordAudit } from '../../audit/record-audit.ts';
