@@ -2,10 +2,12 @@
  * `npm run bench:jobs [-- --json] [-- --samples N] [-- --repeats R]`: wall time of a robustness run
  * (default 1,000 samples) of a 60 s suited maneuver from enqueue to merged result, with one and then
  * two worker processes (`server/scripts/worker.ts`, WORKER_CONCURRENCY=1 each, already started and
- * idle) against a throwaway PostgreSQL. Each configuration runs R times (default 3) and reports the
- * median; the figures of every run must be identical (sample i is seeded by (seed, i)). Prints the
- * load average before and after, since the machine may be shared. With --json the last line is
- * {"oneWorkerS": …, "twoWorkersS": …, "ratio": …, …}.
+ * idle) against a throwaway PostgreSQL. The two configurations alternate (one worker, then two,
+ * R times, default 3), so a load that changes during the bench weighs on both alike: both workers
+ * stay up and warm (one untimed run first), and the second is paused (SIGSTOP, only while the queue
+ * is empty) for the one-worker runs and resumed a second before each two-worker run. The figures of every run must be identical (sample i is
+ * seeded by (seed, i)). Prints the load average before and after, since the machine may be shared.
+ * With --json the last line is {"oneWorkerS": …, "twoWorkersS": …, "ratio": …, …}.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
 import { mkdtempSync } from 'node:fs';
@@ -40,6 +42,7 @@ const REPEATS = Number(values.repeats ?? 3);
 const CHUNK = Number(values.chunk ?? 25);
 const log = (s: string) => console.log(s);
 const load = () => os.loadavg().map((l) => l.toFixed(2)).join(' / ');
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); const m = Math.floor(s.length / 2); return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2; };
 
 /** The 60 s suited maneuver (invented for the benchmark): arms forward, 18 slow outward arm orbits, a pause. */
@@ -114,17 +117,6 @@ async function main() {
         await new Promise((res) => setTimeout(res, 20));
       }
     };
-    const measure = async (label: string) => {
-      const times: number[] = [];
-      let figures: unknown = null;
-      for (let i = 0; i < REPEATS; i++) {
-        const r = await timeRun();
-        times.push(r.s);
-        figures = r.figures;
-        log(`  ${label}, run ${i + 1}: ${r.s.toFixed(2)} s (load ${load()})`);
-      }
-      return { median: median(times), times, figures };
-    };
 
     // Reference: the same samples in this process, one thread, no queue (the work the workers share).
     const t0 = performance.now();
@@ -133,14 +125,33 @@ async function main() {
     log(`  one thread in this process, no queue: ${directS.toFixed(2)} s (load ${load()})`);
 
     workers.push(await startWorker(env, 'bench worker 1'));
-    await new Promise((r) => setTimeout(r, 1000));
-    const one = await measure('one worker process');
-    workers.push(await startWorker(env, 'bench worker 2'));
-    await new Promise((r) => setTimeout(r, 1000));
-    const two = await measure('two worker processes');
+    const second = await startWorker(env, 'bench worker 2');
+    workers.push(second);
+    await sleep(1000);
+    const warm = await timeRun();
+    log(`  untimed warm-up run, two workers: ${warm.s.toFixed(2)} s`);
+    const oneTimes: number[] = [], twoTimes: number[] = [];
+    let oneFigures: unknown = null, twoFigures: unknown = null;
+    for (let i = 0; i < REPEATS; i++) {
+      // The queue is empty here, so the paused worker holds no job.
+      second.kill('SIGSTOP');
+      await sleep(500);
+      const a = await timeRun();
+      oneTimes.push(a.s);
+      oneFigures = a.figures;
+      log(`  one worker process, run ${i + 1}: ${a.s.toFixed(2)} s (load ${load()})`);
+      second.kill('SIGCONT');
+      await sleep(1000);
+      const b = await timeRun();
+      twoTimes.push(b.s);
+      twoFigures = b.figures;
+      log(`  two worker processes, run ${i + 1}: ${b.s.toFixed(2)} s (load ${load()})`);
+    }
     // Stopped here so each prints how many jobs it ran (both took chunks).
     await Promise.all(workers.splice(0).map(stopWorker));
-    const same = JSON.stringify(one.figures) === JSON.stringify(two.figures);
+    const one = { median: median(oneTimes), times: oneTimes, figures: oneFigures };
+    const two = { median: median(twoTimes), times: twoTimes, figures: twoFigures };
+    const same = JSON.stringify(one.figures) === JSON.stringify(two.figures) && JSON.stringify(warm.figures) === JSON.stringify(one.figures);
     if (!same) throw new Error('figures differ between one and two workers: the split changed the result');
     const f = one.figures as { openLoopP95Deg: number; feedbackP95Deg: number };
     const ratio = one.median / two.median;
