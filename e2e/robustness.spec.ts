@@ -60,7 +60,7 @@ test('a planner saves a version and sees its robustness arrive with progress', a
   await expect(panel.getByTestId('robustness-histogram')).toBeVisible();
   await expect(panel.getByTestId('robustness-model')).toHaveText(/1,000 samples · seed 1/);
   await expect(panel.getByText(/^(Robust|Caution, marginal|Caution, not robust):/)).toBeVisible();
-  await expect(page.getByTestId('report-robustness-caution')).toHaveText(/^(Robust|Caution, marginal|Caution, not robust):/);
+  await expect(page.getByTestId('report-robustness-caution')).toHaveText(/(Robust|Caution, marginal|Caution, not robust): with feedback/);
   await expect(page.getByTestId('step-rotations')).toBeVisible();
   await panel.scrollIntoViewIfNeeded();
   await keep(page, testInfo, 'robustness-after-save-wide');
@@ -79,7 +79,7 @@ for (const size of [{ name: 'phone', width: 375, height: 812 }, { name: 'wide', 
     await expect(row.getByText(/^(Robust|Marginal|Not robust)$/)).toBeVisible();
     await row.click();
     const summary = page.getByTestId('robustness-summary');
-    await expect(summary.getByTestId('review-robustness-caution')).toHaveText(/^(Robust|Caution, marginal|Caution, not robust):/, { timeout: 30_000 });
+    await expect(summary.getByTestId('review-robustness-caution')).toHaveText(/(Robust|Caution, marginal|Caution, not robust): with feedback/, { timeout: 30_000 });
     await expect(summary.getByText('95th pct. with feedback')).toBeVisible();
     // Before the decision buttons, in reading order and on the page.
     const clear = page.getByTestId('review-clear');
