@@ -6,7 +6,6 @@ import { StyleSheet, View } from 'react-native';
 import { useSessionQuery, useSignOutMutation } from '@/components/api/use-session';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { AppHeader } from '@/components/shell/AppHeader';
-import { HeaderCollapseProvider } from '@/components/shell/header-collapse';
 import { lazyScreen } from '@/components/shell/lazy-screen';
 import { signInHrefFor, takeEntryPath } from '@/components/shell/return-path';
 import { canSeeTab, TAB_NAMES, TABS } from '@/components/shell/tab-access';
@@ -51,34 +50,32 @@ export default function AppLayout() {
   }
 
   return (
-    <HeaderCollapseProvider>
-      <View style={styles.root}>
-        <AppHeader
-          user={user}
-          onChangePassword={() => setChangingPassword(true)}
-          onSignOut={() => signOut.mutate(undefined, { onSettled: () => router.replace('/sign-in?notice=signed-out') })}
+    <View style={styles.root}>
+      <AppHeader
+        user={user}
+        onChangePassword={() => setChangingPassword(true)}
+        onSignOut={() => signOut.mutate(undefined, { onSettled: () => router.replace('/sign-in?notice=signed-out') })}
+      />
+      <Tabs screenOptions={tabNavigatorOptions(wide)}>
+        {/* A tab the role does not have is left out of the navigator (so its address leads to the role's
+            first tab) and its button is hidden with href: null. The server enforces the same split. */}
+        {TAB_NAMES.map((name) => (
+          <Tabs.Protected key={name} guard={canSeeTab(user.role, name)}>
+            <Tabs.Screen name={name} options={tabScreenOptions(TABS[name], canSeeTab(user.role, name))} />
+          </Tabs.Protected>
+        ))}
+      </Tabs>
+      {changingPassword && (
+        <ChangePasswordSheet
+          visible
+          onClose={() => setChangingPassword(false)}
+          onChanged={() => {
+            setChangingPassword(false);
+            router.replace('/sign-in?notice=password-changed');
+          }}
         />
-        <Tabs screenOptions={tabNavigatorOptions(wide)}>
-          {/* A tab the role does not have is left out of the navigator (so its address leads to the role's
-              first tab) and its button is hidden with href: null. The server enforces the same split. */}
-          {TAB_NAMES.map((name) => (
-            <Tabs.Protected key={name} guard={canSeeTab(user.role, name)}>
-              <Tabs.Screen name={name} options={tabScreenOptions(TABS[name], canSeeTab(user.role, name))} />
-            </Tabs.Protected>
-          ))}
-        </Tabs>
-        {changingPassword && (
-          <ChangePasswordSheet
-            visible
-            onClose={() => setChangingPassword(false)}
-            onChanged={() => {
-              setChangingPassword(false);
-              router.replace('/sign-in?notice=password-changed');
-            }}
-          />
-        )}
-      </View>
-    </HeaderCollapseProvider>
+      )}
+    </View>
   );
 }
 

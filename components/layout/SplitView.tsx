@@ -1,7 +1,6 @@
 import type { ReactNode } from 'react';
 import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 
-import { useCollapseOnScroll } from '@/components/shell/header-collapse';
 import { colors, layout, radii, spacing } from '@/components/theme';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
@@ -33,7 +32,6 @@ export interface SplitViewProps {
  */
 export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholder, listLabel = 'List', detailLabel = 'Details' }: SplitViewProps) {
   const wide = useIsWide();
-  const collapse = useCollapseOnScroll();
   if (wide) {
     return (
       <View style={styles.row}>
@@ -60,14 +58,14 @@ export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholde
             {detailTitle ?? 'Back'}
           </Text>
         </Pressable>
-        <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={detailLabel} role="region" {...collapse}>
+        <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={detailLabel} role="region">
           {detail}
         </ScrollView>
       </View>
     );
   }
   return (
-    <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={listLabel} role="region" {...collapse}>
+    <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={listLabel} role="region">
       {list}
     </ScrollView>
   );

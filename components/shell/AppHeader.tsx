@@ -5,7 +5,6 @@ import { colors, spacing } from '@/components/theme';
 import type { SessionUser } from '@/shared/contracts/auth';
 
 import { CautionLine } from './CautionLine';
-import { useHeaderCollapsed } from './header-collapse';
 import { ProductMark } from './ProductMark';
 import { UserMenu } from './UserMenu';
 
@@ -16,20 +15,16 @@ export interface AppHeaderProps {
   onSignOut: () => void;
 }
 
-/** The signed-in header: product mark, the user's chip with its menu, and the caution line beneath (on phones the bar folds away on scroll). */
+/** The signed-in header: product mark, the user's chip with its menu, and the caution line beneath. */
 export function AppHeader({ user, onChangePassword, onSignOut }: AppHeaderProps) {
   const wide = useIsWide();
-  // On a phone the bar folds away while the content scrolls down; the caution always stays.
-  const folded = useHeaderCollapsed() && !wide;
   return (
     <View role="banner">
-      {folded ? null : (
-        <View style={[styles.bar, wide && styles.barWide]}>
-          <ProductMark />
-          <View style={styles.spacer} />
-          <UserMenu user={user} compact={!wide} onChangePassword={onChangePassword} onSignOut={onSignOut} />
-        </View>
-      )}
+      <View style={[styles.bar, wide && styles.barWide]}>
+        <ProductMark />
+        <View style={styles.spacer} />
+        <UserMenu user={user} compact={!wide} onChangePassword={onChangePassword} onSignOut={onSignOut} />
+      </View>
       <CautionLine />
     </View>
   );

@@ -1,8 +1,6 @@
 import type { ReactNode } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
-import { useIsWide } from '@/components/layout/use-is-wide';
-import { useCollapseOnScroll, useHeaderCollapsed } from '@/components/shell/header-collapse';
 import { colors, layout, spacing } from '@/components/theme';
 
 import { Text } from './Text';
@@ -22,12 +20,8 @@ export interface ScreenProps {
 
 /** The body of a tab screen: title row, consistent padding, max width, optional scrolling. */
 export function Screen({ title, subtitle, actions, children, scroll = true }: ScreenProps) {
-  const wide = useIsWide();
-  const collapse = useCollapseOnScroll();
-  // A screen that scrolls inside (SplitView) keeps its title outside the scroll: fold it with the header on phones.
-  const folded = useHeaderCollapsed() && !wide && !scroll;
   const head =
-    !folded && (title || actions) ? (
+    title || actions ? (
       <View style={styles.head}>
         <View style={styles.titles}>
           {title ? (
@@ -51,7 +45,7 @@ export function Screen({ title, subtitle, actions, children, scroll = true }: Sc
     );
   }
   return (
-    <ScrollView style={styles.root} contentContainerStyle={styles.scrollContent} {...collapse}>
+    <ScrollView style={styles.root} contentContainerStyle={styles.scrollContent}>
       <View style={styles.inner}>
         {head}
         {children}
