@@ -16,7 +16,8 @@ async function keep(page: Page, testInfo: TestInfo, name: string, fullPage = fal
 
 test('a planner saves a version and sees its robustness arrive with progress', async ({ browser, baseURL }, testInfo) => {
   test.setTimeout(240_000);
-  const ctx = await browser.newContext({ baseURL, viewport: { width: 1280, height: 800 } });
+  // Composed on a phone (the step editor is a sheet there), then read on a wide screen.
+  const ctx = await browser.newContext({ baseURL, viewport: { width: 375, height: 812 } });
   const page = await ctx.newPage();
   await signIn(page, DEMO_BY_ROLE.planner.email);
   const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; currentVersion: number | null }[] };
@@ -36,6 +37,7 @@ test('a planner saves a version and sees its robustness arrive with progress', a
   await sheet.getByRole('button', { name: 'Add step' }).click();
   await page.getByTestId('save-verify').click();
   await expect(page.getByTestId('verification-report')).toBeVisible({ timeout: 90_000 });
+  await page.setViewportSize({ width: 1280, height: 800 });
 
   // The save queued the run: the API reports its state and progress while the worker computes it.
   const version = (await (await page.request.get(`/api/sequences/${sequence.id}`)).json()) as { versions: { id: string }[] };

@@ -20,7 +20,7 @@ describe('audit events as sentences', () => {
       .toBe('Orrin Vale invited new.person@lumen.example.test');
   });
   it('an action without words yet still reads, with no raw ids', () => {
-    expect(auditSentence({ ...base, action: 'crew.archive', objectType: 'crew_member', objectLabel: 'Tamsin Reed' })).toBe('Orrin Vale: crew archive — Tamsin Reed');
+    expect(auditSentence({ ...base, action: 'crew.hibernate', objectType: 'crew_member', objectLabel: 'Tamsin Reed' })).toBe('Orrin Vale: crew hibernate — Tamsin Reed');
   });
   it('the system as the actor when there is none', () => {
     expect(auditSentence({ ...base, actorId: null, actorEmail: null, actorName: null, action: 'sequence_version.recheck' })).toBe("The system flagged 'Quarter turn left' v2 for a re-check");
