@@ -9,9 +9,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, reverifications } from '../../db/schema/index.ts';
 import { reverifyVersion } from '../../server/jobs/reverify-version.ts';
-import type { ReverificationProgress, VersionDetail } from '../../shared/contracts/maneuver.ts';
-import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
-import { apiError, bodyOf } from '../support/response-body.ts';
+import type { ReverificationProgress } from '../../shared/contracts/maneuver.ts';
+import { as, clearedVersion, crewOf, PEOPLE } from '../maneuvers/maneuver-api.ts';
+import { apiError } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 let t: TestApp;
@@ -24,13 +24,6 @@ afterAll(async () => {
   await t?.close();
 });
 
-async function clearedVersion(name: string): Promise<string> {
-  const sequenceId = await createSequence(t, crew, name);
-  const v = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
-  expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${v}/submit`, { acknowledgeFailures: true, note: 'progress test' })).status).toBe(200);
-  expect((await as(t, PEOPLE.reviewer).post(`/reviews/${v}/decision`, { decision: 'clear', comment: '' })).status).toBeLessThan(300);
-  return v;
-}
 
 const progress = async (who: string = PEOPLE.planner) => {
   const res = await as(t, who).get(`/crew/${crew}/reverifications`);
@@ -40,9 +33,9 @@ const progress = async (who: string = PEOPLE.planner) => {
 
 describe('re-verification progress and stop', () => {
   it('counts the versions of one profile change, advances as they are recomputed, and stops the rest together', async () => {
-    const a = await clearedVersion('Progress A');
-    const b = await clearedVersion('Progress B');
-    const c = await clearedVersion('Progress C');
+    const a = await clearedVersion(t, crew, 'Progress A');
+    const b = await clearedVersion(t, crew, 'Progress B');
+    const c = await clearedVersion(t, crew, 'Progress C');
     const [m] = await t.ctx.db.select().from(crewMembers).where(eq(crewMembers.id, crew));
     const saved = await as(t, PEOPLE.planner).post(`/crew/${crew}/versions`, {
       baseVersion: m.currentVersion, note: 'mass drift (test)', inputs: { sex: 'female', stature: 1.67, mass: 63, suitId: null },

@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm';
 import request from 'supertest';
 
 import { users } from '../../db/schema/index.ts';
-import type { SequenceSummary } from '../../shared/contracts/maneuver.ts';
+import type { SequenceSummary, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { bodyOf } from '../support/response-body.ts';
 import type { TestApp } from '../support/test-app.ts';
@@ -53,4 +53,20 @@ export async function createSequence(t: TestApp, crewMemberId: string, name = 'P
 /** Saves a version; returns the response. */
 export async function saveVersion(t: TestApp, sequenceId: string, baseVersion: number, by: string = PEOPLE.planner, primitives: Primitive[] = THREE_STEPS) {
   return as(t, by).post(`/sequences/${sequenceId}/versions`, { primitives, baseVersion });
+}
+
+/**
+ * Creates a sequence, saves one version, submits it (acknowledging any failed checks: these tests are
+ * about what happens to a cleared version, not the checks) and has the reviewer clear it; returns its id.
+ */
+export async function clearedVersion(t: TestApp, crewMemberId: string, name: string): Promise<string> {
+  const sequenceId = await createSequence(t, crewMemberId, name);
+  const saved = await saveVersion(t, sequenceId, 0);
+  if (saved.status !== 201) throw new Error(`save version: ${saved.status}`);
+  const v = bodyOf<VersionDetail>(saved).id;
+  const submitted = await as(t, PEOPLE.planner).post(`/sequences/versions/${v}/submit`, { acknowledgeFailures: true, note: `${name}: checks acknowledged` });
+  if (submitted.status !== 200) throw new Error(`submit: ${submitted.status}`);
+  const cleared = await as(t, PEOPLE.reviewer).post(`/reviews/${v}/decision`, { decision: 'clear', comment: '' });
+  if (cleared.status !== 200) throw new Error(`clear: ${cleared.status}`);
+  return v;
 }

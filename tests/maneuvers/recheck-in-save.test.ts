@@ -13,11 +13,10 @@ import { crewMembers, profileVersions, reverifications, sequenceVersions } from 
 import type { JobQueue } from '../../server/app-context.ts';
 import { appendProfileVersion } from '../../server/crew/append-profile-version.ts';
 import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
-import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { ProfileVersionView } from '../../shared/contracts/profile-version.ts';
 import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
-import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
+import { as, clearedVersion, crewOf, PEOPLE } from './maneuver-api.ts';
 
 // Response bodies as the web client reads them.
 type VersionBody = { version: ProfileVersionView };
@@ -32,13 +31,6 @@ afterAll(async () => {
   await t?.close();
 });
 
-async function clearedVersion(name: string): Promise<string> {
-  const sequenceId = await createSequence(t, crew, name);
-  const v = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
-  expect((await as(t, PEOPLE.planner).post(`/sequences/versions/${v}/submit`, { acknowledgeFailures: true, note: 're-check test: checks acknowledged' })).status).toBe(200);
-  expect((await as(t, PEOPLE.reviewer).post(`/reviews/${v}/decision`, { decision: 'clear', comment: '' })).status).toBe(200);
-  return v;
-}
 
 async function currentVersion(): Promise<number> {
   const [m] = await t.ctx.db.select({ v: crewMembers.currentVersion }).from(crewMembers).where(eq(crewMembers.id, crew));
@@ -59,7 +51,7 @@ async function stateOf(versionId: string) {
 
 describe('re-check flags commit with the profile save', () => {
   it('a failure after the save, inside its transaction, rolls back the save and the flags together', async () => {
-    const v = await clearedVersion('Recheck rollback');
+    const v = await clearedVersion(t, crew, 'Recheck rollback');
     const before = await currentVersion();
     const profilesBefore = (await t.ctx.db.select({ id: profileVersions.id }).from(profileVersions).where(eq(profileVersions.crewMemberId, crew))).length;
     // Injected failure: the audit event the save route writes after appending the profile version (and flagging) is refused.
@@ -82,7 +74,7 @@ describe('re-check flags commit with the profile save', () => {
   });
 
   it('a failure after the commit cannot leave the approval unflagged: the queued record is the outbox the reconcile pass sends', async () => {
-    const v = await clearedVersion('Recheck outbox');
+    const v = await clearedVersion(t, crew, 'Recheck outbox');
     // The job queue fails after the transaction committed (as a crash between commit and enqueue would).
     const refused: string[][] = [];
     const failing: JobQueue = {
@@ -121,7 +113,7 @@ describe('re-check flags commit with the profile save', () => {
   });
 
   it('the profile save\'s own transaction flags: nothing after its commit (listener, job) is needed', async () => {
-    const v = await clearedVersion('Recheck same transaction');
+    const v = await clearedVersion(t, crew, 'Recheck same transaction');
     const [pv] = await t.ctx.db.select().from(profileVersions)
       .where(and(eq(profileVersions.crewMemberId, crew), eq(profileVersions.version, await currentVersion())));
     const { row, flagged } = await t.ctx.db.transaction((tx) => appendProfileVersion(tx, {
@@ -136,7 +128,7 @@ describe('re-check flags commit with the profile save', () => {
   });
 
   it('with no queue running, the save still flags and records the re-verification (queued)', async () => {
-    const v = await clearedVersion('Recheck no queue');
+    const v = await clearedVersion(t, crew, 'Recheck no queue');
     const res = await saveProfile(71);
     expect(res.status).toBe(201);
     const s = await stateOf(v);
