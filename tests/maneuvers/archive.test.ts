@@ -71,6 +71,19 @@ describe('archiving a maneuver', () => {
     expect(actions).toEqual(expect.arrayContaining(['sequence.archive', 'sequence.restore']));
   }, 90_000);
 
+  it('answers a malformed id with 400 naming it, and writes nothing', async () => {
+    const before = await t.ctx.db.select().from(auditEvents);
+    for (const res of [
+      await as(t, PEOPLE.planner).post('/sequences/not-an-id/archive'),
+      await as(t, PEOPLE.planner).delete('/sequences/not-an-id'),
+      await as(t, PEOPLE.planner).post('/crew/not-an-id/restore'),
+    ]) {
+      expect(res.status).toBe(400);
+      expect(['sequenceId', 'id']).toContain(apiError(res).field);
+    }
+    expect(await t.ctx.db.select().from(auditEvents)).toHaveLength(before.length);
+  });
+
   it('rejects a bad archived filter by name', async () => {
     const res = await as(t, PEOPLE.planner).get('/sequences?archived=maybe');
     expect(res.status).toBe(400);
