@@ -126,8 +126,34 @@ function groupsOf(tables: readonly FamilyTable[]): Group[] {
   return out;
 }
 
-/** Angles (rad) each group of a structure turns about its axis so that their product is the target. */
+/**
+ * Angles (rad) each group of a structure turns about its axis so that their product is the target.
+ * A first pass treats a group's two variants as turning about one axis in opposite senses; a loop
+ * run backwards is not the exact inverse of the loop (its second-order terms keep their sign, e.g.
+ * a drift about another axis that both senses share), so a second pass re-solves with each
+ * variant's own axis, for every choice of senses.
+ */
 function solveAngles(structure: readonly Group[], target: Quat): { angles: number[]; errorRad: number } {
+  const first = solveSymmetric(structure, target);
+  const tInv = quatConj(target);
+  // Each variant's own axis; every sign pattern (at most 2³), started from the first pass's sizes.
+  const axisOf = (g: Group, sign: number) => { const v = sign > 0 ? g.tables[0] : g.tables[1]; return unit(tableRotation(v, v.family.maxSize)); };
+  let best = { angles: first.angles, errorRad: Infinity, travel: Infinity };
+  for (let pattern = 0; pattern < 1 << structure.length; pattern++) {
+    const signs = structure.map((_g, i) => ((pattern >> i) & 1 ? -1 : 1));
+    const axes = structure.map((g, i) => axisOf(g, signs[i]));
+    // th keeps its pattern's sign; the variant turns |th| about its own axis.
+    const residual = (th: number[]) => quatLog(quatChain(tInv, ...axes.map((ax, i) => quatExp([ax[0] * Math.abs(th[i]), ax[1] * Math.abs(th[i]), ax[2] * Math.abs(th[i])]))));
+    const x0 = first.angles.map((a, i) => signs[i] * Math.max(Math.abs(a), 0.05));
+    const r = leastSquares3(residual, x0, signs.map((s) => (s > 0 ? 0 : -2 * Math.PI)), signs.map((s) => (s > 0 ? 2 * Math.PI : 0)), { step: 1e-4, iterations: 60, tolerance: 1e-6 });
+    const travel = r.x.reduce((sum, v) => sum + Math.abs(v), 0);
+    if (r.norm < best.errorRad - 1e-6 || (Math.abs(r.norm - best.errorRad) <= 1e-6 && travel < best.travel)) best = { angles: r.x, errorRad: r.norm, travel };
+  }
+  return best;
+}
+
+/** The first pass of `solveAngles`: each group turns about one axis, its variants in opposite senses. */
+function solveSymmetric(structure: readonly Group[], target: Quat): { angles: number[]; errorRad: number } {
   const tInv = quatConj(target);
   const residual = (th: number[]) => quatLog(quatChain(tInv, ...structure.map((g, i) => quatExp([g.axis[0] * th[i], g.axis[1] * th[i], g.axis[2] * th[i]]))));
   const goal = quatLog(target);
