@@ -40,7 +40,7 @@ export function recordingsRouter(ctx: AppContext): Router {
     const rows = await db.select({ rec: recordings, fileName: uploads.fileName }).from(recordings)
       .innerJoin(uploads, eq(uploads.id, recordings.uploadId)).orderBy(desc(recordings.createdAt)).limit(100);
     // The list leaves the frames out.
-    res.json({ recordings: rows.map((r) => ({ ...recordingView(r.rec, r.fileName), frames: [] , frameCount: (r.rec.frames as unknown[]).length })) });
+    res.json({ recordings: rows.map((r) => ({ ...recordingView(r.rec, r.fileName), frames: [], frameCount: r.rec.frames.length })) });
   });
 
   router.get('/:id', validate({ params: idParams }), async (_req, res) => {

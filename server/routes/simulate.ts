@@ -6,12 +6,13 @@
  */
 import { type NextFunction, type Request, type Response, Router } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
+import type { z } from 'zod';
 
 import { validateBody } from '../../shared/contracts/body.ts';
 import type { ContractIssue } from '../../shared/contracts/contract-issue.ts';
 import { stepDuration, validateSequence } from '../../shared/contracts/sequence.ts';
 import { DEFAULT_RATE_HZ, SIMULATE_LIMITS, simulateRequestSchema } from '../../shared/contracts/simulate-request.ts';
-import type { Config } from '../config.ts';
+import { configSchema } from '../config.ts';
 import { FairAdmission } from '../engine/pool/fair-admission.ts';
 import { type SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
 import { unfinishedSimulation } from '../http/unfinished-simulation.ts';
@@ -30,21 +31,27 @@ export interface SimulateFairness {
   maxSampleValues: number;
 }
 
+/** The settings of server/config.ts the limits come from. */
+const fairnessSettings = configSchema.pick({
+  SIMULATE_CONCURRENCY_PER_USER: true, SIMULATE_RATE_LIMIT: true, SIMULATE_RATE_WINDOW_MS: true, SIMULATE_QUEUE_MAX: true, SIMULATE_MAX_SAMPLE_VALUES: true,
+});
+
 /** The limits from configuration. */
-export function fairnessFromConfig(config: Config): SimulateFairness {
+export function fairnessFromConfig(config: z.output<typeof fairnessSettings>): SimulateFairness {
   return {
     perUser: config.SIMULATE_CONCURRENCY_PER_USER, rateLimit: config.SIMULATE_RATE_LIMIT, rateWindowMs: config.SIMULATE_RATE_WINDOW_MS,
     queueMax: config.SIMULATE_QUEUE_MAX, maxSampleValues: config.SIMULATE_MAX_SAMPLE_VALUES,
   };
 }
 
-const DEFAULT_FAIRNESS: SimulateFairness = { perUser: 1, rateLimit: 30, rateWindowMs: 60_000, queueMax: 4, maxSampleValues: 1_000_000 };
+/** The configuration's own defaults (server/config.ts declares them once). */
+const DEFAULT_FAIRNESS = fairnessFromConfig(fairnessSettings.parse({}));
 
 /** Router settings. */
 export interface SimulateRouterOptions {
   /** The pool to run on: the app context's ad-hoc pool (`ctx.simulation.adhoc`), never the one trainee motion uses. */
   pool: SimulationPool;
-  /** Fair-use limits (defaults as in server/config.ts). */
+  /** Fair-use limits (unset ones take server/config.ts's defaults). */
   fairness?: Partial<SimulateFairness>;
 }
 

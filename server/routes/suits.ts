@@ -25,18 +25,17 @@ export function suitsRouter(ctx: AppContext): Router {
   const router = Router();
   const { db } = ctx;
 
+  // Suits with the name of whoever last edited each (both reads answer it).
+  const suitsWithEditor = () => db.select({ suit: suitConfigs, by: users.name }).from(suitConfigs).leftJoin(users, eq(users.id, suitConfigs.updatedBy));
+
   router.get('/', async (_req, res) => {
-    const rows = await db
-      .select({ suit: suitConfigs, by: users.name })
-      .from(suitConfigs)
-      .leftJoin(users, eq(users.id, suitConfigs.updatedBy))
-      .orderBy(asc(suitConfigs.name));
+    const rows = await suitsWithEditor().orderBy(asc(suitConfigs.name));
     res.json({ suits: rows.map((r) => suitView(r.suit, r.by)) });
   });
 
   router.get('/:id', validate({ params: idParams }), async (_req, res) => {
     const { id } = res.locals.params;
-    const [row] = await db.select({ suit: suitConfigs, by: users.name }).from(suitConfigs).leftJoin(users, eq(users.id, suitConfigs.updatedBy)).where(eq(suitConfigs.id, id));
+    const [row] = await suitsWithEditor().where(eq(suitConfigs.id, id));
     if (!row) throw notFound('Suit configuration');
     res.json({ suit: suitView(row.suit, row.by) });
   });
