@@ -22,15 +22,19 @@ export function tokenFrom(req: Request): string | null {
  * database's data mark for cached reads.
  */
 export function guard(db: Database, tokens: TokenService, roles: readonly Role[]) {
+  // The WAL insert position in the same round trip: the mark cached reads are checked against.
+  // Prepared (one name, one text for every area): built once here and planned once per connection,
+  // not on every request.
+  const userAndMark = db
+    .select({ row: users, mark: sql<string | null>`CASE WHEN pg_is_in_recovery() THEN NULL ELSE pg_current_wal_insert_lsn()::text END` })
+    .from(users).where(eq(users.id, sql.placeholder('id')))
+    .prepare('guard_user_and_mark');
   return async (req: Request, _res: Response, next: NextFunction) => {
     const token = tokenFrom(req);
     if (!token) return next(unauthorized());
     const claims = await tokens.verify(token);
     if (!claims) return next(unauthorized('Your session has expired or is invalid. Sign in again.'));
-    // The WAL insert position in the same round trip: the mark cached reads are checked against.
-    const [found] = await db
-      .select({ row: users, mark: sql<string | null>`CASE WHEN pg_is_in_recovery() THEN NULL ELSE pg_current_wal_insert_lsn()::text END` })
-      .from(users).where(eq(users.id, claims.sub));
+    const [found] = await userAndMark.execute({ id: claims.sub });
     const row = found?.row;
     if (found?.mark) req.dataMark = found.mark;
     if (!row || row.disabled || row.tokenVersion !== claims.tv) {

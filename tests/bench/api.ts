@@ -3,16 +3,18 @@
  * own cluster helper) gets the migrations, the demo seed and 200 generated maneuvers with versions;
  * the product's server runs in a child process on loopback; autocannon drives each route in turn
  * with 50 concurrent connections, a bounded request count and a time cap. Prints p50/p95/p99,
- * requests/s and the server's CPU per request per route, with the load average; `-- --json` ends
- * with one JSON object. GET /healthz (no database, no session) is measured in the same run as the
- * floor of this machine and load.
+ * requests/s, the server's and PostgreSQL's CPU per request and the bytes per response per route,
+ * with the load average; `-- --json` ends with one JSON object. GET /healthz (no database, no
+ * session) is measured in the same run as the floor of this machine and load. Requests carry the
+ * Accept-Encoding a browser sends (the web app's requests); `BENCH_API_ENCODING=identity` measures
+ * uncompressed responses.
  *
  * autocannon is the load generator because it keeps many connections busy from one process with
  * little overhead, bounds a run by request count, and reports each response's time (we compute
  * the percentiles from those, since its own histogram has no p95).
  */
 import { fork } from 'node:child_process';
-import { mkdtempSync, readFileSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -32,6 +34,8 @@ const JSON_OUT = process.argv.includes('--json');
 const CONNECTIONS = 50;
 /** Requests per route (bounded count) and the time cap per route, seconds. */
 const REQUESTS = Number(process.env.BENCH_API_REQUESTS ?? 3000);
+/** Accept-Encoding of every request: Chromium's by default. */
+const ENCODING = String(process.env.BENCH_API_ENCODING ?? 'gzip, deflate, br, zstd');
 const CAP_S = 20;
 /** Generated maneuvers on top of the demo seed. */
 const GENERATED = 200;
@@ -49,6 +53,23 @@ function cpuMs(pid: number): number {
   return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
 }
 
+/** CPU so far of the PostgreSQL server whose data folder is `dataDir`: the postmaster and its children, ms. */
+function clusterCpuMs(dataDir: string): number {
+  const postmaster = Number(readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n')[0]);
+  let total = cpuMs(postmaster);
+  for (const name of readdirSync('/proc')) {
+    if (!/^\d+$/.test(name)) continue;
+    try {
+      const fields = readFileSync(`/proc/${name}/stat`, 'utf8').split(') ')[1].split(' ');
+      // The parent pid is field 4 (index 1 after the command name).
+      if (Number(fields[1]) === postmaster) total += cpuMs(Number(name));
+    } catch {
+      // The process ended meanwhile.
+    }
+  }
+  return total;
+}
+
 const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 
 /** One route's measurement. */
@@ -62,6 +83,7 @@ interface RouteResult {
   p99: number;
   rps: number;
   cpuMsPerRequest: number;
+  dbCpuMsPerRequest: number;
   kbPerResponse: number;
   load1: number;
 }
@@ -75,7 +97,9 @@ function drive(url: string, token: string | null, amount: number, connections: n
     let errors = 0;
     let first = 0;
     let last = 0;
-    const inst = autocannon({ url, connections, amount, timeout: 30, headers: token ? { authorization: `Bearer ${token}` } : {} }, (err) => {
+    const headers: Record<string, string> = { 'accept-encoding': ENCODING };
+    if (token) headers.authorization = `Bearer ${token}`;
+    const inst = autocannon({ url, connections, amount, timeout: 30, headers }, (err) => {
       clearTimeout(cap);
       if (err) reject(err instanceof Error ? err : new Error(String(err)));
       else resolve({ times, non2xx, errors, bytes, seconds: (last - first) / 1000 });
@@ -97,6 +121,7 @@ async function main() {
   log(`Load average at start (1/5/15 min): ${load()} on ${os.cpus().length} cores`);
   const dir = mkdtempSync(path.join(os.tmpdir(), 'hn-bench-'));
   const cluster = await startLocalCluster({ dir, database: 'holonaut', throwaway: true, log: () => undefined });
+  const dataDir = path.join(dir, 'data');
   let child: ReturnType<typeof fork> | undefined;
   try {
     const { db, pool } = createDatabase(cluster.url, { max: 4 });
@@ -166,27 +191,29 @@ async function main() {
       // Warm-up: connections opened, JIT warm, caches filled (a motion's first simulation included).
       await drive(base + r.path, r.token, 200, 10);
       const cpu0 = cpuMs(server.pid!);
+      const db0 = clusterCpuMs(dataDir);
       const m = await drive(base + r.path, r.token, REQUESTS, CONNECTIONS);
       const cpu1 = cpuMs(server.pid!);
+      const db1 = clusterCpuMs(dataDir);
       const sorted = [...m.times].sort((a, b) => a - b);
       results.push({
         name: r.name, requests: m.times.length, non2xx: m.non2xx, errors: m.errors,
         p50: percentile(sorted, 50), p95: percentile(sorted, 95), p99: percentile(sorted, 99),
-        rps: m.times.length / m.seconds, cpuMsPerRequest: (cpu1 - cpu0) / m.times.length,
+        rps: m.times.length / m.seconds, cpuMsPerRequest: (cpu1 - cpu0) / m.times.length, dbCpuMsPerRequest: (db1 - db0) / m.times.length,
         kbPerResponse: m.bytes / m.times.length / 1024, load1: os.loadavg()[0],
       });
     }
 
-    log(`\n${CONNECTIONS} concurrent connections, ${REQUESTS} requests per route (cap ${CAP_S} s), loopback:`);
-    log(`${'route'.padEnd(48)} ${'p50 ms'.padStart(7)} ${'p95 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'req/s'.padStart(7)} ${'CPU ms/req'.padStart(10)} ${'KB/resp'.padStart(8)} ${'p95/floor'.padStart(9)} ${'load 1m'.padStart(7)}`);
+    log(`\n${CONNECTIONS} concurrent connections, ${REQUESTS} requests per route (cap ${CAP_S} s), loopback, Accept-Encoding: ${ENCODING}:`);
+    log(`${'route'.padEnd(48)} ${'p50 ms'.padStart(7)} ${'p95 ms'.padStart(7)} ${'p99 ms'.padStart(7)} ${'req/s'.padStart(7)} ${'CPU ms/req'.padStart(10)} ${'DB ms/req'.padStart(9)} ${'KB/resp'.padStart(8)} ${'p95/floor'.padStart(9)} ${'load 1m'.padStart(7)}`);
     const floor = results[0];
     for (const r of results) {
-      log(`${r.name.padEnd(48)} ${r.p50.toFixed(1).padStart(7)} ${r.p95.toFixed(1).padStart(7)} ${r.p99.toFixed(1).padStart(7)} ${r.rps.toFixed(0).padStart(7)} ${r.cpuMsPerRequest.toFixed(2).padStart(10)} ${r.kbPerResponse.toFixed(1).padStart(8)} ${(r.p95 / floor.p95).toFixed(1).padStart(9)} ${r.load1.toFixed(2).padStart(7)}${r.non2xx || r.errors ? `  (${r.non2xx} non-2xx, ${r.errors} errors)` : ''}`);
+      log(`${r.name.padEnd(48)} ${r.p50.toFixed(1).padStart(7)} ${r.p95.toFixed(1).padStart(7)} ${r.p99.toFixed(1).padStart(7)} ${r.rps.toFixed(0).padStart(7)} ${r.cpuMsPerRequest.toFixed(2).padStart(10)} ${r.dbCpuMsPerRequest.toFixed(2).padStart(9)} ${r.kbPerResponse.toFixed(1).padStart(8)} ${(r.p95 / floor.p95).toFixed(1).padStart(9)} ${r.load1.toFixed(2).padStart(7)}${r.non2xx || r.errors ? `  (${r.non2xx} non-2xx, ${r.errors} errors)` : ''}`);
     }
     const main = results.slice(1);
     const worst = main.reduce((a, b) => (b.p95 > a.p95 ? b : a));
     log(`\nGoal p95 ≤ ${GOAL_P95_MS} ms on every main read route: ${worst.p95 <= GOAL_P95_MS ? 'met' : `missed (worst ${worst.name}, ${worst.p95.toFixed(1)} ms)`}.`);
-    log('CPU ms/req is the server process alone (PostgreSQL not included); with 50 connections in a closed loop, p50 ≈ 50 / (req/s) whatever the route costs.');
+    log('CPU ms/req is the server process alone, DB ms/req the PostgreSQL processes; KB/resp counts headers and the body as sent. With 50 connections in a closed loop, p50 ≈ 50 / (req/s) whatever the route costs.');
     log(`Load average at end (1/5/15 min): ${load()} (at start ${loadAtStart.toFixed(2)}; the bench itself adds about 2)`);
     const failed = results.filter((r) => r.non2xx || r.errors);
     if (JSON_OUT) {
@@ -194,6 +221,10 @@ async function main() {
       console.log(JSON.stringify({
         ...byKey,
         ...Object.fromEntries(routes.flatMap((r, i) => (r.key ? [[`${r.key}Rps`, Math.round(results[i].rps)]] : []))),
+        ...Object.fromEntries(routes.flatMap((r, i) => (r.key ? [[`${r.key}CpuMs`, +results[i].cpuMsPerRequest.toFixed(3)]] : []))),
+        ...Object.fromEntries(routes.flatMap((r, i) => (r.key ? [[`${r.key}DbCpuMs`, +results[i].dbCpuMsPerRequest.toFixed(3)]] : []))),
+        ...Object.fromEntries(routes.flatMap((r, i) => (r.key ? [[`${r.key}KB`, +results[i].kbPerResponse.toFixed(1)]] : []))),
+        acceptEncoding: ENCODING,
         healthzP95Ms: +floor.p95.toFixed(2), connections: CONNECTIONS, requestsPerRoute: REQUESTS,
         loadAverageStart: +loadAtStart.toFixed(2), loadAverage: +os.loadavg()[0].toFixed(2),
       }));
