@@ -9,15 +9,14 @@
 import { desc, eq } from 'drizzle-orm';
 
 import { recordAudit } from '../../server/audit/record-audit.ts';
-import type { StoredCompiled } from '../../server/maneuvers/stored-compiled.ts';
 import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
 import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
-import { type SequenceTarget,sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
+import { type SequenceTarget, sequenceTargetSchema, type StoredCompiled } from '../../shared/contracts/maneuver.ts';
 import { sequenceSchema } from '../../shared/contracts/sequence.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
+import { compiledStepCue } from '../../shared/primitives/primitive-cues.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { type ProfileVersionRow,profileVersions, reverifications, reviews, sequences, sequenceVersions } from '../schema/index.ts';
 import { seedVersionRobustness } from './demo-robustness.ts';
@@ -153,7 +152,7 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
       const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: state.pool, stepMap: compiled.stepMap });
       const stored: StoredCompiled = {
         sequence: compiled.sequence,
-        cues: compiled.stepMap.map((s) => (s.role === 'blend' ? leadInCue(v.primitives[s.primitive]) : cueFor(v.primitives[s.primitive]))),
+        cues: compiled.stepMap.map((s) => compiledStepCue(v.primitives[s.primitive], s.role)),
         stepMap: compiled.stepMap,
       };
       const author = userIds[v.author ?? PLANNER];

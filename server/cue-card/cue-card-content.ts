@@ -6,13 +6,13 @@
 import type { Body } from '../../shared/contracts/body.ts';
 import type { SequenceTarget, VerificationReport, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { RobustnessLevel, VersionRobustness } from '../../shared/contracts/robustness.ts';
-import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
 import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
 import { engineBindingText, shortEngineVersion } from '../../shared/product/engine-binding.ts';
 import { robustnessSentence } from '../../shared/product/robustness-wording.ts';
 import { HttpError } from '../http/http-error.ts';
-import { stepTimeline } from '../motion/step-timeline.ts';
+import { stepTimeline } from '../maneuvers/step-timeline.ts';
+import { targetWords } from '../maneuvers/target-attitude.ts';
 import { CUE_CARD_CAUTIONS } from './cue-card-cautions.ts';
 import { cueCardFileName } from './cue-card-file-name.ts';
 import { type StepPictogram, stepPictograms } from './step-pictograms.ts';
@@ -90,12 +90,6 @@ export interface CueCardContent {
 
 const deg = (v: number, digits = 0) => `${Number(v.toFixed(digits))}°`;
 
-/** The target in words (no tolerance: printed beside it). */
-export function targetWords(t: SequenceTarget): string {
-  if (t.mode === 'ypr') return `yaw ${deg(t.yprDeg.yaw)}, pitch ${deg(t.yprDeg.pitch)}, roll ${deg(t.yprDeg.roll)}`;
-  return `${deg(t.axisAngle.angleDeg)} about [${t.axisAngle.axis.map((a) => Number(a.toFixed(2))).join(', ')}]`;
-}
-
 /** The report's attitude series and the target as yaw/pitch/roll in degrees, for the card's small plot. */
 function attitudeSeries(r: VerificationReport, target: SequenceTarget): CueCardContent['attitude'] {
   const ypr = target.mode === 'ypr' ? target.yprDeg : (() => {
@@ -104,26 +98,6 @@ function attitudeSeries(r: VerificationReport, target: SequenceTarget): CueCardC
     return { yaw: a.yaw * d, pitch: a.pitch * d, roll: a.roll * d };
   })();
   return { t: r.series.t, yaw: r.series.yawDeg, pitch: r.series.pitchDeg, roll: r.series.rollDeg, target: ypr };
-}
-
-/** Whether a stored step has the fields the timeline reads (kind and finite times). */
-function isTimedStep(s: unknown): boolean {
-  if (!s || typeof s !== 'object') return false;
-  const o = s as Record<string, unknown>;
-  const finite = (k: string) => typeof o[k] === 'number' && Number.isFinite(o[k]);
-  if (o.kind === 'harmonic') return finite('cycles') && finite('period') && !!o.joints && typeof o.joints === 'object';
-  if (o.kind === 'move') return finite('duration') && !!o.to && typeof o.to === 'object';
-  if (o.kind === 'track') return finite('rateHz') && Array.isArray(o.frames) && Array.isArray(o.dofs);
-  return o.kind === 'hold' && finite('duration');
-}
-
-/** One cue per compiled step from the primitive cues and the step map ("get ready: …" on joining blends). */
-function compiledStepCues(v: VersionDetail): (string | undefined)[] {
-  return v.stepMap.map((origin) => {
-    const cue = v.cues[origin.primitive];
-    if (!cue) return undefined;
-    return origin.role === 'blend' ? `get ready: ${cue}` : cue;
-  });
 }
 
 /** The card's robustness lines from the version's newest run. */
@@ -139,16 +113,14 @@ function robustnessLines(rb: VersionRobustness | null): CueCardContent['robustne
 }
 
 /**
- * The card for a cleared version. Throws HttpError 409 `not_cleared` for any other status and
- * 422 `cue_card_invalid` naming the step when a stored step cannot be timed.
+ * The card for a cleared version. Throws HttpError 409 `not_cleared` for any other status. The
+ * steps are the player's step list (the version's compiled steps grouped by its step map).
  */
 export function cueCardContent(v: VersionDetail, crew: { callSign: string | null }, runningEngineVersion: string, body: Body | null = null): CueCardContent {
   if (v.status !== 'cleared') {
     throw new HttpError(409, 'not_cleared', `Only cleared versions have a cue card; version ${v.version} is ${v.status.replace('_', ' ')}.`);
   }
-  const bad = v.compiled.steps.findIndex((s) => !isTimedStep(s));
-  if (bad >= 0) throw new HttpError(422, 'cue_card_invalid', `Step ${bad + 1} of version ${v.version} cannot be read for a cue card.`);
-  const timeline = stepTimeline(v.compiled as unknown as Sequence, compiledStepCues(v), { primitives: v.primitives, stepMap: v.stepMap });
+  const timeline = stepTimeline(v.compiled, [], { primitives: v.primitives, stepMap: v.stepMap });
   const r = v.report;
   const target = v.target;
   const steps: CueCardStep[] = timeline.map((s) => ({

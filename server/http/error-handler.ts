@@ -20,7 +20,11 @@ export const errorHandler: ErrorRequestHandler = (thrown, req, res, _next) => {
   // body-parser marks its own errors with a `type`.
   const parserType = err && typeof err === 'object' && 'type' in err ? err.type : undefined;
   let httpError: HttpError;
-  if (err instanceof HttpError) httpError = err;
+  if (err instanceof HttpError) {
+    httpError = err;
+    // A 500 we name ourselves (a stored value that cannot be read) is still a fault to look into.
+    if (err.status === 500) req.log?.error({ err }, err.message);
+  }
   else if (err instanceof ZodError) httpError = zodToHttpError(err, 'body');
   else if (parserType === 'entity.parse.failed') httpError = new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');
   else if (parserType === 'entity.too.large') httpError = new HttpError(413, 'too_large', 'The request body is too large.');

@@ -9,13 +9,11 @@
 import { and, desc, eq, ne, notInArray } from 'drizzle-orm';
 
 import { profileVersions, reverifications, sequenceVersions } from '../../db/schema/index.ts';
-import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import { sequenceSchema } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { afterRecheckSaved, saveRecheckVersion } from '../maneuvers/recheck-version.ts';
-import { storedCompiled } from '../maneuvers/stored-compiled.ts';
+import { readStoredCompiled, readStoredReport, readVersionTarget } from '../maneuvers/stored-version.ts';
 import { verifySequence } from '../maneuvers/verify-sequence.ts';
 
 /** Job payload. */
@@ -59,12 +57,12 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
   if (!claimed.length) return;
 
   try {
-    const compiled = storedCompiled(v.v.compiled);
-    const sequence = sequenceSchema.parse(compiled.sequence);
+    // Read here, inside the attempt: a stored value that does not parse fails the record, naming it.
+    const compiled = readStoredCompiled(v.v.id, v.v.compiled);
     // The version's own target (a re-check verifies what was cleared, not the sequence's next default).
-    const target = sequenceTargetSchema.parse(v.v.target);
-    const report = await verifySequence({ body: profile.body, sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product, stepMap: compiled.stepMap });
-    const old = v.v.report;
+    const target = readVersionTarget(v.v.id, v.v.target);
+    const report = await verifySequence({ body: profile.body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product, stepMap: compiled.stepMap });
+    const old = readStoredReport(v.v.id, v.v.report);
     const shift = old
       ? quatAngleBetween([old.final.attitude.w, old.final.attitude.x, old.final.attitude.y, old.final.attitude.z],
         [report.final.attitude.w, report.final.attitude.x, report.final.attitude.y, report.final.attitude.z]) * DEG

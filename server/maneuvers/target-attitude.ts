@@ -1,14 +1,33 @@
-/** The target reorientation of a sequence as a unit quaternion [w,x,y,z] (body at t = 0 → target). */
+/**
+ * A sequence target (shared/contracts/maneuver.ts) as the attitude it asks for and in words: the
+ * planner, verification, robustness runs, the player's target ghost, rehearsal captures, the cue
+ * card and the rehearsal list all read targets here.
+ */
 import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
+import type { Attitude } from '../../shared/contracts/result.ts';
 import { yprToQuat } from '../../shared/math/euler-zyx.ts';
 import { type Quat, quatCanonical, quatFromAxisAngle } from '../../shared/math/quaternion.ts';
 
 const RAD = Math.PI / 180;
 
-/** Target attitude [w,x,y,z], w ≥ 0. */
+/** Target reorientation [w,x,y,z] (body at t = 0 → target), w ≥ 0. */
 export function targetQuat(target: SequenceTarget): Quat {
   const q = target.mode === 'ypr'
     ? yprToQuat({ yaw: target.yprDeg.yaw * RAD, pitch: target.yprDeg.pitch * RAD, roll: target.yprDeg.roll * RAD })
     : quatFromAxisAngle(target.axisAngle.axis, target.axisAngle.angleDeg * RAD);
   return quatCanonical(q);
+}
+
+/** The target as an attitude {w,x,y,z}, w ≥ 0 (the player's target ghost). */
+export function targetAttitude(target: SequenceTarget): Attitude {
+  const [w, x, y, z] = targetQuat(target);
+  return { w, x, y, z };
+}
+
+const deg = (v: number) => `${Number(v.toFixed(0))}°`;
+
+/** The target in words, whole degrees: "yaw 90°, pitch 0°, roll 0°" or "60° about [0, 0, 1]" (no tolerance: shown beside it). */
+export function targetWords(t: SequenceTarget): string {
+  if (t.mode === 'ypr') return `yaw ${deg(t.yprDeg.yaw)}, pitch ${deg(t.yprDeg.pitch)}, roll ${deg(t.yprDeg.roll)}`;
+  return `${deg(t.axisAngle.angleDeg)} about [${t.axisAngle.axis.map((a) => Number(a.toFixed(2))).join(', ')}]`;
 }

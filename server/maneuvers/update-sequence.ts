@@ -14,7 +14,7 @@ import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, conflict, notFound } from '../http/http-error.ts';
 import { assertNotArchived } from './archive-sequence.ts';
-import { readTarget } from './version-views.ts';
+import { readSequenceTarget } from './stored-version.ts';
 
 /** Statuses of a latest version whose target is under a reviewer's eyes or approved. */
 const TARGET_FROZEN: readonly VersionStatus[] = ['under_review', 'cleared', 'recheck'];
@@ -27,7 +27,7 @@ export async function updateSequence(ctx: AppContext, user: SessionUser, sequenc
     if (!seq) throw notFound('Sequence');
     assertNotArchived(seq);
     const rename = input.name !== undefined && input.name !== seq.name;
-    const retarget = input.target !== undefined && JSON.stringify(input.target) !== JSON.stringify(readTarget(seq.target));
+    const retarget = input.target !== undefined && JSON.stringify(input.target) !== JSON.stringify(readSequenceTarget(seq.id, seq.target));
     if (!rename && !retarget) throw badRequest('Nothing to change: the name and target are already as given.', input.target !== undefined ? 'target' : 'name');
     if (retarget) {
       const [latest] = await tx.select({ version: sequenceVersions.version, status: sequenceVersions.status }).from(sequenceVersions)

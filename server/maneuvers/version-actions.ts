@@ -10,11 +10,11 @@ import type { Database } from '../../db/client.ts';
 import { auditEvents, crewMembers, reviews, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { Body } from '../../shared/contracts/body.ts';
-import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
+import type { SequenceTarget, StoredCompiled } from '../../shared/contracts/maneuver.ts';
 import type { RobustnessState } from '../../shared/contracts/robustness.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
+import { compiledStepCue } from '../../shared/primitives/primitive-cues.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { failuresSentence, versionCheckFailures } from '../../shared/product/version-checks.ts';
 import type { AppContext } from '../app-context.ts';
@@ -27,9 +27,8 @@ import { currentProfile } from './current-profile.ts';
 import { requireAuthor } from './maneuver-access.ts';
 import { decisionMail, submissionMail } from './review-mail.ts';
 import { refusal, statusesAllowing, transition, type VersionEvent } from './status-machine.ts';
-import type { StoredCompiled } from './stored-compiled.ts';
+import { readSequenceTarget } from './stored-version.ts';
 import { verifySequence } from './verify-sequence.ts';
-import { readTarget } from './version-views.ts';
 
 type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
 
@@ -57,11 +56,6 @@ export function compileFor(primitives: Primitive[], body: Body) {
   return compiled;
 }
 
-/** Cue per compiled step: the primitive's cue; blends say what they prepare. */
-function stepCues(primitives: Primitive[], stepMap: StoredCompiled['stepMap']): string[] {
-  return stepMap.map((s) => (s.role === 'blend' ? leadInCue(primitives[s.primitive]) : cueFor(primitives[s.primitive])));
-}
-
 /** Saves version N+1 of a sequence: compile, verify on the current profile, supersede older ones. */
 export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId: string, input: { primitives: Primitive[]; baseVersion: number; note: string; target?: SequenceTarget }): Promise<string> {
   requireAuthor(user);
@@ -82,9 +76,9 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
   const body = profile.body;
   const compiled = compileFor(input.primitives, body);
   // The version's own target: the request's, else the sequence's default.
-  const target = input.target ?? readTarget(seq.target);
+  const target = input.target ?? readSequenceTarget(seq.id, seq.target);
   const report = await verifySequence({ body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product, stepMap: compiled.stepMap });
-  const stored: StoredCompiled = { sequence: compiled.sequence, cues: stepCues(input.primitives, compiled.stepMap), stepMap: compiled.stepMap };
+  const stored: StoredCompiled = { sequence: compiled.sequence, cues: compiled.stepMap.map((s) => compiledStepCue(input.primitives[s.primitive], s.role)), stepMap: compiled.stepMap };
 
   return db.transaction(async (tx) => {
     const row = await appendVersion(tx, sequenceId, user.id, (latest, locked) => {
@@ -97,7 +91,7 @@ export async function saveVersion(ctx: AppContext, user: SessionUser, sequenceId
       };
     });
     // A new target becomes the default for the next version.
-    if (input.target && JSON.stringify(input.target) !== JSON.stringify(readTarget(seq.target))) {
+    if (input.target && JSON.stringify(input.target) !== JSON.stringify(readSequenceTarget(seq.id, seq.target))) {
       await tx.update(sequences).set({ target: input.target }).where(eq(sequences.id, sequenceId));
     }
     await recordAudit(tx, {

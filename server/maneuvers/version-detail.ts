@@ -6,14 +6,13 @@ import { sequenceVersions } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
-import { primitiveListSchema } from '../../shared/primitives/primitive-schemas.ts';
 import type { RecheckInfo } from '../../shared/product/recheck-status.ts';
 import { notFound } from '../http/http-error.ts';
 import { versionRobustness } from '../jobs/robustness/version-robustness.ts';
 import { assertVersionVisible, canAuthor, canReview } from './maneuver-access.ts';
 import { recheckInfos } from './recheck-info.ts';
 import { transition } from './status-machine.ts';
-import { storedCompiled } from './stored-compiled.ts';
+import { readStoredCompiled, readStoredPrimitives, readStoredReport } from './stored-version.ts';
 import { reviewEntries, selectReverifications, selectVersions, toReverification, toSequenceHead, toVersionSummary } from './version-views.ts';
 
 /** The full view of a version, or 404 when missing or hidden from the user. */
@@ -30,9 +29,9 @@ export async function loadVersionDetail(db: Database, user: SessionUser, version
     row.v.status === 'recheck' ? recheckInfos(db, [row.v]) : Promise.resolve(new Map<string, RecheckInfo>()),
     versionRobustness(db, row.v.id),
   ]);
-  const report = content.report ?? null;
-  const primitives = primitiveListSchema.parse(content.primitives);
-  const compiled = storedCompiled(content.compiled);
+  const report = readStoredReport(versionId, content.report);
+  const primitives = readStoredPrimitives(versionId, content.primitives);
+  const compiled = readStoredCompiled(versionId, content.compiled);
   const isAuthor = row.v.authorId === user.id;
   return {
     ...toVersionSummary(row),

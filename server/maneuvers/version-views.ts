@@ -7,9 +7,9 @@ import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, type ReverificationRow, reverifications, reviews, robustnessRuns, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
-import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, SequenceTarget, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
-import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
+import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { levelOf, type RobustnessBrief, type RobustnessState } from '../../shared/contracts/robustness.ts';
+import { readSequenceTarget, readVersionTarget } from './stored-version.ts';
 
 const author = alias(users, 'author');
 const clearer = alias(users, 'clearer');
@@ -133,7 +133,7 @@ export function toVersionSummary(row: VersionRowJoined): VersionSummary {
     id: v.id, sequenceId: v.sequenceId, version: v.version, status: v.status,
     profileVersionId: v.profileVersionId, profileVersion: row.profileVersion,
     profileIsCurrent: row.currentProfileVersion === row.profileVersion,
-    authorId: v.authorId, authorName: row.authorName, note: v.note, target: readTarget(v.target),
+    authorId: v.authorId, authorName: row.authorName, note: v.note, target: readVersionTarget(v.id, v.target),
     createdAt: v.createdAt.toISOString(), submittedAt: v.submittedAt?.toISOString() ?? null,
     clearedBy: v.clearedBy, clearedByName: row.clearedByName, clearedAt: v.clearedAt?.toISOString() ?? null,
     staleSince: v.staleSince?.toISOString() ?? null, engineVersion: v.engineVersion, inputsHash: v.inputsHash,
@@ -148,7 +148,7 @@ export function toVersionSummary(row: VersionRowJoined): VersionSummary {
 export function toSequenceHead(row: VersionRowJoined): SequenceHead {
   return {
     id: row.v.sequenceId, crewMemberId: row.crewMemberId, crewMemberName: row.crewMemberName, name: row.sequence.name,
-    target: readTarget(row.sequence.target), createdAt: row.sequence.createdAt.toISOString(),
+    target: readSequenceTarget(row.v.sequenceId, row.sequence.target), createdAt: row.sequence.createdAt.toISOString(),
     archivedAt: row.sequence.archivedAt?.toISOString() ?? null,
   };
 }
@@ -169,7 +169,7 @@ export async function sequenceHeads(db: Database, where: SQL | undefined): Promi
     .orderBy(asc(sequences.name));
   return rows.map(({ s, crewMemberName }) => ({
     id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name,
-    target: readTarget(s.target), createdAt: s.createdAt.toISOString(), archivedAt: s.archivedAt?.toISOString() ?? null,
+    target: readSequenceTarget(s.id, s.target), createdAt: s.createdAt.toISOString(), archivedAt: s.archivedAt?.toISOString() ?? null,
   }));
 }
 
@@ -223,21 +223,9 @@ export async function sequenceListRows(db: Database, where: SQL | undefined, vis
     .where(where)
     .orderBy(asc(sequences.name));
   return rows.map(({ s, crewMemberName, versionCount, latest: l, cleared: c }) => ({
-    head: { id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name, target: readTarget(s.target), createdAt: s.createdAt.toISOString(), archivedAt: s.archivedAt?.toISOString() ?? null },
+    head: { id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name, target: readSequenceTarget(s.id, s.target), createdAt: s.createdAt.toISOString(), archivedAt: s.archivedAt?.toISOString() ?? null },
     versionCount, latest: l ? toBrief(l) : null, cleared: c ? toBrief(c) : null,
   }));
-}
-
-/**
- * The stored target, with defaults filled. Rows written outside this API with a bare
- * `{ yaw, pitch, roll }` (degrees) are read as that; anything unreadable as "no reorientation".
- */
-export function readTarget(json: unknown): SequenceTarget {
-  const parsed = sequenceTargetSchema.safeParse(json);
-  if (parsed.success) return parsed.data;
-  const o = (json ?? {}) as Record<string, unknown>;
-  const num = (k: string) => (typeof o[k] === 'number' && Number.isFinite(o[k]) ? (o[k]) : 0);
-  return sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: { yaw: num('yaw'), pitch: num('pitch'), roll: num('roll') } });
 }
 
 /** Review entries of a version, oldest first. */

@@ -17,12 +17,9 @@ import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { type SimulationPool, SimulationTimeoutError } from '../engine/pool/simulation-pool.ts';
 import { HttpError } from '../http/http-error.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
-import { storedCompiled } from '../maneuvers/stored-compiled.ts';
-import { compiledParts } from '../motion/compiled-sequence.ts';
-import { primitiveCues, primitiveStepMap } from '../motion/primitive-cues.ts';
-import { stepTimeline } from '../motion/step-timeline.ts';
-import { targetAttitude } from '../motion/target-attitude.ts';
-import type { LoadedVersion } from '../motion/version-access.ts';
+import { versionStepList } from '../maneuvers/step-timeline.ts';
+import type { StoredVersion } from '../maneuvers/stored-version.ts';
+import { targetAttitude } from '../maneuvers/target-attitude.ts';
 import { compareExecution, type RecordedTrack, recordingSequence } from './compare-execution.ts';
 
 /** Overlay sample rate, Hz. */
@@ -47,12 +44,11 @@ async function run(pool: SimulationPool, body: unknown, sequence: Sequence, what
 
 /** Builds the capture for a recording of version `v` (the sign-off is added by the caller). */
 export async function buildCapture(
-  db: Database, pool: SimulationPool, v: LoadedVersion, rec: RecordedTrack, meta: { rehearsalId: string; uploadId: string; fileName: string; assumptions: string[]; createdAt: Date },
+  db: Database, pool: SimulationPool, v: StoredVersion, rec: RecordedTrack, meta: { rehearsalId: string; uploadId: string; fileName: string; assumptions: string[]; createdAt: Date },
 ): Promise<Omit<RehearsalCapture, 'signedOff'>> {
   const body = validateBody(v.body);
   if (!body.ok) throw new HttpError(422, 'motion_invalid', `The plan's profile body cannot be simulated: ${body.issues[0].message}`);
-  const parts = compiledParts(v.compiled);
-  const plan = validateSequence(parts.sequence, body.value);
+  const plan = validateSequence(v.compiled.sequence, body.value);
   if (!plan.ok) throw new HttpError(422, 'motion_invalid', `The plan cannot be simulated: ${plan.issues[0].message}`);
   const recSeq = recordingSequence(plan.value, rec);
   const checked = validateSequence(recSeq, body.value);
@@ -73,18 +69,14 @@ export async function buildCapture(
     if (p.role === 'plan') executed = r;
     outcomes.push({
       profileVersionId: p.id, profileVersion: p.version, role: p.role, reached: r.final.attitude, reachedYprDeg: yprDeg(r.final.attitude),
-      errorToTargetDeg: quatAngleBetween(q4(r.final.attitude), q4(target ?? planResult.final.attitude)) * DEG,
+      errorToTargetDeg: quatAngleBetween(q4(r.final.attitude), q4(target)) * DEG,
       errorToPlanDeg: quatAngleBetween(q4(r.final.attitude), q4(planResult.final.attitude)) * DEG,
     });
   }
 
   // Step timing per composer step (DECISIONS.md "Steps": numbered and worded as the player and the
   // composer list them): a compared sweep (a compiled step) belongs to the listed step whose span holds its start.
-  const storedStepMap = storedCompiled(v.compiled).stepMap;
-  const timeline = stepTimeline(plan.value, parts.cues.length ? parts.cues : primitiveCues(v.primitives, body.value, plan.value), {
-    primitives: v.primitives,
-    stepMap: storedStepMap.length ? storedStepMap : (primitiveStepMap(v.primitives, body.value, plan.value) ?? []),
-  });
+  const timeline = versionStepList(v);
   const steps = compareExecution(plan.value, rec).map((s) => {
     const listed = timeline.find((e) => s.startS >= e.start - 1e-9 && s.startS < e.end - 1e-9);
     return { ...s, step: listed ? listed.index + 1 : s.step + 1, cue: listed?.cue ?? `Step ${s.step + 1}` };
@@ -106,7 +98,7 @@ export async function buildCapture(
     rehearsalId: meta.rehearsalId, uploadId: meta.uploadId, fileName: meta.fileName, rateHz: rec.rateHz,
     duration: (rec.frames.length - 1) / rec.rateHz, dofs: rec.dofs,
     assumptions: [...meta.assumptions, 'The recording\'s first frame is the plan\'s t = 0; dofs not recorded stay at the plan\'s start posture.'],
-    targetYprDeg: target ? yprDeg(target) : null, planReachedYprDeg: yprDeg(planResult.final.attitude),
+    targetYprDeg: yprDeg(target), planReachedYprDeg: yprDeg(planResult.final.attitude),
     outcomes, steps, overlay, createdAt: meta.createdAt.toISOString(),
   };
 }

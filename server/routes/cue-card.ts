@@ -8,12 +8,12 @@ import { Router } from 'express';
 import { z } from 'zod';
 
 import { crewMembers, profileVersions } from '../../db/schema/index.ts';
-import { bodySchema } from '../../shared/contracts/body.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { cueCardContent } from '../cue-card/cue-card-content.ts';
 import { renderCueCard } from '../cue-card/render-cue-card.ts';
 import { validate } from '../http/validate.ts';
+import { readProfileBody } from '../maneuvers/stored-version.ts';
 import { loadVersionDetail } from '../maneuvers/version-detail.ts';
 
 const versionParams = z.object({ versionId: z.uuid('Not a valid id.') });
@@ -30,8 +30,8 @@ export function cueCardRouter(ctx: AppContext): Router {
     const [crew] = await db.select({ callSign: crewMembers.callSign }).from(crewMembers).where(eq(crewMembers.id, detail.sequence.crewMemberId));
     // The body the version was verified for draws the step pictograms.
     const [profile] = await db.select({ body: profileVersions.body }).from(profileVersions).where(eq(profileVersions.id, detail.profileVersionId));
-    const body = profile ? bodySchema.safeParse(profile.body) : null;
-    const card = cueCardContent(detail, { callSign: crew?.callSign ?? null }, ctx.engineVersion, body?.success ? body.data : null);
+    const body = profile ? readProfileBody(detail.profileVersionId, profile.body) : null;
+    const card = cueCardContent(detail, { callSign: crew?.callSign ?? null }, ctx.engineVersion, body);
     const pdf = await renderCueCard(card);
     await recordAudit(db, { actorId: user.id, action: 'cue_card.download', objectType: 'sequence_version', objectId: versionId, detail: { sequenceId: detail.sequenceId, version: detail.version } });
     res.set({

@@ -6,17 +6,18 @@ import type { AppContext } from '../app-context.ts';
 import { notFound } from '../http/http-error.ts';
 import { RawJson, ReadCache, sendCachedJson } from '../http/read-cache.ts';
 import { validate } from '../http/validate.ts';
-import { buildMotion } from '../motion/build-motion.ts';
-import { MotionCache } from '../motion/motion-cache.ts';
-import { loadVersion, versionAccessFor } from '../motion/version-access.ts';
+import { buildMotion } from '../maneuvers/build-motion.ts';
+import { assertRehearsable } from '../maneuvers/maneuver-access.ts';
+import { MotionCache } from '../maneuvers/motion-cache.ts';
+import { loadStoredVersion, loadVersionAccess } from '../maneuvers/stored-version.ts';
 
 const params = z.object({ versionId: z.string().uuid('Not a valid version id.') });
 
 /**
  * GET /api/motion/:versionId?rate= — the verified samples stored with the version, body, steps and
- * cues for the 3D view. Trainees: only cleared versions of their own crew member. Answered through
- * the read cache like the other signed-in reads (while nothing was written, a repeat reads nothing
- * but the guard's user row); under it, the motion itself is kept as JSON text per version and rate,
+ * cues for the 3D view. Trainees: only cleared versions of their own crew member's maneuvers that are
+ * not archived (assertRehearsable). Answered through the read cache like the other signed-in reads
+ * (while nothing was written, a repeat reads nothing but the guard's user row); under it, the motion itself is kept as JSON text per version and rate,
  * since a version's verified samples never change.
  */
 export function motionRouter(ctx: AppContext): Router {
@@ -30,9 +31,11 @@ export function motionRouter(ctx: AppContext): Router {
     const { versionId } = res.locals.params;
     const { rate } = res.locals.query;
     await sendCachedJson(reads, req, res, async () => {
-      const access = await versionAccessFor(db, req.user!, versionId);
+      const access = await loadVersionAccess(db, versionId);
+      if (!access) throw notFound('Sequence version');
+      assertRehearsable(req.user!, access);
       const motion = await motions.get(MotionCache.key(access.id, rate), async () => {
-        const v = await loadVersion(db, versionId);
+        const v = await loadStoredVersion(db, versionId);
         if (!v) throw notFound('Sequence version');
         const built = buildMotion(v, rate);
         return { json: JSON.stringify(built), engineVersion: built.engineVersion };

@@ -15,7 +15,7 @@ import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { conflict, forbidden, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
-import { loadVersion } from '../motion/version-access.ts';
+import { loadStoredVersion } from '../maneuvers/stored-version.ts';
 import { readBvh } from '../recordings/bvh-file.ts';
 import { defaultBvhMapping } from '../recordings/bvh-mapping.ts';
 import { bvhTrack } from '../recordings/bvh-track.ts';
@@ -87,7 +87,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
     const r = await visibleRehearsal(ctx, me, id);
     const [existing] = await db.select({ id: rehearsalCaptures.id }).from(rehearsalCaptures).where(eq(rehearsalCaptures.rehearsalId, id));
     if (existing) throw conflict('This rehearsal already has a recording; log a new rehearsal for another run.', 'recording_exists');
-    const v = await loadVersion(db, r.sequenceVersionId);
+    const v = await loadStoredVersion(db, r.sequenceVersionId);
     if (!v) throw notFound('Sequence version');
     const isBvh = req.file!.originalname.toLowerCase().endsWith('.bvh');
     const file = await storeRawFile(ctx, isBvh ? 'bvh' : 'joint_angles_csv', req.file!);

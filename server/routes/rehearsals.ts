@@ -5,21 +5,16 @@ import { crewMembers, rehearsals, sequences, sequenceVersions, users } from '../
 import { logRehearsalSchema, type RehearsableVersion, type Rehearsal, rehearsalListQuerySchema } from '../../shared/contracts/rehearsal.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
-import { badRequest, forbidden } from '../http/http-error.ts';
+import { badRequest, forbidden, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
+import { assertRehearsable } from '../maneuvers/maneuver-access.ts';
 import { recheckInfos } from '../maneuvers/recheck-info.ts';
-import { compiledDuration, stepListCount } from '../motion/compiled-sequence.ts';
-import { targetLabel } from '../motion/target-attitude.ts';
-import { loadVersionFor } from '../motion/version-access.ts';
+import { compiledDuration, stepListCount } from '../maneuvers/step-timeline.ts';
+import { loadStoredVersion, readStoredCompiled, readVersionTarget } from '../maneuvers/stored-version.ts';
+import { targetWords } from '../maneuvers/target-attitude.ts';
 import { mountRehearsalCaptures } from './rehearsal-captures.ts';
 
 type RehearsalJoin = { r: typeof rehearsals.$inferSelect; seqName: string; version: number; traineeName: string; engineVersion: string | null };
-
-/** The verified run's duration from a stored report, s; null when there is none. */
-function verifiedDuration(report: unknown): number | null {
-  const d = (report as { durationS?: unknown } | null)?.durationS;
-  return typeof d === 'number' && Number.isFinite(d) ? d : null;
-}
 
 function toRehearsal({ r, seqName, version, traineeName, engineVersion }: RehearsalJoin): Rehearsal {
   return {
@@ -77,12 +72,15 @@ export function rehearsalsRouter(ctx: AppContext): Router {
     const rechecks = await recheckInfos(db, shown.filter(({ v }) => v.status === 'recheck').map(({ v }) => v));
     const versions: RehearsableVersion[] = shown
       .map(({ v, s, crewName }) => {
+        const target = readVersionTarget(v.id, v.target);
+        const compiled = readStoredCompiled(v.id, v.compiled);
         const runs = mine.filter((m) => m.r.sequenceVersionId === v.id);
         const last = runs[0]?.r;
         return {
           versionId: v.id, sequenceId: s.id, sequenceName: s.name, version: v.version, status: v.status,
-          crewMemberName: crewName, target: v.target, targetLabel: targetLabel(v.target),
-          duration: verifiedDuration(v.report) ?? compiledDuration(v.compiled), stepCount: stepListCount(v.compiled),
+          crewMemberName: crewName, target, targetLabel: targetWords(target),
+          // the verified run's duration (the report's summary), else the compiled steps' own
+          duration: v.reportSummary?.durationS ?? compiledDuration(compiled), stepCount: stepListCount(compiled),
           engineVersion: v.engineVersion, verifiedByOtherEngine: v.engineVersion !== null && v.engineVersion !== ctx.engineVersion,
           clearedAt: v.clearedAt?.toISOString() ?? null,
           lastRehearsal: last ? { performedAt: last.performedAt.toISOString(), selfRating: last.selfRating, completedSteps: last.completedSteps, totalSteps: last.totalSteps } : null,
@@ -107,7 +105,9 @@ export function rehearsalsRouter(ctx: AppContext): Router {
     const me = req.user!;
     if (me.role !== 'trainee') throw forbidden('Only crew trainees log rehearsals.');
     const input = req.body;
-    const v = await loadVersionFor(db, me, input.sequenceVersionId);
+    const v = await loadStoredVersion(db, input.sequenceVersionId);
+    if (!v) throw notFound('Sequence version');
+    assertRehearsable(me, v);
     const totalSteps = stepListCount(v.compiled);
     if (input.completedSteps > totalSteps) {
       throw badRequest(`completedSteps: this version has ${totalSteps} steps; ${input.completedSteps} cannot be completed.`, 'completedSteps');

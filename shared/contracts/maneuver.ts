@@ -36,6 +36,7 @@ import type { RecheckInfo } from '../product/recheck-status.ts';
 import { CHECK_NAMES } from '../product/version-checks.ts';
 import { attitudeSchema, rangeViolationSchema } from './result.ts';
 import { robustnessBriefSchema, versionRobustnessSchema } from './robustness.ts';
+import { sequenceSchema } from './sequence.ts';
 import { versionStatusSchema } from './version-status.ts';
 
 /** A failed check (shared/product/version-checks.ts). */
@@ -149,6 +150,22 @@ export const stepOriginSchema = z.object({
   startS: z.number(),
   endS: z.number(),
 });
+
+/** A stored `compiled` value written as the bare engine sequence (tests and hand-made rows): no cues, no step map. */
+const isBareSequence = (v: unknown) => typeof v === 'object' && v !== null && !Array.isArray(v) && !('sequence' in v);
+
+/**
+ * The `compiled` column of a sequence version: the engine sequence contract, one cue per compiled
+ * step (a joining blend carries its lead-in cue) and which primitive each step came from. A bare
+ * `{ start, steps }` reads as that sequence with no cues and no step map.
+ */
+export const storedCompiledSchema = z.preprocess((v) => (isBareSequence(v) ? { sequence: v } : v), z.object({
+  sequence: sequenceSchema,
+  cues: z.array(z.string()).default([]),
+  stepMap: z.array(stepOriginSchema).default([]),
+}));
+/** A version's compiled steps as read (defaults filled), and as the save path writes them. */
+export type StoredCompiled = z.infer<typeof storedCompiledSchema>;
 
 /** A problem tied to one primitive. */
 export const primitiveIssueSchema = z.object({ primitive: z.number().int(), field: z.string(), message: z.string() });
@@ -389,7 +406,7 @@ export const versionDetailSchema = versionSummarySchema.extend({
   /** Cue per primitive. */
   cues: z.array(z.string()),
   /** Engine sequence contract { start, steps }. */
-  compiled: z.object({ start: z.record(z.string(), z.number()), steps: z.array(z.unknown()) }),
+  compiled: sequenceSchema,
   stepMap: z.array(stepOriginSchema),
   report: versionReportSchema.nullable(),
   reviews: z.array(reviewEntrySchema),

@@ -7,6 +7,7 @@
 import { z } from 'zod';
 
 import type { Body } from './body.ts';
+import type { SequenceTarget } from './maneuver.ts';
 import type { Attitude, SimulationResult } from './result.ts';
 import type { Step } from './sequence.ts';
 import type { VersionStatus } from './version-status.ts';
@@ -75,12 +76,10 @@ export interface MotionResponse {
   samples: SimulationResult['samples'];
   /** Steps in order, covering [0, duration]. */
   steps: MotionStep[];
-  /** The sequence's target as stored (shape set by the maneuvers API). */
-  target: unknown;
-  /** The target as an attitude, when it can be read from `target`; otherwise the simulated final attitude. */
+  /** The target this version was composed and verified for. */
+  target: SequenceTarget;
+  /** The target as an attitude {w,x,y,z}, w ≥ 0 (the view's target ghost). */
   targetAttitude: Attitude;
-  /** Where targetAttitude came from. */
-  targetSource: 'target' | 'final';
   /** The verified end state. */
   final: SimulationResult['final'];
 }

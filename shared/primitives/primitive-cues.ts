@@ -96,3 +96,19 @@ export function leadInCue(p: Primitive): string {
       return 'get ready: the recording\'s starting posture';
   }
 }
+
+/** The lead-in of a step that has no composer primitive (planner or hand-made sequences). */
+export const plainLeadInCue = 'get ready: move into position';
+
+/** How every lead-in cue begins: a stored cue worded so marks its compiled step as a lead-in. */
+export const LEAD_IN_WORDS = /^get ready/i;
+
+/** The cue of one compiled step of a primitive: a joining blend says where to be, the primitive's own motion what to do. */
+export function compiledStepCue(p: Primitive, role: 'blend' | 'sweep' | 'shift' | 'pause'): string {
+  return role === 'blend' ? leadInCue(p) : cueFor(p);
+}
+
+/** A cue as the start of a line: "Both arms forward, …". */
+export function capitalise(cue: string): string {
+  return cue.charAt(0).toUpperCase() + cue.slice(1);
+}

@@ -9,12 +9,11 @@ import { and, eq } from 'drizzle-orm';
 import type { Database } from '../../db/client.ts';
 import { crewMembers, type ProfileVersionRow,profileVersions, reviews, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
 import type { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
-import type { StoredCompiled } from '../../server/maneuvers/stored-compiled.ts';
 import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
-import { sequenceTargetSchema, type VerificationReport } from '../../shared/contracts/maneuver.ts';
+import { sequenceTargetSchema, type StoredCompiled, type VerificationReport } from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
-import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import { compiledStepCue } from '../../shared/primitives/primitive-cues.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 
 /** Step lists the generator cycles through (cycle counts vary per maneuver). */
@@ -72,7 +71,7 @@ export async function addGeneratedManeuvers(db: Database, count: number, pool: S
           report,
           compiled: {
             sequence: c.sequence,
-            cues: c.stepMap.map((s) => (s.role === 'blend' ? 'get ready: ' : '') + cueFor(primitives[s.primitive])),
+            cues: c.stepMap.map((s) => compiledStepCue(primitives[s.primitive], s.role)),
             stepMap: c.stepMap,
           },
         };

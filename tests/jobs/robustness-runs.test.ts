@@ -11,7 +11,7 @@ import { auditEvents, robustnessChunks, robustnessRuns } from '../../db/schema/i
 import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import { robustnessRunView, versionRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
-import { loadVersion } from '../../server/motion/version-access.ts';
+import { loadStoredVersion } from '../../server/maneuvers/stored-version.ts';
 import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
 import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
@@ -53,7 +53,7 @@ describe('robustness run of a saved version', () => {
     expect(run).toMatchObject({ state: 'done', progress: 1, samples: 40, seed: 1, chunks: 6, chunksDone: 6, error: null });
 
     // The same samples computed in one thread, in one call.
-    const v = (await loadVersion(t.ctx.db, versionId))!;
+    const v = (await loadStoredVersion(t.ctx.db, versionId))!;
     const inputs = { ...versionRunInputs(v), seed: 1, model: robustnessModelSchema.parse(run.model) };
     const single = summariseRobustness(robustnessSamples(inputs, 0, 40), inputs.toleranceDeg);
     expect(run.openLoopP95Deg).toBe(single.openLoopP95Deg);

@@ -121,9 +121,9 @@ describe('a profile change on cleared maneuvers', () => {
     listed = (await available()).find((v) => v.versionId === a.id)!;
     expect(listed.recheck!.successor).toEqual({ version: 2, status: 'under_review', automatic: true });
     expect(recheckMessage(listed.recheck!)).toMatch(new RegExp(`^Waiting for your reviewer after a profile change; re-verified, attitude moved ${(rec.attitudeShiftDeg! < 0.1 ? rec.attitudeShiftDeg!.toFixed(2) : rec.attitudeShiftDeg!.toFixed(1)).replace('.', '\\.')}°\\.`));
-    // Not playable until a person decides.
+    // Not playable until a person decides: the flagged version is refused (403), the one under review is not shown to a trainee at all (404).
     expect((await as(t, PEOPLE.trainee).get(`/motion/${a.id}`)).status).toBe(403);
-    expect((await as(t, PEOPLE.trainee).get(`/motion/${nextA.id}`)).status).toBe(403);
+    expect((await as(t, PEOPLE.trainee).get(`/motion/${nextA.id}`)).status).toBe(404);
 
     // One decision re-clears it: the old version is replaced, the trainee rehearses the new one.
     expect((await as(t, PEOPLE.reviewer).post(`/reviews/${nextA.id}/decision`, { decision: 'clear', comment: 'Shift is tiny.' })).status).toBe(200);

@@ -10,9 +10,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { crewMembers, profileVersions, reverifications, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { simulate } from '../../server/engine/simulate.ts';
 import { REVERIFY_RETRY_LIMIT, type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
-import { storedCompiled } from '../../server/maneuvers/stored-compiled.ts';
+import { readStoredCompiled } from '../../server/maneuvers/stored-version.ts';
 import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
-import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { eventually } from '../support/eventually.ts';
 import { bodyOf } from '../support/response-body.ts';
@@ -77,7 +76,7 @@ describe('re-verification after a profile change', () => {
     // The same compiled steps on the new body, run by the engine directly.
     const [pv] = await t.ctx.db.select().from(profileVersions).where(eq(profileVersions.id, done.toProfileVersionId));
     const [v] = await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.id, cleared));
-    const direct = simulate(pv.body, storedCompiled(v.compiled).sequence as Sequence, { rateHz: 20 });
+    const direct = simulate(pv.body, readStoredCompiled(v.id, v.compiled).sequence, { rateHz: 20 });
     const old = (v.report as { final: { attitude: { w: number; x: number; y: number; z: number } } }).final.attitude;
     const expectedShift = quatAngleBetween(quat(old), quat(direct.final.attitude)) * DEG;
     expect(done.attitudeShiftDeg).toBeCloseTo(expectedShift, 6);

@@ -103,7 +103,6 @@ describe('GET /api/motion/:versionId', () => {
 
   it('reads a yaw/pitch/roll target as the ghost attitude: pitch −20° is a rotation of 20° about −y', async () => {
     const m = (await get(TAMSIN, `/api/motion/${cleared}`)).body as MotionResponse;
-    expect(m.targetSource).toBe('target');
     // q = (cos 10°, 0, −sin 10°, 0) for a right-handed rotation of −20° about y (closed form).
     expect(m.targetAttitude.w).toBeCloseTo(Math.cos((10 * Math.PI) / 180), 12);
     expect(m.targetAttitude.y).toBeCloseTo(-Math.sin((10 * Math.PI) / 180), 12);
@@ -120,8 +119,8 @@ describe('GET /api/motion/:versionId', () => {
     expect((await get(TAMSIN, `/api/motion/${others}`)).status).toBe(404);
   });
 
-  it('refuses a trainee their own version that is not cleared (403), and one that needs a re-check (403)', async () => {
-    expect((await get(TAMSIN, `/api/motion/${drafting}`)).status).toBe(403);
+  it('hides a trainee’s own draft (404, as everywhere a trainee looks) and refuses one that needs a re-check (403)', async () => {
+    expect((await get(TAMSIN, `/api/motion/${drafting}`)).status).toBe(404);
     const res = await get(TAMSIN, `/api/motion/${recheck}`);
     expect(res.status).toBe(403);
     expect(apiError(res).message).toMatch(/re-check/);

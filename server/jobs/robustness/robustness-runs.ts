@@ -14,16 +14,14 @@ import type { PgBoss } from 'pg-boss';
 import type { Database } from '../../../db/client.ts';
 import { robustnessChunks, type RobustnessRunRow, robustnessRuns } from '../../../db/schema/index.ts';
 import type { Body } from '../../../shared/contracts/body.ts';
-import { sequenceTargetSchema } from '../../../shared/contracts/maneuver.ts';
 import { DEFAULT_ROBUSTNESS_MODEL, type RobustnessModel, robustnessModelSchema, type RobustnessState } from '../../../shared/contracts/robustness.ts';
 import type { RobustnessRun } from '../../../shared/contracts/robustness-run.ts';
-import { type Sequence, sequenceSchema } from '../../../shared/contracts/sequence.ts';
+import type { Sequence } from '../../../shared/contracts/sequence.ts';
 import type { Quat } from '../../../shared/math/quaternion.ts';
 import type { AppContext } from '../../app-context.ts';
 import { recordAudit } from '../../audit/record-audit.ts';
-import { storedCompiled } from '../../maneuvers/stored-compiled.ts';
+import type { StoredVersion } from '../../maneuvers/stored-version.ts';
 import { targetQuat } from '../../maneuvers/target-attitude.ts';
-import type { LoadedVersion } from '../../motion/version-access.ts';
 import { type RobustnessFigures, type RobustnessInputs, type RobustnessSample, summariseRobustness } from '../../planning/robustness.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../queue-names.ts';
 import { ChunkAbortedError, type ChunkPool } from './chunk-pool.ts';
@@ -69,14 +67,13 @@ export interface NewRun {
 }
 
 /** The inputs of a version's run: its compiled steps on the body of its profile version, toward its target. */
-export function versionRunInputs(v: LoadedVersion): Pick<NewRun, 'body' | 'sequence' | 'target' | 'toleranceDeg' | 'sequenceVersionId'> {
-  const target = sequenceTargetSchema.parse(v.target);
+export function versionRunInputs(v: StoredVersion): Pick<NewRun, 'body' | 'sequence' | 'target' | 'toleranceDeg' | 'sequenceVersionId'> {
   return {
     sequenceVersionId: v.id,
-    body: v.body as Body,
-    sequence: sequenceSchema.parse(storedCompiled(v.compiled).sequence),
-    target: targetQuat(target),
-    toleranceDeg: target.toleranceDeg,
+    body: v.body,
+    sequence: v.compiled.sequence,
+    target: targetQuat(v.target),
+    toleranceDeg: v.target.toleranceDeg,
   };
 }
 

@@ -9,7 +9,7 @@ import { type RobustnessRunRow,robustnessRuns } from '../../../db/schema/index.t
 import { levelOf, robustnessModelSchema, type RobustnessState, type VersionRobustness } from '../../../shared/contracts/robustness.ts';
 import type { AppContext } from '../../app-context.ts';
 import { recordAudit } from '../../audit/record-audit.ts';
-import { loadVersion } from '../../motion/version-access.ts';
+import { loadStoredVersion } from '../../maneuvers/stored-version.ts';
 import type { RobustnessFigures } from '../../planning/robustness.ts';
 import { createRobustnessRun, OPEN_STATES, versionRunInputs } from './robustness-runs.ts';
 
@@ -56,7 +56,7 @@ export async function openVersionRun(db: Database, versionId: string): Promise<R
  * worker's reconciliation picks up a run saved without one). Returns the run id.
  */
 export async function queueVersionRobustness(ctx: AppContext, versionId: string, opts: { requestedBy?: string | null; samples?: number; seed?: number; chunkSize?: number } = {}): Promise<string> {
-  const v = await loadVersion(ctx.db, versionId);
+  const v = await loadStoredVersion(ctx.db, versionId);
   if (!v) throw new Error(`sequence version ${versionId} not found`);
   const runId = await createRobustnessRun(ctx.db, { ...versionRunInputs(v), requestedBy: opts.requestedBy ?? null,
     samples: opts.samples ?? ctx.config.ROBUSTNESS_SAMPLES, seed: opts.seed, chunkSize: opts.chunkSize ?? ctx.config.ROBUSTNESS_CHUNK_SIZE,

@@ -3,11 +3,14 @@
  * per composer step (DECISIONS.md "Steps"), with its start and end time, cycle count, cue, and the
  * joining move into its start posture as a short lead-in sub-phase, never a step of its own.
  */
+import type { Body } from '../../shared/contracts/body.ts';
+import type { StoredCompiled } from '../../shared/contracts/maneuver.ts';
 import type { MotionStep } from '../../shared/contracts/motion.ts';
 import { type Sequence, type Step, stepDuration } from '../../shared/contracts/sequence.ts';
 import { DOF_LABELS, isDofName } from '../../shared/model/dof-names.ts';
-import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
-import { type Primitive, primitiveListSchema } from '../../shared/primitives/primitive-schemas.ts';
+import { compilePrimitives, dofInfoFromBody, type StepOrigin } from '../../shared/primitives/compile-primitives.ts';
+import { capitalise, cueFor, LEAD_IN_WORDS, leadInCue, plainLeadInCue } from '../../shared/primitives/primitive-cues.ts';
+import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 
 /** A dof in words ("Right shoulder flexion"), or its raw name for custom bodies. */
 function dofLabel(name: string): string {
@@ -21,7 +24,6 @@ function listDofs(names: string[]): string {
   return `${labels.slice(0, 3).join(', ')} and ${labels.length - 3} more`;
 }
 
-const capitalise = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 const round = (v: number) => Math.round(v * 10) / 10;
 
 /** A plain cue for one engine step (used when no primitive cue is available). */
@@ -40,7 +42,7 @@ export function fallbackCue(step: Step): string {
 
 /** The composer's side of a version: its primitives and which primitive each compiled step came from. */
 export interface ComposerOrigin {
-  primitives: unknown;
+  primitives: readonly Primitive[];
   stepMap: readonly { primitive: number; role: string }[];
 }
 
@@ -54,13 +56,11 @@ interface Group {
 /** Groups from the composer's step map, or null when the map does not describe these steps. */
 function composerGroups(sequence: Sequence, origin: ComposerOrigin | undefined): Group[] | null {
   if (!origin || origin.stepMap.length !== sequence.steps.length || sequence.steps.length === 0) return null;
-  const parsed = primitiveListSchema.safeParse(origin.primitives);
-  if (!parsed.success) return null;
   const groups: Group[] = [];
   let last = -1;
   for (let i = 0; i < origin.stepMap.length; i++) {
     const { primitive, role } = origin.stepMap[i];
-    const p = parsed.data[primitive];
+    const p = origin.primitives[primitive];
     if (!p || primitive < last) return null;
     if (primitive !== last) groups.push({ lead: [], main: [], primitive: p });
     const g = groups[groups.length - 1];
@@ -71,8 +71,6 @@ function composerGroups(sequence: Sequence, origin: ComposerOrigin | undefined):
   }
   return groups.every((g) => g.main.length > 0) ? groups : null;
 }
-
-const LEAD_IN_WORDS = /^(get ready|get into position)/i;
 
 /**
  * Groups without a composer map (planner or hand-made sequences): a move that only joins into the
@@ -117,7 +115,7 @@ export function stepTimeline(sequence: Sequence, cues: readonly (string | undefi
     const harmonics = g.main.filter((i) => sequence.steps[i].kind === 'harmonic');
     const cyclic = harmonics.length === 1 ? (sequence.steps[harmonics[0]] as Extract<Step, { kind: 'harmonic' }>) : null;
     const mainCue = g.primitive ? cueFor(g.primitive) : cues[g.main[0]]?.trim() || fallbackCue(main);
-    const leadCue = g.primitive ? leadInCue(g.primitive) : 'get ready: move into position';
+    const leadCue = g.primitive ? leadInCue(g.primitive) : plainLeadInCue;
     return {
       index,
       kind: main.kind,
@@ -130,4 +128,38 @@ export function stepTimeline(sequence: Sequence, cues: readonly (string | undefi
       cue: capitalise(mainCue),
     };
   });
+}
+
+/** The step map (compiled step → primitive) of `sequence`, recompiled from the primitives; null when they do not reproduce its steps. */
+export function primitiveStepMap(primitives: Primitive[], body: Body, sequence: Sequence): StepOrigin[] | null {
+  if (!primitives.length) return null;
+  const compiled = compilePrimitives(primitives, dofInfoFromBody(body), sequence.start);
+  if (compiled.errors.length || compiled.steps.length !== sequence.steps.length) return null;
+  if (compiled.steps.some((s, i) => s.kind !== sequence.steps[i].kind)) return null;
+  return compiled.stepMap;
+}
+
+/**
+ * The step list of a stored version (player, rehearsal capture): by its stored step map, or, for
+ * versions saved before the map was stored, by the map its primitives compile to for its body.
+ */
+export function versionStepList(v: { compiled: StoredCompiled; primitives: Primitive[]; body: Body }): MotionStep[] {
+  const { sequence, cues, stepMap } = v.compiled;
+  const map = stepMap.length ? stepMap : (primitiveStepMap(v.primitives, v.body, sequence) ?? []);
+  return stepTimeline(sequence, cues, { primitives: v.primitives, stepMap: map });
+}
+
+/** Total duration of stored compiled steps, s. */
+export function compiledDuration(compiled: StoredCompiled): number {
+  return compiled.sequence.steps.reduce((t, s) => t + stepDuration(s), 0);
+}
+
+/**
+ * Number of steps as the composer lists them (DECISIONS.md "Steps"): the primitives named by the
+ * stored step map, or, without one, the compiled steps less the joining moves that become lead-ins
+ * (the same grouping as the player's step list). The rehearsal log counts completed steps against it.
+ */
+export function stepListCount(compiled: StoredCompiled): number {
+  if (compiled.stepMap.length) return new Set(compiled.stepMap.map((o) => o.primitive)).size;
+  return stepTimeline(compiled.sequence, compiled.cues).length;
 }
