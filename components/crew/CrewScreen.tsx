@@ -39,6 +39,7 @@ export function CrewScreen() {
       title="Crew"
       subtitle="Crew members and their inertia profiles"
       scroll={false}
+      headInList
       actions={
         canEdit ? (
           <>

@@ -3,6 +3,7 @@ import { Pressable, ScrollView, StyleSheet, View } from 'react-native';
 
 import { colors, layout, radii, spacing } from '@/components/theme';
 import { Icon } from '@/components/ui/Icon';
+import { useScreenHead } from '@/components/ui/Screen';
 import { Text } from '@/components/ui/Text';
 
 import { useIsWide } from './use-is-wide';
@@ -32,6 +33,7 @@ export interface SplitViewProps {
  */
 export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholder, listLabel = 'List', detailLabel = 'Details' }: SplitViewProps) {
   const wide = useIsWide();
+  const screenHead = useScreenHead();
   if (wide) {
     return (
       <View style={styles.row}>
@@ -66,6 +68,7 @@ export function SplitView({ list, detail, detailTitle, onCloseDetail, placeholde
   }
   return (
     <ScrollView style={styles.fill} contentContainerStyle={styles.phoneContent} aria-label={listLabel} role="region">
+      {screenHead}
       {list}
     </ScrollView>
   );

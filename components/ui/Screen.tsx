@@ -1,6 +1,7 @@
-import type { ReactNode } from 'react';
+import { createContext, type ReactNode, useContext } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
+import { useIsWide } from '@/components/layout/use-is-wide';
 import { colors, layout, spacing } from '@/components/theme';
 
 import { Text } from './Text';
@@ -16,10 +17,24 @@ export interface ScreenProps {
   children: ReactNode;
   /** Wrap the content in a ScrollView; default true. Turn off for screens that manage their own scrolling (SplitView). */
   scroll?: boolean;
+  /**
+   * On phones, hand the title row to the SplitView inside (with `scroll={false}`): it scrolls away
+   * at the top of the list and is left out beside a selected item, whose back bar names the list,
+   * so the item gets the screen.
+   */
+  headInList?: boolean;
+}
+
+const ScreenHeadContext = createContext<ReactNode>(null);
+
+/** The title row a Screen with `headInList` hands to the list it contains (phones only; else null). */
+export function useScreenHead(): ReactNode {
+  return useContext(ScreenHeadContext);
 }
 
 /** The body of a tab screen: title row, consistent padding, max width, optional scrolling. */
-export function Screen({ title, subtitle, actions, children, scroll = true }: ScreenProps) {
+export function Screen({ title, subtitle, actions, children, scroll = true, headInList = false }: ScreenProps) {
+  const wide = useIsWide();
   const head =
     title || actions ? (
       <View style={styles.head}>
@@ -35,11 +50,12 @@ export function Screen({ title, subtitle, actions, children, scroll = true }: Sc
       </View>
     ) : null;
   if (!scroll) {
+    const handOver = headInList && !wide;
     return (
       <View style={styles.root}>
         <View style={[styles.inner, styles.fill]}>
-          {head}
-          {children}
+          {handOver ? null : head}
+          <ScreenHeadContext.Provider value={handOver ? head : null}>{children}</ScreenHeadContext.Provider>
         </View>
       </View>
     );
