@@ -13,8 +13,10 @@ import { ROBUSTNESS_LEVELS, robustnessLevel, type RobustnessModel } from '../../
 import { pathDegFromSamples } from '../../shared/math/path-travelled.ts';
 import type { Quat } from '../../shared/math/quaternion.ts';
 import { cueFor } from '../../shared/primitives/primitive-cues.ts';
+import { meetsLimits } from '../../shared/product/candidate-limits.ts';
 import { targetQuat } from '../maneuvers/target-attitude.ts';
 import { type CandidatePart, candidatePrimitives } from './candidate-steps.ts';
+import { candidateTrack } from './candidate-track.ts';
 import { compileForBody, evaluateSequence } from './evaluate-steps.ts';
 import { perCycleRotation } from './per-cycle-rotation.ts';
 import { FAMILY_GROUPS, fitFamilies } from './plan-families.ts';
@@ -51,11 +53,6 @@ export interface PlanOutcome {
   notes: string[];
   /** Wall time of the search and verification, and of the robustness runs, seconds. */
   timings: { searchS: number; robustnessS: number };
-}
-
-/** Whether a candidate meets tolerance, ranges, rate limit and time budget. */
-export function meetsLimits(c: Pick<PlanCandidate, 'withinTolerance' | 'withinRateLimit' | 'rangeViolationCount' | 'withinTimeBudget'>): boolean {
-  return c.withinTolerance && c.withinRateLimit && c.rangeViolationCount === 0 && c.withinTimeBudget;
 }
 
 /** Ranks by (1) limits met, (2) no detour, (3) robustness level, (4) duration; numbers the ranks from 1. */
@@ -220,5 +217,6 @@ function verifyCandidate(body: Body, target: SequenceTarget, parts: CandidatePar
     rangeViolationCount: full.rangeViolationCount,
     evaluations: simulations + 1,
     robustness,
+    track: candidateTrack(full.result.samples.frames),
   };
 }

@@ -3,6 +3,8 @@
  * job on the crew member's current profile body and answers 202 { planId }; GET / lists the
  * sequence's plans newest first (so a reopened composer finds its latest run); GET /:planId returns
  * the plan's state, progress and ranked candidates (shapes in shared/contracts/plan.ts);
+ * GET /:planId/candidates/:rank/motion simulates a suggestion for the 3D preview before it is used
+ * (shared/contracts/motion.ts `CandidateMotionResponse`; kept in memory, as candidates never change);
  * POST /:planId/cancel stops a queued or running plan (its planner thread ends within about a
  * second; the plan ends `cancelled`), 409 `not_open` when it has already ended.
  */
@@ -22,10 +24,15 @@ import { validate } from '../http/validate.ts';
 import { cancelPlan } from '../jobs/run-plan.ts';
 import { currentProfile } from '../maneuvers/current-profile.ts';
 import { requireAuthor } from '../maneuvers/maneuver-access.ts';
+import { MotionCache } from '../maneuvers/motion-cache.ts';
+import { buildCandidateMotion } from '../planning/candidate-motion.ts';
 
 const uuid = z.uuid('Not a valid id.');
 const sequenceParams = z.object({ sequenceId: uuid });
 const planParams = z.object({ sequenceId: uuid, planId: uuid });
+const candidateParams = planParams.extend({
+  rank: z.coerce.number({ error: 'rank must be a whole number' }).int('rank must be a whole number').min(1, 'rank must be at least 1').max(8, 'rank must be at most 8'),
+});
 
 /** The API shape of a stored plan. */
 export function planView(row: PlanRow): Plan {
@@ -108,6 +115,17 @@ export function sequencePlansRouter(ctx: AppContext): Router {
       .where(and(eq(plans.id, planId), eq(plans.sequenceId, sequenceId)));
     if (!row) throw notFound('Plan');
     res.json(planView(row.plan));
+  });
+
+  // Serialised once per candidate: its steps and the plan's profile body are frozen.
+  const motions = new MotionCache<string>(8);
+  router.get('/:planId/candidates/:rank/motion', validate({ params: candidateParams }), async (req, res) => {
+    const { sequenceId, planId, rank } = res.locals.params;
+    if (req.user!.role === 'trainee') throw forbidden('Plans are for planners, reviewers and admins.');
+    const json = await motions.get(`${sequenceId}|${planId}|${rank}`, async () =>
+      JSON.stringify(await buildCandidateMotion(db, ctx.simulation.product, ctx.engineVersion, { sequenceId, planId, rank })));
+    res.set('Cache-Control', 'private, max-age=0');
+    res.type('application/json').send(json);
   });
 
   router.post('/:planId/cancel', validate({ params: planParams }), async (req, res) => {

@@ -83,3 +83,19 @@ export interface MotionResponse {
   /** The verified end state. */
   final: SimulationResult['final'];
 }
+
+/**
+ * Response of GET /api/sequences/:sequenceId/plans/:planId/candidates/:rank/motion: a planner
+ * suggestion's motion for the 3D preview before it is used. Not a saved version: simulated on the
+ * plan's profile version body by the running engine, with the candidate's compiled steps and cues.
+ */
+export interface CandidateMotionResponse extends Omit<MotionResponse, 'versionId' | 'version' | 'status' | 'verifiedAt'> {
+  planId: string;
+  /** The candidate's rank in its plan (1 = best). */
+  rank: number;
+  /** When this motion was simulated (ISO-8601). */
+  computedAt: string;
+}
+
+/** What the 3D player draws: a saved version's motion or a suggestion's. */
+export type PlayerMotion = MotionResponse | CandidateMotionResponse;

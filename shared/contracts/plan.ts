@@ -83,6 +83,23 @@ export const candidateRobustnessSchema = z.object({
 });
 export type CandidateRobustness = z.infer<typeof candidateRobustnessSchema>;
 
+/**
+ * A compact attitude track of a candidate for the side-by-side plots: yaw/pitch/roll (z-y′-x″, yaw
+ * and roll unwrapped so a detour shows) against time, thinned from the verification samples to at
+ * most CANDIDATE_TRACK_POINTS points (the last sample always kept). Arrays share `t`'s length.
+ */
+export const candidateTrackSchema = z.object({
+  /** Seconds from the start, ascending; the last is the candidate's duration. */
+  t: z.array(z.number()),
+  yawDeg: z.array(z.number()),
+  pitchDeg: z.array(z.number()),
+  rollDeg: z.array(z.number()),
+});
+export type CandidateTrack = z.infer<typeof candidateTrackSchema>;
+
+/** Most points of a candidate's stored attitude track (keeps a plan of four candidates small to poll). */
+export const CANDIDATE_TRACK_POINTS = 400;
+
 /** One ranked candidate step list. */
 export const planCandidateSchema = z.object({
   /** 1 = best. */
@@ -125,6 +142,8 @@ export const planCandidateSchema = z.object({
   /** Simulations the search ran for this candidate (single cycles and the verification). */
   evaluations: z.number().int(),
   robustness: candidateRobustnessSchema,
+  /** Attitude against time on the nominal body (absent on plans made before it was stored: suggest again). */
+  track: candidateTrackSchema.optional(),
 });
 export type PlanCandidate = z.infer<typeof planCandidateSchema>;
 

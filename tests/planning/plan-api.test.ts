@@ -8,7 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents } from '../../db/schema/index.ts';
 import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
-import type { Plan } from '../../shared/contracts/plan.ts';
+import type { CandidateMotionResponse } from '../../shared/contracts/motion.ts';
+import { CANDIDATE_TRACK_POINTS, type Plan } from '../../shared/contracts/plan.ts';
 import { as, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
@@ -18,6 +19,8 @@ import { createQuarterTurnSequence } from './quarter-turn-sequence.ts';
 let t: TestApp;
 let jobs: RunningJobQueue;
 let sequenceId: string;
+/** The finished plan of the first test (the motion test previews its candidates). */
+let donePlan: Plan | undefined;
 beforeAll(async () => {
   t = await startTestApp();
   jobs = await startJobQueue(t.ctx, { pollingIntervalS: 1 });
@@ -58,6 +61,7 @@ describe('POST /api/sequences/:id/plans', () => {
     expect(best.pathDeg).toBeGreaterThan(0);
     expect(best.sequence.steps.length).toBeGreaterThan(0);
     expect(plan.elapsedS).toBeGreaterThan(0);
+    donePlan = plan;
 
     const events = await t.ctx.db.select().from(auditEvents).where(and(eq(auditEvents.objectType, 'plan'), eq(auditEvents.objectId, planId)));
     expect(events.map((e) => e.action).sort()).toEqual(['plan.done', 'plan.request']);
@@ -65,6 +69,50 @@ describe('POST /api/sequences/:id/plans', () => {
     expect((await as(t, PEOPLE.reviewer).get(`/sequences/${sequenceId}/plans/${planId}`)).status).toBe(200);
     expect((await as(t, PEOPLE.trainee).get(`/sequences/${sequenceId}/plans/${planId}`)).status).toBe(403);
   }, 90_000);
+
+  it('stores an attitude track per candidate and previews a candidate\'s motion on the plan\'s body', async () => {
+    expect(donePlan, 'the first test finished a plan').toBeTruthy();
+    const plan = donePlan!;
+    for (const c of plan.candidates) {
+      const tr = c.track!;
+      expect(tr.t.length).toBeLessThanOrEqual(CANDIDATE_TRACK_POINTS);
+      for (const k of ['yawDeg', 'pitchDeg', 'rollDeg'] as const) expect(tr[k]).toHaveLength(tr.t.length);
+      expect(tr.t[0]).toBe(0);
+      // Ends at the candidate's duration and its verified final yaw/pitch/roll (unwrapped, so up to whole turns; stored to 0.01°).
+      expect(tr.t.at(-1)).toBeCloseTo(c.durationS, 2);
+      const turns = (a: number, b: number) => Math.abs(((a - b + 540) % 360) - 180);
+      expect(turns(tr.yawDeg.at(-1)!, c.yprDeg.yaw)).toBeLessThan(0.01);
+      expect(turns(tr.pitchDeg.at(-1)!, c.yprDeg.pitch)).toBeLessThan(0.01);
+      expect(turns(tr.rollDeg.at(-1)!, c.yprDeg.roll)).toBeLessThan(0.01);
+    }
+    const best = plan.candidates[0];
+    const url = `/sequences/${sequenceId}/plans/${plan.id}/candidates/1/motion`;
+    const res = await as(t, PEOPLE.planner).get(url);
+    expect(res.status).toBe(200);
+    const m = bodyOf<CandidateMotionResponse>(res);
+    expect(m.planId).toBe(plan.id);
+    expect(m.rank).toBe(1);
+    // One timeline entry per composer step (DECISIONS.md "Steps"), covering the candidate's duration.
+    expect(m.steps).toHaveLength(best.primitives.length);
+    expect(m.duration).toBeCloseTo(best.durationS, 9);
+    expect(m.samples.frames.at(-1)!.t).toBeCloseTo(best.durationS, 9);
+    // The same engine on the same body and steps ends where the plan's verification ended (independent runs, 1e-6 rad).
+    const a = m.final.attitude;
+    const b = best.final.attitude;
+    expect(Math.abs(a.w * b.w + a.x * b.x + a.y * b.y + a.z * b.z)).toBeGreaterThan(Math.cos(1e-6 / 2));
+    expect(m.engineVersion).toBe(t.ctx.engineVersion);
+    // A second request is served from memory: the same text.
+    expect((await as(t, PEOPLE.planner).get(url)).text).toBe(res.text);
+    expect((await as(t, PEOPLE.reviewer).get(url)).status).toBe(200);
+    expect((await as(t, PEOPLE.trainee).get(url)).status).toBe(403);
+    const noRank = await as(t, PEOPLE.planner).get(`/sequences/${sequenceId}/plans/${plan.id}/candidates/8/motion`);
+    expect(noRank.status).toBe(404);
+    expect(apiError(noRank).message).toContain('Suggestion 8');
+    const badRank = await as(t, PEOPLE.planner).get(`/sequences/${sequenceId}/plans/${plan.id}/candidates/first/motion`);
+    expect(badRank.status).toBe(400);
+    expect(apiError(badRank).field).toBe('rank');
+    expect((await as(t, PEOPLE.planner).get(`/sequences/${sequenceId}/plans/00000000-0000-4000-8000-000000000000/candidates/1/motion`)).status).toBe(404);
+  }, 60_000);
 
   it('refuses bad settings naming the field, other roles, and unknown sequences', async () => {
     const bad = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { samples: 5 });
