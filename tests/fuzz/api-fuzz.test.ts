@@ -1,11 +1,14 @@
 /**
  * Property-based fuzzing of every JSON route and every upload route (fast-check, fixed seed,
- * bounded counts): each route gets malformed requests built from a valid example. Properties:
+ * bounded counts): each route gets malformed requests built from a valid example. Routes whose only
+ * input is their path (the cancel, stop and retry routes of background work) get malformed path
+ * parameters. Properties:
  * no response is 5xx, and after every rejected request every table's row count and content
  * checksum are unchanged (nothing half-written). The one deliberate write of a rejection — a
  * refused upload is recorded (uploads row `rejected` + its audit event) — is checked to be
  * exactly that.
  */
+import { randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 
 import { and, eq } from 'drizzle-orm';
@@ -22,7 +25,7 @@ import { writeBvh } from '../recordings/bvh-writer.ts';
 import { bodyOf, errorCode } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { appTables, changedTables, type DbSnapshot, rowCount, snapshot } from './db-snapshot.ts';
-import { malformedBodies, malformedQueries, type Payload } from './malformed.ts';
+import { malformedBodies, malformedPathParams, malformedQueries, type Payload, pctSegment } from './malformed.ts';
 import { brokenCsv, malformedUploads, type RawUpload } from './multipart.ts';
 
 // Response bodies as the web client reads them.
@@ -41,7 +44,14 @@ interface JsonRoute { kind: 'json'; method: 'post' | 'put' | 'patch'; path: stri
 /** GET routes with query parameters: extra coverage beyond the JSON and upload routes. */
 interface QueryRoute { kind: 'query'; path: string; as: string; valid: Record<string, string> }
 interface UploadRoute { kind: 'upload'; path: string; as: string; inputs: fc.Arbitrary<RawUpload> }
-type Route = JsonRoute | QueryRoute | UploadRoute;
+/** A POST whose input is its path: `path` names its parameters (`:id`), `valid` gives a valid value of each. */
+interface ParamsRoute { kind: 'params'; path: string; as: string; valid: Record<string, string> }
+type Route = JsonRoute | QueryRoute | UploadRoute | ParamsRoute;
+
+/** The route's path with these parameter values, percent-encoded. */
+function fillPath(template: string, params: Record<string, string>): string {
+  return template.replace(/:(\w+)/g, (_, name: string) => pctSegment(params[name]));
+}
 
 let t: TestApp;
 let tables: string[];
@@ -56,6 +66,8 @@ beforeAll(async () => {
   const suit = bodyOf<SuitBody>(await as(t, PEOPLE.planner).get(`/suits/${suits[0].id}`));
   const seqId = await createSequence(t, crew, 'Fuzz target');
   const draft = bodyOf<VersionDetail>(await saveVersion(t, seqId, 0)).id;
+  // A well-formed plan id no plan has (queuing a real plan would change tables during the fuzzing).
+  const plan = randomUUID();
   // A version under review, for the reviewer's routes.
   const reviewSeq = await createSequence(t, crew, 'Fuzz review');
   const review = bodyOf<VersionDetail>(await saveVersion(t, reviewSeq, 0)).id;
@@ -97,6 +109,12 @@ beforeAll(async () => {
     json('post', `/api/sequences/versions/${draft}/robustness`, PEOPLE.planner, { samples: 20, seed: 1 }),
     json('post', `/api/rehearsals/${cleared.id}/recording/sign-off`, PEOPLE.reviewer, { note: 'fuzz sign-off' }),
     json('put', `/api/recordings/${bvhRecording.id}/mapping`, PEOPLE.planner, { mapping: bvhRecording.mapping, rateHz: 30 }),
+    // Cancel, stop and retry of background work: their only input is the path.
+    { kind: 'params', path: '/api/sequences/versions/:versionId/robustness/cancel', as: PEOPLE.planner, valid: { versionId: draft } },
+    { kind: 'params', path: '/api/sequences/:sequenceId/plans/:planId/cancel', as: PEOPLE.planner, valid: { sequenceId: seqId, planId: plan } },
+    { kind: 'params', path: '/api/crew/:id/reverifications/cancel', as: PEOPLE.planner, valid: { id: crew } },
+    { kind: 'params', path: '/api/jobs/:kind/:id/retry', as: PEOPLE.admin, valid: { kind: 'plan', id: plan } },
+    { kind: 'params', path: '/api/jobs/:kind/:id/cancel', as: PEOPLE.admin, valid: { kind: 'robustness', id: draft } },
     { kind: 'query', path: '/api/crew', as: PEOPLE.planner, valid: { q: 'Tamsin' } },
     { kind: 'query', path: '/api/audit', as: PEOPLE.admin, valid: { action: 'crew.create', objectType: 'crew_member', since: '2026-01-01T00:00:00Z' } },
     { kind: 'query', path: `/api/motion/${cleared.id}`, as: PEOPLE.trainee, valid: { rateHz: '30' } },
@@ -133,7 +151,7 @@ afterAll(async () => {
 });
 
 /** Sends one generated request; returns status and error code. */
-async function send(route: Route, input: Payload | string | RawUpload): Promise<{ status: number; code?: string }> {
+async function send(route: Route, input: Payload | string | RawUpload | Record<string, string>): Promise<{ status: number; code?: string }> {
   const auth = route.as ? `Bearer ${await t.tokenForEmail(route.as)}` : '';
   let req;
   if (route.kind === 'json') {
@@ -141,6 +159,8 @@ async function send(route: Route, input: Payload | string | RawUpload): Promise<
     req = request(t.app)[route.method](route.path).set('Content-Type', 'application/json').send('json' in p ? JSON.stringify(p.json) : p.raw);
   } else if (route.kind === 'query') {
     req = request(t.app).get(`${route.path}?${input as string}`);
+  } else if (route.kind === 'params') {
+    req = request(t.app).post(fillPath(route.path, input as Record<string, string>));
   } else {
     const u = input as RawUpload;
     req = request(t.app).post(route.path).set('Content-Type', u.contentType).send(u.body);
@@ -170,15 +190,17 @@ describe('fuzzing every JSON and upload route', () => {
     let total = 0;
     const started = Date.now();
     for (const [i, route] of routes.entries()) {
-      const arb = route.kind === 'json' ? malformedBodies(route.valid) : route.kind === 'query' ? malformedQueries(route.valid) : route.inputs;
-      const inputs = fc.sample<Payload | string | RawUpload>(arb, { seed: SEED + i, numRuns: PER_ROUTE });
+      const arb = route.kind === 'json' ? malformedBodies(route.valid) : route.kind === 'query' ? malformedQueries(route.valid)
+        : route.kind === 'params' ? malformedPathParams(route.valid) : route.inputs;
+      const inputs = fc.sample<Payload | string | RawUpload | Record<string, string>>(arb, { seed: SEED + i, numRuns: PER_ROUTE });
       const label = `${route.kind === 'json' ? route.method.toUpperCase() : route.kind === 'query' ? 'GET' : 'POST'} ${route.path}`;
       // Query-string routes are extra coverage (a search for odd text may rightly succeed): only 5xx and writes are checked there.
       if (route.kind !== 'query') refusedPerRoute[label] = 0;
       for (const input of inputs) {
         total++;
         const { status, code } = await send(route, input);
-        const shown = typeof input === 'string' ? input : 'what' in input ? input.what : JSON.stringify('json' in input ? input.json : input.raw)?.slice(0, 160);
+        const shown = typeof input === 'string' ? input : route.kind === 'params' ? JSON.stringify(input).slice(0, 160)
+          : 'what' in input ? input.what : JSON.stringify('json' in input ? input.json : input.raw)?.slice(0, 160);
         if (status >= 500) failures.push(`${label} → ${status} ${code ?? ''} for ${shown}`);
         const after = await snapshot(t.pool, tables);
         if (status >= 400) {

@@ -73,13 +73,29 @@ export function malformedBodies(valid: Record<string, unknown>): fc.Arbitrary<Pa
 /** Malformed query strings: hostile text and wrong shapes for each parameter of a valid query. */
 export function malformedQueries(valid: Record<string, string>): fc.Arbitrary<string> {
   const keys = Object.keys(valid);
-  // Percent-encode the UTF-8 bytes (a URL carries bytes: a lone surrogate arrives as U+FFFD).
-  const pct = (s: string) => [...Buffer.from(s, 'utf8')].map((b) => `%${b.toString(16).padStart(2, '0')}`).join('');
-  const enc = (o: Record<string, string>) => Object.entries(o).map(([k, v]) => `${pct(k)}=${pct(v)}`).join('&');
+  const enc = (o: Record<string, string>) => Object.entries(o).map(([k, v]) => `${pctSegment(k)}=${pctSegment(v)}`).join('&');
   return fc.oneof(
     fc.tuple(fc.constantFrom(...keys), hostileText).map(([k, v]) => enc({ ...valid, [k]: v })),
     fc.tuple(fc.constantFrom(...keys), fc.constantFrom('-1', 'NaN', '1e400', '[]', 'true', '0x10', 'null')).map(([k, v]) => enc({ ...valid, [k]: v })),
     fc.constantFrom(...keys).map((k) => `${enc(valid)}&${k}[]=1&${k}[x]=2`),
     fc.constantFrom('%', '%zz', '%00=%00', '&&&=', '%ED%A0%80').map((raw) => `${enc(valid)}&${raw}`),
   );
+}
+
+/** Percent-encodes the UTF-8 bytes of a path segment (a URL carries bytes: a lone surrogate arrives as U+FFFD). */
+export function pctSegment(s: string): string {
+  return [...Buffer.from(s, 'utf8')].map((b) => `%${b.toString(16).padStart(2, '0')}`).join('');
+}
+
+/** Ids that look almost right: a UUID cut short, with a letter outside hex, without dashes, numbers. */
+const nearMissIds: fc.Arbitrary<string> = fc.uuid().chain((id) => fc.constantFrom(
+  id.slice(0, -1), `${id}0`, id.replace(/[0-9a-f]/, 'g'), id.replaceAll('-', ''), `{${id}}`, `${id}/`, `${id}%`, ` ${id}`, '0', '-1', '1e400', 'null', 'undefined',
+));
+
+/** Malformed path parameters of a route: one parameter of a valid set replaced by hostile text or a near-miss id. */
+export function malformedPathParams(valid: Record<string, string>): fc.Arbitrary<Record<string, string>> {
+  const keys = Object.keys(valid);
+  return fc.tuple(fc.constantFrom(...keys), fc.oneof(hostileText, nearMissIds))
+    .filter(([k, v]) => v !== valid[k])
+    .map(([k, v]) => ({ ...valid, [k]: v }));
 }
