@@ -94,8 +94,8 @@ export const configSchema = z.object({
   JOB_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(2),
   /** Samples of the robustness run queued when a version is saved. */
   ROBUSTNESS_SAMPLES: z.coerce.number().int().min(10).max(20_000).default(1000),
-  /** Samples per robustness chunk job. */
-  ROBUSTNESS_CHUNK_SIZE: z.coerce.number().int().min(1).max(10_000).default(25),
+  /** Samples per robustness chunk job; unset: a run's samples in 16 chunks of at least 25 (robustness-runs.ts). */
+  ROBUSTNESS_CHUNK_SIZE: z.coerce.number().int().min(1).max(10_000).optional(),
 });
 
 export type Config = z.infer<typeof configSchema>;

@@ -143,8 +143,21 @@ export async function startJobQueue(ctx: AppContext, opts: JobQueueOptions = {})
     await boss.work<PlanJob>(PLAN_QUEUE, workOptions, handler(PLAN_QUEUE, (job: Job<PlanJob>) => runPlan(ctx, job.data, { signal: job.signal })));
     await boss.work<InvitationMailJob>(INVITATION_MAIL_QUEUE, workOptions, handler(INVITATION_MAIL_QUEUE, (job: Job<InvitationMailJob>) =>
       deliverInvitation(ctx, job.data, { attempt: job.retryCount, retryLimit: INVITATION_MAIL_RETRY_LIMIT })));
-    await boss.work<RobustnessChunkJob>(ROBUSTNESS_CHUNK_QUEUE, workOptions, handler(ROBUSTNESS_CHUNK_QUEUE, (job: Job<RobustnessChunkJob>) =>
-      runRobustnessChunk(ctx, pool!, job.data, { signal: job.signal, attempt: job.retryCount, retryLimit: CHUNK_RETRY_LIMIT })));
+    // Chunks are short (tens of milliseconds on an idle machine), so the database work around each
+    // (fetch, claim, merge, complete) would leave the threads idle between chunks: this queue takes
+    // one chunk more than it computes at once, and only the computing holds one of the process's
+    // slots, so the next chunk is claimed while the current one computes.
+    const computeChunk = { run: (...args: Parameters<ChunkPool['run']>) => slots.run(() => pool!.run(...args)) };
+    await boss.work<RobustnessChunkJob>(ROBUSTNESS_CHUNK_QUEUE, { ...workOptions, localConcurrency: concurrency + 1 }, async (jobs: Job<RobustnessChunkJob>[]) => {
+      try {
+        for (const job of jobs) {
+          jobsRun[ROBUSTNESS_CHUNK_QUEUE]++;
+          await runRobustnessChunk(ctx, computeChunk, job.data, { signal: job.signal, attempt: job.retryCount, retryLimit: CHUNK_RETRY_LIMIT, receivedAt: Date.now() });
+        }
+      } finally {
+        wake(ROBUSTNESS_CHUNK_QUEUE);
+      }
+    });
   }
 
   if (opts.reconcile ?? worker) {

@@ -163,12 +163,22 @@ export function feedbackAttitude(actual: readonly ExecutionPiece[], nominal: rea
 }
 
 /** Samples [from, to) in order. */
-export function robustnessSamples(inputs: RobustnessInputs, from: number, to: number): RobustnessSample[] {
+/** What every sample of a run shares, computed once per run and reused for each chunk. */
+export interface PreparedRobustness {
+  inputs: RobustnessInputs;
+  /** The plan as the crew member knows it, cut the same way as the perturbed steps (same inserted blends). */
+  nominal: ExecutionPiece[];
+}
+
+export function prepareRobustness(inputs: RobustnessInputs): PreparedRobustness {
+  const planned = perturbSequence(inputs.sequence, () => ({ amplitude: 0, period: 0, phaseDeg: {} }));
+  return { inputs, nominal: executionPieces(inputs.body, planned, inputs.model.reactionDelayS) };
+}
+
+export function robustnessSamples(inputs: RobustnessInputs, from: number, to: number, prepared: PreparedRobustness = prepareRobustness(inputs)): RobustnessSample[] {
   const out: RobustnessSample[] = [];
   if (to <= from) return out;
-  // The plan as the crew member knows it, cut the same way as the perturbed steps (same inserted blends).
-  const planned = perturbSequence(inputs.sequence, () => ({ amplitude: 0, period: 0, phaseDeg: {} }));
-  const nominal = executionPieces(inputs.body, planned, inputs.model.reactionDelayS);
+  const { nominal } = prepared;
   for (let i = from; i < to; i++) {
     const c = perturbedCase(inputs, i);
     const actual = executionPieces(c.body, c.sequence, inputs.model.reactionDelayS);

@@ -1,12 +1,18 @@
 /**
- * `npm run bench:jobs [-- --json] [-- --samples N] [-- --repeats R]`: wall time of a robustness run
- * (default 1,000 samples) of a 60 s suited maneuver from enqueue to merged result, with one and then
- * two worker processes (`server/scripts/worker.ts`, WORKER_CONCURRENCY=1 each, already started and
- * idle) against a throwaway PostgreSQL. The two configurations alternate (one worker, then two,
- * R times, default 3), so a load that changes during the bench weighs on both alike: both workers
- * stay up and warm (one untimed run first), and the second is paused (SIGSTOP, only while the queue
- * is empty) for the one-worker runs and resumed a second before each two-worker run. The figures of every run must be identical (sample i is
- * seeded by (seed, i)). Prints the load average before and after, since the machine may be shared.
+ * `npm run bench:jobs [-- --json] [-- --samples N] [-- --repeats R] [-- --chunk S]`: wall time of a
+ * robustness run (default 1,000 samples, split as the product splits it unless --chunk) of a 60 s
+ * suited maneuver from enqueue to merged result, with one and then two worker processes
+ * (`server/scripts/worker.ts`, WORKER_CONCURRENCY=1 each, already started and idle) against a
+ * throwaway PostgreSQL. The two configurations alternate (one worker, then two, R times, default 3),
+ * so a load that changes during the bench weighs on both alike: both workers stay up and warm (one
+ * untimed run first), and the second is paused (SIGSTOP, only while the queue is empty) for the
+ * one-worker runs and resumed a second before each two-worker run. The figures of every run must be
+ * identical (sample i is seeded by (seed, i)).
+ * Since the machine may be shared, wall time alone says little: the bench prints the load average
+ * before and after, and per run the CPU time of each worker process and of its main thread (the
+ * queue's own work; the samples are computed in a separate thread) and of PostgreSQL (from /proc), and
+ * from the workers' per-chunk timing lines (debug level) when each took its first chunk, how long its
+ * compute thread computed, claimed, merged, and sat idle.
  * With --json the last line is {"oneWorkerS": …, "twoWorkersS": …, "ratio": …, …}.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
@@ -27,19 +33,20 @@ import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
 import { deriveProfile } from '../../server/crew/derive-profile.ts';
 import { startJobQueue } from '../../server/jobs/job-queue.ts';
-import { createRobustnessRun } from '../../server/jobs/robustness/robustness-runs.ts';
+import { createRobustnessRun, defaultChunkSize } from '../../server/jobs/robustness/robustness-runs.ts';
 import { BUILT_IN_SUITS } from '../../server/model/suits/index.ts';
 import { compileForBody, evaluateSequence } from '../../server/planning/evaluate-steps.ts';
 import { robustnessSamples } from '../../server/planning/robustness.ts';
 import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
 import { DEFAULT_ROBUSTNESS_MODEL } from '../../shared/contracts/robustness.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
+import { clusterCpuS, mainThreadCpuS, processCpuS } from './process-cpu.ts';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const { values } = parseArgs({ options: { json: { type: 'boolean' }, samples: { type: 'string' }, repeats: { type: 'string' }, chunk: { type: 'string' } } });
 const SAMPLES = Number(values.samples ?? 1000);
 const REPEATS = Number(values.repeats ?? 3);
-const CHUNK = Number(values.chunk ?? 25);
+const CHUNK = values.chunk ? Number(values.chunk) : defaultChunkSize(SAMPLES);
 const log = (s: string) => console.log(s);
 const load = () => os.loadavg().map((l) => l.toFixed(2)).join(' / ');
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -52,19 +59,31 @@ const MANEUVER: Primitive[] = [
   { kind: 'pause', durationS: 3 },
 ];
 
+/** Per-chunk timing a worker logs at debug level (robustness-runs.ts), tagged with the worker's name. */
+interface ChunkTiming { worker: string; runId: string; chunk: number; fetchedAt: number; claimMs: number; waitMs: number; computeMs: number; mergeMs: number; doneAt: number }
+const timings: ChunkTiming[] = [];
+
 function startWorker(env: NodeJS.ProcessEnv, name: string): Promise<ChildProcess> {
   const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/worker.ts')], {
     cwd: root, env: { ...env, WORKER_NAME: name }, stdio: ['ignore', 'pipe', 'pipe'],
   });
   let out = '';
+  let partial = '';
   return new Promise((resolve, reject) => {
     const onData = (d: Buffer) => {
       out += d.toString();
-      if (out.includes('Ready:')) resolve(child);
-      const ran = /\[[^\]]+\] Jobs run: [^\n]*/.exec(d.toString());
-      if (ran) log(`  ${ran[0]}`);
+      if (out.includes('Ready:')) { out = ''; resolve(child); }
+      const lines = (partial + d.toString()).split('\n');
+      partial = lines.pop() ?? '';
+      for (const line of lines) {
+        if (line.startsWith('{') && line.includes('"chunkTiming"')) {
+          timings.push({ worker: name, ...(JSON.parse(line) as { chunkTiming: Omit<ChunkTiming, 'worker'> }).chunkTiming });
+        }
+        const ran = /\[[^\]]+\] Jobs run: .*/.exec(line);
+        if (ran) log(`  ${ran[0]}`);
+      }
     };
-    child.stdout.on("data", onData);
+    child.stdout.on('data', onData);
     child.stderr.on('data', onData);
     child.on('exit', (code) => reject(new Error(`${name} exited (${code}): ${out}`)));
   });
@@ -83,6 +102,7 @@ async function main() {
   log(`Load average at start (1/5/15 min): ${loadBefore} on ${os.cpus().length} cores`);
   const dir = mkdtempSync(path.join(os.tmpdir(), 'hn-bench-jobs-'));
   const cluster = await startLocalCluster({ dir, database: 'holonaut', throwaway: true, log: () => undefined });
+  const dataDir = path.join(dir, 'data');
   const workers: ChildProcess[] = [];
   try {
     const { db, pool } = createDatabase(cluster.url);
@@ -90,7 +110,7 @@ async function main() {
     await pool.end();
     const env: NodeJS.ProcessEnv = {
       ...process.env, NODE_ENV: 'production', DATABASE_URL: cluster.url, JWT_SECRET: 'bench-secret-that-is-long-enough-0123456789',
-      LOG_LEVEL: 'warn', WORKER_CONCURRENCY: '1', JOB_POLL_SECONDS: '2',
+      LOG_LEVEL: 'debug', WORKER_CONCURRENCY: '1', JOB_POLL_SECONDS: '2',
     };
     const config = loadConfig(env);
     const ctx = createContext(config) as AppContext & { close(): Promise<void> };
@@ -106,23 +126,61 @@ async function main() {
     const target: [number, number, number, number] = [a.w, a.x, a.y, a.z];
     log(`Maneuver: suited demo crew member (1.83 m, 86 kg, pressurised suit), ${nominal.durationS.toFixed(1)} s of steps; ${SAMPLES} samples in chunks of ${CHUNK}, seed 1`);
 
-    const timeRun = async (): Promise<{ s: number; figures: unknown }> => {
+    /** One timed run: wall time enqueue → merged result, CPU of each worker process and of PostgreSQL meanwhile. */
+    interface Timed { s: number; figures: unknown; workerCpuS: number[]; mainThreadCpuS: number[]; postgresCpuS: number; benchCpuS: number; runId: string; t0: number }
+    const cpuNow = () => ({
+      workers: workers.map((w) => processCpuS(w.pid!)), mains: workers.map((w) => mainThreadCpuS(w.pid!)), pg: clusterCpuS(dataDir), bench: process.cpuUsage(),
+    });
+    const timeRun = async (): Promise<Timed> => {
       const runId = await createRobustnessRun(ctx.db, { body, sequence, target, toleranceDeg: 2, samples: SAMPLES, seed: 1, chunkSize: CHUNK });
+      const before = cpuNow();
+      const t0Epoch = Date.now();
       const t0 = performance.now();
       await queue.enqueueRobustness!(runId);
       for (;;) {
-        const [r] = await ctx.db.select({ state: robustnessRuns.state, figures: robustnessRuns.figures, error: robustnessRuns.error }).from(robustnessRuns).where(eq(robustnessRuns.id, runId));
-        if (r.state === 'done') return { s: (performance.now() - t0) / 1000, figures: r.figures };
+        const [r] = await ctx.db.select({ state: robustnessRuns.state, error: robustnessRuns.error }).from(robustnessRuns).where(eq(robustnessRuns.id, runId));
+        if (r.state === 'done') break;
         if (r.state !== 'queued' && r.state !== 'running') throw new Error(`run ${r.state}: ${r.error}`);
-        await new Promise((res) => setTimeout(res, 20));
+        await sleep(20);
       }
+      const s = (performance.now() - t0) / 1000;
+      // The last chunk's timing line is written just after its merge commits.
+      await sleep(150);
+      const after = cpuNow();
+      const [r] = await ctx.db.select({ figures: robustnessRuns.figures }).from(robustnessRuns).where(eq(robustnessRuns.id, runId));
+      const bench = process.cpuUsage(before.bench);
+      return {
+        s, figures: r.figures, runId, t0: t0Epoch,
+        workerCpuS: after.workers.map((c, i) => c - before.workers[i]), mainThreadCpuS: after.mains.map((c, i) => c - before.mains[i]), postgresCpuS: after.pg - before.pg, benchCpuS: (bench.user + bench.system) / 1e6,
+      };
     };
+    /** Where a worker's time went in one run, from its per-chunk timing lines (debug level). */
+    const breakdown = (run: Timed, worker: string) => {
+      const mine = timings.filter((t) => t.runId === run.runId && t.worker === worker);
+      if (!mine.length) return { chunks: 0, firstStartMs: null, computeS: 0, claimS: 0, mergeS: 0, waitS: 0, idleS: run.s };
+      const sum = (k: 'computeMs' | 'claimMs' | 'mergeMs' | 'waitMs') => mine.reduce((x, t) => x + t[k], 0) / 1000;
+      return {
+        chunks: mine.length, firstStartMs: Math.min(...mine.map((t) => t.fetchedAt)) - run.t0,
+        computeS: sum('computeMs'), claimS: sum('claimMs'), mergeS: sum('mergeMs'), waitS: sum('waitMs'),
+        // Time this worker's thread computed nothing between enqueue and the merged result.
+        idleS: run.s - sum('computeMs'),
+      };
+    };
+    const describe = (run: Timed, names: string[]) => names.map((n, i) => {
+      const b = breakdown(run, n);
+      const cpu = `CPU ${run.workerCpuS[i].toFixed(2)} s (main thread ${run.mainThreadCpuS[i].toFixed(2)} s)`;
+      if (!b.chunks) return `${n}: no chunks, ${cpu}`;
+      return `${n}: ${b.chunks} chunks, first ${b.firstStartMs} ms after enqueue, computing ${b.computeS.toFixed(2)} s, claim ${b.claimS.toFixed(3)} s, merge ${b.mergeS.toFixed(3)} s, thread idle ${b.idleS.toFixed(2)} s, ${cpu}`;
+    }).join('; ') + `; PostgreSQL CPU ${run.postgresCpuS.toFixed(2)} s`;
 
     // Reference: the same samples in this process, one thread, no queue (the work the workers share).
+    const cpu0 = process.cpuUsage();
     const t0 = performance.now();
     robustnessSamples({ body, sequence, target, toleranceDeg: 2, seed: 1, model: DEFAULT_ROBUSTNESS_MODEL }, 0, SAMPLES);
     const directS = (performance.now() - t0) / 1000;
-    log(`  one thread in this process, no queue: ${directS.toFixed(2)} s (load ${load()})`);
+    const cpu1 = process.cpuUsage(cpu0);
+    const directCpuS = (cpu1.user + cpu1.system) / 1e6;
+    log(`  one thread in this process, no queue: ${directS.toFixed(2)} s, CPU ${directCpuS.toFixed(2)} s (load ${load()})`);
 
     workers.push(await startWorker(env, 'bench worker 1'));
     const second = await startWorker(env, 'bench worker 2');
@@ -130,45 +188,56 @@ async function main() {
     await sleep(1000);
     const warm = await timeRun();
     log(`  untimed warm-up run, two workers: ${warm.s.toFixed(2)} s`);
-    const oneTimes: number[] = [], twoTimes: number[] = [];
-    let oneFigures: unknown = null, twoFigures: unknown = null;
+    const ones: Timed[] = [], twos: Timed[] = [];
     for (let i = 0; i < REPEATS; i++) {
       // The queue is empty here, so the paused worker holds no job.
       second.kill('SIGSTOP');
       await sleep(500);
       const a = await timeRun();
-      oneTimes.push(a.s);
-      oneFigures = a.figures;
-      log(`  one worker process, run ${i + 1}: ${a.s.toFixed(2)} s (load ${load()})`);
+      ones.push(a);
+      log(`  one worker process, run ${i + 1}: ${a.s.toFixed(2)} s (load ${load()}); ${describe(a, ['bench worker 1'])}`);
       second.kill('SIGCONT');
       await sleep(1000);
       const b = await timeRun();
-      twoTimes.push(b.s);
-      twoFigures = b.figures;
-      log(`  two worker processes, run ${i + 1}: ${b.s.toFixed(2)} s (load ${load()})`);
+      twos.push(b);
+      log(`  two worker processes, run ${i + 1}: ${b.s.toFixed(2)} s (load ${load()}); ${describe(b, ['bench worker 1', 'bench worker 2'])}`);
     }
     // Stopped here so each prints how many jobs it ran (both took chunks).
     await Promise.all(workers.splice(0).map(stopWorker));
-    const one = { median: median(oneTimes), times: oneTimes, figures: oneFigures };
-    const two = { median: median(twoTimes), times: twoTimes, figures: twoFigures };
-    const same = JSON.stringify(one.figures) === JSON.stringify(two.figures) && JSON.stringify(warm.figures) === JSON.stringify(one.figures);
-    if (!same) throw new Error('figures differ between one and two workers: the split changed the result');
-    const f = one.figures as { openLoopP95Deg: number; feedbackP95Deg: number };
-    const ratio = one.median / two.median;
+    const sameFigures = [warm, ...ones, ...twos].every((r) => JSON.stringify(r.figures) === JSON.stringify(warm.figures));
+    if (!sameFigures) throw new Error('figures differ between runs: the split changed the result');
+    const f = warm.figures as { openLoopP95Deg: number; feedbackP95Deg: number };
+    const one = median(ones.map((r) => r.s));
+    const two = median(twos.map((r) => r.s));
+    const ratio = one / two;
+    const workerCpu = (runs: Timed[]) => median(runs.map((r) => r.workerCpuS.reduce((x, c) => x + c, 0)));
+    // The queue's own CPU in the workers: their main threads (the compute threads do only the samples).
+    const mainCpu = (runs: Timed[]) => median(runs.map((r) => r.mainThreadCpuS.reduce((x, c) => x + c, 0)));
+    const pgCpu = (runs: Timed[]) => median(runs.map((r) => r.postgresCpuS));
+    // Thread idle per worker, summed over the workers that ran (the second is paused in one-worker runs).
+    const idle = (runs: Timed[], names: string[]) => median(runs.map((r) => names.reduce((x, n) => x + breakdown(r, n).idleS, 0)));
+    const chunks = Math.ceil(SAMPLES / CHUNK);
     const loadAfter = load();
     log('');
-    log(`| workers | wall time, enqueue → merged result (median of ${REPEATS}) | ratio |`);
-    log('|---|---|---|');
-    log(`| 1 | ${one.median.toFixed(2)} s | 1.00 (queue overhead vs one thread without a queue, measured once: ${(one.median / directS).toFixed(2)}×) |`);
-    log(`| 2 | ${two.median.toFixed(2)} s | ${ratio.toFixed(2)}× faster |`);
-    log(`Identical figures with one and two workers: yes (open-loop p95 ${f.openLoopP95Deg.toFixed(2)}°, feedback p95 ${f.feedbackP95Deg.toFixed(2)}°).`);
+    log(`| workers | wall time, enqueue → merged result (median of ${REPEATS}) | ratio | worker CPU (main threads) | PostgreSQL CPU | compute threads idle |`);
+    log('|---|---|---|---|---|---|');
+    log(`| 1 | ${one.toFixed(2)} s | 1.00 | ${workerCpu(ones).toFixed(2)} s (${mainCpu(ones).toFixed(2)} s) | ${pgCpu(ones).toFixed(2)} s | ${idle(ones, ['bench worker 1']).toFixed(2)} s |`);
+    log(`| 2 | ${two.toFixed(2)} s | ${ratio.toFixed(2)}× faster | ${workerCpu(twos).toFixed(2)} s (${mainCpu(twos).toFixed(2)} s) | ${pgCpu(twos).toFixed(2)} s | ${idle(twos, ['bench worker 1', 'bench worker 2']).toFixed(2)} s |`);
+    log(`Same samples in one thread without a queue: ${directS.toFixed(2)} s wall, ${directCpuS.toFixed(2)} s CPU (cold, measured once). ${chunks} chunks of ${CHUNK}.`);
+    log(`Identical figures in every run: yes (open-loop p95 ${f.openLoopP95Deg.toFixed(2)}°, feedback p95 ${f.feedbackP95Deg.toFixed(2)}°).`);
     log(`Load average (1/5/15 min) before ${loadBefore}, after ${loadAfter}; ${os.cpus().length} cores shared with whatever else runs.`);
     await queue.stop();
     await ctx.close();
     if (values.json) {
+      const round = (x: number) => Number(x.toFixed(3));
       console.log(JSON.stringify({
-        oneWorkerS: Number(one.median.toFixed(3)), twoWorkersS: Number(two.median.toFixed(3)), ratio: Number(ratio.toFixed(3)),
-        directOneThreadS: Number(directS.toFixed(3)), samples: SAMPLES, chunkSize: CHUNK, repeats: REPEATS, oneWorkerRunsS: one.times, twoWorkersRunsS: two.times,
+        oneWorkerS: round(one), twoWorkersS: round(two), ratio: round(ratio),
+        directOneThreadS: round(directS), directOneThreadCpuS: round(directCpuS), samples: SAMPLES, chunkSize: CHUNK, repeats: REPEATS,
+        oneWorkerRunsS: ones.map((r) => round(r.s)), twoWorkersRunsS: twos.map((r) => round(r.s)),
+        oneWorkerCpuS: round(workerCpu(ones)), twoWorkersCpuS: round(workerCpu(twos)),
+        oneWorkerMainThreadCpuS: round(mainCpu(ones)), twoWorkersMainThreadCpuS: round(mainCpu(twos)),
+        oneWorkerPostgresCpuS: round(pgCpu(ones)), twoWorkersPostgresCpuS: round(pgCpu(twos)),
+        oneWorkerThreadIdleS: round(idle(ones, ['bench worker 1'])), twoWorkersThreadIdleS: round(idle(twos, ['bench worker 1', 'bench worker 2'])),
         loadBefore, loadAfter,
       }));
     }

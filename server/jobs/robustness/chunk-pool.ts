@@ -2,7 +2,8 @@
  * Long-lived worker threads that compute robustness chunks, one chunk per thread at a time, so the
  * worker process's event loop stays free for job heartbeats and cancel checks. A chunk that is
  * aborted (its run was cancelled) gets its thread terminated — the only way to stop synchronous
- * code — and a fresh thread replaces it on the next chunk.
+ * code — and a fresh thread replaces it on the next chunk. A thread keeps the inputs of the run it
+ * last worked on, so a run's further chunks send only their sample range.
  */
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
@@ -17,8 +18,12 @@ export class ChunkAbortedError extends Error {
   constructor() { super('chunk stopped'); this.name = 'ChunkAbortedError'; }
 }
 
-interface Pending { request: ChunkRequest; resolve: (s: RobustnessSample[]) => void; reject: (e: Error) => void; signal?: AbortSignal; onAbort?: () => void }
-interface Slot { worker: Worker; job: Pending | null; ready: Promise<void> }
+/** A computed chunk: its samples and the thread's wall time computing them. */
+export interface ChunkResult { samples: RobustnessSample[]; computeMs: number }
+
+interface Pending { request: ChunkRequest; inputs: RobustnessInputs; resolve: (r: ChunkResult) => void; reject: (e: Error) => void; signal?: AbortSignal; onAbort?: () => void }
+/** `key`: the run whose inputs the thread holds. */
+interface Slot { worker: Worker; job: Pending | null; ready: Promise<void>; key: string | null }
 
 export class ChunkPool {
   private slots: Slot[] = [];
@@ -28,12 +33,12 @@ export class ChunkPool {
 
   constructor(readonly size: number) {}
 
-  /** Computes samples [from, to) of `inputs` in a thread. */
-  run(inputs: RobustnessInputs, from: number, to: number, signal?: AbortSignal): Promise<RobustnessSample[]> {
+  /** Computes samples [from, to) of `inputs` in a thread; `key` names the inputs (a run id: same key, same inputs). */
+  run(key: string, inputs: RobustnessInputs, from: number, to: number, signal?: AbortSignal): Promise<ChunkResult> {
     if (this.closed) return Promise.reject(new Error('robustness thread pool is closed'));
     if (signal?.aborted) return Promise.reject(new ChunkAbortedError());
     return new Promise((resolve, reject) => {
-      const job: Pending = { request: { id: this.nextId++, inputs, from, to }, resolve, reject, signal };
+      const job: Pending = { request: { id: this.nextId++, key, from, to }, inputs, resolve, reject, signal };
       job.onAbort = () => this.abort(job);
       signal?.addEventListener('abort', job.onAbort, { once: true });
       this.queue.push(job);
@@ -59,25 +64,29 @@ export class ChunkPool {
 
   private dispatch(): void {
     while (this.queue.length) {
-      let slot = this.slots.find((s) => !s.job);
+      const free = this.slots.filter((s) => !s.job);
+      // A thread that already holds this run's inputs is preferred.
+      let slot = free.find((s) => s.key === this.queue[0].request.key) ?? free[0];
       if (!slot && this.slots.length < this.size) slot = this.spawn();
       if (!slot) return;
       const job = this.queue.shift()!;
       slot.job = job;
-      slot.worker.postMessage(job.request);
+      const fresh = slot.key !== job.request.key;
+      slot.key = job.request.key;
+      slot.worker.postMessage(fresh ? { ...job.request, inputs: job.inputs } : job.request);
     }
   }
 
   private spawn(): Slot {
     const worker = new Worker(ENTRY);
     let markReady = () => {};
-    const slot: Slot = { worker, job: null, ready: new Promise<void>((resolve) => { markReady = resolve; }) };
+    const slot: Slot = { worker, job: null, key: null, ready: new Promise<void>((resolve) => { markReady = resolve; }) };
     worker.on('message', (reply: ChunkReply | ChunkThreadReady) => {
       if (reply.kind === 'ready') return markReady();
       const job = slot.job;
       if (!job || job.request.id !== reply.id) return;
       slot.job = null;
-      if (reply.kind === 'done') this.settle(job, () => job.resolve(reply.samples));
+      if (reply.kind === 'done') this.settle(job, () => job.resolve({ samples: reply.samples, computeMs: reply.computeMs }));
       else this.settle(job, () => job.reject(new Error(reply.message)));
       this.dispatch();
     });

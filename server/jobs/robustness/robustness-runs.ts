@@ -8,6 +8,8 @@
  * takes no more results. A chunk's worker checks its run's state every second and stops when the
  * run was cancelled.
  */
+import { performance } from 'node:perf_hooks';
+
 import { and, asc, eq, inArray, notInArray, sql } from 'drizzle-orm';
 import type { PgBoss } from 'pg-boss';
 
@@ -24,14 +26,25 @@ import type { StoredVersion } from '../../maneuvers/stored-version.ts';
 import { targetQuat } from '../../maneuvers/target-attitude.ts';
 import { type RobustnessFigures, type RobustnessInputs, type RobustnessSample, summariseRobustness } from '../../planning/robustness.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../queue-names.ts';
-import { ChunkAbortedError, type ChunkPool } from './chunk-pool.ts';
+import { ChunkAbortedError, type ChunkPool, type ChunkResult } from './chunk-pool.ts';
 
 /** Samples of a version's run unless asked otherwise. */
 export const DEFAULT_ROBUSTNESS_SAMPLES = 1000;
 /** Seed of a version's run unless asked otherwise (a fixed seed: the same version gives the same figures). */
 export const DEFAULT_ROBUSTNESS_SEED = 1;
-/** Samples per chunk job: small enough to spread over workers, large enough that a job's overhead is small. */
-export const DEFAULT_CHUNK_SIZE = 25;
+/**
+ * Chunks per run unless a chunk size is given: enough that up to eight worker processes each get two
+ * or more, few enough that the queue's work per chunk (fetch, claim, merge: a few milliseconds of
+ * CPU) stays small beside the samples (npm run bench:jobs measured both).
+ */
+export const CHUNKS_PER_RUN = 16;
+/** Fewest samples in a chunk of a default split (a small run is not cut finer than this). */
+export const MIN_CHUNK_SAMPLES = 25;
+
+/** Samples per chunk when none is asked for: the run in CHUNKS_PER_RUN chunks of at least MIN_CHUNK_SAMPLES. */
+export function defaultChunkSize(samples: number): number {
+  return Math.max(MIN_CHUNK_SAMPLES, Math.ceil(samples / CHUNKS_PER_RUN));
+}
 
 /** States in which a run or chunk may still change. */
 export const OPEN_STATES = ['queued', 'running'] as const;
@@ -80,7 +93,7 @@ export function versionRunInputs(v: StoredVersion): Pick<NewRun, 'body' | 'seque
 /** Inserts a run and its chunks (queued); returns the run id. Enqueue its chunks after the commit. */
 export async function createRobustnessRun(db: Database, run: NewRun): Promise<string> {
   const samples = run.samples ?? DEFAULT_ROBUSTNESS_SAMPLES;
-  const chunkSize = Math.max(1, run.chunkSize ?? DEFAULT_CHUNK_SIZE);
+  const chunkSize = Math.max(1, run.chunkSize ?? defaultChunkSize(samples));
   const model = robustnessModelSchema.parse(run.model ?? DEFAULT_ROBUSTNESS_MODEL);
   return db.transaction(async (tx) => {
     const [row] = await tx.insert(robustnessRuns).values({
@@ -114,39 +127,70 @@ export async function enqueueRobustnessChunks(ctx: AppContext, boss: PgBoss, run
   await boss.insert(ROBUSTNESS_CHUNK_QUEUE, wanted.map((c) => ({ data: { runId, chunk: c.chunk } satisfies RobustnessChunkJob })));
 }
 
-/** Runs one chunk job. Throws only for what a retry may fix (the process shutting down, the database). */
+/**
+ * Inputs of the runs this process worked on lately, by run id (a run's inputs never change): a run's
+ * further chunks skip reading and parsing them again.
+ */
+const runInputs = new Map<string, RobustnessInputs>();
+const RUN_INPUTS_KEPT = 8;
+
+async function inputsOf(db: Database, runId: string): Promise<RobustnessInputs | null> {
+  const kept = runInputs.get(runId);
+  if (kept) return kept;
+  const [run] = await db.select({ inputs: robustnessRuns.inputs, toleranceDeg: robustnessRuns.toleranceDeg, seed: robustnessRuns.seed, model: robustnessRuns.model })
+    .from(robustnessRuns).where(eq(robustnessRuns.id, runId));
+  if (!run) return null;
+  const inputs: RobustnessInputs = { ...(run.inputs as StoredInputs), toleranceDeg: run.toleranceDeg, seed: run.seed, model: robustnessModelSchema.parse(run.model) };
+  runInputs.set(runId, inputs);
+  if (runInputs.size > RUN_INPUTS_KEPT) runInputs.delete(runInputs.keys().next().value!);
+  return inputs;
+}
+
+/**
+ * Runs one chunk job. Throws only for what a retry may fix (the process shutting down, the database).
+ * `compute` is the thread pool (or a gate in front of it). Logs where the chunk's time went at debug
+ * level (`chunkTiming`: claim, wait for a thread, compute, merge; npm run bench:jobs reads it).
+ */
 export async function runRobustnessChunk(
-  ctx: AppContext, pool: ChunkPool, job: RobustnessChunkJob,
-  opts: { signal?: AbortSignal; attempt: number; retryLimit: number; checkEveryMs?: number },
+  ctx: AppContext, compute: Pick<ChunkPool, 'run'>, job: RobustnessChunkJob,
+  opts: { signal?: AbortSignal; attempt: number; retryLimit: number; checkEveryMs?: number; receivedAt?: number },
 ): Promise<void> {
   const { db } = ctx;
-  const [run] = await db.select().from(robustnessRuns).where(eq(robustnessRuns.id, job.runId));
-  if (!run || CLOSED_STATES.includes(run.state)) return;
-  const [chunk] = await db.select().from(robustnessChunks)
-    .where(and(eq(robustnessChunks.runId, run.id), eq(robustnessChunks.chunkIndex, job.chunk)));
-  if (!chunk || chunk.state === 'done' || chunk.state === 'cancelled') return;
-
-  await db.update(robustnessChunks).set({ state: 'running', attempts: sql`${robustnessChunks.attempts} + 1`, error: null })
-    .where(and(eq(robustnessChunks.runId, run.id), eq(robustnessChunks.chunkIndex, chunk.chunkIndex), chunkOpen()));
-  await db.update(robustnessRuns).set({ state: 'running', startedAt: sql`coalesce(${robustnessRuns.startedAt}, now())` })
-    .where(and(eq(robustnessRuns.id, run.id), eq(robustnessRuns.state, 'queued')));
+  const fetchedAt = opts.receivedAt ?? Date.now();
+  const t0 = performance.now();
+  // Claim the chunk in one statement, only while it and its run are open.
+  const [chunk] = await db.update(robustnessChunks).set({ state: 'running', attempts: sql`${robustnessChunks.attempts} + 1`, error: null })
+    .where(and(
+      eq(robustnessChunks.runId, job.runId), eq(robustnessChunks.chunkIndex, job.chunk), chunkOpen(),
+      sql`exists (select 1 from ${robustnessRuns} where ${robustnessRuns.id} = ${job.runId} and ${robustnessRuns.state} in ('queued', 'running'))`,
+    ))
+    .returning({ chunkIndex: robustnessChunks.chunkIndex, fromSample: robustnessChunks.fromSample, toSample: robustnessChunks.toSample });
+  if (!chunk) return;
+  const firstHere = !runInputs.has(job.runId);
+  const inputs = await inputsOf(db, job.runId);
+  if (!inputs) return;
+  // The first chunk this process takes of a run marks the run running (idempotent; later ones find it so).
+  if (firstHere) {
+    await db.update(robustnessRuns).set({ state: 'running', startedAt: sql`coalesce(${robustnessRuns.startedAt}, now())` })
+      .where(and(eq(robustnessRuns.id, job.runId), eq(robustnessRuns.state, 'queued')));
+  }
+  const claimMs = performance.now() - t0;
 
   // Stop when the run is cancelled (checked here) or the queue takes the job away (its signal).
   const stop = new AbortController();
   const onJobAbort = () => stop.abort();
   opts.signal?.addEventListener('abort', onJobAbort, { once: true });
   const watch = setInterval(() => {
-    void db.select({ state: robustnessRuns.state }).from(robustnessRuns).where(eq(robustnessRuns.id, run.id))
+    void db.select({ state: robustnessRuns.state }).from(robustnessRuns).where(eq(robustnessRuns.id, job.runId))
       .then(([r]) => { if (!r || CLOSED_STATES.includes(r.state)) stop.abort(); })
       .catch(() => undefined);
   }, opts.checkEveryMs ?? 1000);
   watch.unref();
 
-  const stored = run.inputs as StoredInputs;
-  const inputs: RobustnessInputs = { ...stored, toleranceDeg: run.toleranceDeg, seed: run.seed, model: robustnessModelSchema.parse(run.model) };
-  let samples: RobustnessSample[];
+  let result: ChunkResult;
+  const t1 = performance.now();
   try {
-    samples = await pool.run(inputs, chunk.fromSample, chunk.toSample, stop.signal);
+    result = await compute.run(job.runId, inputs, chunk.fromSample, chunk.toSample, stop.signal);
   } catch (err) {
     if (err instanceof ChunkAbortedError) {
       if (opts.signal?.aborted) throw new Error('the queue took this chunk back (its run was cancelled or its claim expired)');
@@ -155,14 +199,24 @@ export async function runRobustnessChunk(
     const message = err instanceof Error ? err.message : String(err);
     if (/pool is closed/.test(message)) throw err; // shutting down: another worker retries it
     // The model failed on these inputs: a retry would fail the same way, so the run fails now.
-    await failRobustnessRun(ctx, run.id, `samples ${chunk.fromSample}–${chunk.toSample - 1} failed: ${message}`, chunk.chunkIndex);
+    await failRobustnessRun(ctx, job.runId, `samples ${chunk.fromSample}–${chunk.toSample - 1} failed: ${message}`, chunk.chunkIndex);
     return;
   } finally {
     clearInterval(watch);
     opts.signal?.removeEventListener('abort', onJobAbort);
   }
-  await mergeChunk(ctx, run.id, chunk.chunkIndex, samples);
+  const t2 = performance.now();
+  await mergeChunk(ctx, job.runId, chunk.chunkIndex, result.samples);
+  const t3 = performance.now();
+  ctx.logger.debug({
+    chunkTiming: {
+      runId: job.runId, chunk: chunk.chunkIndex, fetchedAt, claimMs: round(claimMs), waitMs: round(t2 - t1 - result.computeMs),
+      computeMs: round(result.computeMs), mergeMs: round(t3 - t2), doneAt: Date.now(),
+    },
+  }, 'robustness chunk timing');
 }
+
+const round = (ms: number) => Math.round(ms * 100) / 100;
 
 function chunkOpen() {
   return notInArray(robustnessChunks.state, ['done', 'cancelled']);
@@ -171,7 +225,11 @@ function chunkOpen() {
 /** Stores one chunk's samples and, when it was the last, the run's figures. Idempotent. */
 export async function mergeChunk(ctx: AppContext, runId: string, chunkIndex: number, samples: RobustnessSample[]): Promise<void> {
   await ctx.db.transaction(async (tx) => {
-    const [run] = await tx.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId)).for('update');
+    // Only the columns needed here (the stored inputs are large), locked so that merges take turns.
+    const [run] = await tx.select({
+      state: robustnessRuns.state, doneSamples: robustnessRuns.doneSamples, samples: robustnessRuns.samples, toleranceDeg: robustnessRuns.toleranceDeg,
+      seed: robustnessRuns.seed, sequenceVersionId: robustnessRuns.sequenceVersionId, planId: robustnessRuns.planId,
+    }).from(robustnessRuns).where(eq(robustnessRuns.id, runId)).for('update');
     if (!run || CLOSED_STATES.includes(run.state)) return;
     const stored = await tx.update(robustnessChunks)
       .set({ state: 'done', results: samples, finishedAt: new Date(), error: null })
@@ -187,7 +245,7 @@ export async function mergeChunk(ctx: AppContext, runId: string, chunkIndex: num
     const figures = summariseRobustness(all.flatMap((c) => c.results as RobustnessSample[]), run.toleranceDeg);
     await tx.update(robustnessRuns).set({ doneSamples, state: 'done', figures, finishedAt: new Date() }).where(eq(robustnessRuns.id, runId));
     await recordAudit(tx, {
-      actorId: null, action: 'robustness.done', objectType: run.sequenceVersionId ? 'sequence_version' : 'plan', objectId: run.sequenceVersionId ?? run.planId ?? run.id,
+      actorId: null, action: 'robustness.done', objectType: run.sequenceVersionId ? 'sequence_version' : 'plan', objectId: run.sequenceVersionId ?? run.planId ?? runId,
       detail: { runId, samples: figures.samples, seed: run.seed, openLoopP95Deg: figures.openLoopP95Deg, feedbackP95Deg: figures.feedbackP95Deg },
     });
   });
