@@ -32,13 +32,15 @@ export function visibleSequences(user: SessionUser): SQL | undefined {
   return and(eq(sequences.crewMemberId, user.crewMemberId ?? '00000000-0000-0000-0000-000000000000'), isNull(sequences.archivedAt));
 }
 
-/** SQL condition on versions for what the user may see (the SQL form of traineeMaySee). */
+/** SQL condition on versions: cleared, or once cleared and now flagged for a re-check (what a trainee rehearses or is told about). */
+export function clearedOrFlagged(): SQL | undefined {
+  return or(eq(sequenceVersions.status, 'cleared'), and(eq(sequenceVersions.status, 'recheck'), isNotNull(sequenceVersions.clearedAt)));
+}
+
+/** SQL condition on versions for what the user may see (the SQL form of maySeeVersion). */
 export function visibleVersions(user: SessionUser): SQL | undefined {
   if (user.role !== 'trainee') return undefined;
-  return and(
-    visibleSequences(user),
-    or(eq(sequenceVersions.status, 'cleared'), and(eq(sequenceVersions.status, 'recheck'), isNotNull(sequenceVersions.clearedAt))),
-  );
+  return and(visibleSequences(user), clearedOrFlagged());
 }
 
 /** What the visibility rule reads of a version. */

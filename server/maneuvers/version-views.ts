@@ -2,13 +2,14 @@
  * Reads versions and sequences as the API shows them (shared/contracts/maneuver.ts), with the
  * names, profile version numbers and latest re-verification joined in.
  */
-import { and, asc, desc, eq, inArray, isNotNull, or, type SQL,sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, type SQL, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, type ReverificationRow, reverifications, reviews, robustnessRuns, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
 import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { levelOf, type RobustnessBrief, type RobustnessState } from '../../shared/contracts/robustness.ts';
+import { clearedOrFlagged } from './maneuver-access.ts';
 import { readSequenceTarget, readVersionTarget } from './stored-version.ts';
 
 const author = alias(users, 'author');
@@ -207,7 +208,7 @@ export async function sequenceListRows(db: Database, where: SQL | undefined, vis
   const latest = db.select(brief).from(sequenceVersions)
     .where(allOf(ofSequence, visible)).orderBy(desc(sequenceVersions.version)).limit(1).as('latest');
   const cleared = db.select(brief).from(sequenceVersions)
-    .where(allOf(ofSequence, visible, or(eq(sequenceVersions.status, 'cleared'), and(eq(sequenceVersions.status, 'recheck'), isNotNull(sequenceVersions.clearedAt)))))
+    .where(allOf(ofSequence, visible, clearedOrFlagged()))
     .orderBy(desc(sequenceVersions.version)).limit(1).as('cleared');
   const count = sql<number>`(SELECT count(*)::int FROM ${sequenceVersions} WHERE ${allOf(ofSequence, visible)})`;
   const rows = await db

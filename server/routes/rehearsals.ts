@@ -1,4 +1,4 @@
-import { and, desc, eq, inArray, type SQL } from 'drizzle-orm';
+import { and, desc, eq, inArray, isNull, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
 
 import { crewMembers, rehearsals, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
@@ -7,7 +7,7 @@ import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, forbidden, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
-import { assertRehearsable } from '../maneuvers/maneuver-access.ts';
+import { assertRehearsable, visibleVersions } from '../maneuvers/maneuver-access.ts';
 import { recheckInfos } from '../maneuvers/recheck-info.ts';
 import { compiledDuration, stepListCount } from '../maneuvers/step-timeline.ts';
 import { loadStoredVersion, readStoredCompiled, readVersionTarget } from '../maneuvers/stored-version.ts';
@@ -49,17 +49,13 @@ export function rehearsalsRouter(ctx: AppContext): Router {
 
   router.get('/available', async (req, res) => {
     const me = req.user!;
-    if (me.role === 'trainee' && !me.crewMemberId) {
-      res.json({ versions: [] });
-      return;
-    }
-    const own = me.role === 'trainee' ? eq(sequences.crewMemberId, me.crewMemberId!) : undefined;
     const rows = await db
       .select({ v: sequenceVersions, s: sequences, crewName: crewMembers.name })
       .from(sequenceVersions)
       .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
       .innerJoin(crewMembers, eq(crewMembers.id, sequences.crewMemberId))
-      .where(and(inArray(sequenceVersions.status, ['cleared', 'recheck']), own))
+      // Archived maneuvers are retired from rehearsal for everyone; a trainee sees only what the visibility rule shows.
+      .where(and(inArray(sequenceVersions.status, ['cleared', 'recheck']), isNull(sequences.archivedAt), visibleVersions(me)))
       .orderBy(sequences.name, desc(sequenceVersions.version));
     const mine = rows.length
       ? await selectRehearsals(and(
