@@ -10,6 +10,7 @@ import {
   createEstimateWork, createRatePolynomial, ESTIMATE_NODES, type EstimateWork, fitRatePolynomial, GAUSS_NODES, localErrorEstimate, magnusTheta,
   polynomialTheta, quatLogBetween, quatTimesExp, type RatePolynomial,
 } from './magnus.ts';
+import type { RateNodes } from './rate-nodes.ts';
 import { mergeRigidSegments } from './rigid-merge.ts';
 
 /** Integrator settings. */
@@ -20,13 +21,15 @@ export interface IntegratorOptions {
   atol: number;
   /** Max accepted plus rejected steps per piece (default 100,000). */
   maxSteps?: number;
+  /** Records ω at the nodes of every accepted step here (the momentum audit's reference rate). */
+  nodes?: RateNodes;
 }
 
 /** Integrator statistics. */
 export interface IntegratorStats {
   /** Evaluations of ω(t) by the stepping (rejected steps included); samples not counted. */
   rhsEvaluations: number;
-  /** Evaluations of ω(t) spent on the attitudes at requested times (3 per time strictly inside a step). */
+  /** Evaluations of ω(t) spent on the attitudes at requested times (3 per time in a piece's first or last step), and on each piece's two ends when nodes are recorded. */
   sampleEvaluations: number;
   steps: number;
   rejectedSteps: number;
@@ -166,6 +169,9 @@ interface StepWork {
   /** ω at the nodes of a partial step (samples), and its θ. */
   ws: Float64Array;
   thetaS: Float64Array;
+  /** Where accepted nodes are recorded (null: nowhere), and the current piece's index. */
+  record: RateNodes | null;
+  piece: number;
 }
 
 /** ω at the Gauss nodes of [t, t+h] into w, then θ into `theta`. */
@@ -221,6 +227,15 @@ function pushNodes(sw: StepWork, t: number, h: number, w: Float64Array, inPlace:
     ringT[6 + j] = t + GAUSS_NODES[j] * h;
     for (let c = 0; c < 3; c++) ringW[3 * (6 + j) + c] = w[3 * j + c];
   }
+  const rec = sw.record;
+  if (rec) for (let j = 0; j < 3; j++) rec.add(sw.piece, t + GAUSS_NODES[j] * h, w, 3 * j);
+}
+
+/** Records ω at a piece's end t (one evaluation, counted with the samples'). */
+function recordEnd(source: RateSource, t: number, sw: StepWork, stats: IntegratorStats): void {
+  source.rate(t, sw.ws, 0);
+  stats.sampleEvaluations++;
+  (sw.record as RateNodes).add(sw.piece, t, sw.ws, 0);
 }
 
 /**
@@ -262,6 +277,7 @@ export function integrateAttitude(
     w: new Float64Array(9), histT: new Float64Array(ESTIMATE_NODES), histW: new Float64Array(3 * ESTIMATE_NODES), histCount: 0, est: createEstimateWork(), poly: createRatePolynomial(),
     ringT: new Float64Array(9), ringW: new Float64Array(27), pending: false, pendT: 0, pendQ: new Float64Array(4), pendFrom: 0, pendTo: 0, wA: new Float64Array(9), thetaA: new Float64Array(3), thetaB: new Float64Array(3),
     qTmp: new Float64Array(4), theta: new Float64Array(3), ws: new Float64Array(9), thetaS: new Float64Array(3),
+    record: opts.nodes ?? null, piece: 0,
   };
   const tol = stepTolerance(opts.rtol, opts.atol);
   const maxSteps = opts.maxSteps ?? 100_000;
@@ -274,12 +290,16 @@ export function integrateAttitude(
   for (let p = 0; p < plan.pieces.length; p++) {
     const piece = plan.pieces[p];
     source.setPiece(piece);
+    sw.piece = p;
     const span = piece.t1 - piece.t0;
     // Nothing moves in a hold: ω = 0 exactly, the attitude stays.
     const still = piece.moving.length === 0;
     let t = piece.t0, tries = 0;
     sw.histCount = 0;
     sw.pending = false;
+    // Recording: ω at the piece's ends too, so that the nodes span it (no extrapolation there).
+    const record = !still && sw.record !== null;
+    if (record) recordEnd(source, piece.t0, sw, stats);
     while (t < piece.t1) {
       const left = piece.t1 - t;
       // The last step lands on the boundary; a remainder under half a step is shared with the one before.
@@ -344,6 +364,7 @@ export function integrateAttitude(
       t = tEnd;
     }
     flushPending(sw, times, outputs, source, stats, false);
+    if (record) recordEnd(source, piece.t1, sw, stats);
   }
   // Times past the end (rounding) take the final attitude.
   while (next < times.length) { outputs.set(q, 4 * next); next++; }

@@ -20,7 +20,7 @@
  * H is checked with the defect on either side of each sample; the larger counts.
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
-import { PlanRate } from './integrate-attitude.ts';
+import { PlanRate, type RateSource } from './integrate-attitude.ts';
 import type { MotionPlan } from './joint-motion.ts';
 import { LOBATTO_NODES, magnusFromWeights, magnusLobatto, momentWeights, quatLogBetween, quatTimesExp } from './magnus.ts';
 import { auditAt, createAuditWork } from './momentum-audit.ts';
@@ -67,27 +67,37 @@ export function pieceIndexAt(plan: MotionPlan, t: number): number {
   return plan.pieces.length - 1;
 }
 
+/** What the audit takes besides the track. */
+export interface AuditOptions {
+  /** Skip the audit: nothing is computed and every figure is NaN. */
+  skip?: boolean;
+  /**
+   * The reference rate the track's departure is measured from (default: the audit's own
+   * evaluations of ω). The integrator's recorded nodes (rate-nodes.ts) serve at no new evaluations:
+   * ω depends on time only, and the rate the track has is still derived from its attitudes.
+   */
+  reference?: RateSource;
+}
+
 /**
  * Audits attitudes `attitudes` ([w,x,y,z] per time, body → inertial) at ascending `times` (s) of
- * a plan on a model. `shapeOnly`: only the peak shape momentum (the audit skipped; H is NaN).
+ * a plan on a model.
  */
-export function auditTrack(model: BodyModel, plan: MotionPlan, times: ArrayLike<number>, attitudes: Float64Array, shapeOnly = false): TrackAudit {
+export function auditTrack(model: BodyModel, plan: MotionPlan, times: ArrayLike<number>, attitudes: Float64Array, options: AuditOptions = {}): TrackAudit {
   const n = times.length;
-  const rate = new PlanRate(model);
+  if (options.skip) return { maxAbs: NaN, relative: NaN, peakShapeMomentum: NaN, atTime: 0, points: n, rateEvaluations: 0 };
+  const own = options.reference ? null : new PlanRate(model);
+  const rate: RateSource = options.reference ?? (own as PlanRate);
   const owner = new Int32Array(n);
-  // ω (root frame, rad/s) at every sample, from the audit's own evaluations; peak ‖h‖.
+  // The reference ω (root frame, rad/s) at every sample.
   const omega = new Float64Array(3 * n);
-  let peakH = 0;
   for (let k = 0; k < n; k++) {
     const p = pieceIndexAt(plan, times[k]);
     owner[k] = p;
     if (p < 0) continue;
     rate.setPiece(plan.pieces[p]);
     rate.rate(times[k], omega, 3 * k);
-    const h = rate.shapeMomentum();
-    peakH = Math.max(peakH, Math.sqrt(h[0] * h[0] + h[1] * h[1] + h[2] * h[2]));
   }
-  if (shapeOnly) return { maxAbs: NaN, relative: NaN, peakShapeMomentum: peakH, atTime: 0, points: n, rateEvaluations: rate.evaluations };
 
   // The track's excess rate on each interval k → k+1 (body frame, rad/s; NaN: none).
   const excess = new Float64Array(3 * Math.max(0, n - 1)).fill(NaN);
@@ -137,15 +147,17 @@ export function auditTrack(model: BodyModel, plan: MotionPlan, times: ArrayLike<
     excess[3 * k] = d[0] / dt; excess[3 * k + 1] = d[1] / dt; excess[3 * k + 2] = d[2] / dt;
   }
 
-  // H at each sample with the rate the track has on either side (root frame: the same norm as in the world frame).
+  // H at each sample with the rate the track has on either side (root frame: the same norm as in the
+  // world frame); the peak shape momentum from the same differenced poses.
   const work = createAuditWork(model);
-  let maxH = 0, atTime = 0;
+  let maxH = 0, atTime = 0, peakH = 0;
   for (let k = 0; k < n; k++) {
     const p = owner[k];
     if (p < 0) continue;
     w[0] = omega[3 * k]; w[1] = omega[3 * k + 1]; w[2] = omega[3 * k + 2];
     auditAt(model, plan.pieces[p], times[k], w, work);
-    const { H, lock: L } = work;
+    const { H, lock: L, shape } = work;
+    peakH = Math.max(peakH, Math.sqrt(shape[0] * shape[0] + shape[1] * shape[1] + shape[2] * shape[2]));
     // Without a defect on either side (a lone sample, or intervals under MIN_DEFECT_INTERVAL_S), H as it stands.
     let checked = false;
     for (let side = 0; side < 3; side++) {
@@ -164,5 +176,5 @@ export function auditTrack(model: BodyModel, plan: MotionPlan, times: ArrayLike<
       if (norm > maxH) { maxH = norm; atTime = times[k]; }
     }
   }
-  return { maxAbs: maxH, relative: peakH > 0 ? maxH / peakH : 0, peakShapeMomentum: peakH, atTime, points: n, rateEvaluations: rate.evaluations };
+  return { maxAbs: maxH, relative: peakH > 0 ? maxH / peakH : 0, peakShapeMomentum: peakH, atTime, points: n, rateEvaluations: own ? own.evaluations : 0 };
 }

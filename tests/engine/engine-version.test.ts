@@ -13,6 +13,7 @@ const ENGINE_INPUTS = [
   'server/engine/locked-momentum.ts',
   'server/engine/magnus.ts',
   'server/engine/momentum-audit.ts',
+  'server/engine/rate-nodes.ts',
   'server/engine/rigid-merge.ts',
   'server/engine/simulate.ts',
   'server/engine/track-audit.ts',

@@ -2,13 +2,15 @@
  * The momentum audit catches the integrator (issue 11; DECISIONS.md "Audit"): perturbing the
  * integrated attitude at one sample by 1e-6 rad, or integrating ω scaled by (1 + 1e-6), raises
  * max ‖H‖ / peak shape momentum above 1e-7, while a healthy run stays below 1e-8. The audit sees
- * only the integrator's output (server/engine/track-audit.ts).
+ * only the integrator's output (server/engine/track-audit.ts): its attitudes, and — as the full run
+ * audits — the ω values it recorded at its nodes as the reference rate.
  */
 import { describe, expect, it } from 'vitest';
 
 import { integrateAttitude, PlanRate, type RateSource } from '../../server/engine/integrate-attitude.ts';
 import { compileMotion, type MotionPiece, type MotionPlan } from '../../server/engine/joint-motion.ts';
 import { quatTimesExp } from '../../server/engine/magnus.ts';
+import { RateNodes } from '../../server/engine/rate-nodes.ts';
 import { sampleTimes, simulate, simulateFinal, simulateModel } from '../../server/engine/simulate.ts';
 import { auditTrack } from '../../server/engine/track-audit.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
@@ -106,6 +108,51 @@ describe('momentum audit: faults in the integration', () => {
   it('a sloppy integration (rtol 1e-4) shows in the audit', () => {
     const sloppy = integrateAttitude(model, plan, { rtol: 1e-4, atol: 1e-4 }, times);
     expect(auditTrack(model, plan, times, sloppy.outputs).relative).toBeGreaterThan(HEALTHY);
+  });
+});
+
+describe('momentum audit: the same faults with the integrator\'s recorded nodes as the reference rate (what simulateModel runs)', () => {
+  const { model, plan } = standard();
+  const times = sampleTimes(plan.duration, 60);
+  const nodes = new RateNodes(plan);
+  const healthy = integrateAttitude(model, plan, { rtol: 1e-10, atol: 1e-10, nodes }, times);
+
+  it('the healthy track audits below 1e-8, with no evaluations of ω by the audit', () => {
+    const audit = auditTrack(model, plan, times, healthy.outputs, { reference: nodes });
+    expect(audit.relative).toBeLessThan(HEALTHY);
+    expect(audit.rateEvaluations).toBe(0);
+    // The same peak shape momentum (differenced poses) as with the audit's own ω.
+    expect(audit.peakShapeMomentum).toBeCloseTo(auditTrack(model, plan, times, healthy.outputs).peakShapeMomentum, 6);
+  });
+
+  const picks = [[0.5, [1, 0, 0]], [1.9, [0, 1, 0]], [3.55, [0, 0, 1]], [5.2, [0.6, 0, 0.8]], [plan.duration, [0, 0.8, 0.6]]] as const;
+  for (const [t, axis] of picks) {
+    it(`1e-6 rad about [${axis.join(', ')}] at the sample at ${t.toFixed(2)} s raises it above ${FAULT}`, () => {
+      const k = times.findIndex((s) => Math.abs(s - t) < 1e-9);
+      const bad = healthy.outputs.slice();
+      quatTimesExp(bad, 4 * k, axis.map((v) => v * 1e-6), 0, bad, 4 * k);
+      const audit = auditTrack(model, plan, times, bad, { reference: nodes });
+      expect(audit.relative).toBeGreaterThan(FAULT);
+      expect(Math.abs(audit.atTime - t)).toBeLessThan(0.02);
+    });
+  }
+
+  it(`ω scaled by (1 + 1e-6) in the integrator, the nodes recorded by that integrator, raises it above ${FAULT}`, () => {
+    const wrongNodes = new RateNodes(plan);
+    const wrong = integrateAttitude(model, plan, { rtol: 1e-10, atol: 1e-10, nodes: wrongNodes }, times, new ScaledRate(model, 1 + 1e-6));
+    // The track follows its (wrong) nodes exactly; the independent pose differencing sees H = I_lock·δω.
+    expect(auditTrack(model, plan, times, wrong.outputs, { reference: wrongNodes }).relative).toBeGreaterThan(FAULT);
+  });
+
+  it('a sloppy integration (rtol 1e-4) shows in the audit', () => {
+    const sloppyNodes = new RateNodes(plan);
+    const sloppy = integrateAttitude(model, plan, { rtol: 1e-4, atol: 1e-4, nodes: sloppyNodes }, times);
+    expect(auditTrack(model, plan, times, sloppy.outputs, { reference: sloppyNodes }).relative).toBeGreaterThan(HEALTHY);
+  });
+
+  it('simulateModel audits this way: the same figure', () => {
+    const r = simulateModel(model, plan);
+    expect(r.momentumResidual.relative).toBe(auditTrack(model, plan, times, healthy.outputs, { reference: nodes }).relative);
   });
 });
 
