@@ -43,6 +43,7 @@ export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeVi
   const out: RangeViolation[] = [];
   // A track step is one piece per frame interval: a violation running across intervals is one violation.
   const lastOf = new Map<string, RangeViolation>();
+  let angles = new Float64Array(256);
   // No closures inside the loops: a transpiler that keeps function names (tsx) would wrap each one.
   for (const piece of plan.pieces) {
     const span = piece.t1 - piece.t0;
@@ -57,14 +58,18 @@ export function findRangeViolations(model: BodyModel, plan: MotionPlan): RangeVi
       const grid: number[] = [];
       for (let s = 0; s <= n; s++) grid.push(piece.t0 + (span * s) / n);
       const times = hj < 0 ? grid : mergeSorted(grid, piece.kind === 'track' ? trackExtremumTimes(piece, hj) : harmonicCriticalTimes(piece, hj, Math.PI / 2));
+      // The angles once for both bounds (beyond() below is the same difference).
+      if (angles.length < times.length) angles = new Float64Array(2 * times.length);
+      for (let i = 0; i < times.length; i++) angles[i] = dofAngle(piece, k, hj, times[i]);
       for (let b = 0; b < 2; b++) {
         const bound = b === 0 ? 'max' : 'min';
         const limit = bound === 'max' ? model.dofMax[k] : model.dofMin[k];
         // g > 0 means beyond the limit.
         let inside = false, from = 0, worstT = 0, worstG = 0;
         let prevT = times[0];
-        for (const t of times) {
-          const gt = beyond(piece, k, hj, bound, limit, t);
+        for (let i = 0; i < times.length; i++) {
+          const t = times[i];
+          const gt = bound === 'max' ? angles[i] - limit : limit - angles[i];
           if (gt > 0 && !inside) { inside = true; from = t === times[0] ? t : crossing(piece, k, hj, bound, limit, prevT, t); worstT = t; worstG = gt; }
           else if (gt > 0 && gt > worstG) { worstT = t; worstG = gt; }
           else if (gt <= 0 && inside) {

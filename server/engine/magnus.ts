@@ -103,15 +103,17 @@ export const ESTIMATE_NODES = 7;
 export interface EstimateWork {
   /** Node positions relative to the step's midpoint, in step lengths. */
   y: Float64Array;
-  /** Augmented system: ESTIMATE_NODES rows of [coefficients | 3 right-hand sides]. */
+  /** Divided differences of ω, 3 per node. */
   m: Float64Array;
+  /** Monomial coefficients of the current Newton basis polynomial. */
+  basis: Float64Array;
   /** θ from the moments of the polynomial through all the nodes, rad. */
   theta: Float64Array;
 }
 
 /** Allocates estimate scratch. */
 export function createEstimateWork(): EstimateWork {
-  return { y: new Float64Array(ESTIMATE_NODES), m: new Float64Array(ESTIMATE_NODES * (ESTIMATE_NODES + 3)), theta: new Float64Array(3) };
+  return { y: new Float64Array(ESTIMATE_NODES), m: new Float64Array(3 * ESTIMATE_NODES), basis: new Float64Array(ESTIMATE_NODES + 1), theta: new Float64Array(3) };
 }
 
 /** ∫ y^k dy over [−½, ½], k = 0 … ESTIMATE_NODES + 1. */
@@ -129,30 +131,31 @@ const CENTRED_MOMENTS = Float64Array.from({ length: ESTIMATE_NODES + 2 }, (_, k)
  * the Gauss rule integrates that exactly.)
  */
 export function localErrorEstimate(ts: ArrayLike<number>, ws: ArrayLike<number>, h: number, theta: ArrayLike<number>, work: EstimateWork): number {
-  const { y, m } = work;
-  const N = ESTIMATE_NODES, W = N + 3;
+  const { y, m: d } = work;
+  const N = ESTIMATE_NODES;
   const mid = ts[N - 2];
   for (let k = 0; k < N; k++) y[k] = (ts[k] - mid) / h;
-  // Weights Wₖ⁽ⁿ⁾ with Σₖ Wₖ⁽ⁿ⁾ yₖʲ = ∫ y^(n+j) dy (j = 0 … N−1): Gaussian elimination with partial pivoting.
-  for (let k = 0; k < N; k++) {
-    // Row j holds y_k^j: powers by running products.
-    let p = 1;
-    for (let j = 0; j < N; j++) { m[W * j + k] = p; p *= y[k]; }
-  }
-  for (let j = 0; j < N; j++) {
-    const row = W * j;
-    m[row + N] = CENTRED_MOMENTS[j]; m[row + N + 1] = CENTRED_MOMENTS[j + 1]; m[row + N + 2] = CENTRED_MOMENTS[j + 2];
-  }
-  solveAugmented(m, N);
-  // Moments Bₙ/h = Σₖ Wₖ⁽ⁿ⁾ ωₖ, then β₁ = h(9/4 B₀ − 15 B₂), β₂ = 12h B₁, β₃ = h(180 B₂ − 15 B₀).
+  // The polynomial through the nodes in Newton form (divided differences dⱼ, basis Nⱼ(y) = Π_{i<j}(y − yᵢ)),
+  // then its moments Bₙ/h = ∫ yⁿ p(y) dy = Σⱼ dⱼ ∫ yⁿ Nⱼ(y) dy over [−½, ½] (O(N²), no linear system).
+  for (let k = 0; k < 3 * N; k++) d[k] = ws[k];
+  newtonDifferences(y, 0, d, N);
+  const nb = work.basis;
+  nb.fill(0); nb[0] = 1;
   let p0x = 0, p0y = 0, p0z = 0, p1x = 0, p1y = 0, p1z = 0, p2x = 0, p2y = 0, p2z = 0;
-  for (let k = 0; k < N; k++) {
-    const fx = ws[3 * k], fy = ws[3 * k + 1], fz = ws[3 * k + 2];
-    const a = m[W * k + N], b = m[W * k + N + 1], c = m[W * k + N + 2];
-    p0x += a * fx; p0y += a * fy; p0z += a * fz;
-    p1x += b * fx; p1y += b * fy; p1z += b * fz;
-    p2x += c * fx; p2y += c * fy; p2z += c * fz;
+  for (let j = 0; j < N; j++) {
+    // ∫ yⁿ Nⱼ(y) dy from Nⱼ's monomial coefficients (degree j).
+    let a0 = 0, a1 = 0, a2 = 0;
+    for (let q = 0; q <= j; q++) { const cq = nb[q]; a0 += cq * CENTRED_MOMENTS[q]; a1 += cq * CENTRED_MOMENTS[q + 1]; a2 += cq * CENTRED_MOMENTS[q + 2]; }
+    const fx = d[3 * j], fy = d[3 * j + 1], fz = d[3 * j + 2];
+    p0x += a0 * fx; p0y += a0 * fy; p0z += a0 * fz;
+    p1x += a1 * fx; p1y += a1 * fy; p1z += a1 * fz;
+    p2x += a2 * fx; p2y += a2 * fy; p2z += a2 * fz;
+    // Nⱼ₊₁ = Nⱼ·(y − yⱼ).
+    const yj = y[j];
+    for (let q = j + 1; q >= 1; q--) nb[q] = nb[q - 1] - yj * nb[q];
+    nb[0] = -yj * nb[0];
   }
+  // β₁ = h(9/4 B₀ − 15 B₂), β₂ = 12h B₁, β₃ = h(180 B₂ − 15 B₀).
   magnusFromMoments(
     h * (2.25 * p0x - 15 * p2x), h * (2.25 * p0y - 15 * p2y), h * (2.25 * p0z - 15 * p2z),
     12 * h * p1x, 12 * h * p1y, 12 * h * p1z,
@@ -238,34 +241,51 @@ export interface RatePolynomial {
   scale: number;
   /** Coefficients of u⁰ … u⁶, 3 per power (rad/s). */
   c: Float64Array;
-  /** Scratch: the system, and the coefficients shifted to an interval's midpoint. */
+  /** Scratch: the scaled node positions, and the divided differences / the coefficients shifted to an interval's midpoint. */
   m: Float64Array;
   d: Float64Array;
 }
 
 /** Allocates a rate polynomial. */
 export function createRatePolynomial(): RatePolynomial {
-  return { centre: 0, scale: 1, c: new Float64Array(3 * ESTIMATE_NODES), m: new Float64Array(ESTIMATE_NODES * (ESTIMATE_NODES + 3)), d: new Float64Array(3 * ESTIMATE_NODES) };
+  return { centre: 0, scale: 1, c: new Float64Array(3 * ESTIMATE_NODES), m: new Float64Array(ESTIMATE_NODES), d: new Float64Array(3 * ESTIMATE_NODES) };
 }
 
 /**
  * Fits the polynomial through seven nodes from index `first` (`ts`, s; `ws`, rad/s, 3 per node).
  */
 export function fitRatePolynomial(ts: ArrayLike<number>, ws: ArrayLike<number>, first: number, poly: RatePolynomial): void {
-  const N = ESTIMATE_NODES, W = N + 3, { m, c } = poly;
+  const N = ESTIMATE_NODES, { m: u, d, c } = poly;
   let lo = Infinity, hi = -Infinity;
   for (let k = first; k < first + N; k++) { lo = Math.min(lo, ts[k]); hi = Math.max(hi, ts[k]); }
   poly.centre = (lo + hi) / 2;
   poly.scale = (hi - lo) / 2;
-  // Rows k: [u_k^0 … u_k^6 | ω_k].
-  for (let k = 0; k < N; k++) {
-    const u = (ts[first + k] - poly.centre) / poly.scale, row = W * k, o = 3 * (first + k);
-    let p = 1;
-    for (let j = 0; j < N; j++) { m[row + j] = p; p *= u; }
-    m[row + N] = ws[o]; m[row + N + 1] = ws[o + 1]; m[row + N + 2] = ws[o + 2];
+  for (let k = 0; k < N; k++) u[k] = (ts[first + k] - poly.centre) / poly.scale;
+  for (let k = 0; k < 3 * N; k++) d[k] = ws[3 * first + k];
+  newtonDifferences(u, 0, d, N);
+  // Newton form to monomials, innermost first: p ← p·(u − uⱼ) + dⱼ for j = N−2 … 0.
+  c.fill(0);
+  c[0] = d[3 * (N - 1)]; c[1] = d[3 * (N - 1) + 1]; c[2] = d[3 * (N - 1) + 2];
+  for (let j = N - 2, deg = 0; j >= 0; j--, deg++) {
+    const uj = u[j];
+    for (let q = deg + 1; q >= 1; q--) {
+      c[3 * q] = c[3 * q - 3] - uj * c[3 * q]; c[3 * q + 1] = c[3 * q - 2] - uj * c[3 * q + 1]; c[3 * q + 2] = c[3 * q - 1] - uj * c[3 * q + 2];
+    }
+    c[0] = d[3 * j] - uj * c[0]; c[1] = d[3 * j + 1] - uj * c[1]; c[2] = d[3 * j + 2] - uj * c[2];
   }
-  solveAugmented(m, N);
-  for (let j = 0; j < N; j++) { c[3 * j] = m[W * j + N]; c[3 * j + 1] = m[W * j + N + 1]; c[3 * j + 2] = m[W * j + N + 2]; }
+}
+
+/**
+ * Divided differences in place (Newton's interpolation form): on entry d holds the values at nodes
+ * x[xo … xo+N−1] (3 per node), on exit d[3j … 3j+2] = f[x₀ … xⱼ].
+ */
+function newtonDifferences(x: ArrayLike<number>, xo: number, d: Float64Array, N: number): void {
+  for (let j = 1; j < N; j++) {
+    for (let k = N - 1; k >= j; k--) {
+      const r = 1 / (x[xo + k] - x[xo + k - j]), o = 3 * k;
+      d[o] = (d[o] - d[o - 3]) * r; d[o + 1] = (d[o + 1] - d[o - 2]) * r; d[o + 2] = (d[o + 2] - d[o - 1]) * r;
+    }
+  }
 }
 
 /**
