@@ -186,6 +186,14 @@ describe('the player plays what was approved', () => {
       expect(after.samples.frames.map((f) => f.jointsDeg[k])).toEqual(report.series.jointsDeg[dof]);
       // a new ETag: the running engine is part of what the response says
       expect(res.headers.etag).not.toBe(first.headers.etag);
+      // first built under the other engine (a rate no request asked for yet, so no cached motion): still the stored samples
+      const cold = (await get(TAMSIN, `/api/motion/${cleared}?rate=${report.series.rateHz}`)).body as MotionResponse;
+      expect(cold.samples.frames.map((f) => f.t)).toEqual(report.series.t);
+      expect(cold.samples.frames.map((f) => f.jointsDeg[k])).toEqual(report.series.jointsDeg[dof]);
+      expect(cold.verifiedByOtherEngine).toBe(true);
+      // the rehearsable list and the rehearsal log name the engine the approval binds to, and say it is not the running one
+      const listed = bodyOf<VersionsBody>(await get(TAMSIN, '/api/rehearsals/available')).versions.find((v) => v.versionId === cleared)!;
+      expect(listed).toMatchObject({ engineVersion: report.engineVersion, verifiedByOtherEngine: true });
     } finally {
       t.ctx.engineVersion = running;
     }
