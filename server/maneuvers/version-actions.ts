@@ -27,7 +27,7 @@ import { currentProfile } from './current-profile.ts';
 import { requireAuthor } from './maneuver-access.ts';
 import { decisionMail, submissionMail } from './review-mail.ts';
 import { refusal, statusesAllowing, transition, type VersionEvent } from './status-machine.ts';
-import { readSequenceTarget } from './stored-version.ts';
+import { readSequenceTarget, readStoredReport } from './stored-version.ts';
 import { verifySequence } from './verify-sequence.ts';
 
 type Tx = Parameters<Parameters<Database['transaction']>[0]>[0];
@@ -175,9 +175,10 @@ export async function submitVersion(ctx: AppContext, user: SessionUser, versionI
   if (profile.id !== row.v.profileVersionId) {
     throw conflict(`${row.crewName}'s profile changed since this version was verified; save a new version to verify it on profile version ${profile.version}.`, 'profile_changed');
   }
-  if (!row.v.report) throw conflict('This version has no verification report.', 'not_verified');
+  const report = readStoredReport(row.v.id, row.v.report);
+  if (!report) throw conflict('This version has no verification report.', 'not_verified');
   const run = await latestVersionRun(db, versionId);
-  const failures = versionCheckFailures(row.v.report, run && { state: run.state as RobustnessState, progress: run.samples ? run.doneSamples / run.samples : 0, error: run.error });
+  const failures = versionCheckFailures(report, run && { state: run.state as RobustnessState, progress: run.samples ? run.doneSamples / run.samples : 0, error: run.error });
   const note = input.note?.trim() ?? '';
   if (failures.length && !(input.acknowledgeFailures && note)) {
     const how = input.acknowledgeFailures
@@ -212,7 +213,7 @@ export async function decideVersion(ctx: AppContext, user: SessionUser, versionI
   )).limit(1);
   if (submitted) throw forbidden('You submitted this version for review: another reviewer must decide on it.');
   nextStatusOr409(row.v.status, decision);
-  const report = row.v.report;
+  const report = readStoredReport(row.v.id, row.v.report);
   await db.transaction(async (tx) => {
     const now = new Date();
     if (decision === 'clear') {
