@@ -1,30 +1,17 @@
 import { Canvas } from '@react-three/fiber';
 import { useMemo } from 'react';
 
-import type { CameraMode, ViewPreset } from './camera-presets';
-import type { PlaybackClock } from './playback/playback-clock';
-import { RehearsalScene } from './RehearsalScene';
-import type { SceneModel } from './scene-model';
+import { RehearsalScene, type RehearsalSceneProps } from './RehearsalScene';
 import { scenePalette } from './scene-palette';
 
-/** Props of {@link RehearsalCanvas}. */
-export interface RehearsalCanvasProps {
-  scene: SceneModel;
-  clock: PlaybackClock;
-  /** Default observer. */
-  cameraMode?: CameraMode;
-  /** Default front. */
-  preset?: ViewPreset;
-  /** Bump to re-apply the same preset. Default 0. */
-  presetNonce?: number;
-  /** Pixels at the top covered by overlays; default 0. */
-  topInset?: number;
+/** Props of {@link RehearsalCanvas}: the scene's own props plus the canvas's accessible description. */
+export interface RehearsalCanvasProps extends RehearsalSceneProps {
   /** Accessible description of the view. */
   label?: string;
 }
 
 /** The WebGL canvas of the rehearsal view (fills its parent). */
-export default function RehearsalCanvas({ scene, clock, cameraMode, preset, presetNonce, topInset, label }: RehearsalCanvasProps) {
+export default function RehearsalCanvas({ label, ...sceneProps }: RehearsalCanvasProps) {
   const style = useMemo(() => ({ width: '100%', height: '100%', background: scenePalette.background, touchAction: 'none' as const }), []);
   return (
     <Canvas
@@ -37,7 +24,7 @@ export default function RehearsalCanvas({ scene, clock, cameraMode, preset, pres
       aria-label={label}
       data-testid="rehearsal-canvas"
     >
-      <RehearsalScene scene={scene} clock={clock} cameraMode={cameraMode} preset={preset} presetNonce={presetNonce} topInset={topInset} />
+      <RehearsalScene {...sceneProps} />
     </Canvas>
   );
 }

@@ -8,10 +8,9 @@ import { useAcceptInvitationMutation } from '@/components/api/use-invitation';
 import { spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
-import { FormTextField } from '@/components/ui/FormTextField';
 import type { SessionUser } from '@/shared/contracts/auth';
-import { PASSWORD_MIN_LENGTH } from '@/shared/contracts/auth';
 
+import { NewPasswordFields } from './NewPasswordFields';
 import { acceptInvitationFormSchema } from './password-confirmation';
 
 /** Props of {@link AcceptInvitationForm}. */
@@ -43,20 +42,12 @@ export function AcceptInvitationForm({ token, onAccepted }: AcceptInvitationForm
   return (
     <View style={{ gap: spacing.lg }}>
       <ErrorBanner error={formError} />
-      <FormTextField
+      <NewPasswordFields
         control={control}
         name="password"
         label="Choose a password"
-        secureTextEntry
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
-      />
-      <FormTextField
-        control={control}
-        name="confirm"
-        label="Repeat the password"
-        secureTextEntry
-        autoComplete="new-password"
+        confirmName="confirm"
+        confirmLabel="Repeat the password"
         onSubmitEditing={() => void submit()}
       />
       <Button label="Set password and sign in" icon="check" block loading={accept.isPending} onPress={() => void submit()} />

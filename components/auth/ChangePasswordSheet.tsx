@@ -9,8 +9,8 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
 import { Sheet } from '@/components/ui/Sheet';
 import { Text } from '@/components/ui/Text';
-import { PASSWORD_MIN_LENGTH } from '@/shared/contracts/auth';
 
+import { NewPasswordFields } from './NewPasswordFields';
 import { changePasswordFormSchema } from './password-confirmation';
 
 /** Props of {@link ChangePasswordSheet}. */
@@ -62,15 +62,7 @@ export function ChangePasswordSheet({ visible, onClose, onChanged }: ChangePassw
       <Text tone="muted">You will be signed out on every device and sign in again with the new password.</Text>
       <ErrorBanner error={formError} />
       <FormTextField control={control} name="currentPassword" label="Current password" secureTextEntry autoComplete="current-password" />
-      <FormTextField
-        control={control}
-        name="newPassword"
-        label="New password"
-        secureTextEntry
-        autoComplete="new-password"
-        hint={`At least ${PASSWORD_MIN_LENGTH} characters.`}
-      />
-      <FormTextField control={control} name="confirm" label="Repeat new password" secureTextEntry autoComplete="new-password" />
+      <NewPasswordFields control={control} name="newPassword" label="New password" confirmName="confirm" confirmLabel="Repeat new password" />
     </Sheet>
   );
 }

@@ -8,7 +8,7 @@ import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
 import { SEGMENT_LABELS, SEGMENT_NAMES } from '@/shared/model/segment-names';
 
-import { NumberField } from './NumberField';
+import { FormNumberField } from './FormNumberField';
 import type { ProfileFormValues } from './profile-form';
 
 const SEGMENT_OPTIONS = SEGMENT_NAMES.map((s) => ({ value: s, label: SEGMENT_LABELS[s] }));
@@ -30,23 +30,11 @@ export function GearFields({ control }: { control: Control<ProfileFormValues> })
               <Select label={`Gear ${k + 1} fixed to`} options={SEGMENT_OPTIONS} value={field.value ?? ''} onChange={field.onChange} error={fieldState.error?.message} />
             )}
           />
-          <Controller
-            control={control}
-            name={`inputs.gear.${k}.mass`}
-            render={({ field, fieldState }) => (
-              <NumberField label={`Gear ${k + 1} mass`} unit="kg" value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
-            )}
-          />
+          <FormNumberField control={control} name={`inputs.gear.${k}.mass`} label={`Gear ${k + 1} mass`} unit="kg" />
           <View style={styles.row}>
             {AXES.map((axis, a) => (
               <View key={axis} style={styles.cell}>
-                <Controller
-                  control={control}
-                  name={`inputs.gear.${k}.position.${a as 0 | 1 | 2}`}
-                  render={({ field, fieldState }) => (
-                    <NumberField label={`Position ${axis}`} unit="m" value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
-                  )}
-                />
+                <FormNumberField control={control} name={`inputs.gear.${k}.position.${a as 0 | 1 | 2}`} label={`Position ${axis}`} unit="m" />
               </View>
             ))}
           </View>

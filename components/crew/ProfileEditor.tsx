@@ -18,8 +18,8 @@ import { Text } from '@/components/ui/Text';
 import type { SuitView } from '@/shared/contracts/crew';
 import type { ProfileVersionView, StaleVersion } from '@/shared/contracts/profile-version';
 
+import { FormNumberField } from './FormNumberField';
 import { GearFields } from './GearFields';
-import { NumberField } from './NumberField';
 import { formValuesFrom, LENGTH_FIELDS, type ProfileFormOutput, profileFormSchema, type ProfileFormValues } from './profile-form';
 
 /** Props of {@link ProfileEditor}. */
@@ -101,34 +101,10 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
               <SegmentedControl label="Regression table (sex)" options={SEX_OPTIONS} value={field.value} onChange={field.onChange} error={fieldState.error?.message} />
             )}
           />
-          <Controller
-            control={control}
-            name="inputs.stature"
-            render={({ field, fieldState }) => (
-              <NumberField label="Stature" unit="m" hint="1.2–2.3 m" value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
-            )}
-          />
-          <Controller
-            control={control}
-            name="inputs.mass"
-            render={({ field, fieldState }) => (
-              <NumberField label="Body mass" unit="kg" hint="Without suit or gear, 30–200 kg" value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
-            )}
-          />
-          <Controller
-            control={control}
-            name="inputs.biacromialBreadth"
-            render={({ field, fieldState }) => (
-              <NumberField label="Biacromial breadth" unit="m" hint="Shoulder width; empty: a fraction of stature" value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
-            )}
-          />
-          <Controller
-            control={control}
-            name="inputs.hipBreadth"
-            render={({ field, fieldState }) => (
-              <NumberField label="Hip joint spacing" unit="m" hint="Between the hip joint centres; empty: a fraction of stature" value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
-            )}
-          />
+          <FormNumberField control={control} name="inputs.stature" label="Stature" unit="m" hint="1.2–2.3 m" />
+          <FormNumberField control={control} name="inputs.mass" label="Body mass" unit="kg" hint="Without suit or gear, 30–200 kg" />
+          <FormNumberField control={control} name="inputs.biacromialBreadth" label="Biacromial breadth" unit="m" hint="Shoulder width; empty: a fraction of stature" />
+          <FormNumberField control={control} name="inputs.hipBreadth" label="Hip joint spacing" unit="m" hint="Between the hip joint centres; empty: a fraction of stature" />
         </View>
       </Card>
 
@@ -136,14 +112,7 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
         {showLengths ? (
           <View style={styles.fields}>
             {LENGTH_FIELDS.map((f) => (
-              <Controller
-                key={f.key}
-                control={control}
-                name={`inputs.lengths.${f.key}`}
-                render={({ field, fieldState }) => (
-                  <NumberField label={f.label} unit="m" value={field.value} onChange={field.onChange} onBlur={field.onBlur} error={fieldState.error?.message} />
-                )}
-              />
+              <FormNumberField key={f.key} control={control} name={`inputs.lengths.${f.key}`} label={f.label} unit="m" />
             ))}
           </View>
         ) : null}

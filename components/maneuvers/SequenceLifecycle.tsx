@@ -6,6 +6,7 @@ import { formatDateTime } from '@/components/format/date-time';
 import { colors, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import type { IconName } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import type { SequenceDetail } from '@/shared/contracts/maneuver';
 
@@ -34,6 +35,8 @@ export function SequenceLifecycle({ sequence, canCompose, onDeleted }: SequenceL
   const archived = sequence.archivedAt !== null;
   const underReview = sequence.versions.some((v) => v.status === 'under_review');
   const deletable = neverSubmitted(sequence);
+  const drafts = sequence.versions.length;
+  const whatGoes = drafts === 0 ? 'It has no versions yet.' : `Its ${drafts === 1 ? 'draft' : `${drafts} drafts`}, plans and robustness runs go with it.`;
 
   const run = (what: 'archive' | 'restore' | 'delete') =>
     action.mutate(what, { onSuccess: () => (setAsking(null), what === 'delete' ? onDeleted() : undefined) });
@@ -75,33 +78,49 @@ export function SequenceLifecycle({ sequence, canCompose, onDeleted }: SequenceL
         </View>
       ) : null}
       {asking === 'archive' ? (
-        <View style={styles.confirm} role="alert">
-          <Text variant="label">Archive “{sequence.name}”?</Text>
-          <Text variant="caption" tone="muted">
-            It leaves the maneuver list and {sequence.crewMemberName}’s rehearsals; nothing is deleted, and Restore brings it back.
-          </Text>
-          <View style={styles.row}>
-            <Button label="Archive" icon="archive" size="sm" variant="danger" loading={action.isPending} onPress={() => run('archive')} />
-            <Button label="Keep" size="sm" variant="secondary" onPress={() => setAsking(null)} />
-          </View>
-        </View>
+        <ConfirmInPlace
+          question={`Archive “${sequence.name}”?`}
+          consequence={`It leaves the maneuver list and ${sequence.crewMemberName}’s rehearsals; nothing is deleted, and Restore brings it back.`}
+          confirm={{ label: 'Archive', icon: 'archive' }}
+          pending={action.isPending}
+          onConfirm={() => run('archive')}
+          onKeep={() => setAsking(null)}
+        />
       ) : null}
       {asking === 'delete' ? (
-        <View style={styles.confirm} role="alert">
-          <Text variant="label">Delete “{sequence.name}” for good?</Text>
-          <Text variant="caption" tone="muted">
-            {sequence.versions.length === 0
-              ? 'It has no versions yet.'
-              : `Its ${sequence.versions.length === 1 ? 'draft' : `${sequence.versions.length} drafts`}, plans and robustness runs go with it.`}{' '}
-            It never went to review, so no record is lost. This cannot be undone.
-          </Text>
-          <View style={styles.row}>
-            <Button label="Delete" icon="trash-2" size="sm" variant="danger" loading={action.isPending} onPress={() => run('delete')} />
-            <Button label="Keep" size="sm" variant="secondary" onPress={() => setAsking(null)} />
-          </View>
-        </View>
+        <ConfirmInPlace
+          question={`Delete “${sequence.name}” for good?`}
+          consequence={`${whatGoes} It never went to review, so no record is lost. This cannot be undone.`}
+          confirm={{ label: 'Delete', icon: 'trash-2' }}
+          pending={action.isPending}
+          onConfirm={() => run('delete')}
+          onKeep={() => setAsking(null)}
+        />
       ) : null}
       {action.isError ? <ErrorBanner title="That did not work" error={action.error} /> : null}
+    </View>
+  );
+}
+
+/** A question asked in place of the buttons: what will happen, the action in red, and Keep. */
+function ConfirmInPlace({ question, consequence, confirm, pending, onConfirm, onKeep }: {
+  question: string;
+  consequence: string;
+  confirm: { label: string; icon: IconName };
+  pending: boolean;
+  onConfirm: () => void;
+  onKeep: () => void;
+}) {
+  return (
+    <View style={styles.confirm} role="alert">
+      <Text variant="label">{question}</Text>
+      <Text variant="caption" tone="muted">
+        {consequence}
+      </Text>
+      <View style={styles.row}>
+        <Button label={confirm.label} icon={confirm.icon} size="sm" variant="danger" loading={pending} onPress={onConfirm} />
+        <Button label="Keep" size="sm" variant="secondary" onPress={onKeep} />
+      </View>
     </View>
   );
 }

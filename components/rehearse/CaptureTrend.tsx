@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { useCaptureTrendQuery } from '@/components/api/use-rehearsal-captures';
-import { LinePlot } from '@/components/charts/LinePlot';
+import { LinePlot, type LinePlotProps } from '@/components/charts/LinePlot';
 import { plotColors } from '@/components/charts/plot-colors';
 import { formatDateTime } from '@/components/format/date-time';
 import { spacing } from '@/components/theme';
@@ -14,6 +14,11 @@ import type { CaptureTrendPoint } from '@/shared/contracts/recording';
 
 const num = (v: number | null, digits: number) => (v === null || !Number.isFinite(v) ? '—' : v.toFixed(digits));
 
+/** A small plot of one figure per recorded rehearsal, numbered 1, 2, … in the order they were performed. */
+function TrendPlot(plot: Omit<LinePlotProps, 'x' | 'xUnit' | 'height'>) {
+  return <LinePlot {...plot} x={plot.series[0].values.map((_, i) => i + 1)} xUnit="#" height={120} />;
+}
+
 /**
  * The trainee's recorded figures across rehearsals, oldest first: error to the target (on the plan's
  * profile), mean phase lag, and mean period and amplitude ratios of the sweep steps — as plots once
@@ -24,7 +29,6 @@ export function CaptureTrend() {
   if (q.isPending) return <LoadingState label="Loading your recorded rehearsals…" />;
   if (q.isError) return <ErrorBanner title="Could not load your recorded rehearsals" error={q.error} onRetry={() => void q.refetch()} />;
   const points: CaptureTrendPoint[] = [...q.data].reverse();
-  const n = points.map((_, i) => i + 1);
   const series = (pick: (p: CaptureTrendPoint) => number | null) => points.map((p) => pick(p) ?? NaN);
   return (
     <Card title="Your recorded rehearsals" subtitle={points.length ? `${points.length} with a recording` : undefined}>
@@ -34,37 +38,28 @@ export function CaptureTrend() {
         ) : null}
         {points.length >= 2 ? (
           <>
-            <LinePlot
+            <TrendPlot
               title="Mean phase lag per recorded rehearsal"
               summary={`From ${num(points[0].meanPhaseLagS, 2)} s to ${num(points.at(-1)!.meanPhaseLagS, 2)} s (positive: late).`}
-              x={n}
-              xUnit="#"
               yUnit=" s"
-              height={120}
               hideLegend
               series={[{ name: 'Phase lag', color: plotColors.yaw, values: series((p) => p.meanPhaseLagS) }]}
               testID="trend-lag"
             />
-            <LinePlot
+            <TrendPlot
               title="Mean amplitude and period ratio per recorded rehearsal"
               summary={`Amplitude ×${num(points.at(-1)!.meanAmplitudeRatio, 2)}, period ×${num(points.at(-1)!.meanPeriodRatio, 2)} in the latest (1 is as planned).`}
-              x={n}
-              xUnit="#"
               yUnit="×"
-              height={120}
               series={[
                 { name: 'Amplitude', color: plotColors.pitch, values: series((p) => p.meanAmplitudeRatio) },
                 { name: 'Period', color: plotColors.roll, values: series((p) => p.meanPeriodRatio) },
               ]}
               testID="trend-ratios"
             />
-            <LinePlot
+            <TrendPlot
               title="Error to the target per recorded rehearsal"
               summary={`From ${num(points[0].errorToTargetDeg, 1)}° to ${num(points.at(-1)!.errorToTargetDeg, 1)}°.`}
-              x={n}
-              xUnit="#"
               yUnit="°"
-              height={120}
               hideLegend
               series={[{ name: 'Error to target', color: plotColors.joint, values: series((p) => p.errorToTargetDeg) }]}
               testID="trend-error"

@@ -1,12 +1,12 @@
 import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { errorMessage } from '@/components/api/client';
 import { useAttachRecordingMutation, useRehearsalCaptureQuery, useSignOffCaptureMutation } from '@/components/api/use-rehearsal-captures';
 import { dofLabel } from '@/components/charts/JointAnglePlots';
 import { LinePlot } from '@/components/charts/LinePlot';
 import { plotColors } from '@/components/charts/plot-colors';
 import { FilePicker } from '@/components/crew/FilePicker';
+import { UploadProblems } from '@/components/recordings/UploadProblems';
 import { colors, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
@@ -40,20 +40,11 @@ export function RehearsalCapturePanel({ rehearsalId, canSignOff = false }: Rehea
   if (q.isPending) return <LoadingState label="Loading the recording…" />;
   if (q.isError) return <ErrorBanner title="Could not load the recording" error={q.error} onRetry={() => void q.refetch()} />;
   if (!q.data) {
-    const rejected = attach.data && !attach.data.ok ? attach.data : null;
     return (
       <View style={styles.wrap} testID="capture-attach">
         <FilePicker label="Attach a recording (joint-angle CSV or BVH)" accept=".csv,.bvh" onPick={setFile} hint="The server simulates your recorded motion on your body in free fall." />
         <Button label="Attach and simulate" icon="upload" size="sm" disabled={!file} loading={attach.isPending} onPress={() => file && attach.mutate(file)} />
-        {attach.isError ? <Text tone="danger" role="alert">{errorMessage(attach.error)}</Text> : null}
-        {rejected ? (
-          <View role="alert">
-            <Text tone="danger">{rejected.message}</Text>
-            {rejected.result.upload.errors.slice(0, 20).map((e, i) => (
-              <Text key={i} variant="caption" tone="danger">{`${e.row > 0 ? `row ${e.row}` : 'file'}${e.column ? `, ${e.column}` : ''}: ${e.reason}`}</Text>
-            ))}
-          </View>
-        ) : null}
+        <UploadProblems error={attach.error} outcome={attach.data} maxRows={20} />
       </View>
     );
   }

@@ -5,30 +5,22 @@ import { errorMessage } from '@/components/api/client';
 import { useBackgroundWorkAction, useBackgroundWorkQuery } from '@/components/api/use-background-work';
 import { formatDateTime } from '@/components/format/date-time';
 import { spacing } from '@/components/theme';
-import { Badge, type BadgeTone } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { JobStateBadge } from '@/components/ui/JobStateBadge';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { ProgressBar } from '@/components/ui/ProgressBar';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
-import type { QueueCounts, WorkFilter, WorkItem, WorkState } from '@/shared/contracts/background-work';
+import type { QueueCounts, WorkFilter, WorkItem } from '@/shared/contracts/background-work';
 
 const FILTERS = [
   { value: 'open', label: 'Queued & running' },
   { value: 'failed', label: 'Failed' },
   { value: 'done', label: 'Done' },
 ] as const;
-
-const STATE_BADGE: Record<WorkState, { label: string; tone: BadgeTone }> = {
-  queued: { label: 'Queued', tone: 'neutral' },
-  running: { label: 'Running', tone: 'teal' },
-  done: { label: 'Done', tone: 'success' },
-  failed: { label: 'Failed', tone: 'danger' },
-  cancelled: { label: 'Cancelled', tone: 'accent' },
-};
 
 const QUEUE_LABELS: Record<string, string> = {
   'maneuver-planning': 'Planning',
@@ -77,10 +69,9 @@ function QueueSummary({ queues }: { queues: QueueCounts[] }) {
 
 function WorkCard({ item }: { item: WorkItem }) {
   const action = useBackgroundWorkAction();
-  const badge = STATE_BADGE[item.state];
   const run = (what: 'retry' | 'cancel') => action.mutate({ kind: item.kind, id: item.id, action: what });
   return (
-    <Card title={item.label} subtitle={`Started ${formatDateTime(item.createdAt)} · ${item.attempts} attempt${item.attempts === 1 ? '' : 's'} by workers`} trailing={<Badge label={badge.label} tone={badge.tone} />}>
+    <Card title={item.label} subtitle={`Started ${formatDateTime(item.createdAt)} · ${item.attempts} attempt${item.attempts === 1 ? '' : 's'} by workers`} trailing={<JobStateBadge state={item.state} />}>
       <View style={styles.body}>
         {item.progress !== null && item.state !== 'done' ? (
           <View style={styles.progress}>

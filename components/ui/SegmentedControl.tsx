@@ -2,7 +2,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 
-import { FieldMessage } from './FieldMessage';
+import { FieldFrame } from './FieldFrame';
 import { webPressState } from './press-state';
 import { Text } from './Text';
 
@@ -34,12 +34,7 @@ export function SegmentedControl<V extends string>({
   label, hideLabel = false, options, value, onChange, error, disabled = false,
 }: SegmentedControlProps<V>) {
   return (
-    <View style={styles.wrap}>
-      {hideLabel ? null : (
-        <Text variant="label" tone="muted">
-          {label}
-        </Text>
-      )}
+    <FieldFrame label={label} hideLabel={hideLabel} error={error}>
       <View role="radiogroup" aria-label={label} style={styles.track}>
         {options.map((o) => {
           const selected = o.value === value;
@@ -66,13 +61,11 @@ export function SegmentedControl<V extends string>({
           );
         })}
       </View>
-      <FieldMessage error={error} />
-    </View>
+    </FieldFrame>
   );
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.xs + 2, alignSelf: 'stretch' },
   track: {
     flexDirection: 'row',
     backgroundColor: colors.background,

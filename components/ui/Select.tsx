@@ -1,9 +1,6 @@
-import { StyleSheet, View } from 'react-native';
-
 import { colors, fonts, layout, radii, spacing } from '@/components/theme';
 
-import { FieldMessage } from './FieldMessage';
-import { Text } from './Text';
+import { FieldFrame } from './FieldFrame';
 
 /** One choice of a {@link Select}. */
 export interface SelectOption<V extends string> {
@@ -33,10 +30,7 @@ export interface SelectProps<V extends string> {
  */
 export function Select<V extends string>({ label, options, value, onChange, placeholder, error, hint, disabled }: SelectProps<V>) {
   return (
-    <View style={styles.wrap}>
-      <Text variant="label" tone="muted">
-        {label}
-      </Text>
+    <FieldFrame label={label} error={error} hint={hint}>
       <select
         aria-label={label}
         aria-invalid={!!error}
@@ -62,11 +56,6 @@ export function Select<V extends string>({ label, options, value, onChange, plac
           </option>
         ))}
       </select>
-      <FieldMessage error={error} hint={hint} />
-    </View>
+    </FieldFrame>
   );
 }
-
-const styles = StyleSheet.create({
-  wrap: { gap: spacing.xs + 2, alignSelf: 'stretch' },
-});

@@ -3,7 +3,7 @@ import { StyleSheet, TextInput, type TextInputProps, View } from 'react-native';
 
 import { colors, fonts, layout, radii, spacing } from '@/components/theme';
 
-import { FieldMessage } from './FieldMessage';
+import { FieldFrame } from './FieldFrame';
 import { Text } from './Text';
 
 /** Props of {@link TextField}: React Native TextInput props plus a label, an optional unit, hint and error. */
@@ -22,10 +22,7 @@ export interface TextFieldProps extends Omit<TextInputProps, 'style'> {
 export function TextField({ label, unit, hint, error, editable = true, onFocus, onBlur, ...input }: TextFieldProps) {
   const [focused, setFocused] = useState(false);
   return (
-    <View style={styles.wrap}>
-      <Text variant="label" tone="muted">
-        {label}
-      </Text>
+    <FieldFrame label={label} error={error} hint={hint}>
       <View
         style={[
           styles.box,
@@ -56,13 +53,11 @@ export function TextField({ label, unit, hint, error, editable = true, onFocus, 
           </Text>
         ) : null}
       </View>
-      <FieldMessage error={error} hint={hint} />
-    </View>
+    </FieldFrame>
   );
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.xs + 2, alignSelf: 'stretch' },
   box: {
     flexDirection: 'row',
     alignItems: 'center',

@@ -5,25 +5,17 @@ import { useRobustnessActions, useVersionRobustnessQuery } from '@/components/ap
 import { useSessionQuery } from '@/components/api/use-session';
 import { ErrorHistogram } from '@/components/charts/ErrorHistogram';
 import { spacing } from '@/components/theme';
-import { Badge, type BadgeTone } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { JobStateBadge } from '@/components/ui/JobStateBadge';
 import { LoadingState } from '@/components/ui/LoadingState';
 import { ProgressBar } from '@/components/ui/ProgressBar';
 import { Text } from '@/components/ui/Text';
-import { type RobustnessLevel, robustnessLevel, type RobustnessState } from '@/shared/contracts/robustness';
+import { type RobustnessLevel, robustnessLevel } from '@/shared/contracts/robustness';
 
 import { RobustnessCaution } from '../robustness/RobustnessCaution';
 import { fmtDeg } from './format';
 import { StatGrid } from './StatGrid';
-
-const STATE_BADGE: Record<RobustnessState, { label: string; tone: BadgeTone }> = {
-  queued: { label: 'Queued', tone: 'neutral' },
-  running: { label: 'Running', tone: 'teal' },
-  done: { label: 'Computed', tone: 'success' },
-  failed: { label: 'Failed', tone: 'danger' },
-  cancelled: { label: 'Cancelled', tone: 'accent' },
-};
 
 const LEVEL_TONE: Record<RobustnessLevel, 'success' | 'accent' | 'danger'> = { robust: 'success', marginal: 'accent', not_robust: 'danger' };
 
@@ -52,14 +44,13 @@ export function RobustnessPanel({ versionId }: { versionId: string }) {
       </View>
     );
   }
-  const badge = STATE_BADGE[r.state];
   const open = r.state === 'queued' || r.state === 'running';
   const level = r.feedbackP95Deg !== null ? robustnessLevel(r.feedbackP95Deg, r.toleranceDeg) : null;
   const sp = r.model.spreads;
   return (
     <View style={styles.stack} testID="robustness-panel">
       <View style={styles.row}>
-        <Badge label={badge.label} tone={badge.tone} />
+        <JobStateBadge state={r.state} doneLabel="Computed" />
         <Text variant="caption" tone="muted" testID="robustness-model">{`${r.samples.toLocaleString('en-US')} samples · seed ${r.seed}`}</Text>
       </View>
       <Text variant="caption" tone="muted">
