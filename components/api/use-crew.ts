@@ -4,6 +4,7 @@ import type { CreateCrewMemberInput, CrewMemberView, SaveProfileInput } from '@/
 import type { ProfileComparison, ProfileVersionHeader, ProfileVersionView, SaveProfileResponse } from '@/shared/contracts/profile-version';
 
 import { apiFetch, apiUrl } from './client';
+import { sequenceKeys } from './use-sequences';
 
 /** Query keys of the Crew area. */
 export const crewKeys = {
@@ -59,6 +60,18 @@ export function useProfileComparisonQuery(id: string, a: number | null, b: numbe
   });
 }
 
+/**
+ * After a member's profile save, archive or restore: the crew lists, and their maneuvers, whose lists
+ * and versions change with them (a save can make versions stale; an archived member's maneuvers move).
+ */
+function useMemberSettled() {
+  const qc = useQueryClient();
+  return () => {
+    void qc.invalidateQueries({ queryKey: crewKeys.all });
+    void qc.invalidateQueries({ queryKey: sequenceKeys.all });
+  };
+}
+
 /** POST /api/crew — a new crew member; refreshes the lists. */
 export function useCreateCrewMemberMutation() {
   const qc = useQueryClient();
@@ -70,14 +83,10 @@ export function useCreateCrewMemberMutation() {
 
 /** POST /api/crew/:id/versions — saves version N+1 on top of `baseVersion`; 409 `stale_version` when someone saved first. */
 export function useSaveProfileMutation(id: string) {
-  const qc = useQueryClient();
+  const settled = useMemberSettled();
   return useMutation({
     mutationFn: (input: SaveProfileInput) => apiFetch<SaveProfileResponse>(`/crew/${encodeURIComponent(id)}/versions`, { method: 'POST', body: input }),
-    onSuccess: () => {
-      void qc.invalidateQueries({ queryKey: crewKeys.all });
-      // Its maneuvers may have gone stale: their lists and versions change with the save.
-      void qc.invalidateQueries({ queryKey: ['sequences'] });
-    },
+    onSuccess: settled,
   });
 }
 
@@ -88,12 +97,9 @@ export function bodyExportUrl(id: string, version: number): string {
 
 /** POST /api/crew/:id/archive or /restore; refreshes the crew and the maneuver lists (an archived member's maneuvers move with them). */
 export function useMemberArchiveMutation(id: string) {
-  const qc = useQueryClient();
+  const settled = useMemberSettled();
   return useMutation({
     mutationFn: (action: 'archive' | 'restore') => apiFetch<void>(`/crew/${encodeURIComponent(id)}/${action}`, { method: 'POST' }),
-    onSuccess: () => {
-      void qc.invalidateQueries({ queryKey: crewKeys.all });
-      void qc.invalidateQueries({ queryKey: ['sequences'] });
-    },
+    onSuccess: settled,
   });
 }

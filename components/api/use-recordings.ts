@@ -4,7 +4,7 @@ import type { BvhMapping, RecordingView } from '@/shared/contracts/recording';
 import type { UploadResult } from '@/shared/contracts/uploads';
 
 import { apiFetch } from './client';
-import { postFile } from './use-uploads';
+import { postFile, useRefreshOnImport } from './use-uploads';
 
 /** Query keys of recordings. */
 export const recordingKeys = {
@@ -36,7 +36,7 @@ export function useRecordingQuery(id: string | null) {
 
 /** POST /api/uploads/joint-angles or /bvh by the file's extension; a rejected file is an outcome with its row errors. */
 export function useRecordingUploadMutation() {
-  const qc = useQueryClient();
+  const refresh = useRefreshOnImport(recordingKeys.all);
   return useMutation({
     mutationFn: async (file: File): Promise<{ ok: true; recording: RecordingView } | { ok: false; message: string; result: UploadResult }> => {
       const bvh = file.name.toLowerCase().endsWith('.bvh');
@@ -44,9 +44,7 @@ export function useRecordingUploadMutation() {
       if (out.ok) return { ok: true, recording: (out.result as unknown as { recording: RecordingView }).recording };
       return out;
     },
-    onSuccess: (out) => {
-      if (out.ok) void qc.invalidateQueries({ queryKey: recordingKeys.all });
-    },
+    onSuccess: refresh,
   });
 }
 

@@ -4,7 +4,7 @@ import type { CaptureTrendPoint, RehearsalCapture } from '@/shared/contracts/rec
 import type { UploadResult } from '@/shared/contracts/uploads';
 
 import { apiFetch, isApiStatus } from './client';
-import { postFile } from './use-uploads';
+import { postFile, useRefreshOnImport } from './use-uploads';
 
 /** Query keys of rehearsal recordings. */
 export const captureKeys = {
@@ -39,16 +39,14 @@ export function useCaptureTrendQuery() {
 
 /** POST /api/rehearsals/:id/recording — attaches a joint-angle CSV or BVH; a rejected file is an outcome with its row errors. */
 export function useAttachRecordingMutation(rehearsalId: string) {
-  const qc = useQueryClient();
+  const refresh = useRefreshOnImport(captureKeys.all);
   return useMutation({
     mutationFn: async (file: File): Promise<{ ok: true } | { ok: false; message: string; result: UploadResult }> => {
       const out = await postFile(`/rehearsals/${rehearsalId}/recording`, file);
       if (out.ok) return { ok: true };
       return out;
     },
-    onSuccess: (out) => {
-      if (out.ok) void qc.invalidateQueries({ queryKey: captureKeys.all });
-    },
+    onSuccess: refresh,
   });
 }
 

@@ -4,6 +4,7 @@ import type { ReverificationProgress } from '@/shared/contracts/maneuver';
 
 import { apiFetch } from './client';
 import { crewKeys } from './use-crew';
+import { sequenceKeys } from './use-sequences';
 
 /** Under the crew keys, so a saved profile (which invalidates them) refreshes the progress at once. */
 const reverificationKey = (crewMemberId: string) => [...crewKeys.all, 'reverifications', crewMemberId] as const;
@@ -31,7 +32,7 @@ export function useCancelReverificationsMutation(crewMemberId: string) {
     onSuccess: (p) => {
       qc.setQueryData(reverificationKey(crewMemberId), p);
       // Maneuver lists show each version's re-verification state.
-      return qc.invalidateQueries({ queryKey: ['sequences'] });
+      return qc.invalidateQueries({ queryKey: sequenceKeys.all });
     },
   });
 }

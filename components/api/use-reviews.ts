@@ -3,6 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ReviewCommentRequest, ReviewDecisionRequest, ReviewQueueItem, VersionDetail } from '@/shared/contracts/maneuver';
 
 import { apiFetch } from './client';
+import { auditKeys } from './use-audit';
 import { sequenceKeys } from './use-sequences';
 
 /** Query keys of the Reviews area. */
@@ -26,26 +27,22 @@ function useReviewSettled() {
     qc.setQueryData(sequenceKeys.version(version.id), version);
     void qc.invalidateQueries({ queryKey: reviewKeys.all });
     void qc.invalidateQueries({ queryKey: sequenceKeys.all });
-    void qc.invalidateQueries({ queryKey: ['audit'] });
+    void qc.invalidateQueries({ queryKey: auditKeys.all });
   };
 }
 
-/** POST /api/reviews/:versionId/decision — clear (approve) or send back, with a comment. */
-export function useReviewDecisionMutation() {
+/** POST /api/reviews/:versionId/<action>: the server answers the version as it now stands. */
+function useReviewAction<Request>(action: 'decision' | 'comments') {
   const settled = useReviewSettled();
   return useMutation({
-    mutationFn: ({ versionId, request }: { versionId: string; request: ReviewDecisionRequest }) =>
-      apiFetch<VersionDetail>(`/reviews/${encodeURIComponent(versionId)}/decision`, { method: 'POST', body: request }),
+    mutationFn: ({ versionId, request }: { versionId: string; request: Request }) =>
+      apiFetch<VersionDetail>(`/reviews/${encodeURIComponent(versionId)}/${action}`, { method: 'POST', body: request }),
     onSuccess: settled,
   });
 }
 
+/** POST /api/reviews/:versionId/decision — clear (approve) or send back, with a comment. */
+export const useReviewDecisionMutation = () => useReviewAction<ReviewDecisionRequest>('decision');
+
 /** POST /api/reviews/:versionId/comments — a comment without a decision. */
-export function useReviewCommentMutation() {
-  const settled = useReviewSettled();
-  return useMutation({
-    mutationFn: ({ versionId, request }: { versionId: string; request: ReviewCommentRequest }) =>
-      apiFetch<VersionDetail>(`/reviews/${encodeURIComponent(versionId)}/comments`, { method: 'POST', body: request }),
-    onSuccess: settled,
-  });
-}
+export const useReviewCommentMutation = () => useReviewAction<ReviewCommentRequest>('comments');

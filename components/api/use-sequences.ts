@@ -1,6 +1,5 @@
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
-import type { CrewMemberView } from '@/shared/contracts/crew';
 import type {
   CompareResponse,
   CompileRequest,
@@ -26,7 +25,6 @@ export const sequenceKeys = {
   version: (versionId: string) => [...sequenceKeys.all, 'version', versionId] as const,
   compare: (a: string, b: string) => [...sequenceKeys.all, 'compare', a, b] as const,
   compile: (request: CompileRequest) => [...sequenceKeys.all, 'compile', request] as const,
-  crewOptions: () => [...sequenceKeys.all, 'crew-options'] as const,
 };
 
 /** GET /api/sequences — every active (or, with `archived`, every archived) sequence the caller may see, optionally for one crew member. */
@@ -89,15 +87,6 @@ export function useCompileQuery(request: CompileRequest | null) {
     queryFn: ({ signal }) => apiFetch<CompileResponse>('/sequences/compile', { method: 'POST', body: request, signal }),
     enabled: !!request && request.primitives.length > 0,
     placeholderData: keepPreviousData,
-  });
-}
-
-/** GET /api/crew — crew members to pick from when creating a sequence. */
-export function useCrewOptionsQuery() {
-  return useQuery({
-    queryKey: sequenceKeys.crewOptions(),
-    queryFn: async ({ signal }) => (await apiFetch<{ members: CrewMemberView[] }>('/crew', { signal })).members,
-    staleTime: 60_000,
   });
 }
 

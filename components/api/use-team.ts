@@ -1,8 +1,9 @@
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { type QueryKey, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type { Invitation, InviteRequest, TeamMember, UpdateUserRequest } from '@/shared/contracts/team';
 
 import { apiFetch } from './client';
+import { auditKeys } from './use-audit';
 
 /** Query keys of the Team area (admin). */
 export const teamKeys = {
@@ -29,42 +30,44 @@ export function useTeamInvitationsQuery() {
   });
 }
 
+/**
+ * After a Team change: the changed row (when the server answered one) replaces its copy in the cached
+ * list at once, then the Team lists and the audit log that records the change refetch.
+ */
+function useTeamSettled() {
+  const qc = useQueryClient();
+  return <Row extends { id: string }>(changed?: { list: QueryKey; row: Row }) => {
+    if (changed) qc.setQueryData<Row[]>(changed.list, (old) => old?.map((r) => (r.id === changed.row.id ? changed.row : r)));
+    void qc.invalidateQueries({ queryKey: teamKeys.all });
+    void qc.invalidateQueries({ queryKey: auditKeys.all });
+  };
+}
+
 /** POST /api/team/invitations/:id/resend or /revoke; refreshes the Team lists and the audit log. */
 export function useInvitationActionMutation() {
-  const qc = useQueryClient();
+  const settled = useTeamSettled();
   return useMutation({
     mutationFn: ({ id, action }: { id: string; action: 'resend' | 'revoke' }) =>
       apiFetch<{ invitation: Invitation }>(`/team/invitations/${encodeURIComponent(id)}/${action}`, { method: 'POST', body: {} }),
-    onSuccess: ({ invitation }) => {
-      qc.setQueryData<Invitation[]>(teamKeys.invitations(), (old) => old?.map((i) => (i.id === invitation.id ? invitation : i)));
-      void qc.invalidateQueries({ queryKey: teamKeys.all });
-      void qc.invalidateQueries({ queryKey: ['audit'] });
-    },
+    onSuccess: ({ invitation }) => settled({ list: teamKeys.invitations(), row: invitation }),
   });
 }
 
 /** POST /api/team/invitations — e-mails an invitation; refreshes the Team lists and the audit log. */
 export function useInviteMutation() {
-  const qc = useQueryClient();
+  const settled = useTeamSettled();
   return useMutation({
     mutationFn: (input: InviteRequest) => apiFetch<{ invitation: Pick<Invitation, 'id' | 'email' | 'name' | 'role' | 'expiresAt'> }>('/team/invitations', { method: 'POST', body: input }),
-    onSuccess: () => {
-      void qc.invalidateQueries({ queryKey: teamKeys.all });
-      void qc.invalidateQueries({ queryKey: ['audit'] });
-    },
+    onSuccess: () => settled(),
   });
 }
 
 /** PATCH /api/team/users/:id — change a role or disable/enable; refreshes the Team lists and the audit log. */
 export function useUpdateUserMutation() {
-  const qc = useQueryClient();
+  const settled = useTeamSettled();
   return useMutation({
     mutationFn: ({ id, change }: { id: string; change: UpdateUserRequest }) =>
       apiFetch<{ user: TeamMember }>(`/team/users/${encodeURIComponent(id)}`, { method: 'PATCH', body: change }),
-    onSuccess: ({ user }) => {
-      qc.setQueryData<TeamMember[]>(teamKeys.users(), (old) => old?.map((u) => (u.id === user.id ? user : u)));
-      void qc.invalidateQueries({ queryKey: teamKeys.all });
-      void qc.invalidateQueries({ queryKey: ['audit'] });
-    },
+    onSuccess: ({ user }) => settled({ list: teamKeys.users(), row: user }),
   });
 }

@@ -1,4 +1,4 @@
-import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { type QueryKey, useMutation, useQueryClient } from '@tanstack/react-query';
 
 import { apiErrorSchema } from '@/shared/contracts/api-error';
 import type { UploadResult } from '@/shared/contracts/uploads';
@@ -30,25 +30,29 @@ export async function postFile(path: string, file: File, fields: Record<string, 
   throw new ApiError(res.status, 'http_error', `The server answered ${res.status}.`);
 }
 
+/** After an upload, a refetch of what it imported into, only when the file went in (a rejected file changed nothing). */
+export function useRefreshOnImport(queryKey: QueryKey) {
+  const qc = useQueryClient();
+  return (out: { ok: boolean }) => {
+    if (out.ok) void qc.invalidateQueries({ queryKey });
+  };
+}
+
 /** POST /api/uploads/measurements — a measurements CSV for several crew members (all or nothing). */
 export function useMeasurementsUploadMutation() {
-  const qc = useQueryClient();
+  const refresh = useRefreshOnImport(crewKeys.all);
   return useMutation({
     mutationFn: (file: File) => postFile('/uploads/measurements', file),
-    onSuccess: (out) => {
-      if (out.ok) void qc.invalidateQueries({ queryKey: crewKeys.all });
-    },
+    onSuccess: refresh,
   });
 }
 
 /** POST /api/uploads/segment-table — a measured segment table (CSV or contract JSON) for one member. */
 export function useSegmentTableUploadMutation() {
-  const qc = useQueryClient();
+  const refresh = useRefreshOnImport(crewKeys.all);
   return useMutation({
     mutationFn: ({ file, crewMemberId, baseVersion, note }: { file: File; crewMemberId: string; baseVersion: number; note?: string }) =>
       postFile('/uploads/segment-table', file, { crewMemberId, baseVersion: String(baseVersion), note: note ?? '' }),
-    onSuccess: (out) => {
-      if (out.ok) void qc.invalidateQueries({ queryKey: crewKeys.all });
-    },
+    onSuccess: refresh,
   });
 }
