@@ -5,7 +5,7 @@ import { View } from 'react-native';
 
 import { applyServerError } from '@/components/api/form-errors';
 import { useAcceptInvitationMutation } from '@/components/api/use-invitation';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import type { SessionUser } from '@/shared/contracts/auth';
@@ -40,7 +40,7 @@ export function AcceptInvitationForm({ token, onAccepted }: AcceptInvitationForm
     );
   });
   return (
-    <View style={{ gap: spacing.lg }}>
+    <View style={gaps.lg}>
       <ErrorBanner error={formError} />
       <NewPasswordFields
         control={control}

@@ -3,7 +3,7 @@ import { ScrollView, StyleSheet, View } from 'react-native';
 
 import { CAUTION_TEXT } from '@/components/shell/CautionLine';
 import { ProductMark } from '@/components/shell/ProductMark';
-import { colors, layout, radii, spacing } from '@/components/theme';
+import { colors, gaps, layout, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 
 /** Props of {@link AuthCard}. */
@@ -27,7 +27,7 @@ export function AuthCard({ title, subtitle, children }: AuthCardProps) {
           </Text>
         </View>
         <View style={styles.card}>
-          <View style={styles.titles}>
+          <View style={gaps.xs}>
             <Text variant="title" role="heading" aria-level={1}>
               {title}
             </Text>
@@ -58,6 +58,5 @@ const styles = StyleSheet.create({
     gap: spacing.lg,
     maxWidth: layout.formMaxWidth,
   },
-  titles: { gap: spacing.xs },
   caution: { textAlign: 'center', paddingHorizontal: spacing.lg },
 });

@@ -4,7 +4,7 @@ import { View } from 'react-native';
 
 import { applyServerError } from '@/components/api/form-errors';
 import { useSignInMutation } from '@/components/api/use-session';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
@@ -34,7 +34,7 @@ export function SignInForm({ onSignedIn }: SignInFormProps) {
     });
   });
   return (
-    <View style={{ gap: spacing.lg }}>
+    <View style={gaps.lg}>
       <ErrorBanner error={formError} />
       <FormTextField
         control={control}

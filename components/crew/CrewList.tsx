@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { View } from 'react-native';
 
 import { useCrewListQuery } from '@/components/api/use-crew';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Avatar } from '@/components/ui/Avatar';
 import { Badge } from '@/components/ui/Badge';
 import { EmptyState } from '@/components/ui/EmptyState';
@@ -33,7 +33,7 @@ export function CrewList({ selectedId, onSelect, showArchive = false }: CrewList
   const [shelf, setShelf] = useState<'active' | 'archived'>('active');
   const list = useCrewListQuery(q.trim(), shelf === 'archived');
   return (
-    <View style={{ gap: spacing.md }}>
+    <View style={gaps.md}>
       {showArchive ? <SegmentedControl label="Which crew members" hideLabel options={SHELVES} value={shelf} onChange={setShelf} /> : null}
       <TextField label="Search crew" placeholder="Name or call sign" value={q} onChangeText={setQ} autoComplete="off" autoCapitalize="none" />
       {list.isPending ? <LoadingState label="Loading the crew…" /> : null}
@@ -45,7 +45,7 @@ export function CrewList({ selectedId, onSelect, showArchive = false }: CrewList
           body={q ? `Nobody's name or call sign contains "${q}".` : shelf === 'archived' ? 'Archived crew members wait here, with every profile version, until restored.' : 'Planners add crew members and their inertia profiles here.'}
         />
       ) : null}
-      <View style={{ gap: spacing.xxs }} role="list" aria-label="Crew members">
+      <View style={gaps.xxs} role="list" aria-label="Crew members">
         {list.data?.map((m) => (
           <ListRow
             key={m.id}

@@ -4,7 +4,7 @@ import { View } from 'react-native';
 
 import { useSessionQuery } from '@/components/api/use-session';
 import { SplitView } from '@/components/layout/SplitView';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { Screen } from '@/components/ui/Screen';
@@ -53,7 +53,7 @@ export function CrewScreen() {
         listLabel="Crew members"
         detailLabel="Crew member"
         list={
-          <View style={{ gap: spacing.md }}>
+          <View style={gaps.md}>
             <CrewList selectedId={selected} onSelect={(id) => select(id)} showArchive={user?.role !== 'trainee'} />
             <Button label="Suit configurations" icon="layers" size="sm" variant="ghost" onPress={() => router.push('/crew/suits')} />
           </View>

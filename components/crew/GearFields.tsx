@@ -1,10 +1,10 @@
-import { type Control, Controller, useFieldArray } from 'react-hook-form';
+import { type Control, useFieldArray } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
+import { FormSelect } from '@/components/ui/FormSelect';
 import { FormTextField } from '@/components/ui/FormTextField';
-import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
 import { SEGMENT_LABELS, SEGMENT_NAMES } from '@/shared/model/segment-names';
 
@@ -18,18 +18,12 @@ const AXES = ['x (forward)', 'y (left)', 'z (up)'] as const;
 export function GearFields({ control }: { control: Control<ProfileFormValues> }) {
   const gear = useFieldArray({ control, name: 'inputs.gear' });
   return (
-    <View style={styles.stack}>
+    <View style={gaps.md}>
       {gear.fields.length === 0 ? <Text tone="muted">No gear carried.</Text> : null}
       {gear.fields.map((f, k) => (
         <View key={f.id} style={styles.item} aria-label={`Gear item ${k + 1}`}>
           <FormTextField control={control} name={`inputs.gear.${k}.name`} label={`Gear ${k + 1} name`} placeholder="e.g. tool caddy" />
-          <Controller
-            control={control}
-            name={`inputs.gear.${k}.segment`}
-            render={({ field, fieldState }) => (
-              <Select label={`Gear ${k + 1} fixed to`} options={SEGMENT_OPTIONS} value={field.value ?? ''} onChange={field.onChange} error={fieldState.error?.message} />
-            )}
-          />
+          <FormSelect control={control} name={`inputs.gear.${k}.segment`} label={`Gear ${k + 1} fixed to`} options={SEGMENT_OPTIONS} />
           <FormNumberField control={control} name={`inputs.gear.${k}.mass`} label={`Gear ${k + 1} mass`} unit="kg" />
           <View style={styles.row}>
             {AXES.map((axis, a) => (
@@ -54,7 +48,6 @@ export function GearFields({ control }: { control: Control<ProfileFormValues> })
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.md },
   item: { gap: spacing.md, padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border },
   row: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
   cell: { flexGrow: 1, minWidth: 110, flexBasis: 110 },

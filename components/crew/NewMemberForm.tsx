@@ -5,7 +5,7 @@ import { View } from 'react-native';
 
 import { applyServerError } from '@/components/api/form-errors';
 import { useCreateCrewMemberMutation } from '@/components/api/use-crew';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
@@ -27,7 +27,7 @@ export function NewMemberForm({ onCreated }: { onCreated: (id: string) => void }
     });
   });
   return (
-    <View style={{ gap: spacing.lg }} role="form" aria-label="New crew member">
+    <View style={gaps.lg} role="form" aria-label="New crew member">
       <ErrorBanner error={formError} />
       <FormTextField control={control} name="name" label="Full name" placeholder="First and last name" autoComplete="off" />
       <FormTextField control={control} name="callSign" label="Call sign (optional)" placeholder="e.g. HERON" autoCapitalize="characters" autoComplete="off" />

@@ -6,13 +6,13 @@ import { StyleSheet, View } from 'react-native';
 import { ApiError, errorMessage } from '@/components/api/client';
 import { useSaveProfileMutation } from '@/components/api/use-crew';
 import { useSuitsQuery } from '@/components/api/use-suits';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { FormSegmentedControl } from '@/components/ui/FormSegmentedControl';
 import { FormTextField } from '@/components/ui/FormTextField';
 import { LoadingState } from '@/components/ui/LoadingState';
-import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
 import type { SuitView } from '@/shared/contracts/crew';
@@ -82,7 +82,7 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
 
   const suitOptions = suits.map((s) => ({ value: s.id, label: `${s.config.name}${s.config.illustrative ? ' (illustrative)' : ''}` }));
   return (
-    <View style={styles.stack} role="form" aria-label="Profile editor">
+    <View style={gaps.md} role="form" aria-label="Profile editor">
       <Text tone="muted">
         {baseVersion ? `Editing on top of version ${baseVersion}. Saving makes version ${baseVersion + 1}; version ${baseVersion} stays as it is.` : 'The first save makes version 1.'}
       </Text>
@@ -93,14 +93,8 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
       ) : null}
 
       <Card title="Body">
-        <View style={styles.fields}>
-          <Controller
-            control={control}
-            name="inputs.sex"
-            render={({ field, fieldState }) => (
-              <SegmentedControl label="Regression table (sex)" options={SEX_OPTIONS} value={field.value} onChange={field.onChange} error={fieldState.error?.message} />
-            )}
-          />
+        <View style={gaps.md}>
+          <FormSegmentedControl control={control} name="inputs.sex" label="Regression table (sex)" options={SEX_OPTIONS} />
           <FormNumberField control={control} name="inputs.stature" label="Stature" unit="m" hint="1.2–2.3 m" />
           <FormNumberField control={control} name="inputs.mass" label="Body mass" unit="kg" hint="Without suit or gear, 30–200 kg" />
           <FormNumberField control={control} name="inputs.biacromialBreadth" label="Biacromial breadth" unit="m" hint="Shoulder width; empty: a fraction of stature" />
@@ -110,7 +104,7 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
 
       <Card title="Measured segment lengths" subtitle="Optional: each replaces the length scaled from stature" trailing={<Button label={showLengths ? 'Hide' : 'Show'} size="sm" variant="ghost" onPress={() => setShowLengths(!showLengths)} />}>
         {showLengths ? (
-          <View style={styles.fields}>
+          <View style={gaps.md}>
             {LENGTH_FIELDS.map((f) => (
               <FormNumberField key={f.key} control={control} name={`inputs.lengths.${f.key}`} label={f.label} unit="m" />
             ))}
@@ -119,7 +113,7 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
       </Card>
 
       <Card title="Suit and gear">
-        <View style={styles.fields}>
+        <View style={gaps.md}>
           <Controller
             control={control}
             name="inputs.suitId"
@@ -150,8 +144,6 @@ function ProfileForm({ crewMemberId, current, onSaved, onCancel, onReload, suits
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.md },
-  fields: { gap: spacing.md },
   actions: { flexDirection: 'row', gap: spacing.sm, flexWrap: 'wrap' },
   conflict: { gap: spacing.sm, padding: spacing.md, borderRadius: radii.md, backgroundColor: colors.dangerTint, borderWidth: 1, borderColor: colors.danger },
 });

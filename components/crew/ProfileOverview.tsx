@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { formatDateTime } from '@/components/format/date-time';
-import { colors, spacing } from '@/components/theme';
+import { colors, gaps, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Card } from '@/components/ui/Card';
 import { type DataColumn, DataTable } from '@/components/ui/DataTable';
@@ -44,7 +44,7 @@ export function ProfileOverview({ version }: { version: ProfileVersionView }) {
   const { summary: s, inputs: i } = version;
   const lengths = Object.entries(i.lengths ?? {});
   return (
-    <View style={styles.stack}>
+    <View style={gaps.md}>
       <Card
         title={`Version ${version.version}${version.current ? ' (current)' : ''}`}
         subtitle={`${version.authorName ?? 'Seed'} · ${formatDateTime(version.createdAt)} · engine ${version.engineVersion}`}
@@ -107,7 +107,6 @@ export function ProfileOverview({ version }: { version: ProfileVersionView }) {
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.md },
   tableNote: { padding: spacing.md },
   figures: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.lg, marginBottom: spacing.sm },
   figure: { gap: 2, minWidth: 140, paddingRight: spacing.md, borderRightWidth: 0, borderColor: colors.border },

@@ -1,7 +1,7 @@
-import { StyleSheet, View } from 'react-native';
+import { View } from 'react-native';
 
 import { useCancelReverificationsMutation, useReverificationProgressQuery } from '@/components/api/use-reverifications';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
@@ -44,7 +44,7 @@ export function ReverificationProgressCard({ crewMemberId, canStop }: Reverifica
       title={open ? 'Re-verifying maneuvers' : 'Maneuvers re-verified'}
       subtitle={`on profile v${p.toProfileVersion ?? '?'} · ${ended} of ${p.total} ended`}
     >
-      <View style={styles.wrap} testID="reverification-progress">
+      <View style={gaps.xs} testID="reverification-progress">
         <ProgressBar value={p.progress} label="Re-verification progress" tone={p.failed ? 'accent' : 'teal'} />
         <Text variant="caption" tone="muted" testID="reverification-counts">
           {`${Math.round(p.progress * 100)} % · ${p.done} recomputed · ${p.running} running · ${p.queued} waiting`}
@@ -69,7 +69,3 @@ export function ReverificationProgressCard({ crewMemberId, canStop }: Reverifica
     </Card>
   );
 }
-
-const styles = StyleSheet.create({
-  wrap: { gap: spacing.xs },
-});

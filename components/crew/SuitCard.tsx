@@ -4,7 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import { ApiError } from '@/components/api/client';
 import { useUpdateSuitMutation } from '@/components/api/use-suits';
 import { formatDateTime } from '@/components/format/date-time';
-import { colors, fonts, radii, spacing } from '@/components/theme';
+import { colors, fonts, gaps, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
@@ -76,7 +76,7 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
       subtitle={`id ${c.id} · version ${suit.version} · adds ${fixed(total, 2)} kg · edited ${formatDateTime(suit.updatedAt)}${suit.updatedByName ? ` by ${suit.updatedByName}` : ''}`}
       trailing={c.illustrative ? <Badge label="Illustrative values" tone="accent" /> : <Badge label="Measured" tone="success" />}
     >
-      <View style={styles.stack}>
+      <View style={gaps.md}>
         {c.note ? <Text tone="muted">{c.note}</Text> : null}
         {added.length ? (
           <DataTable
@@ -107,7 +107,7 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
 
         {canEdit && draft === null ? <Button label="Edit as JSON" icon="edit-3" variant="secondary" size="sm" onPress={startEdit} /> : null}
         {draft !== null ? (
-          <View style={styles.stack}>
+          <View style={gaps.md}>
             <Text variant="caption" tone="muted">
               Masses in kg, positions in m in the segment frame, inertia in kg·m², ranges in degrees. Saved profile versions keep their own copy; only later saves use the edit.
             </Text>
@@ -140,6 +140,5 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.md },
   row: { flexDirection: 'row', gap: spacing.sm },
 });

@@ -3,7 +3,7 @@ import { View } from 'react-native';
 
 import { useSessionQuery } from '@/components/api/use-session';
 import { useSuitsQuery } from '@/components/api/use-suits';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
@@ -25,7 +25,7 @@ export function SuitsScreen() {
     >
       {suits.isPending ? <LoadingState label="Loading suit configurations…" /> : null}
       {suits.isError ? <ErrorBanner title="Could not load the suit configurations" error={suits.error} onRetry={() => void suits.refetch()} /> : null}
-      <View style={{ gap: spacing.md }}>
+      <View style={gaps.md}>
         {suits.data?.map((s) => <SuitCard key={s.id} suit={s} canEdit={canEdit} />)}
       </View>
     </Screen>

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { useCrewListQuery } from '@/components/api/use-crew';
 import { useMeasurementsUploadMutation, useSegmentTableUploadMutation } from '@/components/api/use-uploads';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
@@ -38,9 +38,9 @@ export function UploadPanel() {
   const member = crew.data?.find((m) => m.id === memberId);
 
   return (
-    <View style={styles.stack}>
+    <View style={gaps.md}>
       <Card title="Measurements CSV" subtitle="One row per crew member; a row whose name matches an existing member adds a version to that member, others create new members.">
-        <View style={styles.stack}>
+        <View style={gaps.md}>
           <Text variant="label" tone="muted">Header (first line), columns in any order:</Text>
           <HeaderLine columns={MEASUREMENT_COLUMNS} />
           <Text variant="caption" tone="muted">
@@ -55,7 +55,7 @@ export function UploadPanel() {
       </Card>
 
       <Card title="Measured segment table" subtitle="Replaces the regression for one crew member: a CSV of segment mass properties (joints kept), or a complete body as contract JSON.">
-        <View style={styles.stack}>
+        <View style={gaps.md}>
           <HeaderLine columns={SEGMENT_TABLE_COLUMNS} />
           <Text variant="caption" tone="muted">
             One row per segment to replace (segment names as in the derived body, e.g. l_thigh); CoM in the segment frame (m); inertia about the segment CoM (kg·m²);
@@ -86,6 +86,5 @@ export function UploadPanel() {
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.md },
   code: { padding: spacing.sm, borderRadius: radii.sm, backgroundColor: colors.background, borderWidth: 1, borderColor: colors.border },
 });

@@ -1,7 +1,7 @@
 import { View } from 'react-native';
 
 import type { UploadOutcome } from '@/components/api/use-uploads';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { type DataColumn, DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
@@ -26,7 +26,7 @@ export function UploadResultView({ outcome }: { outcome: UploadOutcome }) {
   const { upload, imported } = outcome.result;
   if (!outcome.ok) {
     return (
-      <View style={{ gap: spacing.md }}>
+      <View style={gaps.md}>
         <ErrorBanner title="Nothing was imported" error={`${upload.errors.length} problem${upload.errors.length === 1 ? '' : 's'} in ${new Set(upload.errors.map((e) => e.row)).size} row${new Set(upload.errors.map((e) => e.row)).size === 1 ? '' : 's'}: every one is listed below.`} />
         <DataTable label="Upload errors" columns={ERROR_COLUMNS} rows={upload.errors} rowKey={(e) => `${e.row}-${e.column}-${e.reason}`} rowTone={() => 'danger'} />
         <Text variant="caption" tone="muted">
@@ -36,7 +36,7 @@ export function UploadResultView({ outcome }: { outcome: UploadOutcome }) {
     );
   }
   return (
-    <View style={{ gap: spacing.md }}>
+    <View style={gaps.md}>
       <View role="status">
         <Text tone="success" variant="bodyStrong">
           Imported {imported.length} row{imported.length === 1 ? '' : 's'} from {upload.fileName}.

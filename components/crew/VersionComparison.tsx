@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { useProfileComparisonQuery } from '@/components/api/use-crew';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Card } from '@/components/ui/Card';
 import { type DataColumn, DataTable } from '@/components/ui/DataTable';
@@ -51,8 +51,8 @@ export function VersionComparison({ crewMemberId, a, b }: VersionComparisonProps
   ];
   const cols = columns(a, b);
   return (
-    <View style={styles.stack} aria-label={`Comparison of versions ${a} and ${b}`}>
-      <View style={styles.head}>
+    <View style={gaps.md} aria-label={`Comparison of versions ${a} and ${b}`}>
+      <View style={gaps.sm}>
         <Text variant="bodyStrong" role="status">
           {c.changedCount === 0 ? 'No differences.' : `${c.changedCount} value${c.changedCount === 1 ? '' : 's'} changed between version ${a} and version ${b}.`}
         </Text>
@@ -72,7 +72,5 @@ export function VersionComparison({ crewMemberId, a, b }: VersionComparisonProps
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.md },
-  head: { gap: spacing.sm },
   filter: { maxWidth: 320 },
 });

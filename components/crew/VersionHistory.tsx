@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { useProfileVersionQuery, useProfileVersionsQuery } from '@/components/api/use-crew';
 import { formatDateTime } from '@/components/format/date-time';
-import { spacing } from '@/components/theme';
+import { gaps, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Card } from '@/components/ui/Card';
 import { EmptyState } from '@/components/ui/EmptyState';
@@ -32,7 +32,7 @@ export function VersionHistory({ crewMemberId }: { crewMemberId: string }) {
   const options = list.map((v) => ({ value: String(v.version), label: `Version ${v.version}${v.current ? ' (current)' : ''}` }));
 
   return (
-    <View style={styles.stack}>
+    <View style={gaps.md}>
       <Card title="Versions" subtitle="Saved versions never change; editing makes a new one." padding="none">
         <View role="list" aria-label="Profile versions" style={styles.list}>
           {list.map((v) => (
@@ -76,7 +76,6 @@ export function VersionHistory({ crewMemberId }: { crewMemberId: string }) {
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.md },
   list: { gap: spacing.xxs, padding: spacing.sm },
   pickers: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.md, marginBottom: spacing.md },
   picker: { flexGrow: 1, minWidth: 160 },

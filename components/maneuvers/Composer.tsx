@@ -7,7 +7,7 @@ import { useIsWide } from '@/components/layout/use-is-wide';
 import { RecordedSweepPicker } from '@/components/recordings/RecordedSweepPicker';
 import { VersionRehearsals } from '@/components/rehearse/VersionRehearsals';
 import { ReviewHistory } from '@/components/reviews/ReviewHistory';
-import { colors, layout, radii, spacing } from '@/components/theme';
+import { colors, gaps, layout, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { EmptyState } from '@/components/ui/EmptyState';
@@ -92,7 +92,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   };
 
   const header = (
-    <View style={styles.header}>
+    <View style={gaps.xs}>
       <Button label="All maneuvers" icon="chevron-left" variant="ghost" size="sm" onPress={onBack} />
       <View style={styles.titleRow}>
         <Text variant="title" role="heading" aria-level={1} style={styles.flex}>
@@ -148,7 +148,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   ) : null;
 
   const stepsPanel = (
-    <View style={styles.panel}>
+    <View style={gaps.md}>
       <View style={styles.panelHead}>
         <Text variant="heading" role="heading" aria-level={2} style={styles.flex}>
           Steps
@@ -201,7 +201,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   );
 
   const reportPanel = (
-    <View style={styles.panel}>
+    <View style={gaps.md}>
       {version ? <VersionStatusNotice version={version} /> : null}
       {version?.report ? (
         <VerificationReport report={version.report} cues={version.cues} versionId={version.id} profileVersion={version.profileVersion} />
@@ -209,7 +209,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
         <EmptyState icon="cpu" title="No verification report yet" body={editable ? 'Add steps, then Save and verify: the engine computes the report on the crew member’s current profile.' : 'This version has no report.'} />
       )}
       {version ? (
-        <View style={styles.panel}>
+        <View style={gaps.md}>
           <Text variant="heading" role="heading" aria-level={2}>
             Review
           </Text>
@@ -221,7 +221,7 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   );
 
   const versionsPanel = (
-    <View style={styles.panel}>
+    <View style={gaps.md}>
       <Text variant="heading" role="heading" aria-level={2}>
         Versions
       </Text>
@@ -300,14 +300,12 @@ const styles = StyleSheet.create({
   root: { flex: 1, backgroundColor: colors.background },
   wideContent: { padding: spacing.lg, gap: spacing.lg, maxWidth: layout.maxContentWidth + 320, width: '100%', alignSelf: 'center' },
   phoneContent: { padding: spacing.lg, gap: spacing.lg },
-  header: { gap: spacing.xs },
   titleRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, flexWrap: 'wrap' },
   flex: { flex: 1 },
   columns: { flexDirection: 'row', gap: spacing.lg, alignItems: 'flex-start' },
   colSteps: { flex: 1, minWidth: 300 },
   colEditor: { flex: 1, minWidth: 300, gap: spacing.lg },
   colReport: { flex: 1.5, minWidth: 380, padding: spacing.md, borderRadius: radii.lg, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface },
-  panel: { gap: spacing.md },
   panelHead: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm },
   actions: { gap: spacing.md, marginTop: spacing.sm },
   buttonRow: { flexDirection: 'row', gap: spacing.sm, flexWrap: 'wrap' },

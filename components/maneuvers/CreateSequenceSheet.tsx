@@ -1,15 +1,16 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { type Control, Controller, useForm, useWatch } from 'react-hook-form';
+import { useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
-import { useCreateSequenceMutation, useCrewOptionsQuery } from '@/components/api/use-sequences';
+import { useCrewListQuery } from '@/components/api/use-crew';
+import { useCreateSequenceMutation } from '@/components/api/use-sequences';
 import { spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { FormSegmentedControl } from '@/components/ui/FormSegmentedControl';
+import { FormSelect } from '@/components/ui/FormSelect';
 import { FormTextField } from '@/components/ui/FormTextField';
-import { SegmentedControl } from '@/components/ui/SegmentedControl';
-import { Select } from '@/components/ui/Select';
 import { Sheet } from '@/components/ui/Sheet';
 import { Text } from '@/components/ui/Text';
 import type { SequenceSummary } from '@/shared/contracts/maneuver';
@@ -30,7 +31,7 @@ export interface CreateSequenceSheetProps {
 
 /** New maneuver: crew member, name and the target reorientation (yaw/pitch/roll or axis and angle) with its limits. */
 export function CreateSequenceSheet({ visible, onClose, onCreated, crewMemberId }: CreateSequenceSheetProps) {
-  const crew = useCrewOptionsQuery();
+  const crew = useCrewListQuery('');
   const create = useCreateSequenceMutation();
   const [formError, setFormError] = useState<string | null>(null);
   const { control, handleSubmit, reset } = useForm<CreateSequenceFormInput, unknown, CreateSequenceFormOutput>({
@@ -38,8 +39,6 @@ export function CreateSequenceSheet({ visible, onClose, onCreated, crewMemberId 
     defaultValues: { ...EMPTY_CREATE_SEQUENCE_FORM, crewMemberId: crewMemberId ?? '' },
     mode: 'onTouched',
   });
-  // FormTextField is typed for forms without a transform; its fields only read and write the text.
-  const textControl = control as unknown as Control<CreateSequenceFormInput>;
   const mode = useWatch({ control, name: 'mode' });
   const close = () => {
     reset();
@@ -71,60 +70,47 @@ export function CreateSequenceSheet({ visible, onClose, onCreated, crewMemberId 
     >
       <ErrorBanner error={formError} title="Could not create the maneuver" />
       {crew.isError ? <ErrorBanner title="Could not load the crew" error={crew.error} onRetry={() => void crew.refetch()} /> : null}
-      <Controller
+      <FormSelect
         control={control}
         name="crewMemberId"
-        render={({ field, fieldState }) => (
-          <Select
-            label="Crew member"
-            options={members.map((m) => ({ value: m.id, label: `${m.name} (profile v${m.currentVersion})` }))}
-            value={field.value}
-            onChange={field.onChange}
-            placeholder={crew.isPending ? 'Loading…' : 'Choose a crew member'}
-            error={fieldState.error?.message}
-            hint="Only crew members with a saved inertia profile can have maneuvers."
-          />
-        )}
+        label="Crew member"
+        options={members.map((m) => ({ value: m.id, label: `${m.name} (profile v${m.currentVersion})` }))}
+        placeholder={crew.isPending ? 'Loading…' : 'Choose a crew member'}
+        hint="Only crew members with a saved inertia profile can have maneuvers."
       />
-      <FormTextField control={textControl} name="name" label="Name" placeholder="e.g. Quarter turn left" />
-      <Controller
+      <FormTextField control={control} name="name" label="Name" placeholder="e.g. Quarter turn left" />
+      <FormSegmentedControl
         control={control}
         name="mode"
-        render={({ field }) => (
-          <SegmentedControl
-            label="Target given as"
-            options={[
-              { value: 'ypr', label: 'Yaw / pitch / roll' },
-              { value: 'axis_angle', label: 'Axis and angle' },
-            ]}
-            value={field.value}
-            onChange={field.onChange}
-          />
-        )}
+        label="Target given as"
+        options={[
+          { value: 'ypr', label: 'Yaw / pitch / roll' },
+          { value: 'axis_angle', label: 'Axis and angle' },
+        ]}
       />
       {mode === 'ypr' ? (
         <View style={styles.row}>
-          <View style={styles.cell}><FormTextField control={textControl} name="yaw" label="Yaw" unit="°" inputMode="decimal" /></View>
-          <View style={styles.cell}><FormTextField control={textControl} name="pitch" label="Pitch" unit="°" inputMode="decimal" /></View>
-          <View style={styles.cell}><FormTextField control={textControl} name="roll" label="Roll" unit="°" inputMode="decimal" /></View>
+          <View style={styles.cell}><FormTextField control={control} name="yaw" label="Yaw" unit="°" inputMode="decimal" /></View>
+          <View style={styles.cell}><FormTextField control={control} name="pitch" label="Pitch" unit="°" inputMode="decimal" /></View>
+          <View style={styles.cell}><FormTextField control={control} name="roll" label="Roll" unit="°" inputMode="decimal" /></View>
         </View>
       ) : (
         <>
           <View style={styles.row}>
-            <View style={styles.cell}><FormTextField control={textControl} name="axisX" label="Axis x" inputMode="decimal" /></View>
-            <View style={styles.cell}><FormTextField control={textControl} name="axisY" label="Axis y" inputMode="decimal" /></View>
-            <View style={styles.cell}><FormTextField control={textControl} name="axisZ" label="Axis z" inputMode="decimal" /></View>
+            <View style={styles.cell}><FormTextField control={control} name="axisX" label="Axis x" inputMode="decimal" /></View>
+            <View style={styles.cell}><FormTextField control={control} name="axisY" label="Axis y" inputMode="decimal" /></View>
+            <View style={styles.cell}><FormTextField control={control} name="axisZ" label="Axis z" inputMode="decimal" /></View>
           </View>
-          <FormTextField control={textControl} name="angleDeg" label="Angle" unit="°" inputMode="decimal" hint="0°–180°, right-handed about the axis" />
+          <FormTextField control={control} name="angleDeg" label="Angle" unit="°" inputMode="decimal" hint="0°–180°, right-handed about the axis" />
         </>
       )}
       <Text variant="caption" tone="muted">
         Angles of the body frame at the start: x out of the chest, y to the left, z toward the head; yaw about z, then pitch about y′, then roll about x″.
       </Text>
       <View style={styles.row}>
-        <View style={styles.cell}><FormTextField control={textControl} name="toleranceDeg" label="Tolerance" unit="°" inputMode="decimal" /></View>
-        <View style={styles.cell}><FormTextField control={textControl} name="rateLimitDegS" label="Joint rate limit" unit="°/s" inputMode="decimal" /></View>
-        <View style={styles.cell}><FormTextField control={textControl} name="timeBudgetS" label="Time budget" unit="s" inputMode="decimal" hint="Blank: none" /></View>
+        <View style={styles.cell}><FormTextField control={control} name="toleranceDeg" label="Tolerance" unit="°" inputMode="decimal" /></View>
+        <View style={styles.cell}><FormTextField control={control} name="rateLimitDegS" label="Joint rate limit" unit="°/s" inputMode="decimal" /></View>
+        <View style={styles.cell}><FormTextField control={control} name="timeBudgetS" label="Time budget" unit="s" inputMode="decimal" hint="Blank: none" /></View>
       </View>
     </Sheet>
   );

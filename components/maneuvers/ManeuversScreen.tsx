@@ -2,10 +2,11 @@ import { useRouter } from 'expo-router';
 import { useMemo, useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
-import { useCrewOptionsQuery, useSequencesQuery } from '@/components/api/use-sequences';
+import { useCrewListQuery } from '@/components/api/use-crew';
+import { useSequencesQuery } from '@/components/api/use-sequences';
 import { useSessionQuery } from '@/components/api/use-session';
 import { useIsWide } from '@/components/layout/use-is-wide';
-import { spacing } from '@/components/theme';
+import { gaps, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
@@ -38,7 +39,7 @@ export function ManeuversScreen() {
   const [creating, setCreating] = useState(false);
   const [shelf, setShelf] = useState<Shelf>('active');
   const sequences = useSequencesQuery(crewMemberId || undefined, shelf === 'archived');
-  const crew = useCrewOptionsQuery();
+  const crew = useCrewListQuery('');
   const canCompose = session.data?.role === 'planner' || session.data?.role === 'admin';
 
   const shown = useMemo(() => {
@@ -92,7 +93,7 @@ export function ManeuversScreen() {
           action={canCompose && !sequences.data.length && shelf === 'active' ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : undefined}
         />
       ) : null}
-      <View role="list" aria-label="Maneuvers" style={[styles.list, wide && styles.listWide]}>
+      <View role="list" aria-label="Maneuvers" style={[gaps.sm, wide && styles.listWide]}>
         {shown.map((s) => (
           <View key={s.id} role="listitem" style={wide ? styles.cellWide : undefined}>
             <SequenceRow sequence={s} onOpen={() => router.push(`/maneuvers/${s.id}`)} />
@@ -118,7 +119,6 @@ const styles = StyleSheet.create({
   filters: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-start', gap: spacing.md },
   filter: { flexGrow: 1, flexBasis: 140 },
   search: { flexBasis: 260, flexGrow: 2 },
-  list: { gap: spacing.sm },
   listWide: { flexDirection: 'row', flexWrap: 'wrap' },
   cellWide: { flexBasis: '48%', flexGrow: 1 },
 });

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { useSequenceLifecycleMutation } from '@/components/api/use-sequences';
 import { formatDateTime } from '@/components/format/date-time';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import type { IconName } from '@/components/ui/Icon';
@@ -42,7 +42,7 @@ export function SequenceLifecycle({ sequence, canCompose, onDeleted }: SequenceL
     action.mutate(what, { onSuccess: () => (setAsking(null), what === 'delete' ? onDeleted() : undefined) });
 
   return (
-    <View style={styles.wrap}>
+    <View style={gaps.sm}>
       {archived ? (
         <View style={styles.notice} testID="archived-notice">
           <Text variant="label">Archived {formatDateTime(sequence.archivedAt!)}</Text>
@@ -126,7 +126,6 @@ function ConfirmInPlace({ question, consequence, confirm, pending, onConfirm, on
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.sm },
   row: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', gap: spacing.sm },
   flex: { flex: 1, minWidth: 160 },
   notice: { gap: spacing.xs, padding: spacing.md, borderRadius: radii.md, backgroundColor: colors.mutedTint, borderWidth: 1, borderColor: colors.border },

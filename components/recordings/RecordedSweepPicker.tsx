@@ -3,7 +3,7 @@ import { View } from 'react-native';
 
 import { apiFetch, errorMessage } from '@/components/api/client';
 import { useRecordingsQuery } from '@/components/api/use-recordings';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
@@ -59,7 +59,7 @@ export function RecordedSweepPicker({ crewMemberId, onPick }: RecordedSweepPicke
     }
   };
   return (
-    <View style={{ gap: spacing.xs }} testID="recorded-sweep-picker">
+    <View style={gaps.xs} testID="recorded-sweep-picker">
       <Select<string>
         label="Recording"
         placeholder={list.isPending ? 'Loading…' : list.data?.length ? 'Choose a recording' : 'No recordings yet (Crew → Upload)'}

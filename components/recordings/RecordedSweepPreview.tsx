@@ -1,8 +1,8 @@
-import { StyleSheet, View } from 'react-native';
+import { View } from 'react-native';
 
 import { useCompileQuery } from '@/components/api/use-sequences';
 import { dofLabel, JointAnglePlots } from '@/components/charts/JointAnglePlots';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
@@ -43,7 +43,7 @@ export function RecordedSweepPreview({ step, crewMemberId, dropped }: RecordedSw
   const margins = ranges ? channelMargins(step, ranges) : [];
   const tightest = margins.filter((m) => m.marginDeg !== null).sort((a, b) => (a.marginDeg ?? 0) - (b.marginDeg ?? 0))[0];
   return (
-    <View style={styles.wrap} testID="recorded-sweep-preview">
+    <View style={gaps.sm} testID="recorded-sweep-preview">
       <Text variant="overline" tone="muted">
         Recorded sweep against the joint ranges
       </Text>
@@ -80,7 +80,3 @@ export function RecordedSweepPreview({ step, crewMemberId, dropped }: RecordedSw
     </View>
   );
 }
-
-const styles = StyleSheet.create({
-  wrap: { gap: spacing.sm },
-});

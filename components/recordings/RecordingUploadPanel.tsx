@@ -3,7 +3,7 @@ import { View } from 'react-native';
 
 import { useRecordingQuery, useRecordingUploadMutation } from '@/components/api/use-recordings';
 import { FilePicker } from '@/components/crew/FilePicker';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { LoadingState } from '@/components/ui/LoadingState';
@@ -19,7 +19,7 @@ export function RecordingUploadPanel() {
   const detail = useRecordingQuery(id);
   return (
     <Card title="Recorded motion" subtitle="Joint-angle CSV (time_s + dof columns, degrees) or BVH motion capture">
-      <View style={{ gap: spacing.sm }} testID="recording-upload">
+      <View style={gaps.sm} testID="recording-upload">
         <FilePicker label="Recording file" accept=".csv,.bvh" onPick={setFile} />
         <Button label="Upload recording" icon="upload" size="sm" disabled={!file} loading={upload.isPending} onPress={() => file && upload.mutate(file)} testID="upload-recording" />
         <UploadProblems error={upload.error} outcome={upload.data} maxRows={30} />

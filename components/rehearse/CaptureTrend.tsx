@@ -1,10 +1,10 @@
-import { StyleSheet, View } from 'react-native';
+import { View } from 'react-native';
 
 import { useCaptureTrendQuery } from '@/components/api/use-rehearsal-captures';
 import { LinePlot, type LinePlotProps } from '@/components/charts/LinePlot';
 import { plotColors } from '@/components/charts/plot-colors';
 import { formatDateTime } from '@/components/format/date-time';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Card } from '@/components/ui/Card';
 import { DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
@@ -32,7 +32,7 @@ export function CaptureTrend() {
   const series = (pick: (p: CaptureTrendPoint) => number | null) => points.map((p) => pick(p) ?? NaN);
   return (
     <Card title="Your recorded rehearsals" subtitle={points.length ? `${points.length} with a recording` : undefined}>
-      <View style={styles.wrap} testID="capture-trend">
+      <View style={gaps.sm} testID="capture-trend">
         {points.length === 0 ? (
           <Text tone="muted">Attach a recording to a logged rehearsal (Recording, under each one in the history) to follow your timing and amplitude here.</Text>
         ) : null}
@@ -86,7 +86,3 @@ export function CaptureTrend() {
     </Card>
   );
 }
-
-const styles = StyleSheet.create({
-  wrap: { gap: spacing.sm },
-});

@@ -2,7 +2,7 @@ import { Pressable, StyleSheet } from 'react-native';
 
 import { colors, layout, radii } from '@/components/theme';
 import { Icon, type IconName } from '@/components/ui/Icon';
-import { webPressState } from '@/components/ui/press-state';
+import { pressStyle } from '@/components/ui/press-state';
 
 /** Props of {@link ControlButton}. */
 export interface ControlButtonProps {
@@ -26,16 +26,13 @@ export function ControlButton({ icon, label, onPress, active, primary = false, d
       aria-pressed={active}
       disabled={disabled}
       onPress={onPress}
-      style={(state) => {
-        const { pressed, hovered } = webPressState(state);
-        return [
-          styles.base,
-          primary && styles.primary,
-          active && styles.active,
-          (pressed || hovered) && !primary && styles.hover,
-          disabled && styles.disabled,
-        ];
-      }}
+      style={pressStyle(({ pressed, hovered }) => [
+        styles.base,
+        primary && styles.primary,
+        active && styles.active,
+        (pressed || hovered) && !primary && styles.hover,
+        disabled && styles.disabled,
+      ])}
     >
       <Icon name={icon} size={primary ? 24 : 19} color={primary ? colors.onAccent : active ? colors.accent : colors.text} />
     </Pressable>

@@ -1,10 +1,10 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 
 import { formatDate, formatDateTime } from '@/components/format/date-time';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Icon } from '@/components/ui/Icon';
-import { webPressState } from '@/components/ui/press-state';
+import { pressStyle } from '@/components/ui/press-state';
 import { Text } from '@/components/ui/Text';
 import type { RehearsableVersion } from '@/shared/contracts/rehearsal';
 import { shortEngineVersion } from '@/shared/product/engine-binding';
@@ -23,7 +23,7 @@ export interface RehearsableListProps {
  */
 export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
   return (
-    <View style={styles.list} role="list">
+    <View style={gaps.md} role="list">
       {versions.map((v) => {
         const stale = v.status === 'recheck';
         return (
@@ -33,7 +33,7 @@ export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
             aria-label={`${v.sequenceName}, version ${v.version}${stale ? ', needs a re-check' : ''}`}
             disabled={stale}
             onPress={() => onOpen(v.versionId)}
-            style={(state) => [styles.row, webPressState(state).hovered && !stale && styles.rowHover, stale && styles.rowStale]}
+            style={pressStyle(({ hovered }) => [styles.row, hovered && !stale && styles.rowHover, stale && styles.rowStale])}
           >
             <View style={styles.head}>
               <View style={styles.titles}>
@@ -77,7 +77,7 @@ export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
 
 function Fact({ label, value }: { label: string; value: string }) {
   return (
-    <View style={styles.fact}>
+    <View style={gaps.xxs}>
       <Text variant="overline" tone="muted">
         {label}
       </Text>
@@ -87,12 +87,10 @@ function Fact({ label, value }: { label: string; value: string }) {
 }
 
 const styles = StyleSheet.create({
-  list: { gap: spacing.md },
   row: { backgroundColor: colors.surface, borderRadius: radii.lg, borderWidth: 1, borderColor: colors.border, padding: spacing.lg, gap: spacing.sm },
   rowHover: { borderColor: colors.borderStrong, backgroundColor: colors.raised },
   rowStale: { borderColor: colors.danger },
   head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.md },
   titles: { flex: 1, minWidth: 0 },
   facts: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xl },
-  fact: { gap: spacing.xxs },
 });

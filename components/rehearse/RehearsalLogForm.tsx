@@ -1,9 +1,9 @@
 import { useState } from 'react';
-import { StyleSheet, View } from 'react-native';
+import { View } from 'react-native';
 
 import { errorMessage } from '@/components/api/client';
 import { useLogRehearsalMutation } from '@/components/api/use-rehearsals';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
@@ -48,7 +48,7 @@ export function RehearsalLogForm({ versionId, totalSteps, run, onSaved }: Rehear
 
   return (
     <Card title="Log this rehearsal" subtitle="Record how the run went; your history is below.">
-      <View style={styles.form}>
+      <View style={gaps.lg}>
         <TextField
           label="Completed steps"
           unit={`of ${totalSteps}`}
@@ -82,7 +82,3 @@ export function RehearsalLogForm({ versionId, totalSteps, run, onSaved }: Rehear
     </Card>
   );
 }
-
-const styles = StyleSheet.create({
-  form: { gap: spacing.lg },
-});

@@ -6,7 +6,7 @@ import { useRehearsableVersionsQuery, useRehearsalHistoryQuery } from '@/compone
 import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import { CueCardButton } from '@/components/maneuvers/CueCardButton';
 import { RobustnessCaution } from '@/components/maneuvers/robustness/RobustnessCaution';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { EmptyState } from '@/components/ui/EmptyState';
@@ -73,7 +73,7 @@ export function RehearsalSession({ versionId }: RehearsalSessionProps) {
         </>
       ) : undefined}
     >
-      <View style={styles.col}>
+      <View style={gaps.lg}>
         {robustness.isPending ? null : (
           <RobustnessCaution robustness={rb ? { state: rb.state, progress: rb.progress, feedbackP95Deg: rb.feedbackP95Deg, toleranceDeg: rb.toleranceDeg, level } : null} testID="session-robustness-caution" />
         )}
@@ -100,6 +100,5 @@ export function RehearsalSession({ versionId }: RehearsalSessionProps) {
 }
 
 const styles = StyleSheet.create({
-  col: { gap: spacing.lg },
   player: { flex: 1, backgroundColor: '#0B121B' },
 });

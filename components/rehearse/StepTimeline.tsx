@@ -1,7 +1,7 @@
 import { useRef } from 'react';
 import { type GestureResponderEvent, StyleSheet, View } from 'react-native';
 
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { MotionStep } from '@/shared/contracts/motion';
 
@@ -35,7 +35,7 @@ export function StepTimeline({ steps, duration, time, current, loopStep, onSeek 
   };
   const pct = (t: number) => `${(100 * t) / Math.max(1e-9, duration)}%` as const;
   return (
-    <View style={styles.wrap}>
+    <View style={gaps.xxs}>
       <View
         ref={track}
         style={styles.track}
@@ -86,7 +86,6 @@ export function StepTimeline({ steps, duration, time, current, loopStep, onSeek 
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.xxs },
   track: { height: 28, justifyContent: 'center', cursor: 'pointer' as never },
   step: {
     position: 'absolute', top: 8, height: 12, backgroundColor: colors.raised, borderLeftWidth: 2, borderLeftColor: colors.background,

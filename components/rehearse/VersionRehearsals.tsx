@@ -2,7 +2,7 @@ import { View } from 'react-native';
 
 import { useRehearsalHistoryQuery } from '@/components/api/use-rehearsals';
 import { useSessionQuery } from '@/components/api/use-session';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
 
@@ -24,7 +24,7 @@ export function VersionRehearsals({ versionId }: VersionRehearsalsProps) {
   if (history.isPending) return <LoadingState label="Loading the rehearsals…" />;
   if (history.isError) return <ErrorBanner title="Could not load the rehearsals" error={history.error} onRetry={() => void history.refetch()} />;
   return (
-    <View style={{ gap: spacing.sm }} testID="version-rehearsals">
+    <View style={gaps.sm} testID="version-rehearsals">
       <RehearsalHistory
         title="Rehearsals of this version"
         rehearsals={history.data}

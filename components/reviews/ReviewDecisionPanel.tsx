@@ -5,7 +5,7 @@ import { useReviewCommentMutation, useReviewDecisionMutation } from '@/component
 import { FailureList } from '@/components/maneuvers/submit/SubmitForReview';
 import { useVersionChecks } from '@/components/maneuvers/submit/use-version-checks';
 import { VersionKeyFigures } from '@/components/maneuvers/submit/VersionKeyFigures';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Sheet } from '@/components/ui/Sheet';
@@ -97,7 +97,7 @@ export function ReviewDecisionPanel({ version, onDecided }: ReviewDecisionPanelP
           </View>
         }
       >
-        <View style={styles.sheet} testID="clear-sheet">
+        <View style={gaps.md} testID="clear-sheet">
           <Text>
             {version.sequence.name}, version {version.version}, for {version.sequence.crewMemberName}: clearing binds to this version, profile v{version.profileVersion} and engine{' '}
             {version.engineVersion ?? '—'}, and {version.sequence.crewMemberName} may rehearse it.
@@ -116,5 +116,4 @@ const styles = StyleSheet.create({
   panel: { gap: spacing.md, padding: spacing.lg, borderRadius: radii.lg, borderWidth: 1, borderColor: colors.accent, backgroundColor: colors.surface },
   buttons: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.sm },
   footer: { flexDirection: 'row', justifyContent: 'flex-end', gap: spacing.sm, flexWrap: 'wrap' },
-  sheet: { gap: spacing.md },
 });

@@ -10,7 +10,7 @@ import { RobustnessSummary } from '@/components/maneuvers/robustness/RobustnessS
 import { targetText } from '@/components/maneuvers/target-text';
 import { VersionStatusBadge } from '@/components/maneuvers/VersionStatusBadge';
 import { VersionStatusNotice } from '@/components/maneuvers/VersionStatusNotice';
-import { spacing } from '@/components/theme';
+import { gaps, spacing } from '@/components/theme';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
@@ -47,8 +47,8 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
     </>
   );
   return (
-    <View style={styles.wrap} testID="review-detail">
-      <View style={styles.head}>
+    <View style={gaps.lg} testID="review-detail">
+      <View style={gaps.xs}>
         <View style={styles.titleRow}>
           <Text variant="title" role="heading" aria-level={1} style={styles.flex}>
             {v.sequence.name} · v{v.version}
@@ -86,8 +86,6 @@ export function ReviewDetail({ versionId }: ReviewDetailProps) {
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.lg },
-  head: { gap: spacing.xs },
   titleRow: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, flexWrap: 'wrap' },
   flex: { flex: 1 },
 });

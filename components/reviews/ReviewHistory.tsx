@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { fmtWhen, shortHash } from '@/components/maneuvers/report/format';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Badge, type BadgeTone } from '@/components/ui/Badge';
 import { Text } from '@/components/ui/Text';
 import type { ReviewEntry } from '@/shared/contracts/maneuver';
@@ -27,7 +27,7 @@ export function ReviewHistory({ reviews }: ReviewHistoryProps) {
     );
   }
   return (
-    <View role="list" aria-label="Review history" style={styles.list} testID="review-history">
+    <View role="list" aria-label="Review history" style={gaps.sm} testID="review-history">
       {reviews.map((r) => (
         <View key={r.id} role="listitem" style={styles.item}>
           <View style={styles.head}>
@@ -52,7 +52,6 @@ export function ReviewHistory({ reviews }: ReviewHistoryProps) {
 }
 
 const styles = StyleSheet.create({
-  list: { gap: spacing.sm },
   item: { padding: spacing.md, borderRadius: radii.md, backgroundColor: colors.raised, gap: spacing.xs },
   head: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
   flex: { flex: 1 },

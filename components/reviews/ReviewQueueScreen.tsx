@@ -8,7 +8,7 @@ import { useIsWide } from '@/components/layout/use-is-wide';
 import { fmtWhen } from '@/components/maneuvers/report/format';
 import { RobustnessBadge } from '@/components/maneuvers/robustness/RobustnessCaution';
 import { summaryLine } from '@/components/maneuvers/versions/VersionList';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
@@ -31,13 +31,13 @@ export function ReviewQueueScreen() {
   const open = (id: string) => (wide ? setSelected(id) : router.push(`/reviews/${id}`));
 
   const list = (
-    <View style={styles.list}>
+    <View style={gaps.sm}>
       {queue.isPending ? <LoadingState label="Loading the queue…" /> : null}
       {queue.isError ? <ErrorBanner title="Could not load the queue" error={queue.error} onRetry={() => void queue.refetch()} /> : null}
       {queue.data?.length === 0 ? (
         <EmptyState icon="check-square" title="Nothing to review" body="Versions submitted for review queue here, and you get an e-mail for each." />
       ) : null}
-      <View role="list" aria-label="Review queue" style={styles.list}>
+      <View role="list" aria-label="Review queue" style={gaps.sm}>
         {queue.data?.map((item) => <QueueRow key={item.version.id} item={item} selected={item.version.id === selected} onOpen={() => open(item.version.id)} />)}
       </View>
     </View>
@@ -98,7 +98,6 @@ function QueueRow({ item, selected, onOpen }: { item: ReviewQueueItem; selected:
 
 const styles = StyleSheet.create({
   badges: { flexDirection: 'row' },
-  list: { gap: spacing.sm },
   detail: { padding: spacing.lg },
   row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: 2 },
   selected: { borderColor: colors.accent },

@@ -4,7 +4,7 @@ import { Modal, Pressable, StyleSheet, View } from 'react-native';
 import { colors, radii, spacing } from '@/components/theme';
 import { Avatar } from '@/components/ui/Avatar';
 import { Icon, type IconName } from '@/components/ui/Icon';
-import { webPressState } from '@/components/ui/press-state';
+import { pressStyle } from '@/components/ui/press-state';
 import { Text } from '@/components/ui/Text';
 import type { SessionUser } from '@/shared/contracts/auth';
 import { ROLE_LABELS } from '@/shared/contracts/role-labels';
@@ -33,10 +33,7 @@ export function UserMenu({ user, compact = false, onChangePassword, onSignOut }:
         aria-haspopup="menu"
         aria-expanded={open}
         onPress={() => setOpen(true)}
-        style={(state) => {
-        const { hovered } = webPressState(state);
-        return [styles.chip, hovered && styles.chipHover];
-      }}
+        style={pressStyle(({ hovered }) => [styles.chip, hovered && styles.chipHover])}
       >
         <Avatar name={user.name} size={30} />
         <View style={[styles.who, compact && styles.whoCompact]}>
@@ -75,10 +72,7 @@ function MenuItem({ icon, label, onPress }: { icon: IconName; label: string; onP
       role="menuitem"
       aria-label={label}
       onPress={onPress}
-      style={(state) => {
-        const { hovered, focused } = webPressState(state);
-        return [styles.item, (hovered || focused) && styles.itemHover];
-      }}
+      style={pressStyle(({ hovered, focused }) => [styles.item, (hovered || focused) && styles.itemHover])}
     >
       <Icon name={icon} size={16} color={colors.muted} />
       <Text variant="label">{label}</Text>

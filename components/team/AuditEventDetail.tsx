@@ -1,7 +1,7 @@
 import { StyleSheet, View } from 'react-native';
 
 import { formatDateTime } from '@/components/format/date-time';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { AuditEvent } from '@/shared/contracts/team';
 
@@ -24,12 +24,12 @@ export function AuditEventDetail({ event }: AuditEventDetailProps) {
   ];
   const lines = auditDetailLines(event);
   return (
-    <View style={styles.wrap}>
+    <View style={gaps.lg}>
       <Text variant="title" role="heading" aria-level={2}>
         {auditActionLabel(event.action)}
       </Text>
       <Text>{auditSentence(event)}</Text>
-      <View style={styles.table}>
+      <View style={gaps.sm}>
         {rows.map(([k, v]) => (
           <View key={k} style={styles.row}>
             <Text variant="caption" tone="muted" style={styles.key}>
@@ -66,8 +66,6 @@ export function AuditEventDetail({ event }: AuditEventDetailProps) {
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.lg },
-  table: { gap: spacing.sm },
   row: { flexDirection: 'row', gap: spacing.md },
   key: { width: 110 },
   value: { flex: 1 },

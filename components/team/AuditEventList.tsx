@@ -3,7 +3,7 @@ import { View } from 'react-native';
 import type { AuditFilters } from '@/components/api/use-audit';
 import { useAuditQuery } from '@/components/api/use-audit';
 import { formatDateTime } from '@/components/format/date-time';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { ListRow } from '@/components/ui/ListRow';
@@ -29,7 +29,7 @@ export function AuditEventList({ filters, selectedId, onSelect }: AuditEventList
     return <EmptyState icon="list" title="No events match" body="Widen the date range or clear a filter." />;
   }
   return (
-    <View style={{ gap: spacing.xxs }} role="list" aria-label="Audit events">
+    <View style={gaps.xxs} role="list" aria-label="Audit events">
       <Text variant="caption" tone="muted">
         {events.data.length} event{events.data.length === 1 ? '' : 's'}, newest first{events.isFetching ? ' — refreshing…' : ''}
       </Text>

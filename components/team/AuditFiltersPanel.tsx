@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
-import { Controller, useForm } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { useTeamUsersQuery } from '@/components/api/use-team';
@@ -8,6 +8,7 @@ import { useIsWide } from '@/components/layout/use-is-wide';
 import { spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
+import { FormSelect } from '@/components/ui/FormSelect';
 import { FormTextField } from '@/components/ui/FormTextField';
 import { Select } from '@/components/ui/Select';
 
@@ -48,30 +49,18 @@ export function AuditFiltersPanel({ value, onApply }: AuditFiltersPanelProps) {
     <Card padding="md">
       <View style={styles.grid} role="form" aria-label="Audit filters">
         <View style={styles.cell}>
-          <Controller
-            control={control}
-            name="action"
-            render={({ field }) => (
-              <Select label="Action" placeholder="Any action" value={field.value} onChange={field.onChange} options={AUDIT_ACTION_OPTIONS} />
-            )}
-          />
+          <FormSelect control={control} name="action" label="Action" placeholder="Any action" options={AUDIT_ACTION_OPTIONS} />
         </View>
         <View style={styles.cell}>
           <FormTextField control={control} name="objectType" label="Object type" placeholder="e.g. user" autoCapitalize="none" />
         </View>
         <View style={styles.cell}>
-          <Controller
+          <FormSelect
             control={control}
             name="actorId"
-            render={({ field }) => (
-              <Select
-                label="Done by"
-                placeholder="Anyone"
-                value={field.value}
-                onChange={field.onChange}
-                options={(users.data ?? []).map((u) => ({ value: u.id, label: u.name }))}
-              />
-            )}
+            label="Done by"
+            placeholder="Anyone"
+            options={(users.data ?? []).map((u) => ({ value: u.id, label: u.name }))}
           />
         </View>
         <View style={styles.cell}>

@@ -4,7 +4,7 @@ import { StyleSheet, View } from 'react-native';
 import { errorMessage } from '@/components/api/client';
 import { useBackgroundWorkAction, useBackgroundWorkQuery } from '@/components/api/use-background-work';
 import { formatDateTime } from '@/components/format/date-time';
-import { spacing } from '@/components/theme';
+import { gaps, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { EmptyState } from '@/components/ui/EmptyState';
@@ -37,7 +37,7 @@ export function BackgroundWorkList() {
   const [filter, setFilter] = useState<WorkFilter>('open');
   const work = useBackgroundWorkQuery(filter);
   return (
-    <View style={styles.stack}>
+    <View style={gaps.md}>
       <View style={styles.switcher}>
         <SegmentedControl label="Which work" hideLabel options={FILTERS} value={filter} onChange={setFilter} />
       </View>
@@ -51,7 +51,7 @@ export function BackgroundWorkList() {
           body="Plans, robustness runs and re-verifications show here while worker processes run them."
         />
       ) : null}
-      <View style={styles.list} role="list" aria-label="Background work">
+      <View style={gaps.sm} role="list" aria-label="Background work">
         {work.data?.items.map((item) => <WorkCard key={`${item.kind}-${item.id}`} item={item} />)}
       </View>
     </View>
@@ -72,7 +72,7 @@ function WorkCard({ item }: { item: WorkItem }) {
   const run = (what: 'retry' | 'cancel') => action.mutate({ kind: item.kind, id: item.id, action: what });
   return (
     <Card title={item.label} subtitle={`Started ${formatDateTime(item.createdAt)} · ${item.attempts} attempt${item.attempts === 1 ? '' : 's'} by workers`} trailing={<JobStateBadge state={item.state} />}>
-      <View style={styles.body}>
+      <View style={gaps.sm}>
         {item.progress !== null && item.state !== 'done' ? (
           <View style={styles.progress}>
             <View style={styles.grow}><ProgressBar value={item.progress} label={`${item.label} progress`} /></View>
@@ -94,10 +94,7 @@ function WorkCard({ item }: { item: WorkItem }) {
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.md },
   switcher: { maxWidth: 460 },
-  list: { gap: spacing.sm },
-  body: { gap: spacing.sm },
   progress: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm },
   grow: { flex: 1 },
   actions: { flexDirection: 'row', gap: spacing.sm, flexWrap: 'wrap' },

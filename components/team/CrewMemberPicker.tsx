@@ -3,7 +3,7 @@ import { View } from 'react-native';
 
 import { useCrewListQuery } from '@/components/api/use-crew';
 import { useTeamUsersQuery } from '@/components/api/use-team';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
@@ -39,7 +39,7 @@ export function CrewMemberPicker({ value, onChange, error, exceptUserId }: CrewM
   if (crew.isError) return <ErrorBanner error="The crew list did not load, so the trainee cannot be linked yet. Reload the page to try again." />;
   if (crew.isPending) {
     return (
-      <View style={{ gap: spacing.xs }}>
+      <View style={gaps.xs}>
         <Text variant="label" tone="muted">
           Crew member
         </Text>
@@ -49,7 +49,7 @@ export function CrewMemberPicker({ value, onChange, error, exceptUserId }: CrewM
   }
   if (options.length === 0) {
     return (
-      <View style={{ gap: spacing.xs }}>
+      <View style={gaps.xs}>
         <Text variant="label" tone="muted">
           Crew member
         </Text>

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { useInvitationActionMutation, useTeamInvitationsQuery } from '@/components/api/use-team';
 import { formatDate, formatDateTime } from '@/components/format/date-time';
-import { colors, spacing } from '@/components/theme';
+import { colors, gaps, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
@@ -66,7 +66,7 @@ export function InvitationList() {
     return <EmptyState icon="mail" title="No invitations yet" body="Invitations you send appear here until the person joins or the link expires." />;
   }
   return (
-    <View style={{ gap: spacing.xxs }} role="list" aria-label="Invitations">
+    <View style={gaps.xxs} role="list" aria-label="Invitations">
       {invitations.data.map((inv) => {
         const state = invitationState(inv);
         const badge = INVITATION_STATE_BADGE[state];

@@ -5,11 +5,11 @@ import { View } from 'react-native';
 
 import { applyServerError } from '@/components/api/form-errors';
 import { useInviteMutation } from '@/components/api/use-team';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { FormSegmentedControl } from '@/components/ui/FormSegmentedControl';
 import { FormTextField } from '@/components/ui/FormTextField';
-import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
 import { type Role, ROLE_LABELS } from '@/shared/contracts/roles';
 import { inviteRequestSchema } from '@/shared/contracts/team';
@@ -65,8 +65,8 @@ export function InviteForm({ onInvited }: InviteFormProps) {
     });
   });
   return (
-    <View style={{ gap: spacing.lg }} role="form" aria-label="Invite someone">
-      <View style={{ gap: spacing.xs }}>
+    <View style={gaps.lg} role="form" aria-label="Invite someone">
+      <View style={gaps.xs}>
         <Text variant="heading" role="heading" aria-level={2}>
           Invite someone
         </Text>
@@ -81,13 +81,7 @@ export function InviteForm({ onInvited }: InviteFormProps) {
       <ErrorBanner error={formError} />
       <FormTextField control={control} name="name" label="Name" placeholder="First and last name" autoComplete="off" />
       <FormTextField control={control} name="email" label="E-mail" placeholder="name@example.org" inputMode="email" autoCapitalize="none" autoComplete="off" />
-      <Controller
-        control={control}
-        name="role"
-        render={({ field, fieldState }) => (
-          <SegmentedControl label="Role" options={ROLE_OPTIONS} value={field.value} onChange={field.onChange} error={fieldState.error?.message} />
-        )}
-      />
+      <FormSegmentedControl control={control} name="role" label="Role" options={ROLE_OPTIONS} />
       <Text variant="caption" tone="muted">
         {ROLE_HELP[role]}
       </Text>

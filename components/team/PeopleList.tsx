@@ -1,7 +1,7 @@
 import { View } from 'react-native';
 
 import { useTeamUsersQuery } from '@/components/api/use-team';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Avatar } from '@/components/ui/Avatar';
 import { Badge } from '@/components/ui/Badge';
 import { EmptyState } from '@/components/ui/EmptyState';
@@ -23,7 +23,7 @@ export function PeopleList({ selectedId, onSelect }: PeopleListProps) {
   if (users.isError) return <ErrorBanner title="Could not load the team" error={users.error} onRetry={() => void users.refetch()} />;
   if (users.data.length === 0) return <EmptyState icon="users" title="No people yet" body="Invite someone to get started." />;
   return (
-    <View style={{ gap: spacing.xxs }} role="list" aria-label="People">
+    <View style={gaps.xxs} role="list" aria-label="People">
       {users.data.map((u) => (
         <ListRow
           key={u.id}

@@ -5,7 +5,7 @@ import { useCrewListQuery } from '@/components/api/use-crew';
 import { useSessionQuery } from '@/components/api/use-session';
 import { useTeamUsersQuery, useUpdateUserMutation } from '@/components/api/use-team';
 import { formatDate } from '@/components/format/date-time';
-import { colors, spacing } from '@/components/theme';
+import { colors, gaps, spacing } from '@/components/theme';
 import { Avatar } from '@/components/ui/Avatar';
 import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
@@ -57,7 +57,7 @@ export function TeamMemberDetail({ userId }: TeamMemberDetailProps) {
     );
 
   return (
-    <View style={styles.wrap}>
+    <View style={gaps.lg}>
       <View style={styles.head}>
         <Avatar name={member.name} size={52} dimmed={member.disabled} />
         <View style={styles.titles}>
@@ -167,7 +167,6 @@ export function TeamMemberDetail({ userId }: TeamMemberDetailProps) {
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.lg },
   head: { flexDirection: 'row', gap: spacing.lg, alignItems: 'flex-start', paddingBottom: spacing.sm, borderBottomWidth: 1, borderBottomColor: colors.border },
   titles: { flex: 1, gap: spacing.xs },
   badges: { flexDirection: 'row', flexWrap: 'wrap', gap: spacing.xs, marginTop: spacing.xs },

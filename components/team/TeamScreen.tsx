@@ -3,7 +3,7 @@ import { ScrollView, StyleSheet, View } from 'react-native';
 
 import { SplitView } from '@/components/layout/SplitView';
 import { useIsWide } from '@/components/layout/use-is-wide';
-import { spacing } from '@/components/theme';
+import { gaps, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { Screen } from '@/components/ui/Screen';
@@ -70,7 +70,7 @@ export function TeamScreen() {
           listLabel="Invitations"
           detailLabel="Invite someone"
           list={
-            <View style={styles.listStack}>
+            <View style={gaps.md}>
               {!wide ? <Button label="Invite someone" icon="user-plus" onPress={() => setInviting(true)} /> : null}
               <InvitationList />
             </View>
@@ -107,7 +107,6 @@ export function TeamScreen() {
 
 const styles = StyleSheet.create({
   switcher: { maxWidth: 460 },
-  listStack: { gap: spacing.md },
   auditStack: { flex: 1, minHeight: 0, gap: spacing.md },
   jobs: { flex: 1, minHeight: 0 },
   jobsContent: { paddingBottom: spacing.lg },

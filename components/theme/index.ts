@@ -1,4 +1,5 @@
-/** The design tokens in one import: `import { colors, spacing, radii, fonts, typeScale, layout } from '@/components/theme'`. */
+/** The design tokens in one import: `import { colors, gaps, spacing, radii, fonts, typeScale, layout } from '@/components/theme'`. */
 export { type ColorName, colors } from './colors';
+export { gaps } from './gaps';
 export { layout, radii, spacing } from './spacing';
 export { fonts, typeScale, type TypeVariant } from './typography';

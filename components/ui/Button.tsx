@@ -3,7 +3,7 @@ import { ActivityIndicator, Pressable, type StyleProp, StyleSheet, View, type Vi
 import { colors, layout, radii, spacing } from '@/components/theme';
 
 import { Icon, type IconName } from './Icon';
-import { webPressState } from './press-state';
+import { pressStyle } from './press-state';
 import { Text } from './Text';
 
 /** Visual weight of a button. */
@@ -55,17 +55,14 @@ export function Button({
       disabled={inactive}
       onPress={onPress}
       testID={testID}
-      style={(state) => {
-        const { pressed, hovered } = webPressState(state);
-        return [
+      style={pressStyle(({ pressed, hovered }) => [
         styles.base,
         size === 'sm' ? styles.sm : styles.md,
         { backgroundColor: pressed || hovered ? p.pressed : p.bg, borderColor: p.border },
         inactive && (variant === 'primary' && !loading ? styles.inactivePrimary : styles.inactive),
         block && styles.block,
         style,
-      ];
-      }}
+      ])}
     >
       <View style={styles.row}>
         {loading ? (

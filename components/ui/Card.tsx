@@ -3,7 +3,7 @@ import { type StyleProp, StyleSheet, View, type ViewStyle } from 'react-native';
 
 import { colors, radii, spacing } from '@/components/theme';
 
-import { Text } from './Text';
+import { Titles } from './Titles';
 
 /** Props of {@link Card}. */
 export interface CardProps {
@@ -26,18 +26,7 @@ export function Card({ title, subtitle, trailing, children, padding = 'md', styl
     <View style={[styles.card, { padding: pad }, style]}>
       {title || trailing ? (
         <View style={[styles.head, padding === 'none' && { padding: spacing.lg, paddingBottom: spacing.sm }]}>
-          <View style={styles.titles}>
-            {title ? (
-              <Text variant="heading" role="heading" aria-level={2}>
-                {title}
-              </Text>
-            ) : null}
-            {subtitle ? (
-              <Text variant="caption" tone="muted">
-                {subtitle}
-              </Text>
-            ) : null}
-          </View>
+          <Titles title={title} subtitle={subtitle} level={2} />
           {trailing}
         </View>
       ) : null}
@@ -55,5 +44,4 @@ const styles = StyleSheet.create({
     gap: spacing.md,
   },
   head: { flexDirection: 'row', alignItems: 'flex-start', gap: spacing.md },
-  titles: { flex: 1, gap: 2 },
 });

@@ -4,7 +4,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { colors, radii, spacing } from '@/components/theme';
 
 import { Icon } from './Icon';
-import { webPressState } from './press-state';
+import { pressStyle } from './press-state';
 import { Text } from './Text';
 
 /** Props of {@link ListRow}. */
@@ -61,14 +61,7 @@ export function ListRow({ title, subtitle, leading, trailing, selected = false, 
       aria-current={selected ? 'true' : undefined}
       onPress={onPress}
       testID={testID}
-      style={(state) => {
-        const { hovered } = webPressState(state);
-        return [
-        styles.row,
-        hovered && styles.hovered,
-        selected && styles.selected,
-      ];
-      }}
+      style={pressStyle(({ hovered }) => [styles.row, hovered && styles.hovered, selected && styles.selected])}
     >
       {body}
     </Pressable>

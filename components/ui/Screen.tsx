@@ -4,7 +4,7 @@ import { ScrollView, StyleSheet, View } from 'react-native';
 import { useIsWide } from '@/components/layout/use-is-wide';
 import { colors, layout, spacing } from '@/components/theme';
 
-import { Text } from './Text';
+import { Titles } from './Titles';
 
 /** Props of {@link Screen}. */
 export interface ScreenProps {
@@ -38,14 +38,7 @@ export function Screen({ title, subtitle, actions, children, scroll = true, head
   const head =
     title || actions ? (
       <View style={styles.head}>
-        <View style={styles.titles}>
-          {title ? (
-            <Text variant="title" role="heading" aria-level={1}>
-              {title}
-            </Text>
-          ) : null}
-          {subtitle ? <Text tone="muted">{subtitle}</Text> : null}
-        </View>
+        <Titles title={title} subtitle={subtitle} level={1} style={styles.titles} />
         {actions ? <View style={styles.actions}>{actions}</View> : null}
       </View>
     ) : null;
@@ -82,6 +75,6 @@ const styles = StyleSheet.create({
   },
   fill: { flex: 1, minHeight: 0 },
   head: { flexDirection: 'row', alignItems: 'center', gap: spacing.md, flexWrap: 'wrap' },
-  titles: { flex: 1, minWidth: 200, gap: 2 },
+  titles: { minWidth: 200 },
   actions: { flexDirection: 'row', gap: spacing.sm },
 });

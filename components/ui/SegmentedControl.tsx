@@ -3,7 +3,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { colors, radii, spacing } from '@/components/theme';
 
 import { FieldFrame } from './FieldFrame';
-import { webPressState } from './press-state';
+import { pressStyle } from './press-state';
 import { Text } from './Text';
 
 /** One choice of a {@link SegmentedControl}. */
@@ -46,13 +46,7 @@ export function SegmentedControl<V extends string>({
               aria-label={o.label}
               disabled={disabled}
               onPress={() => onChange(o.value)}
-              style={(state) => {
-        const { hovered } = webPressState(state);
-        return [
-                styles.segment,
-                selected ? styles.selected : hovered ? styles.hovered : null,
-              ];
-      }}
+              style={pressStyle(({ hovered }) => [styles.segment, selected ? styles.selected : hovered ? styles.hovered : null])}
             >
               <Text variant="label" tone={selected ? 'default' : 'muted'} numberOfLines={1} style={selected && styles.selectedText}>
                 {o.label}

@@ -1,8 +1,8 @@
-import { StyleSheet, View } from 'react-native';
+import { View } from 'react-native';
 
 import { useCompileQuery } from '@/components/api/use-sequences';
 import { dofLabel } from '@/components/charts/JointAnglePlots';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
@@ -43,7 +43,7 @@ export function CompiledSteps({ primitives, crewMemberId }: CompiledStepsProps) 
   const c = q.data;
   const rows = c.compiled.steps.map((s, i) => ({ step: s as Step, origin: c.stepMap[i] }));
   return (
-    <View style={styles.wrap} testID="compiled-steps">
+    <View style={gaps.sm} testID="compiled-steps">
       <Text variant="caption" tone="muted">
         {rows.length} joint steps, {fmtSeconds(c.durationS, 1)} in all. Blends are inserted where a step would not start where the previous one ended.
       </Text>
@@ -72,7 +72,3 @@ export function CompiledSteps({ primitives, crewMemberId }: CompiledStepsProps) 
     </View>
   );
 }
-
-const styles = StyleSheet.create({
-  wrap: { gap: spacing.sm },
-});

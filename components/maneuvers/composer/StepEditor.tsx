@@ -3,7 +3,7 @@ import { useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { RecordedSweepPreview } from '@/components/recordings/RecordedSweepPreview';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { Select } from '@/components/ui/Select';
 import { Text } from '@/components/ui/Text';
@@ -55,7 +55,7 @@ export function StepEditor({ initial, position, onApply, onCancel, inlineButtons
     if (submitRef) submitRef.current = () => void apply();
   });
   return (
-    <View style={styles.wrap} testID="step-editor">
+    <View style={gaps.lg} testID="step-editor">
       <Select<FormKind>
         label={`Step ${position} kind`}
         options={values.kind === 'recorded_sweep' ? [{ value: 'recorded_sweep' as FormKind, label: PRIMITIVE_LABELS.recorded_sweep }] : KIND_CHOICES}
@@ -85,7 +85,6 @@ export function StepEditor({ initial, position, onApply, onCancel, inlineButtons
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.lg },
   cue: { padding: spacing.md, borderRadius: radii.md, backgroundColor: colors.raised, gap: spacing.xs },
   buttons: { flexDirection: 'row', justifyContent: 'flex-end', gap: spacing.sm },
 });

@@ -1,7 +1,7 @@
 import { type Control, Controller, type FieldErrors, useFieldArray } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
-import { spacing } from '@/components/theme';
+import { gaps, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { FormTextField } from '@/components/ui/FormTextField';
 import { SegmentedControl } from '@/components/ui/SegmentedControl';
@@ -27,7 +27,7 @@ const DOF_CHOICES = DOF_NAMES.map((d) => ({ value: d, label: DOF_LABELS[d] }));
 export function StepForm({ control, values, errors }: StepFormProps) {
   const fields = PRIMITIVE_FIELDS[values.kind] ?? [];
   return (
-    <View style={styles.form}>
+    <View style={gaps.lg}>
       {fields.filter((f) => !f.showIf || f.showIf(values)).map((f) => (
         <StepField key={`${values.kind}-${f.name}`} spec={f} control={control} />
       ))}
@@ -67,7 +67,7 @@ function CustomAngles({ control, errors }: { control: StepFormProps['control']; 
     else for (const [dof, e] of Object.entries(customError as Record<string, { message?: string } | undefined>)) if (e?.message) messages.push(`${dof}: ${e.message}`);
   }
   return (
-    <View style={styles.custom}>
+    <View style={gaps.sm}>
       <Text variant="label" tone="muted">
         Joint angles (only these joints move; the rest stay)
       </Text>
@@ -101,8 +101,6 @@ function CustomAngles({ control, errors }: { control: StepFormProps['control']; 
 }
 
 const styles = StyleSheet.create({
-  form: { gap: spacing.lg },
-  custom: { gap: spacing.sm },
   customRow: { flexDirection: 'row', flexWrap: 'wrap', alignItems: 'flex-end', gap: spacing.sm },
   customDof: { flexGrow: 2, flexBasis: 180 },
   customAngle: { flexGrow: 1, flexBasis: 90 },

@@ -1,6 +1,6 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/EmptyState';
 import { Text } from '@/components/ui/Text';
@@ -31,7 +31,7 @@ export function StepList({ steps, selected, readOnly = false, onEdit, onMove, on
     return <EmptyState icon="list" title="No steps yet" body="Add a limb sweep, a pose shift or a pause. Blends between steps are inserted for you." />;
   }
   return (
-    <View role="list" aria-label="Steps" style={styles.list}>
+    <View role="list" aria-label="Steps" style={gaps.sm}>
       {steps.map((p, i) => {
         const label = `Step ${i + 1}: ${PRIMITIVE_LABELS[p.kind]}`;
         return (
@@ -72,7 +72,6 @@ export function StepList({ steps, selected, readOnly = false, onEdit, onMove, on
 }
 
 const styles = StyleSheet.create({
-  list: { gap: spacing.sm },
   row: { borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, padding: spacing.sm, gap: spacing.xs },
   rowSelected: { borderColor: colors.accent },
   main: { flexDirection: 'row', gap: spacing.md, alignItems: 'flex-start', borderRadius: radii.sm, padding: spacing.xs },

@@ -67,9 +67,12 @@ const cycles: FieldSpec = { name: 'cycles', label: 'Cycles', type: 'number', uni
 const period: FieldSpec = { name: 'periodS', label: 'Period', type: 'number', unit: 's', hint: 'Seconds per cycle, 0.3–30' };
 const duration: FieldSpec = { name: 'durationS', label: 'Duration', type: 'number', unit: 's', hint: '0.1–120 s' };
 
+/** A limb sweep's own fields, then how many cycles and how long each takes (every sweep ends with these two). */
+const sweep = (...fields: FieldSpec[]): readonly FieldSpec[] => [...fields, cycles, period];
+
 /** The fields of each primitive kind, in form order. */
 export const PRIMITIVE_FIELDS: Record<PrimitiveKind, readonly FieldSpec[]> = {
-  arm_orbit: [
+  arm_orbit: sweep(
     { name: 'arms', label: 'Arms', type: 'choice', choices: SIDES },
     { name: 'centre', label: 'Cone centre', type: 'choice', choices: ARM_ORBIT_CENTRES.map((c) => ({ value: c, label: CENTRE_LABELS[c] })) },
     { name: 'centreFlexDeg', label: 'Centre flexion', type: 'number', unit: '°', hint: '−60° to 180°', showIf: (v) => v.centre === 'custom' },
@@ -80,19 +83,15 @@ export const PRIMITIVE_FIELDS: Record<PrimitiveKind, readonly FieldSpec[]> = {
       name: 'pairing', label: 'Both arms circle', type: 'choice', showIf: (v) => v.arms === 'both',
       choices: [{ value: 'mirror', label: 'As mirror images' }, { value: 'same_way', label: 'The same way round (left arm sets the travel)' }],
     },
-    cycles,
-    period,
-  ],
-  arm_loop: [
+  ),
+  arm_loop: sweep(
     { name: 'arms', label: 'Arms', type: 'choice', choices: SIDES },
     { name: 'plane', label: 'Body plane', type: 'choice', choices: ARM_LOOP_PLANES.map((p) => ({ value: p, label: PLANE_LABELS[p] })) },
     { name: 'swingDeg', label: 'Upper-arm swing', type: 'number', unit: '°', hint: '± amplitude, 5°–60°' },
     { name: 'elbowDeg', label: 'Elbow bend', type: 'number', unit: '°', hint: '± amplitude, 5°–60°' },
     { name: 'bendOn', label: 'Elbow most bent on the', type: 'choice', choices: [{ value: 'forward_swing', label: 'Forward swing' }, { value: 'return_swing', label: 'Return swing' }] },
-    cycles,
-    period,
-  ],
-  leg_pedal: [
+  ),
+  leg_pedal: sweep(
     { name: 'legs', label: 'Legs', type: 'choice', choices: SIDES },
     { name: 'pattern', label: 'Pattern', type: 'choice', choices: [{ value: 'alternating', label: 'Alternating' }, { value: 'together', label: 'Together' }], showIf: (v) => v.legs === 'both' },
     { name: 'hipCentreDeg', label: 'Hip flexion centre', type: 'number', unit: '°', hint: '−15° to 125°' },
@@ -100,16 +99,12 @@ export const PRIMITIVE_FIELDS: Record<PrimitiveKind, readonly FieldSpec[]> = {
     { name: 'kneeCentreDeg', label: 'Knee flexion centre', type: 'number', unit: '°', hint: '0°–130°' },
     { name: 'kneeSwingDeg', label: 'Knee swing', type: 'number', unit: '°', hint: '± amplitude, 0°–65°' },
     { name: 'direction', label: 'Direction', type: 'choice', choices: [{ value: 'forward', label: 'Forward' }, { value: 'backward', label: 'Backward' }] },
-    cycles,
-    period,
-  ],
-  hip_swirl: [
+  ),
+  hip_swirl: sweep(
     { name: 'halfAngleDeg', label: 'Cone half-angle', type: 'number', unit: '°', hint: '3°–40°' },
     { name: 'centreFlexDeg', label: 'Hip flexion centre', type: 'number', unit: '°', hint: '−15° to 125°' },
     { name: 'turn', label: 'Feet at the front move', type: 'choice', choices: [{ value: 'to_left', label: 'To the left' }, { value: 'to_right', label: 'To the right' }] },
-    cycles,
-    period,
-  ],
+  ),
   pose_shift: [
     { name: 'posture', label: 'Posture', type: 'choice', choices: [...POSTURE_NAMES, 'custom' as const].map((p) => ({ value: p, label: POSTURE_CHOICE_LABELS[p] })) },
     duration,

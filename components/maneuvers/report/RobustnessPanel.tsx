@@ -4,7 +4,7 @@ import { errorMessage } from '@/components/api/client';
 import { useRobustnessActions, useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import { useSessionQuery } from '@/components/api/use-session';
 import { ErrorHistogram } from '@/components/charts/ErrorHistogram';
-import { spacing } from '@/components/theme';
+import { gaps, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { JobStateBadge } from '@/components/ui/JobStateBadge';
@@ -37,7 +37,7 @@ export function RobustnessPanel({ versionId }: { versionId: string }) {
   ) : null;
   if (!r) {
     return (
-      <View style={styles.stack} testID="robustness-panel">
+      <View style={gaps.sm} testID="robustness-panel">
         <Text tone="muted">No robustness run for this version yet.</Text>
         {startButton}
         {actionError ? <Text tone="danger">{errorMessage(actionError)}</Text> : null}
@@ -48,7 +48,7 @@ export function RobustnessPanel({ versionId }: { versionId: string }) {
   const level = r.feedbackP95Deg !== null ? robustnessLevel(r.feedbackP95Deg, r.toleranceDeg) : null;
   const sp = r.model.spreads;
   return (
-    <View style={styles.stack} testID="robustness-panel">
+    <View style={gaps.sm} testID="robustness-panel">
       <View style={styles.row}>
         <JobStateBadge state={r.state} doneLabel="Computed" />
         <Text variant="caption" tone="muted" testID="robustness-model">{`${r.samples.toLocaleString('en-US')} samples · seed ${r.seed}`}</Text>
@@ -87,7 +87,6 @@ export function RobustnessPanel({ versionId }: { versionId: string }) {
 }
 
 const styles = StyleSheet.create({
-  stack: { gap: spacing.sm },
   row: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
   grow: { flex: 1, minWidth: 120 },
 });

@@ -3,7 +3,7 @@ import { StyleSheet, View } from 'react-native';
 
 import { AttitudePlot } from '@/components/charts/AttitudePlot';
 import { JointAnglePlots } from '@/components/charts/JointAnglePlots';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import type { VerificationReport as Report } from '@/shared/contracts/maneuver';
@@ -46,7 +46,7 @@ export function VerificationReport({ report, cues = [], versionId, profileVersio
   const targetYpr = quatToYpr([q.w, q.x, q.y, q.z]);
   const ok = target.withinTolerance && report.rangeViolations.length === 0 && peakJointRate.withinLimit && timeBudget.within;
   return (
-    <View style={styles.wrap} testID="verification-report">
+    <View style={gaps.xl} testID="verification-report">
       <Verdict ok={ok} report={report} />
       <LiveRobustnessCaution versionId={versionId} initial={report.robustness ?? null} testID="report-robustness-caution" />
       <StatGrid
@@ -127,7 +127,7 @@ export function VerificationReport({ report, cues = [], versionId, profileVersio
         <Preview3DSlot versionId={versionId} />
       </Section>
       <Section title="Reproduce">
-        <View style={styles.repro}>
+        <View style={gaps.xs}>
           <Repro label="Engine" value={report.engineVersion} />
           <Repro label="Inputs hash" value={shortHash(report.inputsHash)} full={report.inputsHash} />
           <Repro label="Profile version" value={profileVersion != null ? `v${profileVersion}` : shortHash(report.profileVersionId)} />
@@ -160,7 +160,7 @@ function Verdict({ ok, report }: { ok: boolean; report: Report }) {
 
 function Section({ title, children }: { title: string; children: ReactNode }) {
   return (
-    <View style={styles.section}>
+    <View style={gaps.md}>
       <Text variant="heading" role="heading" aria-level={3}>
         {title}
       </Text>
@@ -183,13 +183,10 @@ function Repro({ label, value, full }: { label: string; value: string; full?: st
 }
 
 const styles = StyleSheet.create({
-  wrap: { gap: spacing.xl },
-  section: { gap: spacing.md },
   verdict: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, padding: spacing.md, borderRadius: radii.md, borderWidth: 1 },
   verdictOk: { backgroundColor: colors.successTint, borderColor: 'rgba(123, 216, 143, 0.4)' },
   verdictBad: { backgroundColor: colors.dangerTint, borderColor: 'rgba(255, 107, 107, 0.4)' },
   flex: { flex: 1 },
-  repro: { gap: spacing.xs },
   reproRow: { flexDirection: 'row', gap: spacing.md, flexWrap: 'wrap' },
   reproLabel: { width: 120 },
 });

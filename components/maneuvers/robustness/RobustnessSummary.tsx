@@ -1,9 +1,9 @@
-import { StyleSheet, View } from 'react-native';
+import { View } from 'react-native';
 
 import { useVersionRobustnessQuery } from '@/components/api/use-robustness';
 import { fmtDeg } from '@/components/maneuvers/report/format';
 import { StatGrid } from '@/components/maneuvers/report/StatGrid';
-import { spacing } from '@/components/theme';
+import { gaps } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { VersionRobustness } from '@/shared/contracts/robustness';
 
@@ -19,7 +19,7 @@ export function RobustnessSummary({ versionId, initial }: { versionId: string; i
   const r = run.data === undefined ? initial : run.data;
   const done = r?.state === 'done';
   return (
-    <View style={styles.wrap} testID="robustness-summary">
+    <View style={gaps.sm} testID="robustness-summary">
       <Text variant="heading" role="heading" aria-level={2}>
         Robustness
       </Text>
@@ -37,7 +37,3 @@ export function RobustnessSummary({ versionId, initial }: { versionId: string; i
     </View>
   );
 }
-
-const styles = StyleSheet.create({
-  wrap: { gap: spacing.sm },
-});

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { useSubmitVersionMutation } from '@/components/api/use-sequences';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Icon } from '@/components/ui/Icon';
@@ -68,7 +68,7 @@ export function SubmitForReview({ version, checks }: SubmitForReviewProps) {
           </View>
         }
       >
-        <View style={styles.body} testID="submit-sheet">
+        <View style={gaps.md} testID="submit-sheet">
           <Text>
             {version.sequence.name}, version {version.version}, for {version.sequence.crewMemberName} (profile v{version.profileVersion}). Reviewers are told by e-mail;
             saving changes afterwards makes a new version and withdraws this one.
@@ -112,7 +112,6 @@ export function FailureList({ failures, title }: { failures: readonly CheckFailu
 }
 
 const styles = StyleSheet.create({
-  body: { gap: spacing.md },
   footer: { flexDirection: 'row', justifyContent: 'flex-end', gap: spacing.sm, flexWrap: 'wrap' },
   failures: { gap: spacing.xs, padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.danger, backgroundColor: colors.dangerTint },
   failHead: { flexDirection: 'row', gap: spacing.sm, alignItems: 'center' },

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { StyleSheet, View } from 'react-native';
 
 import { useCompareQuery } from '@/components/api/use-sequences';
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { LoadingState } from '@/components/ui/LoadingState';
@@ -58,7 +58,7 @@ export function CompareVersions({ versions }: CompareVersionsProps) {
           {!q.data.sameProfile ? <Text tone="accent">The two versions were computed for different profile versions.</Text> : null}
           {!q.data.sameEngine ? <Text tone="accent">The two versions were computed by different engine versions.</Text> : null}
           <Text variant="heading">Steps</Text>
-          <View role="list" aria-label="Steps compared" style={styles.changes}>
+          <View role="list" aria-label="Steps compared" style={gaps.xs}>
             {q.data.primitives.map((r) => (
               <View key={r.index} role="listitem" style={[styles.change, r.change !== 'same' && styles.changed]}>
                 <Text variant="label" tone={r.change === 'same' ? 'muted' : 'accent'}>
@@ -110,7 +110,6 @@ const styles = StyleSheet.create({
   wrap: { gap: spacing.md, borderTopWidth: 1, borderTopColor: colors.border, paddingTop: spacing.md },
   pickers: { flexDirection: 'row', gap: spacing.md, flexWrap: 'wrap' },
   picker: { flexGrow: 1, flexBasis: 140 },
-  changes: { gap: spacing.xs },
   change: { padding: spacing.sm, borderRadius: radii.sm, gap: 2 },
   changed: { backgroundColor: colors.accentTint },
 });

@@ -1,6 +1,6 @@
 import { Pressable, StyleSheet, View } from 'react-native';
 
-import { colors, radii, spacing } from '@/components/theme';
+import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Text } from '@/components/ui/Text';
 import type { ReportBrief, VersionSummary } from '@/shared/contracts/maneuver';
 
@@ -27,7 +27,7 @@ export function summaryLine(v: { summary: ReportBrief | null }): string {
 /** Every version of a sequence, newest first: status, author, time, profile version and result. */
 export function VersionList({ versions, selectedId, onOpen }: VersionListProps) {
   return (
-    <View role="list" aria-label="Versions" style={styles.list}>
+    <View role="list" aria-label="Versions" style={gaps.sm}>
       {versions.map((v) => (
         <Pressable
           key={v.id}
@@ -81,7 +81,6 @@ export function VersionList({ versions, selectedId, onOpen }: VersionListProps) 
 
 const styles = StyleSheet.create({
   line: { flexDirection: 'row', alignItems: 'center', gap: spacing.sm, flexWrap: 'wrap' },
-  list: { gap: spacing.sm },
   row: { padding: spacing.md, borderRadius: radii.md, borderWidth: 1, borderColor: colors.border, backgroundColor: colors.surface, gap: 2 },
   selected: { borderColor: colors.accent },
   pressed: { backgroundColor: colors.raised },
