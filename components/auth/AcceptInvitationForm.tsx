@@ -1,15 +1,12 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { View } from 'react-native';
 
 import { applyServerError } from '@/components/api/form-errors';
 import { useAcceptInvitationMutation } from '@/components/api/use-invitation';
-import { gaps } from '@/components/theme';
-import { Button } from '@/components/ui/Button';
-import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import type { SessionUser } from '@/shared/contracts/auth';
 
+import { AuthForm } from './AuthForm';
 import { NewPasswordFields } from './NewPasswordFields';
 import { acceptInvitationFormSchema } from './password-confirmation';
 
@@ -40,8 +37,7 @@ export function AcceptInvitationForm({ token, onAccepted }: AcceptInvitationForm
     );
   });
   return (
-    <View style={gaps.lg}>
-      <ErrorBanner error={formError} />
+    <AuthForm error={formError} submit={{ label: 'Set password and sign in', icon: 'check', pending: accept.isPending, onPress: () => void submit() }}>
       <NewPasswordFields
         control={control}
         name="password"
@@ -50,7 +46,6 @@ export function AcceptInvitationForm({ token, onAccepted }: AcceptInvitationForm
         confirmLabel="Repeat the password"
         onSubmitEditing={() => void submit()}
       />
-      <Button label="Set password and sign in" icon="check" block loading={accept.isPending} onPress={() => void submit()} />
-    </View>
+    </AuthForm>
   );
 }

@@ -1,15 +1,12 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { View } from 'react-native';
 
 import { applyServerError } from '@/components/api/form-errors';
 import { useSignInMutation } from '@/components/api/use-session';
-import { gaps } from '@/components/theme';
-import { Button } from '@/components/ui/Button';
-import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormTextField } from '@/components/ui/FormTextField';
 import type { SessionUser, SignInRequest } from '@/shared/contracts/auth';
 
+import { AuthForm } from './AuthForm';
 import { signInResolver } from './sign-in-check';
 
 /** Props of {@link SignInForm}. */
@@ -34,8 +31,7 @@ export function SignInForm({ onSignedIn }: SignInFormProps) {
     });
   });
   return (
-    <View style={gaps.lg}>
-      <ErrorBanner error={formError} />
+    <AuthForm error={formError} submit={{ label: 'Sign in', icon: 'log-in', pending: signIn.isPending, onPress: () => void submit() }}>
       <FormTextField
         control={control}
         name="email"
@@ -55,7 +51,6 @@ export function SignInForm({ onSignedIn }: SignInFormProps) {
         returnKeyType="go"
         onSubmitEditing={() => void submit()}
       />
-      <Button label="Sign in" icon="log-in" block loading={signIn.isPending} onPress={() => void submit()} />
-    </View>
+    </AuthForm>
   );
 }

@@ -8,13 +8,13 @@ import { colors, fonts, gaps, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
-import { DataTable } from '@/components/ui/DataTable';
+import { type DataColumn, DataTable } from '@/components/ui/DataTable';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Text } from '@/components/ui/Text';
 import type { SuitView } from '@/shared/contracts/crew';
 import { suitConfigSchema } from '@/shared/contracts/suit';
-import { DOF_LABELS, DOF_NAMES } from '@/shared/model/dof-names';
-import { SEGMENT_LABELS, SEGMENT_NAMES } from '@/shared/model/segment-names';
+import { DOF_LABELS, DOF_NAMES,type DofName } from '@/shared/model/dof-names';
+import { SEGMENT_LABELS, SEGMENT_NAMES, type SegmentName } from '@/shared/model/segment-names';
 
 import { fixed } from './format-values';
 
@@ -22,6 +22,17 @@ import { fixed } from './format-values';
 function issueText(path: readonly PropertyKey[], message: string): string {
   return `${path.map(String).join('.') || '(configuration)'}: ${message}`;
 }
+
+const ADDED_MASS_COLUMNS: DataColumn<{ seg: SegmentName; mass: number }>[] = [
+  { header: 'Segment', cell: (r) => <Text variant="label">{SEGMENT_LABELS[r.seg] ?? r.seg}</Text>, minWidth: 150 },
+  { header: 'Added mass (kg)', cell: (r) => fixed(r.mass, 2), numeric: true, minWidth: 110 },
+];
+
+const SUITED_RANGE_COLUMNS: DataColumn<{ dof: DofName; min: number; max: number }>[] = [
+  { header: 'Joint (suited range)', cell: (r) => <Text variant="label">{DOF_LABELS[r.dof] ?? r.dof}</Text>, minWidth: 200 },
+  { header: 'Min (°)', cell: (r) => fixed(r.min, 0), numeric: true, minWidth: 70 },
+  { header: 'Max (°)', cell: (r) => fixed(r.max, 0), numeric: true, minWidth: 70 },
+];
 
 /**
  * One suit configuration: added mass per segment, suited ranges and locked dofs; planners edit it as
@@ -79,27 +90,10 @@ export function SuitCard({ suit, canEdit }: { suit: SuitView; canEdit: boolean }
       <View style={gaps.md}>
         {c.note ? <Text tone="muted">{c.note}</Text> : null}
         {added.length ? (
-          <DataTable
-            label={`${c.name}: added mass`}
-            columns={[
-              { header: 'Segment', cell: (r) => <Text variant="label">{SEGMENT_LABELS[r.seg] ?? r.seg}</Text>, minWidth: 150 },
-              { header: 'Added mass (kg)', cell: (r) => fixed(r.mass, 2), numeric: true, minWidth: 110 },
-            ]}
-            rows={added}
-            rowKey={(r) => r.seg}
-          />
+          <DataTable label={`${c.name}: added mass`} columns={ADDED_MASS_COLUMNS} rows={added} rowKey={(r) => r.seg} />
         ) : null}
         {ranges.length ? (
-          <DataTable
-            label={`${c.name}: suited ranges`}
-            columns={[
-              { header: 'Joint (suited range)', cell: (r) => <Text variant="label">{DOF_LABELS[r.dof] ?? r.dof}</Text>, minWidth: 200 },
-              { header: 'Min (°)', cell: (r) => fixed(r.min, 0), numeric: true, minWidth: 70 },
-              { header: 'Max (°)', cell: (r) => fixed(r.max, 0), numeric: true, minWidth: 70 },
-            ]}
-            rows={ranges}
-            rowKey={(r) => r.dof}
-          />
+          <DataTable label={`${c.name}: suited ranges`} columns={SUITED_RANGE_COLUMNS} rows={ranges} rowKey={(r) => r.dof} />
         ) : (
           <Text variant="caption" tone="muted">Unsuited joint ranges apply.</Text>
         )}
