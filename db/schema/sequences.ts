@@ -119,6 +119,8 @@ export const reverifications = pgTable(
   report: jsonb('report').$type<VerificationReport>(),
   // The re-check version this re-verification saved (a once-cleared version's successor under review).
   resultVersionId: uuid('result_version_id').references(() => sequenceVersions.id),
+  // What the finished re-verification concluded, in words (an engine change: unchanged, or re-check saved).
+  outcome: text('outcome'),
   error: text('error'),
   attempts: integer('attempts').notNull().default(0),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),

@@ -3,6 +3,8 @@
  * version's body and records how far the final attitude moved (`attitudeShiftDeg`) in
  * `reverifications`. The version itself is frozen (it may be cleared); only the record changes, and a
  * once-cleared version gets its re-check version for the reviewer (server/maneuvers/recheck-version.ts).
+ * A record on the version's own profile is an engine change's (server/maneuvers/engine-recheck.ts):
+ * unchanged, the approval stands; moved, the version becomes stale and gets its re-check version.
  * Throws on failure so the queue retries; the last attempt marks the record `failed`. A record
  * cancelled meanwhile (Team → Jobs) keeps `cancelled`.
  */
@@ -12,7 +14,8 @@ import { profileVersions, reverifications, sequenceVersions } from '../../db/sch
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
-import { afterRecheckSaved, saveRecheckVersion } from '../maneuvers/recheck-version.ts';
+import { compareUnderEngine, engineOutcome } from '../maneuvers/engine-recheck.ts';
+import { afterRecheckSaved, type RecheckSaved, saveRecheckVersion } from '../maneuvers/recheck-version.ts';
 import { readStoredCompiled, readStoredReport, readVersionTarget } from '../maneuvers/stored-version.ts';
 import { verifySequence } from '../maneuvers/verify-sequence.ts';
 
@@ -77,6 +80,29 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
         actorId: null, action: 'sequence_version.reverified', objectType: 'sequence_version', objectId: v.v.id,
         detail: { toProfileVersionId: profile.id, attitudeShiftDeg: shift, targetErrorDeg: report.target.errorDeg },
       });
+      // The same profile on both sides: a newer engine's re-verification of a cleared version.
+      if (record.fromProfileVersionId === record.toProfileVersionId && old) {
+        const c = compareUnderEngine(old, report);
+        let saved: RecheckSaved | null = null;
+        if (!c.unchanged) {
+          // The result moved: stale, and the re-check flow of a profile change applies.
+          const flagged = await tx.update(sequenceVersions).set({ status: 'recheck', staleSince: new Date() })
+            .where(and(eq(sequenceVersions.id, v.v.id), eq(sequenceVersions.status, 'cleared'))).returning({ id: sequenceVersions.id });
+          if (flagged.length) {
+            saved = await saveRecheckVersion(tx, {
+              stale: v.v, profile, report, reverificationId: record.id, attitudeShiftDeg: shift,
+              note: `Automatic re-check of version ${v.v.version} after an engine change (${v.v.engineVersion ?? '?'} → ${report.engineVersion}): the same steps on the same profile, re-verified; the result moved.`,
+            });
+          }
+        }
+        const outcome = engineOutcome(report.engineVersion, c, saved?.version ?? null);
+        await tx.update(reverifications).set({ outcome }).where(eq(reverifications.id, record.id));
+        await recordAudit(tx, {
+          actorId: null, action: c.unchanged ? 'sequence_version.engine_unchanged' : 'sequence_version.engine_changed', objectType: 'sequence_version', objectId: v.v.id,
+          detail: { fromEngineVersion: v.v.engineVersion, toEngineVersion: report.engineVersion, shiftRad: c.shiftRad, changedChecks: c.changedChecks, recheckVersionId: saved?.id ?? null },
+        });
+        return saved;
+      }
       // A once-cleared version gets its successor for the reviewer in the same commit as the result.
       return saveRecheckVersion(tx, { stale: v.v, profile, report, reverificationId: record.id, attitudeShiftDeg: shift });
     });

@@ -18,7 +18,10 @@ export async function recheckInfos(db: Database, stale: readonly StaleRow[]): Pr
   const out = new Map<string, RecheckInfo>();
   if (!stale.length) return out;
   const [revs, later] = await Promise.all([
-    db.select({ versionId: reverifications.sequenceVersionId, state: reverifications.state, shift: reverifications.attitudeShiftDeg, error: reverifications.error })
+    db.select({
+      versionId: reverifications.sequenceVersionId, state: reverifications.state, shift: reverifications.attitudeShiftDeg, error: reverifications.error,
+      from: reverifications.fromProfileVersionId, to: reverifications.toProfileVersionId,
+    })
       .from(reverifications).where(inArray(reverifications.sequenceVersionId, stale.map((s) => s.id))).orderBy(desc(reverifications.createdAt)),
     db.select({ sequenceId: sequenceVersions.sequenceId, version: sequenceVersions.version, status: sequenceVersions.status, recheckOfId: sequenceVersions.recheckOfId })
       .from(sequenceVersions).where(inArray(sequenceVersions.sequenceId, [...new Set(stale.map((s) => s.sequenceId))])).orderBy(desc(sequenceVersions.version)),
@@ -27,6 +30,8 @@ export async function recheckInfos(db: Database, stale: readonly StaleRow[]): Pr
     const rev = revs.find((r) => r.versionId === s.id);
     const next = later.find((l) => l.sequenceId === s.sequenceId && l.version > s.version && l.status !== 'replaced');
     out.set(s.id, {
+      // A re-verification on the version's own profile is an engine change's (a profile change always brings a newer one).
+      cause: rev && rev.from === rev.to ? 'engine' : 'profile',
       staleSince: s.staleSince?.toISOString() ?? null,
       reverification: rev ? { state: rev.state as NonNullable<RecheckInfo['reverification']>['state'], attitudeShiftDeg: rev.shift, error: rev.error } : null,
       successor: next ? { version: next.version, status: next.status, automatic: next.recheckOfId === s.id } : null,

@@ -31,7 +31,7 @@ export interface RecheckSaved {
  * `stale` was once cleared, is still waiting (`recheck`), and `profile` is still the crew member's
  * current profile (a newer change brings its own re-verification). Returns null when none is due.
  */
-export async function saveRecheckVersion(tx: Tx, a: { stale: SequenceVersionRow; profile: ProfileVersionRow; report: VerificationReport; reverificationId: string; attitudeShiftDeg: number | null }): Promise<RecheckSaved | null> {
+export async function saveRecheckVersion(tx: Tx, a: { stale: SequenceVersionRow; profile: ProfileVersionRow; report: VerificationReport; reverificationId: string; attitudeShiftDeg: number | null; note?: string }): Promise<RecheckSaved | null> {
   const { stale, profile, report } = a;
   if (!stale.clearedAt) return null;
   const [now] = await tx.select({ status: sequenceVersions.status, currentVersion: crewMembers.currentVersion, crewMemberId: crewMembers.id })
@@ -49,7 +49,7 @@ export async function saveRecheckVersion(tx: Tx, a: { stale: SequenceVersionRow;
     primitives: stale.primitives, target: stale.target, compiled: stale.compiled, profileVersionId: profile.id,
     // Straight to review: the system re-verified what a person cleared; only a person clears it again.
     status: 'under_review', submittedAt, report, engineVersion: report.engineVersion, inputsHash: report.inputsHash, authorId: null,
-    note: `Automatic re-check of version ${stale.version} after the profile change v${from?.version ?? '?'} → v${profile.version}: the same steps, re-verified on the new profile.`,
+    note: a.note ?? `Automatic re-check of version ${stale.version} after the profile change v${from?.version ?? '?'} → v${profile.version}: the same steps, re-verified on the new profile.`,
     recheckOfId: stale.id,
   }));
   await tx.update(reverifications).set({ resultVersionId: row.id }).where(eq(reverifications.id, a.reverificationId));

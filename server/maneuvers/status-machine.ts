@@ -11,9 +11,10 @@ import type { VersionStatus } from '../../shared/contracts/version-status.ts';
  * - `clear` / `send_back`: a reviewer's decision on a version under review;
  * - `supersede_by_save`: a newer version of the same sequence was saved;
  * - `supersede_by_clear`: a newer version of the same sequence was cleared;
- * - `profile_changed`: the crew member's current profile is no longer the one the version is bound to.
+ * - `profile_changed`: the crew member's current profile is no longer the one the version is bound to;
+ * - `engine_changed`: re-verified under a newer engine, the result moved (DECISIONS.md "An engine change").
  */
-export type VersionEvent = 'submit' | 'clear' | 'send_back' | 'supersede_by_save' | 'supersede_by_clear' | 'profile_changed';
+export type VersionEvent = 'submit' | 'clear' | 'send_back' | 'supersede_by_save' | 'supersede_by_clear' | 'profile_changed' | 'engine_changed';
 
 /** The events a version reacts to in each status, and the status each leads to. */
 export const TRANSITIONS: Readonly<Record<VersionStatus, Partial<Record<VersionEvent, VersionStatus>>>> = {
@@ -21,7 +22,7 @@ export const TRANSITIONS: Readonly<Record<VersionStatus, Partial<Record<VersionE
   // A newer save withdraws a pending review: the reviewer would be judging an outdated version.
   under_review: { clear: 'cleared', send_back: 'sent_back', supersede_by_save: 'replaced', profile_changed: 'recheck' },
   // A cleared version stays the one trainees rehearse until a newer one is cleared.
-  cleared: { supersede_by_clear: 'replaced', profile_changed: 'recheck' },
+  cleared: { supersede_by_clear: 'replaced', profile_changed: 'recheck', engine_changed: 'recheck' },
   sent_back: { supersede_by_save: 'replaced' },
   replaced: {},
   // Recheck cannot be submitted again as is: a new version (bound to the new profile) replaces it.
@@ -49,6 +50,7 @@ export function refusal(from: VersionStatus, event: VersionEvent): string {
     supersede_by_save: 'replaced by a new save',
     supersede_by_clear: 'replaced by a newer cleared version',
     profile_changed: 'flagged for a re-check',
+    engine_changed: 'flagged for a re-check after an engine change',
   };
   const allowed = statusesAllowing(event).join(' or ');
   return `This version is ${from.replace('_', ' ')} and cannot be ${what[event]} (only a version that is ${allowed} can).`;

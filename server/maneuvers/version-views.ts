@@ -30,11 +30,13 @@ const reverificationColumns = {
   id: reverifications.id, sequenceVersionId: reverifications.sequenceVersionId, fromProfileVersionId: reverifications.fromProfileVersionId,
   toProfileVersionId: reverifications.toProfileVersionId, state: reverifications.state, attitudeShiftDeg: reverifications.attitudeShiftDeg,
   targetErrorDeg: sql<number | null>`(${reverifications.report}->'target'->>'errorDeg')::float8`.as('target_error_deg'),
+  engineVersion: sql<string | null>`${reverifications.report}->>'engineVersion'`.as('reverified_engine_version'),
+  outcome: reverifications.outcome,
   error: reverifications.error, attempts: reverifications.attempts, createdAt: reverifications.createdAt, finishedAt: reverifications.finishedAt,
 };
 
 /** A re-verification record as lists read it. */
-export type ReverificationListRow = { [K in keyof typeof reverificationColumns]: K extends 'targetErrorDeg' ? number | null : ReverificationRow[K & keyof ReverificationRow] };
+export type ReverificationListRow = { [K in keyof typeof reverificationColumns]: K extends 'targetErrorDeg' ? number | null : K extends 'engineVersion' ? string | null : ReverificationRow[K & keyof ReverificationRow] };
 
 /** A version row with what its summary needs (its sequence head and newest re-verification joined in). */
 export interface VersionRowJoined {
@@ -90,7 +92,8 @@ export async function selectVersions(db: Database, where: SQL | undefined): Prom
       clearedByName: clearer.name,
       rev: {
         id: rev.id, sequenceVersionId: rev.sequenceVersionId, fromProfileVersionId: rev.fromProfileVersionId, toProfileVersionId: rev.toProfileVersionId,
-        state: rev.state, attitudeShiftDeg: rev.attitudeShiftDeg, targetErrorDeg: rev.targetErrorDeg, error: rev.error, attempts: rev.attempts,
+        state: rev.state, attitudeShiftDeg: rev.attitudeShiftDeg, targetErrorDeg: rev.targetErrorDeg, engineVersion: rev.engineVersion, outcome: rev.outcome,
+        error: rev.error, attempts: rev.attempts,
         createdAt: rev.createdAt, finishedAt: rev.finishedAt,
       },
       run: { id: run.id, state: run.state, samples: run.samples, doneSamples: run.doneSamples, toleranceDeg: run.toleranceDeg, feedbackP95Deg: run.feedbackP95Deg },
@@ -123,7 +126,7 @@ export function toReverification(r: ReverificationListRow): Reverification {
   return {
     id: r.id, fromProfileVersionId: r.fromProfileVersionId, toProfileVersionId: r.toProfileVersionId,
     state: r.state as Reverification['state'], attitudeShiftDeg: r.attitudeShiftDeg, targetErrorDeg: r.targetErrorDeg,
-    error: r.error, attempts: r.attempts, createdAt: r.createdAt.toISOString(), finishedAt: r.finishedAt?.toISOString() ?? null,
+    engineVersion: r.engineVersion, outcome: r.outcome, error: r.error, attempts: r.attempts, createdAt: r.createdAt.toISOString(), finishedAt: r.finishedAt?.toISOString() ?? null,
   };
 }
 

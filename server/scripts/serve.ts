@@ -7,6 +7,7 @@ import type { Config } from '../config.ts';
 import { createContext } from '../context.ts';
 import { startJobQueue } from '../jobs/job-queue.ts';
 import type { ReceivedMail } from '../mail/smtp-fake.ts';
+import { queueEngineRechecks } from '../maneuvers/engine-recheck.ts';
 
 /** A running Holonaut server. */
 export interface RunningServer {
@@ -22,6 +23,8 @@ export async function serve(config: Config, opts: { seed: boolean; devMailbox?: 
   // The API only sends jobs; worker processes (`npm run worker`, started by `npm start`) run them.
   const jobs = await startJobQueue(ctx, { worker: false });
   ctx.jobs = jobs;
+  // Cleared versions verified by another engine are re-verified in the background (DECISIONS.md "An engine change").
+  await queueEngineRechecks(ctx).catch((err: unknown) => ctx.logger.error({ err }, 'queueing engine re-verifications failed; the next start tries again'));
   const app = createApp(ctx);
   const server: Server = await new Promise((resolve, reject) => {
     const s = app.listen(config.PORT, config.HOST, (err?: Error) => (err ? reject(err) : resolve(s)));

@@ -316,6 +316,10 @@ export const reverificationSchema = z.object({
   attitudeShiftDeg: z.number().nullable(),
   /** Target error on the new profile, degrees (null until done). */
   targetErrorDeg: z.number().nullable(),
+  /** The engine version that recomputed it (null until done). */
+  engineVersion: z.string().nullable(),
+  /** What it concluded, in words (an engine change: "re-verified under engine X, unchanged …"; null otherwise). */
+  outcome: z.string().nullable(),
   error: z.string().nullable(),
   attempts: z.number().int(),
   createdAt: isoTime,
@@ -325,6 +329,7 @@ export type Reverification = z.infer<typeof reverificationSchema>;
 
 /** What a stale version's re-check waits for (shared/product/recheck-status.ts RecheckInfo). */
 export const recheckInfoSchema = z.object({
+  cause: z.enum(['profile', 'engine']).optional(),
   staleSince: isoTime.nullable(),
   reverification: z.object({
     state: z.enum(['queued', 'running', 'done', 'failed', 'cancelled']),

@@ -6,6 +6,8 @@
 
 /** The state of a stale version's re-check. */
 export interface RecheckInfo {
+  /** What made it stale: a profile change, or a newer engine whose result moved (absent: profile). */
+  cause?: 'profile' | 'engine';
   /** When the profile change made it stale (ISO 8601). */
   staleSince: string | null;
   /** The newest re-verification on a newer profile (null: none recorded). */
@@ -36,6 +38,7 @@ export function recheckMessage(r: RecheckInfo, audience: 'trainee' | 'staff' = '
 }
 
 function audienceWords(r: RecheckInfo, blocked: string): string {
+  if (r.cause === 'engine') return engineWords(r, blocked);
   const s = r.successor;
   if (s?.status === 'under_review') {
     const rv = r.reverification;
@@ -51,4 +54,16 @@ function audienceWords(r: RecheckInfo, blocked: string): string {
   if (rv.state === 'failed') return `Your profile changed and re-verifying this maneuver failed${rv.error ? ` (${rv.error})` : ''}; a planner has to look at it. ${blocked}`;
   if (rv.state === 'cancelled') return `Your profile changed and its re-verification was stopped; a planner has to save it again for review. ${blocked}`;
   return `Your profile changed; re-verified (attitude moved ${deg(rv.attitudeShiftDeg ?? 0)}) and waiting for a planner to send it for review. ${blocked}`;
+}
+
+/** A newer engine moved the result: the same steps on the same profile, re-verified, wait for a reviewer. */
+function engineWords(r: RecheckInfo, blocked: string): string {
+  const s = r.successor;
+  const rv = r.reverification;
+  const moved = rv?.state === 'done' && rv.attitudeShiftDeg !== null ? ` (attitude moved ${deg(rv.attitudeShiftDeg)})` : '';
+  const why = `The simulation engine was updated and re-verifying this maneuver changed its result${moved}`;
+  if (s?.status === 'under_review') return `${why}; version ${s.version} is waiting for your reviewer. ${blocked}`;
+  if (s?.status === 'sent_back') return `${why}, and the reviewer sent the re-checked version ${s.version} back; a planner has to revise it. ${blocked}`;
+  if (s?.status === 'drafting') return `${why}; a planner is revising this maneuver (draft version ${s.version}). ${blocked}`;
+  return `${why}; a planner has to send it for review again. ${blocked}`;
 }

@@ -1,0 +1,1 @@
+ALTER TABLE "reverifications" ADD COLUMN "outcome" text;
