@@ -9,50 +9,23 @@
 import os from 'node:os';
 
 import { attitudeRhs, integrateAttitude } from '../../server/engine/integrate-attitude.ts';
-import { compileMotion, evalPiece } from '../../server/engine/joint-motion.ts';
+import { evalPiece } from '../../server/engine/joint-motion.ts';
 import { bodyRate, createMomentumWork } from '../../server/engine/locked-momentum.ts';
 import { RateNodes } from '../../server/engine/rate-nodes.ts';
 import { mergeRigidSegments } from '../../server/engine/rigid-merge.ts';
 import { sampleTimes, simulateModel } from '../../server/engine/simulate.ts';
 import { auditTrack } from '../../server/engine/track-audit.ts';
-import { deriveBody } from '../../server/model/derive-body.ts';
-import type { Body } from '../../shared/contracts/body.ts';
-import { validateBody } from '../../shared/contracts/body.ts';
-import { validateSequence } from '../../shared/contracts/sequence.ts';
-import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { runMujoco } from '../engine/mujoco-run.ts';
 import { odexFinalAttitude } from '../engine/odex-reference.ts';
+import { standardManeuver } from '../engine/standard-maneuver.ts';
 
 const JSON_OUT = process.argv.includes('--json');
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 const q4 = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
 
-// The standard human model (server/model), a fictional 1.75 m, 75 kg crew member, unsuited.
-const derived = deriveBody({ sex: 'male', stature: 1.75, mass: 75 }, { name: 'bench crew member' }).body;
-const bv = validateBody(derived);
-if (!bv.ok) throw new Error(`standard body invalid: ${bv.issues.map((i) => i.message).join('; ')}`);
-const body: Body = bv.value;
-const seqJson = {
-  start: {},
-  steps: [
-    { kind: 'move', duration: 0.8, to: { r_sh_flex: 90, r_sh_abd: 30, l_sh_flex: 90, l_sh_abd: 30 } },
-    { kind: 'harmonic', period: 1.25, cycles: 3, joints: {
-      r_sh_flex: { offset: 60, amplitude: 30, phase: 90 }, r_sh_abd: { offset: 30, amplitude: 30, phase: 0 },
-      l_sh_flex: { offset: 60, amplitude: 30, phase: 90 }, l_sh_abd: { offset: 30, amplitude: 30, phase: 180 } } },
-    { kind: 'move', duration: 0.8, to: { r_sh_flex: 0, r_sh_abd: 0, l_sh_flex: 0, l_sh_abd: 0, r_hip_flex: 75, l_hip_flex: 75, r_knee_flex: 60, l_knee_flex: 60 } },
-    { kind: 'harmonic', period: 1.25, cycles: 3, joints: {
-      r_hip_flex: { offset: 45, amplitude: 30, phase: 90 }, r_knee_flex: { offset: 60, amplitude: 40, phase: 0 },
-      l_hip_flex: { offset: 45, amplitude: 30, phase: 90 }, l_knee_flex: { offset: 60, amplitude: 40, phase: 0 } } },
-    { kind: 'move', duration: 0.9, to: { r_hip_flex: 0, l_hip_flex: 0, r_knee_flex: 0, l_knee_flex: 0 } },
-  ],
-};
-const sv = validateSequence(seqJson, body);
-if (!sv.ok) throw new Error(`bench sequence invalid: ${sv.issues.map((i) => i.message).join('; ')}`);
-const seq = sv.value;
-const model = compileBody(body);
-const plan = compileMotion(model, seq);
+const { body, sequence: seq, model, plan } = standardManeuver();
 const rhsModel = mergeRigidSegments(model);
 
 const out: string[] = [];

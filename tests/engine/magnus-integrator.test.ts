@@ -9,7 +9,6 @@ import { describe, expect, it } from 'vitest';
 import { integrateAttitude, PlanRate, type RateSource } from '../../server/engine/integrate-attitude.ts';
 import { compileMotion, type MotionPiece, type MotionPlan } from '../../server/engine/joint-motion.ts';
 import { GAUSS_NODES, magnusTheta, quatTimesExp } from '../../server/engine/magnus.ts';
-import { deriveBody } from '../../server/model/derive-body.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
@@ -17,6 +16,7 @@ import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { loadBody, loadSequence, mustSequence } from './fixtures.ts';
 import { odexAttitudesAt, odexFinalAttitude } from './odex-reference.ts';
 import { odex } from './odex-solver.ts';
+import { standardManeuver } from './standard-maneuver.ts';
 
 /** Final attitude agreement with odex at 1e-13, at the default rtol 1e-10, rad (issue 11: the result tolerances stay). */
 const AGREEMENT_RAD = 1e-9;
@@ -99,27 +99,6 @@ describe('adaptive Magnus integration of a prescribed rate', () => {
     expect(errs[2]).toBeLessThan(1e-10);
   });
 });
-
-/** The benchmark's standard maneuver on the standard human model (tests/bench/engine.ts). */
-function standardManeuver(): { model: ReturnType<typeof compileBody>; plan: MotionPlan } {
-  const derived = deriveBody({ sex: 'male', stature: 1.75, mass: 75 }, { name: 'test crew member' }).body;
-  const v = validateBody(derived);
-  if (!v.ok) throw new Error('standard body invalid');
-  const body = v.value;
-  const seq = mustSequence({ start: {}, steps: [
-    { kind: 'move', duration: 0.8, to: { r_sh_flex: 90, r_sh_abd: 30, l_sh_flex: 90, l_sh_abd: 30 } },
-    { kind: 'harmonic', period: 1.25, cycles: 3, joints: {
-      r_sh_flex: { offset: 60, amplitude: 30, phase: 90 }, r_sh_abd: { offset: 30, amplitude: 30, phase: 0 },
-      l_sh_flex: { offset: 60, amplitude: 30, phase: 90 }, l_sh_abd: { offset: 30, amplitude: 30, phase: 180 } } },
-    { kind: 'move', duration: 0.8, to: { r_sh_flex: 0, r_sh_abd: 0, l_sh_flex: 0, l_sh_abd: 0, r_hip_flex: 75, l_hip_flex: 75, r_knee_flex: 60, l_knee_flex: 60 } },
-    { kind: 'harmonic', period: 1.25, cycles: 3, joints: {
-      r_hip_flex: { offset: 45, amplitude: 30, phase: 90 }, r_knee_flex: { offset: 60, amplitude: 40, phase: 0 },
-      l_hip_flex: { offset: 45, amplitude: 30, phase: 90 }, l_knee_flex: { offset: 60, amplitude: 40, phase: 0 } } },
-    { kind: 'move', duration: 0.9, to: { r_hip_flex: 0, l_hip_flex: 0, r_knee_flex: 0, l_knee_flex: 0 } },
-  ] }, body);
-  const model = compileBody(body);
-  return { model, plan: compileMotion(model, seq) };
-}
 
 /** A 30-segment chain (2 dofs per joint, segments of decreasing size) with three joints swept out of phase. */
 function chain30(): { body: Body; sequence: unknown } {

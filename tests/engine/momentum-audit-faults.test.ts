@@ -8,42 +8,21 @@
 import { describe, expect, it } from 'vitest';
 
 import { integrateAttitude, PlanRate, type RateSource } from '../../server/engine/integrate-attitude.ts';
-import { compileMotion, type MotionPiece, type MotionPlan } from '../../server/engine/joint-motion.ts';
+import type { MotionPiece } from '../../server/engine/joint-motion.ts';
 import { quatTimesExp } from '../../server/engine/magnus.ts';
 import { RateNodes } from '../../server/engine/rate-nodes.ts';
 import { sampleTimes, simulate, simulateFinal, simulateModel } from '../../server/engine/simulate.ts';
 import { auditTrack } from '../../server/engine/track-audit.ts';
-import { deriveBody } from '../../server/model/derive-body.ts';
 import { evaluateSequence } from '../../server/planning/evaluate-steps.ts';
-import { validateBody } from '../../shared/contracts/body.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
-import { loadBody, loadSequence, mustSequence, quatOf } from './fixtures.ts';
+import { loadBody, loadSequence, quatOf } from './fixtures.ts';
+import { standardManeuver } from './standard-maneuver.ts';
 
 /** DECISIONS.md: a healthy run stays below this (relative to the peak shape momentum). */
 const HEALTHY = 1e-8;
 /** DECISIONS.md: a fault of 1e-6 raises the audit above this. */
 const FAULT = 1e-7;
-
-/** The standard human model through the benchmark's 10 s maneuver. */
-function standard(): { model: ReturnType<typeof compileBody>; plan: MotionPlan; body: ReturnType<typeof loadBody>; sequence: ReturnType<typeof mustSequence> } {
-  const v = validateBody(deriveBody({ sex: 'female', stature: 1.65, mass: 60 }, { name: 'audit test crew member' }).body);
-  if (!v.ok) throw new Error('standard body invalid');
-  const body = v.value;
-  const sequence = mustSequence({ start: {}, steps: [
-    { kind: 'move', duration: 0.8, to: { r_sh_flex: 90, r_sh_abd: 30, l_sh_flex: 90, l_sh_abd: 30 } },
-    { kind: 'harmonic', period: 1.25, cycles: 2, joints: {
-      r_sh_flex: { offset: 60, amplitude: 30, phase: 90 }, r_sh_abd: { offset: 30, amplitude: 30, phase: 0 },
-      l_sh_flex: { offset: 60, amplitude: 30, phase: 90 }, l_sh_abd: { offset: 30, amplitude: 30, phase: 180 } } },
-    { kind: 'hold', duration: 0.3 },
-    { kind: 'move', duration: 0.8, to: { r_sh_flex: 0, r_sh_abd: 0, l_sh_flex: 0, l_sh_abd: 0, r_hip_flex: 75, l_hip_flex: 75, r_knee_flex: 60, l_knee_flex: 60 } },
-    { kind: 'harmonic', period: 1.25, cycles: 2, joints: {
-      r_hip_flex: { offset: 45, amplitude: 30, phase: 90 }, r_knee_flex: { offset: 60, amplitude: 40, phase: 0 },
-      l_hip_flex: { offset: 45, amplitude: 30, phase: 90 }, l_knee_flex: { offset: 60, amplitude: 40, phase: 0 } } },
-  ] }, body);
-  const model = compileBody(body);
-  return { model, plan: compileMotion(model, sequence), body, sequence };
-}
 
 /** The plan's own rate, scaled by (1 + eps): an integrator fed a slightly wrong ω. */
 class ScaledRate implements RateSource {
@@ -58,7 +37,7 @@ class ScaledRate implements RateSource {
 
 describe('momentum audit: healthy runs', () => {
   it(`standard human model, 60 Hz: below ${HEALTHY}`, () => {
-    const { model, plan } = standard();
+    const { model, plan } = standardManeuver();
     const r = simulateModel(model, plan);
     expect(r.momentumResidual.relative).toBeLessThan(HEALTHY);
     expect(r.momentumResidual.peakShapeMomentum).toBeGreaterThan(1);
@@ -75,7 +54,7 @@ describe('momentum audit: healthy runs', () => {
 });
 
 describe('momentum audit: faults in the integration', () => {
-  const { model, plan } = standard();
+  const { model, plan } = standardManeuver();
   const times = sampleTimes(plan.duration, 60);
   const healthy = integrateAttitude(model, plan, { rtol: 1e-10, atol: 1e-10 }, times);
 
@@ -112,7 +91,7 @@ describe('momentum audit: faults in the integration', () => {
 });
 
 describe('momentum audit: the same faults with the integrator\'s recorded nodes as the reference rate (what simulateModel runs)', () => {
-  const { model, plan } = standard();
+  const { model, plan } = standardManeuver();
   const times = sampleTimes(plan.duration, 60);
   const nodes = new RateNodes(plan);
   const healthy = integrateAttitude(model, plan, { rtol: 1e-10, atol: 1e-10, nodes }, times);
@@ -157,7 +136,7 @@ describe('momentum audit: the same faults with the integrator\'s recorded nodes 
 });
 
 describe('search mode (simulateFinal)', () => {
-  const { body, sequence } = standard();
+  const { body, sequence } = standardManeuver();
 
   it('gives the full run\'s final attitude to the last bit, with no samples and no audit', () => {
     const full = simulate(body, sequence);
