@@ -1,11 +1,13 @@
-import { bigserial, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { bigserial, index, jsonb, pgTable, text, uuid } from 'drizzle-orm/pg-core';
+
+import { instant } from './columns.ts';
 
 /** Append-only record of who did what to which object (a trigger refuses UPDATE and DELETE). */
 export const auditEvents = pgTable(
   'audit_events',
   {
     id: bigserial('id', { mode: 'number' }).primaryKey(),
-    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+    at: instant('at').notNull().defaultNow(),
     actorId: uuid('actor_id'),
     action: text('action').notNull(),
     objectType: text('object_type').notNull(),

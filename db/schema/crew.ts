@@ -1,35 +1,36 @@
-import { boolean, integer, jsonb, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { boolean, integer, jsonb, pgTable, text, unique } from 'drizzle-orm/pg-core';
 
 import type { Body } from '../../shared/contracts/body.ts';
 import type { ProfileSummary, StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
 import type { SuitConfig } from '../../shared/contracts/suit.ts';
+import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { users } from './users.ts';
 
 /** A person an inertia profile describes. `currentVersion` names the current profile version. */
 export const crewMembers = pgTable('crew_members', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: rowId(),
   name: text('name').notNull(),
   // Short call name shown in lists, e.g. a station call sign.
   callSign: text('call_sign'),
   notes: text('notes').notNull().default(''),
   currentVersion: integer('current_version'),
-  createdBy: uuid('created_by').references(() => users.id),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdBy: linkTo('created_by', () => users.id),
+  createdAt: createdAt(),
   // Archived members leave the default crew list and take no new profile versions until restored.
-  archivedAt: timestamp('archived_at', { withTimezone: true }),
-  archivedBy: uuid('archived_by').references(() => users.id),
+  archivedAt: instant('archived_at'),
+  archivedBy: linkTo('archived_by', () => users.id),
 });
 
 /** Suit configurations: added mass/inertia per segment, suited ranges, locked joints (JSON per shared/contracts/suit.ts). */
 export const suitConfigs = pgTable('suit_configs', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: rowId(),
   name: text('name').notNull().unique(),
   config: jsonb('config').$type<SuitConfig>().notNull(),
   illustrative: boolean('illustrative').notNull().default(true),
   // Optimistic lock: an edit names the version it started from (409 stale_version otherwise).
   version: integer('version').notNull().default(1),
-  updatedBy: uuid('updated_by').references(() => users.id),
-  updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+  updatedBy: linkTo('updated_by', () => users.id),
+  updatedAt: instant('updated_at').notNull().defaultNow(),
 });
 
 /**
@@ -40,19 +41,17 @@ export const suitConfigs = pgTable('suit_configs', {
 export const profileVersions = pgTable(
   'profile_versions',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    crewMemberId: uuid('crew_member_id')
-      .notNull()
-      .references(() => crewMembers.id),
+    id: rowId(),
+    crewMemberId: linkTo('crew_member_id', () => crewMembers.id).notNull(),
     version: integer('version').notNull(),
     source: text('source').notNull().default('regression'),
     inputs: jsonb('inputs').$type<StoredProfileInputs>().notNull(),
     body: jsonb('body').$type<Body>().notNull(),
     summary: jsonb('summary').$type<ProfileSummary>().notNull(),
     engineVersion: text('engine_version').notNull(),
-    authorId: uuid('author_id').references(() => users.id),
+    authorId: linkTo('author_id', () => users.id),
     note: text('note').notNull().default(''),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAt(),
   },
   (t) => [unique('profile_versions_member_version').on(t.crewMemberId, t.version)],
 );

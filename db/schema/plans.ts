@@ -1,7 +1,8 @@
-import { doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { doublePrecision, index, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
 import type { SequenceTargetInput } from '../../shared/contracts/maneuver.ts';
 import type { PlanCandidate, PlanSettings } from '../../shared/contracts/plan.ts';
+import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { profileVersions } from './crew.ts';
 import { sequences } from './sequences.ts';
 import { users } from './users.ts';
@@ -13,15 +14,11 @@ import { users } from './users.ts';
 export const plans = pgTable(
   'plans',
   {
-  id: uuid('id').primaryKey().defaultRandom(),
-  sequenceId: uuid('sequence_id')
-    .notNull()
-    .references(() => sequences.id),
+  id: rowId(),
+  sequenceId: linkTo('sequence_id', () => sequences.id).notNull(),
   // The body the plan used (the crew member's current profile version when requested).
-  profileVersionId: uuid('profile_version_id')
-    .notNull()
-    .references(() => profileVersions.id),
-  requestedBy: uuid('requested_by').references(() => users.id),
+  profileVersionId: linkTo('profile_version_id', () => profileVersions.id).notNull(),
+  requestedBy: linkTo('requested_by', () => users.id),
   // queued | running | done | failed
   state: text('state').notNull().default('queued'),
   // The sequence target at request time (SequenceTarget JSON).
@@ -37,9 +34,9 @@ export const plans = pgTable(
   // The planner's notes (string[] JSON): why a target cannot be reached (which axis, which limit), sweeps not used.
   notes: jsonb('notes').$type<string[]>().notNull().default([]),
   engineVersion: text('engine_version'),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  startedAt: timestamp('started_at', { withTimezone: true }),
-  finishedAt: timestamp('finished_at', { withTimezone: true }),
+  createdAt: createdAt(),
+  startedAt: instant('started_at'),
+  finishedAt: instant('finished_at'),
   },
   // A sequence's plans, newest first.
   (t) => [index('plans_sequence_created_idx').on(t.sequenceId, t.createdAt)],

@@ -1,6 +1,7 @@
-import { doublePrecision, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { doublePrecision, index, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
 import type { BvhMapping } from '../../shared/contracts/recording.ts';
+import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { crewMembers } from './crew.ts';
 import { uploads } from './uploads.ts';
 import { users } from './users.ts';
@@ -13,20 +14,20 @@ import { users } from './users.ts';
 export const recordings = pgTable(
   'recordings',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    uploadId: uuid('upload_id').notNull().references(() => uploads.id),
+    id: rowId(),
+    uploadId: linkTo('upload_id', () => uploads.id).notNull(),
     name: text('name').notNull(),
     // joint_angles_csv | bvh
     source: text('source').notNull(),
-    crewMemberId: uuid('crew_member_id').references(() => crewMembers.id),
+    crewMemberId: linkTo('crew_member_id', () => crewMembers.id),
     rateHz: doublePrecision('rate_hz').notNull(),
     dofs: jsonb('dofs').$type<string[]>().notNull(),
     frames: jsonb('frames').$type<number[][]>().notNull(),
     assumptions: jsonb('assumptions').$type<string[]>().notNull().default([]),
     mapping: jsonb('mapping').$type<BvhMapping>(),
-    createdBy: uuid('created_by').notNull().references(() => users.id),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+    createdBy: linkTo('created_by', () => users.id).notNull(),
+    createdAt: createdAt(),
+    updatedAt: instant('updated_at').notNull().defaultNow(),
   },
   (t) => [index('recordings_created_idx').on(t.createdAt)],
 );

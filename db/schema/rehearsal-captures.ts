@@ -1,6 +1,7 @@
-import { doublePrecision, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { doublePrecision, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
 import type { RehearsalCapture } from '../../shared/contracts/recording.ts';
+import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { rehearsals } from './sequences.ts';
 import { uploads } from './uploads.ts';
 import { users } from './users.ts';
@@ -11,18 +12,18 @@ import { users } from './users.ts';
  * with a reviewer's sign-off.
  */
 export const rehearsalCaptures = pgTable('rehearsal_captures', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  rehearsalId: uuid('rehearsal_id').notNull().unique().references(() => rehearsals.id),
-  uploadId: uuid('upload_id').notNull().references(() => uploads.id),
+  id: rowId(),
+  rehearsalId: linkTo('rehearsal_id', () => rehearsals.id).notNull().unique(),
+  uploadId: linkTo('upload_id', () => uploads.id).notNull(),
   rateHz: doublePrecision('rate_hz').notNull(),
   dofs: jsonb('dofs').$type<string[]>().notNull(),
   frames: jsonb('frames').$type<number[][]>().notNull(),
   capture: jsonb('capture').$type<Omit<RehearsalCapture, 'signedOff'>>().notNull(),
-  signedOffBy: uuid('signed_off_by').references(() => users.id),
-  signedOffAt: timestamp('signed_off_at', { withTimezone: true }),
+  signedOffBy: linkTo('signed_off_by', () => users.id),
+  signedOffAt: instant('signed_off_at'),
   signOffNote: text('sign_off_note'),
-  createdBy: uuid('created_by').notNull().references(() => users.id),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdBy: linkTo('created_by', () => users.id).notNull(),
+  createdAt: createdAt(),
 });
 
 export type RehearsalCaptureRow = typeof rehearsalCaptures.$inferSelect;

@@ -1,6 +1,7 @@
-import { bigint, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { bigint, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, uuid } from 'drizzle-orm/pg-core';
 
 import type { RobustnessModel } from '../../shared/contracts/robustness.ts';
+import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { plans } from './plans.ts';
 import { sequenceVersions } from './sequences.ts';
 import { users } from './users.ts';
@@ -14,9 +15,9 @@ import { users } from './users.ts';
 export const robustnessRuns = pgTable(
   'robustness_runs',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    sequenceVersionId: uuid('sequence_version_id').references(() => sequenceVersions.id),
-    planId: uuid('plan_id').references(() => plans.id),
+    id: rowId(),
+    sequenceVersionId: linkTo('sequence_version_id', () => sequenceVersions.id),
+    planId: linkTo('plan_id', () => plans.id),
     candidateIndex: integer('candidate_index'),
     // queued | running | done | failed | cancelled
     state: text('state').notNull().default('queued'),
@@ -32,10 +33,10 @@ export const robustnessRuns = pgTable(
     // RobustnessFigures JSON once done.
     figures: jsonb('figures'),
     error: text('error'),
-    requestedBy: uuid('requested_by').references(() => users.id),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    startedAt: timestamp('started_at', { withTimezone: true }),
-    finishedAt: timestamp('finished_at', { withTimezone: true }),
+    requestedBy: linkTo('requested_by', () => users.id),
+    createdAt: createdAt(),
+    startedAt: instant('started_at'),
+    finishedAt: instant('finished_at'),
   },
   (t) => [index('robustness_runs_version').on(t.sequenceVersionId), index('robustness_runs_plan').on(t.planId), index('robustness_runs_state').on(t.state)],
 );
@@ -56,7 +57,7 @@ export const robustnessChunks = pgTable(
     results: jsonb('results'),
     attempts: integer('attempts').notNull().default(0),
     error: text('error'),
-    finishedAt: timestamp('finished_at', { withTimezone: true }),
+    finishedAt: instant('finished_at'),
   },
   (t) => [primaryKey({ columns: [t.runId, t.chunkIndex] })],
 );

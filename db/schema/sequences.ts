@@ -1,10 +1,11 @@
 import { sql } from 'drizzle-orm';
-import { type AnyPgColumn, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { type AnyPgColumn, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, unique } from 'drizzle-orm/pg-core';
 
 import type { ReportSummary, SequenceTargetInput, VerificationReport } from '../../shared/contracts/maneuver.ts';
 import { VERSION_STATUSES } from '../../shared/contracts/version-status.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import type { CheckFailure } from '../../shared/product/version-checks.ts';
+import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { crewMembers, profileVersions } from './crew.ts';
 import { users } from './users.ts';
 
@@ -14,17 +15,15 @@ export const versionStatusEnum = pgEnum('version_status', VERSION_STATUSES);
 export const sequences = pgTable(
   'sequences',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    crewMemberId: uuid('crew_member_id')
-      .notNull()
-      .references(() => crewMembers.id),
+    id: rowId(),
+    crewMemberId: linkTo('crew_member_id', () => crewMembers.id).notNull(),
     name: text('name').notNull(),
     target: jsonb('target').$type<SequenceTargetInput>().notNull(),
-    createdBy: uuid('created_by').references(() => users.id),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    createdBy: linkTo('created_by', () => users.id),
+    createdAt: createdAt(),
     // Archived maneuvers leave every default list and take no new versions until restored.
-    archivedAt: timestamp('archived_at', { withTimezone: true }),
-    archivedBy: uuid('archived_by').references(() => users.id),
+    archivedAt: instant('archived_at'),
+    archivedBy: linkTo('archived_by', () => users.id),
   },
   // A trainee's list and the crew filter select by crew member.
   (t) => [index('sequences_crew_member_idx').on(t.crewMemberId)],
@@ -38,36 +37,32 @@ export const sequences = pgTable(
 export const sequenceVersions = pgTable(
   'sequence_versions',
   {
-    id: uuid('id').primaryKey().defaultRandom(),
-    sequenceId: uuid('sequence_id')
-      .notNull()
-      .references(() => sequences.id),
+    id: rowId(),
+    sequenceId: linkTo('sequence_id', () => sequences.id).notNull(),
     version: integer('version').notNull(),
     primitives: jsonb('primitives').$type<Primitive[]>().notNull(),
     // The target this version was composed and verified for (shared/contracts/maneuver.ts); the sequence's own target is the next version's default.
     target: jsonb('target').$type<SequenceTargetInput>().notNull(),
     compiled: jsonb('compiled').notNull(),
-    profileVersionId: uuid('profile_version_id')
-      .notNull()
-      .references(() => profileVersions.id),
+    profileVersionId: linkTo('profile_version_id', () => profileVersions.id).notNull(),
     status: versionStatusEnum('status').notNull().default('drafting'),
     report: jsonb('report').$type<VerificationReport>(),
     // The report's headline figures (ReportSummary), computed by PostgreSQL (migration 0004) for lists.
     reportSummary: jsonb('report_summary').$type<ReportSummary>().generatedAlwaysAs(sql`holonaut_report_summary(report)`),
     engineVersion: text('engine_version'),
     inputsHash: text('inputs_hash'),
-    authorId: uuid('author_id').references(() => users.id),
+    authorId: linkTo('author_id', () => users.id),
     note: text('note').notNull().default(''),
-    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-    submittedAt: timestamp('submitted_at', { withTimezone: true }),
-    clearedBy: uuid('cleared_by').references(() => users.id),
-    clearedAt: timestamp('cleared_at', { withTimezone: true }),
-    staleSince: timestamp('stale_since', { withTimezone: true }),
+    createdAt: createdAt(),
+    submittedAt: instant('submitted_at'),
+    clearedBy: linkTo('cleared_by', () => users.id),
+    clearedAt: instant('cleared_at'),
+    staleSince: instant('stale_since'),
     // Guarded submit: the submitter's note to the reviewer and the failed checks they acknowledged (CheckFailure[] JSON; null when none failed).
     submitNote: text('submit_note'),
     acknowledgedFailures: jsonb('acknowledged_failures').$type<CheckFailure[]>(),
     // A re-check version (saved by the re-verification after a profile change): the cleared version it re-checks.
-    recheckOfId: uuid('recheck_of_id').references((): AnyPgColumn => sequenceVersions.id),
+    recheckOfId: linkTo('recheck_of_id', (): AnyPgColumn => sequenceVersions.id),
   },
   (t) => [
     unique('sequence_versions_seq_version').on(t.sequenceId, t.version),
@@ -81,19 +76,15 @@ export const sequenceVersions = pgTable(
 export const reviews = pgTable(
   'reviews',
   {
-  id: uuid('id').primaryKey().defaultRandom(),
-  sequenceVersionId: uuid('sequence_version_id')
-    .notNull()
-    .references(() => sequenceVersions.id),
-  reviewerId: uuid('reviewer_id')
-    .notNull()
-    .references(() => users.id),
+  id: rowId(),
+  sequenceVersionId: linkTo('sequence_version_id', () => sequenceVersions.id).notNull(),
+  reviewerId: linkTo('reviewer_id', () => users.id).notNull(),
   // clear | send_back | comment
   decision: text('decision').notNull(),
   comment: text('comment').notNull().default(''),
-  profileVersionId: uuid('profile_version_id').references(() => profileVersions.id),
+  profileVersionId: linkTo('profile_version_id', () => profileVersions.id),
   engineVersion: text('engine_version'),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAt(),
   },
   (t) => [index('reviews_sequence_version_idx').on(t.sequenceVersionId)],
 );
@@ -102,29 +93,23 @@ export const reviews = pgTable(
 export const reverifications = pgTable(
   'reverifications',
   {
-  id: uuid('id').primaryKey().defaultRandom(),
-  sequenceVersionId: uuid('sequence_version_id')
-    .notNull()
-    .references(() => sequenceVersions.id),
-  fromProfileVersionId: uuid('from_profile_version_id')
-    .notNull()
-    .references(() => profileVersions.id),
-  toProfileVersionId: uuid('to_profile_version_id')
-    .notNull()
-    .references(() => profileVersions.id),
+  id: rowId(),
+  sequenceVersionId: linkTo('sequence_version_id', () => sequenceVersions.id).notNull(),
+  fromProfileVersionId: linkTo('from_profile_version_id', () => profileVersions.id).notNull(),
+  toProfileVersionId: linkTo('to_profile_version_id', () => profileVersions.id).notNull(),
   // queued | running | done | failed
   state: text('state').notNull().default('queued'),
   // Angle between the old and the recomputed final attitude, degrees.
   attitudeShiftDeg: doublePrecision('attitude_shift_deg'),
   report: jsonb('report').$type<VerificationReport>(),
   // The re-check version this re-verification saved (a once-cleared version's successor under review).
-  resultVersionId: uuid('result_version_id').references(() => sequenceVersions.id),
+  resultVersionId: linkTo('result_version_id', () => sequenceVersions.id),
   // What the finished re-verification concluded, in words (an engine change: unchanged, or re-check saved).
   outcome: text('outcome'),
   error: text('error'),
   attempts: integer('attempts').notNull().default(0),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
-  finishedAt: timestamp('finished_at', { withTimezone: true }),
+  createdAt: createdAt(),
+  finishedAt: instant('finished_at'),
   },
   // Lists show each version's newest record.
   (t) => [index('reverifications_version_created_idx').on(t.sequenceVersionId, t.createdAt)],
@@ -134,14 +119,10 @@ export const reverifications = pgTable(
 export const rehearsals = pgTable(
   'rehearsals',
   {
-  id: uuid('id').primaryKey().defaultRandom(),
-  sequenceVersionId: uuid('sequence_version_id')
-    .notNull()
-    .references(() => sequenceVersions.id),
-  traineeId: uuid('trainee_id')
-    .notNull()
-    .references(() => users.id),
-  performedAt: timestamp('performed_at', { withTimezone: true }).notNull().defaultNow(),
+  id: rowId(),
+  sequenceVersionId: linkTo('sequence_version_id', () => sequenceVersions.id).notNull(),
+  traineeId: linkTo('trainee_id', () => users.id).notNull(),
+  performedAt: instant('performed_at').notNull().defaultNow(),
   playbackSpeed: doublePrecision('playback_speed').notNull(),
   completedSteps: integer('completed_steps').notNull(),
   totalSteps: integer('total_steps').notNull(),

@@ -1,11 +1,12 @@
-import { integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { integer, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
 import type { UploadRowError } from '../../shared/contracts/uploads.ts';
+import { createdAt, linkTo, rowId } from './columns.ts';
 import { users } from './users.ts';
 
 /** A stored file: the raw bytes live in object storage under `objectKey`; parsed rows below. */
 export const uploads = pgTable('uploads', {
-  id: uuid('id').primaryKey().defaultRandom(),
+  id: rowId(),
   // measurements_csv | segment_table_csv | segment_table_json | joint_angles_csv
   kind: text('kind').notNull(),
   objectKey: text('object_key').notNull().unique(),
@@ -17,16 +18,14 @@ export const uploads = pgTable('uploads', {
   status: text('status').notNull(),
   rowCount: integer('row_count').notNull().default(0),
   errors: jsonb('errors').$type<UploadRowError[]>().notNull().default([]),
-  uploadedBy: uuid('uploaded_by').references(() => users.id),
-  createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  uploadedBy: linkTo('uploaded_by', () => users.id),
+  createdAt: createdAt(),
 });
 
 /** Parsed rows of an imported upload, one JSON object per data row (1-based row numbers as in the file). */
 export const uploadRows = pgTable('upload_rows', {
-  id: uuid('id').primaryKey().defaultRandom(),
-  uploadId: uuid('upload_id')
-    .notNull()
-    .references(() => uploads.id),
+  id: rowId(),
+  uploadId: linkTo('upload_id', () => uploads.id).notNull(),
   rowNumber: integer('row_number').notNull(),
   data: jsonb('data').notNull(),
 });
