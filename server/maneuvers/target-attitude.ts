@@ -1,7 +1,7 @@
 /**
- * A sequence target (shared/contracts/maneuver.ts) as the attitude it asks for and in words: the
- * planner, verification, robustness runs, the player's target ghost, rehearsal captures, the cue
- * card and the rehearsal list all read targets here.
+ * A sequence target (shared/contracts/maneuver.ts) as the attitude it asks for: the
+ * planner, verification, robustness runs, the player's target ghost and rehearsal captures read
+ * targets here; its words are shared/product/target-words.ts.
  */
 import type { SequenceTarget } from '../../shared/contracts/maneuver.ts';
 import type { Attitude } from '../../shared/contracts/result.ts';
@@ -22,12 +22,4 @@ export function targetQuat(target: SequenceTarget): Quat {
 export function targetAttitude(target: SequenceTarget): Attitude {
   const [w, x, y, z] = targetQuat(target);
   return { w, x, y, z };
-}
-
-const deg = (v: number) => `${Number(v.toFixed(0))}°`;
-
-/** The target in words, whole degrees: "yaw 90°, pitch 0°, roll 0°" or "60° about [0, 0, 1]" (no tolerance: shown beside it). */
-export function targetWords(t: SequenceTarget): string {
-  if (t.mode === 'ypr') return `yaw ${deg(t.yprDeg.yaw)}, pitch ${deg(t.yprDeg.pitch)}, roll ${deg(t.yprDeg.roll)}`;
-  return `${deg(t.axisAngle.angleDeg)} about [${t.axisAngle.axis.map((a) => Number(a.toFixed(2))).join(', ')}]`;
 }

@@ -3,6 +3,7 @@ import { Router } from 'express';
 
 import { crewMembers, rehearsals, sequences, sequenceVersions, users } from '../../db/schema/index.ts';
 import { logRehearsalSchema, type RehearsableVersion, type Rehearsal, rehearsalListQuerySchema } from '../../shared/contracts/rehearsal.ts';
+import { targetWords } from '../../shared/product/target-words.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { badRequest, forbidden, notFound } from '../http/http-error.ts';
@@ -11,7 +12,6 @@ import { assertRehearsable, visibleVersions } from '../maneuvers/maneuver-access
 import { recheckInfos } from '../maneuvers/recheck-info.ts';
 import { compiledDuration, stepListCount } from '../maneuvers/step-timeline.ts';
 import { loadStoredVersion, readStoredCompiled, readVersionTarget } from '../maneuvers/stored-version.ts';
-import { targetWords } from '../maneuvers/target-attitude.ts';
 import { mountRehearsalCaptures } from './rehearsal-captures.ts';
 
 type RehearsalJoin = { r: typeof rehearsals.$inferSelect; seqName: string; version: number; traineeName: string; engineVersion: string | null };

@@ -5,6 +5,7 @@
 import { z } from 'zod';
 
 import type { RecheckInfo } from '../product/recheck-status.ts';
+import type { SequenceTarget } from './maneuver.ts';
 import { PLAYBACK_SPEED_RANGE, PLAYBACK_SPEEDS } from './playback-speeds.ts';
 import type { VersionStatus } from './version-status.ts';
 
@@ -65,8 +66,8 @@ export interface RehearsableVersion {
   /** `cleared`: playable; `recheck`: its profile changed, shown with a notice until re-cleared. */
   status: VersionStatus;
   crewMemberName: string;
-  /** The sequence's target as stored. */
-  target: unknown;
+  /** The target this version was composed and verified for. */
+  target: SequenceTarget;
   /** Target in words, e.g. "yaw 90°, pitch 0°, roll 0°". */
   targetLabel: string;
   /** Total duration of the verified run, seconds. */

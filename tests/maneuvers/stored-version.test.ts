@@ -11,8 +11,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { sequenceVersions } from '../../db/schema/index.ts';
 import { readStoredCompiled, readVersionTarget, UnreadableStoredValue } from '../../server/maneuvers/stored-version.ts';
-import { targetAttitude, targetWords } from '../../server/maneuvers/target-attitude.ts';
+import { targetAttitude } from '../../server/maneuvers/target-attitude.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
+import { targetWords } from '../../shared/product/target-words.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from '../rehearse/rehearsal-fixture.ts';
 import { apiError } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
@@ -49,6 +50,9 @@ describe('target attitude', () => {
   it('words targets in whole degrees', () => {
     expect(targetWords(target({ mode: 'ypr', yprDeg: { yaw: -39.04, pitch: 0, roll: 1 } }))).toBe('yaw -39°, pitch 0°, roll 1°');
     expect(targetWords(target({ mode: 'axis_angle', axisAngle: { axis: [0, 0, 1], angleDeg: 45 } }))).toBe('45° about [0, 0, 1]');
+    // on screen with a typographic minus; −0.4° rounds to 0°, not −0°
+    expect(targetWords(target({ mode: 'axis_angle', axisAngle: { axis: [0, -0.7071, 0.7071], angleDeg: 30.4 } }), '\u2212')).toBe('30° about [0, \u22120.71, 0.71]');
+    expect(targetWords(target({ mode: 'ypr', yprDeg: { yaw: -0.4, pitch: -20, roll: 0 } }), '\u2212')).toBe('yaw 0°, pitch \u221220°, roll 0°');
   });
 });
 
