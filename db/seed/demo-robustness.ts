@@ -12,7 +12,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
 import { recordAudit } from '../../server/audit/record-audit.ts';
-import { createRobustnessRun, DEFAULT_ROBUSTNESS_SAMPLES, defaultChunkSize, DEFAULT_ROBUSTNESS_SEED, type NewRun } from '../../server/jobs/robustness/robustness-runs.ts';
+import { createRobustnessRun, DEFAULT_ROBUSTNESS_SAMPLES, DEFAULT_ROBUSTNESS_SEED, defaultChunkSize, type NewRun } from '../../server/jobs/robustness/robustness-runs.ts';
 import { canonicalJson } from '../../server/maneuvers/inputs-hash.ts';
 import { type RobustnessSample,summariseRobustness } from '../../server/planning/robustness.ts';
 import { DEFAULT_ROBUSTNESS_MODEL, type RobustnessModel } from '../../shared/contracts/robustness.ts';
@@ -74,7 +74,7 @@ export function entrySamples(entry: DemoRunEntry): RobustnessSample[] {
  * Stores a demo version's robustness run: done with the precomputed samples (chunked as a worker
  * would have stored them) when the file has its inputs, otherwise queued for the worker.
  */
-export async function seedVersionRobustness(db: Database, versionId: string, run: Omit<DemoRunInputs, 'samples' | 'seed' | 'model'>, requestedBy: string, at: Date): Promise<'precomputed' | 'queued'> {
+export async function seedVersionRobustness(db: Database, versionId: string, run: Omit<DemoRunInputs, 'samples' | 'seed' | 'model'>, requestedBy: string | null, at: Date): Promise<'precomputed' | 'queued'> {
   const inputs: DemoRunInputs = { ...run, samples: DEFAULT_ROBUSTNESS_SAMPLES, seed: DEFAULT_ROBUSTNESS_SEED, model: DEFAULT_ROBUSTNESS_MODEL };
   const entry = loadDemoRobustness()[demoRunKey(inputs)];
   if (!entry || entry.samples !== inputs.samples) {

@@ -9,6 +9,7 @@
 import { desc, eq } from 'drizzle-orm';
 
 import { recordAudit } from '../../server/audit/record-audit.ts';
+import { saveRecheckVersion } from '../../server/maneuvers/recheck-version.ts';
 import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
 import { verifySequence } from '../../server/maneuvers/verify-sequence.ts';
 import { type SequenceTarget, sequenceTargetSchema, type StoredCompiled } from '../../shared/contracts/maneuver.ts';
@@ -181,13 +182,23 @@ export async function seedManeuvers(state: SeedState): Promise<void> {
         await recordAudit(db, { actorId: userIds[REVIEWER], action: `sequence_version.${v.review.decision}`, objectType: 'sequence_version', objectId: row.id, detail: { comment: v.review.comment, seed: true } });
       }
       // A recheck version: its recomputation on the current profile, done as the worker would.
+      // The worker's re-check then saves the next version for the reviewer (the product's own code:
+      // saveRecheckVersion), with its robustness run as the save of a re-check version queues it.
       if (v.status === 'recheck' && profile.id !== current.id) {
         const again = await verifySequence({ body: current.body, sequence: compiled.sequence, target, profileVersionId: current.id, pool: state.pool, stepMap: compiled.stepMap });
-        await db.insert(reverifications).values({
-          sequenceVersionId: row.id, fromProfileVersionId: profile.id, toProfileVersionId: current.id, state: 'done', attempts: 1,
-          attitudeShiftDeg: (quatAngleBetween(quatOf(report.final.attitude), quatOf(again.final.attitude)) * 180) / Math.PI,
-          report: again, finishedAt: new Date(),
+        const attitudeShiftDeg = (quatAngleBetween(quatOf(report.final.attitude), quatOf(again.final.attitude)) * 180) / Math.PI;
+        const saved = await db.transaction(async (tx) => {
+          const [rev] = await tx.insert(reverifications).values({
+            sequenceVersionId: row.id, fromProfileVersionId: profile.id, toProfileVersionId: current.id, state: 'done', attempts: 1,
+            attitudeShiftDeg, report: again, finishedAt: minutesAgo(25),
+          }).returning({ id: reverifications.id });
+          return saveRecheckVersion(tx, { stale: row, profile: current, report: again, reverificationId: rev.id, attitudeShiftDeg });
         });
+        if (saved) {
+          await seedVersionRobustness(db, saved.id, {
+            body: current.body, sequence: sequenceSchema.parse(stored.sequence), target: targetQuat(target), toleranceDeg: target.toleranceDeg,
+          }, null, minutesAgo(24));
+        }
       }
     }
   }

@@ -9,14 +9,15 @@
 import { eq, isNotNull, or } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { robustnessChunks, robustnessRuns, sequenceVersions } from '../../db/schema/index.ts';
+import { reverifications, robustnessChunks, robustnessRuns, sequenceVersions } from '../../db/schema/index.ts';
 import { DEMO_ERROR_DIGITS } from '../../db/seed/demo-robustness.ts';
 import { type RobustnessSample,robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
 import type { Body } from '../../shared/contracts/body.ts';
-import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { ReviewQueueItem, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
 import { sequenceSchema } from '../../shared/contracts/sequence.ts';
 import type { Quat } from '../../shared/math/quaternion.ts';
+import { bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { as,PEOPLE } from './maneuver-api.ts';
 
@@ -61,6 +62,26 @@ describe('demo data', () => {
       // The list view carries the same level.
       expect(v.robustness).toMatchObject({ state: 'done', feedbackP95Deg: r.feedbackP95Deg, level: r.level });
     }
+  });
+
+  it('has a maneuver in the reviewer\'s re-check queue: the automatic re-check version of a drill cleared on an older profile', async () => {
+    const items = bodyOf<{ items: ReviewQueueItem[] }>(await as(t, PEOPLE.reviewer).get('/reviews/queue')).items;
+    const recheck = items.filter((i) => i.version.recheckOfId !== null);
+    expect(recheck.length).toBeGreaterThanOrEqual(1);
+    const next = recheck[0].version;
+    expect(next).toMatchObject({ status: 'under_review', authorId: null });
+    const stale = bodyOf<VersionDetail>(await as(t, PEOPLE.reviewer).get(`/sequences/versions/${next.recheckOfId}`));
+    expect(stale.status).toBe('recheck');
+    expect(stale.clearedAt).not.toBeNull();
+    // Bound to the current profile, with its re-verification's report and a robustness run computed ahead.
+    const detail = bodyOf<VersionDetail>(await as(t, PEOPLE.reviewer).get(`/sequences/versions/${next.id}`));
+    expect(detail.profileIsCurrent).toBe(true);
+    const [rev] = await t.ctx.db.select().from(reverifications).where(eq(reverifications.resultVersionId, next.id));
+    expect(rev).toMatchObject({ sequenceVersionId: stale.id, state: 'done' });
+    expect(detail.report!.final).toEqual(rev.report!.final);
+    expect(detail.report!.robustness).toMatchObject({ state: 'done', samples: 1000 });
+    // The trainee reads the truth: it waits for the reviewer after a profile change.
+    expect(stale.recheck?.successor).toEqual({ version: next.version, status: 'under_review', automatic: true });
   });
 
   it('stores samples that the worker\'s code reproduces from the seed (first chunk of every run re-computed)', async () => {
