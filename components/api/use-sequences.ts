@@ -1,4 +1,4 @@
-import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, useInfiniteQuery, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
 import type {
   CompareResponse,
@@ -7,12 +7,14 @@ import type {
   CreateSequenceRequest,
   SaveVersionRequest,
   SequenceDetail,
-  SequenceListItem,
+  SequenceListResponse,
   SequenceSummary,
   SubmitRequest,
   UpdateSequenceRequest,
   VersionDetail,
 } from '@/shared/contracts/maneuver';
+
+import type { VersionStatus } from '@/shared/contracts/version-status';
 
 import { apiFetch } from './client';
 
@@ -20,19 +22,39 @@ import { apiFetch } from './client';
 export const sequenceKeys = {
   all: ['sequences'] as const,
   lists: () => [...sequenceKeys.all, 'list'] as const,
-  list: (crewMemberId: string | undefined, archived = false) => [...sequenceKeys.lists(), crewMemberId ?? 'all', archived ? 'archived' : 'active'] as const,
+  list: (filters: SequenceListFilters) => [...sequenceKeys.lists(), filters] as const,
   detail: (sequenceId: string) => [...sequenceKeys.all, 'detail', sequenceId] as const,
   version: (versionId: string) => [...sequenceKeys.all, 'version', versionId] as const,
   compare: (a: string, b: string) => [...sequenceKeys.all, 'compare', a, b] as const,
   compile: (request: CompileRequest) => [...sequenceKeys.all, 'compile', request] as const,
 };
 
-/** GET /api/sequences — every active (or, with `archived`, every archived) sequence the caller may see, optionally for one crew member. */
-export function useSequencesQuery(crewMemberId?: string, archived = false) {
-  return useQuery({
-    queryKey: sequenceKeys.list(crewMemberId, archived),
-    queryFn: async ({ signal }) =>
-      (await apiFetch<{ sequences: SequenceListItem[] }>('/sequences', { query: { crewMemberId, archived: archived ? 'true' : undefined }, signal })).sequences,
+/** What the maneuver list asks the server for (the shelf, a crew member, a search text, the newest version's status). */
+export interface SequenceListFilters {
+  crewMemberId?: string;
+  archived?: boolean;
+  q?: string;
+  status?: VersionStatus;
+}
+
+/** Maneuvers per page of the list (by name; "Show more" asks for the next). */
+export const SEQUENCE_PAGE_SIZE = 50;
+
+/**
+ * GET /api/sequences — the active (or archived) maneuvers the caller may see that match the
+ * filters, a page at a time by name; `fetchNextPage()` adds the next page.
+ */
+export function useSequencesQuery(filters: SequenceListFilters) {
+  return useInfiniteQuery({
+    queryKey: sequenceKeys.list(filters),
+    queryFn: ({ signal, pageParam }) =>
+      apiFetch<SequenceListResponse>('/sequences', {
+        query: { crewMemberId: filters.crewMemberId, archived: filters.archived ? 'true' : undefined, q: filters.q, status: filters.status, limit: SEQUENCE_PAGE_SIZE, after: pageParam },
+        signal,
+      }),
+    initialPageParam: undefined as string | undefined,
+    getNextPageParam: (last) => last.next ?? undefined,
+    placeholderData: keepPreviousData,
   });
 }
 

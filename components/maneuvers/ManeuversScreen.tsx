@@ -38,18 +38,14 @@ export function ManeuversScreen() {
   const [search, setSearch] = useState('');
   const [creating, setCreating] = useState(false);
   const [shelf, setShelf] = useState<Shelf>('active');
-  const sequences = useSequencesQuery(crewMemberId || undefined, shelf === 'archived');
+  const needle = search.trim();
+  // The server filters and pages (by name): only what the screen shows travels.
+  const sequences = useSequencesQuery({ crewMemberId: crewMemberId || undefined, archived: shelf === 'archived', q: needle || undefined, status: status || undefined });
   const crew = useCrewListQuery('');
   const canCompose = session.data?.role === 'planner' || session.data?.role === 'admin';
+  const filtered = !!needle || !!status;
 
-  const shown = useMemo(() => {
-    const needle = search.trim().toLowerCase();
-    return (sequences.data ?? []).filter(
-      (s) =>
-        (!needle || s.name.toLowerCase().includes(needle) || s.crewMemberName.toLowerCase().includes(needle)) &&
-        (!status || s.latest?.status === status),
-    );
-  }, [sequences.data, search, status]);
+  const shown = useMemo(() => (sequences.data?.pages ?? []).flatMap((p) => p.sequences), [sequences.data]);
 
   return (
     <Screen
@@ -78,19 +74,25 @@ export function ManeuversScreen() {
         </View>
       </View>
       {sequences.isPending ? <LoadingState label="Loading maneuvers…" /> : null}
-      {sequences.isError ? <ErrorBanner title="Could not load the maneuvers" error={sequences.error} onRetry={() => void sequences.refetch()} /> : null}
+      {sequences.isError ? (
+        <ErrorBanner
+          title={sequences.isFetchNextPageError ? 'Could not load more maneuvers' : 'Could not load the maneuvers'}
+          error={sequences.error}
+          onRetry={() => void (sequences.isFetchNextPageError ? sequences.fetchNextPage() : sequences.refetch())}
+        />
+      ) : null}
       {sequences.data && shown.length === 0 ? (
         <EmptyState
           icon="rotate-cw"
-          title={sequences.data.length ? 'No maneuver matches' : shelf === 'archived' ? 'Nothing archived' : 'No maneuvers yet'}
+          title={filtered || crewMemberId ? 'No maneuver matches' : shelf === 'archived' ? 'Nothing archived' : 'No maneuvers yet'}
           body={
-            sequences.data.length
+            filtered || crewMemberId
               ? 'Clear the search or the filters to see every maneuver.'
               : shelf === 'archived'
                 ? 'Archived maneuvers (and those of archived crew members) wait here, with every version and review, until restored.'
                 : 'A maneuver belongs to one crew member and has a target reorientation. Compose it from limb sweeps and let the engine verify it.'
           }
-          action={canCompose && !sequences.data.length && shelf === 'active' ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : undefined}
+          action={canCompose && !filtered && !crewMemberId && shelf === 'active' ? <Button label="New maneuver" icon="plus" onPress={() => setCreating(true)} /> : undefined}
         />
       ) : null}
       <View role="list" aria-label="Maneuvers" style={[gaps.sm, wide && styles.listWide]}>
@@ -100,6 +102,11 @@ export function ManeuversScreen() {
           </View>
         ))}
       </View>
+      {sequences.hasNextPage ? (
+        <View style={styles.more}>
+          <Button label="Show more maneuvers" variant="secondary" loading={sequences.isFetchingNextPage} onPress={() => void sequences.fetchNextPage()} />
+        </View>
+      ) : null}
       <ManeuverCautions compact />
       <CreateSequenceSheet
         visible={creating}
@@ -121,4 +128,5 @@ const styles = StyleSheet.create({
   search: { flexBasis: 260, flexGrow: 2 },
   listWide: { flexDirection: 'row', flexWrap: 'wrap' },
   cellWide: { flexBasis: '48%', flexGrow: 1 },
+  more: { alignItems: 'center' },
 });

@@ -25,8 +25,9 @@ export const sequences = pgTable(
     archivedAt: instant('archived_at'),
     archivedBy: linkTo('archived_by', () => users.id),
   },
-  // A trainee's list and the crew filter select by crew member.
-  (t) => [index('sequences_crew_member_idx').on(t.crewMemberId)],
+  // A trainee's list and the crew filter select by crew member; the maneuver list's order (name,
+  // then id) lets a page be read in index order, stopping at its limit.
+  (t) => [index('sequences_crew_member_idx').on(t.crewMemberId), index('sequences_name_id_idx').on(t.name, t.id)],
 );
 
 /**

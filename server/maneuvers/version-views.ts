@@ -2,13 +2,14 @@
  * Reads versions and sequences as the API shows them (shared/contracts/maneuver.ts), with the
  * names, profile version numbers and latest re-verification joined in.
  */
-import { and, asc, desc, eq, inArray, type SQL, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, type SQL, sql } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, type ReverificationRow, reverifications, reviews, robustnessRuns, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
 import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { levelOf, type RobustnessBrief, type RobustnessState } from '../../shared/contracts/robustness.ts';
+import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { clearedOrFlagged } from './maneuver-access.ts';
 import { readSequenceTarget, readVersionTarget } from './stored-version.ts';
 
@@ -196,12 +197,25 @@ function toBrief(v: { id: string | null; version: number | null; status: string 
   };
 }
 
+/** Narrowing of the list beyond `where`: filters on the newest visible version and a page by name. */
+export interface SequenceListOptions {
+  /** Only maneuvers whose newest visible version has this status. */
+  latestStatus?: VersionStatus;
+  /** Only maneuvers with at least one visible version. */
+  withVersions?: boolean;
+  /** Only maneuvers after this one in the list's order (name, then id). */
+  after?: { name: string; id: string };
+  /** At most this many. */
+  limit?: number;
+}
+
 /**
- * Sequence heads matching `where`, by name, each with its visible version count and briefs of the
- * newest visible version and of the rehearsable one (newest cleared, or a once-cleared recheck
- * one), in one query (index-backed lateral look-ups, whatever the number of versions).
+ * Sequence heads matching `where`, by name (then id), each with its visible version count and
+ * briefs of the newest visible version and of the rehearsable one (newest cleared, or a
+ * once-cleared recheck one), in one query (index-backed lateral look-ups, whatever the number of
+ * versions; with a limit, the look-ups run for that page only).
  */
-export async function sequenceListRows(db: Database, where: SQL | undefined, visible: SQL | undefined): Promise<SequenceListRow[]> {
+export async function sequenceListRows(db: Database, where: SQL | undefined, visible: SQL | undefined, options: SequenceListOptions = {}): Promise<SequenceListRow[]> {
   const ofSequence = eq(sequenceVersions.sequenceId, sequences.id);
   // The newest robustness run of the version, as one JSON value (state, progress, feedback p95 and tolerance).
   const run = sql<RobustnessListRow | null>`(SELECT jsonb_build_object('id', r.id, 'state', r.state, 'samples', r.samples, 'doneSamples', r.done_samples,
@@ -214,7 +228,8 @@ export async function sequenceListRows(db: Database, where: SQL | undefined, vis
     .where(allOf(ofSequence, visible, clearedOrFlagged()))
     .orderBy(desc(sequenceVersions.version)).limit(1).as('cleared');
   const count = sql<number>`(SELECT count(*)::int FROM ${sequenceVersions} WHERE ${allOf(ofSequence, visible)})`;
-  const rows = await db
+  const { latestStatus, withVersions, after, limit } = options;
+  const query = db
     .select({
       s: sequences, crewMemberName: crewMembers.name, versionCount: count,
       latest: { id: latest.id, version: latest.version, status: latest.status, summary: latest.summary, robustness: sql<RobustnessListRow | null>`"latest"."robustness"` },
@@ -224,8 +239,14 @@ export async function sequenceListRows(db: Database, where: SQL | undefined, vis
     .innerJoin(crewMembers, eq(crewMembers.id, sequences.crewMemberId))
     .leftJoinLateral(latest, sql`true`)
     .leftJoinLateral(cleared, sql`true`)
-    .where(where)
-    .orderBy(asc(sequences.name));
+    .where(allOf(
+      where,
+      latestStatus ? eq(latest.status, latestStatus) : undefined,
+      withVersions ? isNotNull(latest.id) : undefined,
+      after ? sql`(${sequences.name}, ${sequences.id}) > (${after.name}, ${after.id}::uuid)` : undefined,
+    ))
+    .orderBy(asc(sequences.name), asc(sequences.id));
+  const rows = await (limit === undefined ? query : query.limit(limit));
   return rows.map(({ s, crewMemberName, versionCount, latest: l, cleared: c }) => ({
     head: { id: s.id, crewMemberId: s.crewMemberId, crewMemberName, name: s.name, target: readSequenceTarget(s.id, s.target), createdAt: s.createdAt.toISOString(), archivedAt: s.archivedAt?.toISOString() ?? null },
     versionCount, latest: l ? toBrief(l) : null, cleared: c ? toBrief(c) : null,

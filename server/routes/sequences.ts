@@ -3,14 +3,14 @@
  * (shapes in shared/contracts/maneuver.ts). The area is open to every role; object-level rules are
  * in server/maneuvers/maneuver-access.ts.
  */
-import { and, eq, inArray, isNotNull, isNull, or, type SQL } from 'drizzle-orm';
+import { and, eq, ilike, inArray, isNotNull, isNull, or, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
 import { z } from 'zod';
 
 import { crewMembers, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import {
-  compileRequestSchema,   type CompileResponse, createSequenceRequestSchema, saveVersionRequestSchema, type SequenceDetail, type SequenceListItem, type SequenceSummary, submitRequestSchema, updateSequenceRequestSchema,
+  compileRequestSchema,   type CompileResponse, createSequenceRequestSchema, saveVersionRequestSchema, type SequenceDetail, type SequenceListItem, sequenceListQuerySchema, type SequenceListResponse, type SequenceSummary, submitRequestSchema, updateSequenceRequestSchema,
 type VersionSummary,
 } from '../../shared/contracts/maneuver.ts';
 import { DOF_NAMES } from '../../shared/model/dof-names.ts';
@@ -40,11 +40,32 @@ const uuid = z.uuid('Not a valid id.');
 const sequenceParams = z.object({ sequenceId: uuid });
 const versionParams = z.object({ versionId: uuid });
 const compareParams = z.object({ versionId: uuid, otherVersionId: uuid });
-const listQuery = z.object({
-  crewMemberId: uuid.optional(),
-  /** `true` lists the archived maneuvers (and those of archived crew members) instead of the active ones. */
-  archived: z.enum(['true', 'false'], { error: 'archived: use true or false.' }).optional().transform((v) => v === 'true'),
-});
+/** A list page's mark: the last maneuver's name and id, as the client got it in `next`. */
+const pageMarkSchema = z.tuple([z.string(), z.uuid()]);
+
+/** `next` of a page ending at `head`. */
+function pageMark(head: { name: string; id: string }): string {
+  return Buffer.from(JSON.stringify([head.name, head.id])).toString('base64url');
+}
+
+/** The position a page mark names; 400 naming `after` when it is not one. */
+function readPageMark(mark: string): { name: string; id: string } {
+  let parsed: unknown;
+  try {
+    parsed = JSON.parse(Buffer.from(mark, 'base64url').toString('utf8'));
+  } catch {
+    parsed = undefined;
+  }
+  const ok = pageMarkSchema.safeParse(parsed);
+  if (!ok.success) throw badRequest('after: not a page mark of this list (use the previous page’s next).', 'after');
+  return { name: ok.data[0], id: ok.data[1] };
+}
+
+/** Maneuvers whose name or crew member's name contains `text`, any case (LIKE's wildcards taken literally). */
+function nameContains(text: string): SQL | undefined {
+  const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  return or(ilike(sequences.name, pattern), ilike(crewMembers.name, pattern));
+}
 
 /** The standard model's unsuited dof ranges (compile previews without a crew member). */
 const STANDARD_DOFS: DofInfo[] = DOF_NAMES.map((name) => ({ name, ...UNSUITED_DOF_RANGES[name] }));
@@ -67,28 +88,41 @@ export function sequencesRouter(ctx: AppContext): Router {
   const { db } = ctx;
   const reads = new ReadCache();
 
-  /** The list's rows (heads, version counts, briefs of the newest and rehearsable versions) in one query, by name. */
-  function listRows(user: SessionUser, sequenceIds?: string[], crewMemberId?: string, archived?: boolean) {
-    return sequenceListRows(db, allOf(
-      visibleSequences(user),
-      crewMemberId ? eq(sequences.crewMemberId, crewMemberId) : undefined,
-      archived === undefined ? undefined : archivedCondition(archived),
-      sequenceIds ? inArray(sequences.id, sequenceIds) : undefined,
-    ), visibleVersions(user));
+  /** The list's rows of these sequences (heads, version counts, briefs of the newest and rehearsable versions) in one query. */
+  function listRows(user: SessionUser, sequenceIds: string[]) {
+    return sequenceListRows(db, allOf(visibleSequences(user), inArray(sequences.id, sequenceIds)), visibleVersions(user));
   }
 
-  /** GET /sequences: the lean list, one query (a trainee sees only sequences with something to rehearse). */
-  async function listItems(user: SessionUser, crewMemberId?: string, archived?: boolean): Promise<SequenceListItem[]> {
-    const rows = await listRows(user, undefined, crewMemberId, archived);
-    const out = rows.map((r) => ({ ...r.head, versionCount: r.versionCount, latest: r.latest, cleared: r.cleared }));
-    return user.role === 'trainee' ? out.filter((s) => s.versionCount > 0) : out;
+  /**
+   * GET /sequences: the lean list or one page of it, one query (a trainee sees only sequences with
+   * something to rehearse).
+   */
+  async function listPage(user: SessionUser, query: z.output<typeof sequenceListQuerySchema>): Promise<SequenceListResponse> {
+    const { crewMemberId, archived, q, status, limit, after } = query;
+    const rows = await sequenceListRows(db, allOf(
+      visibleSequences(user),
+      crewMemberId ? eq(sequences.crewMemberId, crewMemberId) : undefined,
+      archivedCondition(archived),
+      q ? nameContains(q) : undefined,
+    ), visibleVersions(user), {
+      latestStatus: status, withVersions: user.role === 'trainee', after: after === undefined ? undefined : readPageMark(after),
+      // One more than the page tells whether another page follows.
+      limit: limit === undefined ? undefined : limit + 1,
+    });
+    const more = limit !== undefined && rows.length > limit;
+    const page = more ? rows.slice(0, limit) : rows;
+    const items: SequenceListItem[] = page.map((r) => ({
+      id: r.head.id, name: r.head.name, crewMemberName: r.head.crewMemberName, target: r.head.target, latest: r.latest,
+      cleared: r.cleared && { id: r.cleared.id, version: r.cleared.version, status: r.cleared.status },
+    }));
+    return { sequences: items, next: more ? pageMark(page[page.length - 1].head) : null };
   }
 
   /**
    * Full sequence summaries (what creating or renaming one answers): the list's query, then one for
    * the full summaries of its newest and rehearsable versions.
    */
-  async function summaries(user: SessionUser, sequenceIds?: string[]): Promise<SequenceSummary[]> {
+  async function summaries(user: SessionUser, sequenceIds: string[]): Promise<SequenceSummary[]> {
     const rows = await listRows(user, sequenceIds);
     const ids = [...new Set(rows.flatMap((r) => [r.latest?.id, r.cleared?.id]).filter((id) => id !== undefined))];
     const versions = ids.length ? (await versionSummaries(db, inArray(sequenceVersions.id, ids))).summaries : [];
@@ -110,9 +144,9 @@ export function sequencesRouter(ctx: AppContext): Router {
     return { ...head, versionCount: versions.length, latest: versions[0] ?? null, cleared: rehearsable(versions), versions };
   }
 
-  router.get('/', validate({ query: listQuery }), async (req, res) => {
-    const { crewMemberId, archived } = res.locals.query;
-    await sendCachedJson(reads, req, res, async () => ({ sequences: await listItems(req.user!, crewMemberId, archived) }));
+  router.get('/', validate({ query: sequenceListQuerySchema }), async (req, res) => {
+    const query = res.locals.query;
+    await sendCachedJson(reads, req, res, () => listPage(req.user!, query));
   });
 
   router.post('/', validate({ body: createSequenceRequestSchema }), async (req, res) => {

@@ -448,15 +448,49 @@ export const versionBriefSchema = z.object({
 });
 export type VersionBrief = z.infer<typeof versionBriefSchema>;
 
-/** GET /sequences: a maneuver in the list (lean: the newest and the rehearsable version as briefs). */
-export const sequenceListItemSchema = sequenceHeadSchema.extend({
-  versionCount: z.number().int(),
+/** A version named in a list: which one and its status (the maneuver list's rehearsable version). */
+export const versionRefSchema = versionBriefSchema.pick({ id: true, version: true, status: true });
+export type VersionRef = z.infer<typeof versionRefSchema>;
+
+/**
+ * GET /sequences: a maneuver in the list, lean — what the list screen shows (name, crew member,
+ * target, the newest version's status and headline figures, the rehearsable version when it is
+ * another); the rest on opening it.
+ */
+export const sequenceListItemSchema = sequenceHeadSchema.pick({ id: true, crewMemberName: true, name: true, target: true }).extend({
   /** The newest version the caller may see. */
   latest: versionBriefSchema.nullable(),
   /** The cleared (or recheck, once cleared) version trainees rehearse, if any. */
-  cleared: versionBriefSchema.nullable(),
+  cleared: versionRefSchema.nullable(),
 });
 export type SequenceListItem = z.infer<typeof sequenceListItemSchema>;
+
+/** Most maneuvers one page of the list holds. */
+export const SEQUENCE_PAGE_MAX = 200;
+
+/**
+ * GET /sequences query: filters (crew member, shelf, a search in the maneuver's and crew member's
+ * names, the newest version's status) and, with `limit`, one page by name (`after`: the previous
+ * page's `next`). Without `limit` every match comes at once.
+ */
+export const sequenceListQuerySchema = z.object({
+  crewMemberId: z.uuid('crewMemberId: not a valid id.').optional(),
+  /** `true` lists the archived maneuvers (and those of archived crew members) instead of the active ones. */
+  archived: z.enum(['true', 'false'], { error: 'archived: use true or false.' }).optional().transform((v) => v === 'true'),
+  /** Part of a maneuver's or crew member's name, any case. */
+  q: z.string().trim().max(200, 'q: at most 200 characters.').optional().transform((v) => v || undefined),
+  status: versionStatusSchema.optional(),
+  limit: z.coerce.number({ error: 'limit: a whole number.' }).int('limit: a whole number.').min(1, 'limit: at least 1.').max(SEQUENCE_PAGE_MAX, `limit: at most ${SEQUENCE_PAGE_MAX}.`).optional(),
+  after: z.string().max(1000, 'after: not a page mark of this list.').optional(),
+});
+export type SequenceListQuery = z.input<typeof sequenceListQuerySchema>;
+
+/** GET /sequences answer: the maneuvers by name; `next` asks for the following page (null: no more). */
+export const sequenceListResponseSchema = z.object({
+  sequences: z.array(sequenceListItemSchema),
+  next: z.string().nullable(),
+});
+export type SequenceListResponse = z.infer<typeof sequenceListResponseSchema>;
 
 /** GET /sequences/:sequenceId */
 export const sequenceDetailSchema = sequenceSummarySchema.extend({

@@ -1,0 +1,1 @@
+CREATE INDEX "sequences_name_id_idx" ON "sequences" USING btree ("name","id");
