@@ -13,7 +13,6 @@ import type {
   UpdateSequenceRequest,
   VersionDetail,
 } from '@/shared/contracts/maneuver';
-
 import type { VersionStatus } from '@/shared/contracts/version-status';
 
 import { apiFetch } from './client';

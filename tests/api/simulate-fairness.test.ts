@@ -8,14 +8,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
-import type { SequenceSummary } from '../../shared/contracts/maneuver.ts';
+import type { SequenceListItem } from '../../shared/contracts/maneuver.ts';
 import type { SimulationResult } from '../../shared/contracts/result.ts';
 import { loadBody } from '../engine/fixtures.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them.
-type SequencesBody = { sequences: SequenceSummary[] };
+type SequencesBody = { sequences: SequenceListItem[] };
 
 let t: TestApp;
 const staff = (role: string, i = 0) => DEMO_PEOPLE.filter((p) => p.role === role)[i].email;

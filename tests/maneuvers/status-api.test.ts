@@ -8,14 +8,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, reviews, sequenceVersions } from '../../db/schema/index.ts';
 import { ENGINE_VERSION } from '../../server/engine/version.ts';
-import type { CompareResponse, ReviewQueueItem, SequenceDetail, SequenceSummary, VersionDetail } from '../../shared/contracts/maneuver.ts';
+import type { CompareResponse, ReviewQueueItem, SequenceDetail, SequenceListItem, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from './maneuver-api.ts';
 
 // Response bodies as the web client reads them.
 type ItemsBody = { items: ReviewQueueItem[] };
-type SequencesBody = { sequences: SequenceSummary[] };
+type SequencesBody = { sequences: SequenceListItem[] };
 
 let t: TestApp;
 let crew: string;
