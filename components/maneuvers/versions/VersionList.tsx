@@ -62,7 +62,12 @@ export function VersionList({ versions, selectedId, onOpen }: VersionListProps) 
               Cleared by {v.clearedByName} · {fmtWhen(v.clearedAt)}
             </Text>
           ) : null}
-          {v.status === 'recheck' && v.reverification ? (
+          {v.reverification?.outcome ? (
+            // What a finished re-verification concluded in words (an engine change: unchanged, or sent to re-check).
+            <Text variant="caption" tone={v.status === 'recheck' ? 'danger' : 'muted'} testID="reverification-outcome">
+              {v.reverification.outcome}
+            </Text>
+          ) : v.status === 'recheck' && v.reverification ? (
             <Text variant="caption" tone="danger">
               Profile changed: {v.reverification.state === 'done' ? `final attitude moved ${fmtDeg(v.reverification.attitudeShiftDeg ?? 0, 2)}`
                 : v.reverification.state === 'cancelled' ? 'recomputation stopped' : v.reverification.state === 'failed' ? 'recomputation failed' : `recomputing (${v.reverification.state})`}
