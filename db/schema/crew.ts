@@ -1,7 +1,7 @@
 import { boolean, integer, jsonb, pgTable, text, unique } from 'drizzle-orm/pg-core';
 
 import type { Body } from '../../shared/contracts/body.ts';
-import type { ProfileSummary, StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
+import { PROFILE_SOURCES, type ProfileSummary, type StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
 import type { SuitConfig } from '../../shared/contracts/suit.ts';
 import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { users } from './users.ts';
@@ -44,7 +44,7 @@ export const profileVersions = pgTable(
     id: rowId(),
     crewMemberId: linkTo('crew_member_id', () => crewMembers.id).notNull(),
     version: integer('version').notNull(),
-    source: text('source').notNull().default('regression'),
+    source: text('source', { enum: PROFILE_SOURCES }).notNull().default('regression'),
     inputs: jsonb('inputs').$type<StoredProfileInputs>().notNull(),
     body: jsonb('body').$type<Body>().notNull(),
     summary: jsonb('summary').$type<ProfileSummary>().notNull(),

@@ -1,7 +1,7 @@
 import { doublePrecision, index, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
 import type { SequenceTargetInput } from '../../shared/contracts/maneuver.ts';
-import type { PlanCandidate, PlanSettings } from '../../shared/contracts/plan.ts';
+import { PLAN_STATES,type PlanCandidate, type PlanSettings } from '../../shared/contracts/plan.ts';
 import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { profileVersions } from './crew.ts';
 import { sequences } from './sequences.ts';
@@ -19,8 +19,7 @@ export const plans = pgTable(
   // The body the plan used (the crew member's current profile version when requested).
   profileVersionId: linkTo('profile_version_id', () => profileVersions.id).notNull(),
   requestedBy: linkTo('requested_by', () => users.id),
-  // queued | running | done | failed
-  state: text('state').notNull().default('queued'),
+  state: text('state', { enum: PLAN_STATES }).notNull().default('queued'),
   // The sequence target at request time (SequenceTarget JSON).
   target: jsonb('target').$type<SequenceTargetInput>().notNull(),
   // PlanSettings JSON.

@@ -1,6 +1,6 @@
 import { doublePrecision, index, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
-import type { BvhMapping } from '../../shared/contracts/recording.ts';
+import { type BvhMapping, RECORDING_SOURCES } from '../../shared/contracts/recording.ts';
 import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { crewMembers } from './crew.ts';
 import { uploads } from './uploads.ts';
@@ -18,7 +18,7 @@ export const recordings = pgTable(
     uploadId: linkTo('upload_id', () => uploads.id).notNull(),
     name: text('name').notNull(),
     // joint_angles_csv | bvh
-    source: text('source').notNull(),
+    source: text('source', { enum: RECORDING_SOURCES }).notNull(),
     crewMemberId: linkTo('crew_member_id', () => crewMembers.id),
     rateHz: doublePrecision('rate_hz').notNull(),
     dofs: jsonb('dofs').$type<string[]>().notNull(),

@@ -1,6 +1,7 @@
 import { bigint, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, uuid } from 'drizzle-orm/pg-core';
 
-import type { RobustnessModel } from '../../shared/contracts/robustness.ts';
+import { ROBUSTNESS_STATES,type RobustnessModel } from '../../shared/contracts/robustness.ts';
+import type { RobustnessFigures, RobustnessRunInputs, RobustnessSample } from '../../shared/contracts/robustness-stored.ts';
 import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { plans } from './plans.ts';
 import { sequenceVersions } from './sequences.ts';
@@ -19,19 +20,18 @@ export const robustnessRuns = pgTable(
     sequenceVersionId: linkTo('sequence_version_id', () => sequenceVersions.id),
     planId: linkTo('plan_id', () => plans.id),
     candidateIndex: integer('candidate_index'),
-    // queued | running | done | failed | cancelled
-    state: text('state').notNull().default('queued'),
+    state: text('state', { enum: ROBUSTNESS_STATES }).notNull().default('queued'),
     samples: integer('samples').notNull(),
     chunkSize: integer('chunk_size').notNull(),
     seed: bigint('seed', { mode: 'number' }).notNull(),
     // RobustnessModel JSON.
     model: jsonb('model').$type<RobustnessModel>().notNull(),
     toleranceDeg: doublePrecision('tolerance_deg').notNull(),
-    // { body, sequence, target } JSON (RobustnessInputs without seed, model and tolerance).
-    inputs: jsonb('inputs').notNull(),
+    // { body, sequence, target } (RobustnessInputs without seed, model and tolerance).
+    inputs: jsonb('inputs').$type<RobustnessRunInputs>().notNull(),
     doneSamples: integer('done_samples').notNull().default(0),
-    // RobustnessFigures JSON once done.
-    figures: jsonb('figures'),
+    // Once done.
+    figures: jsonb('figures').$type<RobustnessFigures>(),
     error: text('error'),
     requestedBy: linkTo('requested_by', () => users.id),
     createdAt: createdAt(),
@@ -51,10 +51,9 @@ export const robustnessChunks = pgTable(
     chunkIndex: integer('chunk_index').notNull(),
     fromSample: integer('from_sample').notNull(),
     toSample: integer('to_sample').notNull(),
-    // queued | running | done | failed | cancelled
-    state: text('state').notNull().default('queued'),
-    // RobustnessSample[] JSON once done.
-    results: jsonb('results'),
+    state: text('state', { enum: ROBUSTNESS_STATES }).notNull().default('queued'),
+    // Once done.
+    results: jsonb('results').$type<RobustnessSample[]>(),
     attempts: integer('attempts').notNull().default(0),
     error: text('error'),
     finishedAt: instant('finished_at'),

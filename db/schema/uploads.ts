@@ -1,6 +1,6 @@
 import { integer, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
-import type { UploadRowError } from '../../shared/contracts/uploads.ts';
+import { UPLOAD_KINDS, UPLOAD_STATUSES, type UploadRowError } from '../../shared/contracts/uploads.ts';
 import { createdAt, linkTo, rowId } from './columns.ts';
 import { users } from './users.ts';
 
@@ -8,14 +8,14 @@ import { users } from './users.ts';
 export const uploads = pgTable('uploads', {
   id: rowId(),
   // measurements_csv | segment_table_csv | segment_table_json | joint_angles_csv
-  kind: text('kind').notNull(),
+  kind: text('kind', { enum: UPLOAD_KINDS }).notNull(),
   objectKey: text('object_key').notNull().unique(),
   fileName: text('file_name').notNull(),
   contentType: text('content_type').notNull(),
   sizeBytes: integer('size_bytes').notNull(),
   sha256: text('sha256').notNull(),
   // imported | rejected
-  status: text('status').notNull(),
+  status: text('status', { enum: UPLOAD_STATUSES }).notNull(),
   rowCount: integer('row_count').notNull().default(0),
   errors: jsonb('errors').$type<UploadRowError[]>().notNull().default([]),
   uploadedBy: linkTo('uploaded_by', () => users.id),

@@ -14,8 +14,9 @@ import { fileURLToPath } from 'node:url';
 import { recordAudit } from '../../server/audit/record-audit.ts';
 import { createRobustnessRun, DEFAULT_ROBUSTNESS_SAMPLES, DEFAULT_ROBUSTNESS_SEED, defaultChunkSize, type NewRun } from '../../server/jobs/robustness/robustness-runs.ts';
 import { canonicalJson } from '../../server/maneuvers/inputs-hash.ts';
-import { type RobustnessSample,summariseRobustness } from '../../server/planning/robustness.ts';
+import { summariseRobustness } from '../../server/planning/robustness.ts';
 import { DEFAULT_ROBUSTNESS_MODEL, type RobustnessModel } from '../../shared/contracts/robustness.ts';
+import type { RobustnessSample } from '../../shared/contracts/robustness-stored.ts';
 import type { Database } from '../client.ts';
 import { robustnessChunks, robustnessRuns } from '../schema/index.ts';
 
@@ -87,13 +88,13 @@ export async function seedVersionRobustness(db: Database, versionId: string, run
   await db.transaction(async (tx) => {
     const [row] = await tx.insert(robustnessRuns).values({
       sequenceVersionId: versionId, samples: inputs.samples, chunkSize, seed: inputs.seed, model: inputs.model,
-      toleranceDeg: inputs.toleranceDeg, inputs: { body: inputs.body, sequence: inputs.sequence, target: inputs.target },
+      toleranceDeg: inputs.toleranceDeg, inputs: { body: inputs.body, sequence: inputs.sequence, target: [...inputs.target] },
       state: 'done', doneSamples: inputs.samples, figures, requestedBy, createdAt: at, startedAt: at, finishedAt: at,
     }).returning({ id: robustnessRuns.id });
     const chunks = [];
     for (let from = 0, i = 0; from < inputs.samples; from += chunkSize, i++) {
       const to = Math.min(inputs.samples, from + chunkSize);
-      chunks.push({ runId: row.id, chunkIndex: i, fromSample: from, toSample: to, state: 'done', results: samples.slice(from, to), attempts: 1, finishedAt: at });
+      chunks.push({ runId: row.id, chunkIndex: i, fromSample: from, toSample: to, state: 'done' as const, results: samples.slice(from, to), attempts: 1, finishedAt: at });
     }
     await tx.insert(robustnessChunks).values(chunks);
     await recordAudit(tx, {

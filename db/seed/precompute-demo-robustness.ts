@@ -9,12 +9,9 @@ import os from 'node:os';
 import path from 'node:path';
 
 import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
+import { storedRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
 import { robustnessSamples } from '../../server/planning/robustness.ts';
 import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
-import type { Body } from '../../shared/contracts/body.ts';
-import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
-import { sequenceSchema } from '../../shared/contracts/sequence.ts';
-import type { Quat } from '../../shared/math/quaternion.ts';
 import { createDatabase } from '../client.ts';
 import { runMigrations } from '../migrate.ts';
 import { robustnessRuns } from '../schema/index.ts';
@@ -35,11 +32,7 @@ try {
   const old = loadDemoRobustness();
   const out: DemoRobustnessFile = {};
   for (const run of runs) {
-    const stored = run.inputs as { body: Body; sequence: unknown; target: Quat };
-    const inputs: DemoRunInputs = {
-      body: stored.body, sequence: sequenceSchema.parse(stored.sequence), target: stored.target, toleranceDeg: run.toleranceDeg,
-      samples: run.samples, seed: run.seed, model: robustnessModelSchema.parse(run.model),
-    };
+    const inputs: DemoRunInputs = { ...storedRunInputs(run), samples: run.samples };
     const key = demoRunKey(inputs);
     if (old[key]) { out[key] = old[key]; continue; }
     const t0 = performance.now();

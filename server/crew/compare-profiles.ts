@@ -1,3 +1,4 @@
+import type { SegmentLengthKey } from '../../shared/contracts/profile-inputs.ts';
 import type { ComparisonRow, ProfileComparison, ProfileVersionView } from '../../shared/contracts/profile-version.ts';
 import { SEGMENT_LABELS, type SegmentName } from '../../shared/model/segment-names.ts';
 
@@ -22,7 +23,7 @@ function row(key: string, label: string, unit: string, a: Value, b: Value): Comp
   return { key, label, unit, a, b, changed: differs(a, b) };
 }
 
-const LENGTH_LABELS: Record<string, string> = {
+const LENGTH_LABELS: Record<SegmentLengthKey, string> = {
   head: 'Head length', upperTrunk: 'Upper trunk length', middleTrunk: 'Middle trunk length', lowerTrunk: 'Lower trunk length',
   upperArm: 'Upper arm length', forearm: 'Forearm length', hand: 'Hand length', thigh: 'Thigh length', shank: 'Shank length',
   foot: 'Foot length', ankleHeight: 'Ankle height',
@@ -41,9 +42,9 @@ function inputRows(a: ProfileVersionView, b: ProfileVersionView): ComparisonRow[
     row('inputs.hipBreadth', 'Hip joint spacing', 'm', ia.hipBreadth ?? null, ib.hipBreadth ?? null),
   ];
   const lengthKeys = new Set([...Object.keys(ia.lengths ?? {}), ...Object.keys(ib.lengths ?? {})]);
-  for (const k of Object.keys(LENGTH_LABELS).filter((key) => lengthKeys.has(key))) {
-    const la = (ia.lengths as Record<string, number> | undefined)?.[k] ?? null;
-    const lb = (ib.lengths as Record<string, number> | undefined)?.[k] ?? null;
+  for (const k of (Object.keys(LENGTH_LABELS) as SegmentLengthKey[]).filter((key) => lengthKeys.has(key))) {
+    const la = ia.lengths?.[k] ?? null;
+    const lb = ib.lengths?.[k] ?? null;
     rows.push(row(`inputs.lengths.${k}`, `${LENGTH_LABELS[k]} (measured)`, 'm', la, lb));
   }
   rows.push(row('inputs.suit', 'Suit', '', ia.suit?.name ?? null, ib.suit?.name ?? null));

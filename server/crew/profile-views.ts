@@ -1,6 +1,7 @@
 import type { CrewMemberRow, ProfileVersionRow } from '../../db/schema/index.ts';
 import type { CrewMemberView } from '../../shared/contracts/crew.ts';
-import type { ProfileSource, ProfileVersionHeader, ProfileVersionView } from '../../shared/contracts/profile-version.ts';
+import type { ProfileVersionHeader, ProfileVersionView } from '../../shared/contracts/profile-version.ts';
+import { profileBody, profileInputs, profileSummary } from './profile-row.ts';
 
 /** What a crew member's list entry shows of the current profile version. */
 export interface CurrentGlimpse {
@@ -11,7 +12,7 @@ export interface CurrentGlimpse {
 
 /** The glimpse of a full version row. */
 export function glimpseOf(row: ProfileVersionRow): CurrentGlimpse {
-  return { mass: row.summary.mass, suitName: row.inputs.suit?.name ?? null };
+  return { mass: profileSummary(row).mass, suitName: profileInputs(row).suit?.name ?? null };
 }
 
 /** A crew member for the API, with a glimpse of the current version (null before the first save). */
@@ -30,27 +31,28 @@ export function crewMemberView(row: CrewMemberRow, current: CurrentGlimpse | nul
 }
 
 /** A version without its body, for history lists. */
-export function profileVersionHeader(row: ProfileVersionRow, authorName: string | null, currentVersion: number | null): ProfileVersionHeader {
+export function profileVersionHeader(row: ProfileVersionRow, authorName: string | null, currentVersion: number | null, summary = profileSummary(row)): ProfileVersionHeader {
   return {
     id: row.id,
     crewMemberId: row.crewMemberId,
     version: row.version,
-    source: row.source as ProfileSource,
+    source: row.source,
     note: row.note,
     engineVersion: row.engineVersion,
     authorName,
     createdAt: row.createdAt.toISOString(),
-    mass: row.summary.mass,
+    mass: summary.mass,
     current: row.version === currentVersion,
   };
 }
 
 /** A full version: inputs, derived body and summary. */
 export function profileVersionView(row: ProfileVersionRow, authorName: string | null, currentVersion: number | null): ProfileVersionView {
+  const summary = profileSummary(row);
   return {
-    ...profileVersionHeader(row, authorName, currentVersion),
-    inputs: row.inputs,
-    body: row.body,
-    summary: row.summary,
+    ...profileVersionHeader(row, authorName, currentVersion, summary),
+    inputs: profileInputs(row),
+    body: profileBody(row),
+    summary,
   };
 }

@@ -116,7 +116,7 @@ export async function retryBackgroundWork(ctx: AppContext, kind: WorkKind, id: s
   const jobs = ctx.jobs;
   if (!jobs) throw new HttpError(503, 'queue_unavailable', 'The job queue is not running in this process.');
   await requireExists(ctx, kind, id);
-  const failedStates = ['failed', 'cancelled'];
+  const failedStates: ('failed' | 'cancelled')[] = ['failed', 'cancelled'];
   let reopened = false;
   if (kind === 'plan') {
     const rows = await ctx.db.update(plans).set({ state: 'queued', error: null, progress: 0, progressNote: '', finishedAt: null })

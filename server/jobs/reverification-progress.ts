@@ -7,7 +7,7 @@
 import { and, desc, eq, inArray } from 'drizzle-orm';
 
 import { profileVersions, reverifications, sequences, sequenceVersions } from '../../db/schema/index.ts';
-import type { Reverification, ReverificationProgress } from '../../shared/contracts/maneuver.ts';
+import type { ReverificationProgress } from '../../shared/contracts/maneuver.ts';
 import type { AppContext } from '../app-context.ts';
 import { cancelJobs } from './background-work.ts';
 import { REVERIFY_QUEUE } from './queue-names.ts';
@@ -38,7 +38,7 @@ export async function reverificationProgress(ctx: AppContext, crewMemberId: stri
     .orderBy(sequences.name, sequenceVersions.version);
   const out: ReverificationProgress = { ...empty, toProfileVersionId: target.id, toProfileVersion: target.version };
   for (const { r, sequenceId, name, version } of rows) {
-    const state = r.state as Reverification['state'];
+    const state = r.state;
     out[state]++;
     out.total++;
     out.items.push({ id: r.id, sequenceId, sequenceName: name, version, state, attitudeShiftDeg: r.attitudeShiftDeg, error: r.error });

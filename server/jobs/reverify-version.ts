@@ -11,9 +11,11 @@
 import { and, desc, eq, ne, notInArray } from 'drizzle-orm';
 
 import { profileVersions, reverifications, sequenceVersions } from '../../db/schema/index.ts';
+import type { Reverification } from '../../shared/contracts/maneuver.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
+import { profileBody } from '../crew/profile-row.ts';
 import { compareUnderEngine, engineOutcome } from '../maneuvers/engine-recheck.ts';
 import { afterRecheckSaved, type RecheckSaved, saveRecheckVersion } from '../maneuvers/recheck-version.ts';
 import { readStoredCompiled, readStoredReport, readVersionTarget } from '../maneuvers/stored-version.ts';
@@ -26,7 +28,7 @@ export interface ReverifyJob {
 }
 
 const DEG = 180 / Math.PI;
-const notIn = (states: string[]) => notInArray(reverifications.state, states);
+const notIn = (states: Reverification['state'][]) => notInArray(reverifications.state, states);
 /** A cancelled record keeps its end state: no later write of a job reopens it. */
 const notCancelled = () => notIn(['cancelled']);
 
@@ -64,7 +66,7 @@ export async function reverifyVersion(ctx: AppContext, job: ReverifyJob, opts: {
     const compiled = readStoredCompiled(v.v.id, v.v.compiled);
     // The version's own target (a re-check verifies what was cleared, not the sequence's next default).
     const target = readVersionTarget(v.v.id, v.v.target);
-    const report = await verifySequence({ body: profile.body, sequence: compiled.sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product, stepMap: compiled.stepMap });
+    const report = await verifySequence({ body: profileBody(profile), sequence: compiled.sequence, target, profileVersionId: profile.id, pool: ctx.simulation.product, stepMap: compiled.stepMap });
     const old = readStoredReport(v.v.id, v.v.report);
     const shift = old
       ? quatAngleBetween([old.final.attitude.w, old.final.attitude.x, old.final.attitude.y, old.final.attitude.z],

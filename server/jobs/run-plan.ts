@@ -10,10 +10,12 @@
 import { and, eq, inArray } from 'drizzle-orm';
 
 import { plans, profileVersions } from '../../db/schema/index.ts';
+import { readStored } from '../../db/stored-json.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import { planRequestSchema } from '../../shared/contracts/plan.ts';
+import { planRequestSchema, type PlanState } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
+import { profileBody } from '../crew/profile-row.ts';
 import { ENGINE_VERSION } from '../engine/version.ts';
 import { PlanStoppedError, PlanUnreachableError, runPlannerThread } from '../planning/run-planner-thread.ts';
 import { PLAN_QUEUE } from './queue-names.ts';
@@ -23,7 +25,7 @@ export interface PlanJob {
   planId: string;
 }
 
-const OPEN = ['queued', 'running'];
+const OPEN: PlanState[] = ['queued', 'running'];
 const isOpen = (id: string) => and(eq(plans.id, id), inArray(plans.state, OPEN));
 
 /** Least time between progress writes, ms. */
@@ -62,9 +64,9 @@ export async function runPlan(ctx: AppContext, job: PlanJob, opts: { signal?: Ab
     const [profile] = await db.select().from(profileVersions).where(eq(profileVersions.id, plan.profileVersionId));
     if (!profile) throw new Error(`profile version ${plan.profileVersionId} not found`);
     const { candidates, notes } = await runPlannerThread({
-      body: profile.body,
-      target: sequenceTargetSchema.parse(plan.target),
-      settings: planRequestSchema.parse(plan.settings),
+      body: profileBody(profile),
+      target: readStored(sequenceTargetSchema, plan.target, 'plans.target'),
+      settings: readStored(planRequestSchema, plan.settings, 'plans.settings'),
     }, onProgress, undefined, stop.signal);
     await pending;
     await db.transaction(async (tx) => {

@@ -33,7 +33,7 @@ export async function recheckInfos(db: Database, stale: readonly StaleRow[]): Pr
       // A re-verification on the version's own profile is an engine change's (a profile change always brings a newer one).
       cause: rev && rev.from === rev.to ? 'engine' : 'profile',
       staleSince: s.staleSince?.toISOString() ?? null,
-      reverification: rev ? { state: rev.state as NonNullable<RecheckInfo['reverification']>['state'], attitudeShiftDeg: rev.shift, error: rev.error } : null,
+      reverification: rev ? { state: rev.state, attitudeShiftDeg: rev.shift, error: rev.error } : null,
       successor: next ? { version: next.version, status: next.status, automatic: next.recheckOfId === s.id } : null,
     });
   }

@@ -11,7 +11,6 @@ import { auditEvents, crewMembers, reviews, sequences, type SequenceVersionRow,s
 import type { SessionUser } from '../../shared/contracts/auth.ts';
 import type { Body } from '../../shared/contracts/body.ts';
 import type { SequenceTarget, StoredCompiled } from '../../shared/contracts/maneuver.ts';
-import type { RobustnessState } from '../../shared/contracts/robustness.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/compile-primitives.ts';
 import { compiledStepCue } from '../../shared/primitives/primitive-cues.ts';
@@ -178,7 +177,7 @@ export async function submitVersion(ctx: AppContext, user: SessionUser, versionI
   const report = readStoredReport(row.v.id, row.v.report);
   if (!report) throw conflict('This version has no verification report.', 'not_verified');
   const run = await latestVersionRun(db, versionId);
-  const failures = versionCheckFailures(report, run && { state: run.state as RobustnessState, progress: run.samples ? run.doneSamples / run.samples : 0, error: run.error });
+  const failures = versionCheckFailures(report, run && { state: run.state, progress: run.samples ? run.doneSamples / run.samples : 0, error: run.error });
   const note = input.note?.trim() ?? '';
   if (failures.length && !(input.acknowledgeFailures && note)) {
     const how = input.acknowledgeFailures

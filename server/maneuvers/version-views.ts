@@ -59,13 +59,13 @@ const robustnessColumns = {
   toleranceDeg: robustnessRuns.toleranceDeg,
   feedbackP95Deg: sql<number | null>`(${robustnessRuns.figures}->>'feedbackP95Deg')::float8`.as('feedback_p95_deg'),
 };
-interface RobustnessListRow { id: string; state: string; samples: number; doneSamples: number; toleranceDeg: number; feedbackP95Deg: number | null }
+interface RobustnessListRow { id: string; state: RobustnessState; samples: number; doneSamples: number; toleranceDeg: number; feedbackP95Deg: number | null }
 
 /** The list view of a run: state, progress, feedback p95 and its level. */
 export function toRobustnessBrief(r: RobustnessListRow): RobustnessBrief {
   const feedbackP95Deg = r.state === 'done' ? r.feedbackP95Deg : null;
   return {
-    state: r.state as RobustnessState, progress: r.state === 'done' ? 1 : r.doneSamples / Math.max(1, r.samples),
+    state: r.state, progress: r.state === 'done' ? 1 : r.doneSamples / Math.max(1, r.samples),
     feedbackP95Deg, toleranceDeg: r.toleranceDeg, level: levelOf(feedbackP95Deg, r.toleranceDeg),
   };
 }
@@ -126,7 +126,7 @@ export async function selectReverifications(db: Database, versionIds: string[]):
 export function toReverification(r: ReverificationListRow): Reverification {
   return {
     id: r.id, fromProfileVersionId: r.fromProfileVersionId, toProfileVersionId: r.toProfileVersionId,
-    state: r.state as Reverification['state'], attitudeShiftDeg: r.attitudeShiftDeg, targetErrorDeg: r.targetErrorDeg,
+    state: r.state, attitudeShiftDeg: r.attitudeShiftDeg, targetErrorDeg: r.targetErrorDeg,
     engineVersion: r.engineVersion, outcome: r.outcome, error: r.error, attempts: r.attempts, createdAt: r.createdAt.toISOString(), finishedAt: r.finishedAt?.toISOString() ?? null,
   };
 }

@@ -27,6 +27,7 @@
  */
 import type { Body } from '../../shared/contracts/body.ts';
 import type { RobustnessModel } from '../../shared/contracts/robustness.ts';
+import type { RobustnessFigures, RobustnessSample } from '../../shared/contracts/robustness-stored.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import { type Quat, quatAngleBetween, quatMultiply } from '../../shared/math/quaternion.ts';
 import { seededRandom, symmetricUnit } from '../../shared/math/seeded-random.ts';
@@ -48,12 +49,6 @@ export interface RobustnessInputs {
   model: RobustnessModel;
 }
 
-/** Final attitude error of one sample in each execution model, degrees. */
-export interface RobustnessSample {
-  index: number;
-  openLoopErrorDeg: number;
-  feedbackErrorDeg: number;
-}
 
 /** A 32-bit seed for sample i of a run seeded `seed` (splitmix-style mixing, so neighbours differ). */
 export function sampleSeed(seed: number, index: number): number {
@@ -190,16 +185,6 @@ export function robustnessSamples(inputs: RobustnessInputs, from: number, to: nu
 }
 
 /** The figures of a complete set of samples (any order, any split). */
-export interface RobustnessFigures {
-  openLoopP95Deg: number;
-  feedbackP95Deg: number;
-  p50Deg: number;
-  withinToleranceShare: number;
-  samples: number;
-  /** Final error with feedback of every sample, degrees, in sample order (for the histogram). */
-  feedbackErrorsDeg: number[];
-}
-
 export function summariseRobustness(samples: readonly RobustnessSample[], toleranceDeg: number): RobustnessFigures {
   const ordered = [...samples].sort((a, b) => a.index - b.index);
   const open = ordered.map((s) => s.openLoopErrorDeg).sort((a, b) => a - b);

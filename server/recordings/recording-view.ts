@@ -6,7 +6,7 @@ import type { BvhJointInfo, RecordingView } from '../../shared/contracts/recordi
 export function recordingView(row: RecordingRow, fileName: string, bvhJoints: BvhJointInfo[] | null = null): RecordingView {
   const frames = row.frames;
   return {
-    id: row.id, name: row.name, source: row.source as RecordingView['source'], uploadId: row.uploadId, fileName,
+    id: row.id, name: row.name, source: row.source, uploadId: row.uploadId, fileName,
     crewMemberId: row.crewMemberId, rateHz: row.rateHz, duration: (frames.length - 1) / row.rateHz,
     dofs: row.dofs, frames, assumptions: row.assumptions,
     mapping: row.mapping ?? null, bvhJoints, createdAt: row.createdAt.toISOString(),

@@ -13,9 +13,10 @@ import { Router } from 'express';
 import { z } from 'zod';
 
 import { type PlanRow,plans, sequences } from '../../db/schema/index.ts';
+import { readStored } from '../../db/stored-json.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import {
-type Plan, type PlanCreated, type PlanList,
+type Plan, planCandidateSchema, type PlanCreated, type PlanList,
   planListQuerySchema, planRequestSchema, } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
@@ -41,13 +42,13 @@ export function planView(row: PlanRow): Plan {
     id: row.id,
     sequenceId: row.sequenceId,
     profileVersionId: row.profileVersionId,
-    state: row.state as Plan['state'],
+    state: row.state,
     progress: row.progress,
     progressNote: row.progressNote,
-    settings: planRequestSchema.parse(row.settings),
-    candidates: row.candidates ?? [],
+    settings: readStored(planRequestSchema, row.settings, 'plans.settings'),
+    candidates: row.candidates === null ? [] : readStored(z.array(planCandidateSchema), row.candidates, 'plans.candidates'),
     error: row.error,
-    notes: row.notes,
+    notes: readStored(z.array(z.string()), row.notes, 'plans.notes'),
     elapsedS: row.startedAt && row.finishedAt ? (row.finishedAt.getTime() - row.startedAt.getTime()) / 1000 : null,
     createdAt: row.createdAt.toISOString(),
     startedAt: iso(row.startedAt),
@@ -68,7 +69,7 @@ export function sequencePlansRouter(ctx: AppContext): Router {
     const [sequence] = await db.select().from(sequences).where(eq(sequences.id, sequenceId));
     if (!sequence) throw notFound('Sequence');
     const profile = await currentProfile(db, sequence.crewMemberId);
-    const target = sequenceTargetSchema.parse(sequence.target);
+    const target = readStored(sequenceTargetSchema, sequence.target, 'sequences.target');
     const id = await db.transaction(async (tx) => {
       const [row] = await tx.insert(plans).values({ sequenceId, profileVersionId: profile.id, requestedBy: user.id, target, settings }).returning({ id: plans.id });
       await recordAudit(tx, { actorId: user.id, action: 'plan.request', objectType: 'plan', objectId: row.id, detail: { sequenceId, profileVersionId: profile.id, settings } });
@@ -97,7 +98,7 @@ export function sequencePlansRouter(ctx: AppContext): Router {
     const out: PlanList = {
       plans: rows.map((r) => ({
         id: r.id,
-        state: r.state as Plan['state'],
+        state: r.state,
         progress: r.progress,
         createdAt: r.createdAt.toISOString(),
         candidateCount: r.candidateCount,

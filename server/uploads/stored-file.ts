@@ -52,13 +52,13 @@ export function uploadValues(f: StoredFile, status: 'imported' | 'rejected', row
 export function uploadView(row: UploadRow): UploadView {
   return {
     id: row.id,
-    kind: row.kind as UploadKind,
+    kind: row.kind,
     fileName: row.fileName,
     contentType: row.contentType,
     sizeBytes: row.sizeBytes,
     sha256: row.sha256,
     objectKey: row.objectKey,
-    status: row.status as UploadView['status'],
+    status: row.status,
     rowCount: row.rowCount,
     errors: row.errors,
     uploadedBy: row.uploadedBy,

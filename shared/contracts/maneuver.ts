@@ -305,13 +305,15 @@ export const reportSummarySchema = z.object({
 });
 export type ReportSummary = z.infer<typeof reportSummarySchema>;
 
+/** States of a re-verification record. */
+export const REVERIFICATION_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
+
 /** A background recomputation against a newer profile version. */
 export const reverificationSchema = z.object({
   id: z.uuid(),
   fromProfileVersionId: z.uuid(),
   toProfileVersionId: z.uuid(),
-  /** queued | running | done | failed | cancelled */
-  state: z.enum(['queued', 'running', 'done', 'failed', 'cancelled']),
+  state: z.enum(REVERIFICATION_STATES),
   /** Angle between the stored and the recomputed final attitude, degrees (null until done). */
   attitudeShiftDeg: z.number().nullable(),
   /** Target error on the new profile, degrees (null until done). */
@@ -332,7 +334,7 @@ export const recheckInfoSchema = z.object({
   cause: z.enum(['profile', 'engine']).optional(),
   staleSince: isoTime.nullable(),
   reverification: z.object({
-    state: z.enum(['queued', 'running', 'done', 'failed', 'cancelled']),
+    state: z.enum(REVERIFICATION_STATES),
     attitudeShiftDeg: z.number().nullable(),
     error: z.string().nullable(),
   }).nullable(),

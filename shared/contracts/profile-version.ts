@@ -39,7 +39,8 @@ export interface ProfileSummary {
  * Where a version's body came from: `regression` (the standard human model from the inputs) or
  * `measured` (an uploaded segment table replaced the regression).
  */
-export type ProfileSource = 'regression' | 'measured';
+export const PROFILE_SOURCES = ['regression', 'measured'] as const;
+export type ProfileSource = (typeof PROFILE_SOURCES)[number];
 
 /** The measured-table reference kept in the inputs of a `measured` version. */
 export interface MeasuredTableRef {

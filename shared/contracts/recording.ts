@@ -54,11 +54,14 @@ export interface BvhJointInfo {
   rotationChannels: string[];
 }
 
+/** Where a recording came from: a joint-angle CSV or a BVH file. */
+export const RECORDING_SOURCES = ['joint_angles_csv', 'bvh'] as const;
+
 /** A stored recording as the API returns it. */
 export interface RecordingView {
   id: string;
   name: string;
-  source: 'joint_angles_csv' | 'bvh';
+  source: (typeof RECORDING_SOURCES)[number];
   uploadId: string;
   fileName: string;
   crewMemberId: string | null;

@@ -5,7 +5,11 @@ import type { StaleVersion } from './profile-version.ts';
 export const UPLOAD_MAX_BYTES = 1024 * 1024;
 
 /** What an upload holds. */
-export type UploadKind = 'measurements_csv' | 'segment_table_csv' | 'segment_table_json' | 'joint_angles_csv' | 'bvh';
+export const UPLOAD_KINDS = ['measurements_csv', 'segment_table_csv', 'segment_table_json', 'joint_angles_csv', 'bvh'] as const;
+export type UploadKind = (typeof UPLOAD_KINDS)[number];
+
+/** An upload is imported whole or rejected whole. */
+export const UPLOAD_STATUSES = ['imported', 'rejected'] as const;
 
 /** One problem in an uploaded file: the row (as numbered in the file, header = row 1), the column and why. */
 export interface UploadRowError {
@@ -27,7 +31,7 @@ export interface UploadView {
   sha256: string;
   /** Object-storage key of the raw file: uploads/<id>/<file name>. */
   objectKey: string;
-  status: 'imported' | 'rejected';
+  status: (typeof UPLOAD_STATUSES)[number];
   rowCount: number;
   errors: UploadRowError[];
   uploadedBy: string | null;

@@ -4,13 +4,13 @@
  * (seed, i)); a run reports progress; a cancelled run stops its chunks; the API guards who may
  * start, read and cancel.
  */
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
 import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
-import { robustnessRunView, versionRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
+import { createRobustnessRun, robustnessRunView, versionRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
 import { loadStoredVersion } from '../../server/maneuvers/stored-version.ts';
 import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
 import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
@@ -120,6 +120,22 @@ describe('robustness run of a saved version', () => {
     // Cancelling again: nothing open.
     expect(apiError(await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness/cancel`)).code).toBe('no_open_run');
   }, 120_000);
+
+  it('a run whose stored inputs were damaged fails at once with the column and field, instead of computing from a default', async () => {
+    const v = (await loadStoredVersion(t.ctx.db, versionId))!;
+    const runId = await createRobustnessRun(t.ctx.db, { ...versionRunInputs(v), samples: 10, chunkSize: 10 });
+    await t.ctx.db.update(robustnessRuns).set({ inputs: sql`jsonb_set(${robustnessRuns.inputs}, '{body,segments,0,mass}', '"heavy"')` }).where(eq(robustnessRuns.id, runId));
+    await jobs.enqueueRobustness!(runId);
+    const row = await eventually(async () => {
+      const [r] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
+      return r.state === 'queued' || r.state === 'running' ? undefined : r;
+    }, 60_000);
+    expect(row.state).toBe('failed');
+    expect(row.error).toContain('robustness_runs.inputs.body.segments.0.mass');
+    expect(row.figures).toBeNull();
+    const [chunk] = await t.ctx.db.select().from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
+    expect(chunk).toMatchObject({ state: 'failed', attempts: 1 });
+  }, 90_000);
 
   it('refuses bad requests naming the field', async () => {
     const bad = await as(t, PEOPLE.planner).post(`/sequences/versions/${versionId}/robustness`, { samples: 5 });

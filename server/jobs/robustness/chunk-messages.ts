@@ -1,5 +1,6 @@
 /** Messages between the chunk pool and its threads. */
-import type { RobustnessInputs, RobustnessSample } from '../../planning/robustness.ts';
+import type { RobustnessSample } from '../../../shared/contracts/robustness-stored.ts';
+import type { RobustnessInputs } from '../../planning/robustness.ts';
 
 /**
  * Compute samples [from, to) of the run `key`. `inputs` comes with the first chunk of a run a thread

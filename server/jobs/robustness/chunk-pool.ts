@@ -8,7 +8,8 @@
 import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 
-import type { RobustnessInputs, RobustnessSample } from '../../planning/robustness.ts';
+import type { RobustnessSample } from '../../../shared/contracts/robustness-stored.ts';
+import type { RobustnessInputs } from '../../planning/robustness.ts';
 import type { ChunkReply, ChunkRequest, ChunkThreadReady } from './chunk-messages.ts';
 
 const ENTRY = fileURLToPath(new URL('./chunk-entry.mjs', import.meta.url).href);

@@ -12,19 +12,24 @@ import { performance } from 'node:perf_hooks';
 
 import { and, asc, eq, inArray, notInArray, sql } from 'drizzle-orm';
 import type { PgBoss } from 'pg-boss';
+import { z } from 'zod';
 
 import type { Database } from '../../../db/client.ts';
-import { robustnessChunks, type RobustnessRunRow, robustnessRuns } from '../../../db/schema/index.ts';
+import { type RobustnessChunkRow, robustnessChunks, type RobustnessRunRow, robustnessRuns } from '../../../db/schema/index.ts';
+import { readStored, StoredDataError } from '../../../db/stored-json.ts';
 import type { Body } from '../../../shared/contracts/body.ts';
-import { DEFAULT_ROBUSTNESS_MODEL, type RobustnessModel, robustnessModelSchema, type RobustnessState } from '../../../shared/contracts/robustness.ts';
+import { DEFAULT_ROBUSTNESS_MODEL, type RobustnessModel, robustnessModelSchema } from '../../../shared/contracts/robustness.ts';
 import type { RobustnessRun } from '../../../shared/contracts/robustness-run.ts';
+import {
+  type RobustnessFigures, robustnessFiguresSchema, type RobustnessRunInputs, robustnessRunInputsSchema, type RobustnessSample, robustnessSampleSchema,
+} from '../../../shared/contracts/robustness-stored.ts';
 import type { Sequence } from '../../../shared/contracts/sequence.ts';
 import type { Quat } from '../../../shared/math/quaternion.ts';
 import type { AppContext } from '../../app-context.ts';
 import { recordAudit } from '../../audit/record-audit.ts';
 import type { StoredVersion } from '../../maneuvers/stored-version.ts';
 import { targetQuat } from '../../maneuvers/target-attitude.ts';
-import { type RobustnessFigures, type RobustnessInputs, type RobustnessSample, summariseRobustness } from '../../planning/robustness.ts';
+import { type RobustnessInputs, summariseRobustness } from '../../planning/robustness.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../queue-names.ts';
 import { ChunkAbortedError, type ChunkPool, type ChunkResult } from './chunk-pool.ts';
 
@@ -56,11 +61,25 @@ export interface RobustnessChunkJob {
   chunk: number;
 }
 
-/** The snapshot stored on the run. */
-interface StoredInputs {
-  body: Body;
-  sequence: Sequence;
-  target: Quat;
+/** A run's stored JSON, read once where the row is read (an unreadable value throws StoredDataError). */
+export function runModel(run: Pick<RobustnessRunRow, 'model'>): RobustnessModel {
+  return readStored(robustnessModelSchema, run.model, 'robustness_runs.model');
+}
+
+/** What every chunk of the run computes from: the stored snapshot plus the run's own settings. */
+export function storedRunInputs(run: Pick<RobustnessRunRow, 'inputs' | 'toleranceDeg' | 'seed' | 'model'>): RobustnessInputs {
+  const stored = readStored(robustnessRunInputsSchema, run.inputs, 'robustness_runs.inputs');
+  return { ...stored, toleranceDeg: run.toleranceDeg, seed: run.seed, model: runModel(run) };
+}
+
+/** The merged figures, null until the run is done. */
+export function runFigures(run: Pick<RobustnessRunRow, 'figures'>): RobustnessFigures | null {
+  return run.figures === null ? null : readStored(robustnessFiguresSchema, run.figures, 'robustness_runs.figures');
+}
+
+/** A done chunk's stored samples. */
+export function storedSamples(results: RobustnessChunkRow['results']): RobustnessSample[] {
+  return readStored(z.array(robustnessSampleSchema), results, 'robustness_chunks.results');
 }
 
 /** What a new run needs. */
@@ -105,7 +124,7 @@ export async function createRobustnessRun(db: Database, run: NewRun): Promise<st
       seed: run.seed ?? DEFAULT_ROBUSTNESS_SEED,
       model,
       toleranceDeg: run.toleranceDeg,
-      inputs: { body: run.body, sequence: run.sequence, target: run.target } satisfies StoredInputs,
+      inputs: { body: run.body, sequence: run.sequence, target: [...run.target] } satisfies RobustnessRunInputs,
       requestedBy: run.requestedBy ?? null,
     }).returning({ id: robustnessRuns.id });
     const chunks = [];
@@ -140,7 +159,7 @@ async function inputsOf(db: Database, runId: string): Promise<RobustnessInputs |
   const [run] = await db.select({ inputs: robustnessRuns.inputs, toleranceDeg: robustnessRuns.toleranceDeg, seed: robustnessRuns.seed, model: robustnessRuns.model })
     .from(robustnessRuns).where(eq(robustnessRuns.id, runId));
   if (!run) return null;
-  const inputs: RobustnessInputs = { ...(run.inputs as StoredInputs), toleranceDeg: run.toleranceDeg, seed: run.seed, model: robustnessModelSchema.parse(run.model) };
+  const inputs = storedRunInputs(run);
   runInputs.set(runId, inputs);
   if (runInputs.size > RUN_INPUTS_KEPT) runInputs.delete(runInputs.keys().next().value!);
   return inputs;
@@ -167,7 +186,15 @@ export async function runRobustnessChunk(
     .returning({ chunkIndex: robustnessChunks.chunkIndex, fromSample: robustnessChunks.fromSample, toSample: robustnessChunks.toSample });
   if (!chunk) return;
   const firstHere = !runInputs.has(job.runId);
-  const inputs = await inputsOf(db, job.runId);
+  let inputs: RobustnessInputs | null;
+  try {
+    inputs = await inputsOf(db, job.runId);
+  } catch (err) {
+    if (!(err instanceof StoredDataError)) throw err;
+    // Unreadable stored inputs: a retry would read the same row, so the run fails now, naming the field.
+    await failRobustnessRun(ctx, job.runId, `samples ${chunk.fromSample}–${chunk.toSample - 1} failed: ${err.message}`, chunk.chunkIndex);
+    return;
+  }
   if (!inputs) return;
   // The first chunk this process takes of a run marks the run running (idempotent; later ones find it so).
   if (firstHere) {
@@ -242,7 +269,7 @@ export async function mergeChunk(ctx: AppContext, runId: string, chunkIndex: num
       return;
     }
     const all = await tx.select({ results: robustnessChunks.results }).from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
-    const figures = summariseRobustness(all.flatMap((c) => c.results as RobustnessSample[]), run.toleranceDeg);
+    const figures = summariseRobustness(all.flatMap((c) => storedSamples(c.results)), run.toleranceDeg);
     await tx.update(robustnessRuns).set({ doneSamples, state: 'done', figures, finishedAt: new Date() }).where(eq(robustnessRuns.id, runId));
     await recordAudit(tx, {
       actorId: null, action: 'robustness.done', objectType: run.sequenceVersionId ? 'sequence_version' : 'plan', objectId: run.sequenceVersionId ?? run.planId ?? runId,
@@ -291,17 +318,17 @@ export async function robustnessRunView(db: Database, run: RobustnessRunRow): Pr
     .where(eq(robustnessChunks.runId, run.id)).groupBy(robustnessChunks.state);
   const chunks = counts.reduce((s, c) => s + c.n, 0);
   const chunksDone = counts.find((c) => c.state === 'done')?.n ?? 0;
-  const f = run.figures as RobustnessFigures | null;
+  const f = runFigures(run);
   return {
     id: run.id,
     sequenceVersionId: run.sequenceVersionId,
     planId: run.planId,
     candidateIndex: run.candidateIndex,
-    state: run.state as RobustnessState,
+    state: run.state,
     progress: run.state === 'done' ? 1 : run.doneSamples / Math.max(1, run.samples),
     samples: run.samples,
     seed: run.seed,
-    model: robustnessModelSchema.parse(run.model),
+    model: runModel(run),
     toleranceDeg: run.toleranceDeg,
     openLoopP95Deg: f?.openLoopP95Deg ?? null,
     feedbackP95Deg: f?.feedbackP95Deg ?? null,

@@ -6,12 +6,11 @@ import { and, desc, eq, inArray } from 'drizzle-orm';
 
 import type { Database } from '../../../db/client.ts';
 import { type RobustnessRunRow,robustnessRuns } from '../../../db/schema/index.ts';
-import { levelOf, robustnessModelSchema, type RobustnessState, type VersionRobustness } from '../../../shared/contracts/robustness.ts';
+import { levelOf, type VersionRobustness } from '../../../shared/contracts/robustness.ts';
 import type { AppContext } from '../../app-context.ts';
 import { recordAudit } from '../../audit/record-audit.ts';
 import { loadStoredVersion } from '../../maneuvers/stored-version.ts';
-import type { RobustnessFigures } from '../../planning/robustness.ts';
-import { createRobustnessRun, OPEN_STATES, versionRunInputs } from './robustness-runs.ts';
+import { createRobustnessRun, OPEN_STATES, runFigures, runModel, versionRunInputs } from './robustness-runs.ts';
 
 /** The newest run of a version, or null. */
 export async function latestVersionRun(db: Database, versionId: string): Promise<RobustnessRunRow | null> {
@@ -24,11 +23,11 @@ export async function latestVersionRun(db: Database, versionId: string): Promise
 export async function versionRobustness(db: Database, versionId: string): Promise<VersionRobustness | null> {
   const run = await latestVersionRun(db, versionId);
   if (!run) return null;
-  const f = run.state === 'done' ? (run.figures as RobustnessFigures | null) : null;
+  const f = run.state === 'done' ? runFigures(run) : null;
   const feedbackP95Deg = f?.feedbackP95Deg ?? null;
   return {
     runId: run.id,
-    state: run.state as RobustnessState,
+    state: run.state,
     progress: run.state === 'done' ? 1 : run.doneSamples / Math.max(1, run.samples),
     openLoopP95Deg: f?.openLoopP95Deg ?? null,
     feedbackP95Deg,
@@ -36,7 +35,7 @@ export async function versionRobustness(db: Database, versionId: string): Promis
     withinToleranceShare: f?.withinToleranceShare ?? null,
     samples: run.samples,
     seed: run.seed,
-    model: robustnessModelSchema.parse(run.model),
+    model: runModel(run),
     toleranceDeg: run.toleranceDeg,
     level: levelOf(feedbackP95Deg, run.toleranceDeg),
     error: run.error,
