@@ -176,8 +176,10 @@ async function main() {
 
     const routes: { name: string; path: string; token: string | null; key?: string }[] = [
       { name: 'GET /healthz (floor: no session, no database)', path: '/healthz', token: null },
-      { name: 'GET /api/sequences (planner)', path: '/api/sequences', token: planner, key: 'sequencesList' },
-      { name: 'GET /api/sequences (trainee)', path: '/api/sequences', token: trainee, key: 'traineeSequencesList' },
+      // The list screen's request: the first page of 50 by name.
+      { name: 'GET /api/sequences?limit=50 (planner)', path: '/api/sequences?limit=50', token: planner, key: 'sequencesList' },
+      { name: 'GET /api/sequences (planner, whole list)', path: '/api/sequences', token: planner, key: 'sequencesListAll' },
+      { name: 'GET /api/sequences?limit=50 (trainee)', path: '/api/sequences?limit=50', token: trainee, key: 'traineeSequencesList' },
       { name: 'GET /api/crew', path: '/api/crew', token: planner, key: 'crewList' },
       { name: 'GET /api/crew/:id', path: `/api/crew/${crew[0].id}`, token: planner, key: 'crewDetail' },
       { name: 'GET /api/sequences/:id', path: `/api/sequences/${seq.id}`, token: planner, key: 'sequenceDetail' },
