@@ -36,7 +36,7 @@ export interface SceneModel {
 }
 
 /** Builds the scene model; throws with a clear message if the samples do not fit the body. */
-export function buildSceneModel(motion: MotionResponse): SceneModel {
+export function buildSceneModel(motion: Pick<MotionResponse, 'body' | 'samples' | 'targetAttitude'>): SceneModel {
   const model = compileBody(motion.body);
   const shapes = segmentShapes(model);
   // Sides from the reference posture.

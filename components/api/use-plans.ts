@@ -1,5 +1,6 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 
+import type { CandidateMotionResponse } from '@/shared/contracts/motion';
 import type { Plan, PlanCreated, PlanList, PlanRequest } from '@/shared/contracts/plan';
 
 import { apiFetch } from './client';
@@ -9,6 +10,8 @@ export const planKeys = {
   all: ['plans'] as const,
   detail: (sequenceId: string, planId: string) => [...planKeys.all, sequenceId, planId] as const,
   latest: (sequenceId: string) => [...planKeys.all, sequenceId, 'latest'] as const,
+  /** Outside `all`: refreshing plans never re-simulates a previewed suggestion. */
+  candidateMotion: (sequenceId: string, planId: string, rank: number) => ['plan-candidate-motion', sequenceId, planId, rank] as const,
 };
 
 /** How often a queued or running plan is polled, ms. */
@@ -63,5 +66,20 @@ export function usePlanQuery(sequenceId: string, planId: string | null) {
     queryFn: () => apiFetch<Plan>(`/sequences/${encodeURIComponent(sequenceId)}/plans/${encodeURIComponent(planId ?? '')}`),
     enabled: !!planId,
     refetchInterval: (query) => (planEnded(query.state.data?.state) ? false : PLAN_POLL_MS),
+  });
+}
+
+/**
+ * GET /api/sequences/:id/plans/:planId/candidates/:rank/motion — a suggestion simulated for the 3D
+ * preview before it is used; fetched once per candidate and kept (a finished plan never changes).
+ */
+export function useCandidateMotionQuery(sequenceId: string, planId: string, rank: number) {
+  return useQuery({
+    queryKey: planKeys.candidateMotion(sequenceId, planId, rank),
+    queryFn: ({ signal }) =>
+      apiFetch<CandidateMotionResponse>(`/sequences/${encodeURIComponent(sequenceId)}/plans/${encodeURIComponent(planId)}/candidates/${rank}/motion`, { signal }),
+    staleTime: Infinity,
+    gcTime: 10 * 60_000,
+    refetchOnWindowFocus: false,
   });
 }

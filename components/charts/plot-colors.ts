@@ -24,3 +24,9 @@ export const plotColors = {
   /** Axis labels. */
   axisText: colors.muted,
 } as const;
+
+/**
+ * Line colours of overlaid planner suggestions (suggestion 1 first), apart from one another in
+ * lightness as well as hue on the dark ground; the target line stays muted and dashed.
+ */
+export const candidateColors = [colors.accent, colors.teal, '#B9A4FF', '#FF8FB8', '#9FD3FF', '#D9E27A', '#F2F2F2', '#FF9F6B'] as const;

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { ScrollView, StyleSheet, View } from 'react-native';
 
 import { ApiError } from '@/components/api/client';
@@ -16,6 +16,7 @@ import { SegmentedControl } from '@/components/ui/SegmentedControl';
 import { Text } from '@/components/ui/Text';
 import { TextField } from '@/components/ui/TextField';
 import type { SequenceDetail, VersionDetail } from '@/shared/contracts/maneuver';
+import type { Plan, PlanCandidate } from '@/shared/contracts/plan';
 import { defaultPrimitive, type Primitive } from '@/shared/primitives/primitive-schemas';
 
 import { CompiledSteps } from './composer/CompiledSteps';
@@ -24,6 +25,8 @@ import { StepEditorSheet } from './composer/StepEditorSheet';
 import { StepList } from './composer/StepList';
 import { useComposerDraft } from './composer/use-composer-draft';
 import { ManeuverCautions } from './ManeuverCautions';
+import { CandidateComparison } from './planner/CandidateComparison';
+import { type ReplacedSteps, StepsReplacedNotice } from './planner/StepsReplacedNotice';
 import { SuggestSteps } from './planner/SuggestSteps';
 import { VerificationReport } from './report/VerificationReport';
 import { SequenceLifecycle } from './SequenceLifecycle';
@@ -53,6 +56,9 @@ export interface ComposerProps {
 
 type Editing = { index: number; step: Primitive; isNew: boolean } | null;
 
+/** How long the undo snackbar stays after "Use these steps", ms (the banner over the steps stays). */
+const SNACKBAR_MS = 12_000;
+
 /**
  * The planner's workspace for one sequence: steps (add, edit, reorder, remove), compiled joint
  * steps on request, save-and-verify, submit, the verification report and the version history.
@@ -72,6 +78,32 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   const [showCompiled, setShowCompiled] = useState(false);
   const [note, setNote] = useState('');
   const save = useSaveVersionMutation(sequence.id);
+  // "Use these steps" keeps the steps it replaced for Undo (banner over the list, a snackbar for a while).
+  const [replaced, setReplaced] = useState<ReplacedSteps<Primitive> | null>(null);
+  const [snack, setSnack] = useState(false);
+  // The suggestions' side-by-side view (a finished plan; a suggestion previewed in 3D or none).
+  const [comparison, setComparison] = useState<{ plan: Plan; preview: number | null } | null>(null);
+  useEffect(() => {
+    if (!snack) return;
+    const timer = setTimeout(() => setSnack(false), SNACKBAR_MS);
+    return () => clearTimeout(timer);
+  }, [snack, replaced]);
+  const undoReplace = () => {
+    if (replaced) draft.replaceAll(replaced.previous);
+    setReplaced(null);
+    setSnack(false);
+  };
+  const applySuggestion = (c: PlanCandidate) => {
+    // A second use keeps the steps from before the first, so Undo always returns to the planner's own.
+    setReplaced((r) => ({ rank: c.rank, count: c.primitives.length, previous: r ? r.previous : draft.steps }));
+    draft.replaceAll(c.primitives);
+    setEditing(null);
+    setSnack(true);
+  };
+  const dismissReplace = () => {
+    setReplaced(null);
+    setSnack(false);
+  };
 
   // An archived maneuver is read-only until restored (the server refuses changes too).
   const editable = canCompose && sequence.archivedAt === null;
@@ -84,7 +116,12 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
   const doSave = () =>
     save.mutate(
       { primitives: draft.steps, baseVersion, note, target: sequence.target },
-      { onSuccess: (v) => onOpenVersion(v.id, 'report') },
+      {
+        onSuccess: (v) => {
+          dismissReplace();
+          onOpenVersion(v.id, 'report');
+        },
+      },
     );
   const applyStep = (index: number, step: Primitive) => {
     draft.put(index, step);
@@ -166,6 +203,9 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           }}
         />
       ) : null}
+      {editable && replaced ? (
+        <StepsReplacedNotice kind="banner" rank={replaced.rank} count={replaced.count} previousCount={replaced.previous.length} onUndo={undoReplace} onDismiss={dismissReplace} testID="steps-replaced" />
+      ) : null}
       <StepList
         steps={draft.steps}
         selected={wide ? editing?.index : null}
@@ -180,11 +220,9 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
       {editable ? (
         <SuggestSteps
           sequenceId={sequence.id}
-          toleranceDeg={sequence.target.toleranceDeg}
-          onUse={(steps) => {
-            draft.replaceAll(steps);
-            setEditing(null);
-          }}
+          target={sequence.target}
+          onUse={applySuggestion}
+          onCompare={(plan, preview) => setComparison({ plan, preview })}
         />
       ) : null}
       <Button
@@ -236,8 +274,33 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
     </View>
   );
 
+  // Both layouts end with these, in the same place, so a resize keeps the comparison open.
+  const overlays = (
+    <>
+      {editable && replaced && snack ? (
+        <StepsReplacedNotice kind="snackbar" rank={replaced.rank} count={replaced.count} previousCount={replaced.previous.length} onUndo={undoReplace} onDismiss={() => setSnack(false)} testID="steps-replaced-snackbar" />
+      ) : null}
+      {editable && comparison ? (
+        <CandidateComparison
+          key={comparison.plan.id}
+          visible
+          onClose={() => setComparison(null)}
+          sequenceId={sequence.id}
+          plan={comparison.plan}
+          target={sequence.target}
+          initialPreview={comparison.preview}
+          onUse={(c) => {
+            setComparison(null);
+            applySuggestion(c);
+          }}
+        />
+      ) : null}
+    </>
+  );
+
   if (wide) {
     return (
+      <View style={styles.root}>
       <ScrollView style={styles.root} contentContainerStyle={styles.wideContent}>
         {header}
         <View style={styles.columns}>
@@ -266,10 +329,13 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
           <View style={styles.colReport}>{reportPanel}</View>
         </View>
       </ScrollView>
+      {overlays}
+      </View>
     );
   }
 
   return (
+    <View style={styles.root}>
     <ScrollView style={styles.root} contentContainerStyle={styles.phoneContent}>
       {header}
       <SegmentedControl
@@ -287,6 +353,8 @@ export function Composer({ sequence, version, canCompose, initialPanel, onOpenVe
       {panel === 'steps' ? <ManeuverCautions compact /> : null}
       <StepEditorSheet editing={editing} onApply={applyStep} onClose={() => setEditing(null)} crewMemberId={sequence.crewMemberId} droppedChannels={droppedChannels} />
     </ScrollView>
+    {overlays}
+    </View>
   );
 }
 

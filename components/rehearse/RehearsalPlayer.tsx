@@ -11,7 +11,7 @@ import { PlaybackClock } from '@/scene/playback/playback-clock';
 import RehearsalCanvas from '@/scene/RehearsalCanvas';
 import { buildSceneModel } from '@/scene/scene-model';
 import { scenePalette } from '@/scene/scene-palette';
-import type { MotionResponse } from '@/shared/contracts/motion';
+import type { PlayerMotion } from '@/shared/contracts/motion';
 import { PLAYBACK_SPEEDS } from '@/shared/contracts/playback-speeds';
 import { engineBindingText } from '@/shared/product/engine-binding';
 
@@ -31,7 +31,8 @@ export interface RunSummary {
 
 /** Props of {@link RehearsalPlayer}. */
 export interface RehearsalPlayerProps {
-  motion: MotionResponse;
+  /** A saved version's motion, or a planner suggestion's (previewed before it is used). */
+  motion: PlayerMotion;
   /** Shows a close button; called with the run so far. Default none (embedded preview). */
   onClose?: (run: RunSummary) => void;
   /** Shows "Log rehearsal"; called with the run so far. Default none. */
@@ -87,7 +88,7 @@ export default function RehearsalPlayer({ motion, onClose, onLog, compact = fals
           {onClose ? <ControlButton icon="x" label="Close player" onPress={() => onClose(run())} /> : null}
           <View style={styles.titleText}>
             <Text variant="label" numberOfLines={1}>
-              {motion.sequenceName} · v{motion.version}
+              {motion.sequenceName} · {'rank' in motion ? `suggestion ${motion.rank}` : `v${motion.version}`}
             </Text>
             <Text variant="caption" tone="muted" numberOfLines={1}>
               {motion.crewMemberName} · {motion.duration.toFixed(1)} s · {snap.speed}×

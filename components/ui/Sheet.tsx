@@ -18,19 +18,21 @@ export interface SheetProps {
   children: ReactNode;
   /** Optional bottom row (e.g. Cancel / Save buttons), kept visible while the body scrolls. */
   footer?: ReactNode;
+  /** `form` (default): one form's width on wide screens; `wide`: up to the content width, for side-by-side comparisons. */
+  size?: 'form' | 'wide';
 }
 
 /**
  * A modal for editing one thing: slides up from the bottom on phones, a centred dialog on wide screens.
  * Exposed as role "dialog" named by `title`.
  */
-export function Sheet({ visible, onClose, title, children, footer }: SheetProps) {
+export function Sheet({ visible, onClose, title, children, footer, size = 'form' }: SheetProps) {
   const wide = useIsWide();
   return (
     <Modal visible={visible} transparent animationType={wide ? 'fade' : 'slide'} onRequestClose={onClose}>
       <View style={[styles.backdrop, wide ? styles.backdropWide : styles.backdropPhone]}>
         <Pressable style={StyleSheet.absoluteFill} onPress={onClose} aria-label="Close" role="button" />
-        <View role="dialog" aria-modal aria-label={title} style={[styles.panel, wide ? styles.panelWide : styles.panelPhone]}>
+        <View role="dialog" aria-modal aria-label={title} style={[styles.panel, wide ? styles.panelWide : styles.panelPhone, wide && size === 'wide' && styles.panelWider]}>
           <View style={styles.head}>
             <Text variant="heading" role="heading" aria-level={2} style={styles.title}>
               {title}
@@ -56,6 +58,7 @@ const styles = StyleSheet.create({
   panel: { backgroundColor: colors.surface, borderColor: colors.border, borderWidth: 1, maxHeight: '92%' },
   panelPhone: { borderTopLeftRadius: radii.lg + 4, borderTopRightRadius: radii.lg + 4, borderBottomWidth: 0 },
   panelWide: { width: '100%', maxWidth: layout.formMaxWidth, borderRadius: radii.lg },
+  panelWider: { maxWidth: layout.maxContentWidth - 2 * spacing.xl },
   head: {
     flexDirection: 'row',
     alignItems: 'center',

@@ -10,16 +10,23 @@ import { Card } from '@/components/ui/Card';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
-import type { DispersionSpreads,PlanCandidate } from '@/shared/contracts/plan';
-import type { Primitive } from '@/shared/primitives/primitive-schemas';
+import type { SequenceTarget } from '@/shared/contracts/maneuver';
+import type { DispersionSpreads, Plan, PlanCandidate } from '@/shared/contracts/plan';
+import { meetsLimits } from '@/shared/product/candidate-limits';
+
 
 /** Props of {@link SuggestSteps}. */
 export interface SuggestStepsProps {
   sequenceId: string;
-  /** Target tolerance, degrees (to colour errors). */
-  toleranceDeg: number;
-  /** Replaces the composer's steps (left unsaved for the planner to review). */
-  onUse: (steps: Primitive[]) => void;
+  /** The sequence's target (tolerance colours the errors; the comparison draws it). */
+  target: SequenceTarget;
+  /** Replaces the composer's steps with a suggestion's (left unsaved; the composer offers Undo). */
+  onUse: (candidate: PlanCandidate) => void;
+  /**
+   * Opens the side-by-side view of a finished plan, with a suggestion previewed in 3D (rank) or none.
+   * The composer shows it (CandidateComparison), outside its phone/wide layouts, so it stays open when the window is resized.
+   */
+  onCompare: (plan: Plan, previewRank: number | null) => void;
 }
 
 /** Robustness levels in words (feedback 95th percentile against the tolerance). */
@@ -38,10 +45,12 @@ export function spreadsText(s: DispersionSpreads): string {
 /**
  * "Suggest steps": starts a planning run on the server, shows its progress, then the ranked
  * candidates (cues, duration, error to target, 95th-percentile errors open-loop and with feedback, robustness level, rotation travelled, peak rate) with
- * "Use these steps", which replaces the composer's step list without saving. On opening it shows
+ * "Use these steps", which replaces the composer's step list without saving (the composer offers Undo),
+ * "Preview in 3D" and "Compare side by side" (CandidateComparison: table, overlaid attitude, 3D). On opening it shows
  * the sequence's latest plan (still running or finished), so a reload loses nothing.
  */
-export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsProps) {
+export function SuggestSteps({ sequenceId, target, onUse, onCompare }: SuggestStepsProps) {
+  const toleranceDeg = target.toleranceDeg;
   // The plan started here; until then, the sequence's latest one from the server.
   const [startedPlanId, setStartedPlanId] = useState<string | null>(null);
   const latest = useLatestPlanQuery(sequenceId, startedPlanId === null);
@@ -91,8 +100,11 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
             {startedPlanId === null ? ` (requested ${new Date(plan.data.createdAt).toLocaleString()})` : ''}.
           </Text>
           <PlannerNotes kind="remarks" notes={plan.data.notes} />
+          {plan.data.candidates.length ? (
+            <Button label="Compare side by side" icon="columns" variant="secondary" size="sm" onPress={() => onCompare(plan.data, null)} testID="compare-suggestions" />
+          ) : null}
           {plan.data.candidates.map((c) => (
-            <CandidateCard key={c.rank} candidate={c} toleranceDeg={toleranceDeg} onUse={() => onUse(c.primitives)} />
+            <CandidateCard key={c.rank} candidate={c} toleranceDeg={toleranceDeg} onUse={() => onUse(c)} onPreview={() => onCompare(plan.data, c.rank)} />
           ))}
           <View style={styles.note} role="note">
             <Icon name="alert-circle" size={16} color={colors.accent} />
@@ -109,8 +121,8 @@ export function SuggestSteps({ sequenceId, toleranceDeg, onUse }: SuggestStepsPr
   );
 }
 
-function CandidateCard({ candidate: c, toleranceDeg, onUse }: { candidate: PlanCandidate; toleranceDeg: number; onUse: () => void }) {
-  const ok = c.withinTolerance && c.withinRateLimit && c.rangeViolationCount === 0 && c.withinTimeBudget !== false;
+function CandidateCard({ candidate: c, toleranceDeg, onUse, onPreview }: { candidate: PlanCandidate; toleranceDeg: number; onUse: () => void; onPreview: () => void }) {
+  const ok = meetsLimits(c);
   return (
     <Card
       title={`Suggestion ${c.rank}`}
@@ -136,7 +148,10 @@ function CandidateCard({ candidate: c, toleranceDeg, onUse }: { candidate: PlanC
           <Figure label="Peak rate" value={`${Math.round(c.peakJointRateDegS)} °/s`} bad={!c.withinRateLimit} />
           {c.rangeViolationCount ? <Figure label="Range violations" value={String(c.rangeViolationCount)} bad /> : null}
         </View>
-        <Button label="Use these steps" icon="check" size="sm" onPress={onUse} testID={`use-candidate-${c.rank}`} />
+        <View style={styles.row}>
+          <Button label="Use these steps" icon="check" size="sm" onPress={onUse} testID={`use-candidate-${c.rank}`} />
+          <Button label="Preview in 3D" icon="box" variant="secondary" size="sm" onPress={onPreview} accessibilityLabel={`Preview suggestion ${c.rank} in 3D`} testID={`preview-candidate-${c.rank}`} />
+        </View>
       </View>
     </Card>
   );
