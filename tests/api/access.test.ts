@@ -1,19 +1,13 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { ACCESS_POLICY } from '../../server/auth/access-policy.ts';
 import { API_AREAS } from '../../server/routes/api-routes.ts';
 import { ROLES } from '../../shared/contracts/roles.ts';
 import { apiError } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp();
-});
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile();
 
 describe('the API guard', () => {
   it.each(API_AREAS.map((a) => a.path))('rejects %s without a token (401)', async (mount) => {

@@ -1,22 +1,16 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import type { ApiErrorBody } from '../../shared/contracts/api-error.ts';
 import type { SessionUser, SignInResponse } from '../../shared/contracts/auth.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { startTestApp, testAppForFile } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them.
 type UserBody = { user: SessionUser };
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp();
-});
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile();
 
 const planner = DEMO_PEOPLE.find((p) => p.role === 'planner')!;
 

@@ -1,12 +1,12 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { bodySchema } from '../../shared/contracts/body.ts';
 import type { CrewMemberView, SuitView } from '../../shared/contracts/crew.ts';
 import type { ProfileComparison, ProfileVersionHeader, ProfileVersionView } from '../../shared/contracts/profile-version.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them (components/api/use-crew.ts, use-suits.ts).
 type MembersBody = { members: CrewMemberView[] };
@@ -18,20 +18,16 @@ type ComparisonBody = { comparison: ProfileComparison };
 type SuitsBody = { suits: SuitView[] };
 type SuitBody = { suit: SuitView };
 
-let t: TestApp;
+const t = testAppForFile();
 let planner: string;
 let planner2: string;
 let reviewer: string;
 let reed: string; // trainee Tamsin Reed
 beforeAll(async () => {
-  t = await startTestApp();
   planner = `Bearer ${await t.tokenFor('planner')}`;
   planner2 = `Bearer ${await t.tokenForEmail('pim.sorrel@lumen.example.test')}`;
   reviewer = `Bearer ${await t.tokenFor('reviewer')}`;
   reed = `Bearer ${await t.tokenForEmail(DEMO_PEOPLE.find((p) => p.crewKey === 'reed')!.email)}`;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const api = () => request(t.app);

@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 
 import express from 'express';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { SimulationPool } from '../../server/engine/pool/simulation-pool.ts';
 import { errorHandler } from '../../server/http/error-handler.ts';
@@ -15,15 +15,9 @@ import { createSimulateRouter } from '../../server/routes/simulate.ts';
 import type { TeamMember } from '../../shared/contracts/team.ts';
 import { as, createSequence, crewOf, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp();
-});
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile();
 
 const LONE_HIGH = '\ud800';
 

@@ -7,39 +7,32 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
-import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { INVITATION_MAIL_RETRY_LIMIT } from '../../server/jobs/queue-names.ts';
 import { type SmtpFake, startSmtpFake } from '../../server/mail/smtp-fake.ts';
 import type { AuditEvent, Invitation } from '../../shared/contracts/team.ts';
 import { eventually } from '../support/eventually.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them.
 type InvitationsBody = { invitations: Invitation[] };
 type InvitationBody = { invitation: Invitation };
 type EventsBody = { events: AuditEvent[] };
 
-let t: TestApp;
-let jobs: RunningJobQueue;
+const t = testAppForFile({ jobQueue: { retryDelayS: 1, pollingIntervalS: 0.5, superviseS: 2 } });
 let admin: string;
 let port: number;
 // The SMTP fake now listening on the configured port (null while "mail is down").
 let mail: SmtpFake | null;
 
 beforeAll(async () => {
-  t = await startTestApp();
   port = t.mail.port;
   mail = t.mail;
-  jobs = await startJobQueue(t.ctx, { retryDelayS: 1, pollingIntervalS: 0.5, superviseS: 2 });
-  t.ctx.jobs = jobs;
   admin = `Bearer ${await t.tokenFor('admin')}`;
-}, 120_000);
+});
 afterAll(async () => {
-  await jobs?.stop();
   if (mail && mail !== t.mail) await mail.stop();
   if (mail !== t.mail) t.mail.stop = () => Promise.resolve(); // already stopped by the test
-  await t?.close();
 });
 
 const mailDown = async () => {

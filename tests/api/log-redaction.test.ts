@@ -1,13 +1,13 @@
 import { Writable } from 'node:stream';
 
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { redactText } from '../../server/logging/logger.ts';
 import type { SignInResponse } from '../../shared/contracts/auth.ts';
 import { bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
 // Every line the server logs during the run below, as written.
 const lines: string[] = [];
@@ -18,13 +18,7 @@ const capture = new Writable({
   },
 });
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp({ env: { LOG_LEVEL: 'info' }, logDestination: capture });
-});
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile({ env: { LOG_LEVEL: 'info' }, logDestination: capture });
 
 describe('the log of a run of requests holds no secret', () => {
   it('sign-in, invitation preview and accept, bearer and cookie calls, password change', async () => {

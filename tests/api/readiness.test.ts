@@ -1,20 +1,14 @@
 /** Liveness and readiness: /healthz never touches the database; /readyz needs it reachable and migrated. */
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { describe, expect, inject, it } from 'vitest';
 
 import { createApp } from '../../server/app.ts';
 import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
 import { apiError } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp({ seed: false });
-});
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile({ seed: false });
 
 /** An app over some other database URL (no seed, no fakes: nothing here sends mail or stores files). */
 function appOver(url: string) {

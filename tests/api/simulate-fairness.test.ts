@@ -4,7 +4,7 @@
  * simulations saturate theirs.
  */
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { deriveBody } from '../../server/model/derive-body.ts';
@@ -12,12 +12,12 @@ import type { SequenceListItem } from '../../shared/contracts/maneuver.ts';
 import type { SimulationResult } from '../../shared/contracts/result.ts';
 import { loadBody } from '../engine/fixtures.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { startTestApp, testAppForFile } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them.
 type SequencesBody = { sequences: SequenceListItem[] };
 
-let t: TestApp;
+const t = testAppForFile({ env: { SIMULATE_POOL_SIZE: '1', SIMULATE_QUEUE_MAX: '2', SIMULATE_RATE_LIMIT: '1000', SIMULATION_TIMEOUT_MS: '120000' } });
 const staff = (role: string, i = 0) => DEMO_PEOPLE.filter((p) => p.role === role)[i].email;
 const auth = async (email: string) => `Bearer ${await t.tokenForEmail(email)}`;
 
@@ -29,12 +29,6 @@ const circles = { kind: 'harmonic', period: 0.15, cycles: 333, joints: { r_sh_ab
 const SLOW = { body: arm, sequence: { steps: Array.from({ length: 12 }, () => circles) }, options: { rtol: 1e-13, rateHz: 1 } };
 const QUICK = { body: arm, sequence: { steps: [{ kind: 'hold', duration: 0.5 }] }, options: { rateHz: 10 } };
 
-beforeAll(async () => {
-  t = await startTestApp({ env: { SIMULATE_POOL_SIZE: '1', SIMULATE_QUEUE_MAX: '2', SIMULATE_RATE_LIMIT: '1000', SIMULATION_TIMEOUT_MS: '120000' } });
-}, 120_000);
-afterAll(async () => {
-  await t?.close();
-});
 
 describe('response-size cap', () => {
   it('refuses 600 s at 240 Hz of the 18-dof standard human with 422 too_many_samples naming the rate to ask for; that rate runs', async () => {

@@ -1,12 +1,12 @@
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import type { SessionUser, SignInResponse } from '../../shared/contracts/auth.ts';
 import type { CrewMemberView } from '../../shared/contracts/crew.ts';
 import type { AuditEvent, TeamMember } from '../../shared/contracts/team.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them.
 type UserBody = { user: SessionUser };
@@ -15,14 +15,10 @@ type UsersBody = { users: TeamMember[] };
 type MembersBody = { members: CrewMemberView[] };
 type EventsBody = { events: AuditEvent[] };
 
-let t: TestApp;
+const t = testAppForFile();
 let admin: string;
 beforeAll(async () => {
-  t = await startTestApp();
   admin = `Bearer ${await t.tokenFor('admin')}`;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const linkIn = (text: string) => /\/invite\/([A-Za-z0-9_-]+)/.exec(text)?.[1];

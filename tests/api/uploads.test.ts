@@ -2,27 +2,23 @@ import { createHash } from 'node:crypto';
 
 import { eq, sql } from 'drizzle-orm';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { uploadRows, uploads } from '../../db/schema/index.ts';
 import type { CrewMemberView } from '../../shared/contracts/crew.ts';
 import type { ProfileVersionView } from '../../shared/contracts/profile-version.ts';
 import type { UploadResult } from '../../shared/contracts/uploads.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them.
 type MembersBody = { members: CrewMemberView[] };
 type CurrentBody = { member: CrewMemberView; current: ProfileVersionView };
 
-let t: TestApp;
+const t = testAppForFile();
 let planner: string;
 beforeAll(async () => {
-  t = await startTestApp();
   planner = `Bearer ${await t.tokenFor('planner')}`;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const api = () => request(t.app);

@@ -4,7 +4,7 @@
  * and profile access when compiling.
  */
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { contextGuesses } from '../../server/auth/password-strength.ts';
@@ -12,9 +12,9 @@ import { loadConfig } from '../../server/config.ts';
 import type { SignInResponse } from '../../shared/contracts/auth.ts';
 import { crewOf, PEOPLE, THREE_STEPS } from '../maneuvers/maneuver-api.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { startTestApp, type TestApp,testAppForFile } from '../support/test-app.ts';
 
-let t: TestApp;
+const t = testAppForFile();
 let cookie: string;
 let bearer: string;
 // The test app's PUBLIC_URL; its origin is one of ours.
@@ -22,13 +22,9 @@ const OWN = 'http://127.0.0.1:9';
 const EVIL = 'https://holonaut-prizes.example';
 
 beforeAll(async () => {
-  t = await startTestApp();
   const signIn = await request(t.app).post('/api/auth/sign-in').send({ email: PEOPLE.planner, password: DEMO_PASSWORD });
   cookie = String(signIn.headers['set-cookie']).split(';')[0];
   bearer = `Bearer ${bodyOf<SignInResponse>(signIn).token}`;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const baseEnv: NodeJS.ProcessEnv = { NODE_ENV: 'test', DATABASE_URL: 'postgres://x/y', JWT_SECRET: 'x'.repeat(32) };

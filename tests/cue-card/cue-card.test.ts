@@ -9,7 +9,7 @@ import path from 'node:path';
 
 import { and, eq } from 'drizzle-orm';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, profileVersions, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
@@ -20,13 +20,13 @@ import type { SessionUser } from '../../shared/contracts/auth.ts';
 import { bodySchema } from '../../shared/contracts/body.ts';
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import { apiError } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
 const TAMSIN = 'tamsin.reed@lumen.example.test';
 const BRAM = 'bram.kettle@lumen.example.test';
 const PLANNER = 'orrin.vale@lumen.example.test';
 
-let t: TestApp;
+const t = testAppForFile();
 /** Ids of seeded versions: Reed's cleared "Cabin yaw with hip swirls", her drafting "Yaw trim…", Kettle's cleared one. */
 let cleared: string, drafting: string, kettles: string;
 
@@ -40,13 +40,9 @@ async function versionOf(name: string, status: 'cleared' | 'drafting'): Promise<
 }
 
 beforeAll(async () => {
-  t = await startTestApp();
   cleared = await versionOf('Cabin yaw with hip swirls', 'cleared');
   drafting = await versionOf('Yaw trim with right-arm loops', 'drafting');
   kettles = await versionOf('Spacewalk pitch trim with leg pedalling', 'cleared');
-}, 120_000);
-afterAll(async () => {
-  await t?.close();
 });
 
 const download = async (email: string, versionId: string) =>

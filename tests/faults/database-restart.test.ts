@@ -23,6 +23,7 @@ import type { SequenceSummary } from '../../shared/contracts/maneuver.ts';
 import type { Plan, PlanCreated } from '../../shared/contracts/plan.ts';
 import { bodyOf, errorCode } from '../support/response-body.ts';
 import { TEST_BCRYPT_COST } from '../support/test-app.ts';
+import { recordUncaughtErrors } from '../support/uncaught-errors.ts';
 
 // Response bodies as the web client reads them.
 type MemberBody = { member?: CrewMemberView };
@@ -37,8 +38,7 @@ let token: string;
 let worker: ChildProcess;
 let workerOutput = '';
 let workerExit: string | null = null;
-const uncaught: unknown[] = [];
-const onUncaught = (err: unknown) => uncaught.push(err);
+const uncaught = recordUncaughtErrors();
 
 async function api(method: string, route: string, body?: unknown): Promise<{ status: number; retryAfter: string | null; body: { error?: { code: string } } & Record<string, unknown> }> {
   const res = await fetch(`${server.url}${route}`, {
@@ -63,8 +63,6 @@ async function msUntil(route: string, status: number, limitMs = 30_000): Promise
 }
 
 beforeAll(async () => {
-  process.on('uncaughtException', onUncaught);
-  process.on('unhandledRejection', onUncaught);
   const dir = mkdtempSync(path.join(os.tmpdir(), 'hn-pgf-'));
   cluster = await startLocalCluster({ dir, database: 'holonaut', throwaway: true, log: () => undefined });
   const env: NodeJS.ProcessEnv = {
@@ -98,8 +96,6 @@ afterAll(async () => {
   }
   await server?.close();
   cluster?.stop();
-  process.off('uncaughtException', onUncaught);
-  process.off('unhandledRejection', onUncaught);
 });
 
 describe('PostgreSQL restart while the server runs', () => {

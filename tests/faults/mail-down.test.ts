@@ -6,33 +6,24 @@
  */
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, invitations } from '../../db/schema/index.ts';
 import { startSmtpFake } from '../../server/mail/smtp-fake.ts';
 import type { Invitation } from '../../shared/contracts/team.ts';
 import { appTables, changedTables, snapshot } from '../fuzz/db-snapshot.ts';
 import { apiError, bodyOf, errorCode } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
+import { recordUncaughtErrors } from '../support/uncaught-errors.ts';
 
 // Response bodies as the web client reads them.
 type InvitationsBody = { invitations: Invitation[] };
 
-let t: TestApp;
+const uncaught = recordUncaughtErrors();
+const t = testAppForFile();
 let tables: string[];
-const uncaught: unknown[] = [];
-const onUncaught = (err: unknown) => uncaught.push(err);
-
 beforeAll(async () => {
-  process.on('uncaughtException', onUncaught);
-  process.on('unhandledRejection', onUncaught);
-  t = await startTestApp();
   tables = await appTables(t.pool);
-});
-afterAll(async () => {
-  await t?.close();
-  process.off('uncaughtException', onUncaught);
-  process.off('unhandledRejection', onUncaught);
 });
 
 describe('mail service down during an invitation', () => {

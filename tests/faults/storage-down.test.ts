@@ -14,25 +14,18 @@ import { type S3Fake, startS3Fake } from '../../server/storage/s3-fake.ts';
 import type { UploadResult } from '../../shared/contracts/uploads.ts';
 import { appTables, changedTables, snapshot } from '../fuzz/db-snapshot.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
+import { recordUncaughtErrors } from '../support/uncaught-errors.ts';
 
-let t: TestApp;
+const uncaught = recordUncaughtErrors();
+const t = testAppForFile();
 let tables: string[];
 const extraDirs: string[] = [];
-const uncaught: unknown[] = [];
-const onUncaught = (err: unknown) => uncaught.push(err);
-
 beforeAll(async () => {
-  process.on('uncaughtException', onUncaught);
-  process.on('unhandledRejection', onUncaught);
-  t = await startTestApp();
   tables = await appTables(t.pool);
 });
-afterAll(async () => {
-  await t?.close();
+afterAll(() => {
   for (const d of extraDirs) rmSync(d, { recursive: true, force: true });
-  process.off('uncaughtException', onUncaught);
-  process.off('unhandledRejection', onUncaught);
 });
 
 const CSV = 'name,call_sign,sex,stature_m,mass_kg,suit,thigh_m\nWren Talbot,WREN,female,1.66,59,cabin-clothing,\n';

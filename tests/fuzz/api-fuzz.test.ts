@@ -14,7 +14,7 @@ import { readFileSync } from 'node:fs';
 import { and, eq } from 'drizzle-orm';
 import * as fc from 'fast-check';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { sequences, sequenceVersions, users } from '../../db/schema/index.ts';
 import type { SuitView } from '../../shared/contracts/crew.ts';
@@ -23,7 +23,7 @@ import type { RecordingView } from '../../shared/contracts/recording.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from '../maneuvers/maneuver-api.ts';
 import { writeBvh } from '../recordings/bvh-writer.ts';
 import { bodyOf, errorCode } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { appTables, changedTables, type DbSnapshot, rowCount, snapshot } from './db-snapshot.ts';
 import { malformedBodies, malformedPathParams, malformedQueries, type Payload, pctSegment } from './malformed.ts';
 import { brokenCsv, malformedUploads, type RawUpload } from './multipart.ts';
@@ -53,12 +53,11 @@ function fillPath(template: string, params: Record<string, string>): string {
   return template.replace(/:(\w+)/g, (_, name: string) => pctSegment(params[name]));
 }
 
-let t: TestApp;
+const t = testAppForFile();
 let tables: string[];
 const routes: Route[] = [];
 
 beforeAll(async () => {
-  t = await startTestApp();
   tables = await appTables(t.pool);
   const crew = await crewOf(t, PEOPLE.trainee);
   const member = (await as(t, PEOPLE.planner).get(`/crew/${crew}`)).body as { member: { currentVersion: number } };
@@ -146,9 +145,6 @@ beforeAll(async () => {
   for (const who of Object.values(PEOPLE)) await t.tokenForEmail(who);
 }, 180_000);
 
-afterAll(async () => {
-  await t?.close();
-});
 
 /** Sends one generated request; returns status and error code. */
 async function send(route: Route, input: Payload | string | RawUpload | Record<string, string>): Promise<{ status: number; code?: string }> {

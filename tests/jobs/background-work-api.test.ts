@@ -4,31 +4,20 @@
  * No worker runs here, so nothing moves on its own.
  */
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { robustnessChunks } from '../../db/schema/index.ts';
-import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import type { BackgroundWork } from '../../shared/contracts/background-work.ts';
-import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { RobustnessRun } from '../../shared/contracts/robustness-run.ts';
-import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
+import { as, crewOf, draftedVersion, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
-let t: TestApp;
-let jobs: RunningJobQueue;
+const t = testAppForFile({ env: { ROBUSTNESS_SAMPLES: '30', ROBUSTNESS_CHUNK_SIZE: '10' }, jobQueue: { worker: false, reconcile: false } });
 let versionId: string;
 beforeAll(async () => {
-  t = await startTestApp({ env: { ROBUSTNESS_SAMPLES: '30', ROBUSTNESS_CHUNK_SIZE: '10' } });
-  jobs = await startJobQueue(t.ctx, { worker: false, reconcile: false });
-  t.ctx.jobs = jobs;
-  const sequenceId = await createSequence(t, await crewOf(t, PEOPLE.trainee), 'Admin view test');
-  versionId = bodyOf<VersionDetail>(await saveVersion(t, sequenceId, 0)).id;
-}, 120_000);
-afterAll(async () => {
-  await jobs?.stop();
-  await t?.close();
+  versionId = await draftedVersion(t, await crewOf(t, PEOPLE.trainee), 'Admin view test');
 });
 
 const list = async (filter: string) => {

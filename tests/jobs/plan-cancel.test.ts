@@ -5,7 +5,7 @@
  * here: the jobs' functions are called directly, as a worker would.
  */
 import { and, eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { auditEvents, crewMembers, plans, reverifications } from '../../db/schema/index.ts';
 import { reverifyVersion } from '../../server/jobs/reverify-version.ts';
@@ -16,15 +16,9 @@ import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/ma
 import { createQuarterTurnSequence } from '../planning/quarter-turn-sequence.ts';
 import { eventually } from '../support/eventually.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp();
-}, 120_000);
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile();
 
 describe('cancelling background work', () => {
   it('a running plan cancelled by its planner ends `cancelled` and its thread stops within seconds', async () => {

@@ -5,23 +5,19 @@
  * here: records stay queued until the job function is called directly, as a worker would.
  */
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, reverifications } from '../../db/schema/index.ts';
 import { reverifyVersion } from '../../server/jobs/reverify-version.ts';
 import type { ReverificationProgress } from '../../shared/contracts/maneuver.ts';
 import { as, clearedVersion, crewOf, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { apiError } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
-let t: TestApp;
+const t = testAppForFile();
 let crew: string;
 beforeAll(async () => {
-  t = await startTestApp();
   crew = await crewOf(t, PEOPLE.trainee);
-}, 120_000);
-afterAll(async () => {
-  await t?.close();
 });
 
 

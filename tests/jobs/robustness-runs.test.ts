@@ -5,39 +5,29 @@
  * start, read and cancel.
  */
 import { and, eq, sql } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
-import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import { createRobustnessRun, robustnessRunView, versionRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
 import { loadStoredVersion } from '../../server/maneuvers/stored-version.ts';
 import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
-import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
 import type { RobustnessRun } from '../../shared/contracts/robustness-run.ts';
-import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
+import { as, crewOf, draftedVersion, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
-let t: TestApp;
-let jobs: RunningJobQueue;
+// Small runs so the suite stays quick: 40 samples in chunks of 7 (6 chunks, the last one short).
+const t = testAppForFile({
+  env: { ROBUSTNESS_SAMPLES: '40', ROBUSTNESS_CHUNK_SIZE: '7', WORKER_CONCURRENCY: '2' },
+  jobQueue: { pollingIntervalS: 0.5, superviseS: 1 },
+});
 let versionId: string;
 
 beforeAll(async () => {
-  // Small runs so the suite stays quick: 40 samples in chunks of 7 (6 chunks, the last one short).
-  t = await startTestApp({ env: { ROBUSTNESS_SAMPLES: '40', ROBUSTNESS_CHUNK_SIZE: '7', WORKER_CONCURRENCY: '2' } });
-  jobs = await startJobQueue(t.ctx, { pollingIntervalS: 0.5, superviseS: 1 });
-  t.ctx.jobs = jobs;
-  const sequenceId = await createSequence(t, await crewOf(t, PEOPLE.trainee), 'Robustness run test');
-  const saved = await saveVersion(t, sequenceId, 0);
-  expect(saved.status).toBe(201);
-  versionId = bodyOf<VersionDetail>(saved).id;
-}, 120_000);
-afterAll(async () => {
-  await jobs?.stop();
-  await t?.close();
+  versionId = await draftedVersion(t, await crewOf(t, PEOPLE.trainee), 'Robustness run test');
 });
 
 describe('robustness run of a saved version', () => {
@@ -111,7 +101,7 @@ describe('robustness run of a saved version', () => {
     const done = chunks.filter((c) => c.state === 'done').length;
     expect(done).toBe(doneAtCancel);
     expect(chunks.filter((c) => c.state === 'queued' || c.state === 'running')).toHaveLength(0);
-    const live = (await jobs.boss.findJobs(ROBUSTNESS_CHUNK_QUEUE, { data: { runId } })).filter((j) => ['created', 'retry', 'active'].includes(j.state));
+    const live = (await t.jobs.boss.findJobs(ROBUSTNESS_CHUNK_QUEUE, { data: { runId } })).filter((j) => ['created', 'retry', 'active'].includes(j.state));
     expect(live).toHaveLength(0);
     const [row] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
     expect(row.state).toBe('cancelled');
@@ -125,7 +115,7 @@ describe('robustness run of a saved version', () => {
     const v = (await loadStoredVersion(t.ctx.db, versionId))!;
     const runId = await createRobustnessRun(t.ctx.db, { ...versionRunInputs(v), samples: 10, chunkSize: 10 });
     await t.ctx.db.update(robustnessRuns).set({ inputs: sql`jsonb_set(${robustnessRuns.inputs}, '{body,segments,0,mass}', '"heavy"')` }).where(eq(robustnessRuns.id, runId));
-    await jobs.enqueueRobustness!(runId);
+    await t.jobs.enqueueRobustness!(runId);
     const row = await eventually(async () => {
       const [r] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
       return r.state === 'queued' || r.state === 'running' ? undefined : r;

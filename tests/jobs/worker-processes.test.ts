@@ -9,24 +9,22 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 import { and, eq } from 'drizzle-orm';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
+import { afterEach, beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, plans, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
-import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { PLAN_QUEUE, ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
 import { queueVersionRobustness } from '../../server/jobs/robustness/version-robustness.ts';
-import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { Plan } from '../../shared/contracts/plan.ts';
-import { as, createSequence, crewOf, PEOPLE, saveVersion } from '../maneuvers/maneuver-api.ts';
+import { as, crewOf, draftedVersion, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { createQuarterTurnSequence } from '../planning/quarter-turn-sequence.ts';
 import { eventually } from '../support/eventually.ts';
 import { bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
-let t: TestApp;
-let sender: RunningJobQueue;
+// This process only sends jobs (like the API process); the workers are separate processes.
+const t = testAppForFile({ env: { ROBUSTNESS_SAMPLES: '10', ROBUSTNESS_CHUNK_SIZE: '10' }, jobQueue: { worker: false, reconcile: false } });
 let versionId: string;
 const children: ChildProcess[] = [];
 
@@ -71,22 +69,22 @@ function kill(child: ChildProcess): Promise<void> {
   });
 }
 
+const runRow = async (id: string) => (await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, id)))[0];
+const planRow = async (id: string) => (await t.ctx.db.select().from(plans).where(eq(plans.id, id)))[0];
+
+/** The record once its work has ended (done or failed): what the surviving worker made of it. */
+function whenEnded<R extends { state: string }>(read: () => Promise<R>): Promise<R> {
+  return eventually(async () => {
+    const r = await read();
+    return r.state === 'done' || r.state === 'failed' ? r : undefined;
+  }, 120_000, 250);
+}
+
 beforeAll(async () => {
-  t = await startTestApp({ env: { ROBUSTNESS_SAMPLES: '10', ROBUSTNESS_CHUNK_SIZE: '10' } });
-  // This process only sends jobs (like the API process); the workers are separate processes.
-  sender = await startJobQueue(t.ctx, { worker: false, reconcile: false });
-  t.ctx.jobs = sender;
-  const sequenceId = await createSequence(t, await crewOf(t, PEOPLE.trainee), 'Worker kill test');
-  const saved = await saveVersion(t, sequenceId, 0);
-  expect(saved.status).toBe(201);
-  versionId = bodyOf<VersionDetail>(saved).id;
-}, 120_000);
+  versionId = await draftedVersion(t, await crewOf(t, PEOPLE.trainee), 'Worker kill test');
+});
 afterEach(async () => {
   await Promise.all(children.splice(0).map(kill));
-});
-afterAll(async () => {
-  await sender?.stop();
-  await t?.close();
 });
 
 describe('worker processes', () => {
@@ -101,21 +99,17 @@ describe('worker processes', () => {
     await new Promise((r) => setTimeout(r, 500));
     await kill(first);
     const killedAt = Date.now();
-    const [held] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
-    expect(held.state).toBe('running');
+    expect((await runRow(runId)).state).toBe('running');
 
     await startWorker('worker B');
-    const run = await eventually(async () => {
-      const [r] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
-      return r.state === 'done' || r.state === 'failed' ? r : undefined;
-    }, 120_000, 250);
+    const run = await whenEnded(() => runRow(runId));
     expect(run.error).toBeNull();
     expect(run.state).toBe('done');
     expect(run.doneSamples).toBe(1500);
     // Retried within the minute the product promises (the retry's own computation is on top).
     const [chunk] = await t.ctx.db.select().from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
     expect(chunk.attempts).toBe(2);
-    const [job] = await sender.boss.findJobs(ROBUSTNESS_CHUNK_QUEUE, { data: { runId } });
+    const [job] = await t.jobs.boss.findJobs(ROBUSTNESS_CHUNK_QUEUE, { data: { runId } });
     expect(job.state).toBe('completed');
     expect(job.retryCount).toBe(1);
     expect(+job.startedOn - killedAt).toBeLessThan(60_000);
@@ -131,19 +125,15 @@ describe('worker processes', () => {
     expect(res.status).toBe(202);
     const { planId } = res.body as { planId: string };
     await eventually(async () => {
-      const [p] = await t.ctx.db.select().from(plans).where(eq(plans.id, planId));
+      const p = await planRow(planId);
       return p.state !== 'queued' ? p : undefined;
     }, 60_000, 20);
     await kill(first);
-    const [killed] = await t.ctx.db.select().from(plans).where(eq(plans.id, planId));
     // The plan was cut off mid-run (a plan takes seconds; the kill follows its start within ~20 ms).
-    expect(killed.state).toBe('running');
+    expect((await planRow(planId)).state).toBe('running');
 
     await startWorker('worker D');
-    const plan = await eventually(async () => {
-      const [p] = await t.ctx.db.select().from(plans).where(eq(plans.id, planId));
-      return p.state === 'done' || p.state === 'failed' ? p : undefined;
-    }, 120_000, 250);
+    const plan = await whenEnded(() => planRow(planId));
     expect(plan.error).toBeNull();
     expect(plan.state).toBe('done');
     expect((plan.candidates as unknown[]).length).toBeGreaterThan(0);
@@ -156,14 +146,14 @@ describe('worker processes', () => {
     const res = await as(t, PEOPLE.planner).post(`/sequences/${sequenceId}/plans`, { samples: 20, maxCandidates: 3 });
     const { planId } = res.body as { planId: string };
     // Stand in for workers that died on every attempt: claim the job, mark the plan running, fail the job for good.
-    const [job] = await sender.boss.findJobs(PLAN_QUEUE, { data: { planId } });
-    await sender.boss.deleteJob(PLAN_QUEUE, job.id);
-    await sender.boss.send(PLAN_QUEUE, { planId }, { retryLimit: 0 });
-    const [claimed] = await sender.boss.fetch(PLAN_QUEUE);
+    const [job] = await t.jobs.boss.findJobs(PLAN_QUEUE, { data: { planId } });
+    await t.jobs.boss.deleteJob(PLAN_QUEUE, job.id);
+    await t.jobs.boss.send(PLAN_QUEUE, { planId }, { retryLimit: 0 });
+    const [claimed] = await t.jobs.boss.fetch(PLAN_QUEUE);
     await t.ctx.db.update(plans).set({ state: 'running', createdAt: new Date(Date.now() - 60_000) }).where(eq(plans.id, planId));
-    await sender.boss.fail(PLAN_QUEUE, claimed.id, { message: 'heartbeat lost' });
+    await t.jobs.boss.fail(PLAN_QUEUE, claimed.id, { message: 'heartbeat lost' });
 
-    const result = await reconcileWork(t.ctx, sender);
+    const result = await reconcileWork(t.ctx, t.jobs);
     expect(result.failed).toBeGreaterThanOrEqual(1);
     const [plan] = await t.ctx.db.select().from(plans).where(eq(plans.id, planId));
     expect(plan.state).toBe('failed');

@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, expect, it } from 'vitest';
+import { expect, it } from 'vitest';
 
 import { profileVersions } from '../../db/schema/index.ts';
 import { canonicalJson } from '../../server/maneuvers/inputs-hash.ts';
@@ -19,17 +19,11 @@ import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { simulationResultSchema } from '../../shared/contracts/result.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from './maneuver-api.ts';
 
 const root = fileURLToPath(new URL('../../', import.meta.url).href);
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp();
-}, 120_000);
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile();
 
 it('the API report and the simulate CLI agree on the final attitude (≤ 1e-9 rad) for the same steps and body', async () => {
   const crew = await crewOf(t, PEOPLE.otherTrainee);

@@ -4,13 +4,13 @@
  * went to review can be deleted with its drafts in one transaction.
  */
 import { eq, inArray } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, crewMembers, robustnessRuns, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import type { CrewMemberView } from '../../shared/contracts/crew.ts';
 import type { SequenceDetail, SequenceListItem, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
 
 // Response bodies as the web client reads them.
@@ -18,14 +18,10 @@ type SequencesBody = { sequences: SequenceListItem[] };
 type MemberBody = { member: CrewMemberView };
 type MembersBody = { members: CrewMemberView[] };
 
-let t: TestApp;
+const t = testAppForFile();
 let crew: string;
 beforeAll(async () => {
-  t = await startTestApp();
   crew = await crewOf(t, PEOPLE.trainee);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const names = (res: { body: unknown }) => bodyOf<SequencesBody>(res).sequences.map((s) => s.name);

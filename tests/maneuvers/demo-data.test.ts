@@ -7,7 +7,7 @@
  * the stream seeded by (seed, i)).
  */
 import { eq, isNotNull, or } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 
 import { reverifications, robustnessChunks, robustnessRuns, sequenceVersions } from '../../db/schema/index.ts';
 import { DEMO_ERROR_DIGITS } from '../../db/seed/demo-robustness.ts';
@@ -15,19 +15,13 @@ import { runFigures, storedRunInputs, storedSamples } from '../../server/jobs/ro
 import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
 import type { ReviewQueueItem, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as,PEOPLE } from './maneuver-api.ts';
 
 /** The stored errors are rounded to 1e-6°. */
 const STORED_TOL_DEG = 10 ** -DEMO_ERROR_DIGITS;
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp();
-});
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile();
 
 describe('demo data', () => {
   it('computes every demo version\'s robustness ahead (none left queued: otherwise run npx tsx db/seed/precompute-demo-robustness.ts)', async () => {

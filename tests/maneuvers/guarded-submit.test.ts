@@ -5,16 +5,15 @@
  * failures. The checks' wording is shared by the server's refusal and the screens.
  */
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, sequenceVersions } from '../../db/schema/index.ts';
-import { type RunningJobQueue,startJobQueue } from '../../server/jobs/job-queue.ts';
 import type { ReviewQueueItem, VerificationReport, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { RobustnessRun } from '../../shared/contracts/robustness-run.ts';
 import { failuresSentence, type ReportForChecks,versionCheckFailures } from '../../shared/product/version-checks.ts';
 import { eventually } from '../support/eventually.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion,THREE_STEPS } from './maneuver-api.ts';
 
 // Response bodies as the web client reads them.
@@ -69,17 +68,11 @@ describe('the checks (pure)', () => {
   });
 });
 
-let t: TestApp;
-let jobs: RunningJobQueue | null = null;
+// Small robustness runs: the run's figures are not under test, only whether one finished.
+const t = testAppForFile({ env: { ROBUSTNESS_SAMPLES: '20', ROBUSTNESS_CHUNK_SIZE: '10' } });
 let crew: string;
 beforeAll(async () => {
-  // Small robustness runs: the run's figures are not under test, only whether one finished.
-  t = await startTestApp({ env: { ROBUSTNESS_SAMPLES: '20', ROBUSTNESS_CHUNK_SIZE: '10' } });
   crew = await crewOf(t, PEOPLE.trainee);
-}, 120_000);
-afterAll(async () => {
-  await jobs?.stop();
-  await t?.close();
 });
 
 const submit = (id: string, body: object = {}, by: string = PEOPLE.planner) => as(t, by).post(`/sequences/versions/${id}/submit`, body);
@@ -142,8 +135,7 @@ describe('POST …/submit', () => {
     expect(waiting.status).toBe(409);
     expect(apiError(waiting).message).toMatch(/^Version 2: Fails 1 check: its robustness is not computed yet \(run queued, 0 %\)\./);
 
-    jobs = await startJobQueue(t.ctx, { pollingIntervalS: 0.5, superviseS: 1 });
-    t.ctx.jobs = jobs;
+    await t.startJobQueue({ pollingIntervalS: 0.5, superviseS: 1 });
     await eventually(async () => {
       const r = await as(t, PEOPLE.planner).get(`/sequences/versions/${id}/robustness`);
       return bodyOf<RobustnessRun>(r).state === 'done' ? true : undefined;

@@ -5,25 +5,19 @@
  * detail; and a cached read never outlives a write (server/http/read-cache.ts).
  */
 import { eq, isNotNull } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { summarizeReport } from '../../server/maneuvers/build-report.ts';
 import { type SequenceDetail, type SequenceListItem, sequenceListItemSchema, type VerificationReport, type VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE } from './maneuver-api.ts';
 
 // Response bodies as the web client reads them.
 type SequencesBody = { sequences: SequenceListItem[]; next: string | null };
 
-let t: TestApp;
-beforeAll(async () => {
-  t = await startTestApp();
-}, 120_000);
-afterAll(async () => {
-  await t?.close();
-});
+const t = testAppForFile();
 
 describe('report summary column', () => {
   it('equals summarizeReport() for every seeded report (two code paths that must agree)', async () => {

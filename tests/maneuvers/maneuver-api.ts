@@ -55,15 +55,20 @@ export async function saveVersion(t: TestApp, sequenceId: string, baseVersion: n
   return as(t, by).post(`/sequences/${sequenceId}/versions`, { primitives, baseVersion });
 }
 
+/** Creates a sequence and saves its first version (drafting); returns the version's id. */
+export async function draftedVersion(t: TestApp, crewMemberId: string, name: string): Promise<string> {
+  const sequenceId = await createSequence(t, crewMemberId, name);
+  const saved = await saveVersion(t, sequenceId, 0);
+  if (saved.status !== 201) throw new Error(`save version: ${saved.status} ${JSON.stringify(saved.body)}`);
+  return bodyOf<VersionDetail>(saved).id;
+}
+
 /**
  * Creates a sequence, saves one version, submits it (acknowledging any failed checks: these tests are
  * about what happens to a cleared version, not the checks) and has the reviewer clear it; returns its id.
  */
 export async function clearedVersion(t: TestApp, crewMemberId: string, name: string): Promise<string> {
-  const sequenceId = await createSequence(t, crewMemberId, name);
-  const saved = await saveVersion(t, sequenceId, 0);
-  if (saved.status !== 201) throw new Error(`save version: ${saved.status}`);
-  const v = bodyOf<VersionDetail>(saved).id;
+  const v = await draftedVersion(t, crewMemberId, name);
   const submitted = await as(t, PEOPLE.planner).post(`/sequences/versions/${v}/submit`, { acknowledgeFailures: true, note: `${name}: checks acknowledged` });
   if (submitted.status !== 200) throw new Error(`submit: ${submitted.status}`);
   const cleared = await as(t, PEOPLE.reviewer).post(`/reviews/${v}/decision`, { decision: 'clear', comment: '' });

@@ -5,17 +5,16 @@
  * re-clears it or sends it back; what the trainee reads about the stale version is true at each step.
  */
 import { and, desc, eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, reverifications, sequenceVersions } from '../../db/schema/index.ts';
-import { type RunningJobQueue,startJobQueue } from '../../server/jobs/job-queue.ts';
 import type { ReviewQueueItem, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import type { SaveProfileResponse } from '../../shared/contracts/profile-version.ts';
 import type { RehearsableVersion } from '../../shared/contracts/rehearsal.ts';
 import { type RecheckInfo,recheckMessage } from '../../shared/product/recheck-status.ts';
 import { eventually } from '../support/eventually.ts';
 import { bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
 
 describe('what the trainee reads (pure)', () => {
@@ -35,16 +34,10 @@ describe('what the trainee reads (pure)', () => {
   });
 });
 
-let t: TestApp;
-let jobs: RunningJobQueue | null = null;
+const t = testAppForFile({ env: { ROBUSTNESS_SAMPLES: '20', ROBUSTNESS_CHUNK_SIZE: '10' } });
 let crew: string;
 beforeAll(async () => {
-  t = await startTestApp({ env: { ROBUSTNESS_SAMPLES: '20', ROBUSTNESS_CHUNK_SIZE: '10' } });
   crew = await crewOf(t, PEOPLE.trainee);
-}, 120_000);
-afterAll(async () => {
-  await jobs?.stop();
-  await t?.close();
 });
 
 async function clearedVersion(name: string): Promise<{ sequenceId: string; id: string }> {
@@ -86,8 +79,7 @@ describe('a profile change on cleared maneuvers', () => {
     const second = await changeProfile(62.2);
     expect((second.body as SaveProfileResponse).staleVersions.find((s) => s.versionId === a.id)).toMatchObject({ was: 'recheck', onceCleared: true });
 
-    jobs = await startJobQueue(t.ctx, { pollingIntervalS: 0.5, superviseS: 1 });
-    t.ctx.jobs = jobs;
+    await t.startJobQueue({ pollingIntervalS: 0.5, superviseS: 1 });
     const [member] = await t.ctx.db.select().from(crewMembers).where(eq(crewMembers.id, crew));
     const successorOf = async (old: string) => {
       const rows = await t.ctx.db.select().from(sequenceVersions).where(eq(sequenceVersions.recheckOfId, old));

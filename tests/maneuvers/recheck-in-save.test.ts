@@ -7,7 +7,7 @@
  */
 import { and, eq } from 'drizzle-orm';
 import type { PgBoss } from 'pg-boss';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, profileVersions, reverifications, sequenceVersions } from '../../db/schema/index.ts';
 import type { JobQueue } from '../../server/app-context.ts';
@@ -15,20 +15,16 @@ import { appendProfileVersion } from '../../server/crew/append-profile-version.t
 import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
 import type { ProfileVersionView } from '../../shared/contracts/profile-version.ts';
 import { bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as, clearedVersion, crewOf, PEOPLE } from './maneuver-api.ts';
 
 // Response bodies as the web client reads them.
 type VersionBody = { version: ProfileVersionView };
 
-let t: TestApp;
+const t = testAppForFile();
 let crew: string;
 beforeAll(async () => {
-  t = await startTestApp();
   crew = await crewOf(t, PEOPLE.trainee);
-}, 120_000);
-afterAll(async () => {
-  await t?.close();
 });
 
 

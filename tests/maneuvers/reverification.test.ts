@@ -5,31 +5,23 @@
  * on the same compiled steps and the new body; a failing job is retried and finally marked failed.
  */
 import { and, eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { crewMembers, profileVersions, reverifications, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { simulate } from '../../server/engine/simulate.ts';
-import { REVERIFY_RETRY_LIMIT, type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
+import { REVERIFY_RETRY_LIMIT } from '../../server/jobs/job-queue.ts';
 import { readStoredCompiled } from '../../server/maneuvers/stored-version.ts';
 import type { VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { quatAngleBetween } from '../../shared/math/quaternion.ts';
 import { eventually } from '../support/eventually.ts';
 import { bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion } from './maneuver-api.ts';
 
-let t: TestApp;
-let jobs: RunningJobQueue;
+const t = testAppForFile({ jobQueue: { retryDelayS: 1, pollingIntervalS: 1 } });
 let crew: string;
 beforeAll(async () => {
-  t = await startTestApp();
-  jobs = await startJobQueue(t.ctx, { retryDelayS: 1, pollingIntervalS: 1 });
-  t.ctx.jobs = jobs;
   crew = await crewOf(t, PEOPLE.trainee);
-}, 120_000);
-afterAll(async () => {
-  await jobs?.stop();
-  await t?.close();
 });
 
 const DEG = 180 / Math.PI;
@@ -81,7 +73,7 @@ describe('re-verification after a profile change', () => {
     const expectedShift = quatAngleBetween(quat(old), quat(direct.final.attitude)) * DEG;
     expect(done.attitudeShiftDeg).toBeCloseTo(expectedShift, 6);
     // A heavier body turns less for the same limb motion: the attitude really moved.
-    expect(done.attitudeShiftDeg!).toBeGreaterThan(1e-4);
+    expect(done.attitudeShiftDeg).toBeGreaterThan(1e-4);
 
     // The API shows the difference; a recheck version cannot be submitted again.
     const detail = await as(t, PEOPLE.planner).get(`/sequences/versions/${cleared}`);

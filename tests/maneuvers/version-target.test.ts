@@ -4,22 +4,18 @@
  * latest version is under review or cleared cannot be retargeted (409 cleared_version).
  */
 import { eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { sequences, sequenceVersions } from '../../db/schema/index.ts';
 import type { SequenceDetail, SequenceTarget, VersionDetail } from '../../shared/contracts/maneuver.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { as, createSequence, crewOf, PEOPLE, saveVersion, THREE_STEPS } from './maneuver-api.ts';
 
-let t: TestApp;
+const t = testAppForFile();
 let crew: string;
 beforeAll(async () => {
-  t = await startTestApp();
   crew = await crewOf(t, PEOPLE.trainee);
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const ypr = (yaw: number, pitch = 0, roll = 0) => ({ mode: 'ypr' as const, yprDeg: { yaw, pitch, roll }, toleranceDeg: 3 });

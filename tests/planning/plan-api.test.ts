@@ -4,32 +4,23 @@
  * meets the sequence's tolerance; refusals name the field; every request leaves an audit event.
  */
 import { and, eq } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents } from '../../db/schema/index.ts';
-import { type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import type { CandidateMotionResponse } from '../../shared/contracts/motion.ts';
 import { CANDIDATE_TRACK_POINTS, type Plan } from '../../shared/contracts/plan.ts';
 import { as, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { createQuarterTurnSequence } from './quarter-turn-sequence.ts';
 
-let t: TestApp;
-let jobs: RunningJobQueue;
+const t = testAppForFile({ jobQueue: { pollingIntervalS: 1 } });
 let sequenceId: string;
 /** The finished plan of the first test (the motion test previews its candidates). */
 let donePlan: Plan | undefined;
 beforeAll(async () => {
-  t = await startTestApp();
-  jobs = await startJobQueue(t.ctx, { pollingIntervalS: 1 });
-  t.ctx.jobs = jobs;
   sequenceId = await createQuarterTurnSequence(t, 'Quarter turn (plan test)');
-}, 120_000);
-afterAll(async () => {
-  await jobs?.stop();
-  await t?.close();
 });
 
 

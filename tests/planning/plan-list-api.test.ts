@@ -10,20 +10,18 @@ import type { Plan, PlanCreated, PlanList } from '../../shared/contracts/plan.ts
 import { as, PEOPLE } from '../maneuvers/maneuver-api.ts';
 import { eventually } from '../support/eventually.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { createQuarterTurnSequence } from './quarter-turn-sequence.ts';
 
-let t: TestApp;
+const t = testAppForFile();
 let jobs: RunningJobQueue | undefined;
 let sequenceId: string;
 beforeAll(async () => {
   // No job queue yet: a requested plan stays queued until one starts.
-  t = await startTestApp();
   sequenceId = await createQuarterTurnSequence(t, 'Quarter turn (plan list test)');
-}, 120_000);
+});
 afterAll(async () => {
   await jobs?.stop();
-  await t?.close();
 });
 
 

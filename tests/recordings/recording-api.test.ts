@@ -4,28 +4,24 @@
  */
 import { eq, sql } from 'drizzle-orm';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { recordings, uploadRows, uploads } from '../../db/schema/index.ts';
 import type { RecordingView } from '../../shared/contracts/recording.ts';
 import type { UploadResult } from '../../shared/contracts/uploads.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { writeBvh } from './bvh-writer.ts';
 
 // Response bodies as the web client reads them.
 type RecordingBody = { recording: RecordingView };
 
-let t: TestApp;
+const t = testAppForFile();
 let planner: string;
 let trainee: string;
 beforeAll(async () => {
-  t = await startTestApp();
   planner = `Bearer ${await t.tokenFor('planner')}`;
   trainee = `Bearer ${await t.tokenFor('trainee')}`;
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const api = () => request(t.app);

@@ -6,7 +6,7 @@
  */
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { profileVersions, rehearsalCaptures } from '../../db/schema/index.ts';
 import { anglesAt, compileMotion } from '../../server/engine/joint-motion.ts';
@@ -18,7 +18,7 @@ import type { UploadResult } from '../../shared/contracts/uploads.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from '../rehearse/rehearsal-fixture.ts';
 import { bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them.
 type RehearsalBody = { rehearsal: Rehearsal };
@@ -26,11 +26,10 @@ type CaptureBody = { capture: RehearsalCapture };
 type PointsBody = { points: CaptureTrendPoint[] };
 
 const TAMSIN = 'tamsin.reed@lumen.example.test';
-let t: TestApp;
+const t = testAppForFile();
 let version: string;
 let csv: string;
 beforeAll(async () => {
-  t = await startTestApp();
   const member = await crewMemberOf(t.ctx.db, TAMSIN);
   const pv = await insertProfileVersion(t.ctx.db, member);
   version = await insertVersion(t.ctx.db, { crewMemberId: member, profileVersionId: pv, status: 'cleared', name: 'Recorded cone' });
@@ -51,9 +50,6 @@ beforeAll(async () => {
     lines.push([(k / 100).toFixed(2), ...dofs.map((d, j) => (offsets[j] + 0.9 * ((q[model.dofIndex.get(d)!] * 180) / Math.PI - offsets[j])).toFixed(6))].join(','));
   }
   csv = lines.join('\n');
-});
-afterAll(async () => {
-  await t?.close();
 });
 
 const as = async (email: string) => `Bearer ${await t.tokenForEmail(email)}`;

@@ -1,6 +1,6 @@
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 
 import { profileVersions, sequenceVersions } from '../../db/schema/index.ts';
 import { simulate } from '../../server/engine/simulate.ts';
@@ -14,7 +14,7 @@ import { compilePrimitives, dofInfoFromBody } from '../../shared/primitives/comp
 import { cueFor, leadInCue } from '../../shared/primitives/primitive-cues.ts';
 import { defaultPrimitive } from '../../shared/primitives/primitive-schemas.ts';
 import { apiError, bodyOf } from '../support/response-body.ts';
-import { startTestApp, type TestApp } from '../support/test-app.ts';
+import { testAppForFile } from '../support/test-app.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from './rehearsal-fixture.ts';
 
 // Response bodies as the web client reads them.
@@ -25,10 +25,9 @@ type RehearsalsBody = { rehearsals: Rehearsal[] };
 const TAMSIN = 'tamsin.reed@lumen.example.test';
 const BRAM = 'bram.kettle@lumen.example.test';
 
-let t: TestApp;
+const t = testAppForFile();
 let cleared: string, drafting: string, others: string, recheck: string;
 beforeAll(async () => {
-  t = await startTestApp();
   const reed = await crewMemberOf(t.ctx.db, TAMSIN);
   const kettle = await crewMemberOf(t.ctx.db, BRAM);
   const pv = await insertProfileVersion(t.ctx.db, reed);
@@ -39,9 +38,6 @@ beforeAll(async () => {
   await t.ctx.db.update(sequenceVersions).set({ status: 'recheck' }).where(eq(sequenceVersions.id, recheck));
   others = await insertVersion(t.ctx.db, { crewMemberId: kettle, profileVersionId: pvK, status: 'cleared', name: 'Kettle sweep' });
 }, 60_000);
-afterAll(async () => {
-  await t?.close();
-});
 
 const quat = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
 const get = async (email: string, path: string) => request(t.app).get(path).set('Authorization', `Bearer ${await t.tokenForEmail(email)}`);

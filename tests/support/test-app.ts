@@ -6,6 +6,7 @@ import type { Express } from 'express';
 import type pg from 'pg';
 import type { DestinationStream } from 'pino';
 import request from 'supertest';
+import { afterAll, beforeAll } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { seedDemo } from '../../db/seed/run-seed.ts';
@@ -13,6 +14,7 @@ import { createApp } from '../../server/app.ts';
 import type { AppContext } from '../../server/app-context.ts';
 import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
+import { type JobQueueOptions, type RunningJobQueue, startJobQueue } from '../../server/jobs/job-queue.ts';
 import { type SmtpFake, startSmtpFake } from '../../server/mail/smtp-fake.ts';
 import { type S3Fake, startS3Fake } from '../../server/storage/s3-fake.ts';
 import { signInResponseSchema } from '../../shared/contracts/auth.ts';
@@ -37,7 +39,15 @@ export interface TestApp {
 /** Low bcrypt cost for speed: tests only; production refuses < 12 (server/config.ts). */
 export const TEST_BCRYPT_COST = 4;
 
-export async function startTestApp(opts: { seed?: boolean; env?: Record<string, string>; logDestination?: DestinationStream } = {}): Promise<TestApp> {
+export interface TestAppOptions {
+  /** Seed the demo scenario (default true). */
+  seed?: boolean;
+  /** Settings over the test defaults (server/config.ts names). */
+  env?: Record<string, string>;
+  logDestination?: DestinationStream;
+}
+
+export async function startTestApp(opts: TestAppOptions = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   const mail = await startSmtpFake();
   const s3Dir = mkdtempSync(path.join(os.tmpdir(), 'hn-s3-'));
@@ -84,5 +94,64 @@ export async function startTestApp(opts: { seed?: boolean; env?: Record<string, 
       rmSync(s3Dir, { recursive: true, force: true });
       await database.drop();
     },
+  };
+}
+
+/** The app of one test file, with the job queue it asked for. */
+export interface FileTestApp extends TestApp {
+  /** The job queue started with the app (`jobQueue` option) or by `startJobQueue`; also the app's `ctx.jobs`. */
+  readonly jobs: RunningJobQueue;
+  /** Starts the job queue now (after a test has seen work wait for it); it stops before the app closes. */
+  startJobQueue(opts: JobQueueOptions): Promise<RunningJobQueue>;
+}
+
+/** Starting a cluster-backed app (clone, seed, fakes) takes long on a loaded machine. */
+const START_TIMEOUT_MS = 120_000;
+
+/**
+ * The test file's app: started in `beforeAll`, closed in `afterAll` (after the file's own `afterAll`
+ * hooks, which vitest runs in reverse order). The object returned reads through to the running app, so
+ * tests and helpers use it as a TestApp; used before the start it says so instead of reading undefined.
+ * `jobQueue` also starts a job queue on it with those options, stopped before the app closes.
+ */
+export function testAppForFile(opts: TestAppOptions & { jobQueue?: JobQueueOptions } = {}): FileTestApp {
+  let started: TestApp | undefined;
+  let jobs: RunningJobQueue | undefined;
+  const running = (): TestApp => {
+    if (!started) throw new Error('the file\'s test app runs from beforeAll to afterAll: use it inside a hook or a test');
+    return started;
+  };
+  const startJobs = async (queueOpts: JobQueueOptions) => {
+    const { ctx } = running();
+    jobs = await startJobQueue(ctx, queueOpts);
+    ctx.jobs = jobs;
+    return jobs;
+  };
+  beforeAll(async () => {
+    started = await startTestApp(opts);
+    if (opts.jobQueue) await startJobs(opts.jobQueue);
+  }, START_TIMEOUT_MS);
+  const stop = async () => {
+    const app = started;
+    started = undefined;
+    await jobs?.stop();
+    jobs = undefined;
+    await app?.close();
+  };
+  afterAll(stop);
+  return {
+    get app() { return running().app; },
+    get ctx() { return running().ctx; },
+    get pool() { return running().pool; },
+    get mail() { return running().mail; },
+    get s3() { return running().s3; },
+    get jobs() {
+      if (!jobs) throw new Error('no job queue yet: pass the jobQueue option to testAppForFile or call startJobQueue');
+      return jobs;
+    },
+    startJobQueue: startJobs,
+    tokenFor: (role) => running().tokenFor(role),
+    tokenForEmail: (email) => running().tokenForEmail(email),
+    close: stop,
   };
 }
