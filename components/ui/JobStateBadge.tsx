@@ -1,9 +1,9 @@
-import type { WorkState } from '@/shared/contracts/background-work';
+import type { JobState } from '@/shared/contracts/job-state';
 
 import { Badge, type BadgeTone } from './Badge';
 
 /** Grey waits, teal runs, green ended well, red failed, amber was stopped by someone. */
-const LOOK: Record<WorkState, { label: string; tone: BadgeTone }> = {
+const LOOK: Record<JobState, { label: string; tone: BadgeTone }> = {
   queued: { label: 'Queued', tone: 'neutral' },
   running: { label: 'Running', tone: 'teal' },
   done: { label: 'Done', tone: 'success' },
@@ -14,7 +14,7 @@ const LOOK: Record<WorkState, { label: string; tone: BadgeTone }> = {
 /** Props of {@link JobStateBadge}. */
 export interface JobStateBadgeProps {
   /** A background job's state (plans, robustness runs and re-verifications share these states). */
-  state: WorkState;
+  state: JobState;
   /** The word for `done` where a screen says what was done (e.g. "Computed"); default "Done". */
   doneLabel?: string;
 }

@@ -1,7 +1,8 @@
 import { doublePrecision, index, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
+import { JOB_STATES } from '../../shared/contracts/job-state.ts';
 import type { SequenceTargetInput } from '../../shared/contracts/maneuver.ts';
-import { PLAN_STATES,type PlanCandidate, type PlanSettings } from '../../shared/contracts/plan.ts';
+import type { PlanCandidate, PlanSettings } from '../../shared/contracts/plan.ts';
 import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { profileVersions } from './crew.ts';
 import { sequences } from './sequences.ts';
@@ -19,7 +20,7 @@ export const plans = pgTable(
   // The body the plan used (the crew member's current profile version when requested).
   profileVersionId: linkTo('profile_version_id', () => profileVersions.id).notNull(),
   requestedBy: linkTo('requested_by', () => users.id),
-  state: text('state', { enum: PLAN_STATES }).notNull().default('queued'),
+  state: text('state', { enum: JOB_STATES }).notNull().default('queued'),
   // The sequence target at request time (SequenceTarget JSON).
   target: jsonb('target').$type<SequenceTargetInput>().notNull(),
   // PlanSettings JSON.

@@ -1,6 +1,7 @@
 import { bigint, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, uuid } from 'drizzle-orm/pg-core';
 
-import { ROBUSTNESS_STATES,type RobustnessModel } from '../../shared/contracts/robustness.ts';
+import { JOB_STATES } from '../../shared/contracts/job-state.ts';
+import type { RobustnessModel } from '../../shared/contracts/robustness.ts';
 import type { RobustnessFigures, RobustnessRunInputs, RobustnessSample } from '../../shared/contracts/robustness-stored.ts';
 import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { plans } from './plans.ts';
@@ -20,7 +21,7 @@ export const robustnessRuns = pgTable(
     sequenceVersionId: linkTo('sequence_version_id', () => sequenceVersions.id),
     planId: linkTo('plan_id', () => plans.id),
     candidateIndex: integer('candidate_index'),
-    state: text('state', { enum: ROBUSTNESS_STATES }).notNull().default('queued'),
+    state: text('state', { enum: JOB_STATES }).notNull().default('queued'),
     samples: integer('samples').notNull(),
     chunkSize: integer('chunk_size').notNull(),
     seed: bigint('seed', { mode: 'number' }).notNull(),
@@ -51,7 +52,7 @@ export const robustnessChunks = pgTable(
     chunkIndex: integer('chunk_index').notNull(),
     fromSample: integer('from_sample').notNull(),
     toSample: integer('to_sample').notNull(),
-    state: text('state', { enum: ROBUSTNESS_STATES }).notNull().default('queued'),
+    state: text('state', { enum: JOB_STATES }).notNull().default('queued'),
     // Once done.
     results: jsonb('results').$type<RobustnessSample[]>(),
     attempts: integer('attempts').notNull().default(0),

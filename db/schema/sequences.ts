@@ -1,7 +1,8 @@
 import { sql } from 'drizzle-orm';
 import { type AnyPgColumn, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, unique } from 'drizzle-orm/pg-core';
 
-import { type ReportSummary, REVERIFICATION_STATES, type SequenceTargetInput, type VerificationReport } from '../../shared/contracts/maneuver.ts';
+import { JOB_STATES } from '../../shared/contracts/job-state.ts';
+import { type ReportSummary, type SequenceTargetInput, type VerificationReport } from '../../shared/contracts/maneuver.ts';
 import { VERSION_STATUSES } from '../../shared/contracts/version-status.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import type { CheckFailure } from '../../shared/product/version-checks.ts';
@@ -98,7 +99,7 @@ export const reverifications = pgTable(
   sequenceVersionId: linkTo('sequence_version_id', () => sequenceVersions.id).notNull(),
   fromProfileVersionId: linkTo('from_profile_version_id', () => profileVersions.id).notNull(),
   toProfileVersionId: linkTo('to_profile_version_id', () => profileVersions.id).notNull(),
-  state: text('state', { enum: REVERIFICATION_STATES }).notNull().default('queued'),
+  state: text('state', { enum: JOB_STATES }).notNull().default('queued'),
   // Angle between the old and the recomputed final attitude, degrees.
   attitudeShiftDeg: doublePrecision('attitude_shift_deg'),
   report: jsonb('report').$type<VerificationReport>(),

@@ -9,7 +9,8 @@ import { and, desc, eq, inArray, type SQL, sql } from 'drizzle-orm';
 
 import { plans, reverifications, robustnessChunks, robustnessRuns, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
-import type { BackgroundWork, QueueCounts, WorkFilter, WorkItem, WorkKind, WorkState } from '../../shared/contracts/background-work.ts';
+import type { BackgroundWork, QueueCounts, WorkFilter, WorkItem, WorkKind } from '../../shared/contracts/background-work.ts';
+import type { JobState } from '../../shared/contracts/job-state.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { conflict, HttpError, notFound } from '../http/http-error.ts';
@@ -18,7 +19,7 @@ import { cancelRobustnessRun, OPEN_STATES } from './robustness/robustness-runs.t
 import { cancelPlan } from './run-plan.ts';
 
 const LIMIT = 100;
-const STATES_OF: Record<WorkFilter, WorkState[]> = { open: ['queued', 'running'], failed: ['failed', 'cancelled'], done: ['done'] };
+const STATES_OF: Record<WorkFilter, JobState[]> = { open: ['queued', 'running'], failed: ['failed', 'cancelled'], done: ['done'] };
 
 /** The list for one filter, newest first. */
 export async function listBackgroundWork(ctx: AppContext, filter: WorkFilter): Promise<BackgroundWork> {
@@ -61,7 +62,7 @@ export async function listBackgroundWork(ctx: AppContext, filter: WorkFilter): P
 }
 
 function item(kind: WorkKind, id: string, label: string, state: string, progress: number | null, error: string | null, attempts: number, createdAt: Date, finishedAt: Date | null): WorkItem {
-  const s = state as WorkState;
+  const s = state as JobState;
   return {
     kind, id, label, state: s, progress, error, attempts,
     createdAt: createdAt.toISOString(), finishedAt: finishedAt?.toISOString() ?? null,

@@ -11,8 +11,9 @@ import { and, eq, inArray } from 'drizzle-orm';
 
 import { plans, profileVersions } from '../../db/schema/index.ts';
 import { readStored } from '../../db/stored-json.ts';
+import type { JobState } from '../../shared/contracts/job-state.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
-import { planRequestSchema, type PlanState } from '../../shared/contracts/plan.ts';
+import { planRequestSchema } from '../../shared/contracts/plan.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { profileBody } from '../crew/profile-row.ts';
@@ -25,7 +26,7 @@ export interface PlanJob {
   planId: string;
 }
 
-const OPEN: PlanState[] = ['queued', 'running'];
+const OPEN: JobState[] = ['queued', 'running'];
 const isOpen = (id: string) => and(eq(plans.id, id), inArray(plans.state, OPEN));
 
 /** Least time between progress writes, ms. */

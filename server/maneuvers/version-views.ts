@@ -7,8 +7,9 @@ import { alias } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, type ReverificationRow, reverifications, reviews, robustnessRuns, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
+import type { JobState } from '../../shared/contracts/job-state.ts';
 import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
-import { levelOf, type RobustnessBrief, type RobustnessState } from '../../shared/contracts/robustness.ts';
+import { levelOf, type RobustnessBrief } from '../../shared/contracts/robustness.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { clearedOrFlagged } from './maneuver-access.ts';
 import { readSequenceTarget, readVersionTarget } from './stored-version.ts';
@@ -59,7 +60,7 @@ const robustnessColumns = {
   toleranceDeg: robustnessRuns.toleranceDeg,
   feedbackP95Deg: sql<number | null>`(${robustnessRuns.figures}->>'feedbackP95Deg')::float8`.as('feedback_p95_deg'),
 };
-interface RobustnessListRow { id: string; state: RobustnessState; samples: number; doneSamples: number; toleranceDeg: number; feedbackP95Deg: number | null }
+interface RobustnessListRow { id: string; state: JobState; samples: number; doneSamples: number; toleranceDeg: number; feedbackP95Deg: number | null }
 
 /** The list view of a run: state, progress, feedback p95 and its level. */
 export function toRobustnessBrief(r: RobustnessListRow): RobustnessBrief {

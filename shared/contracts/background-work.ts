@@ -4,11 +4,10 @@
  */
 import { z } from 'zod';
 
+import { jobStateSchema } from './job-state.ts';
+
 export const WORK_KINDS = ['plan', 'robustness', 'reverification'] as const;
 export type WorkKind = (typeof WORK_KINDS)[number];
-
-export const WORK_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
-export type WorkState = (typeof WORK_STATES)[number];
 
 /** Which items to list. */
 export const WORK_FILTERS = ['open', 'failed', 'done'] as const;
@@ -19,7 +18,7 @@ export const workItemSchema = z.object({
   id: z.uuid(),
   /** What it is about, e.g. "Robustness of Quarter turn v3 (1,000 samples)". */
   label: z.string(),
-  state: z.enum(WORK_STATES),
+  state: jobStateSchema,
   /** 0–1, null when the kind reports none. */
   progress: z.number().nullable(),
   /** Why it failed or was cancelled. */

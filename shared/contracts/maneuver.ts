@@ -34,6 +34,7 @@ import { z } from 'zod';
 import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
 import type { RecheckInfo } from '../product/recheck-status.ts';
 import { CHECK_NAMES } from '../product/version-checks.ts';
+import { jobStateSchema } from './job-state.ts';
 import { attitudeSchema, rangeViolationSchema } from './result.ts';
 import { robustnessBriefSchema, versionRobustnessSchema } from './robustness.ts';
 import { sequenceSchema } from './sequence.ts';
@@ -305,15 +306,12 @@ export const reportSummarySchema = z.object({
 });
 export type ReportSummary = z.infer<typeof reportSummarySchema>;
 
-/** States of a re-verification record. */
-export const REVERIFICATION_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
-
 /** A background recomputation against a newer profile version. */
 export const reverificationSchema = z.object({
   id: z.uuid(),
   fromProfileVersionId: z.uuid(),
   toProfileVersionId: z.uuid(),
-  state: z.enum(REVERIFICATION_STATES),
+  state: jobStateSchema,
   /** Angle between the stored and the recomputed final attitude, degrees (null until done). */
   attitudeShiftDeg: z.number().nullable(),
   /** Target error on the new profile, degrees (null until done). */
@@ -334,7 +332,7 @@ export const recheckInfoSchema = z.object({
   cause: z.enum(['profile', 'engine']).optional(),
   staleSince: isoTime.nullable(),
   reverification: z.object({
-    state: z.enum(REVERIFICATION_STATES),
+    state: jobStateSchema,
     attitudeShiftDeg: z.number().nullable(),
     error: z.string().nullable(),
   }).nullable(),

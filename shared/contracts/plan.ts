@@ -13,6 +13,7 @@
 import { z } from 'zod';
 
 import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
+import { jobStateSchema } from './job-state.ts';
 import { attitudeSchema, rangeViolationSchema } from './result.ts';
 import { sequenceSchema } from './sequence.ts';
 
@@ -147,17 +148,14 @@ export const planCandidateSchema = z.object({
 });
 export type PlanCandidate = z.infer<typeof planCandidateSchema>;
 
-/** Plan states: `cancelled` when a planner or an admin stopped it (its thread is stopped too). */
-export const PLAN_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
-export type PlanState = (typeof PLAN_STATES)[number];
-
 /** GET /sequences/:sequenceId/plans/:planId */
 export const planSchema = z.object({
   id: z.uuid(),
   sequenceId: z.uuid(),
   /** The profile version whose body the plan used. */
   profileVersionId: z.uuid(),
-  state: z.enum(PLAN_STATES),
+  /** `cancelled` when a planner or an admin stopped it (its thread is stopped too). */
+  state: jobStateSchema,
   /** 0–1 while running. */
   progress: z.number(),
   /** What the planner is doing now (e.g. "refining candidate 2 of 4"). */
@@ -195,7 +193,7 @@ export type PlanListQuery = z.input<typeof planListQuerySchema>;
 /** One plan in a sequence's list (no candidates: fetch the plan for those). */
 export const planSummarySchema = z.object({
   id: z.uuid(),
-  state: z.enum(PLAN_STATES),
+  state: jobStateSchema,
   /** 0–1 while running. */
   progress: z.number(),
   createdAt: z.string(),

@@ -9,6 +9,7 @@
  */
 import { z } from 'zod';
 
+import { jobStateSchema } from './job-state.ts';
 import { dispersionSpreadsSchema } from './plan.ts';
 
 const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
@@ -28,9 +29,6 @@ export const DEFAULT_ROBUSTNESS_MODEL: RobustnessModel = robustnessModelSchema.p
   spreads: { massPct: 5, lengthPct: 3, amplitudePct: 10, periodPct: 10, phaseDeg: 10 },
 });
 
-export const ROBUSTNESS_STATES = ['queued', 'running', 'done', 'failed', 'cancelled'] as const;
-export type RobustnessState = (typeof ROBUSTNESS_STATES)[number];
-
 /** The figures of a finished run (null while not done). */
 export const robustnessSchema = z.object({
   openLoopP95Deg: z.number().nullable(),
@@ -42,7 +40,7 @@ export const robustnessSchema = z.object({
   samples: z.number().int(),
   seed: z.number().int(),
   model: robustnessModelSchema,
-  state: z.enum(ROBUSTNESS_STATES),
+  state: jobStateSchema,
   /** 0–1. */
   progress: z.number(),
 });
@@ -81,7 +79,7 @@ export type VersionRobustness = z.infer<typeof versionRobustnessSchema>;
 
 /** The robustness lists show beside a version (its newest run): enough for the level and a caution. */
 export const robustnessBriefSchema = z.object({
-  state: z.enum(ROBUSTNESS_STATES),
+  state: jobStateSchema,
   /** 0–1. */
   progress: z.number(),
   feedbackP95Deg: z.number().nullable(),

@@ -1,16 +1,11 @@
 import { z } from 'zod';
 
-import { emailSchema, passwordSchema } from './auth.ts';
+import { emailSchema, passwordSchema, sessionUserSchema } from './auth.ts';
 import { roleSchema } from './roles.ts';
 
 /** A user row as the Team screen shows it. */
-export const teamMemberSchema = z.object({
-  id: z.string().uuid(),
-  email: z.string(),
-  name: z.string(),
-  role: roleSchema,
+export const teamMemberSchema = sessionUserSchema.extend({
   disabled: z.boolean(),
-  crewMemberId: z.string().uuid().nullable(),
   createdAt: z.string(),
 });
 export type TeamMember = z.infer<typeof teamMemberSchema>;

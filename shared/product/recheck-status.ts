@@ -4,6 +4,8 @@
  * message is never ahead of or behind the truth (DECISIONS.md "Re-check creates the next version").
  */
 
+import type { JobState } from '../contracts/job-state.ts';
+
 /** The state of a stale version's re-check. */
 export interface RecheckInfo {
   /** What made it stale: a profile change, or a newer engine whose result moved (absent: profile). */
@@ -12,7 +14,7 @@ export interface RecheckInfo {
   staleSince: string | null;
   /** The newest re-verification on a newer profile (null: none recorded). */
   reverification: {
-    state: 'queued' | 'running' | 'done' | 'failed' | 'cancelled';
+    state: JobState;
     /** How far the final attitude moved on the new profile, degrees (null until done). */
     attitudeShiftDeg: number | null;
     error: string | null;

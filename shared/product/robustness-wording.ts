@@ -3,7 +3,8 @@
  * screen and in the PDF): one wording per level (DECISIONS.md "Robustness"), so every place says
  * the same thing. Zod-free, so the player and the PDF renderer can import it.
  */
-import type { RobustnessLevel, RobustnessState } from '../contracts/robustness.ts';
+import type { JobState } from '../contracts/job-state.ts';
+import type { RobustnessLevel } from '../contracts/robustness.ts';
 
 /** Short label of a level. */
 export const LEVEL_LABEL: Record<RobustnessLevel, string> = {
@@ -30,7 +31,7 @@ export function levelSentence(level: RobustnessLevel, feedbackP95Deg: number, to
 
 /** What a sentence about a version's robustness needs (a list brief or a full record). */
 export interface RobustnessFacts {
-  state: RobustnessState;
+  state: JobState;
   /** 0–1. */
   progress: number;
   feedbackP95Deg: number | null;

@@ -4,8 +4,8 @@
  * within the time budget, and a finished robustness run. One list, worded once, so the server's
  * refusal, the banner over a draft and the reviewer's view say the same thing.
  */
+import type { JobState } from '../contracts/job-state.ts';
 import type { VerificationReport } from '../contracts/maneuver.ts';
-import type { RobustnessState } from '../contracts/robustness.ts';
 
 /** The checks, in the order they are reported. */
 export const CHECK_NAMES = ['report', 'target', 'ranges', 'rate', 'time_budget', 'robustness'] as const;
@@ -25,7 +25,7 @@ export interface CheckFailure {
 
 /** The robustness run as far as the checks need it (null: no run). */
 export interface RobustnessForChecks {
-  state: RobustnessState;
+  state: JobState;
   /** 0–1. */
   progress: number;
   /** Why a run failed or was cancelled. */
