@@ -9,39 +9,40 @@ import { crewMembers, profileVersions, sequences, sequenceVersions, suitConfigs,
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
-/** Map "type:id" → a short label (a name, "'Name' v3", a file name) for the objects that still exist. */
-export async function auditObjectLabels(db: Database, objects: readonly { objectType: string; objectId: string | null }[]): Promise<Map<string, string>> {
-  const ids = (type: string) => [...new Set(objects.filter((o) => o.objectType === type && o.objectId && UUID.test(o.objectId)).map((o) => o.objectId!))];
-  const labels = new Map<string, string>();
-  const put = (type: string, id: string, label: string) => labels.set(`${type}:${id}`, label);
+type Labelled = { id: string; label: string };
 
-  const seqIds = ids('sequence');
-  if (seqIds.length) for (const r of await db.select({ id: sequences.id, name: sequences.name }).from(sequences).where(inArray(sequences.id, seqIds))) put('sequence', r.id, `'${r.name}'`);
-  const versionIds = ids('sequence_version');
-  if (versionIds.length) {
-    const rows = await db
+/** For each object type that has a label: read the labels of the given ids (of the rows that still exist). */
+const LABEL_READERS: Record<string, (db: Database, ids: string[]) => Promise<Labelled[]>> = {
+  sequence: async (db, ids) =>
+    (await db.select({ id: sequences.id, name: sequences.name }).from(sequences).where(inArray(sequences.id, ids)))
+      .map((r) => ({ id: r.id, label: `'${r.name}'` })),
+  sequence_version: async (db, ids) =>
+    (await db
       .select({ id: sequenceVersions.id, version: sequenceVersions.version, name: sequences.name })
       .from(sequenceVersions)
       .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
-      .where(inArray(sequenceVersions.id, versionIds));
-    for (const r of rows) put('sequence_version', r.id, `'${r.name}' v${r.version}`);
-  }
-  const crewIds = ids('crew_member');
-  if (crewIds.length) for (const r of await db.select({ id: crewMembers.id, name: crewMembers.name }).from(crewMembers).where(inArray(crewMembers.id, crewIds))) put('crew_member', r.id, r.name);
-  const profileIds = ids('profile_version');
-  if (profileIds.length) {
-    const rows = await db
+      .where(inArray(sequenceVersions.id, ids)))
+      .map((r) => ({ id: r.id, label: `'${r.name}' v${r.version}` })),
+  crew_member: (db, ids) => db.select({ id: crewMembers.id, label: crewMembers.name }).from(crewMembers).where(inArray(crewMembers.id, ids)),
+  profile_version: async (db, ids) =>
+    (await db
       .select({ id: profileVersions.id, version: profileVersions.version, name: crewMembers.name })
       .from(profileVersions)
       .innerJoin(crewMembers, eq(crewMembers.id, profileVersions.crewMemberId))
-      .where(inArray(profileVersions.id, profileIds));
-    for (const r of rows) put('profile_version', r.id, `${r.name}'s profile v${r.version}`);
+      .where(inArray(profileVersions.id, ids)))
+      .map((r) => ({ id: r.id, label: `${r.name}'s profile v${r.version}` })),
+  user: (db, ids) => db.select({ id: users.id, label: users.name }).from(users).where(inArray(users.id, ids)),
+  upload: (db, ids) => db.select({ id: uploads.id, label: uploads.fileName }).from(uploads).where(inArray(uploads.id, ids)),
+  suit_config: (db, ids) => db.select({ id: suitConfigs.id, label: suitConfigs.name }).from(suitConfigs).where(inArray(suitConfigs.id, ids)),
+};
+
+/** Map "type:id" → a short label (a name, "'Name' v3", a file name) for the objects that still exist. */
+export async function auditObjectLabels(db: Database, objects: readonly { objectType: string; objectId: string | null }[]): Promise<Map<string, string>> {
+  const labels = new Map<string, string>();
+  for (const [type, read] of Object.entries(LABEL_READERS)) {
+    const ids = [...new Set(objects.filter((o) => o.objectType === type && o.objectId && UUID.test(o.objectId)).map((o) => o.objectId!))];
+    if (!ids.length) continue;
+    for (const r of await read(db, ids)) labels.set(`${type}:${r.id}`, r.label);
   }
-  const userIds = ids('user');
-  if (userIds.length) for (const r of await db.select({ id: users.id, name: users.name }).from(users).where(inArray(users.id, userIds))) put('user', r.id, r.name);
-  const uploadIds = ids('upload');
-  if (uploadIds.length) for (const r of await db.select({ id: uploads.id, name: uploads.fileName }).from(uploads).where(inArray(uploads.id, uploadIds))) put('upload', r.id, r.name);
-  const suitIds = ids('suit_config');
-  if (suitIds.length) for (const r of await db.select({ id: suitConfigs.id, name: suitConfigs.name }).from(suitConfigs).where(inArray(suitConfigs.id, suitIds))) put('suit_config', r.id, r.name);
   return labels;
 }

@@ -35,7 +35,7 @@ import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
 import type { RecheckInfo } from '../product/recheck-status.ts';
 import { CHECK_NAMES } from '../product/version-checks.ts';
 import { jobStateSchema } from './job-state.ts';
-import { attitudeSchema, rangeViolationSchema } from './result.ts';
+import { attitudeSchema, finalStateSchema, rangeViolationSchema } from './result.ts';
 import { robustnessBriefSchema, versionRobustnessSchema } from './robustness.ts';
 import { sequenceSchema } from './sequence.ts';
 import { versionStatusSchema } from './version-status.ts';
@@ -251,15 +251,7 @@ export const verificationReportSchema = z.object({
   durationS: z.number(),
   /** Rotation travelled, ∫|ω| dt over the report's samples, degrees (absent in reports made before it was added). */
   pathDeg: z.number().optional(),
-  final: z.object({
-    /** {w,x,y,z}, body → inertial, w ≥ 0. */
-    attitude: attitudeSchema,
-    rotation: z.object({ angleDeg: z.number(), axis: z.tuple([z.number(), z.number(), z.number()]) }),
-    /** Yaw/pitch/roll reached, degrees. */
-    yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
-    /** Final joint angles, degrees. */
-    jointsDeg: z.record(z.string(), z.number()),
-  }),
+  final: finalStateSchema,
   target: z.object({
     /** The target as a quaternion {w,x,y,z}. */
     attitude: attitudeSchema,

@@ -43,6 +43,18 @@ export const sampleSchema = z.object({
   jointsDeg: z.array(z.number()),
 });
 
+/** Where a run ends: the engine's result and the stored verification report give it alike. */
+export const finalStateSchema = z.object({
+  /** Final attitude {w,x,y,z}, body → inertial, with w ≥ 0. */
+  attitude: attitudeSchema,
+  /** The same rotation as angle (degrees, 0–180) and unit axis (inertial = initial root frame). */
+  rotation: z.object({ angleDeg: z.number(), axis: z.tuple([z.number(), z.number(), z.number()]) }),
+  /** Intrinsic z-y′-x″ yaw, pitch, roll, degrees. */
+  yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+  /** Final joint angles by dof name, degrees. */
+  jointsDeg: z.record(z.string(), z.number()),
+});
+
 /** The full result of one simulation. */
 export const simulationResultSchema = z.object({
   /** Engine version that computed this result. */
@@ -54,16 +66,7 @@ export const simulationResultSchema = z.object({
    * bound that converges as the sample rate grows; includes the to-and-fro within every cycle).
    */
   pathDeg: z.number(),
-  final: z.object({
-    /** Final attitude {w,x,y,z} with w ≥ 0. */
-    attitude: attitudeSchema,
-    /** The same rotation as angle (degrees, 0–180) and unit axis (inertial = initial root frame). */
-    rotation: z.object({ angleDeg: z.number(), axis: z.tuple([z.number(), z.number(), z.number()]) }),
-    /** Intrinsic z-y′-x″ yaw, pitch, roll, degrees. */
-    yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
-    /** Final joint angles by dof name, degrees. */
-    jointsDeg: z.record(z.string(), z.number()),
-  }),
+  final: finalStateSchema,
   /** Momentum audit: max ‖H‖ over the samples from differenced world-frame segment poses. */
   momentumResidual: z.object({
     /** Max ‖H‖ about the system CoM, kg·m²/s. */
@@ -104,5 +107,6 @@ export const simulationResultSchema = z.object({
     tolerances: z.object({ relative: z.number(), absolute: z.number() }),
   }),
 });
+
 /** The full result of one simulation. */
 export type SimulationResult = z.infer<typeof simulationResultSchema>;
