@@ -113,7 +113,7 @@ test('a planner asks for suggestions, compares two side by side, previews one in
 
   // The same view on a wide screen: the table fits, the three plots sit side by side.
   await page.setViewportSize(WIDE);
-  await view.getByRole('heading', { name: 'Compare suggestions' }).scrollIntoViewIfNeeded();
+  await table.scrollIntoViewIfNeeded();
   await expect(view.getByTestId('compare-plots')).toBeVisible();
   await keep(page, testInfo, 'compare-suggestions-1280');
   await preview.scrollIntoViewIfNeeded();
