@@ -104,13 +104,14 @@ describe('PostgreSQL restart while the server runs', () => {
     // Fill the pool with idle connections: the original crash was an idle client's unheard error.
     await Promise.all(Array.from({ length: 8 }, () => api('GET', '/api/crew')));
 
-    // A request held mid-statement: a lock makes GET /api/crew wait inside PostgreSQL.
+    // A request held mid-statement: a lock makes a crew read wait inside PostgreSQL. Its query string
+    // is new, so the read cache (which answered the eight reads above) cannot answer it.
     const locker = new pg.Client({ connectionString: cluster.url });
     locker.on('error', () => undefined);
     await locker.connect();
     await locker.query('BEGIN');
     await locker.query('LOCK TABLE crew_members IN ACCESS EXCLUSIVE MODE');
-    const held = api('GET', '/api/crew');
+    const held = api('GET', '/api/crew?q=Held');
     await new Promise((r) => setTimeout(r, 300));
 
     // A little load: four clients reading and creating crew members throughout.
