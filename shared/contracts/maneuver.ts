@@ -468,12 +468,12 @@ export const SEQUENCE_PAGE_MAX = 200;
 export const sequenceListQuerySchema = z.object({
   crewMemberId: z.uuid('crewMemberId: not a valid id.').optional(),
   /** `true` lists the archived maneuvers (and those of archived crew members) instead of the active ones. */
-  archived: z.enum(['true', 'false'], { error: 'archived: use true or false.' }).optional().transform((v) => v === 'true'),
+  archived: z.enum(['true', 'false'], { error: 'use true or false.' }).optional().transform((v) => v === 'true'),
   /** Part of a maneuver's or crew member's name, any case. */
-  q: z.string().trim().max(200, 'q: at most 200 characters.').optional().transform((v) => v || undefined),
+  q: z.string().trim().max(200, 'at most 200 characters.').optional().transform((v) => v || undefined),
   status: versionStatusSchema.optional(),
-  limit: z.coerce.number({ error: 'limit: a whole number.' }).int('limit: a whole number.').min(1, 'limit: at least 1.').max(SEQUENCE_PAGE_MAX, `limit: at most ${SEQUENCE_PAGE_MAX}.`).optional(),
-  after: z.string().max(1000, 'after: not a page mark of this list.').optional(),
+  limit: z.coerce.number({ error: 'a whole number.' }).int('a whole number.').min(1, 'at least 1.').max(SEQUENCE_PAGE_MAX, `at most ${SEQUENCE_PAGE_MAX}.`).optional(),
+  after: z.string().max(1000, 'not a page mark of this list.').optional(),
 });
 export type SequenceListQuery = z.input<typeof sequenceListQuerySchema>;
 
