@@ -88,15 +88,16 @@ afterEach(async () => {
 });
 
 describe('worker processes', () => {
+  const SAMPLES = 10_000;
   it('a chunk held by a worker killed with SIGKILL is retried by another worker and completes once', async () => {
     const first = await startWorker('worker A');
-    // One long chunk (1,500 samples), so the kill lands mid-job.
-    const runId = await queueVersionRobustness(t.ctx, versionId, { samples: 1500, chunkSize: 1500 });
+    // One long chunk (10,000 samples, several seconds of work even on a fast engine), killed as soon as
+    // the worker has marked it running, so the kill lands mid-job however fast the engine gets.
+    const runId = await queueVersionRobustness(t.ctx, versionId, { samples: SAMPLES, chunkSize: SAMPLES });
     await eventually(async () => {
       const [c] = await t.ctx.db.select().from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
       return c.state === 'running' ? true : undefined;
-    }, 60_000, 100);
-    await new Promise((r) => setTimeout(r, 500));
+    }, 60_000, 50);
     await kill(first);
     const killedAt = Date.now();
     expect((await runRow(runId)).state).toBe('running');
@@ -105,7 +106,7 @@ describe('worker processes', () => {
     const run = await whenEnded(() => runRow(runId));
     expect(run.error).toBeNull();
     expect(run.state).toBe('done');
-    expect(run.doneSamples).toBe(1500);
+    expect(run.doneSamples).toBe(SAMPLES);
     // Retried within the minute the product promises (the retry's own computation is on top).
     const [chunk] = await t.ctx.db.select().from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
     expect(chunk.attempts).toBe(2);
