@@ -3,6 +3,7 @@ import path from 'node:path';
 
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
 
@@ -73,7 +74,8 @@ export function createApp(ctx: AppContext): Express {
 
   const web = ctx.config.WEB_DIST;
   if (web && existsSync(path.join(web, 'index.html'))) {
-    app.use(express.static(web, { index: false, maxAge: '1h' }));
+    // The build's .br/.gz copies (server/scripts/compress-web.ts) go to browsers that accept them.
+    app.use(expressStaticGzip(web, { index: false, enableBrotli: true, orderPreference: ['br', 'gz'], serveStatic: { index: false, maxAge: '1h' } }));
     // Client-side routes: every other GET gets the single-page app.
     app.get('/{*splat}', (_req, res) => {
       res.sendFile(path.join(web, 'index.html'));

@@ -2,6 +2,8 @@ import { spawnSync } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import path from 'node:path';
 
+import { compressWebBuild } from './compress-web.ts';
+
 const SOURCE_DIRS = ['app', 'components', 'scene', 'shared', 'assets'];
 const SOURCE_FILES = ['app.json', 'metro.config.mjs', 'package-lock.json'];
 
@@ -35,5 +37,5 @@ export function ensureWebBuild(root: string, out: string, log: (s: string) => vo
   if (res.status !== 0) {
     throw new Error(`expo export failed:\n${res.stdout}\n${res.stderr}`);
   }
-  log('Web app built.');
+  log(`Web app built (${compressWebBuild(out)} assets pre-compressed).`);
 }

@@ -66,12 +66,19 @@ const screensShare = screens.reduce((t, f) => t + (sizes.get(f)?.gzip ?? 0), 0);
 console.log(`\nSigned-in screens chunk (every screen, composer, charts, forms, zod): ${kb(screensShare).toFixed(1)} KB gzip, loaded after sign-in.`);
 console.log(`3D player chunk (three, fiber, drei OrbitControls, scene): ${kb(threeShare).toFixed(1)} KB gzip, loaded only where the player shows.`);
 console.log(`Sign-in first load: ${kb(signIn).toFixed(1)} KB gzip (budget ${SIGN_IN_BUDGET_KB} KB) — ${kb(signIn) <= SIGN_IN_BUDGET_KB ? 'within budget' : 'OVER BUDGET'}.`);
+// What the server really sends a browser that accepts brotli: the build's own .br copies (server/scripts/compress-web.ts).
+const brOf = (f: string) => (existsSync(path.join(root, `${f}.br`)) ? readFileSync(path.join(root, `${f}.br`)).length : null);
+const signInBr = routes[0].chunks.map(brOf);
+const signInBrKB = signInBr.every((b) => b !== null) ? +kb(signInBr.reduce((t: number, b) => t + (b ?? 0), 0)).toFixed(1) : null;
+console.log(signInBrKB === null
+  ? 'No .br copies in this build (built before pre-compression?): the server would send these files uncompressed; rebuild with `npm run build:web`.'
+  : `As sent to a browser accepting brotli (the build's .br copies): sign-in ${signInBrKB} KB.`);
 console.log(`Peak memory: ${(process.memoryUsage().rss / 1024 / 1024).toFixed(0)} MB RSS`);
 const playerTotal = routes[2].chunks.reduce((t, f) => t + (sizes.get(f)?.gzip ?? 0), 0);
 if (JSON_OUT) {
   console.log(JSON.stringify({
     signInGzipKB: +kb(signIn).toFixed(1), playerGzipKB: +kb(playerTotal).toFixed(1),
-    signedInScreensGzipKB: +kb(screensShare).toFixed(1), playerChunkGzipKB: +kb(threeShare).toFixed(1), signInBudgetKB: SIGN_IN_BUDGET_KB,
+    signedInScreensGzipKB: +kb(screensShare).toFixed(1), playerChunkGzipKB: +kb(threeShare).toFixed(1), signInBudgetKB: SIGN_IN_BUDGET_KB, signInBrotliKB: signInBrKB,
   }));
 }
 if (kb(signIn) > SIGN_IN_BUDGET_KB) process.exit(1);
