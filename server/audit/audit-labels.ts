@@ -3,6 +3,7 @@
  * of a raw id: one query per object type present in a page of events.
  */
 import { eq, inArray } from 'drizzle-orm';
+import type { AnyPgColumn, PgTable } from 'drizzle-orm/pg-core';
 
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, sequences, sequenceVersions, suitConfigs, uploads, users } from '../../db/schema/index.ts';
@@ -10,30 +11,43 @@ import { crewMembers, profileVersions, sequences, sequenceVersions, suitConfigs,
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 type Labelled = { id: string; label: string };
+type LabelReader = (db: Database, ids: string[]) => Promise<Labelled[]>;
+type TextColumn = AnyPgColumn<{ data: string; notNull: true }>;
+
+/** Labels held in a column of the object's own row (a name, a file name), shown as `show` words them. */
+const ownColumn = (table: PgTable, id: TextColumn, label: TextColumn, show = (value: string) => value): LabelReader => async (db, ids) =>
+  (await db.select({ id, label }).from(table).where(inArray(id, ids))).map((r) => ({ id: r.id, label: show(r.label) }));
+
+/** Labels of a version row: the name on the row it is a version of, and its number. */
+const versionOf = (
+  version: { table: PgTable; id: TextColumn; number: AnyPgColumn<{ data: number; notNull: true }>; parentId: TextColumn },
+  parent: { table: PgTable; id: TextColumn; name: TextColumn },
+  label: (name: string, version: number) => string,
+): LabelReader => async (db, ids) =>
+  (await db
+    .select({ id: version.id, version: version.number, name: parent.name })
+    .from(version.table)
+    .innerJoin(parent.table, eq(parent.id, version.parentId))
+    .where(inArray(version.id, ids)))
+    .map((r) => ({ id: r.id, label: label(r.name, r.version) }));
 
 /** For each object type that has a label: read the labels of the given ids (of the rows that still exist). */
-const LABEL_READERS: Record<string, (db: Database, ids: string[]) => Promise<Labelled[]>> = {
-  sequence: async (db, ids) =>
-    (await db.select({ id: sequences.id, name: sequences.name }).from(sequences).where(inArray(sequences.id, ids)))
-      .map((r) => ({ id: r.id, label: `'${r.name}'` })),
-  sequence_version: async (db, ids) =>
-    (await db
-      .select({ id: sequenceVersions.id, version: sequenceVersions.version, name: sequences.name })
-      .from(sequenceVersions)
-      .innerJoin(sequences, eq(sequences.id, sequenceVersions.sequenceId))
-      .where(inArray(sequenceVersions.id, ids)))
-      .map((r) => ({ id: r.id, label: `'${r.name}' v${r.version}` })),
-  crew_member: (db, ids) => db.select({ id: crewMembers.id, label: crewMembers.name }).from(crewMembers).where(inArray(crewMembers.id, ids)),
-  profile_version: async (db, ids) =>
-    (await db
-      .select({ id: profileVersions.id, version: profileVersions.version, name: crewMembers.name })
-      .from(profileVersions)
-      .innerJoin(crewMembers, eq(crewMembers.id, profileVersions.crewMemberId))
-      .where(inArray(profileVersions.id, ids)))
-      .map((r) => ({ id: r.id, label: `${r.name}'s profile v${r.version}` })),
-  user: (db, ids) => db.select({ id: users.id, label: users.name }).from(users).where(inArray(users.id, ids)),
-  upload: (db, ids) => db.select({ id: uploads.id, label: uploads.fileName }).from(uploads).where(inArray(uploads.id, ids)),
-  suit_config: (db, ids) => db.select({ id: suitConfigs.id, label: suitConfigs.name }).from(suitConfigs).where(inArray(suitConfigs.id, ids)),
+const LABEL_READERS: Record<string, LabelReader> = {
+  sequence: ownColumn(sequences, sequences.id, sequences.name, (name) => `'${name}'`),
+  sequence_version: versionOf(
+    { table: sequenceVersions, id: sequenceVersions.id, number: sequenceVersions.version, parentId: sequenceVersions.sequenceId },
+    { table: sequences, id: sequences.id, name: sequences.name },
+    (name, v) => `'${name}' v${v}`,
+  ),
+  crew_member: ownColumn(crewMembers, crewMembers.id, crewMembers.name),
+  profile_version: versionOf(
+    { table: profileVersions, id: profileVersions.id, number: profileVersions.version, parentId: profileVersions.crewMemberId },
+    { table: crewMembers, id: crewMembers.id, name: crewMembers.name },
+    (name, v) => `${name}'s profile v${v}`,
+  ),
+  user: ownColumn(users, users.id, users.name),
+  upload: ownColumn(uploads, uploads.id, uploads.fileName),
+  suit_config: ownColumn(suitConfigs, suitConfigs.id, suitConfigs.name),
 };
 
 /** Map "type:id" → a short label (a name, "'Name' v3", a file name) for the objects that still exist. */

@@ -7,7 +7,7 @@
  * up by workers that died).
  */
 import { and, eq, inArray, isNull, lt } from 'drizzle-orm';
-import type { PgBoss } from 'pg-boss';
+import type { JobWithMetadata, PgBoss } from 'pg-boss';
 
 import { invitations, plans, reverifications, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
 import type { AppContext } from '../app-context.ts';
@@ -21,8 +21,8 @@ import type { PlanJob } from './run-plan.ts';
 /** Records younger than this may not have their job yet (it is sent after the record commits). */
 const GRACE_MS = 5000;
 
-type JobState = 'created' | 'retry' | 'active' | 'completed' | 'cancelled' | 'failed';
-const LIVE: JobState[] = ['created', 'retry', 'active'];
+/** pg-boss's own job states (not a record's JobState in shared/contracts/job-state.ts): these still run or will. */
+const LIVE: JobWithMetadata['state'][] = ['created', 'retry', 'active'];
 
 /** What became of a record's jobs. */
 type Verdict = { kind: 'live' } | { kind: 'none' } | { kind: 'ended'; reason: string };
@@ -52,87 +52,102 @@ export interface JobSender {
   enqueueInvitationMail?(invitationId: string): Promise<void>;
 }
 
+/** One kind of open record, and how to settle one whose jobs are gone. */
+interface OpenRecords<R> {
+  queue: string;
+  /** The job data that finds the record's jobs. */
+  job(record: R): object;
+  /** Sends the record a job again; absent where no worker here handles the kind (the record fails). */
+  requeue?: (record: R) => Promise<void>;
+  /**
+   * Ends the record `failed`: `ended` is why its last job ended, null when it never had one and none
+   * can be sent. True when this pass changed the record (it may have finished meanwhile).
+   */
+  fail(record: R, ended: string | null): Promise<boolean>;
+}
+
+/** Gives each record whose jobs are all gone a job again, or ends it `failed`; counts both. */
+async function settle<R>(boss: PgBoss, records: readonly R[], kind: OpenRecords<R>, count: { requeued: number; failed: number }): Promise<void> {
+  for (const record of records) {
+    const v = await verdict(boss, kind.queue, kind.job(record));
+    if (v.kind === 'live') continue;
+    if (v.kind === 'none' && kind.requeue) {
+      await kind.requeue(record);
+      count.requeued++;
+    } else if (await kind.fail(record, v.kind === 'ended' ? v.reason : null)) count.failed++;
+  }
+}
+
 /** One reconciliation pass; returns how many records it re-queued and failed. */
 export async function reconcileWork(ctx: AppContext, queue: JobSender): Promise<{ requeued: number; failed: number }> {
   const { db } = ctx;
   const before = new Date(Date.now() - GRACE_MS);
-  let requeued = 0;
-  let failed = 0;
+  const count = { requeued: 0, failed: 0 };
 
   const openPlans = await db.select({ id: plans.id, sequenceId: plans.sequenceId }).from(plans)
     .where(and(inArray(plans.state, [...OPEN_STATES]), lt(plans.createdAt, before)));
-  for (const p of openPlans) {
-    const v = await verdict(queue.boss, PLAN_QUEUE, { planId: p.id } satisfies PlanJob);
-    if (v.kind === 'live') continue;
-    if (v.kind === 'none' && queue.enqueuePlan) {
-      await queue.enqueuePlan(p.id);
-      requeued++;
-      continue;
-    }
-    const reason = v.kind === 'ended' ? `Planning did not finish: ${v.reason}.` : 'Planning did not finish: no worker handles planning here.';
-    const [row] = await db.update(plans).set({ state: 'failed', error: reason, finishedAt: new Date() })
-      .where(and(eq(plans.id, p.id), inArray(plans.state, [...OPEN_STATES]))).returning({ id: plans.id });
-    if (row) {
-      failed++;
-      await recordAudit(db, { actorId: null, action: 'plan.failed', objectType: 'plan', objectId: p.id, detail: { sequenceId: p.sequenceId, error: reason } });
-    }
-  }
+  await settle(queue.boss, openPlans, {
+    queue: PLAN_QUEUE,
+    job: (p) => ({ planId: p.id }) satisfies PlanJob,
+    requeue: queue.enqueuePlan && ((p) => queue.enqueuePlan!(p.id)),
+    fail: async (p, ended) => {
+      const reason = ended ? `Planning did not finish: ${ended}.` : 'Planning did not finish: no worker handles planning here.';
+      const [row] = await db.update(plans).set({ state: 'failed', error: reason, finishedAt: new Date() })
+        .where(and(eq(plans.id, p.id), inArray(plans.state, [...OPEN_STATES]))).returning({ id: plans.id });
+      if (row) await recordAudit(db, { actorId: null, action: 'plan.failed', objectType: 'plan', objectId: p.id, detail: { sequenceId: p.sequenceId, error: reason } });
+      return Boolean(row);
+    },
+  }, count);
 
   const openReverifications = await db.select().from(reverifications)
     .where(and(inArray(reverifications.state, [...OPEN_STATES]), lt(reverifications.createdAt, before)));
-  for (const r of openReverifications) {
-    const v = await verdict(queue.boss, REVERIFY_QUEUE, { sequenceVersionId: r.sequenceVersionId, toProfileVersionId: r.toProfileVersionId } satisfies ReverifyJob);
-    if (v.kind === 'live') continue;
-    if (v.kind === 'none') {
-      await queue.enqueueReverification([r.sequenceVersionId], r.toProfileVersionId);
-      requeued++;
-      continue;
-    }
-    const reason = `Re-verification did not finish: ${v.reason}.`;
-    const [row] = await db.update(reverifications).set({ state: 'failed', error: reason, finishedAt: new Date() })
-      .where(and(eq(reverifications.id, r.id), inArray(reverifications.state, [...OPEN_STATES]))).returning({ id: reverifications.id });
-    if (row) failed++;
-  }
+  await settle(queue.boss, openReverifications, {
+    queue: REVERIFY_QUEUE,
+    job: (r) => ({ sequenceVersionId: r.sequenceVersionId, toProfileVersionId: r.toProfileVersionId }) satisfies ReverifyJob,
+    requeue: (r) => queue.enqueueReverification([r.sequenceVersionId], r.toProfileVersionId),
+    fail: async (r, ended) => {
+      const [row] = await db.update(reverifications).set({ state: 'failed', error: `Re-verification did not finish: ${ended ?? 'it had no job'}.`, finishedAt: new Date() })
+        .where(and(eq(reverifications.id, r.id), inArray(reverifications.state, [...OPEN_STATES]))).returning({ id: reverifications.id });
+      return Boolean(row);
+    },
+  }, count);
 
   const openChunks = await db.select({ runId: robustnessChunks.runId, chunk: robustnessChunks.chunkIndex, state: robustnessChunks.state })
     .from(robustnessChunks)
     .innerJoin(robustnessRuns, eq(robustnessRuns.id, robustnessChunks.runId))
     .where(and(inArray(robustnessRuns.state, [...OPEN_STATES]), inArray(robustnessChunks.state, [...OPEN_STATES]), lt(robustnessRuns.createdAt, before)));
+  // Chunks without a job are sent again one batch per run, after the pass.
   const resend = new Map<string, number[]>();
-  for (const c of openChunks) {
-    const v = await verdict(queue.boss, ROBUSTNESS_CHUNK_QUEUE, { runId: c.runId, chunk: c.chunk });
-    if (v.kind === 'live') continue;
-    if (v.kind === 'none') {
-      if (c.state === 'running') await db.update(robustnessChunks).set({ state: 'queued' }).where(and(eq(robustnessChunks.runId, c.runId), eq(robustnessChunks.chunkIndex, c.chunk)));
+  const chunkWhere = (c: { runId: string; chunk: number }) => and(eq(robustnessChunks.runId, c.runId), eq(robustnessChunks.chunkIndex, c.chunk));
+  await settle(queue.boss, openChunks, {
+    queue: ROBUSTNESS_CHUNK_QUEUE,
+    job: (c) => ({ runId: c.runId, chunk: c.chunk }),
+    requeue: async (c) => {
+      if (c.state === 'running') await db.update(robustnessChunks).set({ state: 'queued' }).where(chunkWhere(c));
       resend.set(c.runId, [...(resend.get(c.runId) ?? []), c.chunk]);
-      continue;
-    }
-    // The job may have finished this chunk since the list was read: fail the run only if it is still open.
-    const [now] = await db.select({ state: robustnessChunks.state }).from(robustnessChunks)
-      .where(and(eq(robustnessChunks.runId, c.runId), eq(robustnessChunks.chunkIndex, c.chunk)));
-    if (!now || !(OPEN_STATES as readonly string[]).includes(now.state)) continue;
-    if (await failRobustnessRun(ctx, c.runId, `Robustness run did not finish: ${v.reason}.`, c.chunk)) failed++;
-  }
-  for (const [runId, chunks] of resend) {
-    await enqueueRobustnessChunks(ctx, queue.boss, runId, chunks);
-    requeued += chunks.length;
-  }
+    },
+    fail: async (c, ended) => {
+      // The job may have finished this chunk since the list was read: fail the run only if it is still open.
+      const [now] = await db.select({ state: robustnessChunks.state }).from(robustnessChunks).where(chunkWhere(c));
+      if (!now || !(OPEN_STATES as readonly string[]).includes(now.state)) return false;
+      return failRobustnessRun(ctx, c.runId, `Robustness run did not finish: ${ended ?? 'it had no job'}.`, c.chunk);
+    },
+  }, count);
+  for (const [runId, chunks] of resend) await enqueueRobustnessChunks(ctx, queue.boss, runId, chunks);
 
   // Invitation e-mails still `sending` whose job was lost get one; ones whose jobs all ended are `failed` (the admin resends).
   const sending = await db.select({ id: invitations.id }).from(invitations)
     .where(and(eq(invitations.mailState, 'sending'), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), lt(invitations.createdAt, before)));
-  for (const inv of sending) {
-    const v = await verdict(queue.boss, INVITATION_MAIL_QUEUE, { invitationId: inv.id } satisfies InvitationMailJob);
-    if (v.kind === 'live') continue;
-    if (v.kind === 'none' && queue.enqueueInvitationMail) {
-      await queue.enqueueInvitationMail(inv.id);
-      requeued++;
-      continue;
-    }
-    const reason = v.kind === 'ended' ? `Sending stopped: ${v.reason}.` : 'No worker sends e-mail here.';
-    const [row] = await db.update(invitations).set({ mailState: 'failed', mailError: reason })
-      .where(and(eq(invitations.id, inv.id), eq(invitations.mailState, 'sending'))).returning({ id: invitations.id });
-    if (row) failed++;
-  }
-  return { requeued, failed };
+  await settle(queue.boss, sending, {
+    queue: INVITATION_MAIL_QUEUE,
+    job: (inv) => ({ invitationId: inv.id }) satisfies InvitationMailJob,
+    requeue: queue.enqueueInvitationMail && ((inv) => queue.enqueueInvitationMail!(inv.id)),
+    fail: async (inv, ended) => {
+      const reason = ended ? `Sending stopped: ${ended}.` : 'No worker sends e-mail here.';
+      const [row] = await db.update(invitations).set({ mailState: 'failed', mailError: reason })
+        .where(and(eq(invitations.id, inv.id), eq(invitations.mailState, 'sending'))).returning({ id: invitations.id });
+      return Boolean(row);
+    },
+  }, count);
+  return count;
 }

@@ -85,36 +85,39 @@ describe('compressed cached reads', () => {
   });
 });
 
+/** A build that takes a few milliseconds (so concurrent misses overlap) and counts its calls. */
+function slowBuild(ms: number, finish: (calls: number) => string) {
+  const count = { calls: 0 };
+  const build = async () => {
+    count.calls++;
+    await new Promise((r) => setTimeout(r, ms));
+    return finish(count.calls);
+  };
+  return { build, count };
+}
+
 describe('concurrent misses', () => {
   it('build once per key and data mark; a new mark builds again', async () => {
     const cache = new ReadCache();
-    let builds = 0;
-    const build = async () => {
-      builds++;
-      await new Promise((r) => setTimeout(r, 20));
-      return JSON.stringify({ n: builds });
-    };
+    const { build, count } = slowBuild(20, (n) => JSON.stringify({ n }));
     const first = await Promise.all(Array.from({ length: 10 }, () => cache.obtain('list', '0/1', build)));
-    expect(builds).toBe(1);
+    expect(count.calls).toBe(1);
     expect(new Set(first).size).toBe(1);
     await cache.obtain('list', '0/1', build);
-    expect(builds).toBe(1);
+    expect(count.calls).toBe(1);
     const next = await cache.obtain('list', '0/2', build);
-    expect(builds).toBe(2);
+    expect(count.calls).toBe(2);
     expect(next.body.toString()).toBe('{"n":2}');
   });
 
   it('share a failed build’s error and keep nothing', async () => {
     const cache = new ReadCache();
-    let builds = 0;
-    const failing = async () => {
-      builds++;
-      await new Promise((r) => setTimeout(r, 5));
+    const { build: failing, count } = slowBuild(5, () => {
       throw new Error('not found');
-    };
+    });
     const results = await Promise.allSettled(Array.from({ length: 5 }, () => cache.obtain('x', 'm', failing)));
     expect(results.every((r) => r.status === 'rejected')).toBe(true);
-    expect(builds).toBe(1);
+    expect(count.calls).toBe(1);
     expect(cache.size).toBe(0);
     await expect(cache.obtain('x', 'm', () => Promise.resolve('{}'))).resolves.toMatchObject({ mark: 'm' });
   });

@@ -1,4 +1,5 @@
 import type { SuitConfigInput } from '../../../shared/contracts/suit.ts';
+import { sameOnBothSides } from '../../../shared/model/body-sides.ts';
 
 /**
  * In-cabin clothing (shirt, trousers, socks, soft shoes). ILLUSTRATIVE values: masses are rough
@@ -14,16 +15,13 @@ export const CABIN_CLOTHING = {
   segments: {
     upper_trunk: { mass: 0.45 },
     lower_trunk: { mass: 0.25 },
-    l_upper_arm: { mass: 0.05 },
-    r_upper_arm: { mass: 0.05 },
-    l_forearm: { mass: 0.03 },
-    r_forearm: { mass: 0.03 },
-    l_thigh: { mass: 0.12 },
-    r_thigh: { mass: 0.12 },
-    l_shank: { mass: 0.08 },
-    r_shank: { mass: 0.08 },
-    l_foot: { mass: 0.1 },
-    r_foot: { mass: 0.1 },
+    ...sameOnBothSides({
+      upper_arm: { mass: 0.05 },
+      forearm: { mass: 0.03 },
+      thigh: { mass: 0.12 },
+      shank: { mass: 0.08 },
+      foot: { mass: 0.1 },
+    }),
   },
   ranges: {},
   lockedDofs: [],

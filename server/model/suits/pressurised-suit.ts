@@ -1,4 +1,5 @@
 import type { SuitConfigInput } from '../../../shared/contracts/suit.ts';
+import { sameOnBothSides } from '../../../shared/model/body-sides.ts';
 
 /**
  * A pressurised suit with a life-support backpack. ILLUSTRATIVE values throughout: suited ranges of
@@ -23,40 +24,30 @@ export const PRESSURISED_SUIT = {
     head_neck: { mass: 5, inertia: [0.13, 0.13, 0.13] },
     // lower torso assembly: cylinder r 0.2 m, h 0.25 m
     lower_trunk: { mass: 8, inertia: [0.12, 0.12, 0.16] },
-    // arm assemblies: cylinders r 0.07 / 0.06 m along the segment
-    l_upper_arm: { mass: 3, inertia: [0.026, 0.026, 0.0074] },
-    r_upper_arm: { mass: 3, inertia: [0.026, 0.026, 0.0074] },
-    l_forearm: { mass: 2.5, inertia: [0.0174, 0.0174, 0.0045] },
-    r_forearm: { mass: 2.5, inertia: [0.0174, 0.0174, 0.0045] },
-    l_hand: { mass: 0.8, inertia: [0.002, 0.002, 0.001] },
-    r_hand: { mass: 0.8, inertia: [0.002, 0.002, 0.001] },
-    // leg assemblies: cylinders r 0.09 / 0.07 m along the segment
-    l_thigh: { mass: 4, inertia: [0.0669, 0.0669, 0.0162] },
-    r_thigh: { mass: 4, inertia: [0.0669, 0.0669, 0.0162] },
-    l_shank: { mass: 3.5, inertia: [0.0608, 0.0608, 0.0086] },
-    r_shank: { mass: 3.5, inertia: [0.0608, 0.0608, 0.0086] },
-    // boots: long axis along x
-    l_foot: { mass: 2.5, inertia: [0.004, 0.02, 0.02] },
-    r_foot: { mass: 2.5, inertia: [0.004, 0.02, 0.02] },
+    ...sameOnBothSides({
+      // arm assemblies: cylinders r 0.07 / 0.06 m along the segment
+      upper_arm: { mass: 3, inertia: [0.026, 0.026, 0.0074] },
+      forearm: { mass: 2.5, inertia: [0.0174, 0.0174, 0.0045] },
+      hand: { mass: 0.8, inertia: [0.002, 0.002, 0.001] },
+      // leg assemblies: cylinders r 0.09 / 0.07 m along the segment
+      thigh: { mass: 4, inertia: [0.0669, 0.0669, 0.0162] },
+      shank: { mass: 3.5, inertia: [0.0608, 0.0608, 0.0086] },
+      // boots: long axis along x
+      foot: { mass: 2.5, inertia: [0.004, 0.02, 0.02] },
+    }),
   },
   ranges: {
     waist_rot: { min: -15, max: 15 },
-    l_sh_flex: { min: -20, max: 130 },
-    r_sh_flex: { min: -20, max: 130 },
-    l_sh_abd: { min: 0, max: 110 },
-    r_sh_abd: { min: 0, max: 110 },
-    l_sh_rot: { min: -40, max: 40 },
-    r_sh_rot: { min: -40, max: 40 },
-    l_elbow_flex: { min: 0, max: 120 },
-    r_elbow_flex: { min: 0, max: 120 },
-    l_hip_flex: { min: -10, max: 70 },
-    r_hip_flex: { min: -10, max: 70 },
-    l_hip_abd: { min: -10, max: 25 },
-    r_hip_abd: { min: -10, max: 25 },
-    l_hip_rot: { min: -20, max: 20 },
-    r_hip_rot: { min: -20, max: 20 },
-    l_knee_flex: { min: 0, max: 90 },
-    r_knee_flex: { min: 0, max: 90 },
+    ...sameOnBothSides({
+      sh_flex: { min: -20, max: 130 },
+      sh_abd: { min: 0, max: 110 },
+      sh_rot: { min: -40, max: 40 },
+      elbow_flex: { min: 0, max: 120 },
+      hip_flex: { min: -10, max: 70 },
+      hip_abd: { min: -10, max: 25 },
+      hip_rot: { min: -20, max: 20 },
+      knee_flex: { min: 0, max: 90 },
+    }),
   },
   lockedDofs: ['waist_flex'],
 } satisfies SuitConfigInput;
