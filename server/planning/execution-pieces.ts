@@ -8,8 +8,12 @@
  */
 import type { Body } from '../../shared/contracts/body.ts';
 import { harmonicAngleDeg, type Sequence, type Step } from '../../shared/contracts/sequence.ts';
+import { DEFAULT_RTOL } from '../../shared/contracts/simulate-request.ts';
+import { type BodyModel, compileBody } from '../../shared/kinematics/body-model.ts';
 import type { Quat } from '../../shared/math/quaternion.ts';
-import { evaluateSequence } from './evaluate-steps.ts';
+import { integrateAttitude, PlanRate } from '../engine/integrate-attitude.ts';
+import { compileMotion } from '../engine/joint-motion.ts';
+import { SEARCH_ENGINE_OPTIONS } from './evaluate-steps.ts';
 
 /** One piece: a fixed rotation, or a phase of whole cycles the crew member may stop early or extend. */
 export type ExecutionPiece =
@@ -27,13 +31,32 @@ export type ExecutionPiece =
       periodS: number;
     };
 
-const IDENTITY: Quat = [1, 0, 0, 0];
+const RTOL = SEARCH_ENGINE_OPTIONS.rtol ?? DEFAULT_RTOL;
+const TOLERANCES = { rtol: RTOL, atol: SEARCH_ENGINE_OPTIONS.atol ?? RTOL };
 
-/** Attitude [w,x,y,z] after simulating `steps` from joint angles `start` (the search's engine settings). */
-function rotationOf(body: Body, start: Record<string, number>, steps: Step[]): Quat {
-  if (!steps.length) return [...IDENTITY];
-  const a = evaluateSequence(body, { start, steps }, IDENTITY).result.final.attitude;
-  return [a.w, a.x, a.y, a.z];
+/**
+ * Rotations of step lists on one body, as the search mode's simulation gives them (same integrator,
+ * same tolerances, the final attitude with w ≥ 0), without what only a report needs (range and rate
+ * checks, the result contract): a sample simulates three or four step lists on its own body, so the
+ * body is compiled and its rate work set up once for all of them.
+ */
+class BodyRotations {
+  private readonly model: BodyModel;
+  private readonly rate: PlanRate;
+
+  constructor(body: Body) {
+    this.model = compileBody(body);
+    this.rate = new PlanRate(this.model);
+  }
+
+  /** Attitude [w,x,y,z] after simulating `steps` from joint angles `start`. */
+  of(start: Record<string, number>, steps: Step[]): Quat {
+    if (!steps.length) return [1, 0, 0, 0];
+    const q = integrateAttitude(this.model, compileMotion(this.model, { start, steps }), TOLERANCES, [], this.rate).final;
+    // The sign-canonical representative (w ≥ 0), as the engine's result reports it.
+    const s = q[0] < 0 ? -1 : 1;
+    return [s * q[0], s * q[1], s * q[2], s * q[3]];
+  }
 }
 
 /** Joint angles after a step, degrees (dofs the step does not name keep their angle). */
@@ -50,6 +73,7 @@ export function anglesAfter(angles: Record<string, number>, step: Step): Record<
 /** Cuts `sequence` into pieces on `body`; `reactionDelayS` sets each phase's lagged rotation. */
 export function executionPieces(body: Body, sequence: Sequence, reactionDelayS: number): ExecutionPiece[] {
   const pieces: ExecutionPiece[] = [];
+  const rotation = new BodyRotations(body);
   let angles: Record<string, number> = { ...sequence.start };
   for (const step of sequence.steps) {
     const whole = step.kind === 'harmonic' ? Math.floor(step.cycles + 1e-9) : 0;
@@ -57,11 +81,11 @@ export function executionPieces(body: Body, sequence: Sequence, reactionDelayS: 
       const T = step.period;
       const lagCycles = Math.floor(reactionDelayS / T);
       const rest = reactionDelayS - lagCycles * T;
-      const cycle = rotationOf(body, angles, [{ ...step, cycles: 1 }]);
-      const lagged = rest < 1e-9 ? cycle : rotationOf(body, angles, [{ ...step, cycles: (T - rest) / T }]);
+      const cycle = rotation.of(angles, [{ ...step, cycles: 1 }]);
+      const lagged = rest < 1e-9 ? cycle : rotation.of(angles, [{ ...step, cycles: (T - rest) / T }]);
       pieces.push({ kind: 'phase', cycle, cycles: whole, lagCycles, lagged, periodS: T });
     } else {
-      pieces.push({ kind: 'fixed', rotation: rotationOf(body, angles, [step]) });
+      pieces.push({ kind: 'fixed', rotation: rotation.of(angles, [step]) });
     }
     angles = anglesAfter(angles, step);
   }

@@ -59,7 +59,7 @@ export function sampleSeed(seed: number, index: number): number {
 }
 
 /** The joint a dof belongs to on either side (`l_sh_flex` and `r_sh_flex` → `sh_flex`). */
-const pairedJoint = (dof: string) => dof.replace(/^[lr]_/, '');
+const pairedJoint = (dof: string) => ((dof[0] === 'l' || dof[0] === 'r') && dof[1] === '_' ? dof.slice(2) : dof);
 
 /**
  * Phase errors (degrees of a cycle) of a sweep's dofs. Every dof draws its own error in order (so
