@@ -174,6 +174,23 @@ interface StepWork {
   piece: number;
 }
 
+/** Allocates the buffers of one integration. */
+function createStepWork(): StepWork {
+  return {
+    w: new Float64Array(9), histT: new Float64Array(ESTIMATE_NODES), histW: new Float64Array(3 * ESTIMATE_NODES), histCount: 0, est: createEstimateWork(), poly: createRatePolynomial(),
+    ringT: new Float64Array(9), ringW: new Float64Array(27), pending: false, pendT: 0, pendQ: new Float64Array(4), pendFrom: 0, pendTo: 0, wA: new Float64Array(9), thetaA: new Float64Array(3), thetaB: new Float64Array(3),
+    qTmp: new Float64Array(4), theta: new Float64Array(3), ws: new Float64Array(9), thetaS: new Float64Array(3),
+    record: null, piece: 0,
+  };
+}
+
+/**
+ * The buffers of the last finished integration, taken by the next one (the planner's and
+ * robustness runs' inner loops integrate thousands of times): one integration runs at a time per
+ * thread, and one that throws leaves none here, so the next allocates afresh.
+ */
+let spareStepWork: StepWork | null = null;
+
 /** ω at the Gauss nodes of [t, t+h] into w, then θ into `theta`. */
 function magnusStep(source: RateSource, t: number, h: number, w: Float64Array, theta: Float64Array): void {
   source.rate(t + GAUSS_NODES[0] * h, w, 0);
@@ -217,12 +234,13 @@ function pushNodes(sw: StepWork, t: number, h: number, w: Float64Array, inPlace:
       for (let c = 0; c < 3; c++) histW[3 * (ESTIMATE_NODES - 3 + j) + c] = w[3 * j + c];
     }
   }
-  histT.copyWithin(0, 3);
-  histW.copyWithin(0, 9);
+  // Shifts by hand: a typed array's copyWithin is a builtin call, several per step.
+  for (let j = 0; j < ESTIMATE_NODES - 3; j++) histT[j] = histT[j + 3];
+  for (let j = 0; j < 3 * (ESTIMATE_NODES - 3); j++) histW[j] = histW[j + 9];
   sw.histCount += 3;
   const { ringT, ringW } = sw;
-  ringT.copyWithin(0, 3);
-  ringW.copyWithin(0, 9);
+  for (let j = 0; j < 6; j++) ringT[j] = ringT[j + 3];
+  for (let j = 0; j < 18; j++) ringW[j] = ringW[j + 9];
   for (let j = 0; j < 3; j++) {
     ringT[6 + j] = t + GAUSS_NODES[j] * h;
     for (let c = 0; c < 3; c++) ringW[3 * (6 + j) + c] = w[3 * j + c];
@@ -273,12 +291,11 @@ export function integrateAttitude(
 ): AttitudeTrack {
   const outputs = new Float64Array(4 * times.length);
   const stats: IntegratorStats = { rhsEvaluations: 0, sampleEvaluations: 0, steps: 0, rejectedSteps: 0, pieces: plan.pieces.length };
-  const sw: StepWork = {
-    w: new Float64Array(9), histT: new Float64Array(ESTIMATE_NODES), histW: new Float64Array(3 * ESTIMATE_NODES), histCount: 0, est: createEstimateWork(), poly: createRatePolynomial(),
-    ringT: new Float64Array(9), ringW: new Float64Array(27), pending: false, pendT: 0, pendQ: new Float64Array(4), pendFrom: 0, pendTo: 0, wA: new Float64Array(9), thetaA: new Float64Array(3), thetaB: new Float64Array(3),
-    qTmp: new Float64Array(4), theta: new Float64Array(3), ws: new Float64Array(9), thetaS: new Float64Array(3),
-    record: opts.nodes ?? null, piece: 0,
-  };
+  // The buffers of the integration before (if it finished), else new ones; every field is written before it is read.
+  const sw = spareStepWork ?? createStepWork();
+  spareStepWork = null;
+  sw.record = opts.nodes ?? null;
+  sw.piece = 0; sw.histCount = 0; sw.pending = false;
   const tol = stepTolerance(opts.rtol, opts.atol);
   const maxSteps = opts.maxSteps ?? 100_000;
   const q = Float64Array.of(1, 0, 0, 0);
@@ -368,5 +385,7 @@ export function integrateAttitude(
   }
   // Times past the end (rounding) take the final attitude.
   while (next < times.length) { outputs.set(q, 4 * next); next++; }
+  sw.record = null;
+  spareStepWork = sw;
   return { final: q, outputs, stats };
 }

@@ -34,22 +34,42 @@ export interface MomentumWork {
   /**
    * The model as bodyRate sees it within that piece (null: the model itself): each moving segment
    * carries, as one rigid body, the still subtrees hanging from it (mass, CoM, inertia replaced).
+   * One object per work, rewritten by each restriction (restrictions run once per piece of every
+   * simulation: nothing of them is allocated again).
    */
   pieceModel: BodyModel | null;
   /** Scratch angles and rates (rad, rad/s), one per dof. */
   q: Float64Array;
   qd: Float64Array;
+  /** Scratch of restrictToPiece: per segment, how it moves (0 still, 1 moving, 2 carried). */
+  kind: Uint8Array;
+  /** Scratch of restrictToPiece: a carried segment's rotation in its host's frame, row-major. */
+  rel: Float64Array;
+  /** The folded model's arrays (what pieceModel points to) and the model they fold, once made. */
+  folded: { base: BodyModel; model: BodyModel; mass: Float64Array; com: Float64Array; inertia: Float64Array } | null;
 }
 
 /** Allocates work buffers for a model. */
 export function createMomentumWork(model: BodyModel): MomentumWork {
+  const n = model.segmentCount;
+  const all = new Int32Array(n);
+  for (let i = 0; i < n; i++) all[i] = i;
   return {
-    pose: createBodyPose(model), originVel: new Float64Array(3 * model.segmentCount),
+    pose: createBodyPose(model), originVel: new Float64Array(3 * n),
     lock: new Float64Array(9), h: new Float64Array(3), omega: new Float64Array(3), c: new Float64Array(3),
-    moving: Int32Array.from(model.parent.keys()), piece: null,
+    moving: all, piece: null,
     restMass: 0, restCom: new Float64Array(3), restInertia: new Float64Array(9), pieceModel: null,
     q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
+    kind: new Uint8Array(n), rel: new Float64Array(9), folded: null,
   };
+}
+
+/** The work's folded copy of the model (made on first use; its arrays are rewritten per piece). */
+function foldedModel(model: BodyModel, work: MomentumWork): NonNullable<MomentumWork['folded']> {
+  if (work.folded && work.folded.base === model) return work.folded;
+  const mass = new Float64Array(model.mass.length), com = new Float64Array(model.com.length), inertia = new Float64Array(model.inertia.length);
+  work.folded = { base: model, model: { ...model, mass, com, inertia }, mass, com, inertia };
+  return work.folded;
 }
 
 /**
@@ -60,10 +80,12 @@ export function createMomentumWork(model: BodyModel): MomentumWork {
  * so it is folded into that segment (summed mass, CoM and inertia in its frame). bodyRate then
  * recomputes only the moving segments that remain. Exact: the same sums, grouped differently
  * (round-off only). bodyRate must then be called only with angles and rates of that piece.
+ * Runs once per piece of every simulation (the planner's inner loop among them): it writes into the
+ * work's buffers and allocates only segmentMotion's small index lists.
  */
 export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: MomentumWork): void {
   if (work.piece === piece) return;
-  const { pose, q, qd, restCom, restInertia } = work;
+  const { pose, q, qd, restCom, restInertia, kind, rel } = work;
   evalPiece(piece, piece.t0, q, null);
   qd.fill(0);
   forwardKinematics(model, q, pose);
@@ -71,45 +93,60 @@ export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: Mome
   const n = model.segmentCount, { mass, com, inertia } = model, { rot, pos, comPos } = pose;
   // 0: at rest relative to the root; 1: moving, recomputed; 2: carried by a moving host.
   const { moving: active, carried, host } = segmentMotion(model, piece.moving);
-  const kind = new Uint8Array(n);
-  for (const i of active) kind[i] = 1;
-  for (const i of carried) kind[i] = 2;
+  kind.fill(0);
+  for (let j = 0; j < active.length; j++) kind[active[j]] = 1;
+  for (let j = 0; j < carried.length; j++) kind[carried[j]] = 2;
   // Each moving segment's group (itself and what is folded into it), in its own frame.
   let pieceModel: BodyModel | null = null;
   if (carried.length > 0) {
-    const gMass = Float64Array.from(mass), gCom = Float64Array.from(com), gInertia = Float64Array.from(inertia);
-    for (const a of active) {
-      const members = [a];
-      for (const i of carried) if (host[i] === a) members.push(i);
-      if (members.length === 1) continue;
+    const f = foldedModel(model, work), gCom = f.com, gInertia = f.inertia;
+    f.mass.set(mass); gCom.set(com); gInertia.set(inertia);
+    for (let ja = 0; ja < active.length; ja++) {
+      const a = active[ja];
+      let members = 1;
+      for (let jc = 0; jc < carried.length; jc++) if (host[carried[jc]] === a) members++;
+      if (members === 1) continue;
       const o = 9 * a;
-      // Member CoM and rotation relative to the host frame: Rₐᵀ(x − pₐ), Rₐᵀ Rᵢ.
-      const rel = members.map((i) => {
+      // Members in order (the host, then its carried segments): their mass-weighted CoM relative to
+      // the host frame, Rₐᵀ(x − pₐ), then their inertia about it with Rₐᵀ Rᵢ.
+      let M = 0, g0 = 0, g1 = 0, g2 = 0;
+      for (let jm = -1; jm < carried.length; jm++) {
+        const i = jm < 0 ? a : carried[jm];
+        if (jm >= 0 && host[i] !== a) continue;
         const cx = comPos[3 * i] - pos[3 * a], cy = comPos[3 * i + 1] - pos[3 * a + 1], cz = comPos[3 * i + 2] - pos[3 * a + 2];
-        const c = [0, 1, 2].map((r) => rot[o + r] * cx + rot[o + 3 + r] * cy + rot[o + 6 + r] * cz);
-        const R = [0, 1, 2].flatMap((r) => [0, 1, 2].map((cc) => rot[o + r] * rot[9 * i + cc] + rot[o + 3 + r] * rot[9 * i + 3 + cc] + rot[o + 6 + r] * rot[9 * i + 6 + cc]));
-        return { i, c, R };
-      });
-      let M = 0;
-      const g = [0, 0, 0];
-      for (const { i, c } of rel) { M += mass[i]; for (let r = 0; r < 3; r++) g[r] += mass[i] * c[r]; }
-      for (let r = 0; r < 3; r++) g[r] /= M;
-      const J = new Array<number>(9).fill(0);
-      for (const { i, c, R } of rel) {
-        const d = [c[0] - g[0], c[1] - g[1], c[2] - g[2]], d2 = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
+        M += mass[i];
+        g0 += mass[i] * (rot[o] * cx + rot[o + 3] * cy + rot[o + 6] * cz);
+        g1 += mass[i] * (rot[o + 1] * cx + rot[o + 4] * cy + rot[o + 7] * cz);
+        g2 += mass[i] * (rot[o + 2] * cx + rot[o + 5] * cy + rot[o + 8] * cz);
+      }
+      g0 /= M; g1 /= M; g2 /= M;
+      gInertia.fill(0, o, o + 9);
+      for (let jm = -1; jm < carried.length; jm++) {
+        const i = jm < 0 ? a : carried[jm];
+        if (jm >= 0 && host[i] !== a) continue;
+        const cx = comPos[3 * i] - pos[3 * a], cy = comPos[3 * i + 1] - pos[3 * a + 1], cz = comPos[3 * i + 2] - pos[3 * a + 2];
+        const d0 = rot[o] * cx + rot[o + 3] * cy + rot[o + 6] * cz - g0;
+        const d1 = rot[o + 1] * cx + rot[o + 4] * cy + rot[o + 7] * cz - g1;
+        const d2x = rot[o + 2] * cx + rot[o + 5] * cy + rot[o + 8] * cz - g2;
+        const dd = d0 * d0 + d1 * d1 + d2x * d2x;
+        // R = Rₐᵀ Rᵢ: R[r][u] = Σₖ Rₐ[k][r] Rᵢ[k][u].
         for (let r = 0; r < 3; r++) {
+          for (let u = 0; u < 3; u++) rel[3 * r + u] = rot[o + r] * rot[9 * i + u] + rot[o + 3 + r] * rot[9 * i + 3 + u] + rot[o + 6 + r] * rot[9 * i + 6 + u];
+        }
+        for (let r = 0; r < 3; r++) {
+          const dr = r === 0 ? d0 : r === 1 ? d1 : d2x;
           for (let cc = 0; cc < 3; cc++) {
+            const dc = cc === 0 ? d0 : cc === 1 ? d1 : d2x;
             let sum = 0;
-            for (let u = 0; u < 3; u++) for (let v = 0; v < 3; v++) sum += R[3 * r + u] * inertia[9 * i + 3 * u + v] * R[3 * cc + v];
-            J[3 * r + cc] += sum + mass[i] * ((r === cc ? d2 : 0) - d[r] * d[cc]);
+            for (let u = 0; u < 3; u++) for (let v = 0; v < 3; v++) sum += rel[3 * r + u] * inertia[9 * i + 3 * u + v] * rel[3 * cc + v];
+            gInertia[o + 3 * r + cc] += sum + mass[i] * ((r === cc ? dd : 0) - dr * dc);
           }
         }
       }
-      gMass[a] = M;
-      gCom.set(g, 3 * a);
-      gInertia.set(J, o);
+      f.mass[a] = M;
+      gCom[3 * a] = g0; gCom[3 * a + 1] = g1; gCom[3 * a + 2] = g2;
     }
-    pieceModel = { ...model, mass: gMass, com: gCom, inertia: gInertia };
+    pieceModel = f.model;
     // The moving segments' CoMs as the folded model places them.
     forwardKinematics(pieceModel, q, pose, active);
   }
@@ -128,12 +165,14 @@ export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: Mome
     if (kind[i] !== 0) continue;
     // R J Rᵀ + m(|d|²E − d dᵀ), d = segment CoM − composite CoM.
     const dx = comPos[3 * i] - restCom[0], dy = comPos[3 * i + 1] - restCom[1], dz = comPos[3 * i + 2] - restCom[2];
-    const d = [dx, dy, dz], d2 = dx * dx + dy * dy + dz * dz;
+    const d2 = dx * dx + dy * dy + dz * dz;
     for (let r = 0; r < 3; r++) {
+      const dr = r === 0 ? dx : r === 1 ? dy : dz;
       for (let c = 0; c < 3; c++) {
+        const dc = c === 0 ? dx : c === 1 ? dy : dz;
         let s = 0;
         for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) s += rot[9 * i + 3 * r + a] * inertia[9 * i + 3 * a + b] * rot[9 * i + 3 * c + b];
-        restInertia[3 * r + c] += s + mass[i] * ((r === c ? d2 : 0) - d[r] * d[c]);
+        restInertia[3 * r + c] += s + mass[i] * ((r === c ? d2 : 0) - dr * dc);
       }
     }
   }

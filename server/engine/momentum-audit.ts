@@ -31,6 +31,8 @@ export const AUDIT_EDGE_DELTA_S = 1e-5;
 /** Preallocated audit buffers for one model. */
 export interface AuditWork {
   pose: BodyPose;
+  /** The central stencil's second pose (t + δ; `pose` holds t − δ): both are read directly, no accumulation. */
+  poseB: BodyPose;
   /** Joint angles (rad) and rates (rad/s, unused but written) at a stencil point. */
   q: Float64Array;
   qd: Float64Array;
@@ -60,7 +62,7 @@ export interface AuditWork {
 export function createAuditWork(model: BodyModel): AuditWork {
   const n = model.segmentCount;
   return {
-    pose: createBodyPose(model), q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
+    pose: createBodyPose(model), poseB: createBodyPose(model), q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
     piece: null, movers: new Int32Array(0), restMass: 0, restMoment: new Float64Array(3), restInertia: new Float64Array(9),
     rot: new Float64Array(9 * n), com: new Float64Array(3 * n), rotD: new Float64Array(9 * n), comD: new Float64Array(3 * n), weights: new Float64Array(4),
     H: new Float64Array(3), shape: new Float64Array(3), lock: new Float64Array(9),
@@ -72,6 +74,8 @@ function enterPiece(model: BodyModel, piece: MotionPiece, work: AuditWork): void
   const { pose, restMoment: mx, restInertia: L } = work;
   evalPiece(piece, piece.t0, work.q, work.qd);
   forwardKinematics(model, work.q, pose);
+  // The still segments' poses in the second buffer too (the movers' FK reads their parents there).
+  forwardKinematics(model, work.q, work.poseB);
   // Every segment not still relative to the root (moving or carried by a moving one), in tree order.
   const moves = new Uint8Array(model.segmentCount).fill(1);
   for (const i of segmentMotion(model, piece.moving).still) moves[i] = 0;
@@ -115,10 +119,10 @@ function accumulate(work: AuditWork, valueWeight: number, rateWeight: number, fi
   }
 }
 
-/** Poses the movers at time t of the current piece (the still segments keep their pose). */
-function poseAt(model: BodyModel, t: number, work: AuditWork): void {
+/** Poses the movers at time t of the current piece into `pose` (default work.pose; the still segments keep their pose). */
+function poseAt(model: BodyModel, t: number, work: AuditWork, pose: BodyPose = work.pose): void {
   evalMoving(work.piece as MotionPiece, t, work.q, work.qd);
-  forwardKinematics(model, work.q, work.pose, work.movers);
+  forwardKinematics(model, work.q, pose, work.movers);
 }
 
 /**
@@ -134,9 +138,9 @@ export function auditAt(model: BodyModel, piece: MotionPiece, t: number, omega: 
     // Central: value (s₊f₋ − s₋f₊)/(s₊ − s₋), derivative (f₊ − f₋)/(s₊ − s₋).
     const tm = t - delta, tp = t + delta, sm = tm - t, sp = tp - t, width = tp - tm;
     poseAt(model, tm, work);
-    accumulate(work, sp / width, -1 / width, true);
-    poseAt(model, tp, work);
-    accumulate(work, -sm / width, 1 / width, false);
+    poseAt(model, tp, work, work.poseB);
+    const wt = work.weights;
+    wt[0] = sp / width; wt[1] = -sm / width; wt[2] = -1 / width; wt[3] = 1 / width;
     return momentumFromStencil(model, omega, work, delta);
   }
   // One-sided into the piece, four points 0, s₁, s₂, s₃ (third order: its rounding, ≈7ε/δ, needs a wider spacing).
@@ -164,18 +168,38 @@ function oneSidedWeights(s1: number, s2: number, s3: number, out: Float64Array):
   out[0] = -(out[1] + out[2] + out[3]);
 }
 
-/** H = shape + lock·ω from the movers' differenced poses and the still segments' sums. */
+/**
+ * H = shape + lock·ω from the movers' differenced poses and the still segments' sums. Central
+ * stencil (centralDelta > 0): value and rate straight from the two poses with work.weights [value
+ * weights at t − δ and t + δ, rate weights at t − δ and t + δ]; otherwise from the accumulators.
+ */
 function momentumFromStencil(model: BodyModel, omega: ArrayLike<number>, work: AuditWork, centralDelta: number): number {
   const { movers, rot: R, com: X, rotD: RD, comD: XD, restMoment, restInertia: L } = work;
   const J = model.inertia, M = model.totalMass;
+  const central = centralDelta > 0;
+  const A = work.pose.rot, B = work.poseB.rot, XA = work.pose.comPos, XB = work.poseB.comPos;
+  const va = work.weights[0], vb = work.weights[1], ra = work.weights[2], rb = work.weights[3];
   // Σm x, Σm ẋ; Σ R J Rᵀ Ω_rel + m x × ẋ; Σ R J Rᵀ + m(|x|²E − x xᵀ) (root origin; moved to the CoM below).
   let mx = restMoment[0], my = restMoment[1], mz = restMoment[2], mvx = 0, mvy = 0, mvz = 0;
   let hx = 0, hy = 0, hz = 0;
   let L00 = L[0], L01 = L[1], L02 = L[2], L11 = L[4], L12 = L[5], L22 = L[8];
   for (let j = 0; j < movers.length; j++) {
     const i = movers[j], o = 9 * i, i3 = 3 * i, m = model.mass[i];
-    let r0 = R[o], r1 = R[o + 1], r2 = R[o + 2], r3 = R[o + 3], r4 = R[o + 4], r5 = R[o + 5], r6 = R[o + 6], r7 = R[o + 7], r8 = R[o + 8];
-    const d0 = RD[o], d1 = RD[o + 1], d2 = RD[o + 2], d3 = RD[o + 3], d4 = RD[o + 4], d5 = RD[o + 5], d6 = RD[o + 6], d7 = RD[o + 7], d8 = RD[o + 8];
+    let r0, r1, r2, r3, r4, r5, r6, r7, r8, d0, d1, d2, d3, d4, d5, d6, d7, d8, x, y, z, vx, vy, vz;
+    if (central) {
+      r0 = va * A[o] + vb * B[o]; r1 = va * A[o + 1] + vb * B[o + 1]; r2 = va * A[o + 2] + vb * B[o + 2];
+      r3 = va * A[o + 3] + vb * B[o + 3]; r4 = va * A[o + 4] + vb * B[o + 4]; r5 = va * A[o + 5] + vb * B[o + 5];
+      r6 = va * A[o + 6] + vb * B[o + 6]; r7 = va * A[o + 7] + vb * B[o + 7]; r8 = va * A[o + 8] + vb * B[o + 8];
+      d0 = ra * A[o] + rb * B[o]; d1 = ra * A[o + 1] + rb * B[o + 1]; d2 = ra * A[o + 2] + rb * B[o + 2];
+      d3 = ra * A[o + 3] + rb * B[o + 3]; d4 = ra * A[o + 4] + rb * B[o + 4]; d5 = ra * A[o + 5] + rb * B[o + 5];
+      d6 = ra * A[o + 6] + rb * B[o + 6]; d7 = ra * A[o + 7] + rb * B[o + 7]; d8 = ra * A[o + 8] + rb * B[o + 8];
+      x = va * XA[i3] + vb * XB[i3]; y = va * XA[i3 + 1] + vb * XB[i3 + 1]; z = va * XA[i3 + 2] + vb * XB[i3 + 2];
+      vx = ra * XA[i3] + rb * XB[i3]; vy = ra * XA[i3 + 1] + rb * XB[i3 + 1]; vz = ra * XA[i3 + 2] + rb * XB[i3 + 2];
+    } else {
+      r0 = R[o]; r1 = R[o + 1]; r2 = R[o + 2]; r3 = R[o + 3]; r4 = R[o + 4]; r5 = R[o + 5]; r6 = R[o + 6]; r7 = R[o + 7]; r8 = R[o + 8];
+      d0 = RD[o]; d1 = RD[o + 1]; d2 = RD[o + 2]; d3 = RD[o + 3]; d4 = RD[o + 4]; d5 = RD[o + 5]; d6 = RD[o + 6]; d7 = RD[o + 7]; d8 = RD[o + 8];
+      x = X[i3]; y = X[i3 + 1]; z = X[i3 + 2]; vx = XD[i3]; vy = XD[i3 + 1]; vz = XD[i3 + 2];
+    }
     // Ω_rel = vee of the skew part of Ṙ Rᵀ; A(r, c) = Σ_k Ṙ[r][k] R[c][k] (off-diagonal entries only).
     const A01 = d0 * r3 + d1 * r4 + d2 * r5, A02 = d0 * r6 + d1 * r7 + d2 * r8;
     const A10 = d3 * r0 + d4 * r1 + d5 * r2, A12 = d3 * r6 + d4 * r7 + d5 * r8;
@@ -194,12 +218,18 @@ function momentumFromStencil(model: BodyModel, omega: ArrayLike<number>, work: A
       r6 -= c * (oz * u0 - w2 * r6); r7 -= c * (oz * u1 - w2 * r7); r8 -= c * (oz * u2 - w2 * r8);
     }
     // S = R J Rᵀ (symmetric): K = J Rᵀ, S = R K.
-    const k00 = J[o] * r0 + J[o + 1] * r1 + J[o + 2] * r2, k01 = J[o] * r3 + J[o + 1] * r4 + J[o + 2] * r5, k02 = J[o] * r6 + J[o + 1] * r7 + J[o + 2] * r8;
-    const k10 = J[o + 3] * r0 + J[o + 4] * r1 + J[o + 5] * r2, k11 = J[o + 3] * r3 + J[o + 4] * r4 + J[o + 5] * r5, k12 = J[o + 3] * r6 + J[o + 4] * r7 + J[o + 5] * r8;
-    const k20 = J[o + 6] * r0 + J[o + 7] * r1 + J[o + 8] * r2, k21 = J[o + 6] * r3 + J[o + 7] * r4 + J[o + 8] * r5, k22 = J[o + 6] * r6 + J[o + 7] * r7 + J[o + 8] * r8;
+    let k00, k01, k02, k10, k11, k12, k20, k21, k22;
+    const j0 = J[o], j1 = J[o + 1], j2 = J[o + 2], j4 = J[o + 4], j5 = J[o + 5], j8 = J[o + 8];
+    if (j1 === 0 && j2 === 0 && j5 === 0) {
+      // Principal axes (the usual segment table): the same products without their zero terms.
+      k00 = j0 * r0; k01 = j0 * r3; k02 = j0 * r6; k10 = j4 * r1; k11 = j4 * r4; k12 = j4 * r7; k20 = j8 * r2; k21 = j8 * r5; k22 = j8 * r8;
+    } else {
+      k00 = j0 * r0 + j1 * r1 + j2 * r2; k01 = j0 * r3 + j1 * r4 + j2 * r5; k02 = j0 * r6 + j1 * r7 + j2 * r8;
+      k10 = J[o + 3] * r0 + j4 * r1 + j5 * r2; k11 = J[o + 3] * r3 + j4 * r4 + j5 * r5; k12 = J[o + 3] * r6 + j4 * r7 + j5 * r8;
+      k20 = J[o + 6] * r0 + J[o + 7] * r1 + j8 * r2; k21 = J[o + 6] * r3 + J[o + 7] * r4 + j8 * r5; k22 = J[o + 6] * r6 + J[o + 7] * r7 + j8 * r8;
+    }
     const s00 = r0 * k00 + r1 * k10 + r2 * k20, s01 = r0 * k01 + r1 * k11 + r2 * k21, s02 = r0 * k02 + r1 * k12 + r2 * k22;
     const s11 = r3 * k01 + r4 * k11 + r5 * k21, s12 = r3 * k02 + r4 * k12 + r5 * k22, s22 = r6 * k02 + r7 * k12 + r8 * k22;
-    const x = X[i3], y = X[i3 + 1], z = X[i3 + 2], vx = XD[i3], vy = XD[i3 + 1], vz = XD[i3 + 2];
     hx += s00 * ox + s01 * oy + s02 * oz + m * (y * vz - z * vy);
     hy += s01 * ox + s11 * oy + s12 * oz + m * (z * vx - x * vz);
     hz += s02 * ox + s12 * oy + s22 * oz + m * (x * vy - y * vx);

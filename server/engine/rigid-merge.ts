@@ -48,10 +48,11 @@ export function mergeRigidSegments(model: BodyModel): BodyModel {
   // Inertia about the group CoM: Σ J_i + m_i(|d|²E − d dᵀ), d = segment CoM − group CoM.
   for (let i = 0; i < n; i++) {
     const k = newIndex[host[i]];
-    const d = [0, 1, 2].map((a) => off[3 * i + a] + com[3 * i + a] - rCom[3 * k + a]);
-    const d2 = d[0] * d[0] + d[1] * d[1] + d[2] * d[2];
+    const d0 = off[3 * i] + com[3 * i] - rCom[3 * k], d1 = off[3 * i + 1] + com[3 * i + 1] - rCom[3 * k + 1], d2 = off[3 * i + 2] + com[3 * i + 2] - rCom[3 * k + 2];
+    const dd = d0 * d0 + d1 * d1 + d2 * d2;
     for (let r = 0; r < 3; r++) {
-      for (let c = 0; c < 3; c++) rInertia[9 * k + 3 * r + c] += inertia[9 * i + 3 * r + c] + mass[i] * ((r === c ? d2 : 0) - d[r] * d[c]);
+      const dr = r === 0 ? d0 : r === 1 ? d1 : d2;
+      for (let c = 0; c < 3; c++) rInertia[9 * k + 3 * r + c] += inertia[9 * i + 3 * r + c] + mass[i] * ((r === c ? dd : 0) - dr * (c === 0 ? d0 : c === 1 ? d1 : d2));
     }
   }
   return {
