@@ -8,16 +8,19 @@ import type { z } from 'zod';
 
 /** A stored JSON value that does not match its schema (a damaged row or an unmigrated old shape). */
 export class StoredDataError extends Error {
-  constructor(readonly column: string, readonly field: string, reason: string) {
-    super(`${column}${field ? `.${field}` : ''}: ${reason} (stored value unreadable)`);
+  constructor(readonly column: string, readonly field: string, reason: string, readonly row?: string) {
+    super(`${column}${field ? `.${field}` : ''}${row ? ` of ${row}` : ''}: ${reason} (stored value unreadable)`);
     this.name = 'StoredDataError';
   }
 }
 
-/** `value` (read from `column`, e.g. "plans.settings") parsed with `schema`; throws StoredDataError. */
-export function readStored<S extends z.ZodType>(schema: S, value: unknown, column: string): z.output<S> {
+/**
+ * `value` (read from `column`, e.g. "plans.settings", of `row`, e.g. "upload 5f…") parsed with
+ * `schema`; throws StoredDataError.
+ */
+export function readStored<S extends z.ZodType>(schema: S, value: unknown, column: string, row?: string): z.output<S> {
   const r = schema.safeParse(value);
   if (r.success) return r.data;
   const issue = r.error.issues[0];
-  throw new StoredDataError(column, issue?.path.map(String).join('.') ?? '', issue?.message ?? 'does not match its schema');
+  throw new StoredDataError(column, issue?.path.map(String).join('.') ?? '', issue?.message ?? 'does not match its schema', row);
 }

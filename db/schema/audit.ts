@@ -1,5 +1,6 @@
 import { bigserial, index, jsonb, pgTable, text, uuid } from 'drizzle-orm/pg-core';
 
+import type { AuditDetail } from '../../shared/contracts/team.ts';
 import { instant } from './columns.ts';
 
 /** Append-only record of who did what to which object (a trigger refuses UPDATE and DELETE). */
@@ -12,7 +13,7 @@ export const auditEvents = pgTable(
     action: text('action').notNull(),
     objectType: text('object_type').notNull(),
     objectId: text('object_id'),
-    detail: jsonb('detail').$type<Record<string, unknown>>().notNull().default({}),
+    detail: jsonb('detail').$type<AuditDetail>().notNull().default({}),
   },
   (t) => [index('audit_events_at_idx').on(t.at), index('audit_events_object_idx').on(t.objectType, t.objectId)],
 );

@@ -1,6 +1,6 @@
 import { doublePrecision, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
-import type { RehearsalCapture } from '../../shared/contracts/recording.ts';
+import type { CaptureTrack, StoredCaptureInput } from '../../shared/contracts/recording.ts';
 import { createdAt, instant, linkTo, rowId } from './columns.ts';
 import { rehearsals } from './sequences.ts';
 import { uploads } from './uploads.ts';
@@ -16,9 +16,9 @@ export const rehearsalCaptures = pgTable('rehearsal_captures', {
   rehearsalId: linkTo('rehearsal_id', () => rehearsals.id).notNull().unique(),
   uploadId: linkTo('upload_id', () => uploads.id).notNull(),
   rateHz: doublePrecision('rate_hz').notNull(),
-  dofs: jsonb('dofs').$type<string[]>().notNull(),
-  frames: jsonb('frames').$type<number[][]>().notNull(),
-  capture: jsonb('capture').$type<Omit<RehearsalCapture, 'signedOff'>>().notNull(),
+  dofs: jsonb('dofs').$type<CaptureTrack['dofs']>().notNull(),
+  frames: jsonb('frames').$type<CaptureTrack['frames']>().notNull(),
+  capture: jsonb('capture').$type<StoredCaptureInput>().notNull(),
   signedOffBy: linkTo('signed_off_by', () => users.id),
   signedOffAt: instant('signed_off_at'),
   signOffNote: text('sign_off_note'),

@@ -1,6 +1,6 @@
 import { integer, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
 
-import { UPLOAD_KINDS, UPLOAD_STATUSES, type UploadRowError } from '../../shared/contracts/uploads.ts';
+import { UPLOAD_KINDS, UPLOAD_STATUSES, type UploadRowData, type UploadRowError } from '../../shared/contracts/uploads.ts';
 import { createdAt, linkTo, rowId } from './columns.ts';
 import { users } from './users.ts';
 
@@ -27,7 +27,7 @@ export const uploadRows = pgTable('upload_rows', {
   id: rowId(),
   uploadId: linkTo('upload_id', () => uploads.id).notNull(),
   rowNumber: integer('row_number').notNull(),
-  data: jsonb('data').notNull(),
+  data: jsonb('data').$type<UploadRowData>().notNull(),
 });
 
 export type UploadRow = typeof uploads.$inferSelect;

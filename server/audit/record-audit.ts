@@ -1,5 +1,6 @@
 import type { Database } from '../../db/client.ts';
 import { auditEvents } from '../../db/schema/index.ts';
+import type { AuditDetail } from '../../shared/contracts/team.ts';
 
 /** Anything that can run an insert: the database or an open transaction. */
 export type Executor = Pick<Database, 'insert'>;
@@ -9,7 +10,7 @@ export interface AuditEntry {
   action: string;
   objectType: string;
   objectId?: string | null;
-  detail?: Record<string, unknown>;
+  detail?: AuditDetail;
 }
 
 /** Appends one audit event (inside the caller's transaction when given one). */

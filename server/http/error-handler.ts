@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 
+import { StoredDataError } from '../../db/stored-json.ts';
 import { DATABASE_RETRY_AFTER_S, isDatabaseUnavailable } from './database-unavailable.ts';
 import { HttpError } from './http-error.ts';
 import { unfinishedSimulation } from './unfinished-simulation.ts';
@@ -24,6 +25,11 @@ export const errorHandler: ErrorRequestHandler = (thrown, req, res, _next) => {
     httpError = err;
     // A 500 we name ourselves (a stored value that cannot be read) is still a fault to look into.
     if (err.status === 500) req.log?.error({ err }, err.message);
+  }
+  else if (err instanceof StoredDataError) {
+    // Like an unreadable stored version: the fault is ours, named (row, column, field) and logged.
+    req.log?.error({ err }, err.message);
+    httpError = new HttpError(500, 'stored_value_unreadable', `A stored value cannot be read: ${err.message}.`);
   }
   else if (err instanceof ZodError) httpError = zodToHttpError(err, 'body');
   else if (parserType === 'entity.parse.failed') httpError = new HttpError(400, 'malformed_json', 'The request body is not valid JSON.');

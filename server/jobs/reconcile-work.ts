@@ -8,6 +8,7 @@
  */
 import { and, eq, inArray, isNull, lt } from 'drizzle-orm';
 import type { JobWithMetadata, PgBoss } from 'pg-boss';
+import { z } from 'zod';
 
 import { invitations, plans, reverifications, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
 import type { AppContext } from '../app-context.ts';
@@ -35,10 +36,13 @@ async function verdict(boss: PgBoss, queue: string, data: object): Promise<Verdi
   return { kind: 'ended', reason: jobEndReason(last.state, last.output, last.retryCount) };
 }
 
+/** A failed job's output as pg-boss stores it: the Error's fields, or `value` for anything else thrown. */
+const failureOutputSchema = z.union([z.object({ message: z.string() }), z.object({ value: z.string() })]);
+
 /** A plain reason from a finished job's state and output (pg-boss stores the error there). */
 export function jobEndReason(state: string, output: unknown, retryCount: number): string {
-  const o = output as { message?: unknown; value?: unknown } | null;
-  const detail = typeof o?.message === 'string' ? o.message : typeof o?.value === 'string' ? o.value : null;
+  const failure = failureOutputSchema.safeParse(output);
+  const detail = !failure.success ? null : 'message' in failure.data ? failure.data.message : failure.data.value;
   if (state === 'cancelled') return 'its job was cancelled';
   if (state === 'completed') return 'its job ended without storing a result';
   const attempts = retryCount + 1;

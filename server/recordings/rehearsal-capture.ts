@@ -9,7 +9,7 @@ import { eq } from 'drizzle-orm';
 import type { Database } from '../../db/client.ts';
 import { profileVersions } from '../../db/schema/index.ts';
 import { validateBody } from '../../shared/contracts/body.ts';
-import type { CaptureOutcome, CaptureOverlay, RehearsalCapture } from '../../shared/contracts/recording.ts';
+import type { CaptureOutcome, CaptureOverlay, StoredCapture } from '../../shared/contracts/recording.ts';
 import type { Attitude, SimulationResult } from '../../shared/contracts/result.ts';
 import { type Sequence, validateSequence } from '../../shared/contracts/sequence.ts';
 import { quatToYpr } from '../../shared/math/euler-zyx.ts';
@@ -45,7 +45,7 @@ async function run(pool: SimulationPool, body: unknown, sequence: Sequence, what
 /** Builds the capture for a recording of version `v` (the sign-off is added by the caller). */
 export async function buildCapture(
   db: Database, pool: SimulationPool, v: StoredVersion, rec: RecordedTrack, meta: { rehearsalId: string; uploadId: string; fileName: string; assumptions: string[]; createdAt: Date },
-): Promise<Omit<RehearsalCapture, 'signedOff'>> {
+): Promise<StoredCapture> {
   const body = validateBody(v.body);
   if (!body.ok) throw new HttpError(422, 'motion_invalid', `The plan's profile body cannot be simulated: ${body.issues[0].message}`);
   const plan = validateSequence(v.compiled.sequence, body.value);

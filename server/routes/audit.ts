@@ -2,7 +2,8 @@ import { and, desc, eq, gte, lte, type SQL } from 'drizzle-orm';
 import { Router } from 'express';
 
 import { auditEvents, users } from '../../db/schema/index.ts';
-import { auditQuerySchema } from '../../shared/contracts/team.ts';
+import { readStored } from '../../db/stored-json.ts';
+import { auditDetailSchema, auditQuerySchema } from '../../shared/contracts/team.ts';
 import type { AppContext } from '../app-context.ts';
 import { auditObjectLabels } from '../audit/audit-labels.ts';
 import { validate } from '../http/validate.ts';
@@ -30,7 +31,8 @@ export function auditRouter(ctx: AppContext): Router {
     res.json({
       events: rows.map(({ e, email, name }) => ({
         id: e.id, at: e.at.toISOString(), actorId: e.actorId, actorEmail: email, actorName: name, action: e.action,
-        objectType: e.objectType, objectId: e.objectId, objectLabel: labels.get(`${e.objectType}:${e.objectId}`) ?? null, detail: e.detail,
+        objectType: e.objectType, objectId: e.objectId, objectLabel: labels.get(`${e.objectType}:${e.objectId}`) ?? null,
+        detail: readStored(auditDetailSchema, e.detail, 'audit_events.detail', `audit event ${e.id}`),
       })),
     });
   });

@@ -7,7 +7,7 @@ import type { Router } from 'express';
 
 import { recordings, uploadRows, uploads } from '../../db/schema/index.ts';
 import { type BvhMapping, recordingUploadFieldsSchema } from '../../shared/contracts/recording.ts';
-import type { UploadRowError } from '../../shared/contracts/uploads.ts';
+import type { UploadRowData, UploadRowError } from '../../shared/contracts/uploads.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { readableMember } from '../crew/crew-access.ts';
@@ -26,7 +26,7 @@ type Fields = { name?: string; rateHz?: number; crewMemberId?: string };
 /** Stores an accepted recording: upload row, parsed rows, the recording, the audit line, in one transaction. */
 async function saveRecording(
   ctx: AppContext, file: StoredFile, actorId: string, fields: Fields, source: 'joint_angles_csv' | 'bvh',
-  parsedRows: { row: number; data: unknown }[], track: { rateHz: number; dofs: string[]; frames: number[][]; assumptions: string[] }, mapping: BvhMapping | null,
+  parsedRows: { row: number; data: UploadRowData }[], track: { rateHz: number; dofs: string[]; frames: number[][]; assumptions: string[] }, mapping: BvhMapping | null,
 ) {
   return ctx.db.transaction(async (tx) => {
     const [upload] = await tx.insert(uploads).values(uploadValues(file, 'imported', parsedRows.length, [], actorId)).returning();

@@ -9,11 +9,13 @@ import type { Router } from 'express';
 import { z } from 'zod';
 
 import { rehearsalCaptures, rehearsals, sequences, sequenceVersions, uploadRows, uploads, users } from '../../db/schema/index.ts';
+import { readStored } from '../../db/stored-json.ts';
 import type { SessionUser } from '../../shared/contracts/auth.ts';
-import { captureSignOffSchema, type CaptureTrendPoint, type RehearsalCapture } from '../../shared/contracts/recording.ts';
+import { captureSignOffSchema, type CaptureTrendPoint, type RehearsalCapture, type StoredCapture, storedCaptureSchema } from '../../shared/contracts/recording.ts';
+import type { UploadRowData } from '../../shared/contracts/uploads.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
-import { conflict, forbidden, notFound } from '../http/http-error.ts';
+import { conflict, forbidden, HttpError, notFound } from '../http/http-error.ts';
 import { validate } from '../http/validate.ts';
 import { loadStoredVersion } from '../maneuvers/stored-version.ts';
 import { readBvh } from '../recordings/bvh-file.ts';
@@ -35,14 +37,23 @@ async function visibleRehearsal(ctx: AppContext, me: SessionUser, id: string) {
   return r;
 }
 
+/** The columns a capture is shown from (not the executed track: the capture holds what screens need). */
+const captureColumns = {
+  id: rehearsalCaptures.id, capture: rehearsalCaptures.capture,
+  signedOffBy: rehearsalCaptures.signedOffBy, signedOffAt: rehearsalCaptures.signedOffAt, signOffNote: rehearsalCaptures.signOffNote,
+};
+
+/** A capture row's stored JSON, parsed once where it is read (an unreadable value names the row). */
+const readCapture = (c: { id: string; capture: unknown }): StoredCapture => readStored(storedCaptureSchema, c.capture, 'rehearsal_captures.capture', `rehearsal capture ${c.id}`);
+
 /** The stored capture with its sign-off. */
 async function captureOf(ctx: AppContext, rehearsalId: string): Promise<RehearsalCapture | null> {
-  const [row] = await ctx.db.select({ c: rehearsalCaptures, signer: users.name }).from(rehearsalCaptures)
+  const [row] = await ctx.db.select({ c: captureColumns, signer: users.name }).from(rehearsalCaptures)
     .leftJoin(users, eq(users.id, rehearsalCaptures.signedOffBy)).where(eq(rehearsalCaptures.rehearsalId, rehearsalId));
   if (!row) return null;
   const c = row.c;
   const signedOff = c.signedOffBy && c.signedOffAt ? { by: c.signedOffBy, byName: row.signer ?? '', at: c.signedOffAt.toISOString(), note: c.signOffNote ?? '' } : null;
-  return { ...c.capture, signedOff };
+  return { ...readCapture(c), signedOff };
 }
 
 /** Adds the capture routes to the rehearsals router. */
@@ -53,7 +64,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
     const me = req.user!;
     const { traineeId } = res.locals.query;
     const who = me.role === 'trainee' ? me.id : traineeId;
-    const rows = await db.select({ c: rehearsalCaptures, r: rehearsals, name: sequences.name, version: sequenceVersions.version })
+    const rows = await db.select({ c: captureColumns, r: rehearsals, name: sequences.name, version: sequenceVersions.version })
       .from(rehearsalCaptures)
       .innerJoin(rehearsals, eq(rehearsals.id, rehearsalCaptures.rehearsalId))
       .innerJoin(sequenceVersions, eq(sequenceVersions.id, rehearsals.sequenceVersionId))
@@ -62,7 +73,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
       .orderBy(desc(rehearsals.performedAt)).limit(200);
     const mean = (xs: number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
     const points: CaptureTrendPoint[] = rows.map(({ c, r, name, version }) => {
-      const cap = c.capture;
+      const cap = readCapture(c);
       return {
         rehearsalId: r.id, performedAt: r.performedAt.toISOString(), sequenceName: name, version,
         errorToTargetDeg: cap.outcomes.find((o) => o.role === 'plan')?.errorToTargetDeg ?? NaN,
@@ -94,7 +105,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
 
     // Parse all or nothing.
     let track: { rateHz: number; dofs: string[]; frames: number[][]; assumptions: string[] };
-    let rows: { row: number; data: unknown }[];
+    let rows: { row: number; data: UploadRowData }[];
     if (isBvh) {
       const read = readBvh(file.text);
       if (!read.motion) return rejectUpload(ctx, res, file, 0, read.errors, me.id);
@@ -114,7 +125,7 @@ export function mountRehearsalCaptures(router: Router, ctx: AppContext): void {
     try {
       capture = await buildCapture(db, ctx.simulation.product, v, track, { rehearsalId: id, uploadId: file.id, fileName: file.fileName, assumptions: track.assumptions, createdAt: new Date() });
     } catch (err) {
-      if (err instanceof Error && 'status' in err && (err as { status: number }).status === 422) {
+      if (err instanceof HttpError && err.status === 422) {
         return rejectUpload(ctx, res, file, rows.length, [{ row: 0, column: 'file', reason: err.message }], me.id);
       }
       throw err;

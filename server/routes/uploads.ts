@@ -3,8 +3,9 @@ import { Router } from 'express';
 import { z } from 'zod';
 
 import { crewMembers, uploadRows, uploads } from '../../db/schema/index.ts';
+import { readStored } from '../../db/stored-json.ts';
 import type { StoredProfileInputs } from '../../shared/contracts/profile-version.ts';
-import type { ImportedRowResult, UploadResult } from '../../shared/contracts/uploads.ts';
+import { type ImportedRowResult, type UploadResult, uploadRowDataSchema } from '../../shared/contracts/uploads.ts';
 import type { AppContext } from '../app-context.ts';
 import { recordAudit } from '../audit/record-audit.ts';
 import { appendProfileVersion } from '../crew/append-profile-version.ts';
@@ -47,7 +48,8 @@ export function uploadsRouter(ctx: AppContext): Router {
     const { id } = res.locals.params;
     const [row] = await db.select().from(uploads).where(eq(uploads.id, id));
     if (!row) throw notFound('Upload');
-    const rows = await db.select({ row: uploadRows.rowNumber, data: uploadRows.data }).from(uploadRows).where(eq(uploadRows.uploadId, id)).orderBy(uploadRows.rowNumber);
+    const stored = await db.select({ row: uploadRows.rowNumber, data: uploadRows.data }).from(uploadRows).where(eq(uploadRows.uploadId, id)).orderBy(uploadRows.rowNumber);
+    const rows = stored.map((r) => ({ row: r.row, data: readStored(uploadRowDataSchema, r.data, 'upload_rows.data', `upload ${id} row ${r.row}`) }));
     res.json({ upload: uploadView(row), rows });
   });
 

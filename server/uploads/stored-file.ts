@@ -1,7 +1,10 @@
 import { createHash, randomUUID } from 'node:crypto';
 
+import { z } from 'zod';
+
 import type { UploadRow } from '../../db/schema/index.ts';
-import type { UploadKind, UploadRowError, UploadView } from '../../shared/contracts/uploads.ts';
+import { readStored } from '../../db/stored-json.ts';
+import { type UploadKind, type UploadRowError, uploadRowErrorSchema, type UploadView } from '../../shared/contracts/uploads.ts';
 import type { AppContext } from '../app-context.ts';
 import { safeFileName } from './receive-file.ts';
 
@@ -60,7 +63,7 @@ export function uploadView(row: UploadRow): UploadView {
     objectKey: row.objectKey,
     status: row.status,
     rowCount: row.rowCount,
-    errors: row.errors,
+    errors: readStored(z.array(uploadRowErrorSchema), row.errors, 'uploads.errors', `upload ${row.id}`),
     uploadedBy: row.uploadedBy,
     createdAt: row.createdAt.toISOString(),
   };

@@ -6,6 +6,7 @@
 import { z } from 'zod';
 
 import { DOF_NAMES } from '../model/dof-names.ts';
+import { attitudeSchema } from './result.ts';
 import { TRACK_LIMITS } from './sequence.ts';
 
 /** Segments of the standard human model a BVH joint can drive (those with dofs, plus the root). */
@@ -57,85 +58,106 @@ export interface BvhJointInfo {
 /** Where a recording came from: a joint-angle CSV or a BVH file. */
 export const RECORDING_SOURCES = ['joint_angles_csv', 'bvh'] as const;
 
+/** A recorded track as it is described wherever it is shown (a recording, a rehearsal's capture). */
+const recordedTrackSchema = z.object({
+  /** The uploaded file it was read from. */
+  uploadId: z.string(),
+  fileName: z.string(),
+  /** Uniform frame rate of the frames, Hz. */
+  rateHz: z.number(),
+  /** Seconds: (frames − 1)/rateHz. */
+  duration: z.number(),
+  dofs: z.array(z.string()),
+  /** What the import assumed (resampling, BVH axes and rest pose), for people to check. */
+  assumptions: z.array(z.string()),
+});
+type RecordedTrackDescription = z.infer<typeof recordedTrackSchema>;
+
 /** A stored recording as the API returns it. */
-export interface RecordingView {
+export interface RecordingView extends RecordedTrackDescription {
   id: string;
   name: string;
   source: (typeof RECORDING_SOURCES)[number];
-  uploadId: string;
-  fileName: string;
   crewMemberId: string | null;
-  /** Uniform frame rate of `frames`, Hz. */
-  rateHz: number;
-  /** Seconds: (frames − 1)/rateHz. */
-  duration: number;
-  dofs: string[];
   /** Frames (degrees, in the order of `dofs`); frame k at k/rateHz s. */
   frames: number[][];
-  /** What the import assumed (resampling, BVH axes and rest pose), for people to check. */
-  assumptions: string[];
   /** BVH only: the mapping in force and the file's joints. */
   mapping: BvhMapping | null;
   bvhJoints: BvhJointInfo[] | null;
   createdAt: string;
 }
 
+/**
+ * A ratio that may not be computable (NaN): JSON has no NaN, so it is written as null and read back
+ * as NaN, the value that was computed.
+ */
+const ratioSchema = z.number().nullable().transform((v) => v ?? Number.NaN);
+
+const yprDegSchema = z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() });
+
 /** One simulated outcome of a rehearsal recording on one profile version. */
-export interface CaptureOutcome {
-  profileVersionId: string;
-  profileVersion: number;
+export const captureOutcomeSchema = z.object({
+  profileVersionId: z.string(),
+  profileVersion: z.number(),
   /** `plan`: the profile version the plan was verified for; `current`: the trainee's current one. */
-  role: 'plan' | 'current';
+  role: z.enum(['plan', 'current']),
   /** Attitude the recorded motion would have reached in free fall, {w,x,y,z}. */
-  reached: { w: number; x: number; y: number; z: number };
-  reachedYprDeg: { yaw: number; pitch: number; roll: number };
+  reached: attitudeSchema,
+  reachedYprDeg: yprDegSchema,
   /** Angle from the reached attitude to the plan's target, and to the plan's own simulated result, degrees. */
-  errorToTargetDeg: number;
-  errorToPlanDeg: number;
-}
+  errorToTargetDeg: z.number(),
+  errorToPlanDeg: z.number(),
+});
+export type CaptureOutcome = z.infer<typeof captureOutcomeSchema>;
+
+/** A recorded sweep against the planned one: period and amplitude as recorded ÷ planned, and how late it ran, s. */
+const sweepTimingSchema = z.object({ periodRatio: z.number(), amplitudeRatio: ratioSchema, phaseLagS: z.number() });
 
 /** Per plan sweep step, the recorded timing and amplitude (see server/recordings/compare-execution.ts). */
-export interface CaptureStepTiming {
+export const captureStepTimingSchema = sweepTimingSchema.extend({
   /** The step's number as the composer, player and rehearsal log list it (1-based). */
-  step: number;
-  cue: string;
-  startS: number;
-  endS: number;
-  periodRatio: number;
-  amplitudeRatio: number;
-  phaseLagS: number;
-  dofs: { dof: string; periodRatio: number; amplitudeRatio: number; phaseLagS: number; fitRmsDeg: number }[];
-}
+  step: z.number(),
+  cue: z.string(),
+  startS: z.number(),
+  endS: z.number(),
+  /** Per dof of the sweep (amplitude-weighted into the step's figures), with the sinusoid fit's RMS residual, degrees. */
+  dofs: z.array(sweepTimingSchema.extend({ dof: z.string(), fitRmsDeg: z.number() })),
+});
+export type CaptureStepTiming = z.infer<typeof captureStepTimingSchema>;
 
 /** Planned and executed series for the overlay plot (same times). */
-export interface CaptureOverlay {
-  t: number[];
+export const captureOverlaySchema = z.object({
+  t: z.array(z.number()),
   /** Joint angles by dof, degrees. */
-  planned: Record<string, number[]>;
-  executed: Record<string, number[]>;
+  planned: z.record(z.string(), z.array(z.number())),
+  executed: z.record(z.string(), z.array(z.number())),
   /** Rotation angle from the start attitude, degrees. */
-  plannedTurnDeg: number[];
-  executedTurnDeg: number[];
-}
+  plannedTurnDeg: z.array(z.number()),
+  executedTurnDeg: z.array(z.number()),
+});
+export type CaptureOverlay = z.infer<typeof captureOverlaySchema>;
 
-/** A rehearsal's recording and what it would have done. */
-export interface RehearsalCapture {
-  rehearsalId: string;
-  uploadId: string;
-  fileName: string;
-  rateHz: number;
-  duration: number;
-  dofs: string[];
-  assumptions: string[];
+/** A rehearsal's recording and what it would have done, as stored (the sign-off is kept in its own columns). */
+export const storedCaptureSchema = recordedTrackSchema.extend({
+  rehearsalId: z.string(),
   /** Plan: the target and the plan's own result. */
-  targetYprDeg: { yaw: number; pitch: number; roll: number } | null;
-  planReachedYprDeg: { yaw: number; pitch: number; roll: number };
-  outcomes: CaptureOutcome[];
-  steps: CaptureStepTiming[];
-  overlay: CaptureOverlay;
-  signedOff: { by: string; byName: string; at: string; note: string } | null;
-  createdAt: string;
-}
+  targetYprDeg: yprDegSchema.nullable(),
+  planReachedYprDeg: yprDegSchema,
+  outcomes: z.array(captureOutcomeSchema),
+  steps: z.array(captureStepTimingSchema),
+  overlay: captureOverlaySchema,
+  createdAt: z.string(),
+});
+export type StoredCapture = z.infer<typeof storedCaptureSchema>;
+/** What is written (a NaN ratio goes in as a number and comes back as null). */
+export type StoredCaptureInput = z.input<typeof storedCaptureSchema>;
+
+/** A rehearsal's recording and what it would have done, with its sign-off. */
+export type RehearsalCapture = StoredCapture & { signedOff: { by: string; byName: string; at: string; note: string } | null };
+
+/** The executed joint-angle track kept with a capture: dof names, and frames in their order (degrees). */
+export const captureTrackSchema = z.object({ dofs: z.array(z.string()), frames: z.array(z.array(z.number())) });
+export type CaptureTrack = z.infer<typeof captureTrackSchema>;
 
 /** One rehearsal in a trainee's trend of recorded figures. */
 export interface CaptureTrendPoint {

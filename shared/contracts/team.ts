@@ -76,6 +76,10 @@ export const auditQuerySchema = z.object({
 });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;
 
+/** What an audit event adds about its action (ids, counts, names): an object, by key. */
+export const auditDetailSchema = z.record(z.string(), z.unknown());
+export type AuditDetail = z.infer<typeof auditDetailSchema>;
+
 export const auditEventSchema = z.object({
   id: z.number(),
   at: z.string(),

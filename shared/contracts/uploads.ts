@@ -1,3 +1,5 @@
+import { z } from 'zod';
+
 import type { SegmentLengthKey } from './profile-inputs.ts';
 import type { StaleVersion } from './profile-version.ts';
 
@@ -12,14 +14,22 @@ export type UploadKind = (typeof UPLOAD_KINDS)[number];
 export const UPLOAD_STATUSES = ['imported', 'rejected'] as const;
 
 /** One problem in an uploaded file: the row (as numbered in the file, header = row 1), the column and why. */
-export interface UploadRowError {
+export const uploadRowErrorSchema = z.object({
   /** Line in the file, 1 = header; 0 when the problem is the file as a whole. */
-  row: number;
+  row: z.number().int().min(0),
   /** Column name as in the documented header ('' when the whole row or file is at fault). */
-  column: string;
+  column: z.string(),
   /** Sentence for people. */
-  reason: string;
-}
+  reason: z.string(),
+});
+export type UploadRowError = z.infer<typeof uploadRowErrorSchema>;
+
+/**
+ * One data row of an imported file as the file had it, by column name: a CSV's cells as text, a
+ * BVH frame's angles, a JSON segment table's fields (the importers check the values; this is the record).
+ */
+export const uploadRowDataSchema = z.record(z.string(), z.unknown());
+export type UploadRowData = z.infer<typeof uploadRowDataSchema>;
 
 /** An upload as the API returns it. */
 export interface UploadView {

@@ -1,24 +1,17 @@
-import { Writable } from 'node:stream';
-
 import request from 'supertest';
 import { describe, expect, it } from 'vitest';
 
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../db/seed/demo-people.ts';
 import { redactText } from '../../server/logging/logger.ts';
 import type { SignInResponse } from '../../shared/contracts/auth.ts';
+import { logLines } from '../support/log-lines.ts';
 import { bodyOf } from '../support/response-body.ts';
 import { testAppForFile } from '../support/test-app.ts';
 
 // Every line the server logs during the run below, as written.
-const lines: string[] = [];
-const capture = new Writable({
-  write(chunk, _enc, done) {
-    lines.push(String(chunk));
-    done();
-  },
-});
+const { lines, destination } = logLines();
 
-const t = testAppForFile({ env: { LOG_LEVEL: 'info' }, logDestination: capture });
+const t = testAppForFile({ env: { LOG_LEVEL: 'info' }, logDestination: destination });
 
 describe('the log of a run of requests holds no secret', () => {
   it('sign-in, invitation preview and accept, bearer and cookie calls, password change', async () => {

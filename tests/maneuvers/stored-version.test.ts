@@ -3,8 +3,6 @@
  * quaternions), compiled steps in both stored shapes, and a stored value that does not parse is a
  * 500 naming the version and the column, logged — never a default.
  */
-import { Writable } from 'node:stream';
-
 import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -15,6 +13,7 @@ import { targetAttitude } from '../../server/maneuvers/target-attitude.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { targetWords } from '../../shared/product/target-words.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from '../rehearse/rehearsal-fixture.ts';
+import { logLines } from '../support/log-lines.ts';
 import { apiError } from '../support/response-body.ts';
 import { startTestApp, type TestApp } from '../support/test-app.ts';
 
@@ -81,17 +80,11 @@ describe('reading stored values', () => {
 
 describe('a version whose stored target cannot be read', () => {
   const TAMSIN = 'tamsin.reed@lumen.example.test';
-  const lines: string[] = [];
-  const capture = new Writable({
-    write(chunk, _enc, done) {
-      lines.push(String(chunk));
-      done();
-    },
-  });
+  const { lines, destination } = logLines();
   let t: TestApp;
   let broken: string;
   beforeAll(async () => {
-    t = await startTestApp({ env: { LOG_LEVEL: 'warn' }, logDestination: capture });
+    t = await startTestApp({ env: { LOG_LEVEL: 'warn' }, logDestination: destination });
     const reed = await crewMemberOf(t.ctx.db, TAMSIN);
     const pv = await insertProfileVersion(t.ctx.db, reed);
     const good = await insertVersion(t.ctx.db, { crewMemberId: reed, profileVersionId: pv, status: 'drafting', name: 'Broken target (test)' });

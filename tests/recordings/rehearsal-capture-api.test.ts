@@ -4,7 +4,7 @@
  * version and on the trainee's newer current profile, reports the reached attitude, the step timing
  * and the overlay; a reviewer signs it off; the trend lists it.
  */
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import request from 'supertest';
 import { beforeAll, describe, expect, it } from 'vitest';
 
@@ -17,7 +17,7 @@ import { validateSequence } from '../../shared/contracts/sequence.ts';
 import type { UploadResult } from '../../shared/contracts/uploads.ts';
 import { compileBody } from '../../shared/kinematics/body-model.ts';
 import { ARM_SWEEP, crewMemberOf, insertProfileVersion, insertVersion } from '../rehearse/rehearsal-fixture.ts';
-import { bodyOf } from '../support/response-body.ts';
+import { apiError, bodyOf } from '../support/response-body.ts';
 import { testAppForFile } from '../support/test-app.ts';
 
 // Response bodies as the web client reads them.
@@ -116,5 +116,18 @@ describe('rehearsal capture', () => {
     const bram = await as('bram.kettle@lumen.example.test');
     expect((await request(t.app).get(`/api/rehearsals/${id}/recording`).set('Authorization', bram)).status).toBe(404);
     expect((await request(t.app).post(`/api/rehearsals/${id}/recording`).set('Authorization', bram).attach('file', Buffer.from(csv), 'x.csv')).status).toBe(404);
+  });
+
+  it('a stored capture no schema reads answers a 500 naming the capture row (last: it breaks the trend too)', async () => {
+    const id = await logRehearsal();
+    const res = await request(t.app).post(`/api/rehearsals/${id}/recording`).set('Authorization', await as(TAMSIN)).attach('file', Buffer.from(csv), 'run-3.csv');
+    expect(res.status).toBe(201);
+    const [row] = await t.ctx.db.update(rehearsalCaptures).set({ capture: sql`capture - 'overlay'` }).where(eq(rehearsalCaptures.rehearsalId, id)).returning({ id: rehearsalCaptures.id });
+    for (const path of [`/api/rehearsals/${id}/recording`, '/api/rehearsals/captures/trend']) {
+      const read = await request(t.app).get(path).set('Authorization', await as(TAMSIN));
+      expect(read.status, path).toBe(500);
+      expect(apiError(read)).toMatchObject({ code: 'stored_value_unreadable' });
+      expect(apiError(read).message, path).toContain(`rehearsal_captures.capture.overlay of rehearsal capture ${row.id}`);
+    }
   });
 });
