@@ -174,6 +174,9 @@ interface StepWork {
   piece: number;
 }
 
+/** The outputs of an integration asked for no times (zero length: shared). */
+const NO_OUTPUTS = new Float64Array(0);
+
 /** Allocates the buffers of one integration. */
 function createStepWork(): StepWork {
   return {
@@ -289,7 +292,7 @@ function flushPending(sw: StepWork, times: ArrayLike<number>, outputs: Float64Ar
 export function integrateAttitude(
   model: BodyModel, plan: MotionPlan, opts: IntegratorOptions, times: ArrayLike<number> = [], source: RateSource = new PlanRate(model),
 ): AttitudeTrack {
-  const outputs = new Float64Array(4 * times.length);
+  const outputs = times.length ? new Float64Array(4 * times.length) : NO_OUTPUTS;
   const stats: IntegratorStats = { rhsEvaluations: 0, sampleEvaluations: 0, steps: 0, rejectedSteps: 0, pieces: plan.pieces.length };
   // The buffers of the integration before (if it finished), else new ones; every field is written before it is read.
   const sw = spareStepWork ?? createStepWork();

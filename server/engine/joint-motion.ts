@@ -50,7 +50,9 @@ export interface MotionPlan {
   readonly start: Float64Array;
 }
 
+/** Empty lists shared by every piece that has none (zero length: nothing in them can change). */
 const NO_DOFS = new Int32Array(0);
+const NO_VALUES = new Float64Array(0);
 
 /**
  * A track step as one piece per frame interval: each tracked dof's natural cubic spline through its
@@ -62,7 +64,7 @@ function compileTrack(model: BodyModel, step: TrackStep, index: number, t: numbe
   const tDofs = Int32Array.from(step.dofs.map((name) => model.dofIndex.get(name)!));
   const splines = step.dofs.map((_, j) => naturalCubicSpline(knots, step.frames.map((f) => f[j] * DEG)));
   const moving = Int32Array.from(tDofs).sort();
-  const empty = new Float64Array(0);
+  const empty = NO_VALUES;
   for (let i = 0; i < n - 1; i++) {
     const from = cur.slice();
     const tCoeffs = new Float64Array(4 * tDofs.length);
@@ -80,6 +82,15 @@ function compileTrack(model: BodyModel, step: TrackStep, index: number, t: numbe
   return t + knots[n - 1];
 }
 
+/** Indices (ascending) of the dofs whose angle differs between `from` and `to`. */
+function changedDofs(from: Float64Array, to: Float64Array): Int32Array {
+  let n = 0;
+  for (let k = 0; k < from.length; k++) if (to[k] !== from[k]) n++;
+  const out = new Int32Array(n);
+  for (let k = 0, j = 0; k < from.length; k++) if (to[k] !== from[k]) out[j++] = k;
+  return out;
+}
+
 /** Compiles a validated sequence for a model. */
 export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
   const nd = model.dofCount;
@@ -88,7 +99,7 @@ export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
   const start = cur.slice();
   const pieces: MotionPiece[] = [];
   let t = 0;
-  const empty = new Float64Array(0);
+  const empty = NO_VALUES;
   seq.steps.forEach((step, index) => {
     if (step.kind === 'track') {
       t = compileTrack(model, step, index, t, cur, pieces);
@@ -97,7 +108,7 @@ export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
     const d = stepDuration(step);
     const from = cur.slice();
     let to = from;
-    let hDofs = new Int32Array(0), hOffset = empty, hAmplitude = empty, hPhase = empty, omega = 0;
+    let hDofs = NO_DOFS, hOffset = empty, hAmplitude = empty, hPhase = empty, hPhaseCos = empty, hPhaseSin = empty, omega = 0;
     if (step.kind === 'move') {
       to = from.slice();
       for (const [name, v] of Object.entries(step.to)) to[model.dofIndex.get(name)!] = v * DEG;
@@ -108,10 +119,9 @@ export function compileMotion(model: BodyModel, seq: Sequence): MotionPlan {
       hAmplitude = Float64Array.from(entries.map(([, j]) => j.amplitude * DEG));
       hPhase = Float64Array.from(entries.map(([, j]) => j.phase * DEG));
       omega = (2 * Math.PI) / step.period;
+      hPhaseCos = hPhase.map(Math.cos); hPhaseSin = hPhase.map(Math.sin);
     }
-    const moving = step.kind === 'move' ? Int32Array.from(from.keys()).filter((k) => to[k] !== from[k])
-      : step.kind === 'harmonic' ? Int32Array.from(hDofs).sort() : new Int32Array(0);
-    const hPhaseCos = hPhase.map(Math.cos), hPhaseSin = hPhase.map(Math.sin);
+    const moving = step.kind === 'move' ? changedDofs(from, to) : step.kind === 'harmonic' ? Int32Array.from(hDofs).sort() : NO_DOFS;
     const piece: MotionPiece = { kind: step.kind, step: index, t0: t, t1: t + d, from, to, hDofs, hOffset, hAmplitude, hPhase, hPhaseCos, hPhaseSin, omega, tDofs: NO_DOFS, tCoeffs: empty, moving };
     pieces.push(piece);
     // The next step starts where this one ends.

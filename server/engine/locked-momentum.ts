@@ -4,7 +4,7 @@
  * and the body rate ω = −I_lock⁻¹ h that keeps the total angular momentum zero.
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
-import { type BodyPose, createBodyPose, forwardKinematics, segmentMotion, segmentVelocities } from '../../shared/kinematics/forward-kinematics.ts';
+import { type BodyPose, createBodyPose, forwardKinematics, type SegmentMotion, segmentMotion, segmentVelocities } from '../../shared/kinematics/forward-kinematics.ts';
 import { solveSpd3 } from '../../shared/math/mat3.ts';
 import { evalPiece, type MotionPiece } from './joint-motion.ts';
 
@@ -45,6 +45,10 @@ export interface MomentumWork {
   kind: Uint8Array;
   /** Scratch of restrictToPiece: a carried segment's rotation in its host's frame, row-major. */
   rel: Float64Array;
+  /** The last classification of segments by motion, and the moving dofs it was made for (consecutive pieces often move the same dofs). */
+  motion: SegmentMotion | null;
+  motionDofs: Int32Array | null;
+  motionModel: BodyModel | null;
   /** The folded model's arrays (what pieceModel points to) and the model they fold, once made. */
   folded: { base: BodyModel; model: BodyModel; mass: Float64Array; com: Float64Array; inertia: Float64Array } | null;
 }
@@ -60,7 +64,7 @@ export function createMomentumWork(model: BodyModel): MomentumWork {
     moving: all, piece: null,
     restMass: 0, restCom: new Float64Array(3), restInertia: new Float64Array(9), pieceModel: null,
     q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
-    kind: new Uint8Array(n), rel: new Float64Array(9), folded: null,
+    kind: new Uint8Array(n), rel: new Float64Array(9), motion: null, motionDofs: null, motionModel: null, folded: null,
   };
 }
 
@@ -70,6 +74,15 @@ function foldedModel(model: BodyModel, work: MomentumWork): NonNullable<Momentum
   const mass = new Float64Array(model.mass.length), com = new Float64Array(model.com.length), inertia = new Float64Array(model.inertia.length);
   work.folded = { base: model, model: { ...model, mass, com, inertia }, mass, com, inertia };
   return work.folded;
+}
+
+/** segmentMotion for these moving dofs, reusing the work's last one when it was made for the same dofs. */
+function motionOf(model: BodyModel, dofs: Int32Array, work: MomentumWork): SegmentMotion {
+  const last = work.motionDofs;
+  let same = last !== null && work.motion !== null && work.motionModel === model && last.length === dofs.length;
+  for (let j = 0; same && j < dofs.length; j++) same = (last as Int32Array)[j] === dofs[j];
+  if (!same) { work.motion = segmentMotion(model, dofs); work.motionDofs = dofs; work.motionModel = model; }
+  return work.motion as SegmentMotion;
 }
 
 /**
@@ -92,7 +105,7 @@ export function restrictToPiece(model: BodyModel, piece: MotionPiece, work: Mome
   segmentVelocities(model, qd, pose, work.originVel);
   const n = model.segmentCount, { mass, com, inertia } = model, { rot, pos, comPos } = pose;
   // 0: at rest relative to the root; 1: moving, recomputed; 2: carried by a moving host.
-  const { moving: active, carried, host } = segmentMotion(model, piece.moving);
+  const { moving: active, carried, host } = motionOf(model, piece.moving, work);
   kind.fill(0);
   for (let j = 0; j < active.length; j++) kind[active[j]] = 1;
   for (let j = 0; j < carried.length; j++) kind[carried[j]] = 2;
