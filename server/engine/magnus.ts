@@ -105,15 +105,13 @@ export interface EstimateWork {
   y: Float64Array;
   /** Divided differences of ω, 3 per node. */
   m: Float64Array;
-  /** Monomial coefficients of the current Newton basis polynomial. */
-  basis: Float64Array;
   /** θ from the moments of the polynomial through all the nodes, rad. */
   theta: Float64Array;
 }
 
 /** Allocates estimate scratch. */
 export function createEstimateWork(): EstimateWork {
-  return { y: new Float64Array(ESTIMATE_NODES), m: new Float64Array(3 * ESTIMATE_NODES), basis: new Float64Array(ESTIMATE_NODES + 1), theta: new Float64Array(3) };
+  return { y: new Float64Array(ESTIMATE_NODES), m: new Float64Array(3 * ESTIMATE_NODES), theta: new Float64Array(3) };
 }
 
 /** ∫ y^k dy over [−½, ½], k = 0 … ESTIMATE_NODES + 1. */
@@ -138,22 +136,22 @@ export function localErrorEstimate(ts: ArrayLike<number>, ws: ArrayLike<number>,
   // The polynomial through the nodes in Newton form (divided differences dⱼ, basis Nⱼ(y) = Π_{i<j}(y − yᵢ)),
   // then its moments Bₙ/h = ∫ yⁿ p(y) dy = Σⱼ dⱼ ∫ yⁿ Nⱼ(y) dy over [−½, ½] (O(N²), no linear system).
   for (let k = 0; k < 3 * N; k++) d[k] = ws[k];
-  newtonDifferences(y, 0, d, N);
-  const nb = work.basis;
-  nb.fill(0); nb[0] = 1;
+  newtonDifferences7(y, 0, d);
+  // Nⱼ's coefficients on locals (n_q = 0 above degree j: the full sums and updates below add and
+  // keep exact zeros, so they equal the triangular ones); odd centred moments vanish.
+  const M0 = CENTRED_MOMENTS[0], M2 = CENTRED_MOMENTS[2], M4 = CENTRED_MOMENTS[4], M6 = CENTRED_MOMENTS[6], M8 = CENTRED_MOMENTS[8];
+  let n0 = 1, n1 = 0, n2 = 0, n3 = 0, n4 = 0, n5 = 0, n6 = 0, n7 = 0;
   let p0x = 0, p0y = 0, p0z = 0, p1x = 0, p1y = 0, p1z = 0, p2x = 0, p2y = 0, p2z = 0;
   for (let j = 0; j < N; j++) {
     // ∫ yⁿ Nⱼ(y) dy from Nⱼ's monomial coefficients (degree j).
-    let a0 = 0, a1 = 0, a2 = 0;
-    for (let q = 0; q <= j; q++) { const cq = nb[q]; a0 += cq * CENTRED_MOMENTS[q]; a1 += cq * CENTRED_MOMENTS[q + 1]; a2 += cq * CENTRED_MOMENTS[q + 2]; }
+    const a0 = n0 * M0 + n2 * M2 + n4 * M4 + n6 * M6, a1 = n1 * M2 + n3 * M4 + n5 * M6, a2 = n0 * M2 + n2 * M4 + n4 * M6 + n6 * M8;
     const fx = d[3 * j], fy = d[3 * j + 1], fz = d[3 * j + 2];
     p0x += a0 * fx; p0y += a0 * fy; p0z += a0 * fz;
     p1x += a1 * fx; p1y += a1 * fy; p1z += a1 * fz;
     p2x += a2 * fx; p2y += a2 * fy; p2z += a2 * fz;
     // Nⱼ₊₁ = Nⱼ·(y − yⱼ).
     const yj = y[j];
-    for (let q = j + 1; q >= 1; q--) nb[q] = nb[q - 1] - yj * nb[q];
-    nb[0] = -yj * nb[0];
+    n7 = n6 - yj * n7; n6 = n5 - yj * n6; n5 = n4 - yj * n5; n4 = n3 - yj * n4; n3 = n2 - yj * n3; n2 = n1 - yj * n2; n1 = n0 - yj * n1; n0 = -yj * n0;
   }
   // β₁ = h(9/4 B₀ − 15 B₂), β₂ = 12h B₁, β₃ = h(180 B₂ − 15 B₀).
   magnusFromMoments(
@@ -262,29 +260,47 @@ export function fitRatePolynomial(ts: ArrayLike<number>, ws: ArrayLike<number>, 
   poly.scale = (hi - lo) / 2;
   for (let k = 0; k < N; k++) u[k] = (ts[first + k] - poly.centre) / poly.scale;
   for (let k = 0; k < 3 * N; k++) d[k] = ws[3 * first + k];
-  newtonDifferences(u, 0, d, N);
-  // Newton form to monomials, innermost first: p ← p·(u − uⱼ) + dⱼ for j = N−2 … 0.
-  c.fill(0);
-  c[0] = d[3 * (N - 1)]; c[1] = d[3 * (N - 1) + 1]; c[2] = d[3 * (N - 1) + 2];
-  for (let j = N - 2, deg = 0; j >= 0; j--, deg++) {
-    const uj = u[j];
-    for (let q = deg + 1; q >= 1; q--) {
-      c[3 * q] = c[3 * q - 3] - uj * c[3 * q]; c[3 * q + 1] = c[3 * q - 2] - uj * c[3 * q + 1]; c[3 * q + 2] = c[3 * q - 1] - uj * c[3 * q + 2];
-    }
-    c[0] = d[3 * j] - uj * c[0]; c[1] = d[3 * j + 1] - uj * c[1]; c[2] = d[3 * j + 2] - uj * c[2];
+  newtonDifferences7(u, 0, d);
+  // Newton form to monomials, innermost first: p ← p·(u − uⱼ) + dⱼ for j = N−2 … 0 (per component, on locals).
+  const u0 = u[0], u1 = u[1], u2 = u[2], u3 = u[3], u4 = u[4], u5 = u[5];
+  for (let k = 0; k < 3; k++) {
+    let c0 = d[18 + k], c1 = 0, c2 = 0, c3 = 0, c4 = 0, c5 = 0, c6 = 0;
+    c1 = c0 - u5 * c1; c0 = d[15 + k] - u5 * c0;
+    c2 = c1 - u4 * c2; c1 = c0 - u4 * c1; c0 = d[12 + k] - u4 * c0;
+    c3 = c2 - u3 * c3; c2 = c1 - u3 * c2; c1 = c0 - u3 * c1; c0 = d[9 + k] - u3 * c0;
+    c4 = c3 - u2 * c4; c3 = c2 - u2 * c3; c2 = c1 - u2 * c2; c1 = c0 - u2 * c1; c0 = d[6 + k] - u2 * c0;
+    c5 = c4 - u1 * c5; c4 = c3 - u1 * c4; c3 = c2 - u1 * c3; c2 = c1 - u1 * c2; c1 = c0 - u1 * c1; c0 = d[3 + k] - u1 * c0;
+    c6 = c5 - u0 * c6; c5 = c4 - u0 * c5; c4 = c3 - u0 * c4; c3 = c2 - u0 * c3; c2 = c1 - u0 * c2; c1 = c0 - u0 * c1; c0 = d[k] - u0 * c0;
+    c[k] = c0; c[3 + k] = c1; c[6 + k] = c2; c[9 + k] = c3; c[12 + k] = c4; c[15 + k] = c5; c[18 + k] = c6;
   }
 }
 
 /**
- * Divided differences in place (Newton's interpolation form): on entry d holds the values at nodes
- * x[xo … xo+N−1] (3 per node), on exit d[3j … 3j+2] = f[x₀ … xⱼ].
+ * Divided differences in place (Newton's interpolation form) for the seven nodes x[xo … xo+6]: on
+ * entry d holds the values there (3 per node), on exit d[3j … 3j+2] = f[x₀ … xⱼ]. Written out for
+ * seven nodes (the integrator calls it for every step and every sampled step): the reciprocals of
+ * the node gaps once, then each component's table on locals — the same operations, in the same
+ * order, as the textbook double loop.
  */
-function newtonDifferences(x: ArrayLike<number>, xo: number, d: Float64Array, N: number): void {
-  for (let j = 1; j < N; j++) {
-    for (let k = N - 1; k >= j; k--) {
-      const r = 1 / (x[xo + k] - x[xo + k - j]), o = 3 * k;
-      d[o] = (d[o] - d[o - 3]) * r; d[o + 1] = (d[o + 1] - d[o - 2]) * r; d[o + 2] = (d[o + 2] - d[o - 1]) * r;
-    }
+function newtonDifferences7(x: ArrayLike<number>, xo: number, d: Float64Array): void {
+  const x0 = x[xo], x1 = x[xo + 1], x2 = x[xo + 2], x3 = x[xo + 3], x4 = x[xo + 4], x5 = x[xo + 5], x6 = x[xo + 6];
+  // r{j}{k} = 1/(x_k − x_{k−j}).
+  const r16 = 1 / (x6 - x5), r15 = 1 / (x5 - x4), r14 = 1 / (x4 - x3), r13 = 1 / (x3 - x2), r12 = 1 / (x2 - x1), r11 = 1 / (x1 - x0);
+  const r26 = 1 / (x6 - x4), r25 = 1 / (x5 - x3), r24 = 1 / (x4 - x2), r23 = 1 / (x3 - x1), r22 = 1 / (x2 - x0);
+  const r36 = 1 / (x6 - x3), r35 = 1 / (x5 - x2), r34 = 1 / (x4 - x1), r33 = 1 / (x3 - x0);
+  const r46 = 1 / (x6 - x2), r45 = 1 / (x5 - x1), r44 = 1 / (x4 - x0);
+  const r56 = 1 / (x6 - x1), r55 = 1 / (x5 - x0);
+  const r66 = 1 / (x6 - x0);
+  for (let c = 0; c < 3; c++) {
+    const d0 = d[c];
+    let d1 = d[3 + c], d2 = d[6 + c], d3 = d[9 + c], d4 = d[12 + c], d5 = d[15 + c], d6 = d[18 + c];
+    d6 = (d6 - d5) * r16; d5 = (d5 - d4) * r15; d4 = (d4 - d3) * r14; d3 = (d3 - d2) * r13; d2 = (d2 - d1) * r12; d1 = (d1 - d0) * r11;
+    d6 = (d6 - d5) * r26; d5 = (d5 - d4) * r25; d4 = (d4 - d3) * r24; d3 = (d3 - d2) * r23; d2 = (d2 - d1) * r22;
+    d6 = (d6 - d5) * r36; d5 = (d5 - d4) * r35; d4 = (d4 - d3) * r34; d3 = (d3 - d2) * r33;
+    d6 = (d6 - d5) * r46; d5 = (d5 - d4) * r45; d4 = (d4 - d3) * r44;
+    d6 = (d6 - d5) * r56; d5 = (d5 - d4) * r55;
+    d6 = (d6 - d5) * r66;
+    d[3 + c] = d1; d[6 + c] = d2; d[9 + c] = d3; d[12 + c] = d4; d[15 + c] = d5; d[18 + c] = d6;
   }
 }
 
@@ -293,34 +309,30 @@ function newtonDifferences(x: ArrayLike<number>, xo: number, d: Float64Array, N:
  * its exact moments. Writes out[0..2].
  */
 export function polynomialTheta(poly: RatePolynomial, a: number, b: number, out: Float64Array): void {
-  const N = ESTIMATE_NODES, { c, d } = poly, S = poly.scale;
+  const { c, d } = poly, S = poly.scale;
   const um = ((a + b) / 2 - poly.centre) / S, r = (b - a) / (2 * S), sigma = b - a;
-  // Taylor shift: p(u) = Σ d_j (u − um)^j (Horner, repeated synthetic division).
-  d.set(c);
-  for (let i = 0; i < N; i++) {
-    for (let j = N - 2; j >= i; j--) {
-      d[3 * j] += um * d[3 * j + 3]; d[3 * j + 1] += um * d[3 * j + 4]; d[3 * j + 2] += um * d[3 * j + 5];
-    }
-  }
-  // Bₙ = ∫ ((t − t_mid)/σ)ⁿ ω dt = S^(n+1)/σⁿ Σ_j d_j ∫_{−r}^{r} v^(n+j) dv.
-  let b0x = 0, b0y = 0, b0z = 0, b1x = 0, b1y = 0, b1z = 0, b2x = 0, b2y = 0, b2z = 0;
-  // rp = r^(j+1), running.
-  let rp = r;
+  // Bₙ = ∫ ((t − t_mid)/σ)ⁿ ω dt = S^(n+1)/σⁿ Σ_j d_j ∫_{−r}^{r} v^(n+j) dv, with the integrals
+  // 2r^(j+n+1)/(j+n+1) for even j+n (rp = r^(j+1), running).
   const r2 = r * r;
-  for (let j = 0; j < N; j++) {
-    const dx = d[3 * j], dy = d[3 * j + 1], dz = d[3 * j + 2];
-    if (j % 2 === 0) {
-      const i0 = (2 * rp) / (j + 1), i2 = (2 * rp * r2) / (j + 3);
-      b0x += dx * i0; b0y += dy * i0; b0z += dz * i0;
-      b2x += dx * i2; b2y += dy * i2; b2z += dz * i2;
-    } else {
-      const i1 = (2 * rp * r) / (j + 2);
-      b1x += dx * i1; b1y += dy * i1; b1z += dz * i1;
-    }
-    rp *= r;
+  const rp0 = r, rp1 = rp0 * r, rp2 = rp1 * r, rp3 = rp2 * r, rp4 = rp3 * r, rp5 = rp4 * r, rp6 = rp5 * r;
+  const a00 = (2 * rp0) / 1, a20 = (2 * rp0 * r2) / 3, a11 = (2 * rp1 * r) / 3, a02 = (2 * rp2) / 3, a22 = (2 * rp2 * r2) / 5, a13 = (2 * rp3 * r) / 5;
+  const a04 = (2 * rp4) / 5, a24 = (2 * rp4 * r2) / 7, a15 = (2 * rp5 * r) / 7, a06 = (2 * rp6) / 7, a26 = (2 * rp6 * r2) / 9;
+  for (let k = 0; k < 3; k++) {
+    let e0 = c[k], e1 = c[3 + k], e2 = c[6 + k], e3 = c[9 + k], e4 = c[12 + k], e5 = c[15 + k];
+    const e6 = c[18 + k];
+    // Taylor shift to the interval's midpoint: p(u) = Σ e_j (u − um)^j (repeated synthetic division, on locals).
+    e5 += um * e6; e4 += um * e5; e3 += um * e4; e2 += um * e3; e1 += um * e2; e0 += um * e1;
+    e5 += um * e6; e4 += um * e5; e3 += um * e4; e2 += um * e3; e1 += um * e2;
+    e5 += um * e6; e4 += um * e5; e3 += um * e4; e2 += um * e3;
+    e5 += um * e6; e4 += um * e5; e3 += um * e4;
+    e5 += um * e6; e4 += um * e5;
+    e5 += um * e6;
+    d[k] = e0 * a00 + e2 * a02 + e4 * a04 + e6 * a06;
+    d[3 + k] = e1 * a11 + e3 * a13 + e5 * a15;
+    d[6 + k] = e0 * a20 + e2 * a22 + e4 * a24 + e6 * a26;
   }
   const k0 = S, k1 = (S * S) / sigma, k2 = (S * S * S) / (sigma * sigma);
-  b0x *= k0; b0y *= k0; b0z *= k0; b1x *= k1; b1y *= k1; b1z *= k1; b2x *= k2; b2y *= k2; b2z *= k2;
+  const b0x = d[0] * k0, b0y = d[1] * k0, b0z = d[2] * k0, b1x = d[3] * k1, b1y = d[4] * k1, b1z = d[5] * k1, b2x = d[6] * k2, b2y = d[7] * k2, b2z = d[8] * k2;
   magnusFromMoments(
     2.25 * b0x - 15 * b2x, 2.25 * b0y - 15 * b2y, 2.25 * b0z - 15 * b2z,
     12 * b1x, 12 * b1y, 12 * b1z,
