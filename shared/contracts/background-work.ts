@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 
-import { jobStateSchema } from './job-state.ts';
+import { jobRecordSchema } from './job-state.ts';
 
 export const WORK_KINDS = ['plan', 'robustness', 'reverification'] as const;
 export type WorkKind = (typeof WORK_KINDS)[number];
@@ -13,20 +13,13 @@ export type WorkKind = (typeof WORK_KINDS)[number];
 export const WORK_FILTERS = ['open', 'failed', 'done'] as const;
 export type WorkFilter = (typeof WORK_FILTERS)[number];
 
-export const workItemSchema = z.object({
+export const workItemSchema = jobRecordSchema.omit({ startedAt: true }).extend({
   kind: z.enum(WORK_KINDS),
   id: z.uuid(),
   /** What it is about, e.g. "Robustness of Quarter turn v3 (1,000 samples)". */
   label: z.string(),
-  state: jobStateSchema,
   /** 0–1, null when the kind reports none. */
-  progress: z.number().nullable(),
-  /** Why it failed or was cancelled. */
-  error: z.string().nullable(),
-  /** Attempts made by workers (retries after a worker died count). */
-  attempts: z.number().int(),
-  createdAt: z.string(),
-  finishedAt: z.string().nullable(),
+  progress: jobRecordSchema.shape.progress.nullable(),
   canRetry: z.boolean(),
   canCancel: z.boolean(),
 });

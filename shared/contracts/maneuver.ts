@@ -34,8 +34,8 @@ import { z } from 'zod';
 import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
 import type { RecheckInfo } from '../product/recheck-status.ts';
 import { CHECK_NAMES } from '../product/version-checks.ts';
-import { jobStateSchema } from './job-state.ts';
-import { attitudeSchema, finalStateSchema, rangeViolationSchema } from './result.ts';
+import { jobRecordSchema } from './job-state.ts';
+import { angleAxisSchema, attitudeSchema, finalStateSchema, rangeViolationSchema, yprSchema } from './result.ts';
 import { robustnessBriefSchema, versionRobustnessSchema } from './robustness.ts';
 import { sequenceSchema } from './sequence.ts';
 import { versionStatusSchema } from './version-status.ts';
@@ -201,15 +201,15 @@ export const reportSeriesSchema = z.object({
   ranges: z.record(z.string(), z.object({ min: z.number(), max: z.number() })),
 });
 
-/** A rotation relative to the body's attitude at its start, about the body's axes there (degrees). */
-export const relativeRotationSchema = z.object({
+/**
+ * A rotation relative to the body's attitude at its start, about the body's axes there (degrees):
+ * angle and unit axis in the body frame at the start (x anterior, y left, z head; [1,0,0] for no
+ * rotation), the quaternion and the same rotation as yaw/pitch/roll (z-y′-x″).
+ */
+export const relativeRotationSchema = angleAxisSchema.extend({
   /** {w,x,y,z}, w ≥ 0: composes by quaternion product, earlier steps on the left. */
   quat: attitudeSchema,
-  angleDeg: z.number(),
-  /** Unit axis in the body frame at the start (x anterior, y left, z head); [1,0,0] for no rotation. */
-  axis: z.tuple([z.number(), z.number(), z.number()]),
-  /** The same rotation as yaw/pitch/roll (z-y′-x″), degrees. */
-  yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+  yprDeg: yprSchema,
 });
 export type RelativeRotation = z.infer<typeof relativeRotationSchema>;
 
@@ -240,14 +240,19 @@ export const stepRotationSchema = z.object({
 });
 export type StepRotation = z.infer<typeof stepRotationSchema>;
 
-/** The stored verification report of a version. */
-export const verificationReportSchema = z.object({
+/** What a verification (and a review of it) binds to: the same inputs on the same engine give the same figures. */
+export const verificationBindingSchema = z.object({
   /** Engine version (semver+source hash) that computed the report. */
   engineVersion: z.string(),
   /** sha256 (hex) of the canonical JSON of { body, sequence }: reproduces the computation. */
   inputsHash: z.string(),
   /** The profile version the body came from. */
   profileVersionId: z.uuid(),
+});
+const binding = verificationBindingSchema.shape;
+
+/** The stored verification report of a version. */
+export const verificationReportSchema = verificationBindingSchema.extend({
   durationS: z.number(),
   /** Rotation travelled, ∫|ω| dt over the report's samples, degrees (absent in reports made before it was added). */
   pathDeg: z.number().optional(),
@@ -290,7 +295,7 @@ export const reportSummarySchema = z.object({
   durationS: z.number(),
   targetErrorDeg: z.number(),
   withinTolerance: z.boolean(),
-  yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+  yprDeg: yprSchema,
   rangeViolationCount: z.number().int(),
   peakJointRateDegS: z.number(),
   withinRateLimit: z.boolean(),
@@ -299,11 +304,10 @@ export const reportSummarySchema = z.object({
 export type ReportSummary = z.infer<typeof reportSummarySchema>;
 
 /** A background recomputation against a newer profile version. */
-export const reverificationSchema = z.object({
+export const reverificationSchema = jobRecordSchema.omit({ progress: true, startedAt: true }).extend({
   id: z.uuid(),
   fromProfileVersionId: z.uuid(),
   toProfileVersionId: z.uuid(),
-  state: jobStateSchema,
   /** Angle between the stored and the recomputed final attitude, degrees (null until done). */
   attitudeShiftDeg: z.number().nullable(),
   /** Target error on the new profile, degrees (null until done). */
@@ -312,10 +316,6 @@ export const reverificationSchema = z.object({
   engineVersion: z.string().nullable(),
   /** What it concluded, in words (an engine change: "re-verified under engine X, unchanged …"; null otherwise). */
   outcome: z.string().nullable(),
-  error: z.string().nullable(),
-  attempts: z.number().int(),
-  createdAt: isoTime,
-  finishedAt: isoTime.nullable(),
 });
 export type Reverification = z.infer<typeof reverificationSchema>;
 
@@ -323,11 +323,7 @@ export type Reverification = z.infer<typeof reverificationSchema>;
 export const recheckInfoSchema = z.object({
   cause: z.enum(['profile', 'engine']).optional(),
   staleSince: isoTime.nullable(),
-  reverification: z.object({
-    state: jobStateSchema,
-    attitudeShiftDeg: z.number().nullable(),
-    error: z.string().nullable(),
-  }).nullable(),
+  reverification: reverificationSchema.pick({ state: true, attitudeShiftDeg: true, error: true }).nullable(),
   successor: z.object({ version: z.number().int(), status: versionStatusSchema, automatic: z.boolean() }).nullable(),
 }) satisfies z.ZodType<RecheckInfo>;
 
@@ -337,7 +333,7 @@ export const versionSummarySchema = z.object({
   sequenceId: z.uuid(),
   version: z.number().int(),
   status: versionStatusSchema,
-  profileVersionId: z.uuid(),
+  profileVersionId: binding.profileVersionId,
   /** The bound profile version's number. */
   profileVersion: z.number().int(),
   /** Whether the bound profile version is the crew member's current one. */
@@ -353,8 +349,9 @@ export const versionSummarySchema = z.object({
   clearedByName: z.string().nullable(),
   clearedAt: isoTime.nullable(),
   staleSince: isoTime.nullable(),
-  engineVersion: z.string().nullable(),
-  inputsHash: z.string().nullable(),
+  /** The report's binding (null before verification). */
+  engineVersion: binding.engineVersion.nullable(),
+  inputsHash: binding.inputsHash.nullable(),
   summary: reportSummarySchema.nullable(),
   /** The latest background recomputation, if any (shows how far a recheck version moved). */
   reverification: reverificationSchema.nullable(),
@@ -377,8 +374,9 @@ export const reviewEntrySchema = z.object({
   /** clear | send_back | comment */
   decision: z.enum(['clear', 'send_back', 'comment']),
   comment: z.string(),
-  profileVersionId: z.uuid().nullable(),
-  engineVersion: z.string().nullable(),
+  /** The version's binding when the review was written. */
+  profileVersionId: binding.profileVersionId.nullable(),
+  engineVersion: binding.engineVersion.nullable(),
   createdAt: isoTime,
 });
 export type ReviewEntry = z.infer<typeof reviewEntrySchema>;
@@ -443,6 +441,19 @@ export type VersionBrief = z.infer<typeof versionBriefSchema>;
 /** A version named in a list: which one and its status (the maneuver list's rehearsable version). */
 export const versionRefSchema = versionBriefSchema.pick({ id: true, version: true, status: true });
 export type VersionRef = z.infer<typeof versionRefSchema>;
+
+/** How the trainee's screens (player, rehearsal list) name a version: which version of which maneuver, its status, whose. */
+export const versionHeadingSchema = z.object({
+  versionId: z.uuid(),
+  sequenceId: z.uuid(),
+  /** Sequence name and version number, e.g. "Quarter turn left", 3. */
+  sequenceName: z.string(),
+  version: z.number().int(),
+  status: versionStatusSchema,
+  /** The crew member whose maneuver (and body) it is. */
+  crewMemberName: z.string(),
+});
+export type VersionHeading = z.infer<typeof versionHeadingSchema>;
 
 /**
  * GET /sequences: a maneuver in the list, lean — what the list screen shows (name, crew member,

@@ -7,10 +7,9 @@
 import { z } from 'zod';
 
 import type { Body } from './body.ts';
-import type { SequenceTarget } from './maneuver.ts';
+import type { SequenceTarget, VersionHeading } from './maneuver.ts';
 import type { Attitude, SimulationResult } from './result.ts';
 import type { Step } from './sequence.ts';
-import type { VersionStatus } from './version-status.ts';
 
 /** Sample-rate bounds of the motion endpoint, Hz (the view interpolates between samples). */
 export const MOTION_RATE = { min: 5, max: 120 } as const;
@@ -50,16 +49,8 @@ export interface MotionStep {
   cue: string;
 }
 
-/** Response of GET /api/motion/:versionId. */
-export interface MotionResponse {
-  versionId: string;
-  sequenceId: string;
-  /** Sequence name and version number, e.g. "Quarter turn left", 3. */
-  sequenceName: string;
-  version: number;
-  status: VersionStatus;
-  /** The crew member whose body this is. */
-  crewMemberName: string;
+/** Response of GET /api/motion/:versionId: the version named as the trainee's screens name it, then its motion. */
+export interface MotionResponse extends VersionHeading {
   /** The body contract of the version's profile version (segment table the view draws). */
   body: Body;
   /** Engine version that verified the version and produced the samples (the one its approval binds to). */

@@ -13,37 +13,13 @@
 import { z } from 'zod';
 
 import { primitiveListSchema } from '../primitives/primitive-schemas.ts';
-import { jobStateSchema } from './job-state.ts';
-import { attitudeSchema, rangeViolationSchema } from './result.ts';
+import { jobRecordSchema } from './job-state.ts';
+import { reportSummarySchema } from './maneuver.ts';
+import { finalStateSchema, rangeViolationSchema } from './result.ts';
+import { dispersionSpreadsSchema, ROBUSTNESS_LEVELS, robustnessStatsSchema } from './robustness.ts';
 import { sequenceSchema } from './sequence.ts';
 
 const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
-
-/**
- * Spreads of the dispersion run: each sample draws every factor uniformly within ±spread.
- * The defaults are illustrative (common practice for a first robustness look, not measured values).
- */
-export const dispersionSpreadsSchema = z.object({
-  /** Segment mass error, ± percent (default 5). */
-  massPct: finite('massPct').min(0).max(50).default(5),
-  /** Segment length error (CoM, inertia and joint origins scale with it), ± percent (default 3). */
-  lengthPct: finite('lengthPct').min(0).max(50).default(3),
-  /** Sweep amplitude error of the person executing it, ± percent per step (default 10). */
-  amplitudePct: finite('amplitudePct').min(0).max(50).default(10),
-  /** Sweep period (timing) error, ± percent per step (default 10). */
-  periodPct: finite('periodPct').min(0).max(50).default(10),
-  /** Timing error between the joints of a sweep: phase shift of each dof, ± degrees of a cycle (default 10). */
-  phaseDeg: finite('phaseDeg').min(0).max(90).default(10),
-  /**
-   * Timing of paired limbs in one sweep (both arms or both legs): `together` (default) gives the left
-   * and right dof of a joint one shared phase error, as a person moving both limbs together keeps
-   * them in step; `independent` draws every dof's error on its own (limbs fall out of step). An
-   * ASSUMPTION (no measured spread of left–right timing found).
-   */
-  pairedLimbs: z.enum(['together', 'independent'], { error: 'pairedLimbs must be together or independent' }).default('together'),
-});
-/** Dispersion spreads (defaults filled). */
-export type DispersionSpreads = z.infer<typeof dispersionSpreadsSchema>;
 
 /** POST /sequences/:sequenceId/plans */
 export const planRequestSchema = z.object({
@@ -51,7 +27,8 @@ export const planRequestSchema = z.object({
   samples: finite('samples').int('samples must be a whole number').min(10).max(1000).default(100),
   /** Seed of the dispersion run's random numbers (same seed, same figures). */
   seed: finite('seed').int('seed must be a whole number').min(0).max(2 ** 31 - 1).default(1),
-  spreads: dispersionSpreadsSchema.default({ massPct: 5, lengthPct: 3, amplitudePct: 10, periodPct: 10, phaseDeg: 10, pairedLimbs: 'together' }),
+  /** Omitted (or any spread omitted): the spreads' defaults. */
+  spreads: dispersionSpreadsSchema.prefault({}),
   /** How many ranked candidates to return (default 4). */
   maxCandidates: finite('maxCandidates').int().min(1).max(8).default(4),
   /**
@@ -67,20 +44,13 @@ export type PlanRequest = z.input<typeof planRequestSchema>;
 /** Planner settings (defaults filled), stored with the plan. */
 export type PlanSettings = z.infer<typeof planRequestSchema>;
 
-/** Robustness of one candidate: the seeded Monte Carlo in both execution models. */
-export const candidateRobustnessSchema = z.object({
-  /** 95th-percentile final error executing every step as planned, degrees. */
-  openLoopP95Deg: z.number(),
-  /** 95th-percentile final error when the crew member stops or adds cycles from what they see, degrees (ranking uses it). */
-  feedbackP95Deg: z.number(),
-  /** Median final error with feedback, degrees. */
-  p50Deg: z.number(),
-  /** Share of samples (with feedback) within the tolerance, 0–1. */
-  withinToleranceShare: z.number(),
-  samples: z.number().int(),
+/**
+ * Robustness of one candidate: the seeded Monte Carlo in both execution models (ranking uses the
+ * feedback p95), with its seed and level.
+ */
+export const candidateRobustnessSchema = robustnessStatsSchema.extend({
   seed: z.number().int(),
-  /** robust (feedback p95 ≤ tolerance), marginal (≤ 3×), not_robust. */
-  level: z.enum(['robust', 'marginal', 'not_robust']),
+  level: z.enum(ROBUSTNESS_LEVELS),
 });
 export type CandidateRobustness = z.infer<typeof candidateRobustnessSchema>;
 
@@ -101,8 +71,12 @@ export type CandidateTrack = z.infer<typeof candidateTrackSchema>;
 /** Most points of a candidate's stored attitude track (keeps a plan of four candidates small to poll). */
 export const CANDIDATE_TRACK_POINTS = 400;
 
-/** One ranked candidate step list. */
-export const planCandidateSchema = z.object({
+/**
+ * One ranked candidate step list, with the headline figures a version's report gives (duration,
+ * reached yaw/pitch/roll, tolerance, peak joint rate, rate limit, time budget, range violations:
+ * reportSummarySchema) on the nominal body.
+ */
+export const planCandidateSchema = reportSummarySchema.omit({ targetErrorDeg: true }).extend({
   /** 1 = best. */
   rank: z.number().int(),
   /** The composer steps (replace the composer's list with these). */
@@ -113,33 +87,18 @@ export const planCandidateSchema = z.object({
   cues: z.array(z.string()),
   /** Planner families used, one per phase, e.g. ["hanging_arm_circles_out", "hip_swirl_left"]. */
   families: z.array(z.string()),
-  /** Final attitude on the nominal body, verified at the engine's full accuracy. */
-  final: z.object({
-    attitude: attitudeSchema,
-    rotation: z.object({ angleDeg: z.number(), axis: z.tuple([z.number(), z.number(), z.number()]) }),
-    yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
-  }),
-  /** Compiled duration, seconds. */
-  durationS: z.number(),
-  /** Whether the duration is within the target's time budget (true when there is none). */
-  withinTimeBudget: z.boolean(),
-  /** Final attitude error to the target on the nominal body, degrees. */
+  /** Final attitude on the nominal body, verified at the engine's full accuracy (its yprDeg is the candidate's). */
+  final: finalStateSchema.omit({ jointsDeg: true }),
+  /** Final attitude error to the target on the nominal body, degrees (a report summary's targetErrorDeg). */
   errorDeg: z.number(),
-  withinTolerance: z.boolean(),
-  /** Reached yaw/pitch/roll, degrees (same as final.yprDeg). */
-  yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
   /** Rotation travelled, ∫|ω| dt, degrees (includes the to-and-fro within every cycle). */
   pathDeg: z.number(),
   /** Rotation travelled from cycle end to cycle end (the to-and-fro within cycles left out), degrees. */
   netPathDeg: z.number(),
   /** Turns the long way round: netPathDeg above the target angle + 90°. */
   detour: z.boolean(),
-  /** Peak joint rate, deg/s, and whether it is within the sequence's rate limit. */
-  peakJointRateDegS: z.number(),
-  withinRateLimit: z.boolean(),
   /** Range violations on the nominal body (empty when none). */
   rangeViolations: z.array(rangeViolationSchema),
-  rangeViolationCount: z.number().int(),
   /** Simulations the search ran for this candidate (single cycles and the verification). */
   evaluations: z.number().int(),
   robustness: candidateRobustnessSchema,
@@ -148,23 +107,17 @@ export const planCandidateSchema = z.object({
 });
 export type PlanCandidate = z.infer<typeof planCandidateSchema>;
 
-/** GET /sequences/:sequenceId/plans/:planId */
-export const planSchema = z.object({
+/** GET /sequences/:sequenceId/plans/:planId (`state` is `cancelled` when a planner or an admin stopped it: its thread is stopped too). */
+export const planSchema = jobRecordSchema.omit({ attempts: true }).extend({
   id: z.uuid(),
   sequenceId: z.uuid(),
   /** The profile version whose body the plan used. */
   profileVersionId: z.uuid(),
-  /** `cancelled` when a planner or an admin stopped it (its thread is stopped too). */
-  state: jobStateSchema,
-  /** 0–1 while running. */
-  progress: z.number(),
   /** What the planner is doing now (e.g. "refining candidate 2 of 4"). */
   progressNote: z.string(),
   settings: planRequestSchema,
   /** Ranked candidates (empty until done). */
   candidates: z.array(planCandidateSchema),
-  /** Why the plan failed (null otherwise). */
-  error: z.string().nullable(),
   /**
    * The planner's notes: when it finds no candidate, why (which axis, which limit); otherwise sweeps
    * it could not use on this body, a time budget too short, or a best candidate that misses a limit.
@@ -172,9 +125,6 @@ export const planSchema = z.object({
   notes: z.array(z.string()),
   /** Wall-clock time of the run, seconds (null until finished). */
   elapsedS: z.number().nullable(),
-  createdAt: z.string(),
-  startedAt: z.string().nullable(),
-  finishedAt: z.string().nullable(),
 });
 export type Plan = z.infer<typeof planSchema>;
 
@@ -191,12 +141,7 @@ export const planListQuerySchema = z.object({
 export type PlanListQuery = z.input<typeof planListQuerySchema>;
 
 /** One plan in a sequence's list (no candidates: fetch the plan for those). */
-export const planSummarySchema = z.object({
-  id: z.uuid(),
-  state: jobStateSchema,
-  /** 0–1 while running. */
-  progress: z.number(),
-  createdAt: z.string(),
+export const planSummarySchema = planSchema.pick({ id: true, state: true, progress: true, createdAt: true }).extend({
   /** Ranked candidates stored (0 until done). */
   candidateCount: z.number().int(),
   /** Error to target of the best (rank 1) candidate on the nominal body, degrees (null until done, or when there is none). */

@@ -5,9 +5,8 @@
 import { z } from 'zod';
 
 import type { RecheckInfo } from '../product/recheck-status.ts';
-import type { SequenceTarget } from './maneuver.ts';
+import type { SequenceTarget, VersionHeading } from './maneuver.ts';
 import { PLAYBACK_SPEED_RANGE, PLAYBACK_SPEEDS } from './playback-speeds.ts';
-import type { VersionStatus } from './version-status.ts';
 
 export { PLAYBACK_SPEED_RANGE, PLAYBACK_SPEEDS };
 
@@ -57,15 +56,11 @@ export interface Rehearsal {
   engineVersion: string | null;
 }
 
-/** A version the trainee may rehearse (cleared), or one they rehearsed that now needs a re-check. */
-export interface RehearsableVersion {
-  versionId: string;
-  sequenceId: string;
-  sequenceName: string;
-  version: number;
-  /** `cleared`: playable; `recheck`: its profile changed, shown with a notice until re-cleared. */
-  status: VersionStatus;
-  crewMemberName: string;
+/**
+ * A version the trainee may rehearse (status `cleared`: playable), or one they rehearsed that now
+ * needs a re-check (`recheck`: its profile changed, shown with a notice until re-cleared).
+ */
+export interface RehearsableVersion extends VersionHeading {
   /** The target this version was composed and verified for. */
   target: SequenceTarget;
   /** Target in words, e.g. "yaw 90°, pitch 0°, roll 0°". */

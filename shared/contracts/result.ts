@@ -43,14 +43,19 @@ export const sampleSchema = z.object({
   jointsDeg: z.array(z.number()),
 });
 
+/** Intrinsic z-y′-x″ yaw, pitch, roll of a computed attitude, degrees (yaw and roll may be unwrapped). */
+export const yprSchema = z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() });
+
+/** A rotation as angle (degrees, 0–180) and unit axis. */
+export const angleAxisSchema = z.object({ angleDeg: z.number(), axis: z.tuple([z.number(), z.number(), z.number()]) });
+
 /** Where a run ends: the engine's result and the stored verification report give it alike. */
 export const finalStateSchema = z.object({
   /** Final attitude {w,x,y,z}, body → inertial, with w ≥ 0. */
   attitude: attitudeSchema,
-  /** The same rotation as angle (degrees, 0–180) and unit axis (inertial = initial root frame). */
-  rotation: z.object({ angleDeg: z.number(), axis: z.tuple([z.number(), z.number(), z.number()]) }),
-  /** Intrinsic z-y′-x″ yaw, pitch, roll, degrees. */
-  yprDeg: z.object({ yaw: z.number(), pitch: z.number(), roll: z.number() }),
+  /** The same rotation as angle and unit axis (inertial = initial root frame). */
+  rotation: angleAxisSchema,
+  yprDeg: yprSchema,
   /** Final joint angles by dof name, degrees. */
   jointsDeg: z.record(z.string(), z.number()),
 });

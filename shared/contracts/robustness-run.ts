@@ -4,6 +4,7 @@
  */
 import { z } from 'zod';
 
+import { jobRecordSchema } from './job-state.ts';
 import { robustnessSchema } from './robustness.ts';
 
 export const robustnessRunSchema = robustnessSchema.extend({
@@ -12,15 +13,12 @@ export const robustnessRunSchema = robustnessSchema.extend({
   planId: z.uuid().nullable(),
   candidateIndex: z.number().int().nullable(),
   toleranceDeg: z.number(),
-  /** Why the run failed or was cancelled (shown in the UI); null otherwise. */
-  error: z.string().nullable(),
   /** Final error with feedback of every sample, degrees, once done (for the histogram). */
   feedbackErrorsDeg: z.array(z.number()).nullable(),
   chunks: z.number().int(),
   chunksDone: z.number().int(),
-  createdAt: z.string(),
-  startedAt: z.string().nullable(),
-  finishedAt: z.string().nullable(),
+  /** `error`: why the run failed or was cancelled (shown in the UI). */
+  ...jobRecordSchema.pick({ error: true, createdAt: true, startedAt: true, finishedAt: true }).shape,
 });
 export type RobustnessRun = z.infer<typeof robustnessRunSchema>;
 

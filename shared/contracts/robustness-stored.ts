@@ -7,6 +7,7 @@
 import { z } from 'zod';
 
 import { bodySchema } from './body.ts';
+import { robustnessStatsSchema } from './robustness.ts';
 import { sequenceSchema } from './sequence.ts';
 
 /** The snapshot on the run: the body, the nominal compiled sequence and the target attitude [w,x,y,z]. */
@@ -26,12 +27,7 @@ export const robustnessSampleSchema = z.object({
 export type RobustnessSample = z.infer<typeof robustnessSampleSchema>;
 
 /** The figures merged from every sample of a finished run. */
-export const robustnessFiguresSchema = z.object({
-  openLoopP95Deg: z.number(),
-  feedbackP95Deg: z.number(),
-  p50Deg: z.number(),
-  withinToleranceShare: z.number(),
-  samples: z.number().int(),
+export const robustnessFiguresSchema = robustnessStatsSchema.extend({
   /** Final error with feedback of every sample, degrees, in sample order (for the histogram). */
   feedbackErrorsDeg: z.array(z.number()),
 });

@@ -23,12 +23,16 @@ export type InviteRequest = z.infer<typeof inviteRequestSchema>;
 export const invitationMailStateSchema = z.enum(['sending', 'sent', 'failed']);
 export type InvitationMailState = z.infer<typeof invitationMailStateSchema>;
 
-/** An open or used invitation as listed to admins. */
-export const invitationSchema = z.object({
+/**
+ * GET /api/invitations/:token — what the invitee sees before choosing a password: the user the
+ * invitation will make (e-mail, name, role).
+ */
+export const invitationPreviewSchema = sessionUserSchema.pick({ email: true, name: true, role: true });
+export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
+
+/** An open or used invitation as listed to admins: the user it will make, who invited them, when, and the mail's delivery. */
+export const invitationSchema = invitationPreviewSchema.extend({
   id: z.string().uuid(),
-  email: z.string(),
-  name: z.string(),
-  role: roleSchema,
   invitedBy: z.string(),
   createdAt: z.string(),
   expiresAt: z.string(),
@@ -42,14 +46,6 @@ export const invitationSchema = z.object({
   mailSentAt: z.string().nullable(),
 });
 export type Invitation = z.infer<typeof invitationSchema>;
-
-/** GET /api/invitations/:token — what the invitee sees before choosing a password. */
-export const invitationPreviewSchema = z.object({
-  email: z.string(),
-  name: z.string(),
-  role: roleSchema,
-});
-export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 
 /** POST /api/invitations/:token/accept */
 export const acceptInvitationRequestSchema = z.object({ password: passwordSchema });

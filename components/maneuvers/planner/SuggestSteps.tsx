@@ -11,7 +11,8 @@ import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import type { SequenceTarget } from '@/shared/contracts/maneuver';
-import type { DispersionSpreads, Plan, PlanCandidate } from '@/shared/contracts/plan';
+import type { Plan, PlanCandidate } from '@/shared/contracts/plan';
+import type { DispersionSpreads } from '@/shared/contracts/robustness';
 import { meetsLimits } from '@/shared/product/candidate-limits';
 
 
