@@ -167,6 +167,10 @@ export function localErrorEstimate(ts: ArrayLike<number>, ws: ArrayLike<number>,
 /** Gauss–Lobatto nodes on [0, 1] (four points, both ends included: exact quadrature to degree 5). */
 export const LOBATTO_NODES = [0, 0.5 - Math.sqrt(5) / 10, 0.5 + Math.sqrt(5) / 10, 1] as const;
 const LOBATTO_WEIGHTS = [1 / 12, 5 / 12, 5 / 12, 1 / 12] as const;
+/** Each Lobatto node's weights in the moments ∫(τ/h − ½)ⁿ ω dτ / h, n = 0, 1, 2 (for magnusFromWeights). */
+const LOBATTO_M0 = Float64Array.from(LOBATTO_WEIGHTS);
+const LOBATTO_M1 = LOBATTO_M0.map((a, k) => a * (LOBATTO_NODES[k] - 0.5));
+const LOBATTO_M2 = LOBATTO_M1.map((b, k) => b * (LOBATTO_NODES[k] - 0.5));
 
 /**
  * The sixth-order Magnus rotation vector (rad) over a step of h seconds from ω at the four
@@ -176,20 +180,7 @@ const LOBATTO_WEIGHTS = [1 / 12, 5 / 12, 5 / 12, 1 / 12] as const;
  * the integrator's Gauss nodes. Writes θ to out[0..2].
  */
 export function magnusLobatto(w: ArrayLike<number>, h: number, out: Float64Array): void {
-  let p0x = 0, p0y = 0, p0z = 0, p1x = 0, p1y = 0, p1z = 0, p2x = 0, p2y = 0, p2z = 0;
-  for (let k = 0; k < 4; k++) {
-    const y = LOBATTO_NODES[k] - 0.5, a = LOBATTO_WEIGHTS[k], b = a * y, c = b * y;
-    const fx = w[3 * k], fy = w[3 * k + 1], fz = w[3 * k + 2];
-    p0x += a * fx; p0y += a * fy; p0z += a * fz;
-    p1x += b * fx; p1y += b * fy; p1z += b * fz;
-    p2x += c * fx; p2y += c * fy; p2z += c * fz;
-  }
-  magnusFromMoments(
-    h * (2.25 * p0x - 15 * p2x), h * (2.25 * p0y - 15 * p2y), h * (2.25 * p0z - 15 * p2z),
-    12 * h * p1x, 12 * h * p1y, 12 * h * p1z,
-    h * (180 * p2x - 15 * p0x), h * (180 * p2y - 15 * p0y), h * (180 * p2z - 15 * p0z),
-    out, 0,
-  );
+  magnusFromWeights(w, LOBATTO_M0, LOBATTO_M1, LOBATTO_M2, 4, h, out);
 }
 
 /**
