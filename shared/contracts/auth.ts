@@ -5,16 +5,22 @@ import { roleSchema } from './roles.ts';
 /** Minimum password length for invitees and password changes (NIST SP 800-63B asks for at least 8). */
 export const PASSWORD_MIN_LENGTH = 10;
 
+/** Longest password accepted wherever one is typed (set, sign-in, change). */
+const PASSWORD_MAX_LENGTH = 200;
+
 export const emailSchema = z.string().trim().toLowerCase().email('Enter a valid e-mail address.').max(254);
 export const passwordSchema = z
   .string()
   .min(PASSWORD_MIN_LENGTH, `Use at least ${PASSWORD_MIN_LENGTH} characters.`)
-  .max(200, 'Use at most 200 characters.');
+  .max(PASSWORD_MAX_LENGTH, `Use at most ${PASSWORD_MAX_LENGTH} characters.`);
+
+/** A password typed to be checked against the stored hash: present and within the length bound (its strength was checked when it was set). */
+const enteredPassword = (missing: string) => z.string().min(1, missing).max(PASSWORD_MAX_LENGTH);
 
 /** POST /api/auth/sign-in */
 export const signInRequestSchema = z.object({
   email: emailSchema,
-  password: z.string().min(1, 'Enter your password.').max(200),
+  password: enteredPassword('Enter your password.'),
 });
 export type SignInRequest = z.infer<typeof signInRequestSchema>;
 
@@ -34,7 +40,7 @@ export type SignInResponse = z.infer<typeof signInResponseSchema>;
 
 /** POST /api/auth/password */
 export const changePasswordRequestSchema = z.object({
-  currentPassword: z.string().min(1, 'Enter your current password.').max(200),
+  currentPassword: enteredPassword('Enter your current password.'),
   newPassword: passwordSchema,
 });
 export type ChangePasswordRequest = z.infer<typeof changePasswordRequestSchema>;

@@ -15,7 +15,7 @@ export const inviteRequestSchema = z.object({
   email: emailSchema,
   name: z.string().trim().min(1, 'Enter the person\'s name.').max(120),
   role: roleSchema,
-  crewMemberId: z.string().uuid().nullable().optional(),
+  crewMemberId: sessionUserSchema.shape.crewMemberId.optional(),
 });
 export type InviteRequest = z.infer<typeof inviteRequestSchema>;
 
@@ -56,7 +56,7 @@ export type AcceptInvitationRequest = z.infer<typeof acceptInvitationRequestSche
  * and maneuvers they see (null unlinks); it does not sign the person out, unlike a role change.
  */
 export const updateUserRequestSchema = z
-  .object({ role: roleSchema.optional(), disabled: z.boolean().optional(), crewMemberId: z.string().uuid().nullable().optional() })
+  .object({ role: roleSchema.optional(), disabled: z.boolean().optional(), crewMemberId: sessionUserSchema.shape.crewMemberId.optional() })
   .refine((v) => v.role !== undefined || v.disabled !== undefined || v.crewMemberId !== undefined, { message: 'Give a role, a disabled flag or a crew member.' });
 export type UpdateUserRequest = z.infer<typeof updateUserRequestSchema>;
 
