@@ -4,9 +4,9 @@
  * up the record's jobs; when none is queued or active any more, the record either gets a job again
  * (it never had one, e.g. it was saved while no queue ran, or its job was lost with a dead process
  * before heartbeats existed) or ends `failed` with the reason its last job ended with (retries used
- * up by workers that died).
+ * up by workers that died). A robustness run whose samples are all in is finished (its figures computed).
  */
-import { and, eq, inArray, isNull, lt } from 'drizzle-orm';
+import { and, eq, gte, inArray, isNull, lt } from 'drizzle-orm';
 import type { JobWithMetadata, PgBoss } from 'pg-boss';
 import { z } from 'zod';
 
@@ -16,7 +16,7 @@ import { recordAudit } from '../audit/record-audit.ts';
 import type { InvitationMailJob } from '../team/deliver-invitation.ts';
 import { INVITATION_MAIL_QUEUE, PLAN_QUEUE, REVERIFY_QUEUE, ROBUSTNESS_CHUNK_QUEUE } from './queue-names.ts';
 import type { ReverifyJob } from './reverify-version.ts';
-import { enqueueRobustnessChunks, failRobustnessRun, OPEN_STATES } from './robustness/robustness-runs.ts';
+import { enqueueRobustnessChunks, failRobustnessRun, finishRobustnessRun, OPEN_STATES } from './robustness/robustness-runs.ts';
 import type { PlanJob } from './run-plan.ts';
 
 /** Records younger than this may not have their job yet (it is sent after the record commits). */
@@ -115,6 +115,11 @@ export async function reconcileWork(ctx: AppContext, queue: JobSender): Promise<
       return Boolean(row);
     },
   }, count);
+
+  // A run whose samples are all in but whose figures are not (its last merging worker died in between) is finished here.
+  const complete = await db.select({ id: robustnessRuns.id }).from(robustnessRuns)
+    .where(and(inArray(robustnessRuns.state, [...OPEN_STATES]), gte(robustnessRuns.doneSamples, robustnessRuns.samples)));
+  for (const run of complete) await finishRobustnessRun(ctx, run.id);
 
   const openChunks = await db.select({ runId: robustnessChunks.runId, chunk: robustnessChunks.chunkIndex, state: robustnessChunks.state })
     .from(robustnessChunks)

@@ -1,5 +1,5 @@
 /**
- * `npm run bench:jobs [-- --json] [-- --samples N] [-- --repeats R] [-- --chunk S]`: wall time of a
+ * `npm run bench:jobs [-- --json] [-- --samples N] [-- --repeats R] [-- --chunk S] [-- --gc] [-- --node-flags "…"]`: wall time of a
  * robustness run (default 1,000 samples, split as the product splits it unless --chunk) of a 60 s
  * suited maneuver from enqueue to merged result, with one and then two worker processes
  * (`server/scripts/worker.ts`, WORKER_CONCURRENCY=1 each, already started and idle) against a
@@ -12,7 +12,12 @@
  * before and after, and per run the CPU time of each worker process and of its main thread (the
  * queue's own work; the samples are computed in a separate thread) and of PostgreSQL (from /proc), and
  * from the workers' per-chunk timing lines (debug level) when each took its first chunk, how long its
- * compute thread computed, claimed, merged, and sat idle.
+ * compute thread computed, claimed, merged, and sat idle. Each worker's CPU is split by thread (from
+ * /proc/<pid>/task): the main thread, the compute thread (the busiest other thread in the run) and
+ * the rest (V8's collector and compiler helpers, libuv), with the bench process's own CPU (it polls
+ * the run's state every 100 ms; the wall time ends at the last merge's own timestamp). `--gc` starts the workers with V8's --trace-gc and counts their collections per
+ * run (scavenges and mark-compacts, with their pause time); `--node-flags` passes flags to the
+ * worker processes (to try V8 settings; the printed figures say which were used).
  * With --json the last line is {"oneWorkerS": …, "twoWorkersS": …, "ratio": …, …}.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
@@ -40,15 +45,24 @@ import { robustnessSamples } from '../../server/planning/robustness.ts';
 import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
 import { DEFAULT_ROBUSTNESS_MODEL } from '../../shared/contracts/robustness.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
-import { clusterCpuS, mainThreadCpuS, processCpuS } from './process-cpu.ts';
+import { clusterCpuS, mainThreadCpuS, processCpuS, threadCpuS } from './process-cpu.ts';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
-const { values } = parseArgs({ options: { json: { type: 'boolean' }, samples: { type: 'string' }, repeats: { type: 'string' }, chunk: { type: 'string' } } });
+const { values } = parseArgs({
+  options: { json: { type: 'boolean' }, samples: { type: 'string' }, repeats: { type: 'string' }, chunk: { type: 'string' }, gc: { type: 'boolean' }, 'node-flags': { type: 'string' } },
+});
+const NODE_FLAGS = [...(values['node-flags']?.split(/\s+/).filter(Boolean) ?? []), ...(values.gc ? ['--trace-gc'] : [])];
 const SAMPLES = Number(values.samples ?? 1000);
 const REPEATS = Number(values.repeats ?? 3);
 const CHUNK = values.chunk ? Number(values.chunk) : defaultChunkSize(SAMPLES);
 const log = (s: string) => console.log(s);
 const load = () => os.loadavg().map((l) => l.toFixed(2)).join(' / ');
+/**
+ * How often the bench looks at the run's state. The wall time is taken from the last merge's own
+ * timestamp, so a slower poll costs no accuracy and keeps the bench's queries (its CPU and
+ * PostgreSQL's) from competing with the workers.
+ */
+const POLL_MS = 100;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); const m = Math.floor(s.length / 2); return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2; };
 
@@ -62,9 +76,14 @@ const MANEUVER: Primitive[] = [
 /** Per-chunk timing a worker logs at debug level (robustness-runs.ts), tagged with the worker's name. */
 interface ChunkTiming { worker: string; runId: string; chunk: number; fetchedAt: number; claimMs: number; waitMs: number; computeMs: number; mergeMs: number; doneAt: number }
 const timings: ChunkTiming[] = [];
+/** A collection a worker reported (--trace-gc): when the line arrived, its kind and pause. */
+interface GcEvent { worker: string; at: number; kind: 'scavenge' | 'mark-compact' | 'other'; pauseMs: number }
+const gcEvents: GcEvent[] = [];
+// e.g. "[123:0x5f…]   841 ms: Scavenge 6.1 (7.3) -> 5.2 (7.8) MB, 0.61 / 0.00 ms  (average mu = …"
+const GC_LINE = /^\[\d+:0x[0-9a-f]+\]\s+\d+ ms: (Scavenge|Mark-Compact|Mark-sweep|Minor Mark-Sweep|[A-Za-z-]+)[^,]*, ([\d.]+) \/ /;
 
 function startWorker(env: NodeJS.ProcessEnv, name: string): Promise<ChildProcess> {
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'server/scripts/worker.ts')], {
+  const child = spawn(process.execPath, [...NODE_FLAGS, '--import', 'tsx', path.join(root, 'server/scripts/worker.ts')], {
     cwd: root, env: { ...env, WORKER_NAME: name }, stdio: ['ignore', 'pipe', 'pipe'],
   });
   let out = '';
@@ -78,6 +97,11 @@ function startWorker(env: NodeJS.ProcessEnv, name: string): Promise<ChildProcess
       for (const line of lines) {
         if (line.startsWith('{') && line.includes('"chunkTiming"')) {
           timings.push({ worker: name, ...(JSON.parse(line) as { chunkTiming: Omit<ChunkTiming, 'worker'> }).chunkTiming });
+        }
+        const gc = GC_LINE.exec(line);
+        if (gc) {
+          const kind = gc[1] === 'Scavenge' ? 'scavenge' : /^Mark-(Compact|sweep)$/.test(gc[1]) ? 'mark-compact' : 'other';
+          gcEvents.push({ worker: name, at: Date.now(), kind, pauseMs: Number(gc[2]) });
         }
         const ran = /\[[^\]]+\] Jobs run: .*/.exec(line);
         if (ran) log(`  ${ran[0]}`);
@@ -124,13 +148,23 @@ async function main() {
     const nominal = evaluateSequence(body, sequence, [1, 0, 0, 0]);
     const a = nominal.result.final.attitude;
     const target: [number, number, number, number] = [a.w, a.x, a.y, a.z];
+    if (NODE_FLAGS.length) log(`Worker processes started with node flags: ${NODE_FLAGS.join(' ')}`);
     log(`Maneuver: suited demo crew member (1.83 m, 86 kg, pressurised suit), ${nominal.durationS.toFixed(1)} s of steps; ${SAMPLES} samples in chunks of ${CHUNK}, seed 1`);
 
     /** One timed run: wall time enqueue → merged result, CPU of each worker process and of PostgreSQL meanwhile. */
-    interface Timed { s: number; figures: unknown; workerCpuS: number[]; mainThreadCpuS: number[]; postgresCpuS: number; benchCpuS: number; runId: string; t0: number }
+    interface Timed {
+      s: number; figures: unknown; workerCpuS: number[]; mainThreadCpuS: number[]; computeThreadCpuS: number[]; helperThreadsCpuS: number[];
+      postgresCpuS: number; benchCpuS: number; runId: string; t0: number; t1: number;
+    }
     const cpuNow = () => ({
-      workers: workers.map((w) => processCpuS(w.pid!)), mains: workers.map((w) => mainThreadCpuS(w.pid!)), pg: clusterCpuS(dataDir), bench: process.cpuUsage(),
+      workers: workers.map((w) => processCpuS(w.pid!)), mains: workers.map((w) => mainThreadCpuS(w.pid!)), threads: workers.map((w) => threadCpuS(w.pid!)),
+      pg: clusterCpuS(dataDir), bench: process.cpuUsage(),
     });
+    /** A worker's thread CPU in a run: the busiest thread besides the main one is its compute thread, the others are helpers. */
+    const splitThreads = (pid: number, before: Map<number, number>, after: Map<number, number>) => {
+      const deltas = [...after].filter(([tid]) => tid !== pid).map(([tid, c]) => c - (before.get(tid) ?? 0)).sort((x, y) => y - x);
+      return { compute: deltas[0] ?? 0, helpers: deltas.slice(1).reduce((x, c) => x + c, 0) };
+    };
     const timeRun = async (): Promise<Timed> => {
       const runId = await createRobustnessRun(ctx.db, { body, sequence, target, toleranceDeg: 2, samples: SAMPLES, seed: 1, chunkSize: CHUNK });
       const before = cpuNow();
@@ -141,17 +175,23 @@ async function main() {
         const [r] = await ctx.db.select({ state: robustnessRuns.state, error: robustnessRuns.error }).from(robustnessRuns).where(eq(robustnessRuns.id, runId));
         if (r.state === 'done') break;
         if (r.state !== 'queued' && r.state !== 'running') throw new Error(`run ${r.state}: ${r.error}`);
-        await sleep(20);
+        await sleep(POLL_MS);
       }
-      const s = (performance.now() - t0) / 1000;
-      // The last chunk's timing line is written just after its merge commits.
+      const seenS = (performance.now() - t0) / 1000;
+      // The last chunk's timing line is written just after its merge (and the figures) commit.
       await sleep(150);
+      // The run ended when its last merge committed (that worker's clock is this machine's); polling only notices it.
+      const lastDone = Math.max(...timings.filter((x) => x.runId === runId).map((x) => x.doneAt));
+      const s = Number.isFinite(lastDone) && lastDone >= t0Epoch ? Math.min(seenS, (lastDone - t0Epoch) / 1000) : seenS;
       const after = cpuNow();
       const [r] = await ctx.db.select({ figures: robustnessRuns.figures }).from(robustnessRuns).where(eq(robustnessRuns.id, runId));
       const bench = process.cpuUsage(before.bench);
+      const split = workers.map((w, i) => splitThreads(w.pid!, before.threads[i], after.threads[i]));
       return {
-        s, figures: r.figures, runId, t0: t0Epoch,
-        workerCpuS: after.workers.map((c, i) => c - before.workers[i]), mainThreadCpuS: after.mains.map((c, i) => c - before.mains[i]), postgresCpuS: after.pg - before.pg, benchCpuS: (bench.user + bench.system) / 1e6,
+        s, figures: r.figures, runId, t0: t0Epoch, t1: Date.now(),
+        workerCpuS: after.workers.map((c, i) => c - before.workers[i]), mainThreadCpuS: after.mains.map((c, i) => c - before.mains[i]),
+        computeThreadCpuS: split.map((x) => x.compute), helperThreadsCpuS: split.map((x) => x.helpers),
+        postgresCpuS: after.pg - before.pg, benchCpuS: (bench.user + bench.system) / 1e6,
       };
     };
     /** Where a worker's time went in one run, from its per-chunk timing lines (debug level). */
@@ -166,12 +206,19 @@ async function main() {
         idleS: run.s - sum('computeMs'),
       };
     };
+    /** Collections a worker reported during a run (--gc). */
+    const gcOf = (run: Timed, worker: string) => {
+      const mine = gcEvents.filter((e) => e.worker === worker && e.at >= run.t0 && e.at <= run.t1);
+      return { scavenges: mine.filter((e) => e.kind === 'scavenge').length, markCompacts: mine.filter((e) => e.kind === 'mark-compact').length, pauseMs: mine.reduce((x, e) => x + e.pauseMs, 0) };
+    };
     const describe = (run: Timed, names: string[]) => names.map((n, i) => {
       const b = breakdown(run, n);
-      const cpu = `CPU ${run.workerCpuS[i].toFixed(2)} s (main thread ${run.mainThreadCpuS[i].toFixed(2)} s)`;
+      const g = gcOf(run, n);
+      const gc = values.gc ? `, GC ${g.scavenges} scavenges + ${g.markCompacts} mark-compacts (${g.pauseMs.toFixed(0)} ms paused)` : '';
+      const cpu = `CPU ${run.workerCpuS[i].toFixed(2)} s (main thread ${run.mainThreadCpuS[i].toFixed(2)} s, compute thread ${run.computeThreadCpuS[i].toFixed(2)} s, other threads ${run.helperThreadsCpuS[i].toFixed(2)} s)${gc}`;
       if (!b.chunks) return `${n}: no chunks, ${cpu}`;
       return `${n}: ${b.chunks} chunks, first ${b.firstStartMs} ms after enqueue, computing ${b.computeS.toFixed(2)} s, claim ${b.claimS.toFixed(3)} s, merge ${b.mergeS.toFixed(3)} s, thread idle ${b.idleS.toFixed(2)} s, ${cpu}`;
-    }).join('; ') + `; PostgreSQL CPU ${run.postgresCpuS.toFixed(2)} s`;
+    }).join('; ') + `; PostgreSQL CPU ${run.postgresCpuS.toFixed(2)} s; bench process CPU ${run.benchCpuS.toFixed(2)} s`;
 
     // Reference: the same samples in this process, one thread, no queue (the work the workers share).
     const cpu0 = process.cpuUsage();
@@ -214,15 +261,25 @@ async function main() {
     // The queue's own CPU in the workers: their main threads (the compute threads do only the samples).
     const mainCpu = (runs: Timed[]) => median(runs.map((r) => r.mainThreadCpuS.reduce((x, c) => x + c, 0)));
     const pgCpu = (runs: Timed[]) => median(runs.map((r) => r.postgresCpuS));
+    const computeCpu = (runs: Timed[]) => median(runs.map((r) => r.computeThreadCpuS.reduce((x, c) => x + c, 0)));
+    const helperCpu = (runs: Timed[]) => median(runs.map((r) => r.helperThreadsCpuS.reduce((x, c) => x + c, 0)));
+    const benchCpu = (runs: Timed[]) => median(runs.map((r) => r.benchCpuS));
+    // All the CPU a run cost on this machine: the workers, PostgreSQL and the bench's own polling.
+    const totalCpu = (runs: Timed[]) => median(runs.map((r) => r.workerCpuS.reduce((x, c) => x + c, 0) + r.postgresCpuS + r.benchCpuS));
+    const gcCount = (runs: Timed[], names: string[]) => median(runs.map((r) => names.reduce((x, n) => { const g = gcOf(r, n); return x + g.scavenges + g.markCompacts; }, 0)));
     // Thread idle per worker, summed over the workers that ran (the second is paused in one-worker runs).
     const idle = (runs: Timed[], names: string[]) => median(runs.map((r) => names.reduce((x, n) => x + breakdown(r, n).idleS, 0)));
     const chunks = Math.ceil(SAMPLES / CHUNK);
     const loadAfter = load();
     log('');
-    log(`| workers | wall time, enqueue → merged result (median of ${REPEATS}) | ratio | worker CPU (main threads) | PostgreSQL CPU | compute threads idle |`);
-    log('|---|---|---|---|---|---|');
-    log(`| 1 | ${one.toFixed(2)} s | 1.00 | ${workerCpu(ones).toFixed(2)} s (${mainCpu(ones).toFixed(2)} s) | ${pgCpu(ones).toFixed(2)} s | ${idle(ones, ['bench worker 1']).toFixed(2)} s |`);
-    log(`| 2 | ${two.toFixed(2)} s | ${ratio.toFixed(2)}× faster | ${workerCpu(twos).toFixed(2)} s (${mainCpu(twos).toFixed(2)} s) | ${pgCpu(twos).toFixed(2)} s | ${idle(twos, ['bench worker 1', 'bench worker 2']).toFixed(2)} s |`);
+    const both = ['bench worker 1', 'bench worker 2'];
+    log(`| workers | wall time, enqueue → merged result (median of ${REPEATS}) | ratio | worker CPU (main / compute / other threads) | PostgreSQL CPU | all CPU of a run | compute threads idle |`);
+    log('|---|---|---|---|---|---|---|');
+    const row = (runs: Timed[], names: string[]) =>
+      `${workerCpu(runs).toFixed(2)} s (${mainCpu(runs).toFixed(2)} / ${computeCpu(runs).toFixed(2)} / ${helperCpu(runs).toFixed(2)} s) | ${pgCpu(runs).toFixed(2)} s | ${totalCpu(runs).toFixed(2)} s | ${idle(runs, names).toFixed(2)} s |`;
+    log(`| 1 | ${one.toFixed(2)} s | 1.00 | ${row(ones, ['bench worker 1'])}`);
+    log(`| 2 | ${two.toFixed(2)} s | ${ratio.toFixed(2)}× faster | ${row(twos, both)}`);
+    if (values.gc) log(`Worker collections per run (median): one worker ${gcCount(ones, ['bench worker 1'])}, two workers ${gcCount(twos, both)} (summed).`);
     log(`Same samples in one thread without a queue: ${directS.toFixed(2)} s wall, ${directCpuS.toFixed(2)} s CPU (cold, measured once). ${chunks} chunks of ${CHUNK}.`);
     log(`Identical figures in every run: yes (open-loop p95 ${f.openLoopP95Deg.toFixed(2)}°, feedback p95 ${f.feedbackP95Deg.toFixed(2)}°).`);
     log(`Load average (1/5/15 min) before ${loadBefore}, after ${loadAfter}; ${os.cpus().length} cores shared with whatever else runs.`);
@@ -237,7 +294,13 @@ async function main() {
         oneWorkerCpuS: round(workerCpu(ones)), twoWorkersCpuS: round(workerCpu(twos)),
         oneWorkerMainThreadCpuS: round(mainCpu(ones)), twoWorkersMainThreadCpuS: round(mainCpu(twos)),
         oneWorkerPostgresCpuS: round(pgCpu(ones)), twoWorkersPostgresCpuS: round(pgCpu(twos)),
-        oneWorkerThreadIdleS: round(idle(ones, ['bench worker 1'])), twoWorkersThreadIdleS: round(idle(twos, ['bench worker 1', 'bench worker 2'])),
+        oneWorkerComputeThreadCpuS: round(computeCpu(ones)), twoWorkersComputeThreadCpuS: round(computeCpu(twos)),
+        oneWorkerOtherThreadsCpuS: round(helperCpu(ones)), twoWorkersOtherThreadsCpuS: round(helperCpu(twos)),
+        oneWorkerBenchCpuS: round(benchCpu(ones)), twoWorkersBenchCpuS: round(benchCpu(twos)),
+        oneWorkerTotalCpuS: round(totalCpu(ones)), twoWorkersTotalCpuS: round(totalCpu(twos)),
+        ...(values.gc ? { oneWorkerGcCount: gcCount(ones, ['bench worker 1']), twoWorkersGcCount: gcCount(twos, both) } : {}),
+        ...(NODE_FLAGS.length ? { workerNodeFlags: NODE_FLAGS.join(' ') } : {}),
+        oneWorkerThreadIdleS: round(idle(ones, ['bench worker 1'])), twoWorkersThreadIdleS: round(idle(twos, both)),
         loadBefore, loadAfter,
       }));
     }

@@ -53,3 +53,19 @@ export function clusterCpuS(dataDir: string): number {
   }
   return total;
 }
+
+/** CPU seconds used so far by each thread of a process, by thread id (threads that exited are not listed). */
+export function threadCpuS(pid: number): Map<number, number> {
+  const out = new Map<number, number>();
+  let tids: string[];
+  try {
+    tids = readdirSync(`/proc/${pid}/task`);
+  } catch {
+    return out;
+  }
+  for (const tid of tids) {
+    const s = statOf(`/proc/${pid}/task/${tid}/stat`);
+    if (s) out.set(Number(tid), s[1]);
+  }
+  return out;
+}

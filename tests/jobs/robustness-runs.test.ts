@@ -9,7 +9,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 
 import { auditEvents, robustnessChunks, robustnessRuns } from '../../db/schema/index.ts';
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
-import { createRobustnessRun, robustnessRunView, versionRunInputs } from '../../server/jobs/robustness/robustness-runs.ts';
+import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
+import {
+  createRobustnessRun, finishRobustnessRun, robustnessRunView, runFigures, storedRunInputs, versionRunInputs,
+} from '../../server/jobs/robustness/robustness-runs.ts';
 import { loadStoredVersion } from '../../server/maneuvers/stored-version.ts';
 import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
 import { robustnessModelSchema } from '../../shared/contracts/robustness.ts';
@@ -70,6 +73,25 @@ describe('robustness run of a saved version', () => {
     const [again] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, run.id));
     expect(await robustnessRunView(t.ctx.db, again)).toEqual(before);
   });
+
+  it('a run whose samples are all in but whose last merger died before the figures is finished by the reconciliation pass, once', async () => {
+    const v = (await loadStoredVersion(t.ctx.db, versionId))!;
+    const runId = await createRobustnessRun(t.ctx.db, { ...versionRunInputs(v), samples: 6, chunkSize: 3, seed: 5 });
+    const [row] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
+    const samples = robustnessSamples(storedRunInputs(row), 0, 6);
+    // What the merges leave when the worker that completed the count stops before computing the figures.
+    await t.ctx.db.update(robustnessChunks).set({ state: 'done', results: samples.slice(0, 3) }).where(and(eq(robustnessChunks.runId, runId), eq(robustnessChunks.chunkIndex, 0)));
+    await t.ctx.db.update(robustnessChunks).set({ state: 'done', results: samples.slice(3) }).where(and(eq(robustnessChunks.runId, runId), eq(robustnessChunks.chunkIndex, 1)));
+    await t.ctx.db.update(robustnessRuns).set({ state: 'running', doneSamples: 6 }).where(eq(robustnessRuns.id, runId));
+    await reconcileWork(t.ctx, t.jobs);
+    const [done] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
+    expect(done.state).toBe('done');
+    expect(runFigures(done)).toEqual(summariseRobustness(samples, done.toleranceDeg));
+    // Finishing again (another worker's pass) changes nothing: one 'done' audit event.
+    expect(await finishRobustnessRun(t.ctx, runId)).toBe(false);
+    const events = await t.ctx.db.select().from(auditEvents).where(eq(auditEvents.action, 'robustness.done'));
+    expect(events.filter((e) => (e.detail as { runId?: string }).runId === runId)).toHaveLength(1);
+  }, 60_000);
 
   it('a cancelled run stops its chunks: no chunk finishes after the cancel and no job stays queued', async () => {
     // A long run: 2,000 samples in chunks of 5.

@@ -3,10 +3,17 @@
  * worker process may take, and the last chunk to finish merges every chunk's samples into the figures
  * (summariseRobustness). Sample i is seeded by (seed, i), so the figures do not depend on the split.
  *
- * Exactly one result per run: a chunk's samples are written only while it is not done, under a lock
- * on the run row, so a retried or duplicated chunk job changes nothing; a cancelled or failed run
- * takes no more results. A chunk's worker checks its run's state every second and stops when the
- * run was cancelled.
+ * Exactly one result per run: a chunk's samples are written only while it is not done and its run
+ * is open, in the same statement that adds them to the run's count of done samples, so a retried or
+ * duplicated chunk job changes nothing and a cancelled or failed run takes no more results. The
+ * merge that brings the count to the run's samples computes the figures (finishRobustnessRun, which
+ * the reconciliation pass also calls for a run whose count is full but whose figures are missing,
+ * should that worker die in between). A chunk's worker checks its run's state every second and
+ * stops when the run was cancelled.
+ *
+ * A chunk costs the database four statements: the queue's fetch and completion, the claim and the
+ * merge; the merge holds the run row only for its own
+ * statement, so workers finishing chunks together barely wait for each other.
  */
 import { performance } from 'node:perf_hooks';
 
@@ -177,15 +184,9 @@ export async function runRobustnessChunk(
   const { db } = ctx;
   const fetchedAt = opts.receivedAt ?? Date.now();
   const t0 = performance.now();
-  // Claim the chunk in one statement, only while it and its run are open.
-  const [chunk] = await db.update(robustnessChunks).set({ state: 'running', attempts: sql`${robustnessChunks.attempts} + 1`, error: null })
-    .where(and(
-      eq(robustnessChunks.runId, job.runId), eq(robustnessChunks.chunkIndex, job.chunk), chunkOpen(),
-      sql`exists (select 1 from ${robustnessRuns} where ${robustnessRuns.id} = ${job.runId} and ${robustnessRuns.state} in ('queued', 'running'))`,
-    ))
-    .returning({ chunkIndex: robustnessChunks.chunkIndex, fromSample: robustnessChunks.fromSample, toSample: robustnessChunks.toSample });
-  if (!chunk) return;
-  const firstHere = !runInputs.has(job.runId);
+  const { rows: [claimed] } = await db.execute<{ chunk_index: number; from_sample: number; to_sample: number }>(claimSql(job.runId, job.chunk));
+  if (!claimed) return;
+  const chunk = { chunkIndex: claimed.chunk_index, fromSample: claimed.from_sample, toSample: claimed.to_sample };
   let inputs: RobustnessInputs | null;
   try {
     inputs = await inputsOf(db, job.runId);
@@ -196,11 +197,6 @@ export async function runRobustnessChunk(
     return;
   }
   if (!inputs) return;
-  // The first chunk this process takes of a run marks the run running (idempotent; later ones find it so).
-  if (firstHere) {
-    await db.update(robustnessRuns).set({ state: 'running', startedAt: sql`coalesce(${robustnessRuns.startedAt}, now())` })
-      .where(and(eq(robustnessRuns.id, job.runId), eq(robustnessRuns.state, 'queued')));
-  }
   const claimMs = performance.now() - t0;
 
   // Stop when the run is cancelled (checked here) or the queue takes the job away (its signal).
@@ -249,32 +245,65 @@ function chunkOpen() {
   return notInArray(robustnessChunks.state, ['done', 'cancelled']);
 }
 
-/** Stores one chunk's samples and, when it was the last, the run's figures. Idempotent. */
+/**
+ * Claims a chunk while it and its run are open (state running, one more attempt) and marks a queued
+ * run running, in one statement; returns the chunk's range, no row when it is not open.
+ */
+const claimSql = (runId: string, chunk: number) => sql`
+with claimed as (
+  update robustness_chunks set state = 'running', attempts = attempts + 1, error = null
+  where run_id = ${runId} and chunk_index = ${chunk} and state not in ('done', 'cancelled')
+    and exists (select 1 from robustness_runs where id = ${runId} and state in ('queued', 'running'))
+  returning chunk_index, from_sample, to_sample
+), started as (
+  update robustness_runs set state = 'running', started_at = coalesce(started_at, now())
+  where id = ${runId} and state = 'queued' and exists (select 1 from claimed)
+)
+select chunk_index, from_sample, to_sample from claimed`;
+
+/**
+ * Stores a chunk's samples while it and its run are open and adds its size to the run's done
+ * samples, in one statement (one transaction); returns the run's count after it, no row when nothing
+ * was stored (a duplicate, or the run closed). Concurrent merges of one run queue on the run row only
+ * for this statement, and each adds to the count the one before left (READ COMMITTED re-reads it).
+ */
+const mergeSql = (runId: string, chunk: number, samples: RobustnessSample[]) => sql`
+with stored as (
+  update robustness_chunks set state = 'done', results = ${JSON.stringify(samples)}::jsonb, finished_at = now(), error = null
+  where run_id = ${runId} and chunk_index = ${chunk} and state not in ('done', 'cancelled')
+    and exists (select 1 from robustness_runs where id = ${runId} and state in ('queued', 'running'))
+  returning to_sample - from_sample as n
+)
+update robustness_runs set done_samples = done_samples + (select n from stored), state = 'running'
+where id = ${runId} and state in ('queued', 'running') and exists (select 1 from stored)
+returning done_samples, samples`;
+
+/** Stores one chunk's samples and, when they complete the run, its figures. Idempotent. */
 export async function mergeChunk(ctx: AppContext, runId: string, chunkIndex: number, samples: RobustnessSample[]): Promise<void> {
-  await ctx.db.transaction(async (tx) => {
-    // Only the columns needed here (the stored inputs are large), locked so that merges take turns.
+  const { rows: [run] } = await ctx.db.execute<{ done_samples: number; samples: number }>(mergeSql(runId, chunkIndex, samples));
+  if (run && run.done_samples >= run.samples) await finishRobustnessRun(ctx, runId);
+}
+
+/**
+ * Computes and stores the figures of an open run whose samples are all in; true when this call
+ * finished it (false when it was not open, not complete, or finished by another call).
+ */
+export async function finishRobustnessRun(ctx: AppContext, runId: string): Promise<boolean> {
+  return ctx.db.transaction(async (tx) => {
+    // Only the columns needed here (the stored inputs are large), locked so that one call finishes it.
     const [run] = await tx.select({
       state: robustnessRuns.state, doneSamples: robustnessRuns.doneSamples, samples: robustnessRuns.samples, toleranceDeg: robustnessRuns.toleranceDeg,
       seed: robustnessRuns.seed, sequenceVersionId: robustnessRuns.sequenceVersionId, planId: robustnessRuns.planId,
     }).from(robustnessRuns).where(eq(robustnessRuns.id, runId)).for('update');
-    if (!run || CLOSED_STATES.includes(run.state)) return;
-    const stored = await tx.update(robustnessChunks)
-      .set({ state: 'done', results: samples, finishedAt: new Date(), error: null })
-      .where(and(eq(robustnessChunks.runId, runId), eq(robustnessChunks.chunkIndex, chunkIndex), chunkOpen()))
-      .returning({ from: robustnessChunks.fromSample, to: robustnessChunks.toSample });
-    if (!stored.length) return; // a duplicate: this chunk's result is already in
-    const doneSamples = run.doneSamples + (stored[0].to - stored[0].from);
-    if (doneSamples < run.samples) {
-      await tx.update(robustnessRuns).set({ doneSamples, state: 'running' }).where(eq(robustnessRuns.id, runId));
-      return;
-    }
+    if (!run || CLOSED_STATES.includes(run.state) || run.doneSamples < run.samples) return false;
     const all = await tx.select({ results: robustnessChunks.results }).from(robustnessChunks).where(eq(robustnessChunks.runId, runId));
     const figures = summariseRobustness(all.flatMap((c) => storedSamples(c.results)), run.toleranceDeg);
-    await tx.update(robustnessRuns).set({ doneSamples, state: 'done', figures, finishedAt: new Date() }).where(eq(robustnessRuns.id, runId));
+    await tx.update(robustnessRuns).set({ state: 'done', figures, finishedAt: new Date() }).where(eq(robustnessRuns.id, runId));
     await recordAudit(tx, {
       actorId: null, action: 'robustness.done', objectType: run.sequenceVersionId ? 'sequence_version' : 'plan', objectId: run.sequenceVersionId ?? run.planId ?? runId,
       detail: { runId, samples: figures.samples, seed: run.seed, openLoopP95Deg: figures.openLoopP95Deg, feedbackP95Deg: figures.feedbackP95Deg },
     });
+    return true;
   });
 }
 
