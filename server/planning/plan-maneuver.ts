@@ -26,8 +26,16 @@ import { quatAngle, quatChain, quatConj, quatLog } from './rotation-vector.ts';
 
 /** Seeds refined beyond the number of candidates asked for (some may miss a limit or turn out less robust). */
 const EXTRA_SEEDS = 4;
-/** Samples of the quick robustness screen that picks which refined seeds to verify. */
-const SCREEN_SAMPLES = 12;
+/**
+ * Samples of the robustness screen that picks which refined seeds to verify: enough that its 95th
+ * percentile moves by a few tenths of a degree from one seed to another, not by a degree or more.
+ */
+const SCREEN_SAMPLES = 40;
+/**
+ * A screened figure counts for a level only this far inside the level's bound, so a candidate that
+ * merely drew lucky samples in the screen does not displace one that is comfortably inside.
+ */
+const SCREEN_MARGIN = 0.85;
 /** Sample rate of the verification run, Hz (for pathDeg; ∫|ω| dt converges well before it). */
 const VERIFY_RATE_HZ = 30;
 const DEG = 180 / Math.PI;
@@ -128,19 +136,28 @@ export function planManeuver({ body, target, settings, groups = FAMILY_GROUPS, s
 
   const model: RobustnessModel = { spreads: settings.spreads, perceptionErrorDeg: settings.perceptionErrorDeg, reactionDelayS: settings.reactionDelayS };
   const out: Omit<PlanCandidate, 'rank'>[] = [];
-  // A quick robustness screen (few samples, its own seed) picks which to verify: within tolerance,
-  // no detour, robustness level, then duration, as the final ranking does.
+  // A robustness screen (its own seed) picks which to verify: within tolerance, no detour, level
+  // with a margin, then duration within a level (the shortest comfortably robust plan), or the
+  // screened figure itself among those outside every level's margin.
   progress(0.4, 'screening robustness');
-  const screened = refined.map(({ r, seed }) => {
-    if (r.composedErrorDeg > limits.toleranceDeg) return { r, seed, level: ROBUSTNESS_LEVELS.length, p95: Infinity };
+  const withinTol = (r: RefinedParts) => r.composedErrorDeg <= limits.toleranceDeg;
+  const detour = (seed: SearchSeed) => seed.netAngleDeg > goalAngleDeg + 90;
+  const byDuration = [...refined].sort((a, b) => Number(!withinTol(a.r)) - Number(!withinTol(b.r)) || Number(detour(a.seed)) - Number(detour(b.seed))
+    || a.seed.estimatedDurationS - b.seed.estimatedDurationS);
+  const last = ROBUSTNESS_LEVELS.length - 1;
+  const screened: { r: RefinedParts; seed: SearchSeed; level: number; p95: number }[] = [];
+  for (const { r, seed } of byDuration) {
+    // Shortest first: once enough are comfortably marginal, longer ones cannot outrank them (robust,
+    // ≤ the tolerance, is out of reach with a perception error as large as a tolerance).
+    if (screened.filter((c) => c.level < last).length >= settings.maxCandidates) break;
+    if (!withinTol(r)) { screened.push({ r, seed, level: ROBUSTNESS_LEVELS.length, p95: Infinity }); continue; }
     const sequence = compileForBody(body, candidatePrimitives(r.parts, limits.rateLimitDegS));
     const s = summariseRobustness(robustnessSamples({ body, sequence, target: goal, toleranceDeg: target.toleranceDeg, seed: settings.seed + 7919, model }, 0, SCREEN_SAMPLES), target.toleranceDeg);
-    return { r, seed, level: ROBUSTNESS_LEVELS.indexOf(robustnessLevel(s.feedbackP95Deg, target.toleranceDeg)), p95: s.feedbackP95Deg };
-  });
+    screened.push({ r, seed, level: ROBUSTNESS_LEVELS.indexOf(robustnessLevel(s.feedbackP95Deg / SCREEN_MARGIN, target.toleranceDeg)), p95: s.feedbackP95Deg });
+  }
   const verify = screened
-    .sort((a, b) => Number(a.r.composedErrorDeg > limits.toleranceDeg) - Number(b.r.composedErrorDeg > limits.toleranceDeg)
-      || Number(a.seed.netAngleDeg > goalAngleDeg + 90) - Number(b.seed.netAngleDeg > goalAngleDeg + 90)
-      || a.level - b.level || a.seed.estimatedDurationS - b.seed.estimatedDurationS)
+    .sort((a, b) => Number(!withinTol(a.r)) - Number(!withinTol(b.r)) || Number(detour(a.seed)) - Number(detour(b.seed))
+      || a.level - b.level || (a.level >= last ? a.p95 - b.p95 : a.seed.estimatedDurationS - b.seed.estimatedDurationS))
     .slice(0, settings.maxCandidates);
   verify.forEach(({ r }, i) => {
     progress(0.5 + (0.45 * i) / verify.length, `verifying candidate ${i + 1} of ${verify.length}`);

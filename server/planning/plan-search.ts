@@ -7,11 +7,11 @@
  * 2. structures: every ordered choice of one to three families (consecutive ones differ); the
  *    signed angle each must turn about its own axis is solved by bounded least squares
  *    (Levenberg–Marquardt, ml-levenberg-marquardt) from several starts, keeping the shortest;
- * 3. cycles: whole counts with a capped per-cycle rotation, the last phase a trim phase of small
- *    cycles (so a crew member can stop or add cycles from what they see), split off the last
- *    family when that is shorter;
- * 4. refinement: the sizes by least squares again, now with simulated cycles, until the composed
- *    rotation meets the target.
+ * 3. cycles: whole counts with a capped per-cycle rotation; every phase ends with a trim of small
+ *    cycles (its whole angle when that is small), so a crew member can stop or add cycles about
+ *    each axis from what they see: a stop one large cycle off would leave several degrees;
+ * 4. refinement: the sizes of the last three phases' parts by least squares again, now with
+ *    simulated cycles, until the composed rotation meets the target.
  */
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 
@@ -27,9 +27,16 @@ const DEG = 180 / Math.PI;
 /** Largest per-cycle rotation of the final (trim) phase, degrees: small enough to stop on from what one sees. */
 export const TRIM_MAX_DEG = 2;
 /** Fewest cycles of the trim phase (room to stop early or add cycles). */
-export const TRIM_MIN_CYCLES = 3;
+export const TRIM_MIN_CYCLES = 4;
 /** Largest per-cycle rotation of any other phase, degrees (bounds what a stop one cycle off can cost). */
 export const PHASE_MAX_DEG = 8;
+/**
+ * Largest factor by which the refinement may grow or shrink a size (a loop's rotation goes about
+ * with its size squared): enough to take up the tables' interpolation error, small enough that a
+ * trim keeps the per-cycle rotation it was sized for (give or take a quarter) and so its room to
+ * stop early or add cycles.
+ */
+const SIZE_GROWTH = 1.12;
 /** Sizes measured per family, as fractions of its legal range. */
 const TABLE_FRACTIONS = [0, 0.3, 0.55, 0.8, 1] as const;
 
@@ -185,6 +192,21 @@ function discretise(table: FamilyTable, angleRad: number, capRad: number, minCyc
   return { family: table.family, size: sizeForAngle(table, angleRad / cycles), cycles };
 }
 
+/**
+ * One group's phase as parts: its whole angle in trim-sized cycles when that is short, else most of
+ * it in large cycles and the rest as a trim of small cycles, so every phase ends with cycles small
+ * enough to stop on from what one sees (a stop one large cycle off is several degrees off).
+ */
+function phaseParts(table: FamilyTable, angleRad: number): CandidatePart[] {
+  const big = Math.min(norm(tableRotation(table, table.family.maxSize)), PHASE_MAX_DEG / DEG);
+  const trimShare = TRIM_MIN_CYCLES * (TRIM_MAX_DEG / DEG) * 0.75;
+  const coarse = Math.floor((angleRad - trimShare) / big);
+  if (coarse < 1) return [discretise(table, angleRad, TRIM_MAX_DEG / DEG, TRIM_MIN_CYCLES)];
+  const coarsePart = { family: table.family, size: sizeForAngle(table, big), cycles: coarse };
+  const rest = angleRad - coarse * norm(tableRotation(table, coarsePart.size));
+  return [coarsePart, discretise(table, rest, TRIM_MAX_DEG / DEG, TRIM_MIN_CYCLES)];
+}
+
 /** Composed table rotation of parts. */
 function tableComposition(parts: readonly CandidatePart[], tables: ReadonlyMap<PlanFamily, FamilyTable>): Quat {
   return quatChain(...parts.map((p) => quatIntPower(quatExp(tableRotation(tables.get(p.family)!, p.size)), p.cycles)));
@@ -210,23 +232,10 @@ export function searchSeeds(tables: readonly FamilyTable[], target: Quat, limits
     if (errorRad * DEG > limits.toleranceDeg / 2) continue;
     // Drop phases that turn next to nothing (another structure covers them).
     if (angles.some((a) => Math.abs(a) < negligible)) continue;
-    const options: CandidatePart[][] = [];
-    const head = s.slice(0, -1).map((g, i) => discretise(g.tables[angles[i] >= 0 ? 0 : 1], Math.abs(angles[i]), PHASE_MAX_DEG / DEG, 1));
-    const lastG = s[s.length - 1], lastA = angles[angles.length - 1];
-    const lastT = lastG.tables[lastA >= 0 ? 0 : 1];
-    // The whole last angle in trim-sized cycles…
-    options.push([...head, discretise(lastT, Math.abs(lastA), TRIM_MAX_DEG / DEG, TRIM_MIN_CYCLES)]);
-    // …or, with room for another phase, most of it in large cycles and the rest as the trim.
-    if (s.length < 3) {
-      const big = Math.min(norm(tableRotation(lastT, lastT.family.maxSize)), PHASE_MAX_DEG / DEG);
-      const trimShare = TRIM_MIN_CYCLES * (TRIM_MAX_DEG / DEG) * 0.75;
-      const coarse = Math.floor((Math.abs(lastA) - trimShare) / big);
-      if (coarse >= 1) {
-        const coarsePart = { family: lastT.family, size: sizeForAngle(lastT, big), cycles: coarse };
-        const rest = Math.abs(lastA) - coarse * norm(tableRotation(lastT, coarsePart.size));
-        options.push([...head, coarsePart, discretise(lastT, rest, TRIM_MAX_DEG / DEG, TRIM_MIN_CYCLES)]);
-      }
-    }
+    // Every phase ends in small cycles, so the crew member can stop or add cycles about each axis
+    // in turn (also a family that recurs: its first phase's error, turned by the phases between,
+    // lies partly about axes the later phase cannot trim).
+    const options: CandidatePart[][] = [s.flatMap((g, i) => phaseParts(g.tables[angles[i] >= 0 ? 0 : 1], Math.abs(angles[i])))];
     for (const parts of options) {
       const q = tableComposition(parts, byFamily);
       seeds.push({
@@ -249,8 +258,22 @@ export interface RefinedParts {
 }
 
 /**
+ * Which parts' sizes the refinement moves: in each of the last three runs of one family (a group's
+ * large cycles and its trim), the part with most cycles. One per axis is enough for any residual
+ * and keeps the problem small; the part with most cycles turns most per unit of size.
+ */
+function freeParts(parts: readonly CandidatePart[]): number[] {
+  const runs: number[][] = [];
+  parts.forEach((p, i) => {
+    const run = runs[runs.length - 1];
+    if (run && parts[run[0]].family === p.family) run.push(i); else runs.push([i]);
+  });
+  return runs.slice(-3).flat();
+}
+
+/**
  * Refines the sizes with simulated cycles (bounded least squares on the rotation-vector error);
- * when that cannot meet the target, tries one cycle more or less on the trim phase.
+ * when that cannot meet the target, tries one cycle more or less on the last trim.
  */
 export function refineParts(body: Body, target: Quat, start: readonly CandidatePart[], limits: SearchLimits): RefinedParts {
   const cache = new Map<string, Quat>();
@@ -263,23 +286,32 @@ export function refineParts(body: Body, target: Quat, start: readonly CandidateP
   };
   const tInv = quatConj(target);
   const goalDeg = limits.toleranceDeg * 0.05;
-  const attempt = (parts: readonly CandidatePart[]) => {
-    // Only the last three phases' sizes move (enough for any residual; keeps the problem small).
-    const free = parts.map((_p, i) => i).slice(-3);
+  // Sizes move within a factor `growth` of where they start (a trim stays a trim), wider only when
+  // that cannot meet the target: an error of a degree costs more than a trim a little off its size.
+  const attempt = (parts: readonly CandidatePart[], growth: number) => {
+    const free = freeParts(parts);
     const residual = (x: number[]) => {
       const sized = parts.map((p, i) => (free.includes(i) ? { ...p, size: x[free.indexOf(i)] } : p));
       return quatLog(quatChain(tInv, ...sized.map((p) => quatIntPower(cycleOf(p.family, p.size), p.cycles)))).map((v) => v * DEG);
     };
-    const r = leastSquares3(residual, free.map((i) => parts[i].size), free.map((i) => parts[i].family.minSize), free.map((i) => parts[i].family.maxSize), { step: 0.02, iterations: 12, tolerance: goalDeg });
+    const lo = free.map((i) => Math.max(parts[i].family.minSize, parts[i].size / growth));
+    const hi = free.map((i) => Math.min(parts[i].family.maxSize, parts[i].size * growth));
+    const r = leastSquares3(residual, free.map((i) => parts[i].size), lo, hi, { step: 0.02, iterations: 12, tolerance: goalDeg });
     return { parts: parts.map((p, i) => (free.includes(i) ? { ...p, size: r.x[free.indexOf(i)] } : p)), errorDeg: r.norm };
   };
-  let best = attempt(start);
+  const good = limits.toleranceDeg * 0.1;
+  let best = attempt(start, SIZE_GROWTH);
+  for (const growth of [SIZE_GROWTH ** 2, Infinity]) {
+    if (best.errorDeg <= good) break;
+    const r = attempt(best.parts, growth);
+    if (r.errorDeg < best.errorDeg) best = r;
+  }
   if (best.errorDeg > limits.toleranceDeg * 0.5) {
     const last = start.length - 1;
     for (const d of [1, -1, 2]) {
       const cycles = start[last].cycles + d;
       if (cycles < 1) continue;
-      const r = attempt(start.map((p, i) => (i === last ? { ...p, cycles } : p)));
+      const r = attempt(start.map((p, i) => (i === last ? { ...p, cycles } : p)), Infinity);
       if (r.errorDeg < best.errorDeg) best = r;
       if (best.errorDeg <= limits.toleranceDeg * 0.5) break;
     }

@@ -1,11 +1,11 @@
 /**
- * npm run bench:planner [-- --json] [-- --samples N]: the maneuver planner on three demo bodies (a
+ * npm run bench:planner [-- --json] [-- --samples N] [-- --seed N]: the maneuver planner on three demo bodies (a
  * cabin-clothed man, a cabin-clothed woman, a man in the pressurised suit; invented demo data) ×
  * the standard targets (yaw 90, yaw 180, pitch 90, roll 45 and two 3-axis targets), all in one
  * process, side by side. Per plan: wall time of the search and verification, of the robustness
  * runs, and the best candidate's error, duration, rotation travelled (∫|ω| dt and cycle to cycle),
  * peak joint rate, and both robustness 95th percentiles. Prints the load average before and after;
- * with --json the last line is one JSON object; --paired-limbs independent uses the stricter timing model.
+ * with --json the last line is one JSON object; --seed sets the robustness seed (default 1); --paired-limbs independent uses the stricter timing model.
  */
 import os from 'node:os';
 import { parseArgs } from 'node:util';
@@ -18,8 +18,9 @@ import type { Body } from '../../shared/contracts/body.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { planRequestSchema } from '../../shared/contracts/plan.ts';
 
-const { values } = parseArgs({ options: { json: { type: 'boolean' }, samples: { type: 'string' }, 'paired-limbs': { type: 'string' } } });
+const { values } = parseArgs({ options: { json: { type: 'boolean' }, samples: { type: 'string' }, seed: { type: 'string' }, 'paired-limbs': { type: 'string' } } });
 const samples = Number(values.samples ?? 100);
+const seed = Number(values.seed ?? 1);
 const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); const m = Math.floor(s.length / 2); return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2; };
 
 function body(sex: 'male' | 'female', stature: number, mass: number, suitId: string, name: string): Body {
@@ -39,7 +40,7 @@ const targets: [string, number, number, number][] = [
 
 const loadBefore = os.loadavg();
 // --paired-limbs independent: the stricter timing model (left and right limbs fall out of step).
-const settings = planRequestSchema.parse({ samples, maxCandidates: 3, seed: 1, spreads: { pairedLimbs: values['paired-limbs'] ?? 'together' } });
+const settings = planRequestSchema.parse({ samples, maxCandidates: 3, seed, spreads: { pairedLimbs: values['paired-limbs'] ?? 'together' } });
 const rows: Record<string, unknown>[] = [];
 for (const [bodyName, b] of Object.entries(bodies)) {
   for (const [label, yaw, pitch, roll] of targets) {
@@ -62,7 +63,7 @@ for (const [bodyName, b] of Object.entries(bodies)) {
 }
 const loadAfter = os.loadavg();
 const summary = {
-  bench: 'planner', samplesPerCandidate: samples, pairedLimbs: settings.spreads.pairedLimbs, candidates: settings.maxCandidates, cpus: os.cpus().length,
+  bench: 'planner', samplesPerCandidate: samples, seed, pairedLimbs: settings.spreads.pairedLimbs, candidates: settings.maxCandidates, cpus: os.cpus().length,
   loadAverageBefore: loadBefore, loadAverageAfter: loadAfter,
   medianSearchS: median(rows.map((r) => r.searchS as number)), medianWallS: median(rows.map((r) => r.wallS as number)),
   medianFeedbackP95Deg: median(rows.map((r) => (r.feedbackP95Deg as number) ?? Infinity)), medianOpenLoopP95Deg: median(rows.map((r) => (r.openLoopP95Deg as number) ?? Infinity)),
