@@ -22,11 +22,15 @@ export class RateNodes implements RateSource {
   private readonly first: Int32Array;
   private readonly end: Int32Array;
   private readonly pieces: readonly MotionPiece[];
-  /** The piece `rate` reads, and the window whose barycentric weights are in `lambda` (−1: none). */
+  /** The piece `rate` reads. */
   private piece = -1;
-  private windowStart = -1;
-  private windowSize = 0;
-  private readonly lambda = new Float64Array(WINDOW);
+  /**
+   * Barycentric weights of each window, WINDOW per first node, made when a window is first read and
+   * kept (the audit reads each window for its samples and again for the midpoints between them);
+   * `lambdaSize[s]`: the size of the window at s they were made for (0: none). Dropped when a node is added.
+   */
+  private lambda: Float64Array | null = null;
+  private lambdaSize: Uint8Array | null = null;
 
   constructor(plan: MotionPlan, capacity = 1024) {
     this.pieces = plan.pieces;
@@ -48,6 +52,7 @@ export class RateNodes implements RateSource {
       t2.set(this.t); w2.set(this.w);
       this.t = t2; this.w = w2;
     }
+    this.lambda = null; this.lambdaSize = null;
     if (this.first[p] === this.end[p]) this.first[p] = this.end[p] = this.count;
     const i = this.count++;
     this.t[i] = t;
@@ -62,7 +67,6 @@ export class RateNodes implements RateSource {
     const next = p + 1 < ps.length && ps[p + 1] === piece ? p + 1 : ps.indexOf(piece);
     if (next < 0) throw new Error('RateNodes: piece not in the plan');
     this.piece = next;
-    this.windowStart = -1;
   }
 
   /**
@@ -83,21 +87,22 @@ export class RateNodes implements RateSource {
     let s = lo > a && lo < b && t - T[lo - 1] < T[lo] - t ? lo - (m >> 1) - 1 : lo - (m >> 1);
     if (s < a) s = a;
     if (s > b - m) s = b - m;
-    const lam = this.lambda;
-    if (s !== this.windowStart || m !== this.windowSize) {
+    if (!this.lambda || !this.lambdaSize) { this.lambda = new Float64Array(WINDOW * this.count); this.lambdaSize = new Uint8Array(this.count); }
+    const lam = this.lambda, l0 = WINDOW * s;
+    if (this.lambdaSize[s] !== m) {
       for (let j = 0; j < m; j++) {
         let d = 1;
         const tj = T[s + j];
         for (let k = 0; k < m; k++) if (k !== j) d *= tj - T[s + k];
-        lam[j] = 1 / d;
+        lam[l0 + j] = 1 / d;
       }
-      this.windowStart = s; this.windowSize = m;
+      this.lambdaSize[s] = m;
     }
     let den = 0, x = 0, y = 0, z = 0;
     for (let j = 0; j < m; j++) {
       const e = t - T[s + j], n = 3 * (s + j);
       if (e === 0) { out[o] = W[n]; out[o + 1] = W[n + 1]; out[o + 2] = W[n + 2]; return; }
-      const c = lam[j] / e;
+      const c = lam[l0 + j] / e;
       den += c; x += c * W[n]; y += c * W[n + 1]; z += c * W[n + 2];
     }
     out[o] = x / den; out[o + 1] = y / den; out[o + 2] = z / den;
