@@ -5,8 +5,19 @@
  * general-purpose solver the engine used before, now its cross-check) and MuJoCo (mujoco-js,
  * servo-driven, dt = 2.5e-4 s as before). Prints figures, ratios, the load average and peak memory;
  * with --json, one JSON object as the last line.
+ *
+ * Same conditions for every timed run: the young generation is collected just before each one, of
+ * either method (V8's gc({ type: 'minor' }), exposed here at start-up), so that no run pays for the
+ * short-lived garbage another left behind — MuJoCo's runs leave megabytes, whose collection otherwise
+ * lands in the engine run after them. (A full collection instead leaves the old generation to be
+ * swept by V8's helper threads while the next run is timed: measured, it slowed the run after it.)
+ * Collections that still start inside a timed engine run are counted and printed. Every timed run is
+ * kept; nothing is dropped.
  */
 import os from 'node:os';
+import { PerformanceObserver } from 'node:perf_hooks';
+import { setFlagsFromString } from 'node:v8';
+import { runInNewContext } from 'node:vm';
 
 import { attitudeRhs, integrateAttitude } from '../../server/engine/integrate-attitude.ts';
 import { evalPiece } from '../../server/engine/joint-motion.ts';
@@ -22,6 +33,37 @@ import { standardManeuver } from '../engine/standard-maneuver.ts';
 
 const JSON_OUT = process.argv.includes('--json');
 
+// V8's gc(), without a node flag in the npm script (the flag is set, then gc() read from a fresh context).
+setFlagsFromString('--expose-gc');
+const gc = runInNewContext('gc') as (options?: { type: 'minor' | 'major' }) => void;
+/** Empties the young generation (see the header). */
+const collect = () => gc({ type: 'minor' });
+/** Collections V8 reports (start time, ms), to count those inside timed runs. */
+const gcStarts: number[] = [];
+new PerformanceObserver((list) => { for (const e of list.getEntries()) gcStarts.push(e.startTime); }).observe({ entryTypes: ['gc'] });
+/** The timed windows [start, end] of the engine's runs with audit, and the CPU time (ms, all threads) of each. */
+const engineWindows: [number, number][] = [];
+const engineCpu: number[] = [];
+const cpuMs = (u: NodeJS.CpuUsage) => (u.user + u.system) / 1000;
+/** Milliseconds of one call of f, after a young-generation collection (the same start for every timed run); CPU time into `cpu`. */
+function timed(f: () => void, windows?: [number, number][], cpu?: number[]): number {
+  collect();
+  const c = process.cpuUsage(), t = performance.now();
+  f();
+  const end = performance.now();
+  cpu?.push(cpuMs(process.cpuUsage(c)));
+  windows?.push([t, end]);
+  return end - t;
+}
+async function timedAsync(f: () => Promise<unknown>, cpu?: number[]): Promise<number> {
+  collect();
+  const c = process.cpuUsage(), t = performance.now();
+  await f();
+  const end = performance.now();
+  cpu?.push(cpuMs(process.cpuUsage(c)));
+  return end - t;
+}
+
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 const q4 = (a: { w: number; x: number; y: number; z: number }) => [a.w, a.x, a.y, a.z];
 
@@ -35,12 +77,13 @@ line(`Body: ${body.name} — ${model.segmentCount} segments, ${model.dofCount} d
 // 1. Engine (Magnus, rtol 1e-10), full result with audit and without, interleaved so both see the
 // same machine load (a shared 2-core machine: the median and the best run are both printed).
 const RUNS = 41;
-for (let i = 0; i < 10; i++) { simulateModel(model, plan, {}); simulateModel(model, plan, { skipAudit: true }); }
+// Warm-up: every function optimised before the first timed run.
+for (let i = 0; i < 30; i++) { simulateModel(model, plan, {}); simulateModel(model, plan, { skipAudit: true }); }
 const tFull: number[] = [], tCore: number[] = [];
 let res = simulateModel(model, plan, {});
 for (let i = 0; i < RUNS; i++) {
-  let t = performance.now(); res = simulateModel(model, plan, {}); tFull.push(performance.now() - t);
-  t = performance.now(); simulateModel(model, plan, { skipAudit: true }); tCore.push(performance.now() - t);
+  tFull.push(timed(() => { res = simulateModel(model, plan, {}); }, engineWindows, engineCpu));
+  tCore.push(timed(() => { simulateModel(model, plan, { skipAudit: true }); }));
 }
 // Evaluations of ω spent on samples and on the audit (not RHS evaluations: DECISIONS.md).
 // The audit takes the integrator's recorded nodes as its reference rate, as simulateModel runs it.
@@ -78,6 +121,7 @@ const engineErr = quatAngleBetween(q4(res.final.attitude), reference);
 function rk4(stepsPerSecond: number): { q: number[]; evals: number; ms: number } {
   const counter = { n: 0 };
   const work = createMomentumWork(rhsModel);
+  collect();
   const t = performance.now();
   let q = [1, 0, 0, 0];
   for (const p of plan.pieces) {
@@ -105,7 +149,7 @@ const rkMs = median(rkTimes), rkErr = quatAngleBetween(rk.q, reference);
 // engine's integrator before the Magnus method, and its cross-check in the tests.
 const odexTimes: number[] = [];
 let od = odexFinalAttitude(model, plan, 1e-10);
-for (let i = 0; i < 5; i++) { const t = performance.now(); od = odexFinalAttitude(model, plan, 1e-10); odexTimes.push(performance.now() - t); }
+for (let i = 0; i < 5; i++) odexTimes.push(timed(() => { od = odexFinalAttitude(model, plan, 1e-10); }));
 const odexMs = median(odexTimes), odexErr = quatAngleBetween(od.q, reference);
 const odexRef = odexFinalAttitude(model, plan, 1e-13).q;
 
@@ -113,10 +157,10 @@ const odexRef = odexFinalAttitude(model, plan, 1e-13).q;
 // ratio is comparable), 5 timed runs, each between two engine runs (interleaved: same load).
 const dt = 2.5e-4;
 let mj = await runMujoco(body, seq, dt);
-const mjTimes: number[] = [], tFull2: number[] = [];
+const mjTimes: number[] = [], tFull2: number[] = [], mjCpu: number[] = [], engineCpu2: number[] = [];
 for (let i = 0; i < 5; i++) {
-  let t = performance.now(); simulateModel(model, plan, {}); tFull2.push(performance.now() - t);
-  t = performance.now(); mj = await runMujoco(body, seq, dt); mjTimes.push(performance.now() - t);
+  tFull2.push(timed(() => { simulateModel(model, plan, {}); }, engineWindows, engineCpu2));
+  mjTimes.push(await timedAsync(async () => { mj = await runMujoco(body, seq, dt); }, mjCpu));
 }
 const mjMs = median(mjTimes), engineBesideMujocoMs = median(tFull2);
 const mjErr = quatAngleBetween(mj.attitude, reference);
@@ -126,6 +170,10 @@ const work = createMomentumWork(model);
 const qq = new Float64Array(model.dofCount), qd = new Float64Array(model.dofCount);
 let peakH = 0;
 for (const p of plan.pieces) for (let k = 0; k <= 50; k++) { evalPiece(p, p.t0 + ((p.t1 - p.t0) * k) / 50, qq, qd); bodyRate(model, qq, qd, work); peakH = Math.max(peakH, Math.hypot(...work.h)); }
+
+// Collections that started inside an engine run with audit (the observer reports them asynchronously).
+await new Promise((r) => setTimeout(r, 0));
+const gcInEngine = gcStarts.filter((t) => engineWindows.some(([a, b]) => t >= a && t <= b)).length;
 
 const ru = process.resourceUsage();
 const load = os.loadavg()[0];
@@ -139,6 +187,8 @@ line(`fixed-step RK4 h=${(1 / sps).toExponential(1)} s       | ${rkMs.toFixed(2)
 line(`MuJoCo servo dt=${dt.toExponential(2)} s      | ${mjMs.toFixed(2).padStart(11)} | ${(mjMs / engineBesideMujocoMs).toFixed(1).padEnd(5)} | ${String(mj.steps).padStart(9)} steps | ${mjErr.toExponential(2).padStart(26)} | max ‖H‖ ${mj.maxMomentum.toExponential(2)} kg·m²/s (${(mj.maxMomentum / peakH).toExponential(2)} rel)`);
 line('');
 line(`Engine, best of ${RUNS} runs: ${bestFull.toFixed(2)} ms with audit, ${bestCore.toFixed(2)} ms audit skipped (samples and audit ${(bestFull - bestCore).toFixed(2)} ms for ${res.momentumResidual.points} samples); medians above; load average ${load.toFixed(1)} on ${os.availableParallelism()} cores`);
+line(`Garbage collections inside the ${engineWindows.length} timed engine runs with audit: ${gcInEngine} (a young-generation collection precedes every timed run of either method)`);
+line(`CPU time per run (every thread of the process: waiting for a core does not count, helper threads working inside the run do): engine with audit ${median(engineCpu).toFixed(2)} ms median over ${engineCpu.length} runs (${median(engineCpu2).toFixed(2)} ms beside MuJoCo), MuJoCo ${median(mjCpu).toFixed(1)} ms: ${(median(mjCpu) / median(engineCpu2)).toFixed(0)}×`);
 line(`MuJoCo ratio against the engine runs interleaved with it (median ${engineBesideMujocoMs.toFixed(2)} ms): ${(mjMs / engineBesideMujocoMs).toFixed(0)}×`);
 line(`ω evaluations: ${evals} by the integrator (${res.solver.steps} steps, ${res.solver.rejectedSteps} rejected), ${extra.stats.sampleEvaluations} for the 60 Hz samples and the pieces' ends (the audit's reference), ${auditEvals} by the audit`);
 const rhsMs = (evals * usPerRhs) / 1000;
