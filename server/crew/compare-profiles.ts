@@ -1,6 +1,6 @@
 import type { SegmentLengthKey } from '../../shared/contracts/profile-inputs.ts';
 import type { ComparisonRow, ProfileComparison, ProfileVersionView } from '../../shared/contracts/profile-version.ts';
-import { SEGMENT_LABELS, type SegmentName } from '../../shared/model/segment-names.ts';
+import { isSegmentName, SEGMENT_LABELS } from '../../shared/model/segment-names.ts';
 
 /** Relative tolerance under which two derived numbers count as equal (float noise of re-derivation). */
 const RELATIVE_TOLERANCE = 1e-9;
@@ -76,7 +76,7 @@ function segmentRows(a: ProfileVersionView, b: ProfileVersionView): ComparisonRo
   for (const name of names) {
     const sa = a.summary.segments.find((s) => s.name === name);
     const sb = b.summary.segments.find((s) => s.name === name);
-    const label = SEGMENT_LABELS[name as SegmentName] ?? name;
+    const label = isSegmentName(name) ? SEGMENT_LABELS[name] : name;
     rows.push(row(`segments.${name}.mass`, `${label}: mass`, 'kg', sa?.mass ?? null, sb?.mass ?? null));
     AXES.forEach((ax, k) => rows.push(row(`segments.${name}.com.${ax}`, `${label}: CoM ${ax}`, 'm', sa?.com[k] ?? null, sb?.com[k] ?? null)));
     [0, 1, 2].forEach((k) =>

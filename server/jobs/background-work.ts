@@ -61,8 +61,7 @@ export async function listBackgroundWork(ctx: AppContext, filter: WorkFilter): P
   return { items: items.slice(0, LIMIT), queues: await queueCounts(ctx) };
 }
 
-function item(kind: WorkKind, id: string, label: string, state: string, progress: number | null, error: string | null, attempts: number, createdAt: Date, finishedAt: Date | null): WorkItem {
-  const s = state as JobState;
+function item(kind: WorkKind, id: string, label: string, s: JobState, progress: number | null, error: string | null, attempts: number, createdAt: Date, finishedAt: Date | null): WorkItem {
   return {
     kind, id, label, state: s, progress, error, attempts,
     createdAt: createdAt.toISOString(), finishedAt: finishedAt?.toISOString() ?? null,

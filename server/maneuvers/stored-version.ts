@@ -12,9 +12,13 @@ import { z } from 'zod';
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, sequences, sequenceVersions } from '../../db/schema/index.ts';
 import { type Body, bodySchema } from '../../shared/contracts/body.ts';
-import { type SequenceTarget, sequenceTargetSchema, type StoredCompiled, storedCompiledSchema, type VerificationReport, verificationReportSchema } from '../../shared/contracts/maneuver.ts';
+import {
+  checkFailureSchema, type ReportSummary, reportSummarySchema, type SequenceTarget, sequenceTargetSchema, type StoredCompiled, storedCompiledSchema,
+  type VerificationReport, verificationReportSchema,
+} from '../../shared/contracts/maneuver.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { type Primitive, primitiveSchema } from '../../shared/primitives/primitive-schemas.ts';
+import type { CheckFailure } from '../../shared/product/version-checks.ts';
 import { HttpError } from '../http/http-error.ts';
 
 /** A stored value that does not parse: names the row and the column (500: the fault is ours, not the caller's). */
@@ -51,6 +55,12 @@ export const readStoredPrimitives = (versionId: string, json: unknown): Primitiv
 /** A version's verification report; null before verification. */
 export const readStoredReport = (versionId: string, json: unknown): VerificationReport | null =>
   (json === null || json === undefined ? null : parseStored(verificationReportSchema, json, versionRow(versionId), 'verification report'));
+/** A version's report summary (the columns lists read instead of the report); null before verification. */
+export const readReportSummary = (versionId: string, json: unknown): ReportSummary | null =>
+  (json === null || json === undefined ? null : parseStored(reportSummarySchema, json, versionRow(versionId), 'report summary'));
+/** The failed checks a planner acknowledged when submitting; null when none were. */
+export const readAcknowledgedFailures = (versionId: string, json: unknown): CheckFailure[] | null =>
+  (json === null || json === undefined ? null : parseStored(z.array(checkFailureSchema), json, versionRow(versionId), 'acknowledged failures'));
 /** A profile version's body. */
 export const readProfileBody = (profileVersionId: string, json: unknown): Body => parseStored(bodySchema, json, `profile version ${profileVersionId}`, 'body');
 

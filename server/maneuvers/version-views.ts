@@ -8,11 +8,11 @@ import { alias } from 'drizzle-orm/pg-core';
 import type { Database } from '../../db/client.ts';
 import { crewMembers, profileVersions, type ReverificationRow, reverifications, reviews, robustnessRuns, sequences, type SequenceVersionRow,sequenceVersions, users } from '../../db/schema/index.ts';
 import type { JobState } from '../../shared/contracts/job-state.ts';
-import type { ReportSummary, Reverification, ReviewEntry, SequenceHead, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
+import type { Reverification, ReviewEntry, SequenceHead, VersionBrief, VersionSummary } from '../../shared/contracts/maneuver.ts';
 import { levelOf, type RobustnessBrief } from '../../shared/contracts/robustness.ts';
 import type { VersionStatus } from '../../shared/contracts/version-status.ts';
 import { clearedOrFlagged } from './maneuver-access.ts';
-import { readSequenceTarget, readVersionTarget } from './stored-version.ts';
+import { readAcknowledgedFailures, readReportSummary, readSequenceTarget, readVersionTarget } from './stored-version.ts';
 
 const author = alias(users, 'author');
 const clearer = alias(users, 'clearer');
@@ -143,9 +143,9 @@ export function toVersionSummary(row: VersionRowJoined): VersionSummary {
     createdAt: v.createdAt.toISOString(), submittedAt: v.submittedAt?.toISOString() ?? null,
     clearedBy: v.clearedBy, clearedByName: row.clearedByName, clearedAt: v.clearedAt?.toISOString() ?? null,
     staleSince: v.staleSince?.toISOString() ?? null, engineVersion: v.engineVersion, inputsHash: v.inputsHash,
-    summary: v.reportSummary ?? null,
+    summary: readReportSummary(v.id, v.reportSummary),
     reverification: row.latestReverification ? toReverification(row.latestReverification) : null,
-    submitNote: v.submitNote, acknowledgedFailures: v.acknowledgedFailures ?? null, recheckOfId: v.recheckOfId,
+    submitNote: v.submitNote, acknowledgedFailures: readAcknowledgedFailures(v.id, v.acknowledgedFailures), recheckOfId: v.recheckOfId,
     robustness: row.latestRobustness ? toRobustnessBrief(row.latestRobustness) : null,
   };
 }
@@ -188,11 +188,11 @@ export interface SequenceListRow {
 }
 
 /** The list's brief of a version from its lateral look-up (null: none). */
-function toBrief(v: { id: string | null; version: number | null; status: string | null; summary: unknown; robustness: RobustnessListRow | null }): VersionBrief | null {
+function toBrief(v: { id: string | null; version: number | null; status: VersionStatus | null; summary: unknown; robustness: RobustnessListRow | null }): VersionBrief | null {
   if (!v.id || v.version === null || !v.status) return null;
-  const s = v.summary as ReportSummary | null;
+  const s = readReportSummary(v.id, v.summary);
   return {
-    id: v.id, version: v.version, status: v.status as VersionBrief['status'],
+    id: v.id, version: v.version, status: v.status,
     summary: s ? { durationS: s.durationS, targetErrorDeg: s.targetErrorDeg, withinTolerance: s.withinTolerance, rangeViolationCount: s.rangeViolationCount } : null,
     robustness: v.robustness ? toRobustnessBrief(v.robustness) : null,
   };

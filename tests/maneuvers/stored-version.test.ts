@@ -8,7 +8,7 @@ import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 
 import { sequenceVersions } from '../../db/schema/index.ts';
-import { readStoredCompiled, readVersionTarget, UnreadableStoredValue } from '../../server/maneuvers/stored-version.ts';
+import { readAcknowledgedFailures, readReportSummary, readStoredCompiled, readVersionTarget, UnreadableStoredValue } from '../../server/maneuvers/stored-version.ts';
 import { targetAttitude } from '../../server/maneuvers/target-attitude.ts';
 import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { targetWords } from '../../shared/product/target-words.ts';
@@ -75,6 +75,16 @@ describe('reading stored values', () => {
   it('never reads a bare { yaw } as a target (it used to become yaw/pitch/roll 0 for anything unreadable)', () => {
     expect(() => readVersionTarget(id, { yaw: 90 })).toThrow(/target of sequence version/);
     expect(() => readVersionTarget(id, null)).toThrow(UnreadableStoredValue);
+  });
+
+  it('reads a report summary and acknowledged failures as lists show them; null before there are any; an unknown check is an error', () => {
+    const summary = { durationS: 4, targetErrorDeg: 0.4, withinTolerance: true, yprDeg: { yaw: 0, pitch: -20, roll: 0 }, rangeViolationCount: 0, peakJointRateDegS: 80, withinRateLimit: true, withinTimeBudget: true };
+    expect(readReportSummary(id, summary)).toEqual(summary);
+    expect(readReportSummary(id, null)).toBeNull();
+    expect(() => readReportSummary(id, { ...summary, withinTolerance: 'yes' })).toThrow(new RegExp(`report summary of sequence version ${id} .*withinTolerance`));
+    expect(readAcknowledgedFailures(id, [{ check: 'rate', message: 'peak 130°/s over 120°/s' }])).toEqual([{ check: 'rate', message: 'peak 130°/s over 120°/s' }]);
+    expect(readAcknowledgedFailures(id, null)).toBeNull();
+    expect(() => readAcknowledgedFailures(id, [{ check: 'mood', message: 'x' }])).toThrow(new RegExp(`acknowledged failures of sequence version ${id} .*0\\.check`));
   });
 });
 
