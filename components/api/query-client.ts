@@ -1,7 +1,7 @@
 import { QueryCache, QueryClient } from '@tanstack/react-query';
 
 import { isApiStatus } from './client';
-import { sessionKeys } from './session-keys';
+import { sessionKeys } from './query-keys';
 
 /**
  * The app's one QueryClient. Client errors (4xx) are not retried; a 401 from any query means the

@@ -3,6 +3,7 @@ import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import type { AuditEvent } from '@/shared/contracts/team';
 
 import { apiFetch } from './client';
+import { auditKeys } from './query-keys';
 
 /** Filters of the audit log view; times are ISO 8601 date-times, empty strings mean "any". */
 export interface AuditFilters {
@@ -14,12 +15,6 @@ export interface AuditFilters {
   /** Newest N events, 1–500; the server's default is 100. */
   limit?: number;
 }
-
-/** Query keys of the audit log (admin). */
-export const auditKeys = {
-  all: ['audit'] as const,
-  list: (filters: AuditFilters) => [...auditKeys.all, 'list', filters] as const,
-};
 
 /** GET /api/audit — newest first, filtered; keeps the previous page visible while new filters load. */
 export function useAuditQuery(filters: AuditFilters) {

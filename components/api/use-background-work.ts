@@ -3,12 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { BackgroundWork, WorkFilter, WorkKind } from '@/shared/contracts/background-work';
 
 import { apiFetch } from './client';
-
-/** Query keys of the admin's background-work view. */
-export const backgroundWorkKeys = {
-  all: ['background-work'] as const,
-  list: (filter: WorkFilter) => [...backgroundWorkKeys.all, filter] as const,
-};
+import { backgroundWorkKeys } from './query-keys';
 
 /** How often the list refreshes while it is open, ms. */
 export const BACKGROUND_WORK_POLL_MS = 2000;

@@ -4,17 +4,7 @@ import type { CreateCrewMemberInput, CrewMemberView, SaveProfileInput } from '@/
 import type { ProfileComparison, ProfileVersionHeader, ProfileVersionView, SaveProfileResponse } from '@/shared/contracts/profile-version';
 
 import { apiFetch, apiUrl } from './client';
-import { sequenceKeys } from './use-sequences';
-
-/** Query keys of the Crew area. */
-export const crewKeys = {
-  all: ['crew'] as const,
-  list: (q: string, archived = false) => [...crewKeys.all, 'list', q, archived ? 'archived' : 'active'] as const,
-  member: (id: string) => [...crewKeys.all, 'member', id] as const,
-  versions: (id: string) => [...crewKeys.all, 'versions', id] as const,
-  version: (id: string, version: number) => [...crewKeys.all, 'version', id, version] as const,
-  compare: (id: string, a: number, b: number) => [...crewKeys.all, 'compare', id, a, b] as const,
-};
+import { crewKeys, sequenceKeys } from './query-keys';
 
 /** GET /api/crew?q=&archived= — active (or archived) crew members the signed-in user may see (a trainee: only their own). */
 export function useCrewListQuery(q: string, archived = false) {

@@ -4,13 +4,7 @@ import type { SignInResponse } from '@/shared/contracts/auth';
 import type { AcceptInvitationRequest, InvitationPreview } from '@/shared/contracts/team';
 
 import { apiFetch } from './client';
-import { sessionKeys } from './session-keys';
-
-/** Query keys of invitation previews (public, by token). */
-export const invitationKeys = {
-  all: ['invitation'] as const,
-  preview: (token: string) => [...invitationKeys.all, 'preview', token] as const,
-};
+import { invitationKeys, sessionKeys } from './query-keys';
 
 /** GET /api/invitations/:token — name, e-mail and role the invitation was made for (404 when not valid). */
 export function useInvitationPreviewQuery(token: string) {

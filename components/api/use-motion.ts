@@ -3,12 +3,7 @@ import { useQuery } from '@tanstack/react-query';
 import type { MotionResponse } from '@/shared/contracts/motion';
 
 import { apiFetch } from './client';
-
-/** Query keys of the 3D view's motion. */
-export const motionKeys = {
-  all: ['motion'] as const,
-  version: (versionId: string, rate: number | undefined) => [...motionKeys.all, versionId, rate ?? 'verified'] as const,
-};
+import { motionKeys } from './query-keys';
 
 /**
  * GET /api/motion/:versionId?rate= — samples, body, steps and cues of a version, fetched once per

@@ -4,15 +4,7 @@ import type { CandidateMotionResponse } from '@/shared/contracts/motion';
 import type { Plan, PlanCreated, PlanList, PlanRequest } from '@/shared/contracts/plan';
 
 import { apiFetch } from './client';
-
-/** Query keys of maneuver plans ("Suggest steps"). */
-export const planKeys = {
-  all: ['plans'] as const,
-  detail: (sequenceId: string, planId: string) => [...planKeys.all, sequenceId, planId] as const,
-  latest: (sequenceId: string) => [...planKeys.all, sequenceId, 'latest'] as const,
-  /** Outside `all`: refreshing plans never re-simulates a previewed suggestion. */
-  candidateMotion: (sequenceId: string, planId: string, rank: number) => ['plan-candidate-motion', sequenceId, planId, rank] as const,
-};
+import { planKeys } from './query-keys';
 
 /** How often a queued or running plan is polled, ms. */
 export const PLAN_POLL_MS = 1000;

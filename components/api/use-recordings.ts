@@ -4,14 +4,8 @@ import type { BvhMapping, RecordingView } from '@/shared/contracts/recording';
 import type { UploadResult } from '@/shared/contracts/uploads';
 
 import { apiFetch } from './client';
+import { recordingKeys } from './query-keys';
 import { postFile, useRefreshOnImport } from './use-uploads';
-
-/** Query keys of recordings. */
-export const recordingKeys = {
-  all: ['recordings'] as const,
-  list: () => [...recordingKeys.all, 'list'] as const,
-  one: (id: string) => [...recordingKeys.all, 'one', id] as const,
-};
 
 /** A listed recording (frames left out; `frameCount` instead). */
 export type RecordingSummary = RecordingView & { frameCount: number };

@@ -4,14 +4,8 @@ import type { CaptureTrendPoint, RehearsalCapture } from '@/shared/contracts/rec
 import type { UploadResult } from '@/shared/contracts/uploads';
 
 import { apiFetch, isApiStatus } from './client';
+import { captureKeys } from './query-keys';
 import { postFile, useRefreshOnImport } from './use-uploads';
-
-/** Query keys of rehearsal recordings. */
-export const captureKeys = {
-  all: ['rehearsal-captures'] as const,
-  one: (rehearsalId: string) => [...captureKeys.all, rehearsalId] as const,
-  trend: () => [...captureKeys.all, 'trend'] as const,
-};
 
 /** GET /api/rehearsals/:id/recording — the capture, or null when none is attached yet (404). */
 export function useRehearsalCaptureQuery(rehearsalId: string, enabled: boolean) {

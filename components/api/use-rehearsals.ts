@@ -3,13 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { LogRehearsalRequest, RehearsableVersion, Rehearsal } from '@/shared/contracts/rehearsal';
 
 import { apiFetch } from './client';
-
-/** Query keys of rehearsals. */
-export const rehearsalKeys = {
-  all: ['rehearsals'] as const,
-  available: () => [...rehearsalKeys.all, 'available'] as const,
-  history: (versionId?: string) => [...rehearsalKeys.all, 'history', versionId ?? 'all'] as const,
-};
+import { rehearsalKeys } from './query-keys';
 
 /** GET /api/rehearsals/available — cleared versions the signed-in trainee may rehearse (and rehearsed ones now in re-check). */
 export function useRehearsableVersionsQuery() {

@@ -3,11 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ReverificationProgress } from '@/shared/contracts/maneuver';
 
 import { apiFetch } from './client';
-import { crewKeys } from './use-crew';
-import { sequenceKeys } from './use-sequences';
-
-/** Under the crew keys, so a saved profile (which invalidates them) refreshes the progress at once. */
-const reverificationKey = (crewMemberId: string) => [...crewKeys.all, 'reverifications', crewMemberId] as const;
+import { crewKeys, sequenceKeys } from './query-keys';
 
 /** How often open re-verifications are polled, ms. */
 const POLL_MS = 1500;
@@ -15,7 +11,7 @@ const POLL_MS = 1500;
 /** GET /api/crew/:id/reverifications — polled while any version is still queued or running. */
 export function useReverificationProgressQuery(crewMemberId: string) {
   return useQuery({
-    queryKey: reverificationKey(crewMemberId),
+    queryKey: crewKeys.reverifications(crewMemberId),
     queryFn: ({ signal }) => apiFetch<ReverificationProgress>(`/crew/${encodeURIComponent(crewMemberId)}/reverifications`, { signal }),
     refetchInterval: (query) => {
       const p = query.state.data;
@@ -30,7 +26,7 @@ export function useCancelReverificationsMutation(crewMemberId: string) {
   return useMutation({
     mutationFn: () => apiFetch<ReverificationProgress>(`/crew/${encodeURIComponent(crewMemberId)}/reverifications/cancel`, { method: 'POST' }),
     onSuccess: (p) => {
-      qc.setQueryData(reverificationKey(crewMemberId), p);
+      qc.setQueryData(crewKeys.reverifications(crewMemberId), p);
       // Maneuver lists show each version's re-verification state.
       return qc.invalidateQueries({ queryKey: sequenceKeys.all });
     },

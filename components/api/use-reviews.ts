@@ -3,14 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ReviewCommentRequest, ReviewDecisionRequest, ReviewQueueItem, VersionDetail } from '@/shared/contracts/maneuver';
 
 import { apiFetch } from './client';
-import { auditKeys } from './use-audit';
-import { sequenceKeys } from './use-sequences';
-
-/** Query keys of the Reviews area. */
-export const reviewKeys = {
-  all: ['reviews'] as const,
-  queue: () => [...reviewKeys.all, 'queue'] as const,
-};
+import { auditKeys, reviewKeys, sequenceKeys } from './query-keys';
 
 /** GET /api/reviews/queue — versions waiting for a decision, oldest submission first. */
 export function useReviewQueueQuery() {

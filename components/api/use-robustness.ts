@@ -3,12 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { RobustnessRun, StartRobustnessRequest } from '@/shared/contracts/robustness-run';
 
 import { apiFetch, isApiStatus } from './client';
-
-/** Query keys of version robustness runs. */
-export const robustnessKeys = {
-  all: ['robustness'] as const,
-  version: (versionId: string) => [...robustnessKeys.all, versionId] as const,
-};
+import { robustnessKeys } from './query-keys';
 
 /** How often a queued or running run is polled, ms. */
 export const ROBUSTNESS_POLL_MS = 1000;

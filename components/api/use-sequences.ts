@@ -16,17 +16,7 @@ import type {
 import type { VersionStatus } from '@/shared/contracts/version-status';
 
 import { apiFetch } from './client';
-
-/** Query keys of the Maneuvers area (sequences, their versions, comparisons). */
-export const sequenceKeys = {
-  all: ['sequences'] as const,
-  lists: () => [...sequenceKeys.all, 'list'] as const,
-  list: (filters: SequenceListFilters) => [...sequenceKeys.lists(), filters] as const,
-  detail: (sequenceId: string) => [...sequenceKeys.all, 'detail', sequenceId] as const,
-  version: (versionId: string) => [...sequenceKeys.all, 'version', versionId] as const,
-  compare: (a: string, b: string) => [...sequenceKeys.all, 'compare', a, b] as const,
-  compile: (request: CompileRequest) => [...sequenceKeys.all, 'compile', request] as const,
-};
+import { reviewKeys, sequenceKeys } from './query-keys';
 
 /** What the maneuver list asks the server for (the shelf, a crew member, a search text, the newest version's status). */
 export interface SequenceListFilters {
@@ -156,7 +146,7 @@ export function useSubmitVersionMutation() {
     onSuccess: (version) => {
       qc.setQueryData(sequenceKeys.version(version.id), version);
       void qc.invalidateQueries({ queryKey: sequenceKeys.all });
-      void qc.invalidateQueries({ queryKey: ['reviews'] });
+      void qc.invalidateQueries({ queryKey: reviewKeys.all });
     },
   });
 }

@@ -3,9 +3,7 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import type { ChangePasswordRequest, SessionUser, SignInRequest, SignInResponse } from '@/shared/contracts/auth';
 
 import { apiFetch, isApiStatus } from './client';
-import { sessionKeys } from './session-keys';
-
-export { sessionKeys };
+import { sessionKeys } from './query-keys';
 
 /** The signed-in user, `null` when signed out (401), or an error when the server cannot be reached. */
 export function useSessionQuery() {

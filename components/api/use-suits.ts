@@ -4,12 +4,7 @@ import type { SuitView } from '@/shared/contracts/crew';
 import type { SuitConfigInput } from '@/shared/contracts/suit';
 
 import { ApiError, apiFetch } from './client';
-
-/** Query keys of the suit configurations. */
-export const suitKeys = {
-  all: ['suits'] as const,
-  list: () => [...suitKeys.all, 'list'] as const,
-};
+import { suitKeys } from './query-keys';
 
 /** GET /api/suits — the stored suit configurations, by name. */
 export function useSuitsQuery() {

@@ -3,14 +3,7 @@ import { type QueryKey, useMutation, useQuery, useQueryClient } from '@tanstack/
 import type { Invitation, InviteRequest, TeamMember, UpdateUserRequest } from '@/shared/contracts/team';
 
 import { apiFetch } from './client';
-import { auditKeys } from './use-audit';
-
-/** Query keys of the Team area (admin). */
-export const teamKeys = {
-  all: ['team'] as const,
-  users: () => [...teamKeys.all, 'users'] as const,
-  invitations: () => [...teamKeys.all, 'invitations'] as const,
-};
+import { auditKeys, teamKeys } from './query-keys';
 
 /** GET /api/team/users — every user, by name. */
 export function useTeamUsersQuery() {

@@ -4,7 +4,7 @@ import { apiErrorSchema } from '@/shared/contracts/api-error';
 import type { UploadResult } from '@/shared/contracts/uploads';
 
 import { ApiError, apiUrl } from './client';
-import { crewKeys } from './use-crew';
+import { crewKeys } from './query-keys';
 
 /** What the server answered: the import, or a rejected upload with every row error (422). */
 export type UploadOutcome = { ok: true; result: UploadResult } | { ok: false; message: string; result: UploadResult };
