@@ -1,9 +1,8 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 
-import { applyServerError } from '@/components/api/form-errors';
 import { useAcceptInvitationMutation } from '@/components/api/use-invitation';
+import { useServerForm } from '@/components/api/use-server-form';
 import type { SessionUser } from '@/shared/contracts/auth';
 
 import { AuthForm } from './AuthForm';
@@ -20,31 +19,22 @@ export interface AcceptInvitationFormProps {
 
 /** Choose a password (twice) to accept an invitation; the server signs the invitee in. */
 export function AcceptInvitationForm({ token, onAccepted }: AcceptInvitationFormProps) {
-  const accept = useAcceptInvitationMutation(token);
-  const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError } = useForm({
-    resolver: zodResolver(acceptInvitationFormSchema),
-    defaultValues: { password: '', confirm: '' },
-  });
-  const submit = handleSubmit(({ password }) => {
-    setFormError(null);
-    accept.mutate(
-      { password },
-      {
-        onSuccess: ({ user }) => onAccepted(user),
-        onError: (err) => setFormError(applyServerError(err, ['password'], setError)),
-      },
-    );
+  const form = useForm({ resolver: zodResolver(acceptInvitationFormSchema), defaultValues: { password: '', confirm: '' } });
+  const { formError, pending, submit } = useServerForm(form, {
+    mutation: useAcceptInvitationMutation(token),
+    toRequest: ({ password }) => ({ password }),
+    serverFields: ['password'],
+    onSuccess: ({ user }) => onAccepted(user),
   });
   return (
-    <AuthForm error={formError} submit={{ label: 'Set password and sign in', icon: 'check', pending: accept.isPending, onPress: () => void submit() }}>
+    <AuthForm error={formError} submit={{ label: 'Set password and sign in', icon: 'check', pending, onPress: submit }}>
       <NewPasswordFields
-        control={control}
+        control={form.control}
         name="password"
         label="Choose a password"
         confirmName="confirm"
         confirmLabel="Repeat the password"
-        onSubmitEditing={() => void submit()}
+        onSubmitEditing={submit}
       />
     </AuthForm>
   );

@@ -4,13 +4,13 @@ import { View } from 'react-native';
 import { gaps } from '@/components/theme';
 import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
-import type { IconName } from '@/components/ui/Icon';
+import type { SubmitAction } from '@/components/ui/FormSheet';
 
 /** Props of {@link AuthForm}. */
 export interface AuthFormProps {
   /** The server's sentence when the whole form was refused (wrong password, expired invitation…). */
   error: string | null;
-  submit: { label: string; icon: IconName; pending: boolean; onPress: () => void };
+  submit: SubmitAction;
   /** The fields. */
   children: ReactNode;
 }

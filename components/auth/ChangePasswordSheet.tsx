@@ -1,13 +1,11 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 
-import { applyServerError } from '@/components/api/form-errors';
+import { useServerForm } from '@/components/api/use-server-form';
 import { useChangePasswordMutation } from '@/components/api/use-session';
-import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { FormSheet } from '@/components/ui/FormSheet';
 import { FormTextField } from '@/components/ui/FormTextField';
-import { Sheet } from '@/components/ui/Sheet';
 import { Text } from '@/components/ui/Text';
 
 import { NewPasswordFields } from './NewPasswordFields';
@@ -23,46 +21,27 @@ export interface ChangePasswordSheetProps {
 
 /** Current password, new password twice; a wrong current password shows beside its field. */
 export function ChangePasswordSheet({ visible, onClose, onChanged }: ChangePasswordSheetProps) {
-  const change = useChangePasswordMutation();
-  const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError, reset } = useForm({
+  const form = useForm({
     resolver: zodResolver(changePasswordFormSchema),
     defaultValues: { currentPassword: '', newPassword: '', confirm: '' },
   });
-  const close = () => {
+  const { formError, pending, submit, reset } = useServerForm(form, {
+    mutation: useChangePasswordMutation(),
+    toRequest: ({ currentPassword, newPassword }) => ({ currentPassword, newPassword }),
+    serverFields: ['currentPassword', 'newPassword'],
+    onSuccess: onChanged,
+    resetOnSuccess: true,
+  });
+  const cancel = () => {
     reset();
-    setFormError(null);
     onClose();
   };
-  const submit = handleSubmit(({ currentPassword, newPassword }) => {
-    setFormError(null);
-    change.mutate(
-      { currentPassword, newPassword },
-      {
-        onSuccess: () => {
-          reset();
-          onChanged();
-        },
-        onError: (err) => setFormError(applyServerError(err, ['currentPassword', 'newPassword'], setError)),
-      },
-    );
-  });
   return (
-    <Sheet
-      visible={visible}
-      onClose={close}
-      title="Change password"
-      footer={
-        <>
-          <Button label="Cancel" variant="ghost" onPress={close} />
-          <Button label="Change password" loading={change.isPending} onPress={() => void submit()} />
-        </>
-      }
-    >
+    <FormSheet visible={visible} onCancel={cancel} title="Change password" submit={{ label: 'Change password', pending, onPress: submit }}>
       <Text tone="muted">You will be signed out on every device and sign in again with the new password.</Text>
       <ErrorBanner error={formError} />
-      <FormTextField control={control} name="currentPassword" label="Current password" secureTextEntry autoComplete="current-password" />
-      <NewPasswordFields control={control} name="newPassword" label="New password" confirmName="confirm" confirmLabel="Repeat new password" />
-    </Sheet>
+      <FormTextField control={form.control} name="currentPassword" label="Current password" secureTextEntry autoComplete="current-password" />
+      <NewPasswordFields control={form.control} name="newPassword" label="New password" confirmName="confirm" confirmLabel="Repeat new password" />
+    </FormSheet>
   );
 }

@@ -1,7 +1,6 @@
-import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 
-import { applyServerError } from '@/components/api/form-errors';
+import { useServerForm } from '@/components/api/use-server-form';
 import { useSignInMutation } from '@/components/api/use-session';
 import { FormTextField } from '@/components/ui/FormTextField';
 import type { SessionUser, SignInRequest } from '@/shared/contracts/auth';
@@ -17,23 +16,17 @@ export interface SignInFormProps {
 
 /** E-mail and password form; wrong credentials and rate limits show the server's sentence above the form. */
 export function SignInForm({ onSignedIn }: SignInFormProps) {
-  const signIn = useSignInMutation();
-  const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, setError } = useForm<SignInRequest>({
-    resolver: signInResolver,
-    defaultValues: { email: '', password: '' },
-  });
-  const submit = handleSubmit((values) => {
-    setFormError(null);
-    signIn.mutate(values, {
-      onSuccess: ({ user }) => onSignedIn(user),
-      onError: (err) => setFormError(applyServerError(err, ['email', 'password'], setError)),
-    });
+  const form = useForm<SignInRequest>({ resolver: signInResolver, defaultValues: { email: '', password: '' } });
+  const { formError, pending, submit } = useServerForm(form, {
+    mutation: useSignInMutation(),
+    toRequest: (values) => values,
+    serverFields: ['email', 'password'],
+    onSuccess: ({ user }) => onSignedIn(user),
   });
   return (
-    <AuthForm error={formError} submit={{ label: 'Sign in', icon: 'log-in', pending: signIn.isPending, onPress: () => void submit() }}>
+    <AuthForm error={formError} submit={{ label: 'Sign in', icon: 'log-in', pending, onPress: submit }}>
       <FormTextField
-        control={control}
+        control={form.control}
         name="email"
         label="E-mail"
         autoComplete="email"
@@ -43,13 +36,13 @@ export function SignInForm({ onSignedIn }: SignInFormProps) {
         returnKeyType="next"
       />
       <FormTextField
-        control={control}
+        control={form.control}
         name="password"
         label="Password"
         autoComplete="current-password"
         secureTextEntry
         returnKeyType="go"
-        onSubmitEditing={() => void submit()}
+        onSubmitEditing={submit}
       />
     </AuthForm>
   );

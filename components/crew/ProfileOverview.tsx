@@ -5,6 +5,7 @@ import { colors, gaps, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
 import { Card } from '@/components/ui/Card';
 import { type DataColumn, DataTable } from '@/components/ui/DataTable';
+import { Figure as LabelledFigure, type FigureProps } from '@/components/ui/Figure';
 import { Text } from '@/components/ui/Text';
 import type { ProfileVersionView, SegmentSummary } from '@/shared/contracts/profile-version';
 import { SEGMENT_LABELS, type SegmentName } from '@/shared/model/segment-names';
@@ -25,19 +26,8 @@ const SEGMENT_COLUMNS: DataColumn<SegmentSummary>[] = [
   { header: 'I3 (kg·m²)', cell: (s) => moment(s.principalMoments[2]), numeric: true, minWidth: 80 },
 ];
 
-/** One labelled figure. */
-function Figure({ label, value, unit }: { label: string; value: string; unit: string }) {
-  return (
-    <View style={styles.figure}>
-      <Text variant="overline" tone="muted">
-        {label}
-      </Text>
-      <Text variant="numeric">
-        {value} <Text variant="caption" tone="muted">{unit}</Text>
-      </Text>
-    </View>
-  );
-}
+/** A figure of this overview: fixed width, a rule's room on its right. */
+const Figure = (props: Omit<FigureProps, 'style'>) => <LabelledFigure {...props} style={styles.figure} />;
 
 /** A profile version: whole-body figures in the reference posture, the inputs, and the derived segment table. */
 export function ProfileOverview({ version }: { version: ProfileVersionView }) {

@@ -1,17 +1,16 @@
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useState } from 'react';
 import { useForm, useWatch } from 'react-hook-form';
 import { StyleSheet, View } from 'react-native';
 
 import { useCrewListQuery } from '@/components/api/use-crew';
 import { useCreateSequenceMutation } from '@/components/api/use-sequences';
+import { useServerForm } from '@/components/api/use-server-form';
 import { spacing } from '@/components/theme';
-import { Button } from '@/components/ui/Button';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
 import { FormSegmentedControl } from '@/components/ui/FormSegmentedControl';
 import { FormSelect } from '@/components/ui/FormSelect';
+import { FormSheet } from '@/components/ui/FormSheet';
 import { FormTextField } from '@/components/ui/FormTextField';
-import { Sheet } from '@/components/ui/Sheet';
 import { Text } from '@/components/ui/Text';
 import type { SequenceSummary } from '@/shared/contracts/maneuver';
 
@@ -32,42 +31,26 @@ export interface CreateSequenceSheetProps {
 /** New maneuver: crew member, name and the target reorientation (yaw/pitch/roll or axis and angle) with its limits. */
 export function CreateSequenceSheet({ visible, onClose, onCreated, crewMemberId }: CreateSequenceSheetProps) {
   const crew = useCrewListQuery('');
-  const create = useCreateSequenceMutation();
-  const [formError, setFormError] = useState<string | null>(null);
-  const { control, handleSubmit, reset } = useForm<CreateSequenceFormInput, unknown, CreateSequenceFormOutput>({
+  const form = useForm<CreateSequenceFormInput, unknown, CreateSequenceFormOutput>({
     resolver: zodResolver(createSequenceFormSchema),
     defaultValues: { ...EMPTY_CREATE_SEQUENCE_FORM, crewMemberId: crewMemberId ?? '' },
     mode: 'onTouched',
   });
+  const { control } = form;
+  const { formError, pending, submit, reset } = useServerForm(form, {
+    mutation: useCreateSequenceMutation(),
+    toRequest: toCreateSequenceRequest,
+    onSuccess: onCreated,
+    resetOnSuccess: true,
+  });
   const mode = useWatch({ control, name: 'mode' });
-  const close = () => {
+  const cancel = () => {
     reset();
-    setFormError(null);
     onClose();
   };
-  const submit = handleSubmit((v) => {
-    setFormError(null);
-    create.mutate(toCreateSequenceRequest(v), {
-      onSuccess: (s) => {
-        reset();
-        onCreated(s);
-      },
-      onError: (e) => setFormError(e.message),
-    });
-  });
   const members = (crew.data ?? []).filter((m) => m.currentVersion != null);
   return (
-    <Sheet
-      visible={visible}
-      onClose={close}
-      title="New maneuver"
-      footer={
-        <>
-          <Button label="Cancel" variant="secondary" onPress={close} />
-          <Button label="Create" icon="plus" loading={create.isPending} onPress={() => void submit()} />
-        </>
-      }
-    >
+    <FormSheet visible={visible} onCancel={cancel} title="New maneuver" submit={{ label: 'Create', icon: 'plus', pending, onPress: submit }}>
       <ErrorBanner error={formError} title="Could not create the maneuver" />
       {crew.isError ? <ErrorBanner title="Could not load the crew" error={crew.error} onRetry={() => void crew.refetch()} /> : null}
       <FormSelect
@@ -112,7 +95,7 @@ export function CreateSequenceSheet({ visible, onClose, onCreated, crewMemberId 
         <View style={styles.cell}><FormTextField control={control} name="rateLimitDegS" label="Joint rate limit" unit="°/s" inputMode="decimal" /></View>
         <View style={styles.cell}><FormTextField control={control} name="timeBudgetS" label="Time budget" unit="s" inputMode="decimal" hint="Blank: none" /></View>
       </View>
-    </Sheet>
+    </FormSheet>
   );
 }
 

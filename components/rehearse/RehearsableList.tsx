@@ -3,6 +3,7 @@ import { Pressable, StyleSheet, View } from 'react-native';
 import { formatDate, formatDateTime } from '@/components/format/date-time';
 import { colors, gaps, radii, spacing } from '@/components/theme';
 import { Badge } from '@/components/ui/Badge';
+import { Figure } from '@/components/ui/Figure';
 import { Icon } from '@/components/ui/Icon';
 import { pressStyle } from '@/components/ui/press-state';
 import { Text } from '@/components/ui/Text';
@@ -48,10 +49,10 @@ export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
               {stale ? <Badge label={v.recheck?.successor?.status === 'under_review' ? 'With the reviewer' : 'Re-check needed'} tone="danger" icon="alert-triangle" /> : <Icon name="play-circle" size={26} color={colors.accent} />}
             </View>
             <View style={styles.facts}>
-              <Fact label="Target" value={v.targetLabel} />
-              <Fact label="Duration" value={`${v.duration.toFixed(1)} s`} />
-              <Fact label="Steps" value={String(v.stepCount)} />
-              {v.engineVersion ? <Fact label="Verified by engine" value={shortEngineVersion(v.engineVersion)} /> : null}
+              <Figure style={gaps.xxs} label="Target" value={v.targetLabel} />
+              <Figure style={gaps.xxs} label="Duration" value={`${v.duration.toFixed(1)} s`} />
+              <Figure style={gaps.xxs} label="Steps" value={String(v.stepCount)} />
+              {v.engineVersion ? <Figure style={gaps.xxs} label="Verified by engine" value={shortEngineVersion(v.engineVersion)} /> : null}
             </View>
             {v.verifiedByOtherEngine && v.engineVersion ? (
               <Text variant="caption" tone="accent">
@@ -71,17 +72,6 @@ export function RehearsableList({ versions, onOpen }: RehearsableListProps) {
           </Pressable>
         );
       })}
-    </View>
-  );
-}
-
-function Fact({ label, value }: { label: string; value: string }) {
-  return (
-    <View style={gaps.xxs}>
-      <Text variant="overline" tone="muted">
-        {label}
-      </Text>
-      <Text variant="numeric">{value}</Text>
     </View>
   );
 }

@@ -2,11 +2,11 @@ import { StyleSheet, View } from 'react-native';
 
 import { fmtWhen, shortHash } from '@/components/maneuvers/report/format';
 import { colors, gaps, radii, spacing } from '@/components/theme';
-import { Badge, type BadgeTone } from '@/components/ui/Badge';
+import { StateBadge, type StateLooks } from '@/components/ui/StateBadge';
 import { Text } from '@/components/ui/Text';
 import type { ReviewEntry } from '@/shared/contracts/maneuver';
 
-const DECISION: Record<ReviewEntry['decision'], { label: string; tone: BadgeTone }> = {
+const DECISION: StateLooks<ReviewEntry['decision']> = {
   clear: { label: 'Cleared', tone: 'success' },
   send_back: { label: 'Sent back', tone: 'danger' },
   comment: { label: 'Comment', tone: 'neutral' },
@@ -31,7 +31,7 @@ export function ReviewHistory({ reviews }: ReviewHistoryProps) {
       {reviews.map((r) => (
         <View key={r.id} role="listitem" style={styles.item}>
           <View style={styles.head}>
-            <Badge label={DECISION[r.decision].label} tone={DECISION[r.decision].tone} />
+            <StateBadge looks={DECISION} state={r.decision} />
             <Text variant="label" style={styles.flex}>
               {r.reviewerName}
             </Text>

@@ -27,6 +27,8 @@ export interface DataTableProps<R> {
   rowKey: (row: R, index: number) => string;
   /** Highlight a row: `changed` tints it (comparisons), `danger` marks an error or a limit crossed. */
   rowTone?: (row: R) => 'changed' | 'danger' | undefined;
+  /** Shown in place of the table when there are no rows (a sentence saying what that means). */
+  empty?: ReactNode;
   testID?: string;
 }
 
@@ -34,7 +36,7 @@ export interface DataTableProps<R> {
  * A compact data table with ARIA table roles; scrolls sideways on a phone rather than squashing
  * columns, and then says so: a hint line above and a fade on the edge that has more columns.
  */
-export function DataTable<R>({ label, columns, rows, rowKey, rowTone, testID }: DataTableProps<R>) {
+export function DataTable<R>({ label, columns, rows, rowKey, rowTone, empty, testID }: DataTableProps<R>) {
   const width = (c: DataColumn<R>) => ({ minWidth: c.minWidth ?? 90, flex: c.flex ?? 1 });
   const [box, setBox] = useState(0);
   const [content, setContent] = useState(0);
@@ -43,6 +45,7 @@ export function DataTable<R>({ label, columns, rows, rowKey, rowTone, testID }: 
   const moreRight = overflow && offset < content - box - 2;
   const moreLeft = overflow && offset > 2;
   const onScroll = (e: NativeSyntheticEvent<NativeScrollEvent>) => setOffset(e.nativeEvent.contentOffset.x);
+  if (rows.length === 0 && empty !== undefined) return <>{empty}</>;
   return (
     <View>
       {overflow ? (

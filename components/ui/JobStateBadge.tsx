@@ -1,9 +1,9 @@
 import type { JobState } from '@/shared/contracts/job-state';
 
-import { Badge, type BadgeTone } from './Badge';
+import { StateBadge, type StateLooks } from './StateBadge';
 
 /** Grey waits, teal runs, green ended well, red failed, amber was stopped by someone. */
-const LOOK: Record<JobState, { label: string; tone: BadgeTone }> = {
+const JOB_STATE_LOOKS: StateLooks<JobState> = {
   queued: { label: 'Queued', tone: 'neutral' },
   running: { label: 'Running', tone: 'teal' },
   done: { label: 'Done', tone: 'success' },
@@ -21,6 +21,5 @@ export interface JobStateBadgeProps {
 
 /** The state of a background job, in one look wherever jobs show. */
 export function JobStateBadge({ state, doneLabel }: JobStateBadgeProps) {
-  const look = LOOK[state];
-  return <Badge label={state === 'done' && doneLabel ? doneLabel : look.label} tone={look.tone} />;
+  return <StateBadge looks={JOB_STATE_LOOKS} state={state} label={state === 'done' && doneLabel ? doneLabel : undefined} />;
 }

@@ -8,6 +8,7 @@ import { Badge } from '@/components/ui/Badge';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { ErrorBanner } from '@/components/ui/ErrorBanner';
+import { Figure } from '@/components/ui/Figure';
 import { Icon } from '@/components/ui/Icon';
 import { Text } from '@/components/ui/Text';
 import type { SequenceTarget } from '@/shared/contracts/maneuver';
@@ -137,17 +138,17 @@ function CandidateCard({ candidate: c, toleranceDeg, onUse, onPreview }: { candi
           </Text>
         ))}
         <View style={styles.figures}>
-          <Figure label="Error to target" value={deg(c.errorDeg)} bad={c.errorDeg > toleranceDeg} />
+          <Verdict label="Error to target" value={deg(c.errorDeg)} bad={c.errorDeg > toleranceDeg} />
           {c.robustness ? (
             <>
-              <Figure label="95th pct, with feedback" value={deg(c.robustness.feedbackP95Deg)} bad={c.robustness.feedbackP95Deg > 3 * toleranceDeg} />
-              <Figure label="95th pct, open-loop" value={deg(c.robustness.openLoopP95Deg)} bad={c.robustness.openLoopP95Deg > 3 * toleranceDeg} />
-              <Figure label="Robustness" value={ROBUSTNESS_WORDS[c.robustness.level]} bad={c.robustness.level !== 'robust'} />
+              <Verdict label="95th pct, with feedback" value={deg(c.robustness.feedbackP95Deg)} bad={c.robustness.feedbackP95Deg > 3 * toleranceDeg} />
+              <Verdict label="95th pct, open-loop" value={deg(c.robustness.openLoopP95Deg)} bad={c.robustness.openLoopP95Deg > 3 * toleranceDeg} />
+              <Verdict label="Robustness" value={ROBUSTNESS_WORDS[c.robustness.level]} bad={c.robustness.level !== 'robust'} />
             </>
           ) : null}
-          {typeof c.netPathDeg === 'number' ? <Figure label="Turns through" value={deg(c.netPathDeg)} bad={c.detour} /> : null}
-          <Figure label="Peak rate" value={`${Math.round(c.peakJointRateDegS)} °/s`} bad={!c.withinRateLimit} />
-          {c.rangeViolationCount ? <Figure label="Range violations" value={String(c.rangeViolationCount)} bad /> : null}
+          {typeof c.netPathDeg === 'number' ? <Verdict label="Turns through" value={deg(c.netPathDeg)} bad={c.detour} /> : null}
+          <Verdict label="Peak rate" value={`${Math.round(c.peakJointRateDegS)} °/s`} bad={!c.withinRateLimit} />
+          {c.rangeViolationCount ? <Verdict label="Range violations" value={String(c.rangeViolationCount)} bad /> : null}
         </View>
         <View style={styles.row}>
           <Button label="Use these steps" icon="check" size="sm" onPress={onUse} testID={`use-candidate-${c.rank}`} />
@@ -158,17 +159,9 @@ function CandidateCard({ candidate: c, toleranceDeg, onUse, onPreview }: { candi
   );
 }
 
-function Figure({ label, value, bad }: { label: string; value: string; bad: boolean }) {
-  return (
-    <View style={styles.figure}>
-      <Text variant="overline" tone="muted">
-        {label}
-      </Text>
-      <Text variant="bodyStrong" tone={bad ? 'danger' : 'default'}>
-        {value}
-      </Text>
-    </View>
-  );
+/** A judged figure of a suggestion: red when it misses what the maneuver asks. */
+function Verdict({ label, value, bad }: { label: string; value: string; bad: boolean }) {
+  return <Figure label={label} value={value} variant="bodyStrong" tone={bad ? 'danger' : 'default'} style={styles.figure} />;
 }
 
 const styles = StyleSheet.create({

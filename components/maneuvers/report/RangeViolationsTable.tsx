@@ -12,17 +12,15 @@ export interface RangeViolationsTableProps {
 
 /** Which joint leaves its range, in which step, when, and by how much (worst excursion). */
 export function RangeViolationsTable({ violations }: RangeViolationsTableProps) {
-  if (violations.length === 0) {
-    return (
-      <Text tone="success" testID="no-range-violations">
-        Every joint stays within its allowed range.
-      </Text>
-    );
-  }
   return (
     <DataTable
       label="Range violations"
       testID="range-violations"
+      empty={
+        <Text tone="success" testID="no-range-violations">
+          Every joint stays within its allowed range.
+        </Text>
+      }
       rows={violations}
       rowKey={(v, i) => `${v.dof}-${v.step}-${i}`}
       rowTone={() => 'danger'}
