@@ -1,30 +1,20 @@
-import { expect, type Page,test } from '@playwright/test';
+import { expect, type Page, test } from '@playwright/test';
 
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
-import { signIn } from './support/sign-in.ts';
+import { newManeuver } from './support/maneuvers.ts';
+import { PHONE, signedInPage, WIDE } from './support/sign-in.ts';
 
 /** A fresh maneuver made through the API (so that this spec leaves the demo maneuvers alone), with one saved draft. */
 async function draftManeuver(page: Page, baseURL: string, name: string): Promise<string> {
-  const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; currentVersion: number | null }[] };
-  const member = members.find((m) => m.currentVersion != null);
-  expect(member, 'a crew member with a profile').toBeTruthy();
-  const headers = { Origin: baseURL };
-  const created = await page.request.post('/api/sequences', {
-    headers,
-    data: { crewMemberId: member!.id, name, target: { mode: 'ypr', yprDeg: { yaw: 10, pitch: 0, roll: 0 } } },
-  });
-  expect(created.status()).toBe(201);
-  const { id } = (await created.json()) as { id: string };
-  const saved = await page.request.post(`/api/sequences/${id}/versions`, { headers, data: { primitives: [{ kind: 'pause', durationS: 1 }], baseVersion: 0 } });
+  const id = await newManeuver(page, baseURL, name, { yaw: 10, pitch: 0, roll: 0 });
+  const saved = await page.request.post(`/api/sequences/${id}/versions`, { headers: { Origin: baseURL }, data: { primitives: [{ kind: 'pause', durationS: 1 }], baseVersion: 0 } });
   expect(saved.status()).toBe(201);
   return id;
 }
 
 test('a planner deletes a draft maneuver, and archives and restores another, at phone size', async ({ browser, baseURL }) => {
   test.setTimeout(120_000);
-  const ctx = await browser.newContext({ baseURL, viewport: { width: 375, height: 812 } });
-  const page = await ctx.newPage();
-  await signIn(page, DEMO_BY_ROLE.planner.email);
+  const page = await signedInPage(browser, baseURL, PHONE, DEMO_BY_ROLE.planner.email);
   const stamp = Date.now();
 
   // Delete: only offered while nothing went to review; asks first; leaves for the list.
@@ -55,14 +45,12 @@ test('a planner deletes a draft maneuver, and archives and restores another, at 
   await page.getByRole('button', { name: 'Restore' }).click();
   await expect(page.getByTestId('archived-notice')).toHaveCount(0);
   await expect(page.getByRole('button', { name: `Archive ${name}` })).toBeVisible();
-  await ctx.close();
+  await page.context().close();
 });
 
 test('a planner archives and restores a crew member on a wide screen', async ({ browser, baseURL }) => {
   test.setTimeout(90_000);
-  const ctx = await browser.newContext({ baseURL, viewport: { width: 1280, height: 800 } });
-  const page = await ctx.newPage();
-  await signIn(page, DEMO_BY_ROLE.planner.email);
+  const page = await signedInPage(browser, baseURL, WIDE, DEMO_BY_ROLE.planner.email);
   const name = `Rill Archway ${Date.now()}`;
   const created = await page.request.post('/api/crew', { headers: { Origin: baseURL! }, data: { name, callSign: 'ARCH' } });
   expect(created.status()).toBe(201);
@@ -81,5 +69,5 @@ test('a planner archives and restores a crew member on a wide screen', async ({ 
   await page.getByRole('button', { name: 'Restore' }).click();
   await expect(page.getByTestId('archived-notice')).toHaveCount(0);
   await expect(page.getByRole('radio', { name: 'Create profile' })).toBeVisible();
-  await ctx.close();
+  await page.context().close();
 });

@@ -9,7 +9,7 @@ import type { CrewMemberView } from '../shared/contracts/crew.ts';
 import type { ProfileVersionHeader } from '../shared/contracts/profile-version.ts';
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
 import { jsonOf } from './support/response-json.ts';
-import { signIn } from './support/sign-in.ts';
+import { PHONE, signIn, WIDE } from './support/sign-in.ts';
 
 // Screenshots for people to look at, only when CREW_SCREENS_DIR names a folder (not part of the check).
 const SCREENS = envVar('CREW_SCREENS_DIR');
@@ -19,15 +19,20 @@ async function shot(page: Page, name: string) {
   await page.screenshot({ path: path.join(SCREENS, `${name}.png`), fullPage: true });
 }
 
+/** Sets the screen size, signs in (the demo planner unless `email` says otherwise) and opens the Crew area. */
+async function openCrew(page: Page, viewport: { width: number; height: number }, email: string = DEMO_BY_ROLE.planner.email) {
+  await page.setViewportSize(viewport);
+  await signIn(page, email);
+  await page.goto('/crew');
+}
+
 const HEADER = 'name,call_sign,sex,stature_m,mass_kg,suit,thigh_m';
 const FIXED = [HEADER, 'Elio Marsh,PIKE,male,1.77,76.4,cabin-clothing,', 'Saga Thorn,,female,1.62,55.9,,0.41', 'Ravi Ostrand,GULL,male,1.85,88,pressurised-suit,'].join('\n') + '\n';
 const ONE_BAD = FIXED.replace('Saga Thorn,,female,1.62,55.9', 'Saga Thorn,,female,1.62,fifty');
 
 
 test('a planner creates a crew member, saves and edits a profile, compares versions, exports, and imports a CSV all-or-nothing', async ({ page }) => {
-  await page.setViewportSize({ width: 1280, height: 800 });
-  await signIn(page, DEMO_BY_ROLE.planner.email);
-  await page.goto('/crew');
+  await openCrew(page, WIDE);
   await expect(page.getByRole('button', { name: /^Tamsin Reed/ })).toBeVisible();
   await shot(page, 'crew-list-wide');
 
@@ -105,9 +110,7 @@ test('a planner creates a crew member, saves and edits a profile, compares versi
 });
 
 test('a stale save shows the conflict and saves nothing', async ({ page, baseURL }) => {
-  await page.setViewportSize({ width: 1280, height: 800 });
-  await signIn(page, DEMO_BY_ROLE.planner.email);
-  await page.goto('/crew');
+  await openCrew(page, WIDE);
   await page.getByRole('button', { name: /^Ilse Moss/ }).click();
   await page.getByRole('radio', { name: 'Edit' }).click();
   await expect(page.getByLabel('Body mass')).toHaveValue('54');
@@ -129,9 +132,7 @@ test('a stale save shows the conflict and saves nothing', async ({ page, baseURL
 
 test('a trainee sees only their own profile, read-only', async ({ page }) => {
   const trainee = DEMO_PEOPLE.find((p) => p.crewKey === 'reed')!;
-  await page.setViewportSize({ width: 375, height: 812 });
-  await signIn(page, trainee.email);
-  await page.goto('/crew');
+  await openCrew(page, PHONE, trainee.email);
   await expect(page.getByRole('heading', { name: 'Tamsin Reed' })).toBeVisible();
   await expect(page.getByRole('heading', { name: 'Version 2 (current)' })).toBeVisible();
   await expect(page.getByRole('radio', { name: 'Edit' })).toHaveCount(0);
@@ -146,9 +147,7 @@ test('a trainee sees only their own profile, read-only', async ({ page }) => {
 });
 
 test('on a phone the planner goes from the list to a member, its history and back', async ({ page }) => {
-  await page.setViewportSize({ width: 375, height: 812 });
-  await signIn(page, DEMO_BY_ROLE.planner.email);
-  await page.goto('/crew');
+  await openCrew(page, PHONE);
   await expect(page.getByRole('button', { name: /^Tamsin Reed/ })).toBeVisible();
   await shot(page, 'crew-list-phone');
   await page.getByRole('button', { name: /^Tamsin Reed/ }).click();
@@ -168,9 +167,7 @@ test('on a phone the planner goes from the list to a member, its history and bac
 });
 
 test('a planner edits a suit configuration; a bad value is named before anything is sent', async ({ page }) => {
-  await page.setViewportSize({ width: 1280, height: 800 });
-  await signIn(page, DEMO_BY_ROLE.planner.email);
-  await page.goto('/crew');
+  await openCrew(page, WIDE);
   await page.getByRole('button', { name: 'Suit configurations' }).click();
   await expect(page.getByRole('heading', { name: 'Pressurised suit' })).toBeVisible();
   const card = page.getByRole('table', { name: 'In-cabin clothing: added mass' });

@@ -1,21 +1,10 @@
 import { expect, test } from '@playwright/test';
 
-import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
-import { invitationPathFor } from './support/mailbox.ts';
-import { signIn } from './support/sign-in.ts';
+import { choosePassword, followInvitation, freshInvitee, openInviteForm } from './support/invitations.ts';
 
 test('an admin invites a trainee linked to a crew member; the invitee sees that crew member; the admin relinks them', async ({ page, browser }) => {
-  const email = `sable.orrery.${Date.now()}@lumen.example.test`;
-  const name = 'Sable Orrery';
-  const password = 'tether-lattice-77';
-
-  await signIn(page, DEMO_BY_ROLE.admin.email);
-  await page.getByRole('tab', { name: 'Team' }).click();
-  await page.getByRole('button', { name: 'Invite', exact: true }).click();
-  const form = page.getByRole('form', { name: 'Invite someone' });
-  await form.getByLabel('Name').fill(name);
-  await form.getByLabel('E-mail').fill(email);
-  await form.getByRole('radio', { name: 'Trainee' }).click();
+  const { name, email, password } = freshInvitee('Sable Orrery', 'tether-lattice-77');
+  const form = await openInviteForm(page, { name, email, role: 'Trainee' });
 
   // A trainee without a crew member is refused beside the picker; nothing is sent.
   await form.getByRole('button', { name: 'Send invitation' }).click();
@@ -29,12 +18,8 @@ test('an admin invites a trainee linked to a crew member; the invitee sees that 
   await form.getByRole('button', { name: 'Send invitation' }).click();
   await expect(page.getByText(`Invitation sent to ${email}.`)).toBeVisible();
 
-  const path = await invitationPathFor(page.request, email);
-  const invitee = await (await browser.newContext()).newPage();
-  await invitee.goto(path);
-  await invitee.getByLabel('Choose a password').fill(password);
-  await invitee.getByLabel('Repeat the password').fill(password);
-  await invitee.getByRole('button', { name: 'Set password and sign in' }).click();
+  const { invitee } = await followInvitation(browser, page.request, email);
+  await choosePassword(invitee, password);
   await expect(invitee.getByRole('button', { name: `Account menu for ${name}` })).toBeVisible();
 
   // The new trainee reads exactly their own crew member.

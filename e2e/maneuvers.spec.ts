@@ -1,7 +1,8 @@
 import { type APIRequestContext, expect, test } from '@playwright/test';
 
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
-import { signIn } from './support/sign-in.ts';
+import { newManeuver } from './support/maneuvers.ts';
+import { PHONE, signedInPage, WIDE } from './support/sign-in.ts';
 
 /** One message of the development mailbox (/dev/mail.json). */
 interface DevMail {
@@ -35,9 +36,7 @@ test.describe('maneuvers: compose, verify, review', () => {
     const name = `Quarter pitch drill ${Date.now()}`;
 
     // ── Planner on a phone-sized screen ──
-    const plannerCtx = await browser.newContext({ baseURL, viewport: { width: 375, height: 812 } });
-    const planner = await plannerCtx.newPage();
-    await signIn(planner, DEMO_BY_ROLE.planner.email);
+    const planner = await signedInPage(browser, baseURL, PHONE, DEMO_BY_ROLE.planner.email);
     await planner.goto('/maneuvers');
     await planner.getByRole('button', { name: 'New maneuver' }).first().click();
 
@@ -128,7 +127,7 @@ test.describe('maneuvers: compose, verify, review', () => {
 
     // ── Reviewer follows the e-mail link ──
     const link = await mailMatch(planner.request, DEMO_BY_ROLE.reviewer.email, /\/reviews\/[0-9a-f-]{36}/, 'a review e-mail with a link to the version');
-    const reviewerCtx = await browser.newContext({ baseURL, viewport: { width: 1280, height: 800 } });
+    const reviewerCtx = await browser.newContext({ baseURL, viewport: WIDE });
     const reviewer = await reviewerCtx.newPage();
     await reviewer.goto(link);
     // Signed out: the link leads to sign-in first.
@@ -159,36 +158,26 @@ test.describe('maneuvers: compose, verify, review', () => {
     await expect(planner.getByText('Cleared', { exact: true }).filter({ visible: true }).first()).toBeVisible();
 
     await reviewerCtx.close();
-    await plannerCtx.close();
+    await planner.context().close();
   });
 });
 
 test('saving over a version someone else saved meanwhile is refused with a clear message, and the steps stay', async ({ browser, baseURL }) => {
   test.setTimeout(120_000);
-  const ctx = await browser.newContext({ baseURL, viewport: { width: 375, height: 812 } });
-  const page = await ctx.newPage();
-  await signIn(page, DEMO_BY_ROLE.planner.email);
+  const page = await signedInPage(browser, baseURL, PHONE, DEMO_BY_ROLE.planner.email);
 
   // A sequence with one saved version, made through the API.
-  const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; currentVersion: number | null }[] };
-  const member = members.find((m) => m.currentVersion != null);
-  expect(member, 'a crew member with a profile').toBeTruthy();
+  const sequenceId = await newManeuver(page, baseURL!, `Stale save check ${Date.now()}`, { yaw: 0, pitch: 3, roll: 0 });
   // The page's session cookie rides along, so these API calls say their Origin as the browser would.
   const origin = { Origin: new URL(baseURL!).origin };
-  const created = await page.request.post('/api/sequences', {
-    headers: origin,
-    data: { crewMemberId: member!.id, name: `Stale save check ${Date.now()}`, target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: 3, roll: 0 } } },
-  });
-  expect(created.status()).toBe(201);
-  const sequence = (await created.json()) as { id: string };
-  const first = await page.request.post(`/api/sequences/${sequence.id}/versions`, { headers: origin, data: { primitives: [{ kind: 'pause', durationS: 1 }], baseVersion: 0 } });
+  const first = await page.request.post(`/api/sequences/${sequenceId}/versions`, { headers: origin, data: { primitives: [{ kind: 'pause', durationS: 1 }], baseVersion: 0 } });
   expect(first.status()).toBe(201);
 
-  await page.goto(`/maneuvers/${sequence.id}?panel=steps`);
+  await page.goto(`/maneuvers/${sequenceId}?panel=steps`);
   await expect(page.getByRole('list', { name: 'Steps' }).getByRole('listitem')).toHaveCount(1);
 
   // Someone else saves version 2 meanwhile.
-  const other = await page.request.post(`/api/sequences/${sequence.id}/versions`, { headers: origin, data: { primitives: [{ kind: 'pause', durationS: 2 }], baseVersion: 1 } });
+  const other = await page.request.post(`/api/sequences/${sequenceId}/versions`, { headers: origin, data: { primitives: [{ kind: 'pause', durationS: 2 }], baseVersion: 1 } });
   expect(other.status()).toBe(201);
 
   // This editor still started from version 1: its save is refused, and says so.
@@ -199,5 +188,5 @@ test('saving over a version someone else saved meanwhile is refused with a clear
   await page.getByTestId('save-verify').click();
   await expect(page.getByRole('alert').filter({ hasText: 'Someone saved a newer version' })).toBeVisible();
   await expect(page.getByRole('list', { name: 'Steps' })).toContainText('hold still for 1.5 s');
-  await ctx.close();
+  await page.context().close();
 });

@@ -53,26 +53,15 @@ async function clearedManeuver(request: APIRequestContext): Promise<string> {
   return versionId;
 }
 
-/** Fraction of pixels that differ from the scene background (#0B121B) in a canvas screenshot. */
-async function drawnFraction(page: Page, png: Buffer): Promise<number> {
-  return page.evaluate(async (b64) => {
-    const img = new Image();
-    img.src = `data:image/png;base64,${b64}`;
-    await img.decode();
-    const c = document.createElement('canvas');
-    c.width = img.width; c.height = img.height;
-    const g = c.getContext('2d')!;
-    g.drawImage(img, 0, 0);
-    const d = g.getImageData(0, 0, c.width, c.height).data;
-    let n = 0;
-    for (let i = 0; i < d.length; i += 4) if (Math.abs(d[i] - 0x0b) + Math.abs(d[i + 1] - 0x12) + Math.abs(d[i + 2] - 0x1b) > 40) n++;
-    return n / (d.length / 4);
-  }, png.toString('base64'));
-}
-
-/** Fraction of pixels that differ noticeably between two same-sized screenshots. */
-async function changedFraction(page: Page, a: Buffer, b: Buffer): Promise<number> {
-  return page.evaluate(async ([a64, b64]) => {
+/**
+ * Fraction of the pixels of screenshot `png` that differ from a reference by more than `threshold`
+ * (the sum of the red, green and blue differences): another screenshot of the same size (1 when the
+ * sizes differ), or one colour.
+ */
+async function differingFraction(page: Page, png: Buffer, reference: Buffer | readonly [number, number, number], threshold: number): Promise<number> {
+  const other = Buffer.isBuffer(reference) ? reference.toString('base64') : null;
+  const colour = Buffer.isBuffer(reference) ? null : reference;
+  return page.evaluate(async ({ a64, b64, rgb, limit }) => {
     const load = async (s: string) => {
       const img = new Image();
       img.src = `data:image/png;base64,${s}`;
@@ -83,13 +72,23 @@ async function changedFraction(page: Page, a: Buffer, b: Buffer): Promise<number
       g.drawImage(img, 0, 0);
       return g.getImageData(0, 0, c.width, c.height).data;
     };
-    const [da, db] = [await load(a64), await load(b64)];
-    if (da.length !== db.length) return 1;
+    const da = await load(a64);
+    const db = b64 ? await load(b64) : null;
+    if (db && db.length !== da.length) return 1;
     let n = 0;
-    for (let i = 0; i < da.length; i += 4) if (Math.abs(da[i] - db[i]) + Math.abs(da[i + 1] - db[i + 1]) + Math.abs(da[i + 2] - db[i + 2]) > 30) n++;
+    for (let i = 0; i < da.length; i += 4) {
+      const [r, g, b] = db ? [db[i], db[i + 1], db[i + 2]] : rgb!;
+      if (Math.abs(da[i] - r) + Math.abs(da[i + 1] - g) + Math.abs(da[i + 2] - b) > limit) n++;
+    }
     return n / (da.length / 4);
-  }, [a.toString('base64'), b.toString('base64')] as const);
+  }, { a64: png.toString('base64'), b64: other, rgb: colour, limit: threshold });
 }
+
+/** Fraction of pixels that differ from the scene background (#0B121B) in a canvas screenshot. */
+const drawnFraction = (page: Page, png: Buffer) => differingFraction(page, png, [0x0b, 0x12, 0x1b], 40);
+
+/** Fraction of pixels that differ noticeably between two same-sized screenshots. */
+const changedFraction = (page: Page, a: Buffer, b: Buffer) => differingFraction(page, a, b, 30);
 
 /** requestAnimationFrame intervals over `ms` in the page: median, 95th percentile and mean, ms. */
 async function frameTimes(page: Page, ms: number): Promise<{ median: number; p95: number; mean: number; frames: number }> {

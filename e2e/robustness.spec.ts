@@ -1,7 +1,8 @@
 import { expect, type Page, test, type TestInfo } from '@playwright/test';
 
 import { DEMO_BY_ROLE } from './support/demo-accounts.ts';
-import { signIn } from './support/sign-in.ts';
+import { newManeuver, saveOnePauseVersion } from './support/maneuvers.ts';
+import { PHONE, signedInPage, WIDE } from './support/sign-in.ts';
 
 /**
  * Robustness of every saved version (issue 12): a planner saves a version and watches its run arrive
@@ -17,30 +18,13 @@ async function keep(page: Page, testInfo: TestInfo, name: string, fullPage = fal
 test('a planner saves a version and sees its robustness arrive with progress', async ({ browser, baseURL }, testInfo) => {
   test.setTimeout(240_000);
   // Composed on a phone (the step editor is a sheet there), then read on a wide screen.
-  const ctx = await browser.newContext({ baseURL, viewport: { width: 375, height: 812 } });
-  const page = await ctx.newPage();
-  await signIn(page, DEMO_BY_ROLE.planner.email);
-  const { members } = (await (await page.request.get('/api/crew')).json()) as { members: { id: string; currentVersion: number | null }[] };
-  const member = members.find((m) => m.currentVersion != null)!;
-  const created = await page.request.post('/api/sequences', {
-    headers: { Origin: baseURL! },
-    data: { crewMemberId: member.id, name: `Robustness on save ${Date.now()}`, target: { mode: 'ypr', yprDeg: { yaw: 0, pitch: 0, roll: 0 } } },
-  });
-  expect(created.status()).toBe(201);
-  const sequence = (await created.json()) as { id: string };
-
-  await page.goto(`/maneuvers/${sequence.id}`);
-  await page.getByRole('button', { name: 'Add step' }).first().click();
-  const sheet = page.getByRole('dialog', { name: 'New step 1' });
-  await sheet.getByLabel('Step 1 kind').selectOption('pause');
-  await sheet.getByRole('textbox', { name: 'Duration', exact: true }).fill('1');
-  await sheet.getByRole('button', { name: 'Add step' }).click();
-  await page.getByTestId('save-verify').click();
-  await expect(page.getByTestId('verification-report')).toBeVisible({ timeout: 90_000 });
-  await page.setViewportSize({ width: 1280, height: 800 });
+  const page = await signedInPage(browser, baseURL, PHONE, DEMO_BY_ROLE.planner.email);
+  const sequenceId = await newManeuver(page, baseURL!, `Robustness on save ${Date.now()}`);
+  await saveOnePauseVersion(page, sequenceId, 1, 90_000);
+  await page.setViewportSize(WIDE);
 
   // The save queued the run: the API reports its state and progress while the worker computes it.
-  const version = (await (await page.request.get(`/api/sequences/${sequence.id}`)).json()) as { versions: { id: string }[] };
+  const version = (await (await page.request.get(`/api/sequences/${sequenceId}`)).json()) as { versions: { id: string }[] };
   const versionId = version.versions[0].id;
   const seen: { state: string; progress: number }[] = [];
   const panel = page.getByTestId('robustness-panel').first();
@@ -67,15 +51,13 @@ test('a planner saves a version and sees its robustness arrive with progress', a
   await expect(page.getByTestId('step-rotations')).toBeVisible();
   await panel.scrollIntoViewIfNeeded();
   await keep(page, testInfo, 'robustness-after-save-wide');
-  await ctx.close();
+  await page.context().close();
 });
 
 for (const size of [{ name: 'phone', width: 375, height: 812 }, { name: 'wide', width: 1280, height: 800 }] as const) {
   test(`the reviewer sees the robustness before deciding (${size.name})`, async ({ browser, baseURL }, testInfo) => {
     test.setTimeout(120_000);
-    const ctx = await browser.newContext({ baseURL, viewport: { width: size.width, height: size.height } });
-    const page = await ctx.newPage();
-    await signIn(page, DEMO_BY_ROLE.reviewer.email);
+    const page = await signedInPage(browser, baseURL, { width: size.width, height: size.height }, DEMO_BY_ROLE.reviewer.email);
     await expect(page).toHaveURL(/\/reviews$/);
     // Every queue row carries the version's level.
     const row = page.getByTestId('review-queue-row').first();
@@ -99,6 +81,6 @@ for (const size of [{ name: 'phone', width: 375, height: 812 }, { name: 'wide', 
     await keep(page, testInfo, `report-robustness-${size.name}`);
     await page.getByTestId('step-rotations').scrollIntoViewIfNeeded();
     await keep(page, testInfo, `report-step-rotations-${size.name}`);
-    await ctx.close();
+    await page.context().close();
   });
 }

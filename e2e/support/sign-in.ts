@@ -1,4 +1,4 @@
-import { expect, type Page } from '@playwright/test';
+import { type Browser, expect, type Page } from '@playwright/test';
 
 import { DEMO_PASSWORD } from './demo-accounts.ts';
 
@@ -19,4 +19,15 @@ export async function visibleTabNames(page: Page): Promise<string[]> {
   const tabs = page.getByRole('tablist').getByRole('tab');
   await expect(tabs.first()).toBeVisible();
   return (await tabs.evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''))).filter(Boolean);
+}
+
+/** The two screen sizes the product is checked at: a phone, and a laptop. */
+export const PHONE = { width: 375, height: 812 };
+export const WIDE = { width: 1280, height: 800 };
+
+/** A browser context of its own at `viewport`, signed in as `email`; close it with `page.context().close()`. */
+export async function signedInPage(browser: Browser, baseURL: string | undefined, viewport: { width: number; height: number }, email: string): Promise<Page> {
+  const page = await (await browser.newContext({ baseURL, viewport })).newPage();
+  await signIn(page, email);
+  return page;
 }
