@@ -12,7 +12,7 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
 import { recordAudit } from '../../server/audit/record-audit.ts';
-import { createRobustnessRun, DEFAULT_ROBUSTNESS_SAMPLES, DEFAULT_ROBUSTNESS_SEED, defaultChunkSize, type NewRun } from '../../server/jobs/robustness/robustness-runs.ts';
+import { chunkRanges, createRobustnessRun, DEFAULT_ROBUSTNESS_SAMPLES, DEFAULT_ROBUSTNESS_SEED, type NewRun } from '../../server/jobs/robustness/robustness-runs.ts';
 import { canonicalJson } from '../../server/maneuvers/inputs-hash.ts';
 import { summariseRobustness } from '../../server/planning/robustness.ts';
 import { DEFAULT_ROBUSTNESS_MODEL, type RobustnessModel } from '../../shared/contracts/robustness.ts';
@@ -84,19 +84,17 @@ export async function seedVersionRobustness(db: Database, versionId: string, run
   }
   const samples = entrySamples(entry);
   const figures = summariseRobustness(samples, inputs.toleranceDeg);
-  const chunkSize = defaultChunkSize(inputs.samples);
+  // Cut as a queued run would be (its largest chunk is the stored chunk size).
+  const ranges = chunkRanges(inputs.samples);
   await db.transaction(async (tx) => {
     const [row] = await tx.insert(robustnessRuns).values({
-      sequenceVersionId: versionId, samples: inputs.samples, chunkSize, seed: inputs.seed, model: inputs.model,
+      sequenceVersionId: versionId, samples: inputs.samples, chunkSize: ranges[0]?.to ?? 0, seed: inputs.seed, model: inputs.model,
       toleranceDeg: inputs.toleranceDeg, inputs: { body: inputs.body, sequence: inputs.sequence, target: [...inputs.target] },
       state: 'done', doneSamples: inputs.samples, figures, requestedBy, createdAt: at, startedAt: at, finishedAt: at,
     }).returning({ id: robustnessRuns.id });
-    const chunks = [];
-    for (let from = 0, i = 0; from < inputs.samples; from += chunkSize, i++) {
-      const to = Math.min(inputs.samples, from + chunkSize);
-      chunks.push({ runId: row.id, chunkIndex: i, fromSample: from, toSample: to, state: 'done' as const, results: samples.slice(from, to), attempts: 1, finishedAt: at });
-    }
-    await tx.insert(robustnessChunks).values(chunks);
+    await tx.insert(robustnessChunks).values(ranges.map((r, i) => ({
+      runId: row.id, chunkIndex: i, fromSample: r.from, toSample: r.to, state: 'done' as const, results: samples.slice(r.from, r.to), attempts: 1, finishedAt: at,
+    })));
     await recordAudit(tx, {
       actorId: null, action: 'robustness.done', objectType: 'sequence_version', objectId: versionId,
       detail: { runId: row.id, samples: figures.samples, seed: inputs.seed, openLoopP95Deg: figures.openLoopP95Deg, feedbackP95Deg: figures.feedbackP95Deg, demoData: true },

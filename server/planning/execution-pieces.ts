@@ -51,7 +51,8 @@ class BodyRotations {
 
   /** Attitude [w,x,y,z] after simulating `steps` from joint angles `start`. */
   of(start: Record<string, number>, steps: Step[]): Quat {
-    if (!steps.length) return [1, 0, 0, 0];
+    // A hold moves no joint, so ω = 0 and the integrator would leave the attitude at identity exactly.
+    if (steps.every((s) => s.kind === 'hold')) return [1, 0, 0, 0];
     const q = integrateAttitude(this.model, compileMotion(this.model, { start, steps }), TOLERANCES, [], this.rate).final;
     // The sign-canonical representative (w ≥ 0), as the engine's result reports it.
     const s = q[0] < 0 ? -1 : 1;

@@ -38,7 +38,7 @@ import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
 import { deriveProfile } from '../../server/crew/derive-profile.ts';
 import { startJobQueue } from '../../server/jobs/job-queue.ts';
-import { createRobustnessRun, defaultChunkSize } from '../../server/jobs/robustness/robustness-runs.ts';
+import { chunkRanges, createRobustnessRun } from '../../server/jobs/robustness/robustness-runs.ts';
 import { BUILT_IN_SUITS } from '../../server/model/suits/index.ts';
 import { compileForBody, evaluateSequence } from '../../server/planning/evaluate-steps.ts';
 import { robustnessSamples } from '../../server/planning/robustness.ts';
@@ -54,7 +54,10 @@ const { values } = parseArgs({
 const NODE_FLAGS = [...(values['node-flags']?.split(/\s+/).filter(Boolean) ?? []), ...(values.gc ? ['--trace-gc'] : [])];
 const SAMPLES = Number(values.samples ?? 1000);
 const REPEATS = Number(values.repeats ?? 3);
-const CHUNK = values.chunk ? Number(values.chunk) : defaultChunkSize(SAMPLES);
+// Unset: the product's default split (chunks that shrink toward the end of the run).
+const CHUNK = values.chunk ? Number(values.chunk) : undefined;
+const RANGES = chunkRanges(SAMPLES, CHUNK);
+const SPLIT = `${RANGES.length} chunks of ${[...new Set(RANGES.map((r) => r.to - r.from))].join('/')}`;
 const log = (s: string) => console.log(s);
 const load = () => os.loadavg().map((l) => l.toFixed(2)).join(' / ');
 /**
@@ -149,7 +152,7 @@ async function main() {
     const a = nominal.result.final.attitude;
     const target: [number, number, number, number] = [a.w, a.x, a.y, a.z];
     if (NODE_FLAGS.length) log(`Worker processes started with node flags: ${NODE_FLAGS.join(' ')}`);
-    log(`Maneuver: suited demo crew member (1.83 m, 86 kg, pressurised suit), ${nominal.durationS.toFixed(1)} s of steps; ${SAMPLES} samples in chunks of ${CHUNK}, seed 1`);
+    log(`Maneuver: suited demo crew member (1.83 m, 86 kg, pressurised suit), ${nominal.durationS.toFixed(1)} s of steps; ${SAMPLES} samples in ${SPLIT}, seed 1`);
 
     /** One timed run: wall time enqueue → merged result, CPU of each worker process and of PostgreSQL meanwhile. */
     interface Timed {
@@ -211,6 +214,8 @@ async function main() {
       const mine = gcEvents.filter((e) => e.worker === worker && e.at >= run.t0 && e.at <= run.t1);
       return { scavenges: mine.filter((e) => e.kind === 'scavenge').length, markCompacts: mine.filter((e) => e.kind === 'mark-compact').length, pauseMs: mine.reduce((x, e) => x + e.pauseMs, 0) };
     };
+    /** The merge that completed the run (it also computed and stored the figures), ms. */
+    const lastMergeMs = (run: Timed) => timings.filter((x) => x.runId === run.runId).reduce((last, x) => (x.doneAt >= last.doneAt ? x : last), { doneAt: -Infinity, mergeMs: NaN }).mergeMs;
     const describe = (run: Timed, names: string[]) => names.map((n, i) => {
       const b = breakdown(run, n);
       const g = gcOf(run, n);
@@ -218,7 +223,7 @@ async function main() {
       const cpu = `CPU ${run.workerCpuS[i].toFixed(2)} s (main thread ${run.mainThreadCpuS[i].toFixed(2)} s, compute thread ${run.computeThreadCpuS[i].toFixed(2)} s, other threads ${run.helperThreadsCpuS[i].toFixed(2)} s)${gc}`;
       if (!b.chunks) return `${n}: no chunks, ${cpu}`;
       return `${n}: ${b.chunks} chunks, first ${b.firstStartMs} ms after enqueue, computing ${b.computeS.toFixed(2)} s, claim ${b.claimS.toFixed(3)} s, merge ${b.mergeS.toFixed(3)} s, thread idle ${b.idleS.toFixed(2)} s, ${cpu}`;
-    }).join('; ') + `; PostgreSQL CPU ${run.postgresCpuS.toFixed(2)} s; bench process CPU ${run.benchCpuS.toFixed(2)} s`;
+    }).join('; ') + `; last merge (with the figures) ${lastMergeMs(run).toFixed(0)} ms; PostgreSQL CPU ${run.postgresCpuS.toFixed(2)} s; bench process CPU ${run.benchCpuS.toFixed(2)} s`;
 
     // Reference: the same samples in this process, one thread, no queue (the work the workers share).
     const cpu0 = process.cpuUsage();
@@ -269,7 +274,6 @@ async function main() {
     const gcCount = (runs: Timed[], names: string[]) => median(runs.map((r) => names.reduce((x, n) => { const g = gcOf(r, n); return x + g.scavenges + g.markCompacts; }, 0)));
     // Thread idle per worker, summed over the workers that ran (the second is paused in one-worker runs).
     const idle = (runs: Timed[], names: string[]) => median(runs.map((r) => names.reduce((x, n) => x + breakdown(r, n).idleS, 0)));
-    const chunks = Math.ceil(SAMPLES / CHUNK);
     const loadAfter = load();
     log('');
     const both = ['bench worker 1', 'bench worker 2'];
@@ -280,7 +284,7 @@ async function main() {
     log(`| 1 | ${one.toFixed(2)} s | 1.00 | ${row(ones, ['bench worker 1'])}`);
     log(`| 2 | ${two.toFixed(2)} s | ${ratio.toFixed(2)}× faster | ${row(twos, both)}`);
     if (values.gc) log(`Worker collections per run (median): one worker ${gcCount(ones, ['bench worker 1'])}, two workers ${gcCount(twos, both)} (summed).`);
-    log(`Same samples in one thread without a queue: ${directS.toFixed(2)} s wall, ${directCpuS.toFixed(2)} s CPU (cold, measured once). ${chunks} chunks of ${CHUNK}.`);
+    log(`Same samples in one thread without a queue: ${directS.toFixed(2)} s wall, ${directCpuS.toFixed(2)} s CPU (cold, measured once). ${SPLIT}.`);
     log(`Identical figures in every run: yes (open-loop p95 ${f.openLoopP95Deg.toFixed(2)}°, feedback p95 ${f.feedbackP95Deg.toFixed(2)}°).`);
     log(`Load average (1/5/15 min) before ${loadBefore}, after ${loadAfter}; ${os.cpus().length} cores shared with whatever else runs.`);
     await queue.stop();
@@ -289,7 +293,7 @@ async function main() {
       const round = (x: number) => Number(x.toFixed(3));
       console.log(JSON.stringify({
         oneWorkerS: round(one), twoWorkersS: round(two), ratio: round(ratio),
-        directOneThreadS: round(directS), directOneThreadCpuS: round(directCpuS), samples: SAMPLES, chunkSize: CHUNK, repeats: REPEATS,
+        directOneThreadS: round(directS), directOneThreadCpuS: round(directCpuS), samples: SAMPLES, chunkSize: RANGES[0]?.to ?? 0, chunks: RANGES.length, repeats: REPEATS,
         oneWorkerRunsS: ones.map((r) => round(r.s)), twoWorkersRunsS: twos.map((r) => round(r.s)),
         oneWorkerCpuS: round(workerCpu(ones)), twoWorkersCpuS: round(workerCpu(twos)),
         oneWorkerMainThreadCpuS: round(mainCpu(ones)), twoWorkersMainThreadCpuS: round(mainCpu(twos)),

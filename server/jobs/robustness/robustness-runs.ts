@@ -45,17 +45,47 @@ export const DEFAULT_ROBUSTNESS_SAMPLES = 1000;
 /** Seed of a version's run unless asked otherwise (a fixed seed: the same version gives the same figures). */
 export const DEFAULT_ROBUSTNESS_SEED = 1;
 /**
- * Chunks per run unless a chunk size is given: enough that up to eight worker processes each get two
- * or more, few enough that the queue's work per chunk (fetch, claim, merge: a few milliseconds of
- * CPU) stays small beside the samples (npm run bench:jobs measured both).
+ * Most chunks of a default split. Each chunk costs the queue and the database a few milliseconds of
+ * CPU (fetch, claim, merge, completion, on a worker and in PostgreSQL), as much as tens of samples
+ * on an idle machine, so a run is cut into few chunks (npm run bench:jobs measured both).
  */
-export const CHUNKS_PER_RUN = 16;
-/** Fewest samples in a chunk of a default split (a small run is not cut finer than this). */
+export const CHUNKS_PER_RUN = 10;
+/** Fewest samples in a chunk of a default split (a small run is cut into fewer chunks). */
 export const MIN_CHUNK_SAMPLES = 25;
+/** Size of a default split's last chunk relative to its first. */
+const LAST_TO_FIRST = 0.2;
 
-/** Samples per chunk when none is asked for: the run in CHUNKS_PER_RUN chunks of at least MIN_CHUNK_SAMPLES. */
-export function defaultChunkSize(samples: number): number {
-  return Math.max(MIN_CHUNK_SAMPLES, Math.ceil(samples / CHUNKS_PER_RUN));
+/** Samples [from, to) of one chunk. */
+export interface ChunkRange { from: number; to: number }
+
+/**
+ * How a run of `samples` is cut. With `chunkSize`, into chunks of that size (the last one short).
+ * Otherwise into up to CHUNKS_PER_RUN chunks whose sizes shrink geometrically to a fifth of the
+ * first, none under MIN_CHUNK_SAMPLES unless the run is smaller: chunks are taken in order, so the
+ * large ones keep every worker busy and the small last ones let the workers finish together (with
+ * equal chunks, a worker that takes the last one leaves the others idle for up to a whole chunk).
+ */
+export function chunkRanges(samples: number, chunkSize?: number): ChunkRange[] {
+  const out: ChunkRange[] = [];
+  if (chunkSize !== undefined) {
+    const size = Math.max(1, chunkSize);
+    for (let from = 0; from < samples; from += size) out.push({ from, to: Math.min(samples, from + size) });
+    return out;
+  }
+  const weightsOf = (k: number) => Array.from({ length: k }, (_, i) => (k === 1 ? 1 : LAST_TO_FIRST ** (i / (k - 1))));
+  const sum = (w: number[]) => w.reduce((x, y) => x + y, 0);
+  // The most chunks whose last one still holds MIN_CHUNK_SAMPLES.
+  let k = CHUNKS_PER_RUN;
+  while (k > 1 && (samples * weightsOf(k)[k - 1]) / sum(weightsOf(k)) < MIN_CHUNK_SAMPLES) k--;
+  const w = weightsOf(k), total = sum(w);
+  let acc = 0, from = 0;
+  for (let i = 0; i < k && from < samples; i++) {
+    acc += w[i];
+    const to = i === k - 1 ? samples : Math.round((samples * acc) / total);
+    if (to > from) out.push({ from, to });
+    from = to;
+  }
+  return out;
 }
 
 /** States in which a run or chunk may still change. */
@@ -119,7 +149,7 @@ export function versionRunInputs(v: StoredVersion): Pick<NewRun, 'body' | 'seque
 /** Inserts a run and its chunks (queued); returns the run id. Enqueue its chunks after the commit. */
 export async function createRobustnessRun(db: Database, run: NewRun): Promise<string> {
   const samples = run.samples ?? DEFAULT_ROBUSTNESS_SAMPLES;
-  const chunkSize = Math.max(1, run.chunkSize ?? defaultChunkSize(samples));
+  const ranges = chunkRanges(samples, run.chunkSize);
   const model = robustnessModelSchema.parse(run.model ?? DEFAULT_ROBUSTNESS_MODEL);
   return db.transaction(async (tx) => {
     const [row] = await tx.insert(robustnessRuns).values({
@@ -127,18 +157,15 @@ export async function createRobustnessRun(db: Database, run: NewRun): Promise<st
       planId: run.planId ?? null,
       candidateIndex: run.candidateIndex ?? null,
       samples,
-      chunkSize,
+      // The largest chunk (a default split's chunks shrink toward the end).
+      chunkSize: ranges[0]?.to ?? 0,
       seed: run.seed ?? DEFAULT_ROBUSTNESS_SEED,
       model,
       toleranceDeg: run.toleranceDeg,
       inputs: { body: run.body, sequence: run.sequence, target: [...run.target] } satisfies RobustnessRunInputs,
       requestedBy: run.requestedBy ?? null,
     }).returning({ id: robustnessRuns.id });
-    const chunks = [];
-    for (let from = 0, i = 0; from < samples; from += chunkSize, i++) {
-      chunks.push({ runId: row.id, chunkIndex: i, fromSample: from, toSample: Math.min(samples, from + chunkSize) });
-    }
-    await tx.insert(robustnessChunks).values(chunks);
+    await tx.insert(robustnessChunks).values(ranges.map((r, i) => ({ runId: row.id, chunkIndex: i, fromSample: r.from, toSample: r.to })));
     return row.id;
   });
 }
