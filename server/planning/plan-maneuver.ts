@@ -78,13 +78,16 @@ export function rankCandidates(list: readonly Omit<PlanCandidate, 'rank'>[]): Pl
 const mainGroup = (s: SearchSeed) => [...s.parts].sort((a, b) => b.cycles * b.size ** 2 - a.cycles * a.size ** 2)[0].family.group;
 
 /**
- * Refines seeds shortest first (within the time budget first), one per structure of families, until
+ * Refines seeds shortest first (within the time budget first, every phase trimmed first), one per structure of families, until
  * `count` meet the tolerance with at most two per main family (so different ways of turning are
  * compared), or `4 × count` have been tried.
  */
 function refineSeeds(body: Body, goal: Quat, seeds: readonly SearchSeed[], count: number, limits: SearchLimits, progress: PlanProgress): { seed: SearchSeed; r: RefinedParts }[] {
   const withinBudget = (s: SearchSeed) => limits.timeBudgetS === null || s.estimatedDurationS <= limits.timeBudgetS;
-  const ordered = [...seeds.filter(withinBudget), ...seeds.filter((s) => !withinBudget(s))];
+  // Within the budget first, and there plans whose every phase ends in a trim (robust to a person's
+  // execution) before those trimming only the last phase (shorter, for a budget nothing else meets).
+  const rank = (s: SearchSeed) => (withinBudget(s) ? 0 : 2) + (s.everyPhaseTrimmed ? 0 : 1);
+  const ordered = [0, 1, 2, 3].flatMap((k) => seeds.filter((s) => rank(s) === k));
   const seen = new Set<string>();
   const perMain = new Map<string, number>();
   const out: { seed: SearchSeed; r: RefinedParts }[] = [];

@@ -63,6 +63,8 @@ export interface SearchSeed {
   estimatedDurationS: number;
   /** Error of the composed table rotations, degrees. */
   tableErrorDeg: number;
+  /** Whether every phase ends in a trim (else only the last: a shorter fallback for a time budget). */
+  everyPhaseTrimmed: boolean;
 }
 
 /** Measures every family at its table sizes. */
@@ -234,15 +236,20 @@ export function searchSeeds(tables: readonly FamilyTable[], target: Quat, limits
     if (angles.some((a) => Math.abs(a) < negligible)) continue;
     // Every phase ends in small cycles, so the crew member can stop or add cycles about each axis
     // in turn (also a family that recurs: its first phase's error, turned by the phases between,
-    // lies partly about axes the later phase cannot trim).
-    const options: CandidatePart[][] = [s.flatMap((g, i) => phaseParts(g.tables[angles[i] >= 0 ? 0 : 1], Math.abs(angles[i])))];
-    for (const parts of options) {
+    // lies partly about axes the later phase cannot trim). Only the last phase ending so is the
+    // shorter fallback for a time budget the first cannot meet.
+    const tableOf = (i: number) => s[i].tables[angles[i] >= 0 ? 0 : 1];
+    const trimmed = s.flatMap((_g, i) => phaseParts(tableOf(i), Math.abs(angles[i])));
+    const lastOnly = s.flatMap((_g, i) => (i < s.length - 1 ? [discretise(tableOf(i), Math.abs(angles[i]), PHASE_MAX_DEG / DEG, 1)] : phaseParts(tableOf(i), Math.abs(angles[i]))));
+    const options: [CandidatePart[], boolean][] = [[trimmed, true], ...(lastOnly.length < trimmed.length ? [[lastOnly, false] as [CandidatePart[], boolean]] : [])];
+    for (const [parts, everyPhaseTrimmed] of options) {
       const q = tableComposition(parts, byFamily);
       seeds.push({
         parts,
         netAngleDeg: angles.reduce((sum, a) => sum + Math.abs(a), 0) * DEG,
         estimatedDurationS: parts.reduce((sum, p) => sum + phaseDurationS(p, limits.rateLimitDegS), 0),
         tableErrorDeg: quatAngleBetween(q, target) * DEG,
+        everyPhaseTrimmed,
       });
     }
   }

@@ -33,6 +33,20 @@ describe('planner on a cabin-clothed demo crew member', () => {
   }, 120_000);
 });
 
+describe('time budget', () => {
+  it('meets a budget that plans ending every phase in a trim cannot, with one that trims only its last phase', () => {
+    const suited = demoBody('kettle');
+    const open = planManeuver({ body: suited, target: ypr(180, 0, 0), settings, skipRobustness: true }).candidates[0];
+    // The budget lies under the unbudgeted best plan, so only the shorter fallback can meet it.
+    const budget = 44;
+    expect(open.durationS).toBeGreaterThan(budget);
+    const { candidates } = planManeuver({ body: suited, target: { ...ypr(180, 0, 0), timeBudgetS: budget }, settings, skipRobustness: true });
+    const best = candidates[0];
+    expect(best.withinTimeBudget && best.withinTolerance && best.withinRateLimit && best.rangeViolationCount === 0).toBe(true);
+    expect(best.durationS).toBeLessThanOrEqual(budget);
+  }, 120_000);
+});
+
 describe('targets the planner cannot reach', () => {
   // Hips and knees held within ±4°, shoulder abduction within 0…4°: no leg sweep and no arm circle fits.
   const body = demoBody('reed', 1);
