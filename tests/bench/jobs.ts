@@ -4,8 +4,8 @@
  * suited maneuver from enqueue to merged result, with one and then two worker processes
  * (`server/scripts/worker.ts`, WORKER_CONCURRENCY=1 each, already started and idle) against a
  * throwaway PostgreSQL. The two configurations alternate (one worker, then two, R times, default 3),
- * so a load that changes during the bench weighs on both alike: both workers stay up and warm (one
- * untimed run first), and the second is paused (SIGSTOP, only while the queue is empty) for the
+ * so a load that changes during the bench weighs on both alike: both workers stay up and warm (two
+ * untimed runs first), and the second is paused (SIGSTOP, only while the queue is empty) for the
  * one-worker runs and resumed a second before each two-worker run. The figures of every run must be
  * identical (sample i is seeded by (seed, i)).
  * Since the machine may be shared, wall time alone says little: the bench prints the load average
@@ -238,8 +238,12 @@ async function main() {
     const second = await startWorker(env, 'bench worker 2');
     workers.push(second);
     await sleep(1000);
+    // Two untimed runs: a compute thread's code settles (V8 tiers it up) only after about a thousand
+    // samples (in one thread, 1,000 samples took 0.97 s, then 0.42 s, then 0.36 s), and each worker
+    // gets about half of a two-worker run.
+    const warmFirst = await timeRun();
     const warm = await timeRun();
-    log(`  untimed warm-up run, two workers: ${warm.s.toFixed(2)} s`);
+    log(`  untimed warm-up runs, two workers: ${warmFirst.s.toFixed(2)} s, ${warm.s.toFixed(2)} s`);
     const ones: Timed[] = [], twos: Timed[] = [];
     for (let i = 0; i < REPEATS; i++) {
       // The queue is empty here, so the paused worker holds no job.
@@ -256,7 +260,7 @@ async function main() {
     }
     // Stopped here so each prints how many jobs it ran (both took chunks).
     await Promise.all(workers.splice(0).map(stopWorker));
-    const sameFigures = [warm, ...ones, ...twos].every((r) => JSON.stringify(r.figures) === JSON.stringify(warm.figures));
+    const sameFigures = [warmFirst, warm, ...ones, ...twos].every((r) => JSON.stringify(r.figures) === JSON.stringify(warm.figures));
     if (!sameFigures) throw new Error('figures differ between runs: the split changed the result');
     const f = warm.figures as { openLoopP95Deg: number; feedbackP95Deg: number };
     const one = median(ones.map((r) => r.s));
