@@ -5,6 +5,7 @@
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { type BodyPose, createBodyPose, forwardKinematics, type SegmentMotion, segmentMotion, segmentVelocities } from '../../shared/kinematics/forward-kinematics.ts';
+import { float64Block } from '../../shared/math/float64-block.ts';
 import { solveSpd3 } from '../../shared/math/mat3.ts';
 import { evalPiece, type MotionPiece } from './joint-motion.ts';
 
@@ -58,20 +59,18 @@ export function createMomentumWork(model: BodyModel): MomentumWork {
   const n = model.segmentCount;
   const all = new Int32Array(n);
   for (let i = 0; i < n; i++) all[i] = i;
+  const [originVel, lock, h, omega, c, restCom, restInertia, q, qd, rel] = float64Block([3 * n, 9, 3, 3, 3, 3, 9, model.dofCount, model.dofCount, 9]);
   return {
-    pose: createBodyPose(model), originVel: new Float64Array(3 * n),
-    lock: new Float64Array(9), h: new Float64Array(3), omega: new Float64Array(3), c: new Float64Array(3),
-    moving: all, piece: null,
-    restMass: 0, restCom: new Float64Array(3), restInertia: new Float64Array(9), pieceModel: null,
-    q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
-    kind: new Uint8Array(n), rel: new Float64Array(9), motion: null, motionDofs: null, motionModel: null, folded: null,
+    pose: createBodyPose(model), originVel, lock, h, omega, c, moving: all, piece: null,
+    restMass: 0, restCom, restInertia, pieceModel: null, q, qd,
+    kind: new Uint8Array(n), rel, motion: null, motionDofs: null, motionModel: null, folded: null,
   };
 }
 
 /** The work's folded copy of the model (made on first use; its arrays are rewritten per piece). */
 function foldedModel(model: BodyModel, work: MomentumWork): NonNullable<MomentumWork['folded']> {
   if (work.folded && work.folded.base === model) return work.folded;
-  const mass = new Float64Array(model.mass.length), com = new Float64Array(model.com.length), inertia = new Float64Array(model.inertia.length);
+  const [mass, com, inertia] = float64Block([model.mass.length, model.com.length, model.inertia.length]);
   work.folded = { base: model, model: { ...model, mass, com, inertia }, mass, com, inertia };
   return work.folded;
 }

@@ -17,6 +17,7 @@
  */
 import type { BodyModel } from '../../shared/kinematics/body-model.ts';
 import { type BodyPose, createBodyPose, forwardKinematics, segmentMotion } from '../../shared/kinematics/forward-kinematics.ts';
+import { float64Block } from '../../shared/math/float64-block.ts';
 import { evalMoving, evalPiece, type MotionPiece } from './joint-motion.ts';
 
 /**
@@ -61,11 +62,10 @@ export interface AuditWork {
 /** Allocates audit buffers. */
 export function createAuditWork(model: BodyModel): AuditWork {
   const n = model.segmentCount;
+  const [q, qd, restMoment, restInertia, rot, com, rotD, comD, weights, H, shape, lock] = float64Block([model.dofCount, model.dofCount, 3, 9, 9 * n, 3 * n, 9 * n, 3 * n, 4, 3, 3, 9]);
   return {
-    pose: createBodyPose(model), poseB: createBodyPose(model), q: new Float64Array(model.dofCount), qd: new Float64Array(model.dofCount),
-    piece: null, movers: new Int32Array(0), restMass: 0, restMoment: new Float64Array(3), restInertia: new Float64Array(9),
-    rot: new Float64Array(9 * n), com: new Float64Array(3 * n), rotD: new Float64Array(9 * n), comD: new Float64Array(3 * n), weights: new Float64Array(4),
-    H: new Float64Array(3), shape: new Float64Array(3), lock: new Float64Array(9),
+    pose: createBodyPose(model), poseB: createBodyPose(model), q, qd,
+    piece: null, movers: new Int32Array(0), restMass: 0, restMoment, restInertia, rot, com, rotD, comD, weights, H, shape, lock,
   };
 }
 

@@ -3,6 +3,7 @@
  * and CoM for given joint angles, and (optionally) their velocities for given joint rates.
  * Allocation-free: results go into a preallocated BodyPose.
  */
+import { float64Block } from '../math/float64-block.ts';
 import type { BodyModel } from './body-model.ts';
 
 /** Mutable pose buffers for one body, all in the root segment's frame. */
@@ -31,15 +32,11 @@ export interface BodyPose {
 
 /** Allocates pose buffers for a model. */
 export function createBodyPose(model: BodyModel): BodyPose {
-  const n = model.segmentCount;
-  return {
-    rot: new Float64Array(9 * n), pos: new Float64Array(3 * n), comPos: new Float64Array(3 * n),
-    dofAxisRoot: new Float64Array(3 * Math.max(1, model.dofCount)),
-    angVel: new Float64Array(3 * n), comVel: new Float64Array(3 * n),
-    dofAngle: new Float64Array(Math.max(1, model.dofCount)).fill(NaN),
-    dofCos: new Float64Array(Math.max(1, model.dofCount)), dofSin: new Float64Array(Math.max(1, model.dofCount)),
-    tmpRot: new Float64Array(9), tmpRot2: new Float64Array(9), tmpVec: new Float64Array(3),
-  };
+  const n = model.segmentCount, nd = Math.max(1, model.dofCount);
+  // One buffer for all of them (poses are made for every simulation).
+  const [rot, pos, comPos, dofAxisRoot, angVel, comVel, dofAngle, dofCos, dofSin, tmpRot, tmpRot2, tmpVec] = float64Block([9 * n, 3 * n, 3 * n, 3 * nd, 3 * n, 3 * n, nd, nd, nd, 9, 9, 3]);
+  dofAngle.fill(NaN);
+  return { rot, pos, comPos, dofAxisRoot, angVel, comVel, dofAngle, dofCos, dofSin, tmpRot, tmpRot2, tmpVec };
 }
 
 /**

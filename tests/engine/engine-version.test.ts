@@ -26,6 +26,7 @@ const ENGINE_INPUTS = [
   'shared/kinematics/body-model.ts',
   'shared/kinematics/forward-kinematics.ts',
   'shared/math/euler-zyx.ts',
+  'shared/math/float64-block.ts',
   'shared/math/inertia.ts',
   'shared/math/mat3.ts',
   'shared/math/minimum-jerk.ts',
