@@ -11,7 +11,7 @@ import { auditEvents, robustnessChunks, robustnessRuns } from '../../db/schema/i
 import { ROBUSTNESS_CHUNK_QUEUE } from '../../server/jobs/queue-names.ts';
 import { reconcileWork } from '../../server/jobs/reconcile-work.ts';
 import {
-  createRobustnessRun, finishRobustnessRun, robustnessRunView, runFigures, storedRunInputs, versionRunInputs,
+  cancelRobustnessRun, createRobustnessRun, finishRobustnessRun, mergeChunk, robustnessRunView, runFigures, storedRunInputs, versionRunInputs,
 } from '../../server/jobs/robustness/robustness-runs.ts';
 import { loadStoredVersion } from '../../server/maneuvers/stored-version.ts';
 import { robustnessSamples, summariseRobustness } from '../../server/planning/robustness.ts';
@@ -68,7 +68,6 @@ describe('robustness run of a saved version', () => {
   it('merging a chunk twice (a retried job) changes nothing', async () => {
     const [run] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.sequenceVersionId, versionId));
     const before = await robustnessRunView(t.ctx.db, run);
-    const { mergeChunk } = await import('../../server/jobs/robustness/robustness-runs.ts');
     await mergeChunk(t.ctx, run.id, 0, [{ index: 0, openLoopErrorDeg: 99, feedbackErrorDeg: 99 }]);
     const [again] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, run.id));
     expect(await robustnessRunView(t.ctx.db, again)).toEqual(before);
@@ -91,6 +90,19 @@ describe('robustness run of a saved version', () => {
     expect(await finishRobustnessRun(t.ctx, runId)).toBe(false);
     const events = await t.ctx.db.select().from(auditEvents).where(eq(auditEvents.action, 'robustness.done'));
     expect(events.filter((e) => (e.detail as { runId?: string }).runId === runId)).toHaveLength(1);
+  }, 60_000);
+
+  it('closing a run while its chunks merge neither deadlocks nor fails either side (chunk rows are locked before the run row everywhere)', async () => {
+    const v = (await loadStoredVersion(t.ctx.db, versionId))!;
+    for (let round = 0; round < 10; round++) {
+      const runId = await createRobustnessRun(t.ctx.db, { ...versionRunInputs(v), samples: 200, chunkSize: 5 });
+      const merges = Array.from({ length: 40 }, (_, i) => mergeChunk(t.ctx, runId, i, Array.from({ length: 5 }, (_, k) => ({ index: i * 5 + k, openLoopErrorDeg: 1, feedbackErrorDeg: 1 }))));
+      await new Promise((r) => setTimeout(r, round));
+      const outcomes = await Promise.allSettled([...merges, cancelRobustnessRun(t.ctx, null, runId, 'stopped by the test')]);
+      expect(outcomes.filter((o) => o.status === 'rejected')).toEqual([]);
+      const [row] = await t.ctx.db.select().from(robustnessRuns).where(eq(robustnessRuns.id, runId));
+      expect(['cancelled', 'done']).toContain(row.state);
+    }
   }, 60_000);
 
   it('a cancelled run stops its chunks: no chunk finishes after the cancel and no job stays queued', async () => {

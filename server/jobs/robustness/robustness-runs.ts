@@ -12,7 +12,8 @@
  * stops when the run was cancelled.
  *
  * A chunk costs the database four statements: the queue's fetch and completion, the claim and the
- * merge; the merge holds the run row only for its own
+ * merge; lock order is a run's chunk rows before its run row (claim, merge and closing a run all take
+ * them so, finishing takes the run row only); the merge holds the run row only for its own
  * statement, so workers finishing chunks together barely wait for each other.
  */
 import { performance } from 'node:perf_hooks';
@@ -351,6 +352,10 @@ export async function cancelRobustnessRun(ctx: AppContext, boss: PgBoss | null, 
 
 async function closeRun(ctx: AppContext, runId: string, state: 'failed' | 'cancelled', reason: string, chunkIndex?: number): Promise<boolean> {
   return ctx.db.transaction(async (tx) => {
+    // The run's chunk rows first, then the run row: the order in which a claim and a merge take them
+    // (each updates its chunk, then the run), so closing while chunks merge waits instead of deadlocking.
+    await tx.select({ chunk: robustnessChunks.chunkIndex }).from(robustnessChunks).where(eq(robustnessChunks.runId, runId))
+      .orderBy(asc(robustnessChunks.chunkIndex)).for('update');
     const [run] = await tx.update(robustnessRuns).set({ state, error: reason, finishedAt: new Date() })
       .where(and(eq(robustnessRuns.id, runId), inArray(robustnessRuns.state, [...OPEN_STATES]))).returning();
     if (!run) return false;
