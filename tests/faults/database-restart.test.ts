@@ -21,6 +21,7 @@ import { type RunningServer, serve } from '../../server/scripts/serve.ts';
 import type { CrewMemberView } from '../../shared/contracts/crew.ts';
 import type { SequenceSummary } from '../../shared/contracts/maneuver.ts';
 import type { Plan, PlanCreated } from '../../shared/contracts/plan.ts';
+import { eventually } from '../support/eventually.ts';
 import { bodyOf, errorCode } from '../support/response-body.ts';
 import { TEST_BCRYPT_COST } from '../support/test-app.ts';
 import { recordUncaughtErrors } from '../support/uncaught-errors.ts';
@@ -134,7 +135,17 @@ describe('PostgreSQL restart while the server runs', () => {
     const clients = [0, 1, 2, 3].map(client);
     await new Promise((r) => setTimeout(r, 500));
 
-    // The outage: fast shutdown ends every session, the held request's included.
+    // The outage. A fast shutdown signals every session at once, so the locker's session can end (and
+    // release its lock) a moment before the held one sees its signal, letting the held read finish with
+    // 200 (seen once in CI). The held session is therefore ended first, with the same error a shutdown
+    // gives (57P01), while the lock still holds it; then the server stops.
+    const waitingPids = await eventually(async () => {
+      const { rows } = await locker.query<{ pid: number }>(
+        "SELECT pid FROM pg_stat_activity WHERE wait_event_type = 'Lock' AND query ILIKE '%crew_members%'",
+      );
+      return rows.length ? rows.map((r) => r.pid) : undefined;
+    }, 10_000, 50);
+    await locker.query('SELECT pg_terminate_backend(pid) FROM unnest($1::int[]) AS pid', [waitingPids]);
     cluster.stopServer();
     const heldRes = await held;
     expect(heldRes.status).toBe(503);
