@@ -90,8 +90,12 @@ test.describe('maneuvers: compose, verify, review', () => {
     // Reorder: the pause goes last, then back to the middle.
     await planner.getByRole('button', { name: 'Move step 2 down' }).click();
     await expect(steps.nth(2)).toContainText('hold still for 0.5 s');
-    await planner.getByRole('button', { name: 'Move step 3 up' }).click();
-    await expect(steps.nth(1)).toContainText('hold still for 0.5 s');
+    // Once in a CI run the press landed while the list was still re-rendering from the first move and
+    // did nothing (the row order stayed); press again only while the pause is still last.
+    await expect(async () => {
+      if ((await steps.nth(2).textContent())?.includes('hold still')) await planner.getByRole('button', { name: 'Move step 3 up' }).click();
+      await expect(steps.nth(1)).toContainText('hold still for 0.5 s', { timeout: 2_000 });
+    }).toPass({ timeout: 15_000 });
 
     // The compiled joint-space steps, on request (blends inserted where needed).
     await planner.getByRole('button', { name: 'Show compiled steps' }).click();
