@@ -1,24 +1,27 @@
 /**
- * `npm run bench:jobs [-- --json] [-- --samples N] [-- --repeats R] [-- --chunk S] [-- --gc] [-- --node-flags "…"]`: wall time of a
- * robustness run (default 1,000 samples, split as the product splits it unless --chunk) of a 60 s
- * suited maneuver from enqueue to merged result, with one and then two worker processes
+ * `npm run bench:jobs [-- --json] [-- --samples N] [-- --repeats R] [-- --chunk S] [-- --gc] [-- --node-flags "…"]`:
+ * wall time of a robustness run (default 1,000 samples, split as the product splits it unless
+ * --chunk) from enqueue to merged result, with one and then two worker processes
  * (`server/scripts/worker.ts`, WORKER_CONCURRENCY=1 each, already started and idle) against a
- * throwaway PostgreSQL. The two configurations alternate (one worker, then two, R times, default 3),
- * so a load that changes during the bench weighs on both alike: both workers stay up and warm (two
- * untimed runs first), and the second is paused (SIGSTOP, only while the queue is empty) for the
- * one-worker runs and resumed a second before each two-worker run. The figures of every run must be
- * identical (sample i is seeded by (seed, i)).
+ * throwaway PostgreSQL, for two maneuvers in turn: the standard one (the demo's planner-made suited
+ * quarter turn, whose figures are the goal's) and a light one (one arm-orbit phase, a quarter of the
+ * computing per sample, so the queue's fixed cost per run shows).
+ * The two configurations alternate (one worker, then two, R times, default 5), so a load that changes
+ * during the bench weighs on both alike: both workers stay up and warm (two untimed runs of each
+ * maneuver first), and for each one-worker run one of them is paused (SIGSTOP, only while the queue
+ * is empty; the first worker in odd runs, the second in even ones, so that a process whose compute
+ * thread happens to run slower weighs on both columns) and resumed a second before the next
+ * two-worker run. The figures of every run must be identical (sample i is seeded by (seed, i)).
  * Since the machine may be shared, wall time alone says little: the bench prints the load average
- * before and after, and per run the CPU time of each worker process and of its main thread (the
- * queue's own work; the samples are computed in a separate thread) and of PostgreSQL (from /proc), and
- * from the workers' per-chunk timing lines (debug level) when each took its first chunk, how long its
- * compute thread computed, claimed, merged, and sat idle. Each worker's CPU is split by thread (from
- * /proc/<pid>/task): the main thread, the compute thread (the busiest other thread in the run) and
- * the rest (V8's collector and compiler helpers, libuv), with the bench process's own CPU (it polls
- * the run's state every 100 ms; the wall time ends at the last merge's own timestamp). `--gc` starts the workers with V8's --trace-gc and counts their collections per
- * run (scavenges and mark-compacts, with their pause time); `--node-flags` passes flags to the
- * worker processes (to try V8 settings; the printed figures say which were used).
- * With --json the last line is {"oneWorkerS": …, "twoWorkersS": …, "ratio": …, …}.
+ * before and after, and per run the CPU time of each worker process split by thread (from
+ * /proc/<pid>/task: the main thread, i.e. the queue's own work; the compute thread, the busiest other
+ * one; the rest, V8's collector and compiler helpers and libuv), of PostgreSQL, and of the bench
+ * process itself (it polls the run's state every 250 ms; the wall time ends at the last merge's own
+ * timestamp), and from the workers' per-chunk timing lines (debug level) when each took its first
+ * chunk, how long its compute thread computed, claimed, merged and sat idle. `--gc` starts the
+ * workers with V8's --trace-gc and counts their collections per run; `--node-flags` passes flags to
+ * the worker processes (to try V8 settings; the printed figures say which were used).
+ * With --json the last line is {"oneWorkerS": …, "twoWorkersS": …, "ratio": …, …, "light": {…}}.
  */
 import { type ChildProcess, spawn } from 'node:child_process';
 import { mkdtempSync } from 'node:fs';
@@ -32,18 +35,22 @@ import { eq } from 'drizzle-orm';
 import { createDatabase } from '../../db/client.ts';
 import { runMigrations } from '../../db/migrate.ts';
 import { robustnessRuns } from '../../db/schema/index.ts';
-import { DEMO_PROFILES } from '../../db/seed/seed-crew-profiles.ts';
+import { demoCurrentBody } from '../../db/seed/plan-demo-maneuvers.ts';
+import { loadPlannedManeuvers } from '../../db/seed/planned-maneuvers.ts';
 import type { AppContext } from '../../server/app-context.ts';
 import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
-import { deriveProfile } from '../../server/crew/derive-profile.ts';
 import { startJobQueue } from '../../server/jobs/job-queue.ts';
 import { chunkRanges, createRobustnessRun } from '../../server/jobs/robustness/robustness-runs.ts';
-import { BUILT_IN_SUITS } from '../../server/model/suits/index.ts';
+import { targetQuat } from '../../server/maneuvers/target-attitude.ts';
 import { compileForBody, evaluateSequence } from '../../server/planning/evaluate-steps.ts';
 import { robustnessSamples } from '../../server/planning/robustness.ts';
 import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
+import type { Body } from '../../shared/contracts/body.ts';
+import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { DEFAULT_ROBUSTNESS_MODEL } from '../../shared/contracts/robustness.ts';
+import type { Sequence } from '../../shared/contracts/sequence.ts';
+import type { Quat } from '../../shared/math/quaternion.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 import { clusterCpuS, mainThreadCpuS, processCpuS, threadCpuS } from './process-cpu.ts';
 
@@ -53,7 +60,7 @@ const { values } = parseArgs({
 });
 const NODE_FLAGS = [...(values['node-flags']?.split(/\s+/).filter(Boolean) ?? []), ...(values.gc ? ['--trace-gc'] : [])];
 const SAMPLES = Number(values.samples ?? 1000);
-const REPEATS = Number(values.repeats ?? 3);
+const REPEATS = Number(values.repeats ?? 5);
 // Unset: the product's default split (chunks that shrink toward the end of the run).
 const CHUNK = values.chunk ? Number(values.chunk) : undefined;
 const RANGES = chunkRanges(SAMPLES, CHUNK);
@@ -65,16 +72,45 @@ const load = () => os.loadavg().map((l) => l.toFixed(2)).join(' / ');
  * timestamp, so a slower poll costs no accuracy and keeps the bench's queries (its CPU and
  * PostgreSQL's) from competing with the workers.
  */
-const POLL_MS = 100;
+const POLL_MS = 250;
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const median = (xs: number[]) => { const s = [...xs].sort((a, b) => a - b); const m = Math.floor(s.length / 2); return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2; };
 
-/** The 60 s suited maneuver (invented for the benchmark): arms forward, 18 slow outward arm orbits, a pause. */
-const MANEUVER: Primitive[] = [
-  { kind: 'pose_shift', posture: 'arms_forward', durationS: 1.5 },
-  { kind: 'arm_orbit', arms: 'both', centre: 'forward', halfAngleDeg: 20, travel: 'outward', cycles: 18, periodS: 3 },
-  { kind: 'pause', durationS: 3 },
-];
+/** A maneuver the bench runs: its body, compiled steps and target. */
+interface BenchCase { key: 'standard' | 'light'; title: string; body: Body; sequence: Sequence; target: Quat; durationS: number }
+
+/**
+ * The standard maneuver: the demo's planner-made suited quarter turn (db/seed/planned-maneuvers.json,
+ * four arm and leg phases with their pose shifts, on the suited demo crew member's current body, toward
+ * its own target: yaw 90°, tolerance 2°), the kind of maneuver whose robustness the product runs.
+ */
+function standardCase(): BenchCase {
+  const m = loadPlannedManeuvers().find((x) => x.name === 'Quarter turn to the left in the suit');
+  if (!m) throw new Error('the planned demo maneuver "Quarter turn to the left in the suit" is missing from db/seed/planned-maneuvers.json');
+  const body = demoCurrentBody(m.crew);
+  const sequence = compileForBody(body, m.primitives);
+  const durationS = evaluateSequence(body, sequence, [1, 0, 0, 0]).durationS;
+  const target = targetQuat(sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: m.yprDeg, toleranceDeg: 2, rateLimitDegS: 180 }));
+  return { key: 'standard', title: `${m.name} (planner-made demo maneuver, suited crew member, ${m.primitives.length} steps)`, body, sequence, target, durationS };
+}
+
+/**
+ * A light maneuver (invented for the benchmark): arms forward, 18 slow outward arm orbits, a pause,
+ * toward its own nominal end. One phase, so a sample costs about a quarter of the standard one's: the
+ * queue's fixed cost per run weighs four times as much.
+ */
+function lightCase(): BenchCase {
+  const body = demoCurrentBody('kettle');
+  const steps: Primitive[] = [
+    { kind: 'pose_shift', posture: 'arms_forward', durationS: 1.5 },
+    { kind: 'arm_orbit', arms: 'both', centre: 'forward', halfAngleDeg: 20, travel: 'outward', cycles: 18, periodS: 3 },
+    { kind: 'pause', durationS: 3 },
+  ];
+  const sequence = compileForBody(body, steps);
+  const nominal = evaluateSequence(body, sequence, [1, 0, 0, 0]);
+  const a = nominal.result.final.attitude;
+  return { key: 'light', title: 'three-step arm-orbit maneuver (one phase, suited crew member)', body, sequence, target: [a.w, a.x, a.y, a.z], durationS: nominal.durationS };
+}
 
 /** Per-chunk timing a worker logs at debug level (robustness-runs.ts), tagged with the worker's name. */
 interface ChunkTiming { worker: string; runId: string; chunk: number; fetchedAt: number; claimMs: number; waitMs: number; computeMs: number; mergeMs: number; doneAt: number }
@@ -144,20 +180,15 @@ async function main() {
     // This process only enqueues (like the API process).
     const queue = await startJobQueue(ctx, { worker: false, reconcile: false });
 
-    const kettle = DEMO_PROFILES.kettle[0];
-    const suit = BUILT_IN_SUITS.find((s) => s.id === 'pressurised-suit')!;
-    const body = deriveProfile({ lengths: {}, gear: [], ...kettle.inputs } as Parameters<typeof deriveProfile>[0], suit, 'bench suited man').body;
-    const sequence = compileForBody(body, MANEUVER);
-    const nominal = evaluateSequence(body, sequence, [1, 0, 0, 0]);
-    const a = nominal.result.final.attitude;
-    const target: [number, number, number, number] = [a.w, a.x, a.y, a.z];
     if (NODE_FLAGS.length) log(`Worker processes started with node flags: ${NODE_FLAGS.join(' ')}`);
-    log(`Maneuver: suited demo crew member (1.83 m, 86 kg, pressurised suit), ${nominal.durationS.toFixed(1)} s of steps; ${SAMPLES} samples in ${SPLIT}, seed 1`);
+    const cases = [standardCase(), lightCase()];
 
     /** One timed run: wall time enqueue → merged result, CPU of each worker process and of PostgreSQL meanwhile. */
     interface Timed {
       s: number; figures: unknown; workerCpuS: number[]; mainThreadCpuS: number[]; computeThreadCpuS: number[]; helperThreadsCpuS: number[];
       postgresCpuS: number; benchCpuS: number; runId: string; t0: number; t1: number;
+      /** The workers that were running (not paused) during the run. */
+      ran: string[];
     }
     const cpuNow = () => ({
       workers: workers.map((w) => processCpuS(w.pid!)), mains: workers.map((w) => mainThreadCpuS(w.pid!)), threads: workers.map((w) => threadCpuS(w.pid!)),
@@ -168,8 +199,8 @@ async function main() {
       const deltas = [...after].filter(([tid]) => tid !== pid).map(([tid, c]) => c - (before.get(tid) ?? 0)).sort((x, y) => y - x);
       return { compute: deltas[0] ?? 0, helpers: deltas.slice(1).reduce((x, c) => x + c, 0) };
     };
-    const timeRun = async (): Promise<Timed> => {
-      const runId = await createRobustnessRun(ctx.db, { body, sequence, target, toleranceDeg: 2, samples: SAMPLES, seed: 1, chunkSize: CHUNK });
+    const timeRun = async (c: BenchCase, ran: string[]): Promise<Timed> => {
+      const runId = await createRobustnessRun(ctx.db, { body: c.body, sequence: c.sequence, target: c.target, toleranceDeg: 2, samples: SAMPLES, seed: 1, chunkSize: CHUNK });
       const before = cpuNow();
       const t0Epoch = Date.now();
       const t0 = performance.now();
@@ -191,7 +222,7 @@ async function main() {
       const bench = process.cpuUsage(before.bench);
       const split = workers.map((w, i) => splitThreads(w.pid!, before.threads[i], after.threads[i]));
       return {
-        s, figures: r.figures, runId, t0: t0Epoch, t1: Date.now(),
+        s, figures: r.figures, runId, t0: t0Epoch, t1: Date.now(), ran,
         workerCpuS: after.workers.map((c, i) => c - before.workers[i]), mainThreadCpuS: after.mains.map((c, i) => c - before.mains[i]),
         computeThreadCpuS: split.map((x) => x.compute), helperThreadsCpuS: split.map((x) => x.helpers),
         postgresCpuS: after.pg - before.pg, benchCpuS: (bench.user + bench.system) / 1e6,
@@ -225,79 +256,82 @@ async function main() {
       return `${n}: ${b.chunks} chunks, first ${b.firstStartMs} ms after enqueue, computing ${b.computeS.toFixed(2)} s, claim ${b.claimS.toFixed(3)} s, merge ${b.mergeS.toFixed(3)} s, thread idle ${b.idleS.toFixed(2)} s, ${cpu}`;
     }).join('; ') + `; last merge (with the figures) ${lastMergeMs(run).toFixed(0)} ms; PostgreSQL CPU ${run.postgresCpuS.toFixed(2)} s; bench process CPU ${run.benchCpuS.toFixed(2)} s`;
 
-    // Reference: the same samples in this process, one thread, no queue (the work the workers share).
-    const cpu0 = process.cpuUsage();
-    const t0 = performance.now();
-    robustnessSamples({ body, sequence, target, toleranceDeg: 2, seed: 1, model: DEFAULT_ROBUSTNESS_MODEL }, 0, SAMPLES);
-    const directS = (performance.now() - t0) / 1000;
-    const cpu1 = process.cpuUsage(cpu0);
-    const directCpuS = (cpu1.user + cpu1.system) / 1e6;
-    log(`  one thread in this process, no queue: ${directS.toFixed(2)} s, CPU ${directCpuS.toFixed(2)} s (load ${load()})`);
+    /** The same samples in this process, one thread, no queue (the work the workers share); measured once, cold. */
+    const direct = (c: BenchCase) => {
+      const cpu0 = process.cpuUsage();
+      const t0 = performance.now();
+      robustnessSamples({ body: c.body, sequence: c.sequence, target: c.target, toleranceDeg: 2, seed: 1, model: DEFAULT_ROBUSTNESS_MODEL }, 0, SAMPLES);
+      const cpu1 = process.cpuUsage(cpu0);
+      return { s: (performance.now() - t0) / 1000, cpuS: (cpu1.user + cpu1.system) / 1e6 };
+    };
+    const directs = cases.map((c) => {
+      const d = direct(c);
+      log(`${c.title}: ${c.durationS.toFixed(1)} s of steps; ${SAMPLES} samples in ${SPLIT}, seed 1. One thread in this process, no queue: ${d.s.toFixed(2)} s, CPU ${d.cpuS.toFixed(2)} s (load ${load()})`);
+      return d;
+    });
 
-    workers.push(await startWorker(env, 'bench worker 1'));
-    const second = await startWorker(env, 'bench worker 2');
-    workers.push(second);
-    await sleep(1000);
-    // Two untimed runs: a compute thread's code settles (V8 tiers it up) only after about a thousand
-    // samples (in one thread, 1,000 samples took 0.97 s, then 0.42 s, then 0.36 s), and each worker
-    // gets about half of a two-worker run.
-    const warmFirst = await timeRun();
-    const warm = await timeRun();
-    log(`  untimed warm-up runs, two workers: ${warmFirst.s.toFixed(2)} s, ${warm.s.toFixed(2)} s`);
-    const ones: Timed[] = [], twos: Timed[] = [];
-    for (let i = 0; i < REPEATS; i++) {
-      // The queue is empty here, so the paused worker holds no job.
-      second.kill('SIGSTOP');
-      await sleep(500);
-      const a = await timeRun();
-      ones.push(a);
-      log(`  one worker process, run ${i + 1}: ${a.s.toFixed(2)} s (load ${load()}); ${describe(a, ['bench worker 1'])}`);
-      second.kill('SIGCONT');
-      await sleep(1000);
-      const b = await timeRun();
-      twos.push(b);
-      log(`  two worker processes, run ${i + 1}: ${b.s.toFixed(2)} s (load ${load()}); ${describe(b, ['bench worker 1', 'bench worker 2'])}`);
-    }
-    // Stopped here so each prints how many jobs it ran (both took chunks).
-    await Promise.all(workers.splice(0).map(stopWorker));
-    const sameFigures = [warmFirst, warm, ...ones, ...twos].every((r) => JSON.stringify(r.figures) === JSON.stringify(warm.figures));
-    if (!sameFigures) throw new Error('figures differ between runs: the split changed the result');
-    const f = warm.figures as { openLoopP95Deg: number; feedbackP95Deg: number };
-    const one = median(ones.map((r) => r.s));
-    const two = median(twos.map((r) => r.s));
-    const ratio = one / two;
-    const workerCpu = (runs: Timed[]) => median(runs.map((r) => r.workerCpuS.reduce((x, c) => x + c, 0)));
-    // The queue's own CPU in the workers: their main threads (the compute threads do only the samples).
-    const mainCpu = (runs: Timed[]) => median(runs.map((r) => r.mainThreadCpuS.reduce((x, c) => x + c, 0)));
-    const pgCpu = (runs: Timed[]) => median(runs.map((r) => r.postgresCpuS));
-    const computeCpu = (runs: Timed[]) => median(runs.map((r) => r.computeThreadCpuS.reduce((x, c) => x + c, 0)));
-    const helperCpu = (runs: Timed[]) => median(runs.map((r) => r.helperThreadsCpuS.reduce((x, c) => x + c, 0)));
-    const benchCpu = (runs: Timed[]) => median(runs.map((r) => r.benchCpuS));
-    // All the CPU a run cost on this machine: the workers, PostgreSQL and the bench's own polling.
-    const totalCpu = (runs: Timed[]) => median(runs.map((r) => r.workerCpuS.reduce((x, c) => x + c, 0) + r.postgresCpuS + r.benchCpuS));
-    const gcCount = (runs: Timed[], names: string[]) => median(runs.map((r) => names.reduce((x, n) => { const g = gcOf(r, n); return x + g.scavenges + g.markCompacts; }, 0)));
-    // Thread idle per worker, summed over the workers that ran (the second is paused in one-worker runs).
-    const idle = (runs: Timed[], names: string[]) => median(runs.map((r) => names.reduce((x, n) => x + breakdown(r, n).idleS, 0)));
-    const loadAfter = load();
-    log('');
     const both = ['bench worker 1', 'bench worker 2'];
-    log(`| workers | wall time, enqueue → merged result (median of ${REPEATS}) | ratio | worker CPU (main / compute / other threads) | PostgreSQL CPU | all CPU of a run | compute threads idle |`);
-    log('|---|---|---|---|---|---|---|');
-    const row = (runs: Timed[], names: string[]) =>
-      `${workerCpu(runs).toFixed(2)} s (${mainCpu(runs).toFixed(2)} / ${computeCpu(runs).toFixed(2)} / ${helperCpu(runs).toFixed(2)} s) | ${pgCpu(runs).toFixed(2)} s | ${totalCpu(runs).toFixed(2)} s | ${idle(runs, names).toFixed(2)} s |`;
-    log(`| 1 | ${one.toFixed(2)} s | 1.00 | ${row(ones, ['bench worker 1'])}`);
-    log(`| 2 | ${two.toFixed(2)} s | ${ratio.toFixed(2)}× faster | ${row(twos, both)}`);
-    if (values.gc) log(`Worker collections per run (median): one worker ${gcCount(ones, ['bench worker 1'])}, two workers ${gcCount(twos, both)} (summed).`);
-    log(`Same samples in one thread without a queue: ${directS.toFixed(2)} s wall, ${directCpuS.toFixed(2)} s CPU (cold, measured once). ${SPLIT}.`);
-    log(`Identical figures in every run: yes (open-loop p95 ${f.openLoopP95Deg.toFixed(2)}°, feedback p95 ${f.feedbackP95Deg.toFixed(2)}°).`);
-    log(`Load average (1/5/15 min) before ${loadBefore}, after ${loadAfter}; ${os.cpus().length} cores shared with whatever else runs.`);
-    await queue.stop();
-    await ctx.close();
-    if (values.json) {
+    for (const name of both) workers.push(await startWorker(env, name));
+    await sleep(1000);
+
+    /** Warm-up and alternating timed runs of one maneuver; its figures. */
+    const measure = async (c: BenchCase, d: { s: number; cpuS: number }) => {
+      log('');
+      log(`${c.title}:`);
+      // Two untimed runs: a compute thread's code settles (V8 tiers it up) only after about a thousand
+      // samples, and each worker gets about half of a two-worker run.
+      const warmFirst = await timeRun(c, both);
+      const warm = await timeRun(c, both);
+      log(`  untimed warm-up runs, two workers: ${warmFirst.s.toFixed(2)} s, ${warm.s.toFixed(2)} s`);
+      const ones: Timed[] = [], twos: Timed[] = [];
+      for (let i = 0; i < REPEATS; i++) {
+        // The one-worker runs alternate between the two processes, so that a process whose compute
+        // thread happens to run slower weighs on both columns alike.
+        // The queue is empty here, so the paused worker holds no job.
+        const alone = i % 2, paused = workers[1 - alone];
+        paused.kill('SIGSTOP');
+        await sleep(500);
+        const a = await timeRun(c, [both[alone]]);
+        ones.push(a);
+        log(`  one worker process (${both[alone]}), run ${i + 1}: ${a.s.toFixed(2)} s (load ${load()}); ${describe(a, a.ran)}`);
+        paused.kill('SIGCONT');
+        await sleep(1000);
+        const b = await timeRun(c, both);
+        twos.push(b);
+        log(`  two worker processes, run ${i + 1}: ${b.s.toFixed(2)} s (load ${load()}); ${describe(b, both)}`);
+      }
+      const sameFigures = [warmFirst, warm, ...ones, ...twos].every((r) => JSON.stringify(r.figures) === JSON.stringify(warm.figures));
+      if (!sameFigures) throw new Error(`${c.title}: figures differ between runs: the split changed the result`);
+      const f = warm.figures as { openLoopP95Deg: number; feedbackP95Deg: number };
+      const one = median(ones.map((r) => r.s));
+      const two = median(twos.map((r) => r.s));
+      const ratio = one / two;
+      const workerCpu = (runs: Timed[]) => median(runs.map((r) => r.workerCpuS.reduce((x, y) => x + y, 0)));
+      // The queue's own CPU in the workers: their main threads (the compute threads do only the samples).
+      const mainCpu = (runs: Timed[]) => median(runs.map((r) => r.mainThreadCpuS.reduce((x, y) => x + y, 0)));
+      const pgCpu = (runs: Timed[]) => median(runs.map((r) => r.postgresCpuS));
+      const computeCpu = (runs: Timed[]) => median(runs.map((r) => r.computeThreadCpuS.reduce((x, y) => x + y, 0)));
+      const helperCpu = (runs: Timed[]) => median(runs.map((r) => r.helperThreadsCpuS.reduce((x, y) => x + y, 0)));
+      const benchCpu = (runs: Timed[]) => median(runs.map((r) => r.benchCpuS));
+      // All the CPU a run cost on this machine: the workers, PostgreSQL and the bench's own polling.
+      const totalCpu = (runs: Timed[]) => median(runs.map((r) => r.workerCpuS.reduce((x, y) => x + y, 0) + r.postgresCpuS + r.benchCpuS));
+      const gcCount = (runs: Timed[]) => median(runs.map((r) => r.ran.reduce((x, n) => { const g = gcOf(r, n); return x + g.scavenges + g.markCompacts; }, 0)));
+      // Thread idle per worker, summed over the workers that ran (the second is paused in one-worker runs).
+      const idle = (runs: Timed[]) => median(runs.map((r) => r.ran.reduce((x, n) => x + breakdown(r, n).idleS, 0)));
+      log('');
+      log(`| workers | wall time, enqueue → merged result (median of ${REPEATS}) | ratio | worker CPU (main / compute / other threads) | PostgreSQL CPU | all CPU of a run | compute threads idle |`);
+      log('|---|---|---|---|---|---|---|');
+      const row = (runs: Timed[]) =>
+        `${workerCpu(runs).toFixed(2)} s (${mainCpu(runs).toFixed(2)} / ${computeCpu(runs).toFixed(2)} / ${helperCpu(runs).toFixed(2)} s) | ${pgCpu(runs).toFixed(2)} s | ${totalCpu(runs).toFixed(2)} s | ${idle(runs).toFixed(2)} s |`;
+      log(`| 1 | ${one.toFixed(2)} s | 1.00 | ${row(ones)}`);
+      log(`| 2 | ${two.toFixed(2)} s | ${ratio.toFixed(2)}× faster | ${row(twos)}`);
+      if (values.gc) log(`Worker collections per run (median): one worker ${gcCount(ones)}, two workers ${gcCount(twos)} (summed).`);
+      log(`Same samples in one thread without a queue: ${d.s.toFixed(2)} s wall, ${d.cpuS.toFixed(2)} s CPU (cold, measured once). ${SPLIT}.`);
+      log(`Identical figures in every run: yes (open-loop p95 ${f.openLoopP95Deg.toFixed(2)}°, feedback p95 ${f.feedbackP95Deg.toFixed(2)}°).`);
       const round = (x: number) => Number(x.toFixed(3));
-      console.log(JSON.stringify({
+      return {
         oneWorkerS: round(one), twoWorkersS: round(two), ratio: round(ratio),
-        directOneThreadS: round(directS), directOneThreadCpuS: round(directCpuS), samples: SAMPLES, chunkSize: RANGES[0]?.to ?? 0, chunks: RANGES.length, repeats: REPEATS,
+        directOneThreadS: round(d.s), directOneThreadCpuS: round(d.cpuS),
         oneWorkerRunsS: ones.map((r) => round(r.s)), twoWorkersRunsS: twos.map((r) => round(r.s)),
         oneWorkerCpuS: round(workerCpu(ones)), twoWorkersCpuS: round(workerCpu(twos)),
         oneWorkerMainThreadCpuS: round(mainCpu(ones)), twoWorkersMainThreadCpuS: round(mainCpu(twos)),
@@ -306,10 +340,28 @@ async function main() {
         oneWorkerOtherThreadsCpuS: round(helperCpu(ones)), twoWorkersOtherThreadsCpuS: round(helperCpu(twos)),
         oneWorkerBenchCpuS: round(benchCpu(ones)), twoWorkersBenchCpuS: round(benchCpu(twos)),
         oneWorkerTotalCpuS: round(totalCpu(ones)), twoWorkersTotalCpuS: round(totalCpu(twos)),
-        ...(values.gc ? { oneWorkerGcCount: gcCount(ones, ['bench worker 1']), twoWorkersGcCount: gcCount(twos, both) } : {}),
+        ...(values.gc ? { oneWorkerGcCount: gcCount(ones), twoWorkersGcCount: gcCount(twos) } : {}),
+        oneWorkerThreadIdleS: round(idle(ones)), twoWorkersThreadIdleS: round(idle(twos)),
+        openLoopP95Deg: round(f.openLoopP95Deg), feedbackP95Deg: round(f.feedbackP95Deg),
+      };
+    };
+    const results: Awaited<ReturnType<typeof measure>>[] = [];
+    for (const [i, c] of cases.entries()) results.push(await measure(c, directs[i]));
+    // Stopped here so each prints how many jobs it ran (both took chunks).
+    await Promise.all(workers.splice(0).map(stopWorker));
+    const loadAfter = load();
+    log('');
+    log(`Summary: ${cases.map((c, i) => `${c.key} maneuver ${results[i].oneWorkerS.toFixed(2)} s → ${results[i].twoWorkersS.toFixed(2)} s, ${results[i].ratio.toFixed(2)}×`).join('; ')}.`);
+    log(`Load average (1/5/15 min) before ${loadBefore}, after ${loadAfter}; ${os.cpus().length} cores shared with whatever else runs.`);
+    await queue.stop();
+    await ctx.close();
+    if (values.json) {
+      const [standard, light] = results;
+      console.log(JSON.stringify({
+        // The standard maneuver's figures (the goal), then the light one's under `light`.
+        ...standard, samples: SAMPLES, chunkSize: RANGES[0]?.to ?? 0, chunks: RANGES.length, repeats: REPEATS,
         ...(NODE_FLAGS.length ? { workerNodeFlags: NODE_FLAGS.join(' ') } : {}),
-        oneWorkerThreadIdleS: round(idle(ones, ['bench worker 1'])), twoWorkersThreadIdleS: round(idle(twos, both)),
-        loadBefore, loadAfter,
+        light, loadBefore, loadAfter,
       }));
     }
   } finally {
