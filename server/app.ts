@@ -40,7 +40,7 @@ export function createApp(ctx: AppContext): Express {
       },
     }),
   );
-  app.use(pinoHttp({ logger: ctx.logger, serializers: httpLogSerializers, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
+  app.use(pinoHttp({ logger: ctx.logger, serializers: httpLogSerializers, wrapSerializers: false, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }));
   app.use(cookieParser());
   app.use('/api', originCheck(ctx.config));
   app.use(express.json({ limit: '2mb' }));

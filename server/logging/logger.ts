@@ -1,3 +1,5 @@
+import type { IncomingMessage, ServerResponse } from 'node:http';
+
 import { type DestinationStream, type Logger, pino, stdSerializers } from 'pino';
 
 /**
@@ -39,16 +41,20 @@ function serializeError(err: unknown): Record<string, unknown> {
   return out;
 }
 
-/** Serializers for pino-http (whose req serializer receives the standard-serialized request). */
+/**
+ * Serializers for pino-http (given the raw request and response: `wrapSerializers: false`). A request
+ * line says who asked for what and how it ended: id, method, redacted URL, client address, status.
+ * Headers are left out: they carry the session token and cookies, and serialising and redacting
+ * them on every request cost the API about a sixth of its CPU per request (npm run bench:api).
+ */
 export const httpLogSerializers = {
-  req: (req: { url?: string; [k: string]: unknown }) => {
-    const out = { ...req };
-    if (typeof out.url === 'string') out.url = redactText(out.url);
-    // Route params and the query repeat the path: drop them, the redacted URL says it all.
-    delete out.params;
-    delete out.query;
-    return out;
-  },
+  req: (req: IncomingMessage & { id?: unknown; originalUrl?: string }) => ({
+    id: req.id,
+    method: req.method,
+    url: redactText(req.originalUrl ?? req.url ?? ''),
+    remoteAddress: req.socket?.remoteAddress,
+  }),
+  res: (res: ServerResponse) => ({ statusCode: res.statusCode }),
   err: serializeError,
 };
 
