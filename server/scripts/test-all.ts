@@ -3,7 +3,8 @@
  * `N passed, N failed` that sums them. Exits non-zero on any failure.
  *   1. typecheck (tsc --noEmit) and lint (eslint), one check each;
  *   2. unit and integration tests (vitest, real PostgreSQL in a throwaway cluster);
- *   3. web build (expo export), then browser e2e (Playwright in Debian's Chromium).
+ *   3. web build (expo export) and sign-in's first-load budget (tests/bench/web.ts), then browser e2e
+ *      (Playwright in Debian's Chromium).
  * Installs Debian's chromium and poppler-utils with apt-get when missing (never a downloaded browser).
  */
 import { spawnSync } from 'node:child_process';
@@ -78,6 +79,11 @@ try {
   built = false;
 }
 record('web build', built ? 1 : 0, built ? 0 : 1);
+if (built) {
+  // Sign-in's first load stays within its budget of gzipped JavaScript (npm run bench:web fails over it).
+  const budget = run('npx', ['tsx', 'tests/bench/web.ts']);
+  record('web budget', ok(budget), 1 - ok(budget));
+}
 
 const e2eOut = path.join(reports, 'e2e-report.json');
 rmSync(e2eOut, { force: true });
