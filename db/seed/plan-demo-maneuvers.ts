@@ -10,9 +10,8 @@ import { deriveProfile } from '../../server/crew/derive-profile.ts';
 import { BUILT_IN_SUITS } from '../../server/model/suits/index.ts';
 import { planManeuver } from '../../server/planning/plan-maneuver.ts';
 import type { Body } from '../../shared/contracts/body.ts';
-import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { planRequestSchema } from '../../shared/contracts/plan.ts';
-import { PLANNED_DEMO_MANEUVERS, type PlannedManeuver, plannedManeuversFile } from './planned-maneuvers.ts';
+import { PLANNED_DEMO_MANEUVERS, type PlannedManeuver, plannedManeuversFile, plannedTarget } from './planned-maneuvers.ts';
 import { DEMO_PROFILES } from './seed-crew-profiles.ts';
 
 /** The body of a demo crew member's current (newest) profile version. */
@@ -26,7 +25,7 @@ export function demoCurrentBody(crew: keyof typeof DEMO_PROFILES): Body {
 if (import.meta.url === `file://${process.argv[1]}`) {
   const out: PlannedManeuver[] = [];
   for (const m of PLANNED_DEMO_MANEUVERS) {
-    const target = sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: m.yprDeg, toleranceDeg: 2, rateLimitDegS: 180 });
+    const target = plannedTarget(m);
     const { candidates, notes } = planManeuver({ body: demoCurrentBody(m.crew), target, settings: planRequestSchema.parse({ samples: 50, maxCandidates: 2 }) });
     const best = candidates[0];
     if (!best?.withinTolerance) throw new Error(`${m.name}: no candidate within tolerance (${notes.join(' ')})`);

@@ -5,6 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 
+import { type SequenceTarget, sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import type { Primitive } from '../../shared/primitives/primitive-schemas.ts';
 
 /** What a planned demo maneuver is for. */
@@ -30,6 +31,11 @@ export const PLANNED_DEMO_MANEUVERS: PlannedManeuverSpec[] = [
   { crew: 'kettle', name: 'Quarter turn to the left in the suit', yprDeg: { yaw: 90, pitch: 0, roll: 0 } },
   { crew: 'moss', name: 'Roll 45° to the right', yprDeg: { yaw: 0, pitch: 0, roll: 45 } },
 ];
+
+/** The target a demo maneuver was planned for: its yaw/pitch/roll, 2° tolerance, 180°/s rate limit. */
+export function plannedTarget(m: PlannedManeuverSpec): SequenceTarget {
+  return sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: m.yprDeg, toleranceDeg: 2, rateLimitDegS: 180 });
+}
 
 /** Path of the committed plans. */
 export const plannedManeuversFile = fileURLToPath(new URL('./planned-maneuvers.json', import.meta.url).href);

@@ -36,7 +36,7 @@ import { createDatabase } from '../../db/client.ts';
 import { runMigrations } from '../../db/migrate.ts';
 import { robustnessRuns } from '../../db/schema/index.ts';
 import { demoCurrentBody } from '../../db/seed/plan-demo-maneuvers.ts';
-import { loadPlannedManeuvers } from '../../db/seed/planned-maneuvers.ts';
+import { loadPlannedManeuvers, plannedTarget } from '../../db/seed/planned-maneuvers.ts';
 import type { AppContext } from '../../server/app-context.ts';
 import { loadConfig } from '../../server/config.ts';
 import { createContext } from '../../server/context.ts';
@@ -47,7 +47,6 @@ import { compileForBody, evaluateSequence } from '../../server/planning/evaluate
 import { robustnessSamples } from '../../server/planning/robustness.ts';
 import { startLocalCluster } from '../../server/scripts/postgres-cluster.ts';
 import type { Body } from '../../shared/contracts/body.ts';
-import { sequenceTargetSchema } from '../../shared/contracts/maneuver.ts';
 import { DEFAULT_ROBUSTNESS_MODEL } from '../../shared/contracts/robustness.ts';
 import type { Sequence } from '../../shared/contracts/sequence.ts';
 import type { Quat } from '../../shared/math/quaternion.ts';
@@ -90,7 +89,7 @@ function standardCase(): BenchCase {
   const body = demoCurrentBody(m.crew);
   const sequence = compileForBody(body, m.primitives);
   const durationS = evaluateSequence(body, sequence, [1, 0, 0, 0]).durationS;
-  const target = targetQuat(sequenceTargetSchema.parse({ mode: 'ypr', yprDeg: m.yprDeg, toleranceDeg: 2, rateLimitDegS: 180 }));
+  const target = targetQuat(plannedTarget(m));
   return { key: 'standard', title: `${m.name} (planner-made demo maneuver, suited crew member, ${m.primitives.length} steps)`, body, sequence, target, durationS };
 }
 
