@@ -45,7 +45,8 @@ function serializeError(err: unknown): Record<string, unknown> {
  * Serializers for pino-http (given the raw request and response: `wrapSerializers: false`). A request
  * line says who asked for what and how it ended: id, method, redacted URL, client address, status.
  * Headers are left out: they carry the session token and cookies, and serialising and redacting
- * them on every request cost the API about a sixth of its CPU per request (npm run bench:api).
+ * them on every request took about a sixth of the server's busy time in a CPU profile under
+ * npm run bench:api, besides the garbage it left.
  */
 export const httpLogSerializers = {
   req: (req: IncomingMessage & { id?: unknown; originalUrl?: string }) => ({
